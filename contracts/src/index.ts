@@ -1,0 +1,6 @@
+// One export line per contract file; keep the list sorted by folder.
+export * from './auth/auth.schema';
+export * from './auth/users.schema';
+export * from './common/error.schema';
+export * from './units/format';
+export * from './units/quantity';
