@@ -3,4 +3,5 @@ export * from './auth/auth.schema';
 export * from './auth/users.schema';
 export * from './common/error.schema';
 export * from './units/format';
+export * from './units/parse';
 export * from './units/quantity';
