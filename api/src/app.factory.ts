@@ -1,0 +1,55 @@
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import type { LoggerService, LogLevel } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import type { NextFunction, Request, Response } from 'express';
+import { cleanupOpenApiDoc } from 'nestjs-zod';
+import { AppModule } from './app.module';
+import { correlationIdMiddleware } from './common/correlation-id.middleware';
+import type { Env } from './config/env';
+
+export interface CreateAppOptions {
+  logger?: LoggerService | LogLevel[] | false;
+}
+
+/** Builds the API (and, when WEB_DIST holds a build, the web app on the same origin); does not listen. */
+export async function createApp(env: Env, options: CreateAppOptions = {}): Promise<NestExpressApplication> {
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
+    logger: options.logger ?? ['error', 'warn', 'log'],
+    bodyParser: true,
+  });
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.useBodyParser('json', { limit: '2mb' });
+  app.use(correlationIdMiddleware);
+  app.use((_req: Request, res: Response, next: NextFunction) => {
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Referrer-Policy', 'same-origin');
+    next();
+  });
+  app.setGlobalPrefix('api');
+  app.enableShutdownHooks();
+
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder().setTitle('Shuntwise API').setDescription('JSON in SI units.').setVersion('1').addBearerAuth().build(),
+  );
+  SwaggerModule.setup('api/docs', app, cleanupOpenApiDoc(document));
+
+  const webDist = resolve(env.WEB_DIST ?? join(__dirname, '..', '..', 'web', 'dist'));
+  if (existsSync(join(webDist, 'index.html'))) serveWeb(app, webDist);
+  return app;
+}
+
+/** Static files, then index.html for every other non-API GET so client-side routes load. */
+function serveWeb(app: NestExpressApplication, webDist: string): void {
+  app.useStaticAssets(webDist, { index: false, maxAge: '1h', immutable: false });
+  const index = join(webDist, 'index.html');
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' || req.path.startsWith('/api/') || req.path === '/api') return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,46 @@
+import { Module, type DynamicModule } from '@nestjs/common';
+import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
+import { ThrottlerModule } from '@nestjs/throttler';
+import { ZodValidationPipe } from 'nestjs-zod';
+import { AuthModule } from './auth/auth.module';
+import { AllExceptionsFilter } from './common/filters/all-exceptions.filter';
+import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
+import { RolesGuard } from './common/guards/roles.guard';
+import { ConfigModule } from './config/config.module';
+import type { Env } from './config/env';
+import { DatabaseModule } from './database/database.module';
+import { HealthModule } from './health/health.module';
+import { MailModule } from './mail/mail.module';
+import { OutboxModule } from './outbox/outbox.module';
+import { StorageModule } from './storage/storage.module';
+import { SeedModule } from './seed/seed.module';
+import { UsersModule } from './users/users.module';
+
+/** Feature modules, one per resource of the API map. */
+const FEATURES = [AuthModule, UsersModule, HealthModule, OutboxModule, SeedModule];
+
+@Module({})
+export class AppModule {
+  static forRoot(env: Env): DynamicModule {
+    return {
+      module: AppModule,
+      imports: [
+        ConfigModule.forRoot(env),
+        DatabaseModule,
+        StorageModule,
+        MailModule,
+        ThrottlerModule.forRoot({
+          throttlers: [{ name: 'login', ttl: env.LOGIN_RATE_WINDOW_SECONDS * 1000, limit: env.LOGIN_RATE_LIMIT }],
+          errorMessage: 'Too many attempts; wait a minute and try again',
+        }),
+        ...FEATURES,
+      ],
+      providers: [
+        { provide: APP_GUARD, useClass: JwtAuthGuard },
+        { provide: APP_GUARD, useClass: RolesGuard },
+        { provide: APP_PIPE, useClass: ZodValidationPipe },
+        { provide: APP_FILTER, useClass: AllExceptionsFilter },
+      ],
+    };
+  }
+}

@@ -1,0 +1,41 @@
+import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
+import { PassportStrategy } from '@nestjs/passport';
+import { ExtractJwt, Strategy } from 'passport-jwt';
+import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { ENV, type Env } from '../config/env';
+import { UsersRepository } from '../users/users.repository';
+
+export interface JwtPayload {
+  sub: number;
+  role: string;
+  /** The user's token version when the token was issued. */
+  tv: number;
+}
+
+export const JWT_ALGORITHM = 'HS256' as const;
+
+/** Checks signature (HS256 only), expiry, issuer and audience, then that the user is still active and the token not ended. */
+@Injectable()
+export class JwtStrategy extends PassportStrategy(Strategy) {
+  constructor(
+    @Inject(ENV) env: Env,
+    private readonly users: UsersRepository,
+  ) {
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      secretOrKey: env.JWT_SECRET,
+      algorithms: [JWT_ALGORITHM],
+      issuer: env.JWT_ISSUER,
+      audience: env.JWT_AUDIENCE,
+      ignoreExpiration: false,
+    });
+  }
+
+  async validate(payload: JwtPayload): Promise<AuthUser> {
+    const user = typeof payload.sub === 'number' ? await this.users.findById(payload.sub) : null;
+    if (!user || !user.active || user.tokenVersion !== payload.tv || user.role !== payload.role) {
+      throw new UnauthorizedException('Your session has ended; sign in again');
+    }
+    return { id: user.id, email: user.email, name: user.name, role: user.role };
+  }
+}

@@ -1,0 +1,70 @@
+import { ArgumentsHost, Catch, HttpException, HttpStatus, Logger, type ExceptionFilter } from '@nestjs/common';
+import type { ErrorBody } from '@shuntwise/contracts';
+import type { Response } from 'express';
+import { ZodValidationException } from 'nestjs-zod';
+import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError } from 'sequelize';
+import { ZodError } from 'zod';
+import type { RequestWithCorrelation } from '../correlation-id.middleware';
+
+/**
+ * One error body for the whole API: {message, errors?, correlationId}. Known errors keep
+ * their status; anything else is logged and answered as a 500 without internals.
+ */
+@Catch()
+export class AllExceptionsFilter implements ExceptionFilter {
+  private readonly logger = new Logger('Errors');
+
+  catch(exception: unknown, host: ArgumentsHost): void {
+    const ctx = host.switchToHttp();
+    const req = ctx.getRequest<RequestWithCorrelation>();
+    const res = ctx.getResponse<Response>();
+    const correlationId = req.correlationId ?? 'none';
+    const { status, body } = this.describe(exception);
+    if (status >= 500) {
+      this.logger.error(`${req.method} ${req.originalUrl} [${correlationId}] ${exception instanceof Error ? exception.stack : String(exception)}`);
+    }
+    if (res.headersSent) return;
+    res.status(status).json({ ...body, correlationId } satisfies ErrorBody);
+  }
+
+  private describe(exception: unknown): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
+    if (exception instanceof ZodValidationException) return this.fromZod(exception.getZodError() as ZodError);
+    if (exception instanceof ZodError) return this.fromZod(exception);
+    if (exception instanceof HttpException) {
+      const status = exception.getStatus();
+      const response = exception.getResponse();
+      if (typeof response === 'string') return { status, body: { message: response } };
+      const r = response as { message?: unknown; errors?: ErrorBody['errors'] };
+      const message = Array.isArray(r.message) ? r.message.join('; ') : typeof r.message === 'string' ? r.message : exception.message;
+      return { status, body: r.errors ? { message, errors: r.errors } : { message } };
+    }
+    if (exception instanceof UniqueConstraintError) {
+      const fields = Object.keys(exception.fields ?? {});
+      return {
+        status: HttpStatus.CONFLICT,
+        body: { message: `Already exists${fields.length ? ` (${fields.join(', ')})` : ''}`, errors: fields.map((f) => ({ path: f, message: 'must be unique' })) },
+      };
+    }
+    if (exception instanceof ForeignKeyConstraintError) {
+      return { status: HttpStatus.CONFLICT, body: { message: 'A referenced record does not exist or is still in use' } };
+    }
+    if (exception instanceof OptimisticLockError) {
+      return { status: HttpStatus.CONFLICT, body: { message: 'Someone else changed this record; reload and merge' } };
+    }
+    const e = exception as { type?: string; status?: number; message?: string };
+    // body-parser errors (malformed JSON, too large) carry a status of their own.
+    if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
+      return { status: e.status, body: { message: e.type === 'entity.parse.failed' ? 'The request body is not valid JSON' : (e.message ?? 'Bad request') } };
+    }
+    return { status: HttpStatus.INTERNAL_SERVER_ERROR, body: { message: 'Internal error; quote the correlation id when reporting it' } };
+  }
+
+  private fromZod(error: ZodError): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
+    const errors = error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }));
+    const first = errors[0];
+    return {
+      status: HttpStatus.BAD_REQUEST,
+      body: { message: first ? `Invalid request: ${first.path}: ${first.message}` : 'Invalid request', errors },
+    };
+  }
+}

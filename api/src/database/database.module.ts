@@ -1,0 +1,20 @@
+import { Global, Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { ENV, type Env } from '../config/env';
+import { sequelizeOptions } from './sequelize-options';
+
+/** MariaDB through Sequelize. Models register themselves with SequelizeModule.forFeature; the schema comes from migrations only. */
+@Global()
+@Module({
+  imports: [
+    SequelizeModule.forRootAsync({
+      inject: [ENV],
+      useFactory: (env: Env) => ({
+        ...sequelizeOptions(env),
+        autoLoadModels: true,
+        synchronize: false,
+      }),
+    }),
+  ],
+})
+export class DatabaseModule {}

@@ -1,0 +1,23 @@
+import type { Options } from 'sequelize';
+import type { Env } from '../config/env';
+
+/**
+ * Connection settings shared by the Nest module, the migrator and the seed.
+ * Raw queries must pass a `type` (QueryTypes.SELECT…): the mariadb 3.x driver makes a
+ * result's `meta` non-deletable and Sequelize 6's untyped raw path tries to delete it.
+ */
+export function sequelizeOptions(env: Env, database = env.DB_NAME): Options {
+  return {
+    dialect: 'mariadb',
+    host: env.DB_HOST,
+    port: env.DB_PORT,
+    database,
+    username: env.DB_USER,
+    password: env.DB_PASSWORD,
+    logging: env.DB_LOGGING ? (sql: string) => console.log(sql) : false,
+    pool: { max: env.DB_POOL_MAX, min: 0, idle: 10_000, acquire: 20_000 },
+    timezone: '+00:00',
+    dialectOptions: { connectTimeout: 5_000 },
+    define: { underscored: true },
+  };
+}

@@ -1,0 +1,12 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { CapturedMail } from './captured-mail.model';
+import { OutboxController } from './outbox.controller';
+import { OutboxService } from './outbox.service';
+
+@Module({
+  imports: [SequelizeModule.forFeature([CapturedMail])],
+  controllers: [OutboxController],
+  providers: [OutboxService],
+})
+export class OutboxModule {}
