@@ -1,0 +1,87 @@
+// Lint guards the architecture as well as the code: no import cycles, imports that flow
+// one way (contracts ← api, contracts ← web; in web shared → features → app, no feature
+// reaching into another), and a pure engineering core.
+import js from '@eslint/js';
+import importX from 'eslint-plugin-import-x';
+import reactHooks from 'eslint-plugin-react-hooks';
+import globals from 'globals';
+import tseslint from 'typescript-eslint';
+import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
+
+const webFeatures = ['auth', 'users', 'outbox', 'catalogue', 'house-parts', 'vendor-parts', 'datasheets', 'qualifications', 'compare', 'find-parts', 'sources', 'board'];
+
+export default tseslint.config(
+  {
+    ignores: ['**/dist/**', '**/node_modules/**', '**/coverage/**', '.data/**', '.data-test/**', 'artifacts/**', 'web/.scratch/**', '**/*.d.ts', 'test-fixtures/index.js'],
+  },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    plugins: { 'import-x': importX },
+    settings: {
+      'import-x/resolver-next': [
+        createTypeScriptImportResolver({ project: ['contracts/tsconfig.json', 'api/tsconfig.json', 'web/tsconfig.json'], noWarnOnMultipleProjects: true }),
+      ],
+    },
+    languageOptions: { globals: { ...globals.node } },
+    rules: {
+      'import-x/no-cycle': ['error', { ignoreExternal: true }],
+      'import-x/no-self-import': 'error',
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' }],
+      '@typescript-eslint/consistent-type-imports': 'off',
+      '@typescript-eslint/no-explicit-any': 'warn',
+      '@typescript-eslint/no-require-imports': 'off',
+    },
+  },
+  {
+    files: ['contracts/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['**/api/**', '**/web/**', '@shuntwise/api', '@shuntwise/web', '@nestjs/*', 'react', 'sequelize*'], message: 'contracts is shared by web and api and depends on neither' }] }],
+    },
+  },
+  {
+    files: ['api/src/engineering/**/*.ts'],
+    ignores: ['api/src/engineering/*.module.ts', 'api/src/engineering/*.controller.ts', 'api/src/engineering/*.dto.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['@nestjs/*', 'sequelize*', 'nestjs-zod', '../*'], message: 'the engineering core stays pure: no Nest, no database, nothing from other api folders' }] }],
+    },
+  },
+  {
+    files: ['api/src/extraction/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['@nestjs/*', 'sequelize*'], message: 'extraction stays pure: no Nest, no database' }] }],
+    },
+  },
+  {
+    files: ['web/**/*.{ts,tsx}'],
+    plugins: { 'react-hooks': reactHooks },
+    languageOptions: { globals: { ...globals.browser } },
+    rules: {
+      ...reactHooks.configs.recommended.rules,
+      'import-x/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            // features never reach into each other; shared code never into features or app
+            ...webFeatures.map((f) => ({
+              target: `./web/src/features/${f}`,
+              from: './web/src/features',
+              except: [`./${f}`],
+              message: 'a feature may not import another feature; move shared code to web/src/components or web/src/lib',
+            })),
+            { target: './web/src/features', from: './web/src/app', message: 'features may not import from app' },
+            {
+              target: ['./web/src/components', './web/src/lib', './web/src/theme', './web/src/hooks', './web/src/utils'],
+              from: ['./web/src/features', './web/src/app'],
+              message: 'shared code may not import features or app',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['**/*.mjs', '**/*.cjs', '**/*.js'],
+    languageOptions: { globals: { ...globals.node } },
+  },
+);
