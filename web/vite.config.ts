@@ -1,6 +1,6 @@
 import { fileURLToPath, URL } from 'node:url';
 import react from '@vitejs/plugin-react';
-import { defineConfig } from 'vite';
+import { defineConfig } from 'vitest/config';
 
 // The contracts package is consumed as TypeScript source: Vite compiles it like our own
 // code, so web and api share one schema file without a CommonJS/ESM bridge.
@@ -15,6 +15,8 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     sourcemap: false,
+    // Read by scripts/measure-bundle.mjs to add up what the sign-in page downloads.
+    manifest: true,
     chunkSizeWarningLimit: 1500,
   },
   server: {

@@ -1,0 +1,5 @@
+export const authKeys = {
+  all: ['auth'] as const,
+  me: () => [...authKeys.all, 'me'] as const,
+  invitation: (token: string) => [...authKeys.all, 'invitation', token] as const,
+};
