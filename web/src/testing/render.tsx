@@ -1,6 +1,5 @@
 import type { ReactElement, ReactNode } from 'react';
 import { MantineProvider } from '@mantine/core';
-import { Notifications } from '@mantine/notifications';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render as testingLibraryRender } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -32,13 +31,12 @@ interface Options {
   queryClient?: QueryClient;
 }
 
-/** Renders inside the app's providers (theme, query client, notifications, router). */
+/** Renders inside the app's providers (theme, query client, router); the signed-in layout adds notifications. */
 export function render(ui: ReactNode, { route = '/', queryClient = createTestQueryClient() }: Options = {}) {
   const user = userEvent.setup();
   const result = testingLibraryRender(ui as ReactElement, {
     wrapper: ({ children }: { children: ReactNode }) => (
       <MantineProvider theme={theme}>
-        <Notifications />
         <QueryClientProvider client={queryClient}>
           <MemoryRouter initialEntries={[route]}>
             <LocationProbe />

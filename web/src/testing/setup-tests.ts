@@ -1,7 +1,10 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach, vi } from 'vitest';
 import { resetSession } from '@/lib/session';
+
+// The data grid renders slowly in jsdom on a 2-core machine; a second is too tight.
+configure({ asyncUtilTimeout: 4000 });
 
 // jsdom lacks what Mantine measures with (as in Mantine's own Vite template).
 const { getComputedStyle } = window;
