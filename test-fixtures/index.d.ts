@@ -1,0 +1,138 @@
+/** Invented demo data for Shuntwise: datasheets with answer keys, bad uploads, the demo catalogue. */
+
+export type RatingField =
+  | 'vzMin'
+  | 'vzNom'
+  | 'vzMax'
+  | 'izt'
+  | 'zzt'
+  | 'izk'
+  | 'zzk'
+  | 'irMax'
+  | 'vr'
+  | 'tc'
+  | 'pdMax'
+  | 'tjMax'
+  | 'rthJA'
+  | 'izm';
+
+/** A value as printed (value and unit text), its SI value (V, A, Ω, W, °C, K/W, V/K) and its page. */
+export interface AnswerValue {
+  value: string;
+  unit: string;
+  si: number;
+  page: number;
+}
+
+export interface AnswerVariant {
+  mpn: string;
+  package: { value: string; page: number };
+  fields: Partial<Record<RatingField, AnswerValue>>;
+}
+
+export interface AnswerKey {
+  file: string;
+  vendor: string;
+  title: string;
+  layout: string;
+  pages: number;
+  variants: AnswerVariant[];
+}
+
+export interface DatasheetFixture {
+  name: string;
+  pdfPath: string;
+  answersPath: string;
+  answers: AnswerKey;
+}
+
+export interface CatalogueSpec {
+  version: number;
+  /** Reference current, A. */
+  iRef: number;
+  /** Zener-voltage window at iRef and 25 °C, V. */
+  vz: { min: number; nom: number; max: number };
+  /** Maximum dynamic impedance at iRef, Ω. */
+  zdMax: number;
+  /** Knee limit: Zd(iKnee)/Zd(iRef) at most maxRatio, and/or voltage span over iMin..iMax at most maxSpan (V). */
+  knee: { iKnee: number; maxRatio: number | null; maxSpan: number | null };
+  /** Maximum leakage (A) at reverse voltage vr (V). */
+  leakage: { irMax: number; vr: number };
+  /** Temperature-coefficient window, V/K. */
+  tc: { min: number; max: number };
+  /** Minimum power rating (W) and the largest fraction of the derated rating that may be used. */
+  power: { pdMin: number; deratingFraction: number };
+  packages: string[];
+  /** Application envelope: operating current (A) and ambient (°C). */
+  envelope: { iMin: number; iMax: number; taMin: number; taMax: number };
+  /** Optional output window over the whole envelope, V. */
+  outputWindow: { vMin: number; vMax: number } | null;
+  /** A check whose margin (fraction of its limit) is below this is marginal. */
+  marginalBand: number;
+}
+
+export type IntentVerdict = 'pass' | 'marginal' | 'fail' | 'no data';
+
+export interface CatalogueSource {
+  vendor: string;
+  mpn: string;
+  role: 'approved' | 'alternate';
+  /** What the demo was built to show, from the generator's simplified check; the qualification engine decides. */
+  intent: { verdict: IntentVerdict; reason: string };
+}
+
+export interface CatalogueHousePart {
+  partNumber: string;
+  description: string;
+  status: 'active' | 'not-for-new-designs' | 'end-of-life';
+  spec: CatalogueSpec;
+  sources: CatalogueSource[];
+}
+
+export interface CatalogueCardField {
+  /** SI value. */
+  value: number;
+  /** As printed, value and unit, e.g. "−1.8 mV/°C". */
+  printed: string;
+  page: number;
+}
+
+export interface CatalogueVendorPart {
+  vendor: string;
+  mpn: string;
+  package: string;
+  lifecycle: string;
+  lifecycleNote: string;
+  /** The datasheet and the page of the part's main values. */
+  datasheet: { file: string; page: number };
+  ratingCard: { pdMaxReferenceTa: number; fields: Partial<Record<RatingField, CatalogueCardField>> };
+}
+
+export interface DemoCatalogue {
+  about: string;
+  company: { name: string; shortName: string; description: string };
+  vendors: Array<{ code: string; name: string; note: string }>;
+  datasheets: Array<{ file: string; vendor: string; title: string; layout: string; pages: number }>;
+  vendorParts: CatalogueVendorPart[];
+  houseParts: CatalogueHousePart[];
+}
+
+export declare const paths: {
+  root: string;
+  datasheets: string;
+  badUploads: string;
+  catalogue: string;
+  demoCatalogue: string;
+};
+
+export declare const badUploads: {
+  notPdf: string;
+  empty: string;
+  truncated: string;
+  corrupt: string;
+  encrypted: string;
+  scanned: string;
+};
+
+export declare function loadDemoCatalogue(): DemoCatalogue;
+export declare function listDatasheetFixtures(): DatasheetFixture[];

@@ -1,0 +1,45 @@
+'use strict';
+// Paths and loaders for the invented demo data. Plain CommonJS so that the compiled api
+// (seed, tests) and any tool can require it without a build step.
+const fs = require('node:fs');
+const path = require('node:path');
+
+const root = __dirname;
+const paths = {
+  root,
+  datasheets: path.join(root, 'datasheets'),
+  badUploads: path.join(root, 'bad-uploads'),
+  catalogue: path.join(root, 'catalogue'),
+  demoCatalogue: path.join(root, 'catalogue', 'demo-catalogue.json'),
+};
+
+const badUploads = {
+  notPdf: path.join(paths.badUploads, 'not-a-pdf.pdf'),
+  empty: path.join(paths.badUploads, 'empty.pdf'),
+  truncated: path.join(paths.badUploads, 'truncated.pdf'),
+  corrupt: path.join(paths.badUploads, 'corrupt.pdf'),
+  encrypted: path.join(paths.badUploads, 'encrypted.pdf'),
+  scanned: path.join(paths.badUploads, 'scanned.pdf'),
+};
+
+function readJson(file) {
+  return JSON.parse(fs.readFileSync(file, 'utf8'));
+}
+
+function loadDemoCatalogue() {
+  return readJson(paths.demoCatalogue);
+}
+
+function listDatasheetFixtures() {
+  return fs
+    .readdirSync(paths.datasheets)
+    .filter((f) => f.endsWith('.pdf'))
+    .sort()
+    .map((f) => {
+      const pdfPath = path.join(paths.datasheets, f);
+      const answersPath = pdfPath.replace(/\.pdf$/, '.answers.json');
+      return { name: f, pdfPath, answersPath, answers: readJson(answersPath) };
+    });
+}
+
+module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures };
