@@ -95,6 +95,9 @@ export interface CatalogueCardField {
   /** As printed, value and unit, e.g. "−1.8 mV/°C". */
   printed: string;
   page: number;
+  /** tc only: the unit printed, as the card keeps it (mV/°C counts as mV/K), and the value in it. */
+  unit?: 'mV/K' | '%/K';
+  valueInUnit?: number;
 }
 
 export interface CatalogueVendorPart {
@@ -105,7 +108,7 @@ export interface CatalogueVendorPart {
   lifecycleNote: string;
   /** The datasheet and the page of the part's main values. */
   datasheet: { file: string; page: number };
-  ratingCard: { pdMaxReferenceTa: number; fields: Partial<Record<RatingField, CatalogueCardField>> };
+  ratingCard: { pdRefC: number; fields: Partial<Record<RatingField, CatalogueCardField>> };
 }
 
 export interface DemoCatalogue {

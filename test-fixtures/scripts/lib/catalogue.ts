@@ -226,10 +226,15 @@ export function buildCatalogue(series: SeriesData[], keys: AnswerKey[]) {
     k.variants.map((v) => {
       const code = series[i].def.vendorCode;
       const life = LIFECYCLE[code] ?? { state: 'active', note: '' };
-      const fields: Record<string, { value: number; printed: string; page: number }> = {};
+      const fields: Record<string, { value: number; printed: string; page: number; unit?: string; valueInUnit?: number }> = {};
       for (const f of FIELDS) {
         const a = v.fields[f];
         if (a) fields[f] = { value: a.si, printed: `${a.value} ${a.unit}`, page: a.page };
+        // The card keeps tc in the unit printed (mV/K or %/K) beside its V/K value.
+        if (a && f === 'tc') {
+          const percent = a.unit.startsWith('%');
+          fields[f] = { ...fields[f], unit: percent ? '%/K' : 'mV/K', valueInUnit: Number(a.value.replace('−', '-')) };
+        }
       }
       return {
         vendor: code,
@@ -238,7 +243,7 @@ export function buildCatalogue(series: SeriesData[], keys: AnswerKey[]) {
         lifecycle: life.state,
         lifecycleNote: life.note,
         datasheet: { file: k.file, page: v.fields.vzNom!.page },
-        ratingCard: { pdMaxReferenceTa: 25, fields },
+        ratingCard: { pdRefC: 25, fields },
       };
     }),
   );

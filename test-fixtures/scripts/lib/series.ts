@@ -68,6 +68,9 @@ export interface SeriesData {
 
 const MA = 1e-3;
 
+/** Drops float noise from a scaled value (0.043000000000000003 → 0.043). */
+const clean = (x: number) => Number(x.toPrecision(12));
+
 function signed(x: number, decimals: number, style: PrintStyle): string {
   const text = fixed(Math.abs(x), decimals);
   if (Number(text) === 0) return text;
@@ -79,7 +82,7 @@ function current(siA: number, unit: 'mA' | 'µA', style: PrintStyle): Printed {
   const prefix = unit === 'mA' ? 'm' : style.micro;
   const factor = unit === 'mA' ? 1e-3 : 1e-6;
   const value = plain(siA / factor);
-  return { value, unit: `${prefix}A`, si: Number(value) * factor };
+  return { value, unit: `${prefix}A`, si: clean(Number(value) * factor) };
 }
 
 function ohms(x: number, style: PrintStyle): Printed {
@@ -94,8 +97,8 @@ function volts(text: string): Printed {
 /** Turns a %/K or mV/K figure as printed into V/K; %/K is relative to the nominal voltage. */
 export function tcToSi(value: string, unit: string, vzNomSi: number): number {
   const n = Number(value.replace('−', '-'));
-  if (unit === '%/K' || unit === '%/°C') return (n / 100) * vzNomSi;
-  return n * 1e-3;
+  if (unit === '%/K' || unit === '%/°C') return clean((n / 100) * vzNomSi);
+  return clean(n * 1e-3);
 }
 
 function tcPrinted(pctPerK: number, vzNom: Printed, style: PrintStyle): Printed {
@@ -154,7 +157,7 @@ export function buildSeries(def: SeriesDef): SeriesData {
     values.tc = tcPrinted(pct, vzNom, s);
     if (def.izm) {
       const izmMa = Math.floor((def.pdW / vzMax.si) * 1000);
-      values.izm = { value: String(izmMa), unit: 'mA', si: izmMa * MA };
+      values.izm = { value: String(izmMa), unit: 'mA', si: clean(izmMa * MA) };
     }
     const spread = Math.abs(pct) * 0.6 + 0.02;
     return {
