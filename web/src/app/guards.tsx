@@ -8,7 +8,7 @@ import { NotAvailable } from './routes/app/not-available';
 export function PageLoader() {
   return (
     <Center py="xl" mih={200}>
-      <Loader aria-label="Loading" />
+      <Loader type="dots" aria-label="Loading" />
     </Center>
   );
 }

@@ -61,7 +61,6 @@ const components: MantineThemeComponents = {
   Paper: { defaultProps: { withBorder: true, radius: 'md', p: 'md' } },
   Alert: { defaultProps: { variant: 'light', radius: 'md' } },
   NavLink: { defaultProps: { fz: 'sm' } },
-  Loader: { defaultProps: { type: 'dots' } },
 };
 
 const fontFamily = 'Lexend, "Segoe UI", system-ui, -apple-system, sans-serif';
