@@ -48,8 +48,8 @@ function HomeRedirect() {
 export function AppRoutes() {
   const location = useLocation();
   return (
-    // Keyed by path so a page that failed does not keep the next one from showing.
-    <PageErrorBoundary key={location.pathname}>
+    // Reset by path so a page that failed does not keep the next one from showing.
+    <PageErrorBoundary resetKey={location.pathname}>
       <Routes>
         <Route path="/sign-in" element={<Lazy page={SignIn} />} />
         <Route path="/invitation/:token" element={<Lazy page={Invitation} />} />

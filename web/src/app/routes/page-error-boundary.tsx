@@ -7,13 +7,18 @@ interface State {
 
 /**
  * Shown when a page fails to render or its code cannot be fetched (e.g. after a new
- * deployment replaced the chunks). The router remounts it on every navigation.
+ * deployment replaced the chunks). A new `resetKey` (the path) clears the error, so the
+ * next page shows without remounting the layout around it.
  */
-export class PageErrorBoundary extends Component<{ children: ReactNode }, State> {
+export class PageErrorBoundary extends Component<{ children: ReactNode; resetKey: string }, State> {
   override state: State = { error: null };
 
   static getDerivedStateFromError(error: Error): State {
     return { error };
+  }
+
+  override componentDidUpdate(previous: { resetKey: string }): void {
+    if (this.state.error && previous.resetKey !== this.props.resetKey) this.setState({ error: null });
   }
 
   override componentDidCatch(error: Error, info: ErrorInfo): void {
