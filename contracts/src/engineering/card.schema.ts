@@ -1,0 +1,108 @@
+import { z } from 'zod';
+
+/**
+ * The ratings the engineering core computes from, in SI (V, A, Ω, W, °C, K/W). The
+ * temperature coefficient stays in the unit the datasheet printed it in (mV/K or %/K);
+ * the core turns it into V/K. Missing values may be absent or null.
+ */
+export const TEMP_CO_UNITS = ['mV/K', '%/K'] as const;
+export const tempCoUnitSchema = z.enum(TEMP_CO_UNITS);
+export type TempCoUnit = z.infer<typeof tempCoUnitSchema>;
+
+export const tempCoSchema = z.strictObject({
+  value: z.number(),
+  unit: tempCoUnitSchema,
+});
+export type TempCo = z.infer<typeof tempCoSchema>;
+
+const volts = z.number().positive().max(1000);
+const amperes = z.number().positive().max(100);
+const ohms = z.number().positive().max(1e7);
+const celsius = z.number().min(-100).max(400);
+
+/** The card's fields, unrefined, for schemas that extend or pick from it. */
+export const engineeringCardShape = {
+  /** Nominal Zener voltage at izt, 25 °C (V). */
+  vzNom: volts,
+  vzMin: volts.nullish(),
+  vzMax: volts.nullish(),
+  /** Test current for vz and zzt (A). */
+  izt: amperes,
+  /** Dynamic impedance at izt (Ω). */
+  zzt: ohms.nullish(),
+  /** Knee current and the impedance there (A, Ω). */
+  izk: amperes.nullish(),
+  zzk: ohms.nullish(),
+  /** Maximum reverse leakage (A) at reverse voltage vr (V). */
+  irMax: z.number().nonnegative().max(1).nullish(),
+  vr: volts.nullish(),
+  tc: tempCoSchema.nullish(),
+  /** Power rating (W) at the reference temperature pdRefC (°C, 25 °C when absent). */
+  pdMax: z.number().positive().max(1000).nullish(),
+  pdRefC: celsius.nullish(),
+  tjMax: celsius.nullish(),
+  /** Junction-to-ambient thermal resistance (K/W). */
+  rthJA: z.number().positive().max(1e4).nullish(),
+  /** Largest allowed Zener current (A). */
+  izm: amperes.nullish(),
+};
+
+export type EngineeringCardInput = z.infer<z.ZodObject<typeof engineeringCardShape>>;
+
+export interface CardFieldProblem {
+  field: keyof EngineeringCardInput & string;
+  message: string;
+}
+
+/**
+ * The contradictions that make a card unusable (an error, not a warning): the order of
+ * the voltage window, the knee below the test current, impedances too large for the
+ * voltage, the leakage voltage below breakdown, a current rating below the test current,
+ * tjMax above the rating's reference temperature. Shared by the API schema, the core and the card editor.
+ */
+export function engineeringCardContradictions(card: EngineeringCardInput): CardFieldProblem[] {
+  const problems: CardFieldProblem[] = [];
+  if (card.vzMin != null && card.vzMin > card.vzNom) {
+    problems.push({ field: 'vzMin', message: `vzMin (${card.vzMin} V) is above vzNom (${card.vzNom} V)` });
+  }
+  if (card.vzMax != null && card.vzMax < card.vzNom) {
+    problems.push({ field: 'vzMax', message: `vzMax (${card.vzMax} V) is below vzNom (${card.vzNom} V)` });
+  }
+  if (card.izk != null && card.izk >= card.izt) {
+    problems.push({ field: 'izk', message: `izk (${card.izk} A) must be below izt (${card.izt} A)` });
+  }
+  // zzt·izt is the junction's log slope at izt if RS were 0; a slope as large as vz itself
+  // would put the voltage below zero a few times below izt.
+  if (card.zzt != null && card.zzt * card.izt >= card.vzNom) {
+    problems.push({ field: 'zzt', message: `zzt (${card.zzt} Ω) × izt (${card.izt} A) is not below vzNom (${card.vzNom} V): no junction in breakdown has that impedance` });
+  }
+  if (card.zzk != null && card.izk != null && card.zzk * card.izk >= card.vzNom) {
+    problems.push({ field: 'zzk', message: `zzk (${card.zzk} Ω) × izk (${card.izk} A) is not below vzNom (${card.vzNom} V): no junction in breakdown has that impedance` });
+  }
+  if (card.vr != null && card.vr >= card.vzNom) {
+    problems.push({ field: 'vr', message: `vr (${card.vr} V) must be below the Zener voltage (${card.vzNom} V)` });
+  }
+  if (card.izm != null && card.izm < card.izt) {
+    problems.push({ field: 'izm', message: `izm (${card.izm} A) is below the test current izt (${card.izt} A)` });
+  }
+  const pdRefC = card.pdRefC ?? 25;
+  if (card.tjMax != null && card.tjMax <= pdRefC) {
+    problems.push({ field: 'tjMax', message: `tjMax (${card.tjMax} °C) must be above the power rating's reference temperature (${pdRefC} °C)` });
+  }
+  return problems;
+}
+
+export const engineeringCardSchema = z.strictObject(engineeringCardShape).superRefine((card, ctx) => {
+  for (const problem of engineeringCardContradictions(card)) {
+    ctx.addIssue({ code: 'custom', path: [problem.field], message: problem.message });
+  }
+});
+export type EngineeringCard = z.infer<typeof engineeringCardSchema>;
+
+/** A finding on a card, with the field it concerns (for the card editor). */
+export const cardIssueSchema = z.object({
+  field: z.string(),
+  severity: z.enum(['error', 'warning']),
+  message: z.string(),
+});
+export type CardIssue = z.infer<typeof cardIssueSchema>;
