@@ -1,0 +1,80 @@
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Put, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
+import { AnyRole, Roles } from '../common/decorators/roles.decorator';
+import { AddSourceDto, CreateHousePartDto, HousePartListQueryDto, PutSpecDto, SpecQueryDto, UpdateHousePartDto, UpdateSourceDto } from './house-parts.dto';
+import { HousePartsService } from './house-parts.service';
+
+@ApiTags('house parts')
+@ApiBearerAuth()
+@Controller('house-parts')
+export class HousePartsController {
+  constructor(private readonly houseParts: HousePartsService) {}
+
+  @Get()
+  @AnyRole()
+  list(@Query() query: HousePartListQueryDto) {
+    return this.houseParts.list(query);
+  }
+
+  @Post()
+  @Roles('engineer', 'admin')
+  create(@Body() body: CreateHousePartDto, @CurrentUser() user: AuthUser) {
+    return this.houseParts.create(body, user);
+  }
+
+  @Get(':id')
+  @AnyRole()
+  get(@Param('id', ParseIntPipe) id: number) {
+    return this.houseParts.get(id);
+  }
+
+  @Patch(':id')
+  @Roles('engineer', 'admin')
+  update(@Param('id', ParseIntPipe) id: number, @Body() body: UpdateHousePartDto) {
+    return this.houseParts.update(id, body);
+  }
+
+  @Get(':id/spec')
+  @AnyRole()
+  spec(@Param('id', ParseIntPipe) id: number, @Query() query: SpecQueryDto) {
+    return this.houseParts.spec(id, query.version);
+  }
+
+  @Put(':id/spec')
+  @Roles('engineer', 'admin')
+  putSpec(@Param('id', ParseIntPipe) id: number, @Body() body: PutSpecDto, @CurrentUser() user: AuthUser) {
+    return this.houseParts.putSpec(id, body, user);
+  }
+
+  @Get(':id/spec/versions')
+  @AnyRole()
+  specVersions(@Param('id', ParseIntPipe) id: number) {
+    return this.houseParts.specVersions(id);
+  }
+
+  @Get(':id/sources')
+  @AnyRole()
+  sources(@Param('id', ParseIntPipe) id: number) {
+    return this.houseParts.sources(id);
+  }
+
+  @Post(':id/sources')
+  @Roles('engineer', 'admin')
+  addSource(@Param('id', ParseIntPipe) id: number, @Body() body: AddSourceDto, @CurrentUser() user: AuthUser) {
+    return this.houseParts.addSource(id, body, user);
+  }
+
+  @Patch(':id/sources/:vendorPartId')
+  @Roles('engineer', 'admin')
+  updateSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number, @Body() body: UpdateSourceDto) {
+    return this.houseParts.updateSource(id, vendorPartId, body);
+  }
+
+  @Delete(':id/sources/:vendorPartId')
+  @Roles('engineer', 'admin')
+  @HttpCode(204)
+  removeSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number) {
+    return this.houseParts.removeSource(id, vendorPartId);
+  }
+}

@@ -1,0 +1,18 @@
+import {
+  addSourceRequestSchema,
+  createHousePartRequestSchema,
+  housePartListQuerySchema,
+  putSpecRequestSchema,
+  specQuerySchema,
+  updateHousePartRequestSchema,
+  updateSourceRequestSchema,
+} from '@shuntwise/contracts';
+import { createZodDto } from 'nestjs-zod';
+
+export class HousePartListQueryDto extends createZodDto(housePartListQuerySchema) {}
+export class CreateHousePartDto extends createZodDto(createHousePartRequestSchema) {}
+export class UpdateHousePartDto extends createZodDto(updateHousePartRequestSchema) {}
+export class SpecQueryDto extends createZodDto(specQuerySchema) {}
+export class PutSpecDto extends createZodDto(putSpecRequestSchema) {}
+export class AddSourceDto extends createZodDto(addSourceRequestSchema) {}
+export class UpdateSourceDto extends createZodDto(updateSourceRequestSchema) {}

@@ -1,0 +1,175 @@
+import { Injectable } from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import type { HousePartListQuery, HousePartSort, HousePartStatus, SortTerm, Spec } from '@shuntwise/contracts';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { User } from '../users/user.model';
+import { likePrefix } from '../vendor-parts/vendor-parts.repository';
+import { HousePartSource } from './house-part-source.model';
+import { HousePartSpec } from './house-part-spec.model';
+import { HousePart } from './house-part.model';
+
+export interface HousePartRow {
+  id: number;
+  partNumber: string;
+  description: string;
+  status: HousePartStatus;
+  specVersion: number | null;
+  sourceCount: number | bigint;
+  createdAt: Date;
+  updatedAt: Date;
+  createdById: number | null;
+  createdByName: string | null;
+}
+
+export interface SourceRow {
+  housePartId: number;
+  vendorPartId: number;
+  manufacturer: string;
+  mpn: string;
+  package: string | null;
+  lifecycleNote: string | null;
+  role: 'approved' | 'alternate';
+  note: string | null;
+  cardVersion: number | null;
+  addedById: number | null;
+  addedByName: string | null;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+const SORT_COLUMNS: Record<HousePartSort, string> = {
+  partNumber: 'h.part_number',
+  status: 'h.status',
+  updatedAt: 'h.updated_at',
+  createdAt: 'h.created_at',
+};
+
+const SELECT_ROW = `SELECT h.id, h.part_number AS partNumber, h.description, h.status, h.spec_version AS specVersion,
+  (SELECT COUNT(*) FROM house_part_sources s WHERE s.house_part_id = h.id) AS sourceCount,
+  h.created_at AS createdAt, h.updated_at AS updatedAt, h.created_by_id AS createdById, u.name AS createdByName
+FROM house_parts h LEFT JOIN users u ON u.id = h.created_by_id`;
+
+const SELECT_SOURCE = `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, m.name AS manufacturer, vp.mpn,
+  vp.package, vp.lifecycle_note AS lifecycleNote, s.role, s.note, rc.version AS cardVersion,
+  s.added_by_id AS addedById, u.name AS addedByName, s.created_at AS createdAt, s.updated_at AS updatedAt
+FROM house_part_sources s
+JOIN vendor_parts vp ON vp.id = s.vendor_part_id
+JOIN manufacturers m ON m.id = vp.manufacturer_id
+LEFT JOIN rating_cards rc ON rc.vendor_part_id = vp.id
+LEFT JOIN users u ON u.id = s.added_by_id`;
+
+/** The only place that queries house parts, their specs and their sources. */
+@Injectable()
+export class HousePartsRepository {
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    @InjectModel(HousePart) private readonly houseParts: typeof HousePart,
+    @InjectModel(HousePartSpec) private readonly specs: typeof HousePartSpec,
+    @InjectModel(HousePartSource) private readonly sources: typeof HousePartSource,
+  ) {}
+
+  async list(query: HousePartListQuery): Promise<{ rows: HousePartRow[]; total: number }> {
+    const where: string[] = [];
+    const params: unknown[] = [];
+    if (query.q) {
+      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
+      params.push(likePrefix(query.q), `%${likePrefix(query.q)}`);
+    }
+    if (query.status) {
+      where.push('h.status = ?');
+      params.push(query.status);
+    }
+    const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+    const order = [...query.sort.map((t: SortTerm<HousePartSort>) => `${SORT_COLUMNS[t.field]} ${t.desc ? 'DESC' : 'ASC'}`), 'h.id ASC'].join(', ');
+    const rows = await this.sequelize.query<HousePartRow>(`${SELECT_ROW} ${whereSql} ORDER BY ${order} LIMIT ? OFFSET ?`, {
+      replacements: [...params, query.pageSize, query.pageIndex * query.pageSize],
+      type: QueryTypes.SELECT,
+    });
+    const [{ total }] = await this.sequelize.query<{ total: number | bigint }>(`SELECT COUNT(*) AS total FROM house_parts h ${whereSql}`, {
+      replacements: params,
+      type: QueryTypes.SELECT,
+    });
+    return { rows, total: Number(total) };
+  }
+
+  async findRow(id: number, transaction?: Transaction): Promise<HousePartRow | null> {
+    const rows = await this.sequelize.query<HousePartRow>(`${SELECT_ROW} WHERE h.id = ?`, { replacements: [id], type: QueryTypes.SELECT, transaction });
+    return rows[0] ?? null;
+  }
+
+  /** All house parts in part-number order (exports). */
+  listAll(): Promise<HousePartRow[]> {
+    return this.sequelize.query<HousePartRow>(`${SELECT_ROW} ORDER BY h.part_number`, { type: QueryTypes.SELECT });
+  }
+
+  findById(id: number, transaction?: Transaction, lock = false): Promise<HousePart | null> {
+    return this.houseParts.findByPk(id, { transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
+  }
+
+  findByPartNumber(partNumber: string, transaction?: Transaction): Promise<HousePart | null> {
+    return this.houseParts.findOne({ where: { partNumber }, transaction });
+  }
+
+  create(values: { partNumber: string; description: string; status: HousePartStatus; createdById: number | null }, transaction?: Transaction): Promise<HousePart> {
+    return this.houseParts.create(values, { transaction });
+  }
+
+  async update(part: HousePart, values: Partial<Pick<HousePart, 'partNumber' | 'description' | 'status' | 'specVersion'>>, transaction?: Transaction): Promise<void> {
+    await part.update(values, { transaction });
+  }
+
+  findSpec(housePartId: number, version: number, transaction?: Transaction): Promise<HousePartSpec | null> {
+    return this.specs.findOne({ where: { housePartId, version }, include: [{ model: User, attributes: ['id', 'name'] }], transaction });
+  }
+
+  listSpecVersions(housePartId: number): Promise<HousePartSpec[]> {
+    return this.specs.findAll({
+      where: { housePartId },
+      attributes: ['id', 'housePartId', 'version', 'note', 'createdById', 'createdAt'],
+      include: [{ model: User, attributes: ['id', 'name'] }],
+      order: [['version', 'DESC']],
+    });
+  }
+
+  createSpec(values: { housePartId: number; version: number; spec: Spec; note: string | null; createdById: number | null }, transaction: Transaction): Promise<HousePartSpec> {
+    return this.specs.create(values, { transaction });
+  }
+
+  async listSources(housePartId: number): Promise<SourceRow[]> {
+    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} WHERE s.house_part_id = ? ORDER BY s.role = 'approved' DESC, m.name, vp.mpn`, {
+      replacements: [housePartId],
+      type: QueryTypes.SELECT,
+    });
+  }
+
+  async findSourceRow(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<SourceRow | null> {
+    const rows = await this.sequelize.query<SourceRow>(`${SELECT_SOURCE} WHERE s.house_part_id = ? AND s.vendor_part_id = ?`, {
+      replacements: [housePartId, vendorPartId],
+      type: QueryTypes.SELECT,
+      transaction,
+    });
+    return rows[0] ?? null;
+  }
+
+  /** Every source of every house part (exports), house-part-number order. */
+  async listAllSources(): Promise<SourceRow[]> {
+    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} ORDER BY s.house_part_id, s.role = 'approved' DESC, m.name, vp.mpn`, { type: QueryTypes.SELECT });
+  }
+
+  findSource(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<HousePartSource | null> {
+    return this.sources.findOne({ where: { housePartId, vendorPartId }, transaction });
+  }
+
+  createSource(values: { housePartId: number; vendorPartId: number; role: 'approved' | 'alternate'; note: string | null; addedById: number | null }, transaction?: Transaction): Promise<HousePartSource> {
+    return this.sources.create(values, { transaction });
+  }
+
+  async updateSource(source: HousePartSource, values: Partial<Pick<HousePartSource, 'role' | 'note'>>, transaction?: Transaction): Promise<void> {
+    await source.update(values, { transaction });
+  }
+
+  async deleteSource(source: HousePartSource, transaction?: Transaction): Promise<void> {
+    await source.destroy({ transaction });
+  }
+}

@@ -1,0 +1,85 @@
+import { Injectable } from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import type { RatingCardFields, Spec } from '@shuntwise/contracts';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { User } from '../users/user.model';
+import { RatingCardVersion } from './rating-card-version.model';
+import { RatingCard } from './rating-card.model';
+
+export interface SpecBasis {
+  housePartId: number;
+  partNumber: string;
+  specVersion: number;
+  spec: Spec;
+}
+
+/** The only place that queries rating cards and their versions. */
+@Injectable()
+export class RatingCardsRepository {
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    @InjectModel(RatingCard) private readonly cards: typeof RatingCard,
+    @InjectModel(RatingCardVersion) private readonly versions: typeof RatingCardVersion,
+  ) {}
+
+  findCurrent(vendorPartId: number, transaction?: Transaction): Promise<RatingCard | null> {
+    return this.cards.findByPk(vendorPartId, { include: [{ model: User, attributes: ['id', 'name'] }], transaction });
+  }
+
+  findVersion(vendorPartId: number, version: number, transaction?: Transaction): Promise<RatingCardVersion | null> {
+    return this.versions.findOne({ where: { vendorPartId, version }, include: [{ model: User, attributes: ['id', 'name'] }], transaction });
+  }
+
+  listVersions(vendorPartId: number): Promise<RatingCardVersion[]> {
+    return this.versions.findAll({
+      where: { vendorPartId },
+      attributes: ['id', 'vendorPartId', 'version', 'changedFields', 'note', 'changedById', 'createdAt'],
+      include: [{ model: User, attributes: ['id', 'name'] }],
+      order: [['version', 'DESC']],
+    });
+  }
+
+  /** Writes the card's new current state and its version row (one transaction, the caller's). */
+  async save(
+    values: { vendorPartId: number; version: number; fields: RatingCardFields; note: string | null; vzNom: number; izt: number; pdMax: number | null; userId: number | null; changedFields: string[] },
+    existing: RatingCard | null,
+    transaction: Transaction,
+  ): Promise<void> {
+    const row = { version: values.version, fields: values.fields, note: values.note, vzNom: values.vzNom, izt: values.izt, pdMax: values.pdMax, updatedById: values.userId };
+    if (existing) await existing.update(row, { transaction });
+    else await this.cards.create({ vendorPartId: values.vendorPartId, ...row }, { transaction });
+    await this.versions.create(
+      { vendorPartId: values.vendorPartId, version: values.version, fields: values.fields, changedFields: values.changedFields, note: values.note, changedById: values.userId },
+      { transaction },
+    );
+  }
+
+  /**
+   * The spec to normalise a card at: the given house part's, or else the first house part
+   * (by part number) this vendor part is a source of that has a spec.
+   */
+  async specBasis(vendorPartId: number, housePartId?: number): Promise<SpecBasis | null> {
+    const rows = await this.sequelize.query<{ housePartId: number; partNumber: string; specVersion: number; spec: Spec | string }>(
+      housePartId !== undefined
+        ? `SELECT h.id AS housePartId, h.part_number AS partNumber, s.version AS specVersion, s.spec
+           FROM house_parts h JOIN house_part_specs s ON s.house_part_id = h.id AND s.version = h.spec_version
+           WHERE h.id = ?`
+        : `SELECT h.id AS housePartId, h.part_number AS partNumber, s.version AS specVersion, s.spec
+           FROM house_part_sources src
+           JOIN house_parts h ON h.id = src.house_part_id
+           JOIN house_part_specs s ON s.house_part_id = h.id AND s.version = h.spec_version
+           WHERE src.vendor_part_id = ? ORDER BY h.part_number LIMIT 1`,
+      { replacements: [housePartId ?? vendorPartId], type: QueryTypes.SELECT },
+    );
+    const row = rows[0];
+    if (!row) return null;
+    return { ...row, spec: typeof row.spec === 'string' ? (JSON.parse(row.spec) as Spec) : row.spec };
+  }
+
+  /** Current cards of many vendor parts (for exports and imports). */
+  findCurrentMany(vendorPartIds: number[], transaction?: Transaction): Promise<RatingCard[]> {
+    if (vendorPartIds.length === 0) return Promise.resolve([]);
+    return this.cards.findAll({ where: { vendorPartId: vendorPartIds }, transaction });
+  }
+}

@@ -1,0 +1,269 @@
+import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectConnection } from '@nestjs/sequelize';
+import {
+  CARD_FIELDS,
+  toEngineeringCard,
+  type Actor,
+  type CardField,
+  type CardValue,
+  type EngineeringCardInput,
+  type NormalizeResponse,
+  type RatingCard as RatingCardDto,
+  type RatingCardFields,
+  type RatingCardFieldsParsed,
+  type RatingCardQuery,
+  type RatingCardVersionSummary,
+  type RatingCardView,
+  type TcValue,
+} from '@shuntwise/contracts';
+import type { Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
+import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { checkCard } from '../engineering/card-checks';
+import { EngineeringInputError } from '../engineering/engineering-input.error';
+import { normalize } from '../engineering/normalize';
+import { RatingCardsRepository, type SpecBasis } from './rating-cards.repository';
+import { VendorPartsRepository } from './vendor-parts.repository';
+
+/** A save based on a card version that is no longer current; the controller answers 409 with the current card. */
+export class RatingCardConflictError extends Error {
+  constructor(
+    message: string,
+    readonly current: RatingCardView,
+  ) {
+    super(message);
+    this.name = 'RatingCardConflictError';
+  }
+}
+
+/** Thrown inside a write when the base version is stale (callers turn it into a 409). */
+export class StaleCardError extends Error {
+  constructor(
+    readonly vendorPartId: number,
+    readonly currentVersion: number,
+    readonly baseVersion: number,
+  ) {
+    super(`The card of vendor part ${vendorPartId} is at version ${currentVersion}; this save was based on version ${baseVersion}`);
+    this.name = 'StaleCardError';
+  }
+}
+
+export interface CardWrite {
+  /** The version the change is based on (0 for a new card). */
+  baseVersion: number;
+  fields: RatingCardFieldsParsed;
+  note?: string | null;
+}
+
+export interface CardWriteResult {
+  version: number;
+  changed: boolean;
+  changedFields: string[];
+}
+
+@Injectable()
+export class RatingCardsService {
+  constructor(
+    private readonly cards: RatingCardsRepository,
+    private readonly vendorParts: VendorPartsRepository,
+    private readonly events: CatalogueEvents,
+    @InjectConnection() private readonly sequelize: Sequelize,
+  ) {}
+
+  /** The card (current or an earlier version) with the engineering core's reading of it. */
+  async view(vendorPartId: number, query: RatingCardQuery = {}): Promise<RatingCardView> {
+    const card = await this.card(vendorPartId, query.version);
+    const engineeringCard = toEngineeringCard(card.fields);
+    const basis = await this.cards.specBasis(vendorPartId, query.housePartId);
+    let reason: string | null = null;
+    let result: NormalizeResponse | null = null;
+    if (!engineeringCard) reason = 'the card needs vzNom and izt before the engineering core can read it';
+    else {
+      try {
+        result = normalizeAt(engineeringCard, basis);
+      } catch (error) {
+        if (!(error instanceof EngineeringInputError)) throw error;
+        reason = error.message;
+      }
+    }
+    if (query.housePartId !== undefined && !basis) reason ??= `house part ${query.housePartId} has no spec yet: normalised at the card's own test currents`;
+    return {
+      ...card,
+      issues: engineeringCard ? checkCard(engineeringCard) : [],
+      engineering: {
+        basis: basis ? { housePartId: basis.housePartId, partNumber: basis.partNumber, specVersion: basis.specVersion } : null,
+        result,
+        reason,
+      },
+    };
+  }
+
+  /**
+   * The card as stored, for the qualification too: the current one, or `version`. A part
+   * without a card gives version 0 and no fields.
+   */
+  async card(vendorPartId: number, version?: number): Promise<RatingCardDto> {
+    const part = await this.vendorParts.findById(vendorPartId);
+    if (!part) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
+    if (version !== undefined) {
+      const row = await this.cards.findVersion(vendorPartId, version);
+      if (!row) throw new NotFoundException(`Vendor part ${vendorPartId} has no card version ${version}`);
+      return { vendorPartId, version: row.version, fields: row.fields, note: row.note, updatedAt: row.createdAt.toISOString(), updatedBy: actor(row.changedBy) };
+    }
+    const current = await this.cards.findCurrent(vendorPartId);
+    if (!current) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
+    return { vendorPartId, version: current.version, fields: current.fields, note: current.note, updatedAt: current.updatedAt.toISOString(), updatedBy: actor(current.updatedBy) };
+  }
+
+  async versions(vendorPartId: number): Promise<RatingCardVersionSummary[]> {
+    if (!(await this.vendorParts.findById(vendorPartId))) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
+    return (await this.cards.listVersions(vendorPartId)).map((v) => ({
+      version: v.version,
+      changedFields: v.changedFields,
+      note: v.note,
+      changedBy: actor(v.changedBy),
+      createdAt: v.createdAt.toISOString(),
+    }));
+  }
+
+  /** `PUT …/rating-card`: saves a new version, or answers 409 with the current card when the base is stale. */
+  async put(vendorPartId: number, request: CardWrite, user: AuthUser): Promise<RatingCardView> {
+    try {
+      await this.sequelize.transaction((transaction) => this.write(vendorPartId, request, user, transaction));
+    } catch (error) {
+      if (error instanceof StaleCardError) {
+        throw new RatingCardConflictError(
+          `Someone else saved this card (now version ${error.currentVersion}) after you loaded version ${error.baseVersion}: compare both and save again on version ${error.currentVersion}`,
+          await this.view(vendorPartId),
+        );
+      }
+      throw error;
+    }
+    return this.view(vendorPartId);
+  }
+
+  /**
+   * Writes a card inside the caller's transaction: locks the vendor part, checks the base
+   * version, records who confirmed each value, keeps a version row, tells subscribers.
+   * A save that changes nothing makes no new version. `path` prefixes error paths.
+   */
+  async write(vendorPartId: number, request: CardWrite, user: AuthUser | null, transaction: Transaction, path = 'fields'): Promise<CardWriteResult> {
+    if (!(await this.vendorParts.lock(vendorPartId, transaction))) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
+    const existing = await this.cards.findCurrent(vendorPartId, transaction);
+    const currentVersion = existing?.version ?? 0;
+    if (request.baseVersion !== currentVersion) throw new StaleCardError(vendorPartId, currentVersion, request.baseVersion);
+
+    await this.checkDatasheets(request.fields, path, transaction);
+    const who: Actor | null = user ? { id: user.id, name: user.name } : null;
+    const fields = storedFields(request.fields, existing?.fields ?? null, who, new Date().toISOString());
+    const changedFields = diffFields(existing?.fields ?? null, fields);
+    const note = request.note ?? null;
+    if (existing && changedFields.length === 0 && note === (existing.note ?? null)) {
+      return { version: currentVersion, changed: false, changedFields };
+    }
+    const version = currentVersion + 1;
+    await this.cards.save(
+      { vendorPartId, version, fields, note, vzNom: fields.vzNom!.value, izt: fields.izt!.value, pdMax: fields.pdMax?.value ?? null, userId: user?.id ?? null, changedFields },
+      existing,
+      transaction,
+    );
+    await this.events.publish(
+      { kind: 'card-changed', vendorPartId, version, previousVersion: existing ? currentVersion : null, changedFields, userId: user?.id ?? null },
+      transaction,
+    );
+    return { version, changed: true, changedFields };
+  }
+
+  private async checkDatasheets(fields: RatingCardFieldsParsed, path: string, transaction: Transaction): Promise<void> {
+    const named = CARD_FIELDS.flatMap((f) => {
+      const id = fields[f]?.provenance.datasheetId;
+      return id != null ? [{ field: f, id }] : [];
+    });
+    const found = await this.vendorParts.existingDatasheetIds([...new Set(named.map((n) => n.id))], transaction);
+    const missing = named.filter((n) => !found.has(n.id));
+    if (missing.length) {
+      throw new BadRequestException({
+        message: `Invalid request: ${path}.${missing[0].field}.provenance.datasheetId: no datasheet with id ${missing[0].id}`,
+        errors: missing.map((m) => ({ path: `${path}.${m.field}.provenance.datasheetId`, message: `no datasheet with id ${m.id}` })),
+      });
+    }
+  }
+}
+
+/** The currents and ambients a card is normalised at: the spec's, or the card's own test points at 25 °C. */
+export function normalizeAt(card: EngineeringCardInput, basis: SpecBasis | null): NormalizeResponse {
+  let currents: number[];
+  let temperaturesC: number[];
+  if (basis) {
+    const { spec } = basis;
+    currents = [spec.iRef, spec.knee?.iKnee ?? null, spec.envelope.iMin, spec.envelope.iMax].filter((c): c is number => c !== null);
+    temperaturesC = [25, spec.envelope.taMin, spec.envelope.taMax];
+  } else {
+    currents = [card.izk ?? null, card.izt].filter((c): c is number => c !== null);
+    temperaturesC = [25];
+  }
+  return normalize({
+    card: card as Parameters<typeof normalize>[0]['card'],
+    currents: [...new Set(currents)].sort((a, b) => a - b),
+    temperaturesC: [...new Set(temperaturesC)].sort((a, b) => a - b),
+    selfHeating: true,
+  });
+}
+
+function actor(user: { id?: number; name: string } | null | undefined): Actor | null {
+  return user && user.id !== undefined ? { id: user.id, name: user.name } : null;
+}
+
+type StoredValue = CardValue | TcValue;
+
+/** What makes two stored values the same, apart from who confirmed them and when. */
+function fingerprint(v: StoredValue | undefined): string {
+  if (!v) return '';
+  const p = v.provenance;
+  return JSON.stringify([v.value, v.printed, 'unit' in v ? v.unit : null, p.source, p.datasheetId, p.page, p.text, p.confirmedBy !== null]);
+}
+
+/** The input as stored: provenance completed, confirmation kept when a confirmed value did not change. */
+export function storedFields(input: RatingCardFieldsParsed, previous: RatingCardFields | null, who: Actor | null, now: string): RatingCardFields {
+  const out: RatingCardFields = {};
+  const vzNom = input.vzNom.value;
+  for (const field of CARD_FIELDS) {
+    const value = input[field];
+    if (!value) continue;
+    const base: CardValue = {
+      value: value.value,
+      printed: value.printed ?? null,
+      provenance: {
+        source: value.provenance.source,
+        datasheetId: value.provenance.datasheetId ?? null,
+        page: value.provenance.page ?? null,
+        text: value.provenance.text ?? null,
+        confirmedBy: value.confirmed ? who : null,
+        confirmedAt: value.confirmed && who ? now : null,
+      },
+    };
+    const stored: StoredValue =
+      field === 'tc' && 'unit' in value
+        ? { ...base, unit: value.unit, voltsPerKelvin: tcToVoltsPerKelvin({ value: value.value, unit: value.unit }, vzNom) }
+        : base;
+    const before = previous?.[field];
+    if (before && before.provenance.confirmedBy && stored.provenance.confirmedBy && fingerprint(before) === fingerprint(stored)) {
+      stored.provenance.confirmedBy = before.provenance.confirmedBy;
+      stored.provenance.confirmedAt = before.provenance.confirmedAt;
+    }
+    (out as Record<CardField, StoredValue>)[field] = stored;
+  }
+  return out;
+}
+
+/** Fields whose value, unit, provenance or confirmation differ (tc also when its V/K moved with vzNom). */
+export function diffFields(before: RatingCardFields | null, after: RatingCardFields): string[] {
+  return CARD_FIELDS.filter((f) => {
+    const a = before?.[f];
+    const b = after[f];
+    if (fingerprint(a) !== fingerprint(b)) return true;
+    return f === 'tc' && a && b && (a as TcValue).voltsPerKelvin !== (b as TcValue).voltsPerKelvin;
+  });
+}

@@ -1,0 +1,32 @@
+import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
+import { User } from '../users/user.model';
+import { Manufacturer } from './manufacturer.model';
+
+@Table({ tableName: 'vendor_parts', underscored: true })
+export class VendorPart extends Model {
+  @ForeignKey(() => Manufacturer)
+  @Column({ type: DataType.INTEGER, allowNull: false })
+  declare manufacturerId: number;
+
+  @BelongsTo(() => Manufacturer, 'manufacturerId')
+  declare manufacturer?: Manufacturer;
+
+  @Column({ type: DataType.STRING(80), allowNull: false })
+  declare mpn: string;
+
+  @Column({ type: DataType.STRING(40), allowNull: true })
+  declare package: string | null;
+
+  @Column({ type: DataType.STRING(500), allowNull: true })
+  declare lifecycleNote: string | null;
+
+  @ForeignKey(() => User)
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  declare createdById: number | null;
+
+  @BelongsTo(() => User, 'createdById')
+  declare createdBy?: User;
+
+  declare createdAt: Date;
+  declare updatedAt: Date;
+}

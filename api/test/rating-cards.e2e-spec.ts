@@ -1,0 +1,187 @@
+import { CatalogueEvents, type CatalogueChange } from '../src/catalogue-events/catalogue-events.service';
+import { createHousePart, createVendorPart, demoCardFields, demoSpec } from './helpers/catalogue-fixtures';
+import { createTestApp, type TestApp } from './helpers/test-app';
+
+describe('rating cards (real MariaDB)', () => {
+  let t: TestApp;
+  let engineer: string;
+  let reviewer: string;
+  let designer: string;
+  let buyer: string;
+  let maker = 0;
+  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+  const newPart = () => createVendorPart(t.http, engineer, { manufacturer: 'Nettlecombe Devices', mpn: `NMZ-${++maker}` });
+  const put = (id: number, version: number, fields: unknown, token = engineer) => t.http.put(`/api/vendor-parts/${id}/rating-card`).set(auth(token)).send({ version, fields });
+  const errorPaths = (body: { errors?: Array<{ path: string }> }) => (body.errors ?? []).map((e) => e.path);
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    [engineer, reviewer, designer, buyer] = await Promise.all([t.tokenFor('engineer'), t.tokenFor('reviewer@demo.test'), t.tokenFor('designer'), t.tokenFor('buyer')]);
+  });
+  afterAll(() => t.close());
+
+  it('starts empty, saves a whole card with provenance and who confirmed it, and shows the engineering reading', async () => {
+    const id = await newPart();
+    const empty = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer));
+    expect(empty.status).toBe(200);
+    expect(empty.body).toMatchObject({ vendorPartId: id, version: 0, fields: {}, issues: [], engineering: { result: null, reason: expect.stringMatching(/vzNom and izt/) } });
+
+    const res = await put(id, 0, demoCardFields());
+    expect(res.status).toBe(200);
+    expect(res.body.version).toBe(1);
+    expect(res.body.fields.izt).toEqual({
+      value: 0.005,
+      printed: '5 mA',
+      provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: { id: expect.any(Number), name: 'Priya Raman' }, confirmedAt: expect.any(String) },
+    });
+    // tc keeps the unit as given and adds V/K
+    expect(res.body.fields.tc).toMatchObject({ value: 0.3, unit: 'mV/K', voltsPerKelvin: 0.0003 });
+    const { result } = res.body.engineering;
+    // 5.1 V lies between the tunnelling (< 5 V) and avalanche (> 6 V) ranges: "mixed" (common practice, no source)
+    expect(result.mechanism).toBe('mixed');
+    expect(result.model.basis).toBe('two-point');
+    // With no spec linked, the card is read at its own test currents at 25 °C ambient. At izt
+    // the junction self-heats, Tj = Ta + RthJA·Vz·I = 25 + 250·5.1·0.005 ≈ 31.4 °C, and
+    // Vz(Tj) = Vz(25 °C) + αVz·(Tj − 25 °C) (DESIGN.md's temperature law; common practice, no source).
+    const atIzt = result.points.find((p: { current: number; tempC: number }) => p.current === 0.005 && p.tempC === 25);
+    expect(atIzt.tjC).toBeCloseTo(25 + 250 * atIzt.vzNom * 0.005, 6);
+    expect(atIzt.vzNom).toBeCloseTo(5.1 + 0.0003 * (atIzt.tjC - 25), 6);
+    expect(result.spiceModel).toMatch(/^\.model /);
+    expect(await t.select('SELECT version, vz_nom AS vzNom, izt FROM rating_cards WHERE vendor_part_id = ?', [id])).toEqual([{ version: 1, vzNom: 5.1, izt: 0.005 }]);
+  });
+
+  it('converts a %/K coefficient to V/K with the card’s vzNom', async () => {
+    const id = await newPart();
+    const fields = demoCardFields({
+      vzMin: { value: 11.4, provenance: { source: 'entered' } },
+      vzNom: { value: 12, provenance: { source: 'entered' } },
+      vzMax: { value: 12.6, provenance: { source: 'entered' } },
+      vr: { value: 8, provenance: { source: 'entered' } },
+      izm: { value: 38e-3, provenance: { source: 'entered' } },
+      tc: { value: 0.06, unit: '%/K', printed: '0.06 %/K', provenance: { source: 'entered' } },
+    });
+    const res = await put(id, 0, fields);
+    expect(res.status).toBe(200);
+    // 0.06 %/K of 12 V = 7.2 mV/K (definition of a relative coefficient, common practice, no source)
+    expect(res.body.fields.tc.voltsPerKelvin).toBeCloseTo(7.2e-3, 12);
+    expect(res.body.engineering.result.mechanism).toBe('avalanche');
+  });
+
+  it('answers a stale save with 409 carrying the current card; nothing is overwritten', async () => {
+    const id = await newPart();
+    await put(id, 0, demoCardFields());
+    // engineer and reviewer both loaded version 1; the reviewer saves first
+    const first = await put(id, 1, demoCardFields({ zzt: { value: 35, printed: '35 Ω', provenance: { source: 'entered' } } }), reviewer);
+    expect(first.status).toBe(200);
+    expect(first.body.version).toBe(2);
+
+    const late = await put(id, 1, demoCardFields({ zzt: { value: 45, printed: '45 Ω', provenance: { source: 'entered' } } }));
+    expect(late.status).toBe(409);
+    expect(late.body.message).toMatch(/version 2/);
+    expect(late.body.correlationId).toEqual(expect.any(String));
+    expect(late.body.current).toMatchObject({ vendorPartId: id, version: 2, fields: { zzt: { value: 35 } }, updatedBy: { name: 'Tomas Eklund' } });
+    expect(late.body.current.engineering.result).not.toBeNull();
+
+    const stored = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer));
+    expect(stored.body.fields.zzt.value).toBe(35);
+    expect(await t.select('SELECT version FROM rating_card_versions WHERE vendor_part_id = ? ORDER BY version', [id])).toEqual([{ version: 1 }, { version: 2 }]);
+  });
+
+  it('lets exactly one of two simultaneous saves on the same version win', async () => {
+    const id = await newPart();
+    await put(id, 0, demoCardFields());
+    const [a, b] = await Promise.all([
+      put(id, 1, demoCardFields({ zzk: { value: 450, provenance: { source: 'entered' } } })),
+      put(id, 1, demoCardFields({ zzk: { value: 550, provenance: { source: 'entered' } } }), reviewer),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const winner = a.status === 200 ? 450 : 550;
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 2, fields: { zzk: { value: winner } } });
+
+    // two first saves (version 0) race too
+    const fresh = await newPart();
+    const [c, d] = await Promise.all([put(fresh, 0, demoCardFields()), put(fresh, 0, demoCardFields(), reviewer)]);
+    expect([c.status, d.status].sort()).toEqual([200, 409]);
+  });
+
+  it('names the field of every bad value and writes nothing', async () => {
+    const id = await newPart();
+    const entered = { source: 'entered' };
+    expect(errorPaths((await put(id, 0, demoCardFields({ vzMin: { value: 5.3, provenance: entered } }))).body)).toContain('fields.vzMin.value');
+    expect(errorPaths((await put(id, 0, demoCardFields({ izk: { value: 6e-3, provenance: entered } }))).body)).toContain('fields.izk.value');
+    expect(errorPaths((await put(id, 0, demoCardFields({ vr: { value: 6, provenance: entered } }))).body)).toContain('fields.vr.value');
+    expect(errorPaths((await put(id, 0, demoCardFields({ zzt: { value: -3, provenance: entered } }))).body)).toContain('fields.zzt.value');
+    expect(errorPaths((await put(id, 0, demoCardFields({ izt: undefined }))).body)).toContain('fields.izt');
+    expect(errorPaths((await put(id, 0, demoCardFields({ tc: { value: -2, unit: 'mV/°C', provenance: entered } }))).body)).toContain('fields.tc.unit');
+    expect(errorPaths((await put(id, 0, demoCardFields({ zzt: { value: 40, provenance: { source: 'extracted' } } }))).body)).toEqual(
+      expect.arrayContaining(['fields.zzt.provenance.datasheetId', 'fields.zzt.provenance.page']),
+    );
+    const unknownSheet = await put(id, 0, demoCardFields({ zzt: { value: 40, provenance: { source: 'extracted', datasheetId: 424242, page: 1 } } }));
+    expect(unknownSheet.status).toBe(400);
+    expect(errorPaths(unknownSheet.body)).toEqual(['fields.zzt.provenance.datasheetId']);
+    const unknownField = await put(id, 0, { ...demoCardFields(), colour: { value: 1, provenance: entered } });
+    expect(unknownField.status).toBe(400);
+    expect(await t.select('SELECT vendor_part_id FROM rating_cards WHERE vendor_part_id = ?', [id])).toEqual([]);
+    expect(await t.select('SELECT id FROM rating_card_versions WHERE vendor_part_id = ?', [id])).toEqual([]);
+  });
+
+  it('keeps who confirmed an unchanged value; a changed value is confirmed by whoever saved it; a no-op save makes no version', async () => {
+    const id = await newPart();
+    await put(id, 0, demoCardFields());
+    const v2 = await put(id, 1, demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }), reviewer);
+    expect(v2.body.fields.vzNom.provenance.confirmedBy.name).toBe('Priya Raman');
+    expect(v2.body.fields.zzt.provenance.confirmedBy.name).toBe('Tomas Eklund');
+    expect(v2.body.fields.irMax.provenance).toMatchObject({ confirmedBy: null, confirmedAt: null });
+
+    const again = await put(id, 2, demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }), reviewer);
+    expect(again.body.version).toBe(2);
+
+    const versions = await t.http.get(`/api/vendor-parts/${id}/rating-card/versions`).set(auth(designer));
+    expect(versions.body.map((v: { version: number; changedFields: string[] }) => [v.version, v.changedFields])).toEqual([
+      [2, ['zzt', 'irMax']],
+      [1, ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'pdRefC', 'tjMax', 'rthJA', 'izm']],
+    ]);
+    const old = await t.http.get(`/api/vendor-parts/${id}/rating-card?version=1`).set(auth(designer));
+    expect(old.body).toMatchObject({ version: 1, fields: { zzt: { value: 40 } }, updatedBy: { name: 'Priya Raman' } });
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card?version=9`).set(auth(designer))).status).toBe(404);
+  });
+
+  it('normalises at the spec of the house part the vendor part is a source of', async () => {
+    const id = await newPart();
+    await put(id, 0, demoCardFields());
+    const housePartId = await createHousePart(t.http, engineer, 'HP-CARD-1');
+    await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ iRef: 2e-3 }) });
+    await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: id });
+
+    const view = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(designer));
+    expect(view.body.engineering.basis).toEqual({ housePartId, partNumber: 'HP-CARD-1', specVersion: 1 });
+    const points = view.body.engineering.result.points as Array<{ current: number; tempC: number }>;
+    expect([...new Set(points.map((p) => p.current))]).toEqual([0.25e-3, 1e-3, 2e-3, 20e-3]);
+    expect([...new Set(points.map((p) => p.tempC))]).toEqual([-40, 25, 85]);
+    const explicit = await t.http.get(`/api/vendor-parts/${id}/rating-card?housePartId=${housePartId}`).set(auth(designer));
+    expect(explicit.body.engineering.basis.housePartId).toBe(housePartId);
+  });
+
+  it('tells subscribers of a new card version inside the transaction', async () => {
+    const id = await newPart();
+    const seen: CatalogueChange[] = [];
+    const off = t.stack.app.get(CatalogueEvents).subscribe((change) => void seen.push(change));
+    await put(id, 0, demoCardFields());
+    await put(id, 1, demoCardFields({ zzt: { value: 30, provenance: { source: 'entered' } } }));
+    await put(id, 2, demoCardFields({ zzt: { value: 30, provenance: { source: 'entered' } } })); // no change, no event
+    off();
+    expect(seen.map((c) => c.kind === 'card-changed' && [c.vendorPartId, c.version, c.previousVersion, c.changedFields.length])).toEqual([
+      [id, 1, null, 15],
+      [id, 2, 1, 1],
+    ]);
+  });
+
+  it('lets designers read cards; buyers neither read nor write them; designers do not write', async () => {
+    const id = await newPart();
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(designer))).status).toBe(200);
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(buyer))).status).toBe(403);
+    expect((await put(id, 0, demoCardFields(), buyer)).status).toBe(403);
+    expect((await put(id, 0, demoCardFields(), designer)).status).toBe(403);
+    expect((await put(987654, 0, demoCardFields())).status).toBe(404);
+  });
+});
