@@ -17,7 +17,7 @@ const only = process.env.TEST_ONLY ? process.env.TEST_ONLY.split(',') : null;
 
 function run(command, args, { env = {}, cwd = root } = {}) {
   return new Promise((resolve) => {
-    const child = spawn(command, args, { cwd, env: { ...process.env, FORCE_COLOR: '0', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(command, args, { cwd, env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
     const take = (stream, sink) => stream.on('data', (chunk) => {
       output += chunk;
@@ -25,7 +25,8 @@ function run(command, args, { env = {}, cwd = root } = {}) {
     });
     take(child.stdout, process.stdout);
     take(child.stderr, process.stderr);
-    child.on('close', (code) => resolve({ code: code ?? 1, output }));
+    // eslint-disable-next-line no-control-regex
+    child.on('close', (code) => resolve({ code: code ?? 1, output: output.replace(/\x1b\[[0-9;]*m/g, '') }));
   });
 }
 

@@ -28,7 +28,8 @@ describe('app shell in Chromium', () => {
     await page.getByLabel(/e-?mail/i).fill('engineer@demo.test');
     await page.getByLabel(/password/i).fill('not-the-password');
     await page.getByRole('button', { name: /sign in/i }).click();
-    await expect.poll(() => page.getByText(/wrong/i).count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByRole('alert').filter({ hasText: /do not match/i }).count()).toBe(1);
+    expect(page.url()).toMatch(/\/sign-in/);
     await screenshot(page, 'shell-sign-in-refused');
     await context.close();
   });

@@ -1,6 +1,4 @@
 import { mkdirSync } from 'node:fs';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 
@@ -8,9 +6,11 @@ export const BASE_URL = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:8080';
 export const DEMO_PASSWORD = process.env.E2E_DEMO_PASSWORD ?? 'shuntwise-demo';
 const SCREENSHOTS = process.env.E2E_SCREENSHOTS ?? join(process.cwd(), 'artifacts', 'screenshots');
 
-/** Debian's Chromium, headless, with the flags this closed network needs (see RECIPES.md). */
+/**
+ * Debian's Chromium, headless, with the flags this closed network needs (see RECIPES.md).
+ * playwright gives every launch a new empty profile folder of its own.
+ */
 export async function launchBrowser(): Promise<{ browser: Browser; close(): Promise<void> }> {
-  const profile = mkdtempSync(join(tmpdir(), 'shuntwise-chromium-'));
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
@@ -23,15 +23,11 @@ export async function launchBrowser(): Promise<{ browser: Browser; close(): Prom
       '--disable-component-update',
       '--disable-sync',
       '--disable-dev-shm-usage',
-      `--user-data-dir=${profile}`,
     ],
   });
   return {
     browser,
-    async close() {
-      await browser.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
+    close: () => browser.close(),
   };
 }
 
