@@ -2,6 +2,7 @@
 export * from './auth/auth.schema';
 export * from './auth/users.schema';
 export * from './common/error.schema';
+export * from './datasheets/extraction.schema';
 export * from './engineering/card.schema';
 export * from './engineering/envelope.schema';
 export * from './engineering/normalize.schema';

@@ -17,8 +17,8 @@ export class AnswerRecorder {
   }
 
   /** A value printed once and valid for every variant (power, junction temperature, …). */
-  device(field: 'pdMax' | 'tjMax' | 'rthJA', page: number): void {
-    const printed: Printed = this.data.device[field];
+  device(field: 'pdMax' | 'tjMax' | 'rthJA', page: number, printedAs: { value?: string; unit?: string } = {}): void {
+    const printed: Printed = { ...this.data.device[field], ...printedAs };
     for (const v of this.variants) v.fields[field] = { ...printed, page };
   }
 

@@ -216,7 +216,7 @@ export async function corriebank(d: SeriesData): Promise<Built> {
   rec.packagePage(all(d), sheet.page);
   y = ratingTable(sheet, rec, y, 'Absolute maximum ratings', [
     { label: 'Power dissipation', symbol: 'Ptot', condition: 'Tamb = 25 C', value: d.device.pdMax.value, unit: 'mW', field: 'pdMax' },
-    { label: 'Junction temperature', symbol: 'Tj', value: d.device.tjMax.value, unit: 'C', field: 'tjMax' },
+    { label: 'Junction temperature', symbol: 'Tj', value: d.device.tjMax.value, unit: 'C', field: 'tjMax', printedAs: { unit: 'C' } },
     { label: 'Storage temperature', symbol: 'Tstg', value: '-55 to +150', unit: 'C' },
     { label: 'Thermal resistance junction to ambient', symbol: 'RthJA', value: d.device.rthJA.value, unit: 'K/W', field: 'rthJA' },
   ]);

@@ -176,8 +176,8 @@ export async function quarryhill(d: SeriesData): Promise<Built> {
   y = sheet.heading('Electrical characteristics (Tamb = 25 °C)', y + 4);
   y = seriesTable(sheet, rec, {
     columns: [
-      { width: 54, align: 'left', cell: (v) => v.mpn },
-      { width: 46, align: 'left', cell: (v) => v.package, isPackage: true },
+      { width: 50, align: 'left', cell: (v) => v.mpn },
+      { width: 42, align: 'left', cell: (v) => v.package, isPackage: true },
       { width: 36, align: 'right', cell: withUnit('vzMin'), field: 'vzMin' },
       { width: 32, align: 'right', cell: withUnit('vzNom'), field: 'vzNom' },
       { width: 36, align: 'right', cell: withUnit('vzMax'), field: 'vzMax' },
@@ -186,7 +186,7 @@ export async function quarryhill(d: SeriesData): Promise<Built> {
       { width: 36, align: 'right', cell: withUnit('izk'), field: 'izk' },
       { width: 38, align: 'right', cell: withUnit('zzk'), field: 'zzk' },
       { width: 38, align: 'right', cell: withUnit('irMax'), field: 'irMax' },
-      { width: 26, align: 'right', cell: withUnit('vr'), field: 'vr' },
+      { width: 38, align: 'right', cell: withUnit('vr'), field: 'vr' },
       { width: 56, align: 'right', cell: withUnit('tc'), field: 'tc' },
     ],
     rows: all(d),

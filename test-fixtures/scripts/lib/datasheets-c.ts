@@ -47,7 +47,7 @@ export async function tevorrow(d: SeriesData): Promise<Built> {
     { label: 'Power dissipation 1)', symbol: 'PD', condition: 'Tamb = 25 °C', value: d.device.pdMax.value, unit: 'W', field: 'pdMax' },
     { label: 'Non-repetitive peak reverse surge power', symbol: 'PRSM', condition: 'tp = 100 µs', value: '150', unit: 'W' },
     { label: 'Peak forward surge current', symbol: 'IFSM', condition: '8.3 ms half sine', value: '10', unit: 'A' },
-    { label: 'Operating junction temperature range', symbol: 'TJ', value: `−55 to +${d.device.tjMax.value}`, unit: '°C', field: 'tjMax' },
+    { label: 'Operating junction temperature range', symbol: 'TJ', value: `−55 to +${d.device.tjMax.value}`, unit: '°C', field: 'tjMax', printedAs: { value: `+${d.device.tjMax.value}` } },
     { label: 'Storage temperature range', symbol: 'Tstg', value: '−55 to +150', unit: '°C' },
   ]);
   y = ratingTable(sheet, rec, y, 'Thermal characteristics', [
@@ -88,16 +88,16 @@ export async function tevorrow(d: SeriesData): Promise<Built> {
   sheet.addPage();
   y = sheet.heading('Electrical characteristics (Tamb = 25 °C unless otherwise noted)', PAGE.top);
   const columns: SeriesColumn[] = [
-    { width: 52, align: 'left', cell: (v) => v.mpn },
-    { width: 30, align: 'center', cell: (v) => v.marking },
+    { width: 50, align: 'left', cell: (v) => v.mpn },
+    { width: 28, align: 'center', cell: (v) => v.marking },
     { width: 32, align: 'right', cell: val('vzMin'), field: 'vzMin' },
     { width: 32, align: 'right', cell: val('vzNom'), field: 'vzNom' },
     { width: 32, align: 'right', cell: val('vzMax'), field: 'vzMax' },
     { width: 32, align: 'right', cell: val('izt'), field: 'izt' },
     { width: 38, align: 'right', cell: val('zzt'), field: 'zzt' },
     { width: 28, align: 'right', cell: val('izk'), field: 'izk' },
-    { width: 40, align: 'right', cell: val('zzk'), field: 'zzk' },
-    { width: 36, align: 'right', cell: val('irMax'), field: 'irMax' },
+    { width: 46, align: 'right', cell: val('zzk'), field: 'zzk' },
+    { width: 40, align: 'right', cell: val('irMax'), field: 'irMax' },
     { width: 28, align: 'right', cell: val('vr'), field: 'vr' },
     { width: 44, align: 'right', cell: val('tc'), field: 'tc' },
     { width: 30, align: 'right', cell: val('izm'), field: 'izm' },

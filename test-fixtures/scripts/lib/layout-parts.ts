@@ -44,6 +44,8 @@ export interface RatingRow {
   unit: string;
   /** The device-wide card field this row prints, if any. */
   field?: 'pdMax' | 'tjMax' | 'rthJA';
+  /** What the answer key records when the row prints the value differently (a range's end, "C" for °C). */
+  printedAs?: { value?: string; unit?: string };
 }
 
 /** Absolute maximum ratings / thermal tables: Parameter | Symbol | Conditions | Value | Unit. */
@@ -72,7 +74,7 @@ export function ratingTable(sheet: Sheet, rec: AnswerRecorder, y: number, headin
   for (const row of rows) {
     const values = Array.isArray(row.value) ? row.value : minMax ? ['', row.value] : [row.value];
     sheet.tableRow(PAGE.left, cy, columns, [row.label, row.symbol, row.condition ?? '', ...values, row.unit], { size: 8 });
-    if (row.field) rec.device(row.field, sheet.page);
+    if (row.field) rec.device(row.field, sheet.page, row.printedAs);
     cy += 13;
   }
   sheet.rule(PAGE.left, PAGE.left + columns.reduce((s, c) => s + c.width, 0), cy - 2, 0.5);

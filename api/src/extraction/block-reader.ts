@@ -1,0 +1,161 @@
+import type { ExtractionField } from '@shuntwise/contracts';
+import { kindOfUnit } from '@shuntwise/contracts';
+import { fieldFor, findConditions, Qualifier } from './field-patterns';
+import { headingPartNumber } from './part-numbers';
+import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi } from './quantity-text';
+import { Cell, cellBox, Line } from './text-layout';
+import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
+
+/**
+ * Per-part blocks: a heading with the part number, then one line per characteristic —
+ * "Zener voltage, nominal  VZnom  5.1 V", "Reverse current  IR  ≤ 10 µA  at VR = 1 V", or a
+ * Parameter / Symbol / Conditions / Min / Typ / Max / Unit table. A block runs to the next
+ * heading or the end of the page.
+ */
+
+interface QualifierColumn {
+  qualifier: Qualifier;
+  x0: number;
+  x1: number;
+}
+
+function headingOf(line: Line): string | undefined {
+  if (line.cells.length > 3) return undefined;
+  const mpn = headingPartNumber(line.cells[0].text);
+  if (!mpn) return undefined;
+  return line.cells.slice(1).some((c) => isNumericCell(c.text)) ? undefined : mpn;
+}
+
+/** A "Min Typ Max" header line: where each qualifier's column is. */
+function qualifierColumns(line: Line): QualifierColumn[] | undefined {
+  const cols: QualifierColumn[] = [];
+  for (const c of line.cells) {
+    const m = /^(min|nom|typ|max)(?:imum|inal|ical)?\.?$/i.exec(c.text);
+    if (m) cols.push({ qualifier: m[1].toLowerCase() as Qualifier, x0: c.x0, x1: c.x1 });
+  }
+  return cols.length >= 2 ? cols : undefined;
+}
+
+function qualifierAt(cols: QualifierColumn[], cell: Cell): Qualifier | undefined {
+  const c = (cell.x0 + cell.x1) / 2;
+  let best: QualifierColumn | undefined;
+  let bestDistance = Infinity;
+  for (const q of cols) {
+    const d = Math.abs((q.x0 + q.x1) / 2 - c);
+    if (d < bestDistance) {
+      best = q;
+      bestDistance = d;
+    }
+  }
+  // Columns are about 40 pt apart; a value far from every qualifier column is something else.
+  return best && bestDistance < 25 ? best.qualifier : undefined;
+}
+
+interface ValueToken {
+  token: QuantityToken;
+  cell: Cell;
+}
+
+export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDrafts): void {
+  for (const lines of pages) {
+    let mpn: string | undefined;
+    let order = 0;
+    let qualifiers: QualifierColumn[] | undefined;
+    for (const line of lines) {
+      if (used.has(line)) continue;
+      const heading = headingOf(line);
+      if (heading) {
+        mpn = heading;
+        order = orderOf(line.page, line.index);
+        qualifiers = undefined;
+        continue;
+      }
+      if (!mpn) continue;
+      const q = qualifierColumns(line);
+      if (q) {
+        qualifiers = q;
+        continue;
+      }
+      const current = mpn;
+      readLine(line, qualifiers, () => drafts.get(current, order));
+    }
+  }
+}
+
+function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft): void {
+  const cleaned = line.cells.map((cell) => ({ cell, rest: findConditions(cell.text).rest }));
+  const labelParts: string[] = [];
+  const values: ValueToken[] = [];
+  let unitCell: string | undefined;
+  for (const { cell, rest } of cleaned) {
+    const tokens = findQuantities(rest);
+    if (values.length === 0 && tokens.length === 0) {
+      labelParts.push(rest);
+      continue;
+    }
+    if (values.length === 0 && tokens.length && tokens[0].index > 0) labelParts.push(rest.slice(0, tokens[0].index));
+    if (tokens.length === 0 && isUnitOnly(rest)) unitCell = rest.trim();
+    for (const t of tokens) values.push({ token: t, cell });
+  }
+  if (values.length === 0) return;
+  const label = labelParts.join(' ');
+  const unitFor = (v: ValueToken) => v.token.unit || unitCell || '';
+  const kind = (() => {
+    for (const v of values) {
+      const u = unitFor(v);
+      const k = u ? kindOfUnit(u) : undefined;
+      if (k) return k;
+    }
+    return undefined;
+  })();
+  const match = fieldFor(label, kind);
+  if (!match) return;
+
+  const chosen: Array<[ExtractionField, ValueToken]> = [];
+  const byQualifier = (wanted: Qualifier[]) => {
+    if (!qualifiers) return undefined;
+    for (const w of wanted) {
+      const v = values.find((x) => qualifierAt(qualifiers, x.cell) === w);
+      if (v) return v;
+    }
+    return undefined;
+  };
+  const f = match.field;
+  if (f === 'vzMin' || f === 'vzNom' || f === 'vzMax') {
+    if (qualifiers && values.some((v) => qualifierAt(qualifiers, v.cell))) {
+      for (const v of values) {
+        const q = qualifierAt(qualifiers, v.cell);
+        if (q === 'min') chosen.push(['vzMin', v]);
+        else if (q === 'typ' || q === 'nom') chosen.push(['vzNom', v]);
+        else if (q === 'max') chosen.push(['vzMax', v]);
+      }
+    } else if (match.qualifier) chosen.push([f, values[0]]);
+    else if (values.length === 3) chosen.push(['vzMin', values[0]], ['vzNom', values[1]], ['vzMax', values[2]]);
+    else chosen.push(['vzNom', values[0]]);
+  } else if (f === 'tc') {
+    const v = qualifiers ? byQualifier(['typ', 'nom']) : match.rank > 0 ? values[0] : undefined;
+    if (v) chosen.push([f, v]);
+  } else if (f === 'zzt' || f === 'zzk' || f === 'irMax' || f === 'izm') {
+    const v = qualifiers ? byQualifier(['max', 'typ', 'nom']) : values[0];
+    if (v) chosen.push([f, v]);
+  } else chosen.push([f, values[0]]);
+
+  for (const [field, v] of chosen) {
+    const unit = unitFor(v);
+    const k = unit ? kindOfUnit(unit) : undefined;
+    if (!k || !FIELD_KINDS[field].includes(k)) continue;
+    const si = toSi(v.token.value, unit, k);
+    if (si === undefined) continue;
+    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.text, box: cellBox(v.cell), rank: 2 });
+  }
+  // Test conditions on the line: "IZ = 5 mA" on a VZ line is IZT, on a ZZK line IZK; "VR = 2 V" on an IR line.
+  for (const cell of line.cells) {
+    for (const cond of findConditions(cell.text, f).conditions) {
+      const usable = cond.field === 'vr' ? f === 'irMax' : f !== 'irMax' && f !== 'vr';
+      if (!usable) continue;
+      const si = toSi(cond.value, cond.unit, cond.kind);
+      if (si === undefined) continue;
+      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.text, box: cellBox(cell), rank: 1 });
+    }
+  }
+}

@@ -1,0 +1,71 @@
+import { kindOfUnit, normaliseQuantityText, parseQuantity, type QuantityKind } from '@shuntwise/contracts';
+
+/**
+ * Finding numbers with their units in datasheet text. The unit spellings themselves (µ/u/μ,
+ * Ω/Ω/ohm, °C/C, …) are decided by the shared parser in @shuntwise/contracts.
+ */
+
+const NUM = String.raw`[+\-−–]?(?:\d+(?:\.\d+)?|\.\d+)`;
+const PREFIX = '[pnuµμmkKMG]?';
+// Longest spellings first so that "mV/°C" is not read as "mV".
+const UNIT =
+  String.raw`(?:%\s?/\s?(?:K|°C|℃|C)|°C\s?/\s?W|℃/W|K\s?/\s?W|C/W|${PREFIX}V\s?/\s?(?:K|°C|℃|C)|°C|℃|degC|` +
+  String.raw`${PREFIX}(?:[ΩΩ]|[Oo]hms?)|${PREFIX}[VAW]|C)`;
+
+/** A number, optionally after ≤/< and followed by a unit; not glued to letters before it. */
+const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}\p{N}])`, 'gu');
+const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
+const NUMERIC_CELL = new RegExp(String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*(?:\d\))?\s*$`, 'u');
+
+export interface QuantityToken {
+  /** The number as printed (sign kept as printed). */
+  value: string;
+  /** The unit as printed, or '' when none follows. */
+  unit: string;
+  kind: QuantityKind | undefined;
+  /** Offset of the number in the text. */
+  index: number;
+  end: number;
+}
+
+export function findQuantities(text: string): QuantityToken[] {
+  const out: QuantityToken[] = [];
+  for (const m of text.matchAll(TOKEN)) {
+    const unit = m[3] ?? '';
+    const start = m.index + (m[1]?.length ?? 0);
+    out.push({ value: m[2], unit, kind: unit ? kindOfUnit(unit) : undefined, index: start, end: m.index + m[0].length });
+  }
+  return out;
+}
+
+export function isUnitOnly(text: string): boolean {
+  const m = UNIT_ONLY.exec(text);
+  return m !== null && kindOfUnit(m[1]) !== undefined;
+}
+
+export function isNumericCell(text: string): boolean {
+  return NUMERIC_CELL.test(text);
+}
+
+/** A table cell that says "not specified". */
+export function isEmptyCell(text: string): boolean {
+  return /^\s*(?:[–—-]+|n\/?a|\*)?\s*$/i.test(text);
+}
+
+/** The unit written in a header, e.g. "(V)", "[mA]", "(mV/°C)". */
+export function headerUnit(text: string): string | undefined {
+  for (const m of text.matchAll(/[([]\s*([^()[\]]+?)\s*[)\]]/g)) {
+    if (kindOfUnit(m[1]) !== undefined) return m[1];
+  }
+  const tokens = text.split(/\s+/).reverse();
+  return tokens.find((t) => /^[^\d]/.test(t) && isUnitOnly(t));
+}
+
+/** SI value of a printed number and unit of a kind, or undefined when they do not fit. */
+export function toSi(value: string, unit: string, kind: QuantityKind): number | undefined {
+  try {
+    return parseQuantity(`${normaliseQuantityText(value)} ${unit}`, kind);
+  } catch {
+    return undefined;
+  }
+}

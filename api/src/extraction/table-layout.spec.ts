@@ -1,0 +1,106 @@
+import type { PdfText, PdfTextItem } from './pdf-text';
+import { extractRatings } from './rating-extractor';
+
+/**
+ * Layout cases the fixture PDFs do not cover, built as positioned text the way pdfjs
+ * reports it (x, y baseline in points). Values are invented; unit notation is common
+ * practice (no source).
+ */
+
+function item(str: string, x: number, y: number, size = 8, width = str.length * size * 0.5): PdfTextItem {
+  return { str, x, y, width, height: size };
+}
+
+function pdf(...pages: PdfTextItem[][]): PdfText {
+  return { pageCount: pages.length, hasText: true, pages: pages.map((items, i) => ({ page: i + 1, width: 595, height: 842, items })) };
+}
+
+/** One table row: cells at the given x positions. */
+function row(y: number, xs: number[], cells: string[]): PdfTextItem[] {
+  return cells.map((c, i) => item(c, xs[i], y));
+}
+
+const XS = [50, 130, 180, 230, 280, 330, 380];
+
+describe('reading series tables from positioned text', () => {
+  it('joins subscripts to their symbol and words that pdfjs hands over one by one', () => {
+    const header = [
+      item('Part', 50, 700),
+      item('number', 69, 700),
+      // "VZ" printed as V with a lowered, smaller Z, as many datasheets do.
+      item('V', 130, 700),
+      item('Z', 134.5, 698.5, 6, 3),
+      item('min', 140, 700),
+      item('V', 180, 700),
+      item('Z', 184.5, 698.5, 6, 3),
+      item('max', 190, 700),
+      item('I', 230, 700),
+      item('ZT', 233, 698.5, 6, 6),
+      item('Z', 280, 700),
+      item('ZT', 284.5, 698.5, 6, 6),
+      item('(V)', 130, 690),
+      item('(V)', 180, 690),
+      item('(mA)', 230, 690),
+      item('(ohm)', 280, 690),
+    ];
+    const result = extractRatings(pdf([...header, ...row(675, XS, ['XQ7-5V1', '4.85', '5.36', '5', '60']), ...row(663, XS, ['XQ7-6V2', '5.89', '6.51', '5', '10'])]));
+    expect(result.variants.map((v) => v.mpn)).toEqual(['XQ7-5V1', 'XQ7-6V2']);
+    const v = result.variants[0];
+    expect(v.fields.vzMin).toMatchObject({ value: '4.85', unit: 'V', si: 4.85 });
+    expect(v.fields.vzMax).toMatchObject({ value: '5.36', unit: 'V' });
+    expect(v.fields.izt).toMatchObject({ value: '5', unit: 'mA', si: 0.005 });
+    expect(v.fields.zzt).toMatchObject({ value: '60', unit: 'ohm', si: 60 });
+    expect(v.fields.vzNom).toBeUndefined();
+  });
+
+  it('continues a table on the next page without a header, and never takes an ordering table for ratings', () => {
+    const header = row(700, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)', 'IR (µA)', 'VR (V)']);
+    const page1 = [...header, ...row(685, XS, ['KLM-3V3', '3.3', '5', '95', '5', '1']), ...row(673, XS, ['KLM-3V6', '3.6', '5', '90', '5', '1'])];
+    const page2 = [
+      item('Vendor running header', 50, 810, 10, 120),
+      ...row(780, XS, ['KLM-3V9', '3.9', '5', '90', '3', '1']),
+      ...row(768, XS, ['KLM-4V3', '4.3', '5', '90', '3', '1']),
+      // An ordering table further down: part numbers and numbers, but no ratings in its header.
+      ...row(600, XS, ['Part number', 'Reel (in)', 'Pieces', 'Tape (mm)']),
+      ...row(585, XS, ['KLM-3V3-T7', '7', '3000', '8']),
+      ...row(573, XS, ['KLM-3V6-T7', '7', '3000', '8']),
+    ];
+    const result = extractRatings(pdf(page1, page2));
+    expect(result.variants.map((v) => v.mpn)).toEqual(['KLM-3V3', 'KLM-3V6', 'KLM-3V9', 'KLM-4V3']);
+    const v = result.variants[3];
+    expect(v.fields.vzNom).toMatchObject({ value: '4.3', unit: 'V', page: 2 });
+    expect(v.fields.zzt).toMatchObject({ unit: 'Ω', si: 90 });
+    expect(v.fields.irMax).toMatchObject({ unit: 'µA', si: 3e-6 });
+  });
+
+  it('leaves a %/K coefficient empty with a warning when the variant has no nominal voltage', () => {
+    const items = [
+      ...row(700, XS, ['Type', 'VZ min (V)', 'VZ max (V)', 'IZT (mA)', 'TC (%/K)']),
+      ...row(685, XS, ['PQR-12', '11.4', '12.6', '5', '+0.075']),
+    ];
+    const result = extractRatings(pdf(items));
+    expect(result.variants[0].fields.tc).toBeUndefined();
+    expect(result.variants[0].fields.vzMin).toMatchObject({ si: 11.4 });
+    expect(result.warnings).toEqual([expect.stringMatching(/PQR-12: the temperature coefficient is given in %\/K but no nominal Zener voltage/)]);
+  });
+
+  it('skips a dash, which datasheets print for "not specified", and warns about a cell it cannot read', () => {
+    const items = [
+      ...row(700, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZK (Ω)', 'IZK (mA)']),
+      ...row(685, XS, ['STU-5V1', '5.1', '5', '–', '–']),
+      ...row(673, XS, ['STU-5V6', '5.6', '5', 'see note', '1']),
+    ];
+    const result = extractRatings(pdf(items));
+    expect(result.variants[0].fields.zzk).toBeUndefined();
+    expect(result.variants[0].fields.izk).toBeUndefined();
+    expect(result.variants[1].fields.zzk).toBeUndefined();
+    expect(result.variants[1].fields.izk).toMatchObject({ si: 0.001 });
+    expect(result.warnings).toEqual([expect.stringMatching(/STU-5V6: "see note" under "ZZK \(Ω\)" on page 1 is not a number/)]);
+  });
+
+  it('says so when a text PDF holds no recognisable ratings', () => {
+    const result = extractRatings(pdf([item('Application note: layout of shunt regulators', 50, 700, 10, 240)]));
+    expect(result.variants).toEqual([]);
+    expect(result.warnings).toEqual([expect.stringMatching(/No part numbers with ratings were recognised/)]);
+  });
+});

@@ -1,0 +1,287 @@
+import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
+import { kindOfUnit } from '@shuntwise/contracts';
+import { fieldFor, FieldMatch, findConditions, isPackageHeader } from './field-patterns';
+import { findPackage, isPartNumber } from './part-numbers';
+import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi } from './quantity-text';
+import { Cell, cellBox, Line } from './text-layout';
+import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
+
+/**
+ * Series tables: one row per part number, a header above (one to several lines, with
+ * group headings over min/nom/max), units in the header or in the cells, continued on the
+ * next page with the header repeated or not.
+ */
+
+interface Span {
+  x0: number;
+  x1: number;
+}
+
+interface ColumnPlan {
+  span: Span;
+  header: string;
+  unit?: string;
+  match?: FieldMatch;
+  isPackage: boolean;
+}
+
+interface HeaderCondition {
+  field: 'izt' | 'izk' | 'vr';
+  value: string;
+  unit: string;
+  kind: QuantityKind;
+  page: number;
+  text: string;
+  cell: Cell;
+}
+
+/** What a table's header says, kept for a continuation without a header on the next page. */
+interface TablePlan {
+  columns: ColumnPlan[];
+  conditions: HeaderCondition[];
+}
+
+export function isDataRow(line: Line): boolean {
+  if (line.cells.length < 4 || !isPartNumber(line.cells[0].text)) return false;
+  let numeric = 0;
+  let dashes = 0;
+  for (let i = 1; i < line.cells.length; i++) {
+    const t = line.cells[i].text;
+    if (isNumericCell(t)) numeric++;
+    else if (/^[–—-]$/.test(t.trim())) dashes++; // "not specified"
+  }
+  return numeric >= 2 && numeric + dashes >= 3;
+}
+
+const centre = (s: Span) => (s.x0 + s.x1) / 2;
+const overlap = (a: Span, b: Span) => Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0);
+
+function columnsOf(rows: Line[]): Span[] {
+  const cols: Span[] = [];
+  for (const row of rows) {
+    for (const cell of row.cells) {
+      let best: Span | undefined;
+      let bestOverlap = -0.5;
+      for (const c of cols) {
+        const o = overlap(c, cell);
+        if (o > bestOverlap) {
+          best = c;
+          bestOverlap = o;
+        }
+      }
+      if (best) {
+        best.x0 = Math.min(best.x0, cell.x0);
+        best.x1 = Math.max(best.x1, cell.x1);
+      } else cols.push({ x0: cell.x0, x1: cell.x1 });
+    }
+  }
+  cols.sort((a, b) => a.x0 - b.x0);
+  const merged: Span[] = [];
+  for (const c of cols) {
+    const last = merged[merged.length - 1];
+    if (last && overlap(last, c) > 0) last.x1 = Math.max(last.x1, c.x1);
+    else merged.push({ ...c });
+  }
+  return merged;
+}
+
+function columnIndex(cols: Span[], cell: Cell): number {
+  let best = -1;
+  let bestOverlap = -0.5;
+  cols.forEach((c, i) => {
+    const o = overlap(c, cell);
+    if (o > bestOverlap) {
+      best = i;
+      bestOverlap = o;
+    }
+  });
+  return best;
+}
+
+function pitchOf(cols: Span[], i: number): number {
+  const d: number[] = [];
+  if (i > 0) d.push(centre(cols[i]) - centre(cols[i - 1]));
+  if (i < cols.length - 1) d.push(centre(cols[i + 1]) - centre(cols[i]));
+  return d.length ? Math.min(...d) : 40;
+}
+
+/** Lines directly above the first row that belong to its header (top line first). */
+function headerLines(lines: Line[], rows: Line[], cols: Span[]): Line[] {
+  const first = rows[0];
+  const rowSize = first.size;
+  const pitch = rows.length > 1 ? Math.abs(rows[0].y - rows[1].y) : 1.5 * rowSize;
+  const out: Line[] = [];
+  let prevY = first.y;
+  for (let k = first.index - 1; k >= 0 && out.length < 6; k--) {
+    const line = lines[k];
+    if (line.y - prevY > 2.2 * pitch + 2) break;
+    // A row of the table itself (or one it could not read) is never header.
+    if (isDataRow(line) || isPartNumber(line.cells[0]?.text ?? '')) break;
+    if (line.size > 1.3 * rowSize) break;
+    if (line.cells.some((c) => c.text.length > 48)) break;
+    // A caption starts in the part-number column and runs on over the next columns.
+    if (cols.length > 2 && line.cells.some((c) => c.x0 <= cols[0].x1 && c.x1 > centre(cols[2]))) break;
+    out.unshift(line);
+    prevY = line.y;
+  }
+  return out;
+}
+
+/** Header text per column: each header cell goes to the columns it is centred over or next to. */
+function headerTexts(header: Line[], cols: Span[]): { texts: string[]; owners: Cell[][] } {
+  const texts = cols.map(() => [] as string[]);
+  const owners = cols.map(() => [] as Cell[]);
+  for (const line of header) {
+    cols.forEach((col, i) => {
+      const c = centre(col);
+      let best: Cell | undefined;
+      let bestDistance = Infinity;
+      for (const cell of line.cells) {
+        const d = c < cell.x0 ? cell.x0 - c : c > cell.x1 ? c - cell.x1 : 0;
+        if (d < bestDistance) {
+          best = cell;
+          bestDistance = d;
+        }
+      }
+      if (best && bestDistance <= 0.6 * pitchOf(cols, i)) {
+        texts[i].push(best.text);
+        owners[i].push(best);
+      }
+    });
+  }
+  return { texts: texts.map((t) => t.join(' ')), owners };
+}
+
+function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
+  const { texts, owners } = headerTexts(header, cols);
+  const columns: ColumnPlan[] = cols.map((span, i) => {
+    const text = texts[i];
+    const { rest } = findConditions(text);
+    const unit = headerUnit(rest);
+    let kind = unit ? kindOfUnit(unit) : undefined;
+    if (!kind) kind = cellKind(rows, cols, i);
+    const match = i === 0 ? undefined : fieldFor(rest, kind);
+    return { span, header: text, unit, match, isPackage: i > 0 && !match && isPackageHeader(text) };
+  });
+  // Several columns may name one field (min/typ/max of tc): keep the best ranked, first on ties.
+  const best = new Map<ExtractionField, number>();
+  columns.forEach((c, i) => {
+    if (!c.match) return;
+    const j = best.get(c.match.field);
+    if (j === undefined || c.match.rank > columns[j].match!.rank) best.set(c.match.field, i);
+  });
+  columns.forEach((c, i) => {
+    if (c.match && best.get(c.match.field) !== i) c.match = undefined;
+  });
+  const conditions: HeaderCondition[] = [];
+  const seen = new Set<Cell>();
+  columns.forEach((c, i) => {
+    for (const cell of owners[i]) {
+      if (seen.has(cell)) continue;
+      seen.add(cell);
+      for (const cond of findConditions(cell.text, c.match?.field).conditions) {
+        conditions.push({ ...cond, page: header[0].page, text: cell.text, cell });
+      }
+    }
+  });
+  return { columns, conditions };
+}
+
+/** The most common unit kind in a column's cells (units printed in the cells). */
+function cellKind(rows: Line[], cols: Span[], i: number): QuantityKind | undefined {
+  const counts = new Map<QuantityKind, number>();
+  for (const row of rows) {
+    for (const cell of row.cells) {
+      if (columnIndex(cols, cell) !== i) continue;
+      const k = findQuantities(cell.text)[0]?.kind;
+      if (k) counts.set(k, (counts.get(k) ?? 0) + 1);
+    }
+  }
+  let best: QuantityKind | undefined;
+  for (const [k, n] of counts) if (!best || n > counts.get(best)!) best = k;
+  return best;
+}
+
+const mappedCount = (p: TablePlan) => p.columns.filter((c) => c.match).length;
+
+function sameColumns(a: Span[], b: ColumnPlan[]): boolean {
+  return a.length === b.length && a.every((s, i) => overlap(s, b[i].span) > 0);
+}
+
+/**
+ * Reads every series table. Returns the lines it used as table rows, so the other readers
+ * leave them alone.
+ */
+export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: string[]): Set<Line> {
+  const used = new Set<Line>();
+  let previous: TablePlan | undefined;
+  for (const lines of pages) {
+    let i = 0;
+    while (i < lines.length) {
+      if (!isDataRow(lines[i])) {
+        i++;
+        continue;
+      }
+      let j = i;
+      while (j < lines.length && isDataRow(lines[j])) j++;
+      const rows = lines.slice(i, j);
+      i = j;
+      const cols = columnsOf(rows);
+      const header = headerLines(lines, rows, cols);
+      let plan: TablePlan | undefined = header.length ? planColumns(header, rows, cols) : undefined;
+      if (!plan || mappedCount(plan) < 2) {
+        const ownHeader = header.some((l) => /^(type|part|device|order)/i.test(l.cells[0]?.text ?? ''));
+        if (ownHeader) continue; // a table of its own that holds no ratings (ordering data and the like)
+        if (previous && sameColumns(cols, previous.columns)) {
+          plan = { columns: previous.columns.map((c, k) => ({ ...c, span: cols[k] })), conditions: previous.conditions };
+        } else continue;
+      }
+      previous = plan;
+      for (const row of rows) {
+        used.add(row);
+        readRow(row, cols, plan, drafts, warnings);
+      }
+    }
+  }
+  return used;
+}
+
+function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts, warnings: string[]): void {
+  const mpn = row.cells[0].text;
+  const draft = drafts.get(mpn, orderOf(row.page, row.index));
+  const byColumn = new Map<number, Cell>();
+  for (const cell of row.cells.slice(1)) {
+    const k = columnIndex(cols, cell);
+    if (k > 0 && !byColumn.has(k)) byColumn.set(k, cell);
+  }
+  plan.columns.forEach((col, k) => {
+    const cell = byColumn.get(k);
+    if (!cell || isEmptyCell(cell.text)) return;
+    if (col.isPackage) {
+      const found = findPackage(cell.text);
+      draft.offerPackage({ value: found?.value ?? cell.text, page: row.page, text: row.text, box: cellBox(cell), rank: 3 });
+      return;
+    }
+    if (!col.match) return;
+    const field = col.match.field;
+    const q = findQuantities(cell.text)[0];
+    if (!q) {
+      warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} is not a number; ${field} left empty.`);
+      return;
+    }
+    const unit = q.unit || col.unit || '';
+    const kind = unit ? kindOfUnit(unit) : undefined;
+    if (!kind || !FIELD_KINDS[field].includes(kind)) {
+      warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} has no usable unit for ${field}; left empty.`);
+      return;
+    }
+    const si = toSi(q.value, unit, kind);
+    if (si === undefined) return;
+    draft.offer(field, { value: q.value, unit, kind, si, page: row.page, text: row.text, box: cellBox(cell), rank: 3 });
+  });
+  for (const cond of plan.conditions) {
+    const si = toSi(cond.value, cond.unit, cond.kind);
+    if (si === undefined) continue;
+    draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: cond.page, text: cond.text, box: cellBox(cond.cell), rank: 1 });
+  }
+}

@@ -1,0 +1,98 @@
+import { z } from 'zod';
+
+/**
+ * What the datasheet extraction found: candidate ratings per variant, each traceable to
+ * its page and printed text. Returned by `GET /api/datasheets/:id/extraction`. Suggestions
+ * only: an engineer accepts or corrects each one on the rating card.
+ */
+
+/** The card fields extraction looks for. */
+export const EXTRACTION_FIELDS = [
+  'vzMin',
+  'vzNom',
+  'vzMax',
+  'izt',
+  'zzt',
+  'izk',
+  'zzk',
+  'irMax',
+  'vr',
+  'tc',
+  'pdMax',
+  'tjMax',
+  'rthJA',
+  'izm',
+] as const;
+export const extractionFieldSchema = z.enum(EXTRACTION_FIELDS);
+export type ExtractionField = z.infer<typeof extractionFieldSchema>;
+
+/** Where on the page the text sits, in PDF points from the page's bottom-left corner. */
+export const extractionBoxSchema = z.object({
+  x: z.number(),
+  y: z.number(),
+  width: z.number(),
+  height: z.number(),
+});
+export type ExtractionBox = z.infer<typeof extractionBoxSchema>;
+
+export const extractedValueSchema = z.object({
+  /** The number as printed, e.g. "−2.1" or "0.5". */
+  value: z.string(),
+  /** The unit as printed, from the cell or from the column header, e.g. "mV/°C", "uA", "ohm". */
+  unit: z.string(),
+  /** SI value: V, A, Ω, W, °C, K/W; the temperature coefficient in V/K. */
+  si: z.number(),
+  /** 1-based page number. */
+  page: z.number().int().positive(),
+  /** The line or table row the value was read from. */
+  text: z.string(),
+  /** The cell or line on the page, for highlighting in the viewer. */
+  box: extractionBoxSchema.optional(),
+  /** How the value was derived when not read directly (e.g. a %/K figure converted with VZnom). */
+  note: z.string().optional(),
+});
+export type ExtractedValue = z.infer<typeof extractedValueSchema>;
+
+export const extractedPackageSchema = z.object({
+  value: z.string(),
+  page: z.number().int().positive(),
+  text: z.string(),
+  box: extractionBoxSchema.optional(),
+});
+export type ExtractedPackage = z.infer<typeof extractedPackageSchema>;
+
+export const extractedFieldsSchema = z.object({
+  vzMin: extractedValueSchema.optional(),
+  vzNom: extractedValueSchema.optional(),
+  vzMax: extractedValueSchema.optional(),
+  izt: extractedValueSchema.optional(),
+  zzt: extractedValueSchema.optional(),
+  izk: extractedValueSchema.optional(),
+  zzk: extractedValueSchema.optional(),
+  irMax: extractedValueSchema.optional(),
+  vr: extractedValueSchema.optional(),
+  tc: extractedValueSchema.optional(),
+  pdMax: extractedValueSchema.optional(),
+  tjMax: extractedValueSchema.optional(),
+  rthJA: extractedValueSchema.optional(),
+  izm: extractedValueSchema.optional(),
+});
+export type ExtractedFields = z.infer<typeof extractedFieldsSchema>;
+
+export const extractedVariantSchema = z.object({
+  mpn: z.string(),
+  package: extractedPackageSchema.optional(),
+  fields: extractedFieldsSchema,
+});
+export type ExtractedVariant = z.infer<typeof extractedVariantSchema>;
+
+export const extractionResultSchema = z.object({
+  variants: z.array(extractedVariantSchema),
+  /** Plain-language remarks: no text layer, a value that could not be read, a %/K figure without VZnom… */
+  warnings: z.array(z.string()),
+  /** Page count of the PDF. */
+  pages: z.number().int().nonnegative(),
+  /** False for a scan: pages with images only. */
+  hasText: z.boolean(),
+});
+export type ExtractionResult = z.infer<typeof extractionResultSchema>;
