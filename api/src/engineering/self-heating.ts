@@ -1,23 +1,26 @@
 import type { ToleranceCorner } from '@shuntwise/contracts';
-import { diodeVoltage, type BreakdownModel } from './breakdown-model';
+import { diodeVoltage, voltageTempSlope, type BreakdownModel } from './breakdown-model';
 
 /** Stop when the junction temperature moves less than this between iterations (K). */
 const TJ_TOLERANCE_K = 1e-9;
-const MAX_ITERATIONS = 100;
+const MAX_ITERATIONS = 20;
 
 /**
  * Junction temperature (°C) of a diode carrying `current` (A) at ambient `taC` (°C):
- * Tj = Ta + RthJA·V(I, Tj)·I, iterated to convergence. Ta when the card has no rthJA;
- * NaN when the iteration does not settle (thermal runaway: RthJA·I·dV/dT ≥ 1).
+ * Tj = Ta + RthJA·V(I, Tj)·I, solved by Newton iteration to convergence (V is affine in Tj
+ * here, so one step lands and the next confirms). Ta when the card has no rthJA; NaN on
+ * thermal runaway, when RthJA·I·dV/dTj ≥ 1 and no steady state exists.
  */
 export function junctionTemperatureC(model: BreakdownModel, current: number, taC: number, corner: ToleranceCorner = 'nom'): number {
   const rth = model.rthJA;
   if (rth === null) return taC;
+  const loopGain = rth * current * voltageTempSlope(model, current);
+  if (loopGain >= 1) return Number.NaN;
   let tj = taC;
   for (let k = 0; k < MAX_ITERATIONS; k++) {
-    const next = taC + rth * diodeVoltage(model, current, tj, corner) * current;
-    if (Math.abs(next - tj) < TJ_TOLERANCE_K) return next;
-    tj = next;
+    const residual = tj - taC - rth * diodeVoltage(model, current, tj, corner) * current;
+    if (Math.abs(residual) < TJ_TOLERANCE_K) return tj;
+    tj -= residual / (1 - loopGain);
   }
   return Number.NaN;
 }

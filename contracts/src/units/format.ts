@@ -57,8 +57,10 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
 }
 
 function toDigits(x: number, digits: number): string {
-  // toPrecision keeps trailing zeros (4.70) but switches to exponent form for large
-  // numbers; above 10^digits print the integer.
+  // toPrecision keeps trailing zeros (4.70) but switches to exponent form when the integer
+  // part has more figures than asked for (also after rounding 99.7 up to "1.0e+2"): print
+  // the integer then.
   if (x >= 10 ** digits) return Math.round(x).toString();
-  return x.toPrecision(digits);
+  const text = x.toPrecision(digits);
+  return text.includes('e') ? String(Number(text)) : text;
 }
