@@ -1,8 +1,7 @@
 import type { ExtractionField } from '@shuntwise/contracts';
-import { kindOfUnit } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
 import { headingPartNumber } from './part-numbers';
-import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi } from './quantity-text';
+import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
 
@@ -103,7 +102,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   const kind = (() => {
     for (const v of values) {
       const u = unitFor(v);
-      const k = u ? kindOfUnit(u) : undefined;
+      const k = u ? unitKind(u) : undefined;
       if (k) return k;
     }
     return undefined;
@@ -142,7 +141,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
 
   for (const [field, v] of chosen) {
     const unit = unitFor(v);
-    const k = unit ? kindOfUnit(unit) : undefined;
+    const k = unit ? unitKind(unit) : undefined;
     if (!k || !FIELD_KINDS[field].includes(k)) continue;
     const si = toSi(v.token.value, unit, k);
     if (si === undefined) continue;

@@ -10,12 +10,21 @@ const PREFIX = '[pnuµμmkKMG]?';
 // Longest spellings first so that "mV/°C" is not read as "mV".
 const UNIT =
   String.raw`(?:%\s?/\s?(?:K|°C|℃|C)|°C\s?/\s?W|℃/W|K\s?/\s?W|C/W|${PREFIX}V\s?/\s?(?:K|°C|℃|C)|°C|℃|degC|` +
-  String.raw`${PREFIX}(?:[ΩΩ]|[Oo]hms?)|${PREFIX}[VAW]|C)`;
+  String.raw`${PREFIX}(?:[\u03A9\u2126]|[Oo]hms?)|${PREFIX}[VAW]|C)`;
 
 /** A number, optionally after ≤/< and followed by a unit; not glued to letters before it. */
-const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}\p{N}])`, 'gu');
+// Not followed by a letter, digit or slash: "12 mW/°C" is a derating slope, not a power.
+const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}\p{N}/])`, 'gu');
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
 const NUMERIC_CELL = new RegExp(String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*(?:\d\))?\s*$`, 'u');
+
+/**
+ * The shared parser knows the ohm as U+03A9 only; datasheets also print the ohm sign
+ * U+2126. Normalised here for reading; the unit is still reported as printed.
+ */
+export function unitKind(unit: string): QuantityKind | undefined {
+  return kindOfUnit(unit.replace(/\u2126/g, '\u03A9'));
+}
 
 export interface QuantityToken {
   /** The number as printed (sign kept as printed). */
@@ -33,14 +42,14 @@ export function findQuantities(text: string): QuantityToken[] {
   for (const m of text.matchAll(TOKEN)) {
     const unit = m[3] ?? '';
     const start = m.index + (m[1]?.length ?? 0);
-    out.push({ value: m[2], unit, kind: unit ? kindOfUnit(unit) : undefined, index: start, end: m.index + m[0].length });
+    out.push({ value: m[2], unit, kind: unit ? unitKind(unit) : undefined, index: start, end: m.index + m[0].length });
   }
   return out;
 }
 
 export function isUnitOnly(text: string): boolean {
   const m = UNIT_ONLY.exec(text);
-  return m !== null && kindOfUnit(m[1]) !== undefined;
+  return m !== null && unitKind(m[1]) !== undefined;
 }
 
 export function isNumericCell(text: string): boolean {
@@ -55,7 +64,7 @@ export function isEmptyCell(text: string): boolean {
 /** The unit written in a header, e.g. "(V)", "[mA]", "(mV/°C)". */
 export function headerUnit(text: string): string | undefined {
   for (const m of text.matchAll(/[([]\s*([^()[\]]+?)\s*[)\]]/g)) {
-    if (kindOfUnit(m[1]) !== undefined) return m[1];
+    if (unitKind(m[1]) !== undefined) return m[1];
   }
   const tokens = text.split(/\s+/).reverse();
   return tokens.find((t) => /^[^\d]/.test(t) && isUnitOnly(t));
@@ -64,7 +73,7 @@ export function headerUnit(text: string): string | undefined {
 /** SI value of a printed number and unit of a kind, or undefined when they do not fit. */
 export function toSi(value: string, unit: string, kind: QuantityKind): number | undefined {
   try {
-    return parseQuantity(`${normaliseQuantityText(value)} ${unit}`, kind);
+    return parseQuantity(`${normaliseQuantityText(value)} ${unit.replace(/\u2126/g, '\u03A9')}`, kind);
   } catch {
     return undefined;
   }

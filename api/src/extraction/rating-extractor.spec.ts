@@ -14,8 +14,9 @@ import { extractDatasheet } from './rating-extractor';
 
 const FIELDS: RatingField[] = ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'tjMax', 'rthJA', 'izm'];
 
-/** pdfjs hands µ back as Greek mu (its Unicode normalisation); the glyph is the same. */
-const sameUnit = (a: string, b: string) => a.replace(/μ/g, 'µ').replace(/Ω/g, 'Ω') === b.replace(/μ/g, 'µ').replace(/Ω/g, 'Ω');
+/** pdfjs hands µ back as Greek mu and the ohm sign as omega (its Unicode normalisation); the glyphs are the same. */
+const sameUnit = (a: string, b: string) => canonical(a) === canonical(b);
+const canonical = (u: string) => u.replace(/\u03BC/g, '\u00B5').replace(/\u2126/g, '\u03A9');
 const sameSi = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1e-9, Math.abs(b));
 
 interface Tally {

@@ -1,8 +1,7 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { kindOfUnit } from '@shuntwise/contracts';
 import { fieldFor, FieldMatch, findConditions, isPackageHeader } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
-import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi } from './quantity-text';
+import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 
@@ -158,7 +157,7 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
     const text = texts[i];
     const { rest } = findConditions(text);
     const unit = headerUnit(rest);
-    let kind = unit ? kindOfUnit(unit) : undefined;
+    let kind = unit ? unitKind(unit) : undefined;
     if (!kind) kind = cellKind(rows, cols, i);
     const match = i === 0 ? undefined : fieldFor(rest, kind);
     return { span, header: text, unit, match, isPackage: i > 0 && !match && isPackageHeader(text) };
@@ -270,7 +269,7 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts
       return;
     }
     const unit = q.unit || col.unit || '';
-    const kind = unit ? kindOfUnit(unit) : undefined;
+    const kind = unit ? unitKind(unit) : undefined;
     if (!kind || !FIELD_KINDS[field].includes(kind)) {
       warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} has no usable unit for ${field}; left empty.`);
       return;

@@ -14,7 +14,8 @@ import { Field, Printed } from './types';
 /** How a vendor writes its units and signs. */
 export interface PrintStyle {
   micro: 'µ' | 'μ' | 'u';
-  ohm: 'Ω' | 'Ω' | 'ohm';
+  /** Greek capital omega (U+03A9), the ohm sign (U+2126) or ASCII. */
+  ohm: '\u03A9' | '\u2126' | 'ohm';
   minus: '−' | '-';
   plusSign: boolean;
   tcUnit: 'mV/°C' | 'mV/K' | '%/K';
@@ -259,7 +260,7 @@ export const SERIES: Record<string, SeriesDef> = {
     irFactor: 4,
     zFactor: 0.85,
     izm: true,
-    style: { micro: 'μ', ohm: 'Ω', minus: '−', plusSign: true, tcUnit: '%/K', vzDecimals: [2, 1], vzNomDecimals: [1, 0] },
+    style: { micro: 'μ', ohm: '\u2126', minus: '−', plusSign: true, tcUnit: '%/K', vzDecimals: [2, 1], vzNomDecimals: [1, 0] },
     seed: 4404,
   },
   nmz: {

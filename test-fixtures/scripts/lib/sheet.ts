@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 
-/** DejaVu carries µ, μ, Ω, Ω, −, °, α, θ and ≤; embedding it keeps the PDFs self-contained. */
+/** DejaVu carries µ, μ, Ω, Ω (ohm sign), −, °, α, θ and ≤; embedding it keeps the PDFs self-contained. */
 const FONT_DIR = '/usr/share/fonts/truetype/dejavu';
 const FONTS = {
   regular: `${FONT_DIR}/DejaVuSans.ttf`,
