@@ -3,6 +3,7 @@ import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
 import { ThrottlerModule } from '@nestjs/throttler';
 import { ZodValidationPipe } from 'nestjs-zod';
 import { AuthModule } from './auth/auth.module';
+import { CatalogueCsvModule } from './catalogue-csv/catalogue-csv.module';
 import { CatalogueEventsModule } from './catalogue-events/catalogue-events.module';
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
@@ -10,6 +11,7 @@ import { RolesGuard } from './common/guards/roles.guard';
 import { ConfigModule } from './config/config.module';
 import type { Env } from './config/env';
 import { DatabaseModule } from './database/database.module';
+import { DatasheetsModule } from './datasheets/datasheets.module';
 import { HealthModule } from './health/health.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
@@ -20,7 +22,7 @@ import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
 
 /** Feature modules, one per resource of the API map. */
-const FEATURES = [AuthModule, UsersModule, HealthModule, OutboxModule, SeedModule, CatalogueEventsModule, VendorPartsModule, HousePartsModule];
+const FEATURES = [AuthModule, UsersModule, HealthModule, OutboxModule, SeedModule, CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule];
 
 @Module({})
 export class AppModule {

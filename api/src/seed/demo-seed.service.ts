@@ -2,6 +2,7 @@ import { Inject, Injectable, Logger } from '@nestjs/common';
 import { hashPassword } from '../auth/passwords';
 import { ENV, type Env } from '../config/env';
 import { UsersRepository } from '../users/users.repository';
+import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DEMO_USERS } from './demo-users';
 
 /**
@@ -18,6 +19,7 @@ export class DemoSeedService {
   constructor(
     @Inject(ENV) private readonly env: Env,
     private readonly users: UsersRepository,
+    private readonly catalogue: CatalogueSeeder,
   ) {}
 
   async run(level: SeedLevel = 'demo'): Promise<{ created: number }> {
@@ -30,6 +32,7 @@ export class DemoSeedService {
       await this.users.create({ email: demo.email, name: demo.name, role: demo.role, passwordHash: hash });
       created++;
     }
+    if (level === 'demo') created += (await this.catalogue.run()).created;
     if (created) this.logger.log(`demo: ${created} records added`);
     return { created };
   }

@@ -1,6 +1,14 @@
 import { Module } from '@nestjs/common';
+import { DatasheetsModule } from '../datasheets/datasheets.module';
+import { HousePartsModule } from '../house-parts/house-parts.module';
 import { UsersModule } from '../users/users.module';
+import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
+import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DemoSeedService } from './demo-seed.service';
 
-@Module({ imports: [UsersModule], providers: [DemoSeedService], exports: [DemoSeedService] })
+@Module({
+  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule],
+  providers: [DemoSeedService, CatalogueSeeder],
+  exports: [DemoSeedService],
+})
 export class SeedModule {}

@@ -82,4 +82,28 @@ export class RatingCardsRepository {
     if (vendorPartIds.length === 0) return Promise.resolve([]);
     return this.cards.findAll({ where: { vendorPartId: vendorPartIds }, transaction });
   }
+
+  /** Cards in vendor-part id order after `afterId`, for streaming exports (keyset paging, no OFFSET). */
+  async exportBatch(afterId: number, limit: number, manufacturer?: string): Promise<CardExportRow[]> {
+    const rows = await this.sequelize.query<Omit<CardExportRow, 'fields'> & { fields: RatingCardFields | string }>(
+      `SELECT vp.id AS vendorPartId, m.name AS manufacturer, vp.mpn, vp.package, vp.lifecycle_note AS lifecycleNote, rc.version, rc.fields
+       FROM rating_cards rc
+       JOIN vendor_parts vp ON vp.id = rc.vendor_part_id
+       JOIN manufacturers m ON m.id = vp.manufacturer_id
+       WHERE rc.vendor_part_id > ? ${manufacturer ? 'AND m.name = ?' : ''}
+       ORDER BY rc.vendor_part_id LIMIT ?`,
+      { replacements: manufacturer ? [afterId, manufacturer, limit] : [afterId, limit], type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => ({ ...r, fields: typeof r.fields === 'string' ? (JSON.parse(r.fields) as RatingCardFields) : r.fields }));
+  }
+}
+
+export interface CardExportRow {
+  vendorPartId: number;
+  manufacturer: string;
+  mpn: string;
+  package: string | null;
+  lifecycleNote: string | null;
+  version: number;
+  fields: RatingCardFields;
 }

@@ -1,0 +1,6 @@
+import { csvImportRequestSchema } from '@shuntwise/contracts';
+import { createZodDto } from 'nestjs-zod';
+import { z } from 'zod';
+
+export class CsvImportDto extends createZodDto(csvImportRequestSchema) {}
+export class CardExportQueryDto extends createZodDto(z.object({ manufacturer: z.string().trim().min(1).max(120).optional() })) {}

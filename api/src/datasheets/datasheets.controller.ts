@@ -1,0 +1,66 @@
+import { Body, Controller, Get, Param, ParseIntPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
+import { AnyRole, Roles } from '../common/decorators/roles.decorator';
+import { DatasheetUploadInterceptor } from './datasheet-upload.interceptor';
+import { CreateVariantsDto, UploadDatasheetFieldsDto } from './datasheets.dto';
+import { DatasheetsService } from './datasheets.service';
+
+@ApiTags('datasheets')
+@ApiBearerAuth()
+@Controller('datasheets')
+export class DatasheetsController {
+  constructor(private readonly datasheets: DatasheetsService) {}
+
+  @Post()
+  @Roles('engineer', 'admin')
+  @UseInterceptors(DatasheetUploadInterceptor)
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file'],
+      properties: { file: { type: 'string', format: 'binary' }, vendorPartId: { type: 'integer' }, revision: { type: 'string', maxLength: 40 } },
+    },
+  })
+  async upload(@UploadedFile() file: Express.Multer.File | undefined, @Body() fields: UploadDatasheetFieldsDto, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response) {
+    const result = await this.datasheets.upload(file && { buffer: file.buffer, originalName: file.originalname }, fields, user);
+    res.status(result.existing ? 200 : 201);
+    return result;
+  }
+
+  @Get(':id')
+  @AnyRole()
+  get(@Param('id', ParseIntPipe) id: number) {
+    return this.datasheets.get(id);
+  }
+
+  /** The PDF itself; the name is the server's (sanitised), never a header taken from the upload. */
+  @Get(':id/file')
+  @AnyRole()
+  async file(@Param('id', ParseIntPipe) id: number, @Res({ passthrough: true }) res: Response) {
+    const { stream, fileName, sizeBytes } = await this.datasheets.file(id);
+    res.setHeader('Content-Disposition', contentDisposition(fileName));
+    return new StreamableFile(stream, { type: 'application/pdf', length: sizeBytes });
+  }
+
+  @Get(':id/extraction')
+  @Roles('engineer', 'admin', 'designer')
+  extraction(@Param('id', ParseIntPipe) id: number) {
+    return this.datasheets.extraction(id);
+  }
+
+  @Post(':id/variants')
+  @Roles('engineer', 'admin')
+  variants(@Param('id', ParseIntPipe) id: number, @Body() body: CreateVariantsDto, @CurrentUser() user: AuthUser) {
+    return this.datasheets.createVariants(id, body, user);
+  }
+}
+
+/** inline, with an ASCII fallback name and the exact name in RFC 5987 form. */
+export function contentDisposition(fileName: string): string {
+  const ascii = fileName.replace(/[^\x20-\x7e]/g, '_').replace(/["\\]/g, '_');
+  const encoded = encodeURIComponent(fileName).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+  return `inline; filename="${ascii}"; filename*=UTF-8''${encoded}`;
+}

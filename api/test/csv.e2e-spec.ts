@@ -1,0 +1,150 @@
+import { parse } from 'csv-parse/sync';
+import { demoCardFields } from './helpers/catalogue-fixtures';
+import { createHousePart, createVendorPart } from './helpers/catalogue-fixtures';
+import { createTestApp, type TestApp } from './helpers/test-app';
+
+/** An invented vendor series as a vendor might send it: units in the header, and µ/Ω spelled both ways. */
+const SERIES = [
+  'mpn,package,vzMin (V),vzNom (V),vzMax (V),izt (mA),zzt (Ω),izk (mA),zzk (ohm),irMax (µA),vr (V),tc (mV/°C),pdMax (mW),tjMax (°C),rthJA (K/W),izm (mA)',
+  'ODW-4V7,SOD-123,4.44,4.7,4.94,5,80,0.25,500,3,2,-1.4,500,150,250,98',
+  'ODW-5V1,SOD-123,4.84,5.1,5.36,5,60,0.25,480,2,2,0.3,500,150,250,90',
+  'ODW-6V2,SOD-323,5.89,6.2,6.51,5,10,0.25,200,1,4,2.3,500,150,250,74',
+].join('\n');
+
+describe('CSV import and export (real MariaDB)', () => {
+  let t: TestApp;
+  let engineer: string;
+  let buyer: string;
+  let designer: string;
+  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+  const preview = (body: object, token = engineer) => t.http.post('/api/imports/vendor-series/preview').set(auth(token)).send(body);
+  const confirm = (body: object, token = engineer) => t.http.post('/api/imports/vendor-series').set(auth(token)).send(body);
+  const partCount = async () => (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM vendor_parts'))[0].n;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    [engineer, buyer, designer] = await Promise.all([t.tokenFor('engineer'), t.tokenFor('buyer'), t.tokenFor('designer')]);
+  });
+  afterAll(() => t.close());
+
+  it('previews a series without writing, then writes every row on confirm', async () => {
+    const before = await partCount();
+    const res = await preview({ csv: SERIES, manufacturer: 'Ostrander Components' });
+    expect(res.status).toBe(200);
+    expect(res.body.errors).toEqual([]);
+    expect(res.body.summary).toEqual({ rows: 3, withErrors: 0, create: 3, addCard: 0, unchanged: 0, conflict: 0 });
+    expect(res.body.columns.find((c: { header: string }) => c.header === 'izt (mA)')).toEqual({ header: 'izt (mA)', field: 'izt', unit: 'mA' });
+    const first = res.body.rows[0];
+    expect(first).toMatchObject({ row: 2, manufacturer: 'Ostrander Components', mpn: 'ODW-4V7', action: 'create', vendorPartId: null });
+    // units from the header: 5 mA → 0.005 A, 3 µA → 3e-6 A, -1.4 mV/°C kept as −1.4 mV/K
+    expect(first.values.izt).toEqual({ value: 0.005, printed: '5 mA' });
+    expect(first.values.irMax.value).toBeCloseTo(3e-6, 15);
+    expect(first.values.tc).toEqual({ value: -1.4, printed: '-1.4 mV/°C', unit: 'mV/K' });
+    expect(await partCount()).toBe(before);
+
+    const done = await confirm({ csv: SERIES, manufacturer: 'Ostrander Components' });
+    expect(done.status).toBe(201);
+    expect(done.body).toMatchObject({ created: 3, cardsAdded: 0, unchanged: 0, conflicts: [] });
+    expect(await partCount()).toBe(before + 3);
+    const card = await t.http.get(`/api/vendor-parts/${done.body.vendorPartIds[1]}/rating-card`).set(auth(engineer));
+    expect(card.body.fields.zzk).toMatchObject({ value: 480, printed: '480 ohm', provenance: { source: 'imported', confirmedBy: { name: 'Priya Raman' } } });
+    expect(card.body.fields.pdMax.value).toBeCloseTo(0.5, 12);
+
+    // the same file again changes nothing
+    const again = await preview({ csv: SERIES, manufacturer: 'Ostrander Components' });
+    expect(again.body.summary).toMatchObject({ unchanged: 3, create: 0 });
+  });
+
+  it('reports every problem with its row and column, and writes nothing on confirm', async () => {
+    const csv = [
+      'manufacturer;mpn;vzNom;izt;zzt;tc;pdMax',
+      'Lumenvale Devices;LVX-1;5.1 V;5 mA;40 ohm;0.03 %/K;500 mW', // good
+      'Lumenvale Devices;LVX-2;5.1;5 mA;40 ohm;;', // vzNom without a unit
+      'Lumenvale Devices;LVX-3;5.1 V;5 furlongs;40 ohm;;', // a unit that is no current
+      'Lumenvale Devices;LVX-4;5.1 V;;;;', // no izt
+      'Lumenvale Devices;LVX-5;5.1 V;5 mA;2 kΩ;;', // zzt × izt above vzNom
+      'Lumenvale Devices;LVX-1;5.1 V;5 mA;40 ohm;;', // twice in the file
+      ';LVX-7;5.1 V;5 mA;;;', // no manufacturer
+    ].join('\r\n');
+    const before = await partCount();
+    const res = await preview({ csv });
+    expect(res.status).toBe(200);
+    const errors = res.body.errors as Array<{ row: number; column: string; message: string }>;
+    expect(errors.map((e) => `${e.row} ${e.column}`)).toEqual(['3 vzNom', '4 izt', '5 izt', '6 zzt', '7 mpn', '8 manufacturer']);
+    expect(errors[0].message).toMatch(/cannot read "5.1" as a voltage.*no unit/);
+    expect(errors[1].message).toMatch(/cannot read "5 furlongs" as a current/);
+    expect(errors[2].message).toMatch(/no izt/);
+    expect(errors[3].message).toMatch(/zzt/);
+    expect(errors[4].message).toMatch(/already on row 2/);
+    expect(res.body.rows[0]).toMatchObject({ row: 2, action: 'create', errors: [] });
+    expect(res.body.rows[0].values.tc).toEqual({ value: 0.03, printed: '0.03 %/K', unit: '%/K' });
+    expect(res.body.summary).toMatchObject({ rows: 7, withErrors: 6, create: 1 });
+
+    const refused = await confirm({ csv });
+    expect(refused.status).toBe(400);
+    expect(refused.body.message).toMatch(/Nothing imported: 6 problems/);
+    expect(refused.body.errors[0]).toEqual({ path: 'row 3, vzNom', message: expect.any(String) });
+    expect(await partCount()).toBe(before);
+  });
+
+  it('refuses a file it cannot read at all, naming why', async () => {
+    expect((await preview({ csv: 'vzNom,izt\n5.1 V,5 mA' })).body.message).toMatch(/needs an mpn column/);
+    expect((await preview({ csv: 'mpn,vzNom\nX,5.1 V' })).body.message).toMatch(/Name the manufacturer/);
+    expect((await preview({ csv: 'mpn,izt (V)\nX,5', manufacturer: 'M' })).body.message).toMatch(/unit "V" does not fit izt/);
+    expect((await preview({ csv: 'mpn,vzNom,Vz nom\nX,5.1 V,5.1 V', manufacturer: 'M' })).body.message).toMatch(/both give vzNom/);
+    expect((await preview({ csv: 'mpn,vzNom\n"X,5.1 V', manufacturer: 'M' })).body.message).toMatch(/cannot be read near line/);
+    expect((await preview({ csv: '' })).body.errors[0].path).toBe('csv');
+    expect((await preview({ csv: SERIES, manufacturer: 'M', datasheetId: 4242 })).body.message).toMatch(/No datasheet with id 4242/);
+  });
+
+  it('never overwrites a different card: the row is a conflict, left alone and reported', async () => {
+    const id = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZR-5V1' });
+    await t.http.put(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer)).send({ version: 0, fields: demoCardFields() });
+    const bare = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZR-5V6' });
+    const csv = 'mpn,vzNom (V),izt (mA),zzt (ohm)\nAMZR-5V1,5.1,5,25\nAMZR-5V6,5.6,5,20\n';
+    const res = await preview({ csv, manufacturer: 'Aldmoor Semiconductor' });
+    expect(res.body.rows.map((r: { action: string; vendorPartId: number }) => [r.action, r.vendorPartId])).toEqual([
+      ['conflict', id],
+      ['add-card', bare],
+    ]);
+    const done = await confirm({ csv, manufacturer: 'Aldmoor Semiconductor' });
+    expect(done.body).toMatchObject({ created: 0, cardsAdded: 1, conflicts: [{ row: 2, mpn: 'AMZR-5V1', vendorPartId: id }] });
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 1, fields: { zzt: { value: 40 } } });
+    expect((await t.http.get(`/api/vendor-parts/${bare}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 1, fields: { zzt: { value: 20 } } });
+  });
+
+  it('only engineers and admins import', async () => {
+    expect((await preview({ csv: SERIES, manufacturer: 'X' }, buyer)).status).toBe(403);
+    expect((await confirm({ csv: SERIES, manufacturer: 'X' }, designer)).status).toBe(403);
+  });
+
+  it('exports cards as text/csv that the import reads back unchanged', async () => {
+    const res = await t.http.get('/api/exports/rating-cards?manufacturer=Ostrander%20Components').set(auth(designer));
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="shuntwise-rating-cards-\d{4}-\d{2}-\d{2}\.csv"$/);
+    expect(res.text.charCodeAt(0)).toBe(0xfeff);
+    const records = parse(res.text, { bom: true, columns: true }) as Array<Record<string, string>>;
+    expect(records.map((r) => r.mpn)).toEqual(['ODW-4V7', 'ODW-5V1', 'ODW-6V2']);
+    expect(records[0]).toMatchObject({ manufacturer: 'Ostrander Components', 'izt (A)': '0.005', 'zzk (ohm)': '500', tc: '-1.4 mV/K', 'tcVoltsPerKelvin (V/K)': '-0.0014', cardVersion: '1' });
+
+    const back = await preview({ csv: res.text });
+    expect(back.body.warnings).toEqual([]);
+    expect(back.body.summary).toEqual({ rows: 3, withErrors: 0, create: 0, addCard: 0, unchanged: 3, conflict: 0 });
+    expect((await t.http.get('/api/exports/rating-cards').set(auth(buyer))).status).toBe(403);
+  });
+
+  it('exports house parts with their sources for buyers', async () => {
+    const hp = await createHousePart(t.http, engineer, 'OHI-ZD-EXP', 'Regulator diode 5.1 V, export test');
+    const vp = (await t.http.get('/api/vendor-parts?mpn=ODW-5V1').set(auth(engineer))).body.items[0].id;
+    await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, role: 'approved', note: 'reference' });
+    await createHousePart(t.http, engineer, 'OHI-ZD-NOSRC');
+    const res = await t.http.get('/api/exports/house-parts').set(auth(buyer));
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(/filename="shuntwise-house-parts-and-sources-\d{4}-\d{2}-\d{2}\.csv"/);
+    const records = parse(res.text, { bom: true, columns: true }) as Array<Record<string, string>>;
+    expect(records.find((r) => r.partNumber === 'OHI-ZD-EXP')).toMatchObject({ sourceRole: 'approved', manufacturer: 'Ostrander Components', mpn: 'ODW-5V1', cardVersion: '1', sourceNote: 'reference' });
+    expect(records.find((r) => r.partNumber === 'OHI-ZD-NOSRC')).toMatchObject({ sourceRole: '', mpn: '' });
+  });
+});
