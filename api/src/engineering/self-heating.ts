@@ -1,5 +1,6 @@
 import type { ToleranceCorner } from '@shuntwise/contracts';
-import { diodeVoltage, voltageTempSlope, type BreakdownModel } from './breakdown-model';
+import { diodeVoltage, type BreakdownModel } from './breakdown-model';
+import { K_OVER_Q, T_REF_C, ZERO_CELSIUS_K } from './physics';
 
 /** Stop when the junction temperature moves less than this between iterations (K). */
 const TJ_TOLERANCE_K = 1e-9;
@@ -14,11 +15,16 @@ const MAX_ITERATIONS = 20;
 export function junctionTemperatureC(model: BreakdownModel, current: number, taC: number, corner: ToleranceCorner = 'nom'): number {
   const rth = model.rthJA;
   if (rth === null) return taC;
-  const loopGain = rth * current * voltageTempSlope(model, current);
+  // V(Tj) = v25 + slope·(Tj − 25 °C), the same law as diodeVoltage with its logarithm taken once.
+  const ln = Math.log(current / model.izt);
+  const slope = model.alphaVz + model.nbv * K_OVER_Q * ln;
+  const loopGain = rth * current * slope;
   if (loopGain >= 1) return Number.NaN;
+  const vz = corner === 'nom' ? model.vzNom : corner === 'min' ? model.vzLow : model.vzHigh;
+  const v25 = vz + model.nbv * K_OVER_Q * (T_REF_C + ZERO_CELSIUS_K) * ln + model.rs * (current - model.izt);
   let tj = taC;
   for (let k = 0; k < MAX_ITERATIONS; k++) {
-    const residual = tj - taC - rth * diodeVoltage(model, current, tj, corner) * current;
+    const residual = tj - taC - rth * (v25 + slope * (tj - T_REF_C)) * current;
     if (Math.abs(residual) < TJ_TOLERANCE_K) return tj;
     tj -= residual / (1 - loopGain);
   }
