@@ -4,10 +4,12 @@
 import { spawnSync } from 'node:child_process';
 import { readdirSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { ensureNodeModules } from './lib/bootstrap.mjs';
+import { buildIfStale, ensureNodeModules } from './lib/bootstrap.mjs';
 
 const root = new URL('..', import.meta.url).pathname;
 ensureNodeModules(root);
+// Bench scripts import @shuntwise/contracts from its build.
+buildIfStale(root, { name: 'contracts', inputs: ['contracts/src', 'contracts/tsconfig.json', 'contracts/tsconfig.build.json'], output: 'contracts/dist/index.js' });
 const only = process.argv[2];
 let failed = 0;
 for (const pkg of ['api', 'web', 'contracts', 'test-fixtures']) {
