@@ -48,6 +48,16 @@ describe('normalising a card to other currents and temperatures', () => {
   });
 });
 
+describe('thermal runaway', () => {
+  it('gives null values and says why when RthJA·I·dV/dT ≥ 1 (100 V, +0.1 %/K, 0.5 A, 100 K/W: loop gain 5)', () => {
+    const response = normalize({ card: { vzNom: 100, izt: 0.5, zzt: 10, tc: { value: 0.1, unit: '%/K' }, rthJA: 100 }, currents: [0.5, 0.001] });
+    expect(normalizeResponseSchema.parse(response)).toEqual(response);
+    expect(response.points[0]).toMatchObject({ current: 0.5, tjC: null, vzNom: null });
+    expect(response.points[1].vzNom).toEqual(expect.any(Number));
+    expect(response.warnings.join(' ')).toMatch(/thermal runaway/);
+  });
+});
+
 describe('the request schema rejects bad input naming the field', () => {
   it('names card fields, current entries and unknown keys', () => {
     const result = normalizeRequestSchema.safeParse({

@@ -9,20 +9,31 @@ import { spiceModelLine } from './spice-model';
 
 const DEFAULT_TEMPERATURES_C: readonly number[] = [T_REF_C];
 
+/** One normalised point as the core computes it: NaN marks thermal runaway, null missing data. */
+export interface PointValues {
+  current: number;
+  tempC: number;
+  tjC: number;
+  vzMin: number | null;
+  vzNom: number;
+  vzMax: number | null;
+  zd: number | null;
+}
+
 /**
  * The card at every ambient (°C) × current (A): vz window (V) and Zd (Ω), each tolerance
  * end with its own self-heated junction temperature when selfHeating and rthJA allow.
- * Points come ambient-major. A runaway corner gives NaN for its values.
+ * Points come ambient-major. A corner in thermal runaway gives NaN for its values.
  */
 export function normalizePoints(
   model: BreakdownModel,
   currents: readonly number[],
   temperaturesC: readonly number[] = DEFAULT_TEMPERATURES_C,
   selfHeating = true,
-): NormalizedPoint[] {
+): PointValues[] {
   const heat = selfHeating && model.rthJA !== null;
   const hasZd = model.basis !== 'none';
-  const points: NormalizedPoint[] = new Array(temperaturesC.length * currents.length);
+  const points: PointValues[] = new Array(temperaturesC.length * currents.length);
   let n = 0;
   for (let t = 0; t < temperaturesC.length; t++) {
     const taC = temperaturesC[t];
@@ -70,7 +81,8 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
     }
     if (card.izm != null && current > card.izm) warnings.push(`${formatQuantity(current, 'current')} exceeds izm (${formatQuantity(card.izm, 'current')})`);
   }
-  if (points.some((p) => Number.isNaN(p.tjC))) warnings.push('thermal runaway at some points: their values are NaN');
+  const runaway = points.some((p) => Number.isNaN(p.tjC) || Number.isNaN(p.vzMin) || Number.isNaN(p.vzMax));
+  if (runaway) warnings.push('thermal runaway at some points (RthJA·I·dV/dT ≥ 1): no steady state, their values are null');
   if (points.some((p) => p.vzNom < 0.5 * card.vzNom)) {
     warnings.push('at some currents the model falls below half of vzNom: far below the knee the log law is not a good description');
   }
@@ -90,7 +102,7 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
       basis: model.basis,
       assumptions: model.assumptions,
     },
-    points,
+    points: runaway ? points.map(withoutNaN) : points,
     mechanism: mechanismOf(card.vzNom),
     warnings,
     assumptions,
@@ -98,4 +110,10 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
     spiceModel: spiceModelLine(model),
     caution: DESIGN_CAUTION,
   };
+}
+
+/** JSON has no NaN: a runaway point says null, as the response schema allows. */
+function withoutNaN(p: PointValues): NormalizedPoint {
+  const clean = (x: number | null) => (x === null || Number.isNaN(x) ? null : x);
+  return { current: p.current, tempC: p.tempC, tjC: clean(p.tjC), vzMin: clean(p.vzMin), vzNom: clean(p.vzNom), vzMax: clean(p.vzMax), zd: clean(p.zd) };
 }

@@ -245,7 +245,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
                 resistance: r,
                 vOut: op.vOut,
                 diodeCurrent: op.diodeCurrent,
-                tjC: op.tjC,
+                tjC: Number.isNaN(op.tjC) ? null : op.tjC,
                 diodePower: p,
                 resistorPower: ((vs - op.vOut) * (vs - op.vOut)) / r,
                 belowKnee: !op.inBreakdown || op.diodeCurrent < kneeCurrent * (1 - 1e-9),
@@ -268,7 +268,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
       if (resistorPower === null || c.resistorPower > resistorPower) resistorPower = c.resistorPower;
     }
     outputBand = { vMin, vMax, corners };
-    if (corners.some((c) => Number.isNaN(c.tjC))) reasons.push('thermal runaway at some corners');
+    if (corners.some((c) => c.tjC === null)) reasons.push('thermal runaway at some corners: no steady state');
     if (selected !== null) {
       const belowKnee = corners.filter((c) => c.belowKnee).length;
       const overPower = corners.filter((c) => c.overPower).length;

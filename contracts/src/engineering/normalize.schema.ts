@@ -37,14 +37,18 @@ export const MECHANISMS = ['tunnelling', 'mixed', 'avalanche'] as const;
 export const mechanismSchema = z.enum(MECHANISMS);
 export type Mechanism = z.infer<typeof mechanismSchema>;
 
-/** The card at one current and ambient: Zener voltage window (V) and dynamic impedance (Ω). */
+/**
+ * The card at one current and ambient: Zener voltage window (V) and dynamic impedance (Ω).
+ * Values are null where the card has no data, and where the junction runs away thermally
+ * (no steady state; the response's warnings say so).
+ */
 export const normalizedPointSchema = z.object({
   current: z.number(),
   tempC: z.number(),
   /** Junction temperature of the nominal part (°C). */
-  tjC: z.number(),
+  tjC: z.number().nullable(),
   vzMin: z.number().nullable(),
-  vzNom: z.number(),
+  vzNom: z.number().nullable(),
   vzMax: z.number().nullable(),
   /** null when the card gives no impedance. */
   zd: z.number().nullable(),

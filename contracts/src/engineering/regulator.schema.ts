@@ -66,7 +66,8 @@ export const regulatorCornerSchema = z.object({
   resistance: z.number(),
   vOut: z.number(),
   diodeCurrent: z.number(),
-  tjC: z.number(),
+  /** null where the junction runs away thermally. */
+  tjC: z.number().nullable(),
   diodePower: z.number(),
   resistorPower: z.number(),
   belowKnee: z.boolean(),
