@@ -14,8 +14,10 @@ export interface SpiceModelOptions {
 /**
  * The card as an ngspice diode `.model` line. Checked in ngspice 45 (eecircuit-engine):
  * it reads the breakdown coefficient as TCV, with TLEV=0 as BV(T) = BV − TCV·(T − TNOM),
- * so a positive TCV lowers BV and TCV = −αVz; TBV1 is accepted and ignored. TNOM is set
- * to 25 °C because ngspice's default is 27 °C.
+ * so a positive TCV lowers BV and TCV = −αVz (TBV1 is read the same way; TCV is the name
+ * its diode documents). NBV·Vt follows the absolute temperature. TNOM is set to 25 °C
+ * because ngspice's default is 27 °C. An unknown parameter is a fatal ngspice error, so
+ * nothing else is written.
  */
 export function spiceModelLine(model: BreakdownModel, options: SpiceModelOptions = {}): string {
   const name = (options.name ?? 'DZ').replace(/[^A-Za-z0-9_]/g, '_') || 'DZ';
