@@ -12,6 +12,7 @@ import { ConfigModule } from './config/config.module';
 import type { Env } from './config/env';
 import { DatabaseModule } from './database/database.module';
 import { DatasheetsModule } from './datasheets/datasheets.module';
+import { EngineeringModule } from './engineering/engineering.module';
 import { HealthModule } from './health/health.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
@@ -22,7 +23,14 @@ import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
 
 /** Feature modules, one per resource of the API map. */
-const FEATURES = [AuthModule, UsersModule, HealthModule, OutboxModule, SeedModule, CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule];
+const FEATURES = [
+  AuthModule,
+  UsersModule,
+  HealthModule,
+  OutboxModule,
+  SeedModule,
+  EngineeringModule,
+  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule];
 
 @Module({})
 export class AppModule {

@@ -16,7 +16,8 @@ describe('parseQuantity reads what datasheets print', () => {
     ['-2.5 mV/K', 'tempCoVoltage', -0.0025],
     ['0.06 %/K', 'tempCoPercent', 0.06],
     ['0.06 %/°C', 'tempCoPercent', 0.06],
-    ['7 Ω', 'resistance', 7],
+    ['7 \u03A9', 'resistance', 7], // Greek capital omega
+    ['7 \u2126', 'resistance', 7], // ohm sign, as some PDFs encode it
     ['7 ohm', 'resistance', 7],
     ['1.2 kΩ', 'resistance', 1200],
     ['250 K/W', 'thermalResistance', 250],

@@ -32,7 +32,7 @@ const UNIT_SPELLINGS: Record<QuantityKind, ReadonlyArray<[string, number]>> = {
   current: [['A', 1]],
   resistance: [
     ['Ω', 1], // Greek capital omega U+03A9
-    ['Ω', 1], // ohm sign U+2126
+    ['\u2126', 1], // ohm sign U+2126
     ['ohms', 1],
     ['ohm', 1],
     ['Ohms', 1],
@@ -152,7 +152,7 @@ export function parseRange(text: string, kind: QuantityKind, options: ParseOptio
     .replace(/[\u2212\uFE63\uFF0D]/g, '-')
     .replace(/[\u00A0\u2009\u202F]/g, ' ')
     .trim();
-  const parts = clean.split(/\s*(?:\u2026|\.\.\.|\s+to\s+|\s*[\u2012\u2013\u2014]\s*|(?<![0-9.][eE])(?<=\d\s*[a-zA-Zµμ°%/Ω℃]*)\s*-\s*(?=[+\-]?\d))\s*/);
+  const parts = clean.split(/\s*(?:\u2026|\.\.\.|\s+to\s+|\s*[\u2012\u2013\u2014]\s*|(?<![0-9.][eE])(?<=\d\s*[a-zA-Zµμ°%/Ω℃]*)\s*-\s*(?=[+-]?\d))\s*/);
   if (parts.length !== 2) throw new UnitParseError(field, text, `a range of ${describeExpected(kind)}`);
   const [first, second] = parts;
   const secondMatch = new RegExp(`^(${NUMBER})\\s*(.*)$`).exec(normaliseQuantityText(second));

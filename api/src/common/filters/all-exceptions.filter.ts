@@ -4,6 +4,7 @@ import type { Response } from 'express';
 import { ZodValidationException } from 'nestjs-zod';
 import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
+import { EngineeringInputError } from '../../engineering/engineering-input.error';
 import type { RequestWithCorrelation } from '../correlation-id.middleware';
 
 /**
@@ -37,6 +38,10 @@ export class AllExceptionsFilter implements ExceptionFilter {
       const r = response as { message?: unknown; errors?: ErrorBody['errors'] };
       const message = Array.isArray(r.message) ? r.message.join('; ') : typeof r.message === 'string' ? r.message : exception.message;
       return { status, body: r.errors ? { message, errors: r.errors } : { message } };
+    }
+    if (exception instanceof EngineeringInputError) {
+      const errors = exception.problems.map((p) => ({ path: p.field, message: p.message }));
+      return { status: HttpStatus.UNPROCESSABLE_ENTITY, body: { message: `Cannot compute from this card: ${exception.message}`, errors } };
     }
     if (exception instanceof UniqueConstraintError) {
       const fields = Object.keys(exception.fields ?? {});
