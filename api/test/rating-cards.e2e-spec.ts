@@ -47,7 +47,7 @@ describe('rating cards (real MariaDB)', () => {
     expect(atIzt.tjC).toBeCloseTo(25 + 250 * atIzt.vzNom * 0.005, 6);
     expect(atIzt.vzNom).toBeCloseTo(5.1 + 0.0003 * (atIzt.tjC - 25), 6);
     expect(result.spiceModel).toMatch(/^\.model /);
-    expect(await t.select('SELECT version, vz_nom AS vzNom, izt FROM rating_cards WHERE vendor_part_id = ?', [id])).toEqual([{ version: 1, vzNom: 5.1, izt: 0.005 }]);
+    expect(await t.select('SELECT card_version AS version, vz_nom AS vzNom, izt FROM vendor_parts WHERE id = ?', [id])).toEqual([{ version: 1, vzNom: 5.1, izt: 0.005 }]);
   });
 
   it('converts a %/K coefficient to V/K with the card’s vzNom', async () => {

@@ -4,8 +4,8 @@ import { User } from '../users/user.model';
 import { VendorPart } from './vendor-part.model';
 
 /**
- * The current card of a vendor part. `fields` holds every value with its provenance;
- * vzNom, izt and pdMax are copied into columns of their own so lists sort and filter in SQL.
+ * The current card of a vendor part: `fields` holds every value with its provenance. The
+ * list figures (vzNom, izt, pdMax) are copied onto the vendor part, where lists sort by them.
  */
 @Table({ tableName: 'rating_cards', underscored: true })
 export class RatingCard extends Model {
@@ -22,15 +22,6 @@ export class RatingCard extends Model {
 
   @Column({ type: DataType.STRING(500), allowNull: true })
   declare note: string | null;
-
-  @Column({ type: DataType.DOUBLE, allowNull: false })
-  declare vzNom: number;
-
-  @Column({ type: DataType.DOUBLE, allowNull: false })
-  declare izt: number;
-
-  @Column({ type: DataType.DOUBLE, allowNull: true })
-  declare pdMax: number | null;
 
   @ForeignKey(() => User)
   @Column({ type: DataType.INTEGER, allowNull: true })

@@ -40,15 +40,20 @@ export class RatingCardsRepository {
     });
   }
 
-  /** Writes the card's new current state and its version row (one transaction, the caller's). */
+  /** Writes the card's new current state, its version row and the vendor part's list figures (one transaction, the caller's). */
   async save(
     values: { vendorPartId: number; version: number; fields: RatingCardFields; note: string | null; vzNom: number; izt: number; pdMax: number | null; userId: number | null; changedFields: string[] },
     existing: RatingCard | null,
     transaction: Transaction,
   ): Promise<void> {
-    const row = { version: values.version, fields: values.fields, note: values.note, vzNom: values.vzNom, izt: values.izt, pdMax: values.pdMax, updatedById: values.userId };
+    const row = { version: values.version, fields: values.fields, note: values.note, updatedById: values.userId };
     if (existing) await existing.update(row, { transaction });
     else await this.cards.create({ vendorPartId: values.vendorPartId, ...row }, { transaction });
+    await this.sequelize.query('UPDATE vendor_parts SET card_version = ?, vz_nom = ?, izt = ?, pd_max = ?, updated_at = NOW() WHERE id = ?', {
+      replacements: [values.version, values.vzNom, values.izt, values.pdMax, values.vendorPartId],
+      type: QueryTypes.UPDATE,
+      transaction,
+    });
     await this.versions.create(
       { vendorPartId: values.vendorPartId, version: values.version, fields: values.fields, changedFields: values.changedFields, note: values.note, changedById: values.userId },
       { transaction },

@@ -11,6 +11,10 @@ export class VendorPart extends Model {
   @BelongsTo(() => Manufacturer, 'manufacturerId')
   declare manufacturer?: Manufacturer;
 
+  /** A copy of the manufacturer's name, so lists sort by it on an index (set with manufacturerId). */
+  @Column({ type: DataType.STRING(120), allowNull: false, defaultValue: '' })
+  declare manufacturerName: string;
+
   @Column({ type: DataType.STRING(80), allowNull: false })
   declare mpn: string;
 
@@ -26,6 +30,19 @@ export class VendorPart extends Model {
 
   @BelongsTo(() => User, 'createdById')
   declare createdBy?: User;
+
+  /** The card's list figures (SI), written with each card version; null without a card. */
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  declare cardVersion: number | null;
+
+  @Column({ type: DataType.DOUBLE, allowNull: true })
+  declare vzNom: number | null;
+
+  @Column({ type: DataType.DOUBLE, allowNull: true })
+  declare izt: number | null;
+
+  @Column({ type: DataType.DOUBLE, allowNull: true })
+  declare pdMax: number | null;
 
   declare createdAt: Date;
   declare updatedAt: Date;

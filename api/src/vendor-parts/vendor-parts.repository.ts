@@ -22,23 +22,23 @@ export interface VendorPartRow {
   pdMax: number | null;
 }
 
+/** Every sort is one indexed column of vendor_parts (then id, which each secondary index ends with). */
 const SORT_COLUMNS: Record<VendorPartSort, string> = {
   mpn: 'vp.mpn',
-  manufacturer: 'm.name',
+  manufacturer: 'vp.manufacturer_name',
   package: 'vp.package',
-  vzNom: 'rc.vz_nom',
-  izt: 'rc.izt',
-  pdMax: 'rc.pd_max',
+  vzNom: 'vp.vz_nom',
+  izt: 'vp.izt',
+  pdMax: 'vp.pd_max',
   updatedAt: 'vp.updated_at',
   createdAt: 'vp.created_at',
 };
 
-const SELECT_ROW = `SELECT vp.id, m.name AS manufacturer, vp.mpn, vp.package, vp.lifecycle_note AS lifecycleNote,
+// One table, no join: the manufacturer's name and the card's list figures live on the row.
+const SELECT_ROW = `SELECT vp.id, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package, vp.lifecycle_note AS lifecycleNote,
   vp.created_at AS createdAt, vp.updated_at AS updatedAt,
-  rc.version AS cardVersion, rc.vz_nom AS vzNom, rc.izt AS izt, rc.pd_max AS pdMax
-FROM vendor_parts vp
-JOIN manufacturers m ON m.id = vp.manufacturer_id
-LEFT JOIN rating_cards rc ON rc.vendor_part_id = vp.id`;
+  vp.card_version AS cardVersion, vp.vz_nom AS vzNom, vp.izt AS izt, vp.pd_max AS pdMax
+FROM vendor_parts vp`;
 
 /** Escapes LIKE wildcards so a typed "%" or "_" matches itself. */
 export function likePrefix(text: string): string {
@@ -64,7 +64,7 @@ export class VendorPartsRepository {
     }
     if (query.manufacturer) {
       const names = query.manufacturer.split(',').map((s) => s.trim()).filter(Boolean);
-      where.push(`m.name IN (${names.map(() => '?').join(', ')})`);
+      where.push(`vp.manufacturer_name IN (${names.map(() => '?').join(', ')})`);
       params.push(...names);
     }
     if (query.package) {
@@ -72,33 +72,30 @@ export class VendorPartsRepository {
       params.push(query.package);
     }
     if (query.vzNomMin !== undefined) {
-      where.push('rc.vz_nom >= ?');
+      where.push('vp.vz_nom >= ?');
       params.push(query.vzNomMin);
     }
     if (query.vzNomMax !== undefined) {
-      where.push('rc.vz_nom <= ?');
+      where.push('vp.vz_nom <= ?');
       params.push(query.vzNomMax);
     }
-    if (query.hasCard !== undefined) where.push(query.hasCard ? 'rc.vendor_part_id IS NOT NULL' : 'rc.vendor_part_id IS NULL');
+    if (query.hasCard !== undefined) where.push(query.hasCard ? 'vp.card_version IS NOT NULL' : 'vp.card_version IS NULL');
     if (query.housePartId !== undefined) {
       where.push('EXISTS (SELECT 1 FROM house_part_sources s WHERE s.vendor_part_id = vp.id AND s.house_part_id = ?)');
       params.push(query.housePartId);
     }
     const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
     const order = orderBy(query.sort);
-    const rows = await this.sequelize.query<VendorPartRow>(`${SELECT_ROW} ${whereSql} ORDER BY ${order} LIMIT ? OFFSET ?`, {
-      replacements: [...params, query.pageSize, query.pageIndex * query.pageSize],
+    // Deferred join: the page's ids come from the index alone, so a deep OFFSET skips index
+    // entries rather than whole rows; only the page's rows are then read.
+    const rows = await this.sequelize.query<VendorPartRow>(
+      `${SELECT_ROW} JOIN (SELECT vp.id FROM vendor_parts vp ${whereSql} ORDER BY ${order} LIMIT ? OFFSET ?) page ON page.id = vp.id ORDER BY ${order}`,
+      { replacements: [...params, query.pageSize, query.pageIndex * query.pageSize], type: QueryTypes.SELECT },
+    );
+    const [{ total }] = await this.sequelize.query<{ total: number | bigint }>(`SELECT COUNT(*) AS total FROM vendor_parts vp ${whereSql}`, {
+      replacements: params,
       type: QueryTypes.SELECT,
     });
-    // The count joins only what its conditions need.
-    const needsManufacturer = query.manufacturer !== undefined;
-    const needsCard = query.vzNomMin !== undefined || query.vzNomMax !== undefined || query.hasCard !== undefined;
-    const [{ total }] = await this.sequelize.query<{ total: number | bigint }>(
-      `SELECT COUNT(*) AS total FROM vendor_parts vp
-       ${needsManufacturer ? 'JOIN manufacturers m ON m.id = vp.manufacturer_id' : ''}
-       ${needsCard ? 'LEFT JOIN rating_cards rc ON rc.vendor_part_id = vp.id' : ''} ${whereSql}`,
-      { replacements: params, type: QueryTypes.SELECT },
-    );
     return { rows, total: Number(total) };
   }
 
@@ -132,7 +129,7 @@ export class VendorPartsRepository {
     for (let i = 0; i < keys.length; i += 500) {
       const chunk = keys.slice(i, i + 500);
       rows.push(
-        ...(await this.sequelize.query<VendorPartRow>(`${SELECT_ROW} WHERE (m.name, vp.mpn) IN (${chunk.map(() => '(?, ?)').join(', ')})`, {
+        ...(await this.sequelize.query<VendorPartRow>(`${SELECT_ROW} WHERE (vp.manufacturer_name, vp.mpn) IN (${chunk.map(() => '(?, ?)').join(', ')})`, {
           replacements: chunk.flatMap((k) => [k.manufacturer, k.mpn]),
           type: QueryTypes.SELECT,
           transaction,
@@ -142,12 +139,21 @@ export class VendorPartsRepository {
     return rows;
   }
 
-  create(values: { manufacturerId: number; mpn: string; package: string | null; lifecycleNote: string | null; createdById: number | null }, transaction?: Transaction): Promise<VendorPart> {
-    return this.vendorParts.create(values, { transaction });
+  create(
+    values: { manufacturer: Manufacturer; mpn: string; package: string | null; lifecycleNote: string | null; createdById: number | null },
+    transaction?: Transaction,
+  ): Promise<VendorPart> {
+    const { manufacturer, ...rest } = values;
+    return this.vendorParts.create({ ...rest, manufacturerId: manufacturer.id, manufacturerName: manufacturer.name }, { transaction });
   }
 
-  async update(part: VendorPart, values: Partial<Pick<VendorPart, 'manufacturerId' | 'mpn' | 'package' | 'lifecycleNote'>>, transaction?: Transaction): Promise<void> {
-    await part.update(values, { transaction });
+  async update(
+    part: VendorPart,
+    values: { manufacturer?: Manufacturer } & Partial<Pick<VendorPart, 'mpn' | 'package' | 'lifecycleNote'>>,
+    transaction?: Transaction,
+  ): Promise<void> {
+    const { manufacturer, ...rest } = values;
+    await part.update({ ...rest, ...(manufacturer ? { manufacturerId: manufacturer.id, manufacturerName: manufacturer.name } : {}) }, { transaction });
   }
 
   findManufacturerByName(name: string, transaction?: Transaction): Promise<Manufacturer | null> {

@@ -53,7 +53,7 @@ export class VendorPartsService {
     const manufacturer = await this.vendorParts.findOrCreateManufacturer(request.manufacturer, transaction);
     try {
       return await this.vendorParts.create(
-        { manufacturerId: manufacturer.id, mpn: request.mpn, package: request.package ?? null, lifecycleNote: request.lifecycleNote ?? null, createdById: user?.id ?? null },
+        { manufacturer, mpn: request.mpn, package: request.package ?? null, lifecycleNote: request.lifecycleNote ?? null, createdById: user?.id ?? null },
         transaction,
       );
     } catch (error) {
@@ -75,7 +75,7 @@ export class VendorPartsService {
       const part = await this.vendorParts.findById(id, transaction, true);
       if (!part) throw new NotFoundException(`No vendor part with id ${id}`);
       const values: Parameters<VendorPartsRepository['update']>[1] = {};
-      if (request.manufacturer !== undefined) values.manufacturerId = (await this.vendorParts.findOrCreateManufacturer(request.manufacturer, transaction)).id;
+      if (request.manufacturer !== undefined) values.manufacturer = await this.vendorParts.findOrCreateManufacturer(request.manufacturer, transaction);
       if (request.mpn !== undefined) values.mpn = request.mpn;
       if (request.package !== undefined) values.package = request.package;
       if (request.lifecycleNote !== undefined) values.lifecycleNote = request.lifecycleNote;
