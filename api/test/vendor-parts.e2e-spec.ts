@@ -43,6 +43,17 @@ describe('vendor parts (real MariaDB)', () => {
     );
   });
 
+  it('publishes the catalogue schemas at /api/docs (request and answer bodies, list parameters)', async () => {
+    const docs = (await t.http.get('/api/docs-json')).body;
+    expect(Object.keys(docs.components.schemas)).toEqual(
+      expect.arrayContaining(['VendorPartPageDto', 'PutRatingCardDto', 'RatingCardViewDto', 'RatingCardConflictDto', 'PutSpecDto', 'SpecVersionDto', 'SourceDto', 'UploadDatasheetResponseDto', 'CsvImportPreviewDto']),
+    );
+    expect(docs.paths['/api/vendor-parts'].get.parameters.map((p: { name: string }) => p.name)).toEqual(
+      expect.arrayContaining(['pageIndex', 'pageSize', 'sort', 'mpn', 'manufacturer', 'package', 'vzNomMin', 'vzNomMax', 'hasCard']),
+    );
+    expect(docs.paths['/api/datasheets'].post.requestBody.content['multipart/form-data'].schema.properties.file).toEqual({ type: 'string', format: 'binary' });
+  });
+
   describe('lists: pagination, sorting and filtering in SQL', () => {
     const voltages = [2.4, 3.3, 4.7, 5.1, 6.2, 8.2, 10, 12, 15, 24];
     beforeAll(async () => {

@@ -1,10 +1,10 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
 import { DatasheetUploadInterceptor } from './datasheet-upload.interceptor';
-import { CreateVariantsDto, UploadDatasheetFieldsDto } from './datasheets.dto';
+import { CreateVariantsDto, CreateVariantsResponseDto, DatasheetDto, ExtractionResultDto, UploadDatasheetFieldsDto, UploadDatasheetResponseDto } from './datasheets.dto';
 import { DatasheetsService } from './datasheets.service';
 
 @ApiTags('datasheets')
@@ -24,6 +24,7 @@ export class DatasheetsController {
       properties: { file: { type: 'string', format: 'binary' }, vendorPartId: { type: 'integer' }, revision: { type: 'string', maxLength: 40 } },
     },
   })
+  @ApiCreatedResponse({ type: UploadDatasheetResponseDto, description: 'stored; 200 with existing: true when the same file was already stored' })
   async upload(@UploadedFile() file: Express.Multer.File | undefined, @Body() fields: UploadDatasheetFieldsDto, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response) {
     const result = await this.datasheets.upload(file && { buffer: file.buffer, originalName: file.originalname }, fields, user);
     res.status(result.existing ? 200 : 201);
@@ -32,6 +33,7 @@ export class DatasheetsController {
 
   @Get(':id')
   @AnyRole()
+  @ApiOkResponse({ type: DatasheetDto })
   get(@Param('id', ParseIntPipe) id: number) {
     return this.datasheets.get(id);
   }
@@ -39,6 +41,8 @@ export class DatasheetsController {
   /** The PDF itself; the name is the server's (sanitised), never a header taken from the upload. */
   @Get(':id/file')
   @AnyRole()
+  @ApiProduces('application/pdf')
+  @ApiOkResponse({ description: 'the PDF, byte for byte as uploaded' })
   async file(@Param('id', ParseIntPipe) id: number, @Res({ passthrough: true }) res: Response) {
     const { stream, fileName, sizeBytes } = await this.datasheets.file(id);
     res.setHeader('Content-Disposition', contentDisposition(fileName));
@@ -47,12 +51,14 @@ export class DatasheetsController {
 
   @Get(':id/extraction')
   @Roles('engineer', 'admin', 'designer')
+  @ApiOkResponse({ type: ExtractionResultDto })
   extraction(@Param('id', ParseIntPipe) id: number) {
     return this.datasheets.extraction(id);
   }
 
   @Post(':id/variants')
   @Roles('engineer', 'admin')
+  @ApiCreatedResponse({ type: CreateVariantsResponseDto })
   variants(@Param('id', ParseIntPipe) id: number, @Body() body: CreateVariantsDto, @CurrentUser() user: AuthUser) {
     return this.datasheets.createVariants(id, body, user);
   }

@@ -1,8 +1,21 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Put, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
-import { AddSourceDto, CreateHousePartDto, HousePartListQueryDto, PutSpecDto, SpecQueryDto, UpdateHousePartDto, UpdateSourceDto } from './house-parts.dto';
+import {
+  AddSourceDto,
+  CreateHousePartDto,
+  HousePartDto,
+  HousePartListQueryDto,
+  HousePartPageDto,
+  PutSpecDto,
+  SourceDto,
+  SpecQueryDto,
+  SpecVersionDto,
+  SpecVersionSummaryDto,
+  UpdateHousePartDto,
+  UpdateSourceDto,
+} from './house-parts.dto';
 import { HousePartsService } from './house-parts.service';
 
 @ApiTags('house parts')
@@ -13,60 +26,70 @@ export class HousePartsController {
 
   @Get()
   @AnyRole()
+  @ApiOkResponse({ type: HousePartPageDto })
   list(@Query() query: HousePartListQueryDto) {
     return this.houseParts.list(query);
   }
 
   @Post()
   @Roles('engineer', 'admin')
+  @ApiCreatedResponse({ type: HousePartDto })
   create(@Body() body: CreateHousePartDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.create(body, user);
   }
 
   @Get(':id')
   @AnyRole()
+  @ApiOkResponse({ type: HousePartDto })
   get(@Param('id', ParseIntPipe) id: number) {
     return this.houseParts.get(id);
   }
 
   @Patch(':id')
   @Roles('engineer', 'admin')
+  @ApiOkResponse({ type: HousePartDto })
   update(@Param('id', ParseIntPipe) id: number, @Body() body: UpdateHousePartDto) {
     return this.houseParts.update(id, body);
   }
 
   @Get(':id/spec')
   @AnyRole()
+  @ApiOkResponse({ type: SpecVersionDto })
   spec(@Param('id', ParseIntPipe) id: number, @Query() query: SpecQueryDto) {
     return this.houseParts.spec(id, query.version);
   }
 
   @Put(':id/spec')
   @Roles('engineer', 'admin')
+  @ApiOkResponse({ type: SpecVersionDto })
   putSpec(@Param('id', ParseIntPipe) id: number, @Body() body: PutSpecDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.putSpec(id, body, user);
   }
 
   @Get(':id/spec/versions')
   @AnyRole()
+  @ApiOkResponse({ type: [SpecVersionSummaryDto] })
   specVersions(@Param('id', ParseIntPipe) id: number) {
     return this.houseParts.specVersions(id);
   }
 
   @Get(':id/sources')
   @AnyRole()
+  @ApiOkResponse({ type: [SourceDto] })
   sources(@Param('id', ParseIntPipe) id: number) {
     return this.houseParts.sources(id);
   }
 
   @Post(':id/sources')
   @Roles('engineer', 'admin')
+  @ApiCreatedResponse({ type: SourceDto })
   addSource(@Param('id', ParseIntPipe) id: number, @Body() body: AddSourceDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.addSource(id, body, user);
   }
 
   @Patch(':id/sources/:vendorPartId')
   @Roles('engineer', 'admin')
+  @ApiOkResponse({ type: SourceDto })
   updateSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number, @Body() body: UpdateSourceDto) {
     return this.houseParts.updateSource(id, vendorPartId, body);
   }
@@ -74,6 +97,7 @@ export class HousePartsController {
   @Delete(':id/sources/:vendorPartId')
   @Roles('engineer', 'admin')
   @HttpCode(204)
+  @ApiNoContentResponse()
   removeSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number) {
     return this.houseParts.removeSource(id, vendorPartId);
   }

@@ -1,10 +1,10 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Put, Query, UseFilters } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiConflictResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { RatingCardConflictFilter } from './rating-card-conflict.filter';
 import { RatingCardsService } from './rating-cards.service';
-import { PutRatingCardDto, RatingCardQueryDto } from './vendor-parts.dto';
+import { PutRatingCardDto, RatingCardConflictDto, RatingCardQueryDto, RatingCardVersionSummaryDto, RatingCardViewDto } from './vendor-parts.dto';
 
 @ApiTags('rating cards')
 @ApiBearerAuth()
@@ -15,18 +15,22 @@ export class RatingCardsController {
 
   @Get()
   @Roles('engineer', 'admin', 'designer')
+  @ApiOkResponse({ type: RatingCardViewDto })
   get(@Param('id', ParseIntPipe) id: number, @Query() query: RatingCardQueryDto) {
     return this.cards.view(id, query);
   }
 
   @Put()
   @Roles('engineer', 'admin')
+  @ApiOkResponse({ type: RatingCardViewDto })
+  @ApiConflictResponse({ type: RatingCardConflictDto, description: 'the card changed since `version`; the body carries the current card' })
   put(@Param('id', ParseIntPipe) id: number, @Body() body: PutRatingCardDto, @CurrentUser() user: AuthUser) {
     return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user);
   }
 
   @Get('versions')
   @Roles('engineer', 'admin', 'designer')
+  @ApiOkResponse({ type: [RatingCardVersionSummaryDto] })
   versions(@Param('id', ParseIntPipe) id: number) {
     return this.cards.versions(id);
   }

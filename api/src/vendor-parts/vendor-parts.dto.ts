@@ -1,9 +1,15 @@
 import {
   createVendorPartRequestSchema,
+  manufacturerSchema,
   putRatingCardRequestSchema,
+  ratingCardConflictSchema,
   ratingCardQuerySchema,
+  ratingCardVersionSummarySchema,
+  ratingCardViewSchema,
   updateVendorPartRequestSchema,
+  vendorPartDetailSchema,
   vendorPartListQuerySchema,
+  vendorPartPageSchema,
 } from '@shuntwise/contracts';
 import { createZodDto } from 'nestjs-zod';
 
@@ -12,3 +18,10 @@ export class CreateVendorPartDto extends createZodDto(createVendorPartRequestSch
 export class UpdateVendorPartDto extends createZodDto(updateVendorPartRequestSchema) {}
 export class RatingCardQueryDto extends createZodDto(ratingCardQuerySchema) {}
 export class PutRatingCardDto extends createZodDto(putRatingCardRequestSchema) {}
+
+export class VendorPartPageDto extends createZodDto(vendorPartPageSchema) {}
+export class VendorPartDetailDto extends createZodDto(vendorPartDetailSchema) {}
+export class ManufacturerDto extends createZodDto(manufacturerSchema) {}
+export class RatingCardViewDto extends createZodDto(ratingCardViewSchema) {}
+export class RatingCardConflictDto extends createZodDto(ratingCardConflictSchema) {}
+export class RatingCardVersionSummaryDto extends createZodDto(ratingCardVersionSummarySchema) {}
