@@ -146,6 +146,7 @@ export function parseSeriesCsv(text: string, defaults: { manufacturer?: string; 
     const mpn = identity('mpn', mpnSchema, true);
     const pkg = identity('package', packageSchema, false);
     const lifecycleNote = cell('lifecycleNote') || null;
+    if (lifecycleNote && lifecycleNote.length > 500) errors.push({ row, column: columnOf('lifecycleNote'), message: `${lifecycleNote.length} characters; at most 500` });
     let page: number | null = null;
     if (cell('page')) {
       page = Number(cell('page'));
