@@ -176,6 +176,26 @@ describe('rating cards (real MariaDB)', () => {
     ]);
   });
 
+  it('exports the card as SPICE .model lines for the nominal part and both tolerance ends', async () => {
+    const id = await newPart();
+    expect((await t.http.get(`/api/vendor-parts/${id}/model`).set(auth(designer))).status).toBe(404);
+    await put(id, 0, demoCardFields());
+    const res = await t.http.get(`/api/vendor-parts/${id}/model`).set(auth(designer));
+    expect(res.status).toBe(200);
+    const name = `NMZ_${maker}`;
+    expect(res.body).toMatchObject({ vendorPartId: id, cardVersion: 1, name, caution: expect.stringMatching(/confirm by measurement/) });
+    expect(res.body.lines.nom).toMatch(new RegExp(`^\\.model ${name} D\\(BV=[\\d.]+ IBV=0\\.005 NBV=[\\d.]+ RS=[\\d.]+ `));
+    expect(res.body.lines.min).toMatch(new RegExp(`^\\.model ${name}_MIN D\\(`));
+    expect(res.body.lines.max).toMatch(new RegExp(`^\\.model ${name}_MAX D\\(`));
+    // Zd(I) = NBV·Vt/I + RS through (5 mA, 40 Ω) and (0.25 mA, 500 Ω), solved by hand:
+    // NBV·Vt = 460/(4000 − 200) V ≈ 0.12105 V, RS = 40 − 200·0.12105 ≈ 15.789 Ω
+    // (the SPICE diode's reverse branch as DESIGN.md states it; common practice, no source).
+    expect(res.body.model.basis).toBe('two-point');
+    expect(res.body.model.nbvVt).toBeCloseTo(460 / 3800, 9);
+    expect(res.body.model.rs).toBeCloseTo(40 - 200 * (460 / 3800), 9);
+    expect((await t.http.get(`/api/vendor-parts/${id}/model`).set(auth(buyer))).status).toBe(403);
+  });
+
   it('lets designers read cards; buyers neither read nor write them; designers do not write', async () => {
     const id = await newPart();
     expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(designer))).status).toBe(200);

@@ -4,23 +4,23 @@ import { CurrentUser, type AuthUser } from '../common/decorators/current-user.de
 import { Roles } from '../common/decorators/roles.decorator';
 import { RatingCardConflictFilter } from './rating-card-conflict.filter';
 import { RatingCardsService } from './rating-cards.service';
-import { PutRatingCardDto, RatingCardConflictDto, RatingCardQueryDto, RatingCardVersionSummaryDto, RatingCardViewDto } from './vendor-parts.dto';
+import { PutRatingCardDto, RatingCardConflictDto, RatingCardQueryDto, RatingCardVersionSummaryDto, RatingCardViewDto, VendorPartModelDto } from './vendor-parts.dto';
 
 @ApiTags('rating cards')
 @ApiBearerAuth()
 @UseFilters(RatingCardConflictFilter)
-@Controller('vendor-parts/:id/rating-card')
+@Controller('vendor-parts/:id')
 export class RatingCardsController {
   constructor(private readonly cards: RatingCardsService) {}
 
-  @Get()
+  @Get('rating-card')
   @Roles('engineer', 'admin', 'designer')
   @ApiOkResponse({ type: RatingCardViewDto })
   get(@Param('id', ParseIntPipe) id: number, @Query() query: RatingCardQueryDto) {
     return this.cards.view(id, query);
   }
 
-  @Put()
+  @Put('rating-card')
   @Roles('engineer', 'admin')
   @ApiOkResponse({ type: RatingCardViewDto })
   @ApiConflictResponse({ type: RatingCardConflictDto, description: 'the card changed since `version`; the body carries the current card' })
@@ -28,10 +28,18 @@ export class RatingCardsController {
     return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user);
   }
 
-  @Get('versions')
+  @Get('rating-card/versions')
   @Roles('engineer', 'admin', 'designer')
   @ApiOkResponse({ type: [RatingCardVersionSummaryDto] })
   versions(@Param('id', ParseIntPipe) id: number) {
     return this.cards.versions(id);
+  }
+
+  /** The SPICE diode `.model` lines fitted to the current card. */
+  @Get('model')
+  @Roles('engineer', 'admin', 'designer')
+  @ApiOkResponse({ type: VendorPartModelDto })
+  model(@Param('id', ParseIntPipe) id: number) {
+    return this.cards.model(id);
   }
 }

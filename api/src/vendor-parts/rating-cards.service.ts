@@ -15,15 +15,18 @@ import {
   type RatingCardVersionSummary,
   type RatingCardView,
   type TcValue,
+  type VendorPartModel,
 } from '@shuntwise/contracts';
 import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
-import { tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
 import { checkCard } from '../engineering/card-checks';
+import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
 import { normalize } from '../engineering/normalize';
+import { spiceModelLine } from '../engineering/spice-model';
 import { RatingCardsRepository, type SpecBasis } from './rating-cards.repository';
 import { VendorPartsRepository } from './vendor-parts.repository';
 
@@ -115,6 +118,38 @@ export class RatingCardsService {
     const current = await this.cards.findCurrent(vendorPartId);
     if (!current) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
     return { vendorPartId, version: current.version, fields: current.fields, note: current.note, updatedAt: current.updatedAt.toISOString(), updatedBy: actor(current.updatedBy) };
+  }
+
+  /** The current card as SPICE `.model` lines: nominal, and the tolerance ends the card gives. */
+  async model(vendorPartId: number): Promise<VendorPartModel> {
+    const card = await this.card(vendorPartId);
+    const engineeringCard = toEngineeringCard(card.fields);
+    if (!engineeringCard) throw new NotFoundException(`Vendor part ${vendorPartId} has no card with vzNom and izt yet: there is nothing to model`);
+    const part = await this.vendorParts.findById(vendorPartId);
+    const name = part!.mpn.replace(/[^A-Za-z0-9_]/g, '_');
+    const fitted = fitBreakdownModel(engineeringCard);
+    return {
+      vendorPartId,
+      cardVersion: card.version,
+      name,
+      lines: {
+        nom: spiceModelLine(fitted, { name }),
+        min: fitted.hasVzMin ? spiceModelLine(fitted, { name: `${name}_MIN`, corner: 'min' }) : null,
+        max: fitted.hasVzMax ? spiceModelLine(fitted, { name: `${name}_MAX`, corner: 'max' }) : null,
+      },
+      model: {
+        bv: fitted.bv,
+        ibv: fitted.ibv,
+        nbv: fitted.nbv,
+        rs: fitted.rs,
+        nbvVt: fitted.nbvVt,
+        alphaVz: fitted.hasAlpha ? fitted.alphaVz : null,
+        basis: fitted.basis,
+        assumptions: fitted.assumptions,
+      },
+      warnings: fitted.warnings,
+      caution: DESIGN_CAUTION,
+    };
   }
 
   async versions(vendorPartId: number): Promise<RatingCardVersionSummary[]> {

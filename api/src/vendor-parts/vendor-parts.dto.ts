@@ -9,6 +9,7 @@ import {
   updateVendorPartRequestSchema,
   vendorPartDetailSchema,
   vendorPartListQuerySchema,
+  vendorPartModelSchema,
   vendorPartPageSchema,
 } from '@shuntwise/contracts';
 import { createZodDto } from 'nestjs-zod';
@@ -25,3 +26,4 @@ export class ManufacturerDto extends createZodDto(manufacturerSchema) {}
 export class RatingCardViewDto extends createZodDto(ratingCardViewSchema) {}
 export class RatingCardConflictDto extends createZodDto(ratingCardConflictSchema) {}
 export class RatingCardVersionSummaryDto extends createZodDto(ratingCardVersionSummarySchema) {}
+export class VendorPartModelDto extends createZodDto(vendorPartModelSchema) {}

@@ -6,7 +6,7 @@ import {
   tempCoUnitSchema,
   type EngineeringCardInput,
 } from '../engineering/card.schema';
-import { normalizeResponseSchema } from '../engineering/normalize.schema';
+import { breakdownModelSchema, normalizeResponseSchema } from '../engineering/normalize.schema';
 import type { QuantityKind } from '../units/quantity';
 import { actorSchema } from './page.schema';
 
@@ -266,3 +266,16 @@ export const ratingCardVersionSummarySchema = z.object({
   createdAt: z.string(),
 });
 export type RatingCardVersionSummary = z.infer<typeof ratingCardVersionSummarySchema>;
+
+/** `GET /vendor-parts/:id/model`: the card's SPICE diode `.model` lines (nominal part and tolerance ends). */
+export const vendorPartModelSchema = z.object({
+  vendorPartId: z.number().int(),
+  cardVersion: z.number().int(),
+  /** Model name made from the mpn (letters, digits and _). */
+  name: z.string(),
+  lines: z.object({ nom: z.string(), min: z.string().nullable(), max: z.string().nullable() }),
+  model: breakdownModelSchema,
+  warnings: z.array(z.string()),
+  caution: z.string(),
+});
+export type VendorPartModel = z.infer<typeof vendorPartModelSchema>;
