@@ -1,0 +1,82 @@
+import { z } from 'zod';
+
+/**
+ * A qualification case's life, in our own plain words. Open cases can still change;
+ * decided cases are fixed (only a cleared one can later be revoked); a withdrawn case was
+ * abandoned before any decision.
+ */
+export const QUALIFICATION_STATES = ['draft', 'in-review', 'cleared', 'cleared-with-conditions', 'rejected', 'withdrawn', 'revoked'] as const;
+export const qualificationStateSchema = z.enum(QUALIFICATION_STATES);
+export type QualificationState = z.infer<typeof qualificationStateSchema>;
+
+export const QUALIFICATION_STATE_LABELS: Record<QualificationState, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  cleared: 'Cleared',
+  'cleared-with-conditions': 'Cleared with conditions',
+  rejected: 'Rejected',
+  withdrawn: 'Withdrawn',
+  revoked: 'Revoked',
+};
+
+/** States in which the case may still be edited, evaluated again or decided. */
+export const OPEN_STATES = ['draft', 'in-review'] as const satisfies readonly QualificationState[];
+/** States reached by a second engineer's decision (revoked included: it ends a clearance). */
+export const DECIDED_STATES = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'] as const satisfies readonly QualificationState[];
+/** States in which the vendor part may be used as a source of the house part. */
+export const CLEARED_STATES = ['cleared', 'cleared-with-conditions'] as const satisfies readonly QualificationState[];
+
+export function isOpenState(state: QualificationState): boolean {
+  return (OPEN_STATES as readonly string[]).includes(state);
+}
+export function isDecidedState(state: QualificationState): boolean {
+  return (DECIDED_STATES as readonly string[]).includes(state);
+}
+export function isClearedState(state: QualificationState): boolean {
+  return (CLEARED_STATES as readonly string[]).includes(state);
+}
+
+/**
+ * State changes, each `POST /api/qualifications/:id/<action>`. `to: null` means the
+ * action leaves the state as it is (evaluate) or opens a new revision (recheck).
+ */
+export const QUALIFICATION_ACTIONS = [
+  'evaluate',
+  'submit',
+  'send-back',
+  'clear',
+  'clear-with-conditions',
+  'reject',
+  'withdraw',
+  'revoke',
+  'recheck',
+] as const;
+export const qualificationActionSchema = z.enum(QUALIFICATION_ACTIONS);
+export type QualificationAction = z.infer<typeof qualificationActionSchema>;
+
+export const QUALIFICATION_TRANSITIONS: Record<QualificationAction, { from: readonly QualificationState[]; to: QualificationState | null; label: string }> = {
+  evaluate: { from: ['draft'], to: null, label: 'Evaluate again' },
+  submit: { from: ['draft'], to: 'in-review', label: 'Send for review' },
+  'send-back': { from: ['in-review'], to: 'draft', label: 'Send back to draft' },
+  clear: { from: ['in-review'], to: 'cleared', label: 'Clear' },
+  'clear-with-conditions': { from: ['in-review'], to: 'cleared-with-conditions', label: 'Clear with conditions' },
+  reject: { from: ['in-review'], to: 'rejected', label: 'Reject' },
+  withdraw: { from: ['draft', 'in-review'], to: 'withdrawn', label: 'Withdraw' },
+  revoke: { from: ['cleared', 'cleared-with-conditions'], to: 'revoked', label: 'Revoke' },
+  recheck: { from: ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'], to: null, label: 'Open a re-check' },
+};
+
+/** The decisions a second engineer makes; the preparer of a case may make none of them. */
+export const DECISION_ACTIONS = ['clear', 'clear-with-conditions', 'reject'] as const satisfies readonly QualificationAction[];
+
+/** Verdict of one check and of the whole evaluation. */
+export const QUALIFICATION_VERDICTS = ['pass', 'marginal', 'fail', 'no-data'] as const;
+export const qualificationVerdictSchema = z.enum(QUALIFICATION_VERDICTS);
+export type QualificationVerdict = z.infer<typeof qualificationVerdictSchema>;
+
+export const QUALIFICATION_VERDICT_LABELS: Record<QualificationVerdict, string> = {
+  pass: 'pass',
+  marginal: 'marginal',
+  fail: 'fail',
+  'no-data': 'no data',
+};
