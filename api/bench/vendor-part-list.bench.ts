@@ -81,6 +81,7 @@ async function main() {
       ['by pdMax, then vzNom', { sort: 'pdMax,vzNom' }],
       ['by updatedAt descending', { sort: '-updatedAt' }],
       ['mpn prefix "ZX07-5V1"', { mpn: 'ZX07-5V1' }],
+      ['global filter "Invented Maker 3"', { q: 'Invented Maker 3' }],
       ['vzNom 4.5…5.5 V, by vzNom', { vzNomMin: '4.5', vzNomMax: '5.5', sort: 'vzNom' }],
       ['one manufacturer, by vzNom', { manufacturer: 'Invented Maker 13', sort: 'vzNom' }],
       ['package SOD-323, by mpn', { package: 'SOD-323' }],

@@ -107,6 +107,9 @@ describe('vendor parts (real MariaDB)', () => {
 
       const pkg = await t.http.get('/api/vendor-parts?package=DO-35&manufacturer=Quarryhill%20Parts,Tevorrow%20Semicon&pageSize=50').set(auth(buyer));
       expect(pkg.body.total).toBe(8);
+      const global = await t.http.get('/api/vendor-parts?q=tevorrow&pageSize=50').set(auth(buyer));
+      expect(global.body.total).toBe(10);
+      expect((await t.http.get('/api/vendor-parts?q=QHZ1&pageSize=50').set(auth(buyer))).body.items.map((i: { mpn: string }) => i.mpn)).toEqual(['QHZ10-L', 'QHZ12-L', 'QHZ15-L']);
       const wildcard = await t.http.get('/api/vendor-parts?mpn=%25').set(auth(buyer));
       expect(wildcard.body.total).toBe(0); // a typed % matches itself, not everything
 

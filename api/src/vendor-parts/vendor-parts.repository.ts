@@ -58,6 +58,10 @@ export class VendorPartsRepository {
   async list(query: VendorPartListQuery): Promise<{ rows: VendorPartRow[]; total: number }> {
     const where: string[] = [];
     const params: unknown[] = [];
+    if (query.q) {
+      where.push('(vp.mpn LIKE ? OR vp.manufacturer_name LIKE ?)');
+      params.push(likePrefix(query.q), likePrefix(query.q));
+    }
     if (query.mpn) {
       where.push(`vp.mpn LIKE ?`);
       params.push(likePrefix(query.mpn));

@@ -76,6 +76,8 @@ export const vendorPartListQuerySchema = z
   .object({
     ...pageQueryShape,
     sort: sortQuerySchema(VENDOR_PART_SORTS, 'mpn'),
+    /** The table's global filter: a prefix of the mpn or of the manufacturer's name (case-insensitive). */
+    q: z.string().trim().min(1).max(80).optional(),
     /** Manufacturer part number prefix (case-insensitive). */
     mpn: z.string().trim().min(1).max(80).optional(),
     /** Exact manufacturer name; several separated by commas. */
