@@ -12,6 +12,8 @@ import type { Env } from './config/env';
 
 export interface CreateAppOptions {
   logger?: LoggerService | LogLevel[] | false;
+  /** Let Nest close the app on SIGTERM/SIGINT. Off under the local stack, which stops its parts itself, MariaDB last. */
+  shutdownHooks?: boolean;
 }
 
 /** Builds the API (and, when WEB_DIST holds a build, the web app on the same origin); does not listen. */
@@ -30,7 +32,7 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
     next();
   });
   app.setGlobalPrefix('api');
-  app.enableShutdownHooks();
+  if (options.shutdownHooks) app.enableShutdownHooks();
 
   const document = SwaggerModule.createDocument(
     app,

@@ -6,7 +6,7 @@ import { parseEnv, publicUrl } from './config/env';
 /** Runs the API alone against services that are already up (see dev/start.ts for the local stack). */
 async function main() {
   const env = parseEnv();
-  const app = await createApp(env);
+  const app = await createApp(env, { shutdownHooks: true });
   await app.listen(env.PORT, env.HOST);
   new Logger('Shuntwise').log(`listening on ${publicUrl(env)}`);
 }
