@@ -17,6 +17,7 @@ import { HealthModule } from './health/health.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
+import { QualificationsModule } from './qualifications/qualifications.module';
 import { StorageModule } from './storage/storage.module';
 import { SeedModule } from './seed/seed.module';
 import { UsersModule } from './users/users.module';
@@ -30,7 +31,8 @@ const FEATURES = [
   OutboxModule,
   SeedModule,
   EngineeringModule,
-  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule];
+  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
+  QualificationsModule];
 
 @Module({})
 export class AppModule {

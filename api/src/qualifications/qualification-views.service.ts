@@ -1,0 +1,211 @@
+import { Readable } from 'node:stream';
+import { Injectable, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
+import {
+  BOARD_STATES,
+  SOURCE_STANDING_LABELS,
+  SOURCES_CSV_COLUMNS,
+  isDecidedState,
+  isOpenState,
+  toEngineeringCard,
+  type BoardPage,
+  type BoardQuery,
+  type BoardState,
+  type ComparePayload,
+  type CompareSource,
+  type SourceStanding,
+  type SourceStandingRow,
+  type SourcesQuery,
+  type SourcesView,
+  type SourcesViewItem,
+} from '@shuntwise/contracts';
+import { stringify } from 'csv-stringify';
+import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { DESIGN_CAUTION } from '../engineering/caution';
+import { EngineeringInputError } from '../engineering/engineering-input.error';
+import { HousePartsRepository } from '../house-parts/house-parts.repository';
+import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
+import { compareCurves, compareTemperatures, currentGrid } from './evaluation/compare-curves';
+import { evaluateCard } from './evaluation/evaluate';
+import { QualificationsRepository, type PairCaseRow } from './qualifications.repository';
+
+const DAY_MS = 86_400_000;
+
+/** The read models the screens draw: Board, Compare and the buyers' Sources view (with its CSV). */
+@Injectable()
+export class QualificationViewsService {
+  constructor(
+    private readonly cases: QualificationsRepository,
+    private readonly houseParts: HousePartsRepository,
+    private readonly cards: RatingCardsRepository,
+  ) {}
+
+  async board(query: BoardQuery): Promise<BoardPage> {
+    const now = new Date();
+    const { heads, sources, total, counts } = await this.cases.board(query, now);
+    const byPart = new Map<number, BoardPage['items'][number]['sources']>();
+    for (const s of sources) {
+      const list = byPart.get(s.housePartId) ?? [];
+      list.push({
+        vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
+        role: s.role,
+        cardVersion: s.cardVersion,
+        state: s.state ?? 'none',
+        latestCase:
+          s.caseId !== null && s.state !== null && s.overall !== null && s.revision !== null && s.preparedById !== null && s.updatedAt !== null
+            ? {
+                id: s.caseId,
+                revision: s.revision,
+                state: s.state,
+                overall: s.overall,
+                preparedBy: { id: s.preparedById, name: s.preparedByName ?? '' },
+                decidedBy: s.decidedById !== null ? { id: s.decidedById, name: s.decidedByName ?? '' } : null,
+                needsRecheck: Boolean(s.needsRecheck),
+                updatedAt: new Date(s.updatedAt).toISOString(),
+                ageDays: Math.max(0, Math.floor((now.getTime() - new Date(s.updatedAt).getTime()) / DAY_MS)),
+              }
+            : null,
+      });
+      byPart.set(s.housePartId, list);
+    }
+    const tally = Object.fromEntries(BOARD_STATES.map((s) => [s, 0])) as Record<BoardState, number>;
+    for (const c of counts) tally[c.state as BoardState] = Number(c.n);
+    return {
+      items: heads.map((h) => ({ housePart: h, sources: byPart.get(h.id) ?? [] })),
+      total,
+      pageIndex: query.pageIndex,
+      pageSize: query.pageSize,
+      counts: tally,
+    };
+  }
+
+  /** Per house part, every source with where it stands, its conditions, since when and who decided. */
+  async sources(query: SourcesQuery, user: AuthUser): Promise<SourcesView> {
+    const heads = await this.cases.sourceHeads({ housePartId: query.housePartId, q: query.q, buyerId: query.mine ? user.id : undefined });
+    if (query.housePartId !== undefined && heads.length === 0 && !query.mine && !query.q) throw new NotFoundException(`No house part with id ${query.housePartId}`);
+    const ids = heads.map((h) => h.id);
+    const [sources, cases] = await Promise.all([this.cases.sourcesOf(ids), this.cases.casesOf(ids)]);
+    const casesByPair = new Map<string, PairCaseRow[]>();
+    for (const c of cases) {
+      const key = `${c.housePartId}/${c.vendorPartId}`;
+      casesByPair.set(key, [...(casesByPair.get(key) ?? []), c]);
+    }
+    const items: SourcesViewItem[] = heads.map((h) => ({
+      housePart: { id: h.id, partNumber: h.partNumber, description: h.description, status: h.status },
+      sources: sources
+        .filter((s) => s.housePartId === h.id)
+        .map((s) => ({
+          vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
+          role: s.role,
+          ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []),
+        })),
+    }));
+    return { items };
+  }
+
+  /** The Sources view as CSV (UTF-8 with a BOM so spreadsheets read µ and Ω), one row per source. */
+  async sourcesCsv(query: SourcesQuery, user: AuthUser): Promise<Readable> {
+    const { items } = await this.sources(query, user);
+    const rows: unknown[][] = [[...SOURCES_CSV_COLUMNS]];
+    for (const item of items) {
+      for (const s of item.sources) {
+        rows.push([
+          item.housePart.partNumber,
+          item.housePart.description,
+          item.housePart.status,
+          s.vendorPart.manufacturer,
+          s.vendorPart.mpn,
+          s.vendorPart.package ?? '',
+          s.role,
+          SOURCE_STANDING_LABELS[s.standing],
+          s.conditions ?? '',
+          s.since ?? '',
+          s.decidedBy?.name ?? '',
+          s.caseId ?? '',
+          s.revision ?? '',
+          s.openCase ? `#${s.openCase.id} ${s.openCase.state}` : '',
+          s.needsRecheck ? 'yes' : 'no',
+        ]);
+      }
+    }
+    return Readable.from(rows).pipe(stringify({ bom: true }));
+  }
+
+  /** The approved source and the alternates side by side, each evaluated now on the current spec and card. */
+  async compare(housePartId: number): Promise<ComparePayload> {
+    const part = await this.houseParts.findRow(housePartId);
+    if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
+    const specRow = part.specVersion !== null ? await this.houseParts.findSpec(housePartId, part.specVersion) : null;
+    if (!specRow) throw new UnprocessableEntityException(`House part ${part.partNumber} has no spec yet: there is nothing to compare against`);
+    const spec = specRow.spec;
+    const [sources, cases] = await Promise.all([this.houseParts.listSources(housePartId), this.cases.casesOf([housePartId])]);
+    const cards = new Map((await this.cards.findCurrentMany(sources.map((s) => s.vendorPartId))).map((c) => [c.vendorPartId, c]));
+    const temperaturesC = compareTemperatures(spec);
+    const currents = currentGrid(spec);
+
+    const compared: CompareSource[] = sources.map((s) => {
+      const latest = cases.filter((c) => c.vendorPartId === s.vendorPartId).at(-1) ?? null;
+      const stored = cards.get(s.vendorPartId);
+      const card = stored ? toEngineeringCard(stored.fields) : null;
+      const head = {
+        vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
+        role: s.role,
+        cardVersion: stored?.version ?? null,
+        latestCase: latest ? { id: latest.id, revision: latest.revision, state: latest.state, overall: latest.overall } : null,
+      };
+      if (!card) return { ...head, evaluation: null, curves: [], reason: 'no rating card with vzNom and izt yet' };
+      try {
+        return {
+          ...head,
+          evaluation: evaluateCard({ spec, specVersion: specRow.version, card, cardVersion: stored!.version, vendorPackage: s.package }),
+          curves: compareCurves(card, currents, temperaturesC),
+          reason: null,
+        };
+      } catch (error) {
+        if (!(error instanceof EngineeringInputError)) throw error;
+        return { ...head, evaluation: null, curves: [], reason: error.message };
+      }
+    });
+
+    return {
+      housePart: { id: part.id, partNumber: part.partNumber, description: part.description, status: part.status },
+      specVersion: specRow.version,
+      spec,
+      envelope: spec.envelope,
+      temperaturesC,
+      currents,
+      specWindow: { current: spec.iRef, min: spec.vz.min, nom: spec.vz.nom, max: spec.vz.max },
+      outputWindow: spec.outputWindow,
+      sources: compared,
+      caution: DESIGN_CAUTION,
+    };
+  }
+}
+
+/**
+ * Where a source stands from its cases (oldest revision first): the latest decided case if
+ * any, else the latest case, else not qualified; a newer open case is shown beside it.
+ */
+export function standing(cases: readonly PairCaseRow[]): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
+  const latest = cases.at(-1) ?? null;
+  const decided = [...cases].reverse().find((c) => isDecidedState(c.state)) ?? null;
+  const basis = decided ?? latest;
+  if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false };
+  const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
+  const revoked = basis.state === 'revoked';
+  return {
+    standing: basis.state as SourceStanding,
+    caseId: basis.id,
+    revision: basis.revision,
+    conditions: revoked ? basis.revokeReason : basis.decisionText,
+    since: revoked ? iso(basis.revokedAt) : iso(basis.decidedAt),
+    decidedBy: revoked
+      ? basis.revokedById !== null
+        ? { id: basis.revokedById, name: basis.revokedByName ?? '' }
+        : null
+      : basis.decidedById !== null
+        ? { id: basis.decidedById, name: basis.decidedByName ?? '' }
+        : null,
+    openCase: latest && latest !== basis && isOpenState(latest.state) ? { id: latest.id, state: latest.state } : null,
+    needsRecheck: Boolean(basis.needsRecheck),
+  };
+}

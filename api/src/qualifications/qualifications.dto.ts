@@ -1,0 +1,48 @@
+import {
+  addHousePartBuyerRequestSchema,
+  boardPageSchema,
+  boardQuerySchema,
+  comparePayloadSchema,
+  createQualificationRequestSchema,
+  housePartBuyerSchema,
+  qualificationClearRequestSchema,
+  qualificationClearWithConditionsRequestSchema,
+  qualificationCommentRequestSchema,
+  qualificationEvaluateRequestSchema,
+  qualificationListQuerySchema,
+  qualificationPageSchema,
+  qualificationRecheckRequestSchema,
+  qualificationRejectRequestSchema,
+  qualificationRevokeRequestSchema,
+  qualificationSchema,
+  qualificationSendBackRequestSchema,
+  qualificationSubmitRequestSchema,
+  qualificationWithdrawRequestSchema,
+  sourcesQuerySchema,
+  sourcesViewSchema,
+  updateQualificationRequestSchema,
+} from '@shuntwise/contracts';
+import { createZodDto } from 'nestjs-zod';
+
+export class QualificationListQueryDto extends createZodDto(qualificationListQuerySchema) {}
+export class QualificationPageDto extends createZodDto(qualificationPageSchema) {}
+export class QualificationDto extends createZodDto(qualificationSchema) {}
+export class CreateQualificationDto extends createZodDto(createQualificationRequestSchema) {}
+export class UpdateQualificationDto extends createZodDto(updateQualificationRequestSchema) {}
+export class EvaluateDto extends createZodDto(qualificationEvaluateRequestSchema) {}
+export class SubmitDto extends createZodDto(qualificationSubmitRequestSchema) {}
+export class SendBackDto extends createZodDto(qualificationSendBackRequestSchema) {}
+export class ClearDto extends createZodDto(qualificationClearRequestSchema) {}
+export class ClearWithConditionsDto extends createZodDto(qualificationClearWithConditionsRequestSchema) {}
+export class RejectDto extends createZodDto(qualificationRejectRequestSchema) {}
+export class WithdrawDto extends createZodDto(qualificationWithdrawRequestSchema) {}
+export class RevokeDto extends createZodDto(qualificationRevokeRequestSchema) {}
+export class RecheckDto extends createZodDto(qualificationRecheckRequestSchema) {}
+export class CommentDto extends createZodDto(qualificationCommentRequestSchema) {}
+export class BoardQueryDto extends createZodDto(boardQuerySchema) {}
+export class BoardPageDto extends createZodDto(boardPageSchema) {}
+export class ComparePayloadDto extends createZodDto(comparePayloadSchema) {}
+export class SourcesQueryDto extends createZodDto(sourcesQuerySchema) {}
+export class SourcesViewDto extends createZodDto(sourcesViewSchema) {}
+export class HousePartBuyerDto extends createZodDto(housePartBuyerSchema) {}
+export class AddHousePartBuyerDto extends createZodDto(addHousePartBuyerRequestSchema) {}

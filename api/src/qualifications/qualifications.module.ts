@@ -1,0 +1,26 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { HousePartsModule } from '../house-parts/house-parts.module';
+import { User } from '../users/user.model';
+import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
+import { HousePartBuyer } from './house-part-buyer.model';
+import { HousePartBuyersController } from './house-part-buyers.controller';
+import { HousePartBuyersService } from './house-part-buyers.service';
+import { QualificationComment } from './qualification-comment.model';
+import { QualificationEvent } from './qualification-event.model';
+import { QualificationViewsController } from './qualification-views.controller';
+import { QualificationViewsService } from './qualification-views.service';
+import { Qualification } from './qualification.model';
+import { QualificationsController } from './qualifications.controller';
+import { QualificationsRepository } from './qualifications.repository';
+import { QualificationsService } from './qualifications.service';
+
+/** Qualification cases, their trail and comments, the buyers of each house part, and the Board, Compare and Sources read models. */
+@Module({
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User]), HousePartsModule, VendorPartsModule],
+  // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
+  controllers: [QualificationViewsController, QualificationsController, HousePartBuyersController],
+  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService],
+  exports: [QualificationsService, QualificationsRepository],
+})
+export class QualificationsModule {}

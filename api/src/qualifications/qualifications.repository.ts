@@ -1,0 +1,504 @@
+import { Injectable } from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import type {
+  AuditEntry,
+  BoardQuery,
+  Evaluation,
+  HousePartStatus,
+  QualificationListQuery,
+  QualificationSort,
+  QualificationState,
+  QualificationVerdict,
+  RatingCardFields,
+  RecheckReason,
+  SortTerm,
+  SourceRole,
+  Spec,
+} from '@shuntwise/contracts';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { User } from '../users/user.model';
+import { likePrefix } from '../vendor-parts/vendor-parts.repository';
+import { HousePartBuyer } from './house-part-buyer.model';
+import { QualificationComment } from './qualification-comment.model';
+import { QualificationEvent } from './qualification-event.model';
+import { Qualification, type DecisionState } from './qualification.model';
+
+/** A case as lists and the detail read it: the row with the names it refers to. */
+export interface CaseRow {
+  id: number;
+  housePartId: number;
+  partNumber: string;
+  housePartDescription: string;
+  vendorPartId: number;
+  manufacturer: string;
+  mpn: string;
+  package: string | null;
+  sourceRole: SourceRole | null;
+  revision: number;
+  previousId: number | null;
+  nextId: number | null;
+  state: QualificationState;
+  overall: QualificationVerdict;
+  specVersion: number;
+  cardVersion: number;
+  summary: string;
+  preparedById: number;
+  preparedByName: string;
+  reviewerId: number | null;
+  reviewerName: string | null;
+  submittedAt: Date | null;
+  decisionState: DecisionState | null;
+  decidedById: number | null;
+  decidedByName: string | null;
+  decidedAt: Date | null;
+  decisionText: string | null;
+  revokedById: number | null;
+  revokedByName: string | null;
+  revokedAt: Date | null;
+  revokeReason: string | null;
+  needsRecheck: boolean;
+  recheckReasons: RecheckReason[];
+  version: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+/** The catalogue as a case reads it, under a shared lock so it cannot change until the case commits. */
+export interface CatalogueBasis {
+  housePart: { id: number; partNumber: string; description: string; status: HousePartStatus; specVersion: number | null; spec: Spec | null };
+  vendorPart: { id: number; manufacturer: string; mpn: string; package: string | null; cardVersion: number; fields: RatingCardFields };
+  sourceRole: SourceRole | null;
+}
+
+export interface BoardSourceRow {
+  housePartId: number;
+  vendorPartId: number;
+  manufacturer: string;
+  mpn: string;
+  package: string | null;
+  role: SourceRole;
+  cardVersion: number | null;
+  caseId: number | null;
+  revision: number | null;
+  state: QualificationState | null;
+  overall: QualificationVerdict | null;
+  preparedById: number | null;
+  preparedByName: string | null;
+  decidedById: number | null;
+  decidedByName: string | null;
+  needsRecheck: number | boolean | null;
+  updatedAt: Date | null;
+}
+
+export interface HousePartHead {
+  id: number;
+  partNumber: string;
+  description: string;
+  status: HousePartStatus;
+  specVersion: number | null;
+}
+
+/** A case without its evaluation, as the Sources view folds them per source. */
+export interface PairCaseRow {
+  id: number;
+  housePartId: number;
+  vendorPartId: number;
+  revision: number;
+  state: QualificationState;
+  overall: QualificationVerdict;
+  decisionText: string | null;
+  decidedAt: Date | null;
+  decidedById: number | null;
+  decidedByName: string | null;
+  revokedAt: Date | null;
+  revokedById: number | null;
+  revokedByName: string | null;
+  revokeReason: string | null;
+  needsRecheck: number | boolean;
+}
+
+const SORT_COLUMNS: Record<QualificationSort, string> = { updatedAt: 'q.updated_at', createdAt: 'q.created_at', state: 'q.state', id: 'q.id' };
+
+const CASE_SELECT = `SELECT q.id, q.house_part_id AS housePartId, h.part_number AS partNumber, h.description AS housePartDescription,
+  q.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package, src.role AS sourceRole,
+  q.revision, q.previous_id AS previousId, nx.id AS nextId, q.state, q.overall, q.spec_version AS specVersion, q.card_version AS cardVersion,
+  q.summary, q.prepared_by_id AS preparedById, pu.name AS preparedByName, q.reviewer_id AS reviewerId, ru.name AS reviewerName,
+  q.submitted_at AS submittedAt, q.decision_state AS decisionState, q.decided_by_id AS decidedById, du.name AS decidedByName,
+  q.decided_at AS decidedAt, q.decision_text AS decisionText, q.revoked_by_id AS revokedById, vu.name AS revokedByName,
+  q.revoked_at AS revokedAt, q.revoke_reason AS revokeReason, q.needs_recheck AS needsRecheck, q.recheck_reasons AS recheckReasons,
+  q.version, q.created_at AS createdAt, q.updated_at AS updatedAt`;
+
+const CASE_FROM = `FROM qualifications q
+JOIN house_parts h ON h.id = q.house_part_id
+JOIN vendor_parts vp ON vp.id = q.vendor_part_id
+LEFT JOIN house_part_sources src ON src.house_part_id = q.house_part_id AND src.vendor_part_id = q.vendor_part_id
+JOIN users pu ON pu.id = q.prepared_by_id
+LEFT JOIN users ru ON ru.id = q.reviewer_id
+LEFT JOIN users du ON du.id = q.decided_by_id
+LEFT JOIN users vu ON vu.id = q.revoked_by_id
+LEFT JOIN qualifications nx ON nx.previous_id = q.id`;
+
+/** The latest case of each house part and vendor part: the one nobody revised. */
+const LATEST_CASES = `(SELECT l.* FROM qualifications l LEFT JOIN qualifications lx ON lx.previous_id = l.id WHERE lx.id IS NULL)`;
+
+/** The only place that queries qualification cases, their trail, comments and buyer links. */
+@Injectable()
+export class QualificationsRepository {
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    @InjectModel(Qualification) private readonly cases: typeof Qualification,
+    @InjectModel(QualificationEvent) private readonly events: typeof QualificationEvent,
+    @InjectModel(QualificationComment) private readonly comments: typeof QualificationComment,
+    @InjectModel(HousePartBuyer) private readonly buyers: typeof HousePartBuyer,
+    @InjectModel(User) private readonly users: typeof User,
+  ) {}
+
+  private select<T extends object>(sql: string, replacements: unknown[], transaction?: Transaction): Promise<T[]> {
+    return this.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, transaction });
+  }
+
+  /**
+   * Reads the house part with its current spec and the vendor part with its current card,
+   * holding shared locks on both rows: a spec or card save (which locks them for update)
+   * waits until this transaction ends, so a case never records versions that changed under it.
+   * Every read here is a locking read, so it sees the latest commit rather than the
+   * transaction's snapshot.
+   */
+  async catalogueBasis(housePartId: number, vendorPartId: number, transaction: Transaction): Promise<CatalogueBasis | { missing: 'house part' | 'vendor part' }> {
+    const [hp] = await this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus; specVersion: number | null }>(
+      `SELECT id, part_number AS partNumber, description, status, spec_version AS specVersion FROM house_parts WHERE id = ? LOCK IN SHARE MODE`,
+      [housePartId],
+      transaction,
+    );
+    if (!hp) return { missing: 'house part' };
+    const [vp] = await this.select<{ id: number; manufacturer: string; mpn: string; package: string | null }>(
+      `SELECT id, manufacturer_name AS manufacturer, mpn, package FROM vendor_parts WHERE id = ? LOCK IN SHARE MODE`,
+      [vendorPartId],
+      transaction,
+    );
+    if (!vp) return { missing: 'vendor part' };
+    let spec: Spec | null = null;
+    if (hp.specVersion !== null) {
+      const [row] = await this.select<{ spec: Spec | string }>(`SELECT spec FROM house_part_specs WHERE house_part_id = ? AND version = ? LOCK IN SHARE MODE`, [housePartId, hp.specVersion], transaction);
+      spec = row ? json<Spec>(row.spec) : null;
+    }
+    const [card] = await this.select<{ version: number; fields: RatingCardFields | string }>(`SELECT version, fields FROM rating_cards WHERE vendor_part_id = ? LOCK IN SHARE MODE`, [vendorPartId], transaction);
+    const [source] = await this.select<{ role: SourceRole }>(
+      `SELECT role FROM house_part_sources WHERE house_part_id = ? AND vendor_part_id = ? LOCK IN SHARE MODE`,
+      [housePartId, vendorPartId],
+      transaction,
+    );
+    return {
+      housePart: { ...hp, spec },
+      vendorPart: { ...vp, cardVersion: card?.version ?? 0, fields: card ? json<RatingCardFields>(card.fields) : {} },
+      sourceRole: source?.role ?? null,
+    };
+  }
+
+  /** The newest case of a house part and vendor part, locked for update inside a transaction. */
+  latestForPair(housePartId: number, vendorPartId: number, transaction: Transaction): Promise<Qualification | null> {
+    return this.cases.findOne({ where: { housePartId, vendorPartId }, order: [['revision', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+  }
+
+  findById(id: number, transaction?: Transaction, lock = false): Promise<Qualification | null> {
+    return this.cases.findByPk(id, { transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
+  }
+
+  /** The case this one revises into, if any. */
+  findNext(id: number, transaction?: Transaction): Promise<Qualification | null> {
+    return this.cases.findOne({ where: { previousId: id }, transaction });
+  }
+
+  create(values: Partial<Qualification>, transaction: Transaction): Promise<Qualification> {
+    return this.cases.create(values as Record<string, unknown>, { transaction });
+  }
+
+  async save(row: Qualification, values: Partial<Qualification>, transaction: Transaction): Promise<void> {
+    await row.update(values, { transaction });
+  }
+
+  async addEvent(
+    values: { qualificationId: number; userId: number | null; action: AuditEntry['action']; fromState?: QualificationState | null; toState?: QualificationState | null; changes?: AuditEntry['changes']; note?: string | null },
+    transaction: Transaction,
+  ): Promise<void> {
+    await this.events.create(
+      { fromState: null, toState: null, note: null, ...values, changes: values.changes ?? [] },
+      { transaction },
+    );
+  }
+
+  listEvents(qualificationId: number): Promise<QualificationEvent[]> {
+    return this.events.findAll({ where: { qualificationId }, include: [{ model: User, attributes: ['id', 'name'] }], order: [['id', 'ASC']] });
+  }
+
+  async addComment(values: { qualificationId: number; userId: number; text: string }, transaction: Transaction): Promise<QualificationComment> {
+    return this.comments.create(values, { transaction });
+  }
+
+  listComments(qualificationId: number): Promise<QualificationComment[]> {
+    return this.comments.findAll({ where: { qualificationId }, include: [{ model: User, attributes: ['id', 'name'] }], order: [['id', 'ASC']] });
+  }
+
+  async findRow(id: number, transaction?: Transaction): Promise<(CaseRow & { evaluation: Evaluation }) | null> {
+    const [row] = await this.select<CaseRow & { evaluation: Evaluation | string }>(`${CASE_SELECT}, q.evaluation ${CASE_FROM} WHERE q.id = ?`, [id], transaction);
+    return row ? { ...caseRow(row), evaluation: json<Evaluation>(row.evaluation) } : null;
+  }
+
+  async list(query: QualificationListQuery, restrictStates?: readonly QualificationState[]): Promise<{ rows: CaseRow[]; total: number }> {
+    const where: string[] = [];
+    const params: unknown[] = [];
+    const states = restrictStates ? (query.state ?? [...restrictStates]).filter((s) => restrictStates.includes(s)) : query.state;
+    if (states) {
+      if (states.length === 0) return { rows: [], total: 0 };
+      where.push(`q.state IN (${states.map(() => '?').join(', ')})`);
+      params.push(...states);
+    }
+    if (query.housePartId !== undefined) {
+      where.push('q.house_part_id = ?');
+      params.push(query.housePartId);
+    }
+    if (query.vendorPartId !== undefined) {
+      where.push('q.vendor_part_id = ?');
+      params.push(query.vendorPartId);
+    }
+    if (query.engineerId !== undefined) {
+      where.push('(q.prepared_by_id = ? OR q.decided_by_id = ?)');
+      params.push(query.engineerId, query.engineerId);
+    }
+    if (query.needsRecheck !== undefined) {
+      where.push('q.needs_recheck = ?');
+      params.push(query.needsRecheck);
+    }
+    if (query.latest ?? true) where.push('nx.id IS NULL');
+    const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+    const order = [...query.sort.map((t: SortTerm<QualificationSort>) => `${SORT_COLUMNS[t.field]} ${t.desc ? 'DESC' : 'ASC'}`), 'q.id DESC'].join(', ');
+    const rows = await this.select<CaseRow>(`${CASE_SELECT} ${CASE_FROM} ${whereSql} ORDER BY ${order} LIMIT ? OFFSET ?`, [
+      ...params,
+      query.pageSize,
+      query.pageIndex * query.pageSize,
+    ]);
+    const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(*) AS total ${CASE_FROM} ${whereSql}`, params);
+    return { rows: rows.map(caseRow), total: Number(total) };
+  }
+
+  /**
+   * Flags the latest case of every pair a catalogue change touches: decided cases need a
+   * re-check, open ones a new evaluation. Withdrawn cases are left alone. Runs in the
+   * transaction of the change; returns the ids flagged.
+   */
+  async flagForRecheck(
+    target: { housePartId: number } | { vendorPartId: number },
+    reason: RecheckReason,
+    transaction: Transaction,
+    onlyIf?: { cardVersionBelow?: number; specVersionBelow?: number },
+  ): Promise<number[]> {
+    const column = 'housePartId' in target ? 'house_part_id' : 'vendor_part_id';
+    const id = 'housePartId' in target ? target.housePartId : target.vendorPartId;
+    const extra: string[] = [];
+    const params: unknown[] = [id];
+    if (onlyIf?.cardVersionBelow !== undefined) {
+      extra.push('q.card_version < ?');
+      params.push(onlyIf.cardVersionBelow);
+    }
+    if (onlyIf?.specVersionBelow !== undefined) {
+      extra.push('q.spec_version < ?');
+      params.push(onlyIf.specVersionBelow);
+    }
+    const rows = await this.select<{ id: number }>(
+      `SELECT q.id FROM qualifications q LEFT JOIN qualifications nx ON nx.previous_id = q.id
+       WHERE q.${column} = ? AND nx.id IS NULL AND q.state <> 'withdrawn' ${extra.map((e) => `AND ${e}`).join(' ')}
+       ORDER BY q.id FOR UPDATE`,
+      params,
+      transaction,
+    );
+    const flagged: number[] = [];
+    for (const { id: caseId } of rows) {
+      const row = await this.cases.findByPk(caseId, { transaction });
+      if (!row) continue;
+      await row.update({ needsRecheck: true, recheckReasons: [...(row.recheckReasons ?? []), reason] }, { transaction });
+      flagged.push(caseId);
+    }
+    return flagged;
+  }
+
+  /** House parts for the Board, one page, with the sources that match the filters. */
+  async board(query: BoardQuery, now: Date): Promise<{ heads: HousePartHead[]; sources: BoardSourceRow[]; total: number; counts: Array<{ state: string; n: number | bigint }> }> {
+    const where: string[] = [];
+    const params: unknown[] = [];
+    if (query.q) {
+      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
+      params.push(likePrefix(query.q), `%${likePrefix(query.q)}`);
+    }
+    const sourceWhere: string[] = [];
+    const sourceParams: unknown[] = [];
+    if (query.state) {
+      const states = query.state.filter((s) => s !== 'none');
+      const parts: string[] = [];
+      if (states.length) {
+        parts.push(`q.state IN (${states.map(() => '?').join(', ')})`);
+        sourceParams.push(...states);
+      }
+      if (query.state.includes('none')) parts.push('(s.id IS NOT NULL AND q.id IS NULL)');
+      sourceWhere.push(`(${parts.join(' OR ')})`);
+    }
+    if (query.engineerId !== undefined) {
+      sourceWhere.push('(q.prepared_by_id = ? OR q.decided_by_id = ?)');
+      sourceParams.push(query.engineerId, query.engineerId);
+    }
+    if (query.minAgeDays !== undefined) {
+      sourceWhere.push('q.updated_at <= ?');
+      sourceParams.push(new Date(now.getTime() - query.minAgeDays * 86_400_000));
+    }
+    if (query.needsRecheck !== undefined) {
+      sourceWhere.push(query.needsRecheck ? 'q.needs_recheck = 1' : '(s.id IS NOT NULL AND (q.id IS NULL OR q.needs_recheck = 0))');
+    }
+    const filtered = sourceWhere.length > 0;
+    const from = `FROM house_parts h
+      LEFT JOIN house_part_sources s ON s.house_part_id = h.id
+      LEFT JOIN ${LATEST_CASES} q ON q.house_part_id = s.house_part_id AND q.vendor_part_id = s.vendor_part_id`;
+    const allWhere = [...where, ...sourceWhere];
+    const whereSql = allWhere.length ? `WHERE ${allWhere.join(' AND ')}` : '';
+    const allParams = [...params, ...sourceParams];
+
+    const heads = await this.select<HousePartHead>(
+      `SELECT h.id, h.part_number AS partNumber, h.description, h.status, h.spec_version AS specVersion
+       FROM house_parts h WHERE h.id IN (SELECT DISTINCT h.id ${from} ${whereSql})
+       ORDER BY h.part_number LIMIT ? OFFSET ?`,
+      [...allParams, query.pageSize, query.pageIndex * query.pageSize],
+    );
+    const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(DISTINCT h.id) AS total ${from} ${whereSql}`, allParams);
+    const counts = await this.select<{ state: string; n: number | bigint }>(
+      `SELECT COALESCE(q.state, 'none') AS state, COUNT(*) AS n ${from} ${whereSql ? `${whereSql} AND` : 'WHERE'} s.id IS NOT NULL GROUP BY COALESCE(q.state, 'none')`,
+      allParams,
+    );
+    if (heads.length === 0) return { heads, sources: [], total: Number(total), counts };
+    const ids = heads.map((h) => h.id);
+    const sources = await this.select<BoardSourceRow>(
+      `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
+         s.role, vp.card_version AS cardVersion, q.id AS caseId, q.revision, q.state, q.overall,
+         q.prepared_by_id AS preparedById, pu.name AS preparedByName, q.decided_by_id AS decidedById, du.name AS decidedByName,
+         q.needs_recheck AS needsRecheck, q.updated_at AS updatedAt
+       ${from}
+       JOIN vendor_parts vp ON vp.id = s.vendor_part_id
+       LEFT JOIN users pu ON pu.id = q.prepared_by_id
+       LEFT JOIN users du ON du.id = q.decided_by_id
+       WHERE h.id IN (${ids.map(() => '?').join(', ')}) ${filtered ? `AND ${sourceWhere.join(' AND ')}` : ''}
+       ORDER BY h.part_number, s.role = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
+      [...ids, ...sourceParams],
+    );
+    return { heads, sources, total: Number(total), counts };
+  }
+
+  /** House parts for the Sources view, with every source (one query for the parts, one for the sources). */
+  async sourceHeads(filter: { housePartId?: number; q?: string; buyerId?: number }): Promise<HousePartHead[]> {
+    const where: string[] = [];
+    const params: unknown[] = [];
+    if (filter.housePartId !== undefined) {
+      where.push('h.id = ?');
+      params.push(filter.housePartId);
+    }
+    if (filter.q) {
+      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
+      params.push(likePrefix(filter.q), `%${likePrefix(filter.q)}`);
+    }
+    if (filter.buyerId !== undefined) {
+      where.push('EXISTS (SELECT 1 FROM house_part_buyers b WHERE b.house_part_id = h.id AND b.user_id = ?)');
+      params.push(filter.buyerId);
+    }
+    return this.select<HousePartHead>(
+      `SELECT h.id, h.part_number AS partNumber, h.description, h.status, h.spec_version AS specVersion FROM house_parts h
+       ${where.length ? `WHERE ${where.join(' AND ')}` : ''} ORDER BY h.part_number`,
+      params,
+    );
+  }
+
+  async sourcesOf(housePartIds: number[]): Promise<Array<Omit<BoardSourceRow, 'caseId' | 'revision' | 'state' | 'overall' | 'preparedById' | 'preparedByName' | 'decidedById' | 'decidedByName' | 'needsRecheck' | 'updatedAt'>>> {
+    if (housePartIds.length === 0) return [];
+    return this.select(
+      `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
+         s.role, vp.card_version AS cardVersion
+       FROM house_part_sources s JOIN vendor_parts vp ON vp.id = s.vendor_part_id
+       WHERE s.house_part_id IN (${housePartIds.map(() => '?').join(', ')})
+       ORDER BY s.role = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
+      housePartIds,
+    );
+  }
+
+  /** Every case (without its evaluation) of the given house parts, oldest revision first. */
+  async casesOf(housePartIds: number[]): Promise<PairCaseRow[]> {
+    if (housePartIds.length === 0) return [];
+    return this.select<PairCaseRow>(
+      `SELECT q.id, q.house_part_id AS housePartId, q.vendor_part_id AS vendorPartId, q.revision, q.state, q.overall, q.decision_text AS decisionText,
+         q.decided_at AS decidedAt, q.decided_by_id AS decidedById, du.name AS decidedByName,
+         q.revoked_at AS revokedAt, q.revoked_by_id AS revokedById, vu.name AS revokedByName, q.revoke_reason AS revokeReason,
+         q.needs_recheck AS needsRecheck
+       FROM qualifications q LEFT JOIN users du ON du.id = q.decided_by_id LEFT JOIN users vu ON vu.id = q.revoked_by_id
+       WHERE q.house_part_id IN (${housePartIds.map(() => '?').join(', ')})
+       ORDER BY q.house_part_id, q.vendor_part_id, q.revision`,
+      housePartIds,
+    );
+  }
+
+  // Buyers of a house part.
+
+  listBuyers(housePartId: number): Promise<HousePartBuyer[]> {
+    return this.buyers.findAll({
+      where: { housePartId },
+      include: [
+        { model: User, as: 'user', attributes: ['id', 'name', 'email'] },
+        { model: User, as: 'addedBy', attributes: ['id', 'name'] },
+      ],
+      order: [['id', 'ASC']],
+    });
+  }
+
+  findBuyer(housePartId: number, userId: number): Promise<HousePartBuyer | null> {
+    return this.buyers.findOne({ where: { housePartId, userId } });
+  }
+
+  addBuyer(values: { housePartId: number; userId: number; addedById: number | null }, transaction?: Transaction): Promise<HousePartBuyer> {
+    return this.buyers.create(values, { transaction });
+  }
+
+  async removeBuyer(row: HousePartBuyer): Promise<void> {
+    await row.destroy();
+  }
+
+  /** E-mail addresses of the active buyers linked to a house part. */
+  async buyerEmails(housePartId: number, transaction?: Transaction): Promise<string[]> {
+    const rows = await this.select<{ email: string }>(
+      `SELECT u.email FROM house_part_buyers b JOIN users u ON u.id = b.user_id WHERE b.house_part_id = ? AND u.active = 1 AND u.role = 'buyer' ORDER BY u.email`,
+      [housePartId],
+      transaction,
+    );
+    return rows.map((r) => r.email);
+  }
+
+  /** The spec and card versions the catalogue holds now (null when there is none). */
+  async currentVersions(housePartId: number, vendorPartId: number): Promise<{ specVersion: number | null; cardVersion: number | null }> {
+    const [row] = await this.select<{ specVersion: number | null; cardVersion: number | null }>(
+      `SELECT (SELECT spec_version FROM house_parts WHERE id = ?) AS specVersion, (SELECT card_version FROM vendor_parts WHERE id = ?) AS cardVersion`,
+      [housePartId, vendorPartId],
+    );
+    return row ?? { specVersion: null, cardVersion: null };
+  }
+
+  findUser(id: number, transaction?: Transaction): Promise<User | null> {
+    return this.users.findByPk(id, { transaction });
+  }
+
+  /** Active engineers other than `exceptId` (who is told a case waits for review). */
+  async engineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
+    const rows = await this.select<{ email: string }>(`SELECT email FROM users WHERE role = 'engineer' AND active = 1 AND id <> ? ORDER BY email`, [exceptId], transaction);
+    return rows.map((r) => r.email);
+  }
+}
+
+function json<T>(value: T | string): T {
+  return typeof value === 'string' ? (JSON.parse(value) as T) : value;
+}
+
+function caseRow<T extends CaseRow>(row: T): T {
+  return { ...row, needsRecheck: Boolean(row.needsRecheck), recheckReasons: json<RecheckReason[]>(row.recheckReasons as RecheckReason[] | string) };
+}
