@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { hashPassword } from '../src/auth/passwords';
 import { MailService } from '../src/mail/mail.service';
 import { UsersRepository } from '../src/users/users.repository';
@@ -283,6 +284,23 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(evaluated.body).toMatchObject({ specVersion: 2, needsRecheck: false, recheckReasons: [] });
     expect(evaluated.body.audit.at(-1)).toMatchObject({ action: 'evaluated', changes: expect.arrayContaining([{ field: 'specVersion', from: 1, to: 2 }]) });
     expect((await act(draft.id, 'submit', {}, engineer)).status).toBe(200);
+  });
+
+  it('flags a decided case when its vendor part gets a new datasheet revision', async () => {
+    const fixtures = require('@shuntwise/test-fixtures') as typeof import('@shuntwise/test-fixtures');
+    const sheet = (name: string) => fixtures.listDatasheetFixtures().find((f) => f.name.startsWith(name))!.pdfPath;
+    const ids = await pair();
+    const upload = (file: string, revision: string) =>
+      t.http.post('/api/datasheets').set(auth(engineer)).field('vendorPartId', String(ids.vendorPartId)).field('revision', revision).attach('file', readFileSync(sheet(file)), `${file}.pdf`);
+    expect((await upload('quarryhill', 'A')).status).toBe(201); // the first datasheet is no revision of anything
+    const c = await inReview(ids);
+    await act(c.id, 'clear', {}, reviewer);
+    expect((await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body.needsRecheck).toBe(false);
+    const second = await upload('ostrander', 'B');
+    expect(second.status).toBe(201);
+    const flagged = (await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body;
+    expect(flagged.needsRecheck).toBe(true);
+    expect(flagged.recheckReasons).toEqual([{ cause: 'datasheet-revised', at: expect.any(String), detail: `datasheet revision B (#${second.body.id}) added` }]);
   });
 
   it('records every state change and edit in the audit trail: who, when, what changed', async () => {

@@ -13,6 +13,7 @@ import { QualificationViewsService } from './qualification-views.service';
 import { Qualification } from './qualification.model';
 import { QualificationsController } from './qualifications.controller';
 import { QualificationsRepository } from './qualifications.repository';
+import { QualificationsSeeder } from './qualifications-seeder.service';
 import { QualificationsService } from './qualifications.service';
 
 /** Qualification cases, their trail and comments, the buyers of each house part, and the Board, Compare and Sources read models. */
@@ -20,7 +21,7 @@ import { QualificationsService } from './qualifications.service';
   imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User]), HousePartsModule, VendorPartsModule],
   // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
   controllers: [QualificationViewsController, QualificationsController, HousePartBuyersController],
-  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService],
-  exports: [QualificationsService, QualificationsRepository],
+  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder],
+  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder],
 })
 export class QualificationsModule {}

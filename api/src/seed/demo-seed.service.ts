@@ -1,6 +1,7 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { hashPassword } from '../auth/passwords';
 import { ENV, type Env } from '../config/env';
+import { QualificationsSeeder } from '../qualifications/qualifications-seeder.service';
 import { UsersRepository } from '../users/users.repository';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DEMO_USERS } from './demo-users';
@@ -20,6 +21,7 @@ export class DemoSeedService {
     @Inject(ENV) private readonly env: Env,
     private readonly users: UsersRepository,
     private readonly catalogue: CatalogueSeeder,
+    private readonly qualifications: QualificationsSeeder,
   ) {}
 
   async run(level: SeedLevel = 'demo'): Promise<{ created: number }> {
@@ -33,6 +35,7 @@ export class DemoSeedService {
       created++;
     }
     if (level === 'demo') created += (await this.catalogue.run()).created;
+    if (level === 'demo') created += (await this.qualifications.run()).created;
     if (created) this.logger.log(`demo: ${created} records added`);
     return { created };
   }

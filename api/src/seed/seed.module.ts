@@ -1,13 +1,14 @@
 import { Module } from '@nestjs/common';
 import { DatasheetsModule } from '../datasheets/datasheets.module';
 import { HousePartsModule } from '../house-parts/house-parts.module';
+import { QualificationsModule } from '../qualifications/qualifications.module';
 import { UsersModule } from '../users/users.module';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DemoSeedService } from './demo-seed.service';
 
 @Module({
-  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule],
+  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule],
   providers: [DemoSeedService, CatalogueSeeder],
   exports: [DemoSeedService],
 })
