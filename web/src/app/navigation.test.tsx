@@ -53,7 +53,7 @@ describe('navigation per role', () => {
   it('a screen of a later release says it is not built yet', async () => {
     signInAs('engineer');
     apiFor('engineer');
-    renderApp('/house-parts');
+    renderApp('/find');
     expect(await screen.findByText('This screen is not built yet. It comes with a later release of Shuntwise.')).toBeInTheDocument();
   });
 

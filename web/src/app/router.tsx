@@ -2,7 +2,7 @@ import { lazy, Suspense, type ComponentType, type LazyExoticComponent } from 're
 import { BrowserRouter, Navigate, Route, Routes, useLocation } from 'react-router';
 import { getSession } from '@/lib/session';
 import { PageLoader, RequireSession, ScreenGate } from './guards';
-import { homePathFor, SCREENS, type ScreenKey } from './navigation';
+import { homePathFor, screenByKey, SCREENS, type ScreenKey } from './navigation';
 import { PageErrorBoundary } from './routes/page-error-boundary';
 
 // React Router in declarative mode: the data router (createBrowserRouter) adds about
@@ -39,6 +39,14 @@ const SCREEN_PAGES: Record<ScreenKey, LazyExoticComponent<ComponentType>> = {
   users: page(() => import('./routes/app/users'), (m) => m.UsersRoute),
 };
 
+/** Pages below a screen (one record, an upload, an import); the screen's roles apply to them. */
+const CATALOGUE_PAGES: ReadonlyArray<{ screen: ScreenKey; path: string; page: LazyExoticComponent<ComponentType> }> = [
+  { screen: 'house-parts', path: '/house-parts/:id', page: page(() => import('./routes/app/house-part'), (m) => m.HousePartRoute) },
+  { screen: 'vendor-parts', path: '/vendor-parts/upload', page: page(() => import('./routes/app/vendor-parts-upload'), (m) => m.VendorPartsUploadRoute) },
+  { screen: 'vendor-parts', path: '/vendor-parts/import', page: page(() => import('./routes/app/vendor-parts-import'), (m) => m.VendorPartsImportRoute) },
+  { screen: 'vendor-parts', path: '/vendor-parts/:id', page: page(() => import('./routes/app/vendor-part'), (m) => m.VendorPartRoute) },
+];
+
 function HomeRedirect() {
   const session = getSession();
   return <Navigate to={session ? homePathFor(session.user.role) : '/sign-in'} replace />;
@@ -62,6 +70,9 @@ export function AppRoutes() {
                 path={screen.path}
                 element={<ScreenGate screen={screen} page={SCREEN_PAGES[screen.key]} />}
               />
+            ))}
+            {CATALOGUE_PAGES.map((sub) => (
+              <Route key={sub.path} path={sub.path} element={<ScreenGate screen={screenByKey(sub.screen)} page={sub.page} />} />
             ))}
             <Route path="*" element={<Lazy page={NotFound} />} />
           </Route>

@@ -8,6 +8,8 @@ export class ApiError extends Error {
   readonly status: number;
   readonly errors: ErrorBody['errors'];
   readonly correlationId: string | undefined;
+  /** The whole error body as sent; some answers carry more (a 409 on a card sends the current card). */
+  readonly body: unknown;
 
   constructor(status: number, message: string, body?: Partial<ErrorBody>) {
     super(message);
@@ -15,6 +17,7 @@ export class ApiError extends Error {
     this.status = status;
     this.errors = body?.errors;
     this.correlationId = body?.correlationId;
+    this.body = body;
   }
 
   /** The server's message for one field (e.g. `email`), if it named one. */
@@ -86,10 +89,16 @@ async function toApiError(response: Response): Promise<ApiError> {
   } catch {
     raw = undefined;
   }
+  return errorFromBody(response.status, response.statusText, raw);
+}
+
+/** The ApiError for a failed answer's status and parsed JSON body (also used by uploads over XMLHttpRequest). */
+export function errorFromBody(status: number, statusText: string, raw: unknown): ApiError {
   const parsed = errorBodySchema.safeParse(raw);
-  if (parsed.success) return new ApiError(response.status, parsed.data.message, parsed.data);
-  const statusText = response.statusText ? ` ${response.statusText}` : '';
-  return new ApiError(response.status, `Request failed (${response.status}${statusText}).`);
+  // Keep the raw body: the schema strips what it does not name (a 409's current card).
+  if (parsed.success) return new ApiError(status, parsed.data.message, { ...(raw as object), ...parsed.data });
+  const text = statusText ? ` ${statusText}` : '';
+  return new ApiError(status, `Request failed (${status}${text}).`);
 }
 
 /** Message for a notification or alert, with the correlation id so support can find the log line. */

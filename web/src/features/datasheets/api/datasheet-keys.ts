@@ -1,0 +1,6 @@
+export const datasheetKeys = {
+  all: ['datasheets'] as const,
+  detail: (id: number) => [...datasheetKeys.all, 'detail', id] as const,
+  extraction: (id: number) => [...datasheetKeys.all, 'extraction', id] as const,
+  file: (id: number) => [...datasheetKeys.all, 'file', id] as const,
+};
