@@ -373,6 +373,28 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     }
   });
 
+  it('a card save racing a decision never deadlocks: the decision lands before the save (then flagged) or sees the new card (409)', async () => {
+    for (let round = 0; round < 3; round++) {
+      const ids = await pair();
+      const c = await inReview(ids);
+      const [card, decision] = await Promise.all([
+        t.http
+          .put(`/api/vendor-parts/${ids.vendorPartId}/rating-card`)
+          .set(auth(engineer))
+          .send({ version: 1, fields: { ...passingCard(), zzt: { value: 42, printed: '42 Ω', provenance: entered } } }),
+        act(c.id, 'clear', {}, reviewer),
+      ]);
+      expect(card.status).toBe(200);
+      const after = (await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body;
+      if (decision.status === 200) expect(after).toMatchObject({ state: 'cleared', cardVersion: 1, needsRecheck: true });
+      else {
+        expect(decision.status).toBe(409);
+        expect(decision.body.message).toMatch(/card 2/);
+        expect(after).toMatchObject({ state: 'in-review', needsRecheck: true });
+      }
+    }
+  });
+
   it('mails the reviewer when a case waits and the house part’s buyers when a source is cleared or revoked', async () => {
     const ids = await pair();
     expect((await t.http.post(`/api/house-parts/${ids.housePartId}/buyers`).set(auth(engineer)).send({ userId: buyerId })).status).toBe(201);
@@ -508,6 +530,15 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const bad = await t.http.get('/api/qualifications/board?state=approved').set(auth(engineer));
     expect(bad.status).toBe(400);
     expect(bad.body.message).toMatch(/unknown state in "approved"/);
+  });
+
+  it('publishes its routes and schemas at /api/docs', async () => {
+    const docs = (await t.http.get('/api/docs-json')).body;
+    expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['QualificationDto', 'BoardPageDto', 'ComparePayloadDto', 'SourcesViewDto', 'ClearWithConditionsDto']));
+    for (const path of ['/api/qualifications', '/api/qualifications/{id}', '/api/qualifications/{id}/clear', '/api/qualifications/board', '/api/qualifications/sources.csv', '/api/house-parts/{id}/buyers']) {
+      expect([path, docs.paths[path] !== undefined]).toEqual([path, true]);
+    }
+    expect(docs.components.schemas.ClearWithConditionsDto.required).toEqual(['conditions']);
   });
 
   it('answers Compare with each source evaluated now, its curves at 25 °C and the envelope’s ambients, and the spec window', async () => {
