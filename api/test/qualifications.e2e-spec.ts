@@ -225,6 +225,13 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(lines).toHaveLength(2);
     expect(lines[1]).toMatch(new RegExp(`^HPQ-\\d+,Regulator diode case \\d+,draft,Fennick Semiconductor,FZ-\\d+,SOD-123,alternate,Cleared,,\\d{4}-.+Z,Tomas Eklund,${c.id},1,,no$`));
     expect((await t.http.get('/api/qualifications/sources.csv').set(auth(designer))).status).toBe(200);
+    // designers see approved sources and cleared alternates only
+    const rejected = await inReview();
+    await act(rejected.id, 'reject', { reason: 'no' }, reviewer);
+    const forDesigner = await t.http.get(`/api/qualifications/sources?housePartId=${rejected.housePart.id}`).set(auth(designer));
+    expect(forDesigner.body.items[0].sources).toEqual([]);
+    const forBuyer = await t.http.get(`/api/qualifications/sources?housePartId=${rejected.housePart.id}`).set(auth(buyer));
+    expect(forBuyer.body.items[0].sources.map((s: { standing: string }) => s.standing)).toEqual(['rejected']);
   });
 
   it('flags a decided case for re-check when its card changes through the rating-card route; a re-check opens a linked revision', async () => {

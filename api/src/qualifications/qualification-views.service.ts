@@ -2,6 +2,7 @@ import { Readable } from 'node:stream';
 import { Injectable, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
 import {
   BOARD_STATES,
+  CLEARED_STATES,
   SOURCE_STANDING_LABELS,
   SOURCES_CSV_COLUMNS,
   isDecidedState,
@@ -89,15 +90,20 @@ export class QualificationViewsService {
       const key = `${c.housePartId}/${c.vendorPartId}`;
       casesByPair.set(key, [...(casesByPair.get(key) ?? []), c]);
     }
+    // Designers see the sources they may design in: the approved ones and the cleared alternates.
+    const visible = (row: SourceStandingRow) => user.role !== 'designer' || row.role === 'approved' || (CLEARED_STATES as readonly string[]).includes(row.standing);
     const items: SourcesViewItem[] = heads.map((h) => ({
       housePart: { id: h.id, partNumber: h.partNumber, description: h.description, status: h.status },
       sources: sources
         .filter((s) => s.housePartId === h.id)
-        .map((s) => ({
-          vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
-          role: s.role,
-          ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []),
-        })),
+        .map(
+          (s): SourceStandingRow => ({
+            vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
+            role: s.role,
+            ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []),
+          }),
+        )
+        .filter(visible),
     }));
     return { items };
   }

@@ -1,3 +1,16 @@
+/**
+ * Qualification routes (all under /api):
+ *   GET  qualifications                      engineer, admin, designer (cleared only)   ?state,housePartId,vendorPartId,engineerId,needsRecheck,latest,sort,pageIndex,pageSize
+ *   POST qualifications                      engineer                                    {housePartId, vendorPartId, summary?}
+ *   GET  qualifications/:id                  engineer, admin, designer (cleared only)
+ *   PATCH qualifications/:id                 engineer (draft only)                       {version, summary?, reviewerId?}
+ *   POST qualifications/:id/<action>         engineer                                    QUALIFICATION_ACTION_REQUEST_SCHEMAS[action]
+ *   POST qualifications/:id/comments         engineer, admin                             {text}
+ *   GET  qualifications/board                engineer, admin                             boardQuerySchema
+ *   GET  qualifications/compare/:housePartId engineer, admin, designer
+ *   GET  qualifications/sources(.csv)        buyer, engineer, admin, designer            sourcesQuerySchema
+ *   GET/POST house-parts/:id/buyers, DELETE house-parts/:id/buyers/:userId   engineer, admin, buyer (themself)
+ */
 import { z } from 'zod';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
 import { sourceRoleSchema } from '../parts/source.schema';

@@ -49,6 +49,7 @@ export const sourcesViewItemSchema = z.object({
 });
 export type SourcesViewItem = z.infer<typeof sourcesViewItemSchema>;
 
+/** `GET /api/qualifications/sources`: buyers, engineers and admins see every source; designers the approved ones and cleared alternates. */
 export const sourcesViewSchema = z.object({ items: z.array(sourcesViewItemSchema) });
 export type SourcesView = z.infer<typeof sourcesViewSchema>;
 
