@@ -115,7 +115,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(r3.body.errors.map((e: { path: string }) => e.path)).toEqual(expect.arrayContaining(['housePartId', 'vendorPartId']));
   });
 
-  it('lets no engineer approve a case they prepared; another engineer clears it, recording who, when and the versions', async () => {
+  it('lets no engineer approve a case they prepared; another engineer clears it; the decision keeps who, when and the versions', async () => {
     const c = await inReview();
     const self = await act(c.id, 'clear', {}, engineer);
     expect(self.status).toBe(403);
