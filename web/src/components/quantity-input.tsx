@@ -75,10 +75,13 @@ export function QuantityInput({
       return;
     }
     try {
-      const si = parseQuantity(next, kind, {
-        field: fieldName ?? (typeof label === 'string' ? label : 'value'),
-        defaultUnit: fieldUnit,
-      });
+      // 12 significant figures drop the float noise of the prefix factor (5100 mV is 5.1 V, not 5.1000000000000005).
+      const si = Number(
+        parseQuantity(next, kind, {
+          field: fieldName ?? (typeof label === 'string' ? label : 'value'),
+          defaultUnit: fieldUnit,
+        }).toPrecision(12),
+      );
       setParseError(null);
       onValidityChange?.(true);
       if (!Object.is(si, lastEmitted.current)) {

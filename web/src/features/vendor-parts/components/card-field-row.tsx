@@ -1,5 +1,5 @@
 import { memo } from 'react';
-import { Anchor, Badge, Button, Group, Stack, Table, Text, Tooltip } from '@mantine/core';
+import { Anchor, Badge, Button, Group, Table, Text, Tooltip } from '@mantine/core';
 import { IconCheck, IconFileDownload } from '@tabler/icons-react';
 import type { CardField, ExtractionBox, ProvenanceSource } from '@shuntwise/contracts';
 import { formatForInput, QuantityInput } from '@/components/quantity-input';
@@ -78,15 +78,15 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
 
   return (
     <Table.Tr data-field-row={field}>
-      <Table.Td w={150}>
-        <Text fz="sm" fw={500} lh={1.2}>
+      <Table.Td w={170} maw={170} title={meta.label}>
+        <Text fz="sm" fw={500} lh={1.15}>
           {meta.symbol}
         </Text>
-        <Text fz={11} c="dimmed" lh={1.2}>
+        <Text fz={11} c="dimmed" lh={1.15} truncate>
           {meta.label}
         </Text>
       </Table.Td>
-      <Table.Td w={150}>{input}</Table.Td>
+      <Table.Td w={140}>{input}</Table.Td>
       <Table.Td>
         {suggestion &&
           (matches ? (
@@ -121,23 +121,26 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
             </Group>
           ))}
       </Table.Td>
-      <Table.Td w={190}>
+      <Table.Td w={210} maw={210}>
         {value && !Number.isNaN(value.value) && (
-          <Stack gap={0}>
-            <Group gap={4} wrap="nowrap">
-              <Badge size="xs" color={SOURCE_COLOR[value.source]} data-source={value.source}>
-                {SOURCE_LABEL[value.source]}
-              </Badge>
-              {location && (
-                <Anchor component="button" type="button" fz="xs" onClick={showLocation} aria-label={`Show the source of ${meta.symbol}, page ${location.page}`}>
-                  p. {location.page}
-                </Anchor>
-              )}
-            </Group>
-            <Text fz={11} c="dimmed" lh={1.3}>
-              {changed ? 'not saved yet' : value.confirmedBy ? `${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt)}` : 'not confirmed'}
+          <Group gap={4} wrap="nowrap" data-testid={`provenance-${field}`}>
+            <Badge size="xs" color={SOURCE_COLOR[value.source]} data-source={value.source} style={{ flexShrink: 0 }}>
+              {SOURCE_LABEL[value.source]}
+            </Badge>
+            {location && (
+              <Anchor component="button" type="button" fz="xs" onClick={showLocation} aria-label={`Show the source of ${meta.symbol}, page ${location.page}`} style={{ flexShrink: 0 }}>
+                p. {location.page}
+              </Anchor>
+            )}
+            <Text
+              fz={11}
+              c={changed ? 'yellow.8' : 'dimmed'}
+              truncate
+              title={value.confirmedBy ? `Confirmed by ${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt)}${value.text ? ` — “${value.text}”` : ''}` : value.text ?? undefined}
+            >
+              {changed ? 'not saved yet' : value.confirmedBy ? `${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt).replace(/, \d\d:\d\d$/, '')}` : 'not confirmed'}
             </Text>
-          </Stack>
+          </Group>
         )}
       </Table.Td>
     </Table.Tr>

@@ -96,7 +96,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
 
   // A newer card from the server (another tab, a series import) replaces an untouched
   // editor; with unsaved changes it waits, and the save's 409 brings the merge.
-  if (card !== loaded && card.version !== loaded.version && !dirty && !conflict) resetTo(card);
+  if (card !== loaded && card.version > loaded.version && !dirty && !conflict) resetTo(card);
 
   useWindowEvent('beforeunload', (event) => {
     if (dirty) event.preventDefault();
