@@ -19,6 +19,7 @@ import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
 import { QualificationsModule } from './qualifications/qualifications.module';
 import { StorageModule } from './storage/storage.module';
+import { SearchModule } from './search/search.module';
 import { SeedModule } from './seed/seed.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
@@ -32,7 +33,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule];
+  QualificationsModule, SearchModule];
 
 @Module({})
 export class AppModule {

@@ -1,0 +1,196 @@
+import { Injectable } from '@nestjs/common';
+import {
+  SEARCH_TEXT_CANDIDATES,
+  type Clearance,
+  type RatingCardFields,
+  type SearchCard,
+  type SearchFacets,
+  type SearchItem,
+  type SearchPage,
+  type SearchQuery,
+  type SearchSort,
+} from '@shuntwise/contracts';
+import { SearchRepository, type CandidateRow, type PairRow, type PartRow } from './search.repository';
+import { rankByText, splitHouseParts, textTokens } from './text-ranking';
+
+/** Leading characters of each word SQL narrows by when the filters leave too many parts: typos after them still match. */
+const PREFIX_CHARACTERS = 3;
+
+/**
+ * The designers' search. Without text, SQL filters, sorts and pages on indexed columns.
+ * With text, SQL narrows to at most SEARCH_TEXT_CANDIDATES parts (by the filters, then if
+ * needed by each word's first letters, then by whole words) and fuse.js ranks those; the
+ * page is cut from the ranking. Only the page's parts are then read in full.
+ */
+@Injectable()
+export class SearchService {
+  constructor(private readonly repository: SearchRepository) {}
+
+  async search(query: SearchQuery): Promise<SearchPage> {
+    if (!query.q) {
+      const { ids, total } = await this.repository.page(query);
+      return { items: await this.items(ids, new Map()), total, pageIndex: query.pageIndex, pageSize: query.pageSize, text: { mode: 'none', candidates: total, truncated: false, note: null } };
+    }
+    const { candidates, mode, truncated } = await this.textCandidates(query, query.q);
+    const ranked = rankByText(
+      candidates.map((c) => {
+        const { numbers, descriptions } = splitHouseParts(c.houseParts);
+        return { id: c.id, mpn: c.mpn, manufacturer: c.manufacturer, package: c.package, houseParts: numbers, descriptions };
+      }),
+      query.q,
+    );
+    const ordered = sortMatches(ranked, new Map(candidates.map((c) => [c.id, c])), query.sort[0]);
+    const start = query.pageIndex * query.pageSize;
+    const pageIds = ordered.slice(start, start + query.pageSize);
+    const scores = new Map(ranked.map((r) => [r.id, r.score]));
+    let note: string | null = null;
+    if (mode === 'prefix') note = `Over ${SEARCH_TEXT_CANDIDATES} parts match the filters: the text was matched among parts whose names start with the words' first letters. Narrow the filters for typo-tolerant matching.`;
+    if (truncated) note = `Over ${SEARCH_TEXT_CANDIDATES} parts match even by whole words: only the first ${SEARCH_TEXT_CANDIDATES} by Zener voltage were ranked. Narrow the filters.`;
+    return {
+      items: await this.items(pageIds, scores),
+      total: ordered.length,
+      pageIndex: query.pageIndex,
+      pageSize: query.pageSize,
+      text: { mode, candidates: candidates.length, truncated, note },
+    };
+  }
+
+  /** The parts text is ranked over: all the filters leave when few enough, else narrowed by the words. */
+  private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
+    const limit = SEARCH_TEXT_CANDIDATES;
+    const all = await this.repository.candidates(query, undefined, limit + 1);
+    if (all.length <= limit) return { candidates: all, mode: 'fuzzy', truncated: false };
+    const tokens = textTokens(text);
+    const leading = await this.repository.candidates(query, { tokens: tokens.map((t) => t.slice(0, PREFIX_CHARACTERS)) }, limit + 1);
+    if (leading.length <= limit) return { candidates: leading, mode: 'prefix', truncated: false };
+    const whole = await this.repository.candidates(query, { tokens }, limit + 1);
+    return { candidates: whole.slice(0, limit), mode: 'prefix', truncated: whole.length > limit };
+  }
+
+  async facets(): Promise<SearchFacets> {
+    const f = await this.repository.facets();
+    const merge = (all: Array<{ value: string; n: number | bigint }>, cleared: Array<{ value: string; n: number | bigint }>) => {
+      const byValue = new Map(cleared.map((c) => [c.value, Number(c.n)]));
+      return all.map((a) => ({ value: a.value, cleared: byValue.get(a.value) ?? 0, total: Number(a.n) }));
+    };
+    return {
+      packages: merge(f.packages, f.clearedPackages),
+      manufacturers: merge(f.manufacturers, f.clearedManufacturers),
+      houseParts: f.houseParts.map((h) => ({ id: h.id, partNumber: h.partNumber, description: h.description, status: h.status, cleared: Number(h.n) })),
+      clearedParts: f.clearedParts,
+      catalogueParts: f.catalogueParts,
+    };
+  }
+
+  /** The page's parts in the given order, each with its card and where it stands for every house part. */
+  private async items(ids: number[], scores: Map<number, number>): Promise<SearchItem[]> {
+    const [parts, pairs] = await Promise.all([this.repository.parts(ids), this.repository.pairs(ids)]);
+    const partById = new Map(parts.map((p) => [p.id, p]));
+    const pairsByPart = new Map<number, PairRow[]>();
+    for (const pair of pairs) pairsByPart.set(pair.vendorPartId, [...(pairsByPart.get(pair.vendorPartId) ?? []), pair]);
+    return ids.flatMap((id) => {
+      const part = partById.get(id);
+      return part ? [toItem(part, pairsByPart.get(id) ?? [], scores.get(id) ?? null)] : [];
+    });
+  }
+}
+
+function toItem(part: PartRow, pairs: PairRow[], score: number | null): SearchItem {
+  const clearances = pairs.map(toClearance).filter((c): c is Clearance => c !== null);
+  return {
+    vendorPart: { id: part.id, manufacturer: part.manufacturer, mpn: part.mpn, package: part.package, lifecycleNote: part.lifecycleNote },
+    card: toSearchCard(part),
+    datasheetId: part.datasheetId,
+    cleared: clearances.length > 0,
+    clearances,
+    qualificationOpen: clearances.length === 0 && pairs.some((p) => p.openCaseId !== null),
+    score: score === null ? null : Number(score.toPrecision(4)),
+  };
+}
+
+/** A pair the designer may design in, or null: cleared by its latest decision, or the approved source with none against it. */
+export function toClearance(pair: PairRow): Clearance | null {
+  const housePart = { id: pair.housePartId, partNumber: pair.partNumber, description: pair.description, status: pair.status };
+  const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
+  if (pair.state === 'cleared' || pair.state === 'cleared-with-conditions') {
+    return {
+      housePart,
+      standing: pair.state,
+      conditions: pair.decisionText,
+      since: iso(pair.decidedAt),
+      decidedBy: pair.decidedById !== null ? { id: pair.decidedById, name: pair.decidedByName ?? '' } : null,
+      caseId: pair.caseId,
+      revision: pair.revision,
+      needsRecheck: Boolean(pair.needsRecheck),
+      recheckOpen: pair.openCaseId !== null,
+    };
+  }
+  if (pair.state === null && pair.role === 'approved') {
+    return { housePart, standing: 'approved', conditions: null, since: iso(pair.sourceSince), decidedBy: null, caseId: null, revision: null, needsRecheck: false, recheckOpen: pair.openCaseId !== null };
+  }
+  return null;
+}
+
+export function toSearchCard(part: Pick<PartRow, 'cardVersion' | 'fields'>): SearchCard | null {
+  if (part.cardVersion === null || part.fields === null) return null;
+  const fields: RatingCardFields = typeof part.fields === 'string' ? (JSON.parse(part.fields) as RatingCardFields) : part.fields;
+  const v = (f: Exclude<keyof RatingCardFields, 'tc'>) => fields[f]?.value ?? null;
+  const vzNom = v('vzNom');
+  const izt = v('izt');
+  if (vzNom === null || izt === null) return null;
+  const vzMin = v('vzMin');
+  const vzMax = v('vzMax');
+  return {
+    version: part.cardVersion,
+    vzMin,
+    vzNom,
+    vzMax,
+    izt,
+    zzt: v('zzt'),
+    izk: v('izk'),
+    zzk: v('zzk'),
+    irMax: v('irMax'),
+    vr: v('vr'),
+    tc: fields.tc ? { value: fields.tc.value, unit: fields.tc.unit } : null,
+    tcVoltsPerKelvin: fields.tc?.voltsPerKelvin ?? null,
+    pdMax: v('pdMax'),
+    pdRefC: v('pdRefC'),
+    tjMax: v('tjMax'),
+    rthJA: v('rthJA'),
+    izm: v('izm'),
+    tolerance: vzMin !== null && vzMax !== null ? Number((Math.max(vzNom - vzMin, vzMax - vzNom) / vzNom).toPrecision(6)) : null,
+  };
+}
+
+/** Ranked matches in the order asked for: by score, or by a field with the score breaking ties; parts without the field last. */
+export function sortMatches(ranked: Array<{ id: number; score: number }>, rows: Map<number, Pick<CandidateRow, 'mpn' | 'manufacturer' | 'package' | 'vzNom' | 'pdMax'>>, term?: { field: SearchSort; desc: boolean }): number[] {
+  if (!term || term.field === 'relevance') return ranked.map((r) => r.id);
+  const key = (id: number): string | number | null => {
+    const row = rows.get(id)!;
+    switch (term.field) {
+      case 'vzNom':
+        return row.vzNom;
+      case 'pdMax':
+        return row.pdMax;
+      case 'mpn':
+        return row.mpn;
+      case 'manufacturer':
+        return row.manufacturer;
+      case 'package':
+        return row.package;
+      default:
+        return null;
+    }
+  };
+  const sign = term.desc ? -1 : 1;
+  const position = new Map(ranked.map((r, i) => [r.id, i]));
+  return [...ranked]
+    .sort((a, b) => {
+      const ka = key(a.id);
+      const kb = key(b.id);
+      if (ka === null || kb === null) return ka === kb ? position.get(a.id)! - position.get(b.id)! : ka === null ? 1 : -1;
+      const c = typeof ka === 'number' && typeof kb === 'number' ? ka - kb : String(ka).localeCompare(String(kb), 'en', { numeric: true, sensitivity: 'base' });
+      return c !== 0 ? sign * c : position.get(a.id)! - position.get(b.id)!;
+    })
+    .map((r) => r.id);
+}

@@ -1,0 +1,91 @@
+import Fuse, { type Expression, type IFuseOptions } from 'fuse.js';
+
+/** What the text is matched against, per part. */
+export interface TextRecord {
+  id: number;
+  mpn: string;
+  manufacturer: string;
+  package: string | null;
+  /** House part numbers and descriptions of the house parts the part is a source of. */
+  houseParts: string[];
+  descriptions: string[];
+}
+
+interface IndexedRecord extends TextRecord {
+  /** The part number without separators, so "bzx84c5v1" finds "BZX84-C5V1". */
+  mpnCompact: string;
+  housePartsCompact: string[];
+}
+
+export interface RankedMatch {
+  id: number;
+  /** Fuse's score: 0 is an exact match, 1 no match. */
+  score: number;
+}
+
+const KEYS = [
+  { name: 'mpn', weight: 3 },
+  { name: 'mpnCompact', weight: 3 },
+  { name: 'houseParts', weight: 2 },
+  { name: 'housePartsCompact', weight: 2 },
+  { name: 'manufacturer', weight: 1 },
+  { name: 'descriptions', weight: 1 },
+  { name: 'package', weight: 0.5 },
+] as const;
+
+const OPTIONS: IFuseOptions<IndexedRecord> = {
+  keys: KEYS.map((k) => ({ name: k.name, weight: k.weight })),
+  includeScore: true,
+  // Part numbers are short: a location bias would punish a match at the end of "QHZ5V6A".
+  ignoreLocation: true,
+  threshold: 0.34,
+  minMatchCharLength: 2,
+  shouldSort: true,
+};
+
+export function compact(text: string): string {
+  return text.toLowerCase().replace(/[\s\-_./,]+/g, '');
+}
+
+/** Words of the typed text (at most 6, each at least 2 characters unless that leaves none). */
+export function textTokens(text: string): string[] {
+  const words = text
+    .trim()
+    .split(/\s+/)
+    .filter(Boolean);
+  const long = words.filter((w) => w.length >= 2);
+  return (long.length > 0 ? long : words).slice(0, 6);
+}
+
+/**
+ * Ranks parts by how well every word of `text` matches one of their names (fuse.js, each
+ * word fuzzily, all words required). Ties keep the input order, which the SQL gives by Vz.
+ */
+export function rankByText(records: readonly TextRecord[], text: string): RankedMatch[] {
+  const tokens = textTokens(text);
+  if (tokens.length === 0) return records.map((r) => ({ id: r.id, score: 0 }));
+  const indexed: IndexedRecord[] = records.map((r) => ({
+    ...r,
+    mpnCompact: compact(r.mpn),
+    housePartsCompact: r.houseParts.map(compact),
+  }));
+  const fuse = new Fuse(indexed, OPTIONS);
+  // A logical query, not fuse's extended syntax: a typed "'" or "!" is then just a character.
+  const query: string | Expression =
+    tokens.length === 1 ? tokens[0] : { $and: tokens.map((t) => ({ $or: KEYS.map((k) => ({ [k.name]: t })) })) };
+  const results = fuse.search(query);
+  return results.map((r) => ({ id: r.item.id, score: r.score ?? 0 }));
+}
+
+/** Splits the repository's "number<TAB>description" lines. */
+export function splitHouseParts(concat: string | null): { numbers: string[]; descriptions: string[] } {
+  const numbers: string[] = [];
+  const descriptions: string[] = [];
+  if (!concat) return { numbers, descriptions };
+  for (const line of concat.split('\n')) {
+    const [number, description = ''] = line.split('\t');
+    if (number) numbers.push(number);
+    if (description) descriptions.push(description);
+  }
+  return { numbers, descriptions };
+}
