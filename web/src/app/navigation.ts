@@ -53,9 +53,15 @@ export function homePathFor(role: Role): string {
   return screensFor(role)[0]?.path ?? '/';
 }
 
-/** The screen a path belongs to (`/house-parts/12` → House parts), if any. */
+/** Pages outside every screen's own path, with the screen whose roles they share. */
+const PAGES_OF_SCREENS: ReadonlyArray<{ prefix: string; screen: ScreenKey }> = [{ prefix: '/compare/', screen: 'board' }];
+
+/** The screen a path belongs to (`/house-parts/12` → House parts, `/compare/3` → Board), if any. */
 export function screenForPath(pathname: string): Screen | undefined {
-  return SCREENS.find((s) => pathname === s.path || pathname.startsWith(`${s.path}/`));
+  const own = SCREENS.find((s) => pathname === s.path || pathname.startsWith(`${s.path}/`));
+  if (own) return own;
+  const page = PAGES_OF_SCREENS.find((p) => pathname.startsWith(p.prefix));
+  return page ? screenByKey(page.screen) : undefined;
 }
 
 /**

@@ -45,6 +45,8 @@ const CATALOGUE_PAGES: ReadonlyArray<{ screen: ScreenKey; path: string; page: La
   { screen: 'vendor-parts', path: '/vendor-parts/upload', page: page(() => import('./routes/app/vendor-parts-upload'), (m) => m.VendorPartsUploadRoute) },
   { screen: 'vendor-parts', path: '/vendor-parts/import', page: page(() => import('./routes/app/vendor-parts-import'), (m) => m.VendorPartsImportRoute) },
   { screen: 'vendor-parts', path: '/vendor-parts/:id', page: page(() => import('./routes/app/vendor-part'), (m) => m.VendorPartRoute) },
+  { screen: 'qualifications', path: '/qualifications/:id', page: page(() => import('./routes/app/qualification'), (m) => m.QualificationRoute) },
+  { screen: 'board', path: '/compare/:housePartId', page: page(() => import('./routes/app/compare'), (m) => m.CompareRoute) },
 ];
 
 function HomeRedirect() {

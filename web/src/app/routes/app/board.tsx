@@ -1,6 +1,22 @@
-import { ScreenNotBuilt } from '@/components/screen-not-built';
+import { PageHeader } from '@/components/page-header';
+import { BoardTable } from '@/features/board/components/board-table';
+import { OpenCaseButton } from '@/features/qualifications/components/open-case-button';
+import { useSession } from '@/lib/session';
 
-// TODO: replaced by the Board screen when its issue is built.
 export function BoardRoute() {
-  return <ScreenNotBuilt title="Board" purpose="House parts with their sources and qualification states at a glance." />;
+  const session = useSession();
+  const engineer = session?.user.role === 'engineer';
+  return (
+    <>
+      <PageHeader title="Board" description="House parts with their sources and where each qualification stands." />
+      <BoardTable
+        renderSourceAction={(row, source) =>
+          // The approved source is the reference; cases qualify alternates.
+          engineer && source.role === 'alternate' && row.housePart.specVersion !== null && (source.state === 'none' || source.state === 'withdrawn') ? (
+            <OpenCaseButton target={{ housePart: row.housePart, vendorPart: source.vendorPart }} label="Qualify" />
+          ) : null
+        }
+      />
+    </>
+  );
 }

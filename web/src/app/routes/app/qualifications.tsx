@@ -1,6 +1,11 @@
-import { ScreenNotBuilt } from '@/components/screen-not-built';
+import { PageHeader } from '@/components/page-header';
+import { QualificationsTable } from '@/features/qualifications/components/qualifications-table';
 
-// TODO: replaced by the Qualifications screen when its issue is built.
 export function QualificationsRoute() {
-  return <ScreenNotBuilt title="Qualifications" purpose="Second-source cases: checks, comments and sign-off." />;
+  return (
+    <>
+      <PageHeader title="Qualifications" description="Second-source cases: each a vendor part checked against a house part's spec, signed off by a second engineer." />
+      <QualificationsTable />
+    </>
+  );
 }

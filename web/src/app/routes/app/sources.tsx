@@ -1,6 +1,11 @@
-import { ScreenNotBuilt } from '@/components/screen-not-built';
+import { PageHeader } from '@/components/page-header';
+import { SourcesTable } from '@/features/sources/components/sources-table';
 
-// TODO: replaced by the Sources screen when its issue is built.
 export function SourcesRoute() {
-  return <ScreenNotBuilt title="Sources" purpose="Cleared sources per house part, with their conditions, for procurement." />;
+  return (
+    <>
+      <PageHeader title="Sources" description="Per house part, every source: whether it is cleared, on what conditions, since when and who decided." />
+      <SourcesTable />
+    </>
+  );
 }

@@ -1,0 +1,29 @@
+import { Alert, Anchor } from '@mantine/core';
+import { Link, useParams } from 'react-router';
+import { CompareView } from '@/features/compare/components/compare-view';
+import { OpenCaseButton } from '@/features/qualifications/components/open-case-button';
+import { useSession } from '@/lib/session';
+
+export function CompareRoute() {
+  const session = useSession();
+  const housePartId = Number(useParams().housePartId);
+  if (!Number.isInteger(housePartId) || housePartId <= 0) {
+    return (
+      <Alert color="red" role="alert" title="Not a house part">
+        The address does not name a house part to compare. <Anchor component={Link} to="/board">Go to the board</Anchor>
+      </Alert>
+    );
+  }
+  const engineer = session?.user.role === 'engineer';
+  return (
+    <CompareView
+      key={housePartId}
+      housePartId={housePartId}
+      renderSourceAction={(payload, source) =>
+        engineer && source.role === 'alternate' && (source.latestCase === null || source.latestCase.state === 'withdrawn') && source.evaluation ? (
+          <OpenCaseButton target={{ housePart: payload.housePart, vendorPart: source.vendorPart }} />
+        ) : null
+      }
+    />
+  );
+}

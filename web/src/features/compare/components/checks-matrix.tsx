@@ -1,0 +1,114 @@
+import type { ReactNode } from 'react';
+import { Anchor, Group, Paper, Stack, Table, Text, Title, getThemeColor, useMantineTheme, ColorSwatch } from '@mantine/core';
+import { CHECK_IDS, CHECK_LABELS, type CheckId, type ComparePayload, type QualificationCheck } from '@shuntwise/contracts';
+import { Link } from 'react-router';
+import { CheckLimit, CheckValue, MarginText } from '@/components/check-cells';
+import { QualificationStateBadge } from '@/components/qualification-state-badge';
+import { VerdictBadge, VerdictMark } from '@/components/verdict-badge';
+import { SOURCE_COLORS } from '../utils/series';
+
+/**
+ * The checks side by side: one row per check, one column per source, each cell the
+ * source's normalised value with its margin coloured by the verdict. Every source is
+ * evaluated now on the current spec, so the limits are the same across a row.
+ */
+export function ChecksMatrix({ payload, renderSourceAction }: { payload: ComparePayload; renderSourceAction?: (index: number) => ReactNode }) {
+  const theme = useMantineTheme();
+  const byId = payload.sources.map((s) => new Map((s.evaluation?.checks ?? []).map((c) => [c.id, c] as const)));
+  const ids = CHECK_IDS.filter((id) => byId.some((m) => m.has(id)));
+  const skipped = new Map(payload.sources.flatMap((s) => (s.evaluation?.notApplicable ?? []).filter((n) => !ids.includes(n.id)).map((n) => [n.id, n.reason] as const)));
+  const limitOf = (id: CheckId): QualificationCheck | undefined => byId.map((m) => m.get(id)).find((c) => c !== undefined);
+
+  return (
+    <Paper aria-label="Checks side by side">
+      <Stack gap="xs">
+        <Title order={3} fz="h5">
+          Checks against spec v{payload.specVersion}
+        </Title>
+        <Table.ScrollContainer minWidth={260 + 200 * payload.sources.length} type="native">
+          <Table aria-label="Checks by source">
+            <Table.Thead>
+              <Table.Tr>
+                <Table.Th>Check</Table.Th>
+                <Table.Th>Limit</Table.Th>
+                {payload.sources.map((s, i) => (
+                  <Table.Th key={s.vendorPart.id} style={{ verticalAlign: 'top' }}>
+                    <Stack gap={2}>
+                      <Group gap={4} wrap="nowrap">
+                        <ColorSwatch color={getThemeColor(SOURCE_COLORS[i % SOURCE_COLORS.length], theme)} size={10} />
+                        <Anchor component={Link} to={`/vendor-parts/${s.vendorPart.id}`} fz="sm" fw={600}>
+                          {s.vendorPart.mpn}
+                        </Anchor>
+                      </Group>
+                      <Text fz="xs" c="dimmed" fw={400}>
+                        {s.vendorPart.manufacturer} · {s.role} · card {s.cardVersion ? `v${s.cardVersion}` : 'none'}
+                      </Text>
+                      <Group gap={4}>
+                        {s.evaluation && <VerdictBadge verdict={s.evaluation.overall} size="xs" aria-label={`Overall now: ${s.evaluation.overall}`} />}
+                        {s.latestCase ? (
+                          <Anchor component={Link} to={`/qualifications/${s.latestCase.id}`} fz="xs">
+                            <QualificationStateBadge state={s.latestCase.state} size="xs" style={{ cursor: 'pointer' }} /> #{s.latestCase.id}
+                          </Anchor>
+                        ) : (
+                          <QualificationStateBadge state="none" size="xs" />
+                        )}
+                      </Group>
+                      {renderSourceAction?.(i)}
+                    </Stack>
+                  </Table.Th>
+                ))}
+              </Table.Tr>
+            </Table.Thead>
+            <Table.Tbody>
+              {ids.map((id) => {
+                const first = limitOf(id)!;
+                return (
+                  <Table.Tr key={id} data-check={id}>
+                    <Table.Td>
+                      <Text fz="sm">{CHECK_LABELS[id]}</Text>
+                    </Table.Td>
+                    <Table.Td>
+                      <Text fz="sm" component="div">
+                        <CheckLimit check={first} />
+                      </Text>
+                    </Table.Td>
+                    {payload.sources.map((s, i) => {
+                      const c = byId[i].get(id);
+                      return (
+                        <Table.Td key={s.vendorPart.id} title={c?.detail} data-verdict={c?.verdict}>
+                          {c ? (
+                            <Group gap={6} wrap="nowrap" justify="space-between">
+                              <Text fz="sm" component="div">
+                                <CheckValue check={c} />
+                              </Text>
+                              <Group gap={4} wrap="nowrap">
+                                {c.margin !== null && <MarginText margin={c.margin} verdict={c.verdict} fz="xs" />}
+                                <VerdictMark verdict={c.verdict} />
+                              </Group>
+                            </Group>
+                          ) : (
+                            <Text fz="xs" c="dimmed">
+                              {s.evaluation ? 'not checked' : (s.reason ?? 'no evaluation')}
+                            </Text>
+                          )}
+                        </Table.Td>
+                      );
+                    })}
+                  </Table.Tr>
+                );
+              })}
+            </Table.Tbody>
+          </Table>
+        </Table.ScrollContainer>
+        {skipped.size > 0 && (
+          <Text fz="xs" c="dimmed">
+            Not checked (the spec sets no limit): {[...skipped].map(([id, reason]) => `${CHECK_LABELS[id]} — ${reason}`).join('; ')}.
+          </Text>
+        )}
+        <Text fz="xs" c="dimmed">
+          Hover a cell for the sentence behind it; open a source&apos;s case for every assumption.
+        </Text>
+      </Stack>
+    </Paper>
+  );
+}

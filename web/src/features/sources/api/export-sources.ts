@@ -1,0 +1,13 @@
+import { useMutation } from '@tanstack/react-query';
+import { downloadFile } from '@/lib/download';
+import { sourcesSearch } from './get-sources';
+import type { SourcesParams } from './sources-keys';
+
+/** The Sources view as CSV, with the same filters as the screen, downloaded with the session's token. */
+export function exportSources(params: SourcesParams): Promise<string> {
+  return downloadFile(`/qualifications/sources.csv${sourcesSearch(params)}`, 'sources.csv');
+}
+
+export function useExportSources() {
+  return useMutation({ mutationFn: exportSources });
+}

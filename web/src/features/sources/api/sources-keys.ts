@@ -1,0 +1,11 @@
+export interface SourcesParams {
+  q?: string;
+  /** Only the house parts the signed-in buyer follows. */
+  mine?: boolean;
+}
+
+export const sourcesKeys = {
+  all: ['sources-view'] as const,
+  view: (params: SourcesParams) => [...sourcesKeys.all, 'view', params] as const,
+  followed: () => [...sourcesKeys.all, 'followed'] as const,
+};
