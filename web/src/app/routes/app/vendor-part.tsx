@@ -32,12 +32,23 @@ function defaultDatasheet(part: VendorPartDetail, card: RatingCardView | undefin
 }
 
 function DatasheetPane({ part, datasheetId, onSelect, target, onUploaded }: { part: VendorPartDetail; datasheetId: number | null; onSelect: (id: number) => void; target: ViewerTarget | null; onUploaded: (id: number) => void }) {
-  const [adding, { toggle }] = useDisclosure(false);
+  const [adding, { toggle, open: keepUploadOpen }] = useDisclosure(false);
   const linked = part.datasheets.find((d) => d.id === datasheetId);
   // A value may point at a datasheet this part is not linked to: read its name.
   const other = useDatasheet(datasheetId !== null && !linked ? datasheetId : null);
   const fileName = linked?.fileName ?? other.data?.fileName ?? `Datasheet ${datasheetId}`;
-  const upload = <DatasheetUpload vendorPartId={part.id} multiple={false} compact onUploaded={(r) => onUploaded(r.id)} />;
+  // Once a file went up, its row stays in view (with what was found) after the part's datasheet list refreshes.
+  const upload = (
+    <DatasheetUpload
+      vendorPartId={part.id}
+      multiple={false}
+      compact
+      onUploaded={(r) => {
+        keepUploadOpen();
+        onUploaded(r.id);
+      }}
+    />
+  );
 
   return (
     <Paper style={{ position: 'sticky', top: 64 }} aria-label="Datasheet">
@@ -154,7 +165,7 @@ export function VendorPartRoute() {
         }
       />
       <Grid gutter="md">
-        <Grid.Col span={{ base: 12, lg: 5 }}>
+        <Grid.Col span={{ base: 12, lg: 6 }}>
           <DatasheetPane
             part={p}
             datasheetId={datasheetId}
@@ -166,7 +177,7 @@ export function VendorPartRoute() {
             }}
           />
         </Grid.Col>
-        <Grid.Col span={{ base: 12, lg: 7 }}>
+        <Grid.Col span={{ base: 12, lg: 6 }}>
           <Box>
             {extraction.isError && (
               <Alert color="red" p="xs" mb="xs" role="alert">

@@ -8,6 +8,9 @@ import { describeError } from '@/lib/api-client';
 import { CARD_FIELD_META, formatCardValue } from '@/lib/card-fields';
 import { useImportVendorSeries, usePreviewVendorSeries } from '../api/import-vendor-series';
 
+// Mantine's list items do not wrap (white-space: nowrap); these are sentences.
+const WRAPPING_LIST = { item: { whiteSpace: 'normal' as const }, itemWrapper: { display: 'inline' } };
+
 const ACTION: Record<CsvRowAction, { label: string; color: string }> = {
   create: { label: 'new part + card', color: 'verdigris' },
   'add-card': { label: 'adds a card', color: 'copper' },
@@ -164,7 +167,7 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
           </Group>
           {shown.warnings.length > 0 && (
             <Alert color="yellow" p="xs" title="Warnings">
-              <List size="sm">
+              <List size="sm" styles={WRAPPING_LIST}>
                 {shown.warnings.map((w) => (
                   <List.Item key={w}>{w}</List.Item>
                 ))}

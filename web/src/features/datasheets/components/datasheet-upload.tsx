@@ -9,6 +9,9 @@ import { describeError } from '@/lib/api-client';
 import { useExtraction } from '../api/get-extraction';
 import { uploadDatasheet } from '../api/upload-datasheet';
 
+// Mantine's list items do not wrap (white-space: nowrap); these are sentences.
+const WRAPPING_LIST = { item: { whiteSpace: 'normal' as const }, itemWrapper: { display: 'inline' } };
+
 export type UploadStatus = 'waiting' | 'uploading' | 'done' | 'failed';
 
 export interface UploadItem {
@@ -57,7 +60,7 @@ function ExtractionSummary({ result, children }: { result: UploadDatasheetRespon
         </Text>
       )}
       {warnings.length > 0 && (
-        <List size="xs" c="yellow.8" spacing={0}>
+        <List size="xs" c="yellow.8" spacing={0} styles={WRAPPING_LIST}>
           {warnings.slice(0, 5).map((w) => (
             <List.Item key={w}>{w}</List.Item>
           ))}

@@ -164,7 +164,11 @@ export function DatasheetViewer({ datasheetId, fileName, target, height = '70vh'
     setNotFound(!padded && Boolean(target.text || target.box));
     if (padded && frameRef.current) {
       const frame = frameRef.current;
-      frame.scrollTo({ top: Math.max(0, padded.top - frame.clientHeight / 3), behavior: 'smooth' });
+      frame.scrollTo({
+        top: Math.max(0, padded.top - frame.clientHeight / 3),
+        left: Math.max(0, padded.left + padded.width / 2 - frame.clientWidth / 2),
+        behavior: 'smooth',
+      });
     }
   }, [rendered, target, frameRef]);
 

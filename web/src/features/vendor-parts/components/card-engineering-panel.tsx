@@ -5,6 +5,9 @@ import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
 import { describeError } from '@/lib/api-client';
 
+// Mantine's list items do not wrap (white-space: nowrap); these are sentences.
+const WRAPPING_LIST = { item: { whiteSpace: 'normal' as const }, itemWrapper: { display: 'inline' } };
+
 export const MECHANISM_LABEL: Record<Mechanism, string> = {
   tunnelling: 'Tunnelling (below about 5 V)',
   mixed: 'Mixed tunnelling and avalanche (5–6 V)',
@@ -194,7 +197,7 @@ export function CardEngineeringPanel({ result, waitingFor, loading, error, basis
 
             {(result.warnings.length > 0 || result.issues.some((i) => i.severity === 'warning')) && (
               <Alert color="yellow" title="Warnings" p="xs">
-                <List size="sm" spacing={2}>
+                <List size="sm" spacing={2} styles={WRAPPING_LIST}>
                   {result.warnings.map((w) => (
                     <List.Item key={w}>{w}</List.Item>
                   ))}
@@ -215,7 +218,7 @@ export function CardEngineeringPanel({ result, waitingFor, loading, error, basis
                     Assumptions ({result.assumptions.length + result.model.assumptions.length})
                   </Text>
                 </summary>
-                <List size="xs" c="dimmed" spacing={2} mt={4}>
+                <List size="xs" c="dimmed" spacing={2} mt={4} styles={WRAPPING_LIST}>
                   {[...result.model.assumptions, ...result.assumptions].map((a) => (
                     <List.Item key={a}>{a}</List.Item>
                   ))}

@@ -5,7 +5,7 @@ import type { CardField, ExtractionBox, ProvenanceSource } from '@shuntwise/cont
 import { formatForInput, QuantityInput } from '@/components/quantity-input';
 import { TempCoInput } from '@/components/temp-co-input';
 import { CARD_FIELD_META, cardFieldKind, formatCardValue } from '@/lib/card-fields';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime, formatShortDate } from '@/lib/format-date';
 import { sameFieldValue, type DraftField, type Suggestion } from '../utils/card-draft';
 
 export const SOURCE_LABEL: Record<ProvenanceSource, string> = { extracted: 'Extracted', entered: 'Entered', imported: 'Imported' };
@@ -78,7 +78,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
 
   return (
     <Table.Tr data-field-row={field}>
-      <Table.Td w={170} maw={170} title={meta.label}>
+      <Table.Td w={112} maw={112} title={meta.label}>
         <Text fz="sm" fw={500} lh={1.15}>
           {meta.symbol}
         </Text>
@@ -86,15 +86,15 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
           {meta.label}
         </Text>
       </Table.Td>
-      <Table.Td w={140}>{input}</Table.Td>
+      <Table.Td w={150}>{input}</Table.Td>
       <Table.Td>
         {suggestion &&
           (matches ? (
             <Tooltip label={`As printed on page ${suggestion.page}: ${suggestion.text}`} multiline maw={360}>
-              <Anchor component="button" type="button" fz="xs" c="verdigris" onClick={() => onShowSource(suggestion)}>
-                <Group gap={4} wrap="nowrap">
+              <Anchor component="button" type="button" fz="xs" c="verdigris" onClick={() => onShowSource(suggestion)} aria-label={`${meta.symbol} as printed on page ${suggestion.page}`}>
+                <Group gap={2} wrap="nowrap">
                   <IconCheck size={14} />
-                  as printed, p. {suggestion.page}
+                  p. {suggestion.page}
                 </Group>
               </Anchor>
             </Tooltip>
@@ -121,7 +121,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
             </Group>
           ))}
       </Table.Td>
-      <Table.Td w={210} maw={210}>
+      <Table.Td w={200} maw={200}>
         {value && !Number.isNaN(value.value) && (
           <Group gap={4} wrap="nowrap" data-testid={`provenance-${field}`}>
             <Badge size="xs" color={SOURCE_COLOR[value.source]} data-source={value.source} style={{ flexShrink: 0 }}>
@@ -138,7 +138,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               truncate
               title={value.confirmedBy ? `Confirmed by ${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt)}${value.text ? ` — “${value.text}”` : ''}` : value.text ?? undefined}
             >
-              {changed ? 'not saved yet' : value.confirmedBy ? `${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt).replace(/, \d\d:\d\d$/, '')}` : 'not confirmed'}
+              {changed ? 'unsaved' : value.confirmedBy ? `${value.confirmedBy.name}, ${formatShortDate(value.confirmedAt)}` : 'not confirmed'}
             </Text>
           </Group>
         )}

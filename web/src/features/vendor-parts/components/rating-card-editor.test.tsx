@@ -102,14 +102,14 @@ describe('RatingCardEditor', () => {
     const { user } = render(<RatingCardEditor vendorPart={part} card={emptyCard} extraction={extraction} onShowSource={onShowSource} />);
 
     await user.click(screen.getByRole('button', { name: 'Use 5.10 V for VZ nom' }));
-    expect(screen.getByLabelText(/^VZ nom/)).toHaveValue('5.1 V');
+    expect(screen.getByLabelText(/^VZ nom \(/)).toHaveValue('5.1 V');
     expect(within(screen.getByTestId('provenance-vzNom')).getByText('Extracted')).toBeInTheDocument();
     expect(within(screen.getByTestId('provenance-vzNom')).getByText('p. 2')).toBeInTheDocument();
     expect(onShowSource).toHaveBeenLastCalledWith(expect.objectContaining({ datasheetId: 7, page: 2, box }));
 
     // The rest in one go; the temperature coefficient keeps the unit the datasheet used.
     await user.click(screen.getByRole('button', { name: /Accept all suggestions \(6\)/ }));
-    expect(screen.getByLabelText(/^αVZ/)).toHaveValue('-0.8 mV/K');
+    expect(screen.getByLabelText(/^αVZ \(/)).toHaveValue('-0.8 mV/K');
     await user.click(screen.getAllByRole('button', { name: 'Save card' })[0]);
 
     await waitFor(() => expect(calls.callsTo('PUT', '/api/vendor-parts/41/rating-card')).toHaveLength(1));
@@ -132,11 +132,11 @@ describe('RatingCardEditor', () => {
     const calls = api();
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
 
-    const zzt = screen.getByLabelText(/^ZZT/);
+    const zzt = screen.getByLabelText(/^ZZT \(/);
     await user.clear(zzt);
     await user.type(zzt, '8 ohm');
     expect(within(screen.getByTestId('provenance-zzt')).getByText('Entered')).toBeInTheDocument();
-    expect(within(screen.getByTestId('provenance-zzt')).getByText('not saved yet')).toBeInTheDocument();
+    expect(within(screen.getByTestId('provenance-zzt')).getByText('unsaved')).toBeInTheDocument();
     expect(screen.getByTestId('unsaved')).toHaveTextContent('1 unsaved change');
     // The datasheet still offers its own figure beside the corrected one.
     expect(screen.getByRole('button', { name: 'Use 10.0 Ω for ZZT' })).toBeInTheDocument();
@@ -162,7 +162,7 @@ describe('RatingCardEditor', () => {
     signInAs('engineer');
     const calls = api();
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
-    const izt = screen.getByLabelText(/^IZT/);
+    const izt = screen.getByLabelText(/^IZT \(/);
     await user.clear(izt);
     await user.type(izt, '5 mV');
     await user.tab();
@@ -181,12 +181,12 @@ describe('RatingCardEditor', () => {
       },
     });
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
-    const vzMax = screen.getByLabelText(/^VZ max/);
+    const vzMax = screen.getByLabelText(/^VZ max \(/);
     await user.clear(vzMax);
     await user.type(vzMax, '5.4 V');
     await user.click(screen.getAllByRole('button', { name: 'Save card' })[0]);
     expect(await screen.findByText('zzt (900 Ω) × izt (0.005 A) is not below vzNom (5.1 V)')).toBeInTheDocument();
-    expect(screen.getByLabelText(/^ZZT/)).toHaveAttribute('aria-invalid', 'true');
+    expect(screen.getByLabelText(/^ZZT \(/)).toHaveAttribute('aria-invalid', 'true');
     expect(vzMax).toHaveValue('5.4 V');
   });
 
@@ -213,7 +213,7 @@ describe('RatingCardEditor', () => {
     });
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
 
-    const zzt = screen.getByLabelText(/^ZZT/);
+    const zzt = screen.getByLabelText(/^ZZT \(/);
     await user.clear(zzt);
     await user.type(zzt, '8');
     await user.click(screen.getAllByRole('button', { name: 'Save card' })[0]);
@@ -232,7 +232,7 @@ describe('RatingCardEditor', () => {
 
     // Closing keeps everything typed.
     await user.click(within(dialog).getByRole('button', { name: 'Keep editing' }));
-    expect(screen.getByLabelText(/^ZZT/)).toHaveValue('8');
+    expect(screen.getByLabelText(/^ZZT \(/)).toHaveValue('8');
     await user.click(screen.getByRole('button', { name: 'Compare and merge' }));
     const again = await screen.findByRole('dialog', { name: 'The card was saved by someone else meanwhile' });
     await user.click(within(again).getByRole('button', { name: 'Save the chosen values as v3' }));

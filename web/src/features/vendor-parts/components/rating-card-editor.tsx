@@ -24,6 +24,7 @@ import {
   pendingSuggestions,
   suggestionsFrom,
   toFieldsInput,
+  variantOfCard,
   type CardDraft,
   type Suggestion,
 } from '../utils/card-draft';
@@ -104,13 +105,18 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
 
   // Suggestions: the variant of the shown datasheet that carries this part number.
   const [variantChoice, setVariantChoice] = useState<{ datasheetId: number; mpn: string } | null>(null);
-  const variants = extraction?.variants ?? [];
-  const variant =
-    (variantChoice && extraction && variantChoice.datasheetId === extraction.datasheetId
-      ? variants.find((v) => v.mpn === variantChoice.mpn)
-      : undefined) ??
-    matchVariant(variants, vendorPart.mpn) ??
-    (variants.length === 1 ? variants[0] : undefined);
+  const variants = useMemo(() => extraction?.variants ?? [], [extraction]);
+  const variant = useMemo(
+    () =>
+      (variantChoice && extraction && variantChoice.datasheetId === extraction.datasheetId
+        ? variants.find((v) => v.mpn === variantChoice.mpn)
+        : undefined) ??
+      matchVariant(variants, vendorPart.mpn) ??
+      (variants.length === 1 ? variants[0] : undefined) ??
+      // A part number the datasheet does not print (an ordering code): the variant the saved card came from.
+      (extraction ? variantOfCard(variants, base, extraction.datasheetId) : undefined),
+    [variantChoice, extraction, variants, vendorPart.mpn, base],
+  );
   const suggestions = useMemo(() => suggestionsFrom(variant, extraction?.datasheetId ?? null), [variant, extraction?.datasheetId]);
   const pending = useMemo(() => pendingSuggestions(draft, suggestions, typed), [draft, suggestions, typed]);
 

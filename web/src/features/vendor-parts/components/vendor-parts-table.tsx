@@ -150,7 +150,16 @@ export function VendorPartsTable() {
             </Badge>
           ),
       },
-      { accessorKey: 'lifecycleNote', header: 'Lifecycle', enableSorting: false, Cell: ({ row }) => row.original.lifecycleNote ?? '' },
+      {
+        accessorKey: 'lifecycleNote',
+        header: 'Lifecycle',
+        enableSorting: false,
+        Cell: ({ row }) => (
+          <Text fz="sm" maw={260} truncate title={row.original.lifecycleNote ?? undefined}>
+            {row.original.lifecycleNote ?? ''}
+          </Text>
+        ),
+      },
       { accessorKey: 'updatedAt', header: 'Updated', Cell: ({ row }) => formatDateTime(row.original.updatedAt) },
     ],
     [],

@@ -123,15 +123,17 @@ export function acceptSuggestion(draft: CardDraft, suggestion: Suggestion): Card
 }
 
 /**
- * What "Accept all" takes: every suggestion that would change the card, except where the
- * engineer typed a value in this session (a typed value is never overwritten in bulk).
+ * What "Accept all" takes: empty fields and values extracted elsewhere that differ. A
+ * value someone typed (now or saved as entered) or imported is never overwritten in
+ * bulk; its suggestion stays one click away on its own row.
  */
 export function pendingSuggestions(draft: CardDraft, suggestions: Partial<Record<CardField, Suggestion>>, typed: ReadonlySet<CardField>): Suggestion[] {
   return CARD_FIELDS.flatMap((field) => {
     const s = suggestions[field];
     if (!s || typed.has(field)) return [];
     const current = draft[field];
-    if (current && current.source === 'extracted' && sameFieldValue(current, s)) return [];
+    if (current && current.source !== 'extracted') return [];
+    if (current && sameFieldValue(current, s) && current.datasheetId === s.datasheetId && current.page === s.page) return [];
     return [s];
   });
 }
@@ -261,4 +263,23 @@ export function applyMerge(rows: readonly MergeRow[], choices: Partial<Record<Ca
     if (pick) out[row.field] = pick;
   }
   return out;
+}
+
+/**
+ * The variant a card was filled from, when its part number is not printed (an ordering
+ * code): the one whose readings agree with most of the card's extracted values.
+ */
+export function variantOfCard(variants: readonly ExtractedVariant[], draft: CardDraft, datasheetId: number): ExtractedVariant | undefined {
+  let best: { variant: ExtractedVariant; score: number } | undefined;
+  for (const variant of variants) {
+    const offered = suggestionsFrom(variant, datasheetId);
+    let score = 0;
+    for (const field of CARD_FIELDS) {
+      const mine = draft[field];
+      const s = offered[field];
+      if (mine && s && mine.source === 'extracted' && mine.datasheetId === datasheetId && mine.page === s.page && sameFieldValue(mine, s)) score += 1;
+    }
+    if (score > 0 && (!best || score > best.score)) best = { variant, score };
+  }
+  return best?.variant;
 }
