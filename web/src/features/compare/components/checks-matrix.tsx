@@ -20,7 +20,7 @@ export function ChecksMatrix({ payload, renderSourceAction }: { payload: Compare
   const limitOf = (id: CheckId): QualificationCheck | undefined => byId.map((m) => m.get(id)).find((c) => c !== undefined);
 
   return (
-    <Paper aria-label="Checks side by side">
+    <Paper component="section" aria-label="Checks side by side">
       <Stack gap="xs">
         <Title order={3} fz="h5">
           Checks against spec v{payload.specVersion}

@@ -69,7 +69,7 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
   const iRef = payload.specWindow.current;
 
   return (
-    <Paper aria-label="Breakdown curves">
+    <Paper component="section" aria-label="Breakdown curves">
       <Stack gap="xs">
         <Group justify="space-between" align="flex-end" wrap="wrap">
           <Title order={3} fz="h5">

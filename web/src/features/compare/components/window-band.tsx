@@ -23,7 +23,7 @@ export function WindowBand({ payload }: { payload: ComparePayload }) {
   const outputCheck = (r: (typeof rows)[number]) => r.s.evaluation?.checks.find((c) => c.id === 'output-window') ?? null;
 
   return (
-    <Paper aria-label="Worst-case window">
+    <Paper component="section" aria-label="Worst-case window">
       <Stack gap="xs">
         <Group justify="space-between" wrap="wrap">
           <Title order={3} fz="h5">

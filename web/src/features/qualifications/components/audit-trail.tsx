@@ -40,7 +40,7 @@ function show(value: AuditEntry['changes'][number]['from']): string {
 /** Every state change and edit of the case, oldest first: who, when, what changed. */
 export function AuditTrail({ entries }: { entries: readonly AuditEntry[] }) {
   return (
-    <Paper aria-label="Audit trail">
+    <Paper component="section" aria-label="Audit trail">
       <Stack gap="xs">
         <Title order={3} fz="h5">
           Audit trail

@@ -16,7 +16,7 @@ export function CaseNotes({ q, canEdit, onReload }: { q: Qualification; canEdit:
     );
 
   return (
-    <Paper aria-label="Notes">
+    <Paper component="section" aria-label="Notes">
       <Stack gap={6}>
         <Group justify="space-between">
           <Title order={3} fz="h5">

@@ -13,7 +13,7 @@ export function CommentsPanel({ q, canComment }: { q: Qualification; canComment:
   const submit = form.onSubmit((values) => mutation.mutate({ id: q.id, text: values.text }, { onSuccess: () => form.reset() }));
 
   return (
-    <Paper aria-label="Comments">
+    <Paper component="section" aria-label="Comments">
       <Stack gap="xs">
         <Title order={3} fz="h5">
           Comments ({q.comments.length})

@@ -18,7 +18,7 @@ export function EvaluationPanel({ evaluation, current }: { evaluation: Evaluatio
   const signWarnings = evaluation.checks.find((c) => c.id === 'tc')?.warnings ?? [];
   const stale = current && (current.specVersion !== evaluation.specVersion || current.cardVersion !== evaluation.cardVersion);
   return (
-    <Paper aria-label="Evaluation">
+    <Paper component="section" aria-label="Evaluation">
       <Stack gap="sm">
         <Group justify="space-between" align="flex-start" wrap="wrap">
           <Stack gap={2}>

@@ -44,7 +44,7 @@ export function SignOffPanel({
   const decisionWord = q.decision?.state === 'rejected' ? 'Reason' : q.decision?.state === 'cleared-with-conditions' ? 'Conditions' : 'Note';
 
   return (
-    <Paper aria-label="Sign-off">
+    <Paper component="section" aria-label="Sign-off">
       <Stack gap="xs">
         <Group justify="space-between">
           <Title order={3} fz="h5">

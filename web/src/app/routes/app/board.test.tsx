@@ -1,0 +1,91 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import type { BoardPage } from '@shuntwise/contracts';
+import { mockApi } from '@/testing/mock-api';
+import { DEMO_USERS, currentLocation, renderApp, signInAs } from '@/testing/render';
+
+// Invented demo data: one house part with its approved source, a cleared alternate and one without a case.
+const PAGE: BoardPage = {
+  items: [
+    {
+      housePart: { id: 4, partNumber: 'OHI-ZD-1047', description: 'Regulator diode 4.7 V', status: 'active', specVersion: 1 },
+      sources: [
+        { vendorPart: { id: 11, manufacturer: 'Brackenford Semiconductor', mpn: 'BRZ05-4V7', package: 'SOD-123' }, role: 'approved', cardVersion: 1, state: 'none', latestCase: null },
+        {
+          vendorPart: { id: 40, manufacturer: 'Quarryhill Semitech', mpn: 'QHZ4V7A', package: 'SOD-123' },
+          role: 'alternate',
+          cardVersion: 2,
+          state: 'cleared',
+          latestCase: {
+            id: 1,
+            revision: 1,
+            state: 'cleared',
+            overall: 'pass',
+            preparedBy: { id: 2, name: 'Priya Raman' },
+            decidedBy: { id: 3, name: 'Tomas Eklund' },
+            needsRecheck: true,
+            updatedAt: '2026-10-21T18:25:27.000Z',
+            ageDays: 41,
+          },
+        },
+        { vendorPart: { id: 41, manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4.7', package: 'SOD-323' }, role: 'alternate', cardVersion: 1, state: 'none', latestCase: null },
+      ],
+    },
+  ],
+  total: 1,
+  pageIndex: 0,
+  pageSize: 25,
+  counts: { draft: 0, 'in-review': 0, cleared: 1, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 2 },
+};
+
+const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) => fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualifications/board'));
+
+describe('Board screen', () => {
+  it('shows each source with its state, verdict, case, engineers and age, and links to the case, the compare view and the parts', async () => {
+    signInAs('engineer');
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE } });
+    renderApp('/board');
+    const row = (await screen.findByRole('link', { name: 'QHZ4V7A' })).closest('tr')!;
+    expect(within(row).getByText('Cleared').closest('[data-state]')).toHaveAttribute('data-state', 'cleared');
+    expect(within(row).getByText('pass')).toBeInTheDocument();
+    expect(within(row).getByText('re-check')).toBeInTheDocument();
+    expect(row).toHaveTextContent('Priya Raman → Tomas Eklund');
+    expect(row).toHaveTextContent('41 days');
+    expect(within(row).getByRole('link', { name: '#1' })).toHaveAttribute('href', '/qualifications/1');
+    expect(screen.getByRole('link', { name: 'Compare the sources of OHI-ZD-1047' })).toHaveAttribute('href', '/compare/4');
+    expect(screen.getByRole('link', { name: 'OHI-ZD-1047' })).toHaveAttribute('href', '/house-parts/4');
+    // A case is opened for an alternate without one; the approved source is the reference.
+    expect(screen.getByRole('button', { name: 'Open a case: CBX3-4.7 for OHI-ZD-1047' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Open a case: BRZ05-4V7 for OHI-ZD-1047' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Open a case: QHZ4V7A for OHI-ZD-1047' })).not.toBeInTheDocument();
+  });
+
+  it('filters by state from the tallies and by age, through the server and the address', async () => {
+    signInAs('engineer');
+    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE } });
+    const { user } = renderApp('/board');
+    await user.click(await screen.findByRole('button', { name: 'Cleared: 1' }));
+    await waitFor(() => expect(boardUrls(api.fetch).at(-1)).toContain('state=cleared'));
+    expect(currentLocation()).toBe('/board?state=cleared');
+    await user.type(screen.getByLabelText('Unchanged for at least'), '30');
+    await waitFor(() => expect(boardUrls(api.fetch).at(-1)).toContain('minAgeDays=30'));
+    expect(boardUrls(api.fetch).at(-1)).toContain('state=cleared');
+  });
+
+  it('opens a case for a source and goes to it', async () => {
+    signInAs('engineer');
+    const api = mockApi({
+      'GET /api/auth/me': { body: DEMO_USERS.engineer },
+      'GET /api/qualifications/board': { body: PAGE },
+      'POST /api/qualifications': { status: 409, body: { message: 'Case #12 (Corriebank Electronics CBX3-4.7 for OHI-ZD-1047) is still draft: continue that one', correlationId: 'c0ffee00-test' } },
+    });
+    const { user } = renderApp('/board');
+    await user.click(await screen.findByRole('button', { name: 'Open a case: CBX3-4.7 for OHI-ZD-1047' }));
+    const dialog = await screen.findByRole('dialog');
+    await user.click(within(dialog).getByRole('button', { name: 'Open the case' }));
+    const alert = await within(dialog).findByRole('alert');
+    expect(alert).toHaveTextContent('This source already has a case');
+    expect(alert).toHaveTextContent('Case #12');
+    expect(api.callsTo('POST', '/api/qualifications')[0].body).toEqual({ housePartId: 4, vendorPartId: 41 });
+  });
+});

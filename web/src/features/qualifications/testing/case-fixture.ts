@@ -1,0 +1,175 @@
+import type { Qualification, QualificationCheck } from '@shuntwise/contracts';
+
+// Invented demo data: an 11 V alternate checked against an invented house part's spec.
+// Margins are in percent of the limit, as the API defines them; the ones the tests read
+// are worked by hand beside each check (common practice, no source).
+
+const base = { assumptions: [] as string[], warnings: [] as string[], range: null, window: null, text: null };
+
+export const CHECKS: QualificationCheck[] = [
+  {
+    ...base,
+    id: 'vz-window',
+    label: 'Zener voltage at the reference current',
+    verdict: 'pass',
+    quantity: 'voltage',
+    limitKind: 'window',
+    value: 10.345754,
+    limit: 10.133,
+    range: { low: 10.345754, high: 11.445754 },
+    window: { min: 10.133, max: 12.006 },
+    // nearer end: (10.3458 − 10.133) / 10.133 = 2.10 %
+    margin: 2.0996,
+    detail: '10.3 V … 11.4 V at 20.0 mA, 25 °C, against the window 10.1 V … 12.0 V',
+    assumptions: ['moved from izt (34.0 mA) to iRef (20.0 mA) along the fitted curve (two-point fit)'],
+  },
+  {
+    ...base,
+    id: 'zd',
+    label: 'Dynamic impedance at the reference current',
+    verdict: 'pass',
+    quantity: 'resistance',
+    limitKind: 'max',
+    value: 8.081818,
+    limit: 13,
+    // (13 − 8.0818) / 13 = 37.83 %
+    margin: 37.832,
+    detail: 'Zd 8.08 Ω at 20.0 mA, 25 °C, against at most 13.0 Ω',
+  },
+  {
+    ...base,
+    id: 'knee-ratio',
+    label: 'Knee ratio Zd(iKnee)/Zd(iRef)',
+    verdict: 'no-data',
+    quantity: 'ratio',
+    limitKind: 'max',
+    value: null,
+    limit: 9.5,
+    margin: null,
+    detail: 'no data: the card gives no knee point (izk with zzk)',
+  },
+  {
+    ...base,
+    id: 'leakage',
+    label: 'Reverse leakage',
+    verdict: 'marginal',
+    quantity: 'current',
+    limitKind: 'max',
+    value: 0.000001,
+    limit: 0.000001,
+    // (1 µA − 1 µA) / 1 µA = 0 %, inside the 2 % marginal band
+    margin: 0,
+    detail: 'irMax 1.00 µA at 7.70 V against at most 1.00 µA at 7.70 V',
+    assumptions: ['datasheet leakage is stated at 25 °C, as is the spec’s'],
+  },
+  {
+    ...base,
+    id: 'tc',
+    label: 'Temperature coefficient',
+    verdict: 'pass',
+    quantity: 'tempCoVoltage',
+    limitKind: 'window',
+    value: 0.0073,
+    limit: 0.00957,
+    range: { low: 0.0073, high: 0.0073 },
+    window: { min: 0.00363, max: 0.00957 },
+    margin: 23.72,
+    detail: 'αVz 7.3 mV/K against the window 3.63 mV/K … 9.57 mV/K',
+  },
+  {
+    ...base,
+    id: 'power-dissipation',
+    label: 'Worst-case dissipation',
+    verdict: 'fail',
+    quantity: 'power',
+    limitKind: 'max',
+    value: 0.0881438,
+    limit: 0.0779376,
+    // (77.94 mW − 88.14 mW) / 77.94 mW = −13.10 %
+    margin: -13.0953,
+    detail: '88.1 mW at 7.90 mA and 85 °C above the allowed 77.9 mW',
+    assumptions: ['the diode may dissipate 50 % of its derated rating'],
+  },
+  {
+    ...base,
+    id: 'power-rating',
+    label: 'Power rating',
+    verdict: 'pass',
+    quantity: 'power',
+    limitKind: 'min',
+    value: 1.5,
+    limit: 0.6,
+    // (1.5 W − 0.6 W) / 0.6 W = 150 %
+    margin: 150,
+    detail: 'rated 1.50 W at 25 °C against at least 600 mW',
+  },
+  {
+    ...base,
+    id: 'package',
+    label: 'Package',
+    verdict: 'pass',
+    quantity: 'text',
+    limitKind: 'member',
+    value: null,
+    limit: null,
+    text: { value: 'SMB', allowed: ['SMA', 'SMB'] },
+    margin: null,
+    detail: 'SMB is among the allowed SMA, SMB',
+  },
+];
+
+const CAUTION = 'Estimates from datasheet values: confirm by measurement and with the manufacturer before relying on them.';
+
+/** A case as `GET /api/qualifications/:id` answers it; override what a test is about. */
+export function caseFixture(overrides: Partial<Qualification> = {}): Qualification {
+  const at = '2026-11-20T09:00:00.000Z';
+  return {
+    id: 7,
+    revision: 1,
+    previousId: null,
+    nextId: null,
+    housePart: { id: 16, partNumber: 'OHI-ZD-2110', description: 'Regulator diode 11 V, 11 V clamp' },
+    vendorPart: { id: 91, manufacturer: 'Tevorrow Power Devices', mpn: 'TPZ15-11', package: 'SMB' },
+    sourceRole: 'alternate',
+    state: 'in-review',
+    overall: 'pass',
+    specVersion: 1,
+    cardVersion: 1,
+    preparedBy: { id: 2, name: 'Priya Raman' },
+    reviewer: null,
+    submittedAt: at,
+    decision: null,
+    revocation: null,
+    needsRecheck: false,
+    recheckReasons: [],
+    version: 2,
+    createdAt: at,
+    updatedAt: at,
+    summary: 'Alternate for the valve-driver clamp.',
+    evaluation: {
+      overall: 'pass',
+      summary: 'Every check passes',
+      specVersion: 1,
+      cardVersion: 1,
+      marginalBandPercent: 2,
+      checks: CHECKS,
+      notApplicable: [{ id: 'knee-span', label: 'Voltage span over the operating currents', reason: 'the spec sets no largest voltage span' }],
+      model: null,
+      mechanism: 'avalanche',
+      window: null,
+      assumptions: [],
+      warnings: [],
+      caution: CAUTION,
+      evaluatedAt: at,
+    },
+    current: { specVersion: 1, cardVersion: 1 },
+    comments: [],
+    audit: [
+      { id: 1, at, by: { id: 2, name: 'Priya Raman' }, action: 'opened', fromState: null, toState: 'draft', changes: [{ field: 'state', from: null, to: 'draft' }], note: null },
+      { id: 2, at, by: { id: 2, name: 'Priya Raman' }, action: 'submitted', fromState: 'draft', toState: 'in-review', changes: [{ field: 'state', from: 'draft', to: 'in-review' }], note: null },
+    ],
+    allowedActions: [],
+    caution: CAUTION,
+    ...overrides,
+  };
+}
