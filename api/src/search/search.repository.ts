@@ -50,8 +50,10 @@ export interface PairRow {
 
 /** How text narrows in SQL when the filters alone leave too many parts to rank. */
 export interface TextNarrowing {
-  /** Each word's leading characters, matched as a prefix of the part numbers and inside names. */
-  tokens: string[];
+  /** Each word's leading characters, matched as a prefix of the part numbers and inside names (none: no narrowing by text). */
+  tokens?: string[];
+  /** The usable parts, read once for the several narrowing steps of one search (else joined as a derived table). */
+  usableIds?: readonly number[];
 }
 
 const DECIDED = `('cleared', 'cleared-with-conditions', 'rejected', 'revoked')`;
@@ -69,18 +71,30 @@ const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revisi
     WHERE n.house_part_id = d.house_part_id AND n.vendor_part_id = d.vendor_part_id AND n.revision > d.revision AND n.state IN ${DECIDED})`;
 
 /**
- * Pairs a designer may design in: on the house part's source list and either cleared by
- * the latest decision or the approved source with no decision against it.
+ * Pairs (vendor_part_id, house_part_id) a designer may design in: on the house part's
+ * source list and either cleared by the latest decision, or the approved source with no
+ * decision at all. Written as a union of two index-driven halves: at 10 000 sources and
+ * 6 000 cases it takes about a third of the time of a LEFT JOIN onto LATEST_DECIDED.
  */
-const USABLE_PAIRS = `SELECT s.vendor_part_id, s.house_part_id FROM house_part_sources s
-  LEFT JOIN (${LATEST_DECIDED}) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
-  WHERE d.state IN ${CLEARED} OR (d.id IS NULL AND s.role = 'approved')`;
+function usablePairs(housePartId: boolean): string {
+  const hp = (alias: string) => (housePartId ? ` AND ${alias}.house_part_id = ?` : '');
+  return `SELECT q.vendor_part_id, q.house_part_id FROM qualifications q
+    JOIN (SELECT house_part_id, vendor_part_id, MAX(revision) AS revision FROM qualifications WHERE state IN ${DECIDED}${hp('qualifications')}
+          GROUP BY house_part_id, vendor_part_id) m
+      ON m.house_part_id = q.house_part_id AND m.vendor_part_id = q.vendor_part_id AND m.revision = q.revision
+    JOIN house_part_sources s ON s.house_part_id = q.house_part_id AND s.vendor_part_id = q.vendor_part_id
+    WHERE q.state IN ${CLEARED}
+    UNION ALL
+    SELECT s.vendor_part_id, s.house_part_id FROM house_part_sources s
+    WHERE s.role = 'approved'${hp('s')} AND NOT EXISTS (
+      SELECT 1 FROM qualifications d WHERE d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id AND d.state IN ${DECIDED})`;
+}
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
 const VZ_MIN = `JSON_VALUE(rc.fields, '$.vzMin.value')`;
 const VZ_MAX = `JSON_VALUE(rc.fields, '$.vzMax.value')`;
 
-/** Sorts are indexed columns of vendor_parts; parts without a card go last. */
+/** Sorts are indexed columns of vendor_parts; parts without the figure go last. */
 const SORT_COLUMNS: Record<SearchSort, string> = {
   relevance: 'vp.vz_nom',
   vzNom: 'vp.vz_nom',
@@ -91,9 +105,11 @@ const SORT_COLUMNS: Record<SearchSort, string> = {
 };
 
 interface Conditions {
-  joins: string;
-  where: string[];
+  /** FROM clause: vendor_parts as vp, joined to the usable set, the card and the text narrowing as needed. */
+  from: string;
+  where: string;
   params: unknown[];
+  usableOnly: boolean;
 }
 
 /** The only place that queries for the designers' search (read-only, raw SQL over the catalogue and the cases). */
@@ -105,14 +121,37 @@ export class SearchRepository {
     return this.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
   }
 
-  /** Every parametric filter as SQL conditions on `vp` (and `rc` when the card's JSON is needed). */
+  /** Every filter as SQL: the usable set and the text narrowing as derived tables joined on id, the rest as indexed conditions. */
   conditions(query: SearchQuery, text?: TextNarrowing): Conditions {
+    const joins: string[] = [];
+    const joinParams: unknown[] = [];
+    let words: string | null = null;
+    const wordParams: unknown[] = [];
     const where: string[] = [];
     const params: unknown[] = [];
     let needsCard = false;
-    if (!query.includeNotCleared) {
-      where.push(`vp.id IN (SELECT u.vendor_part_id FROM (${USABLE_PAIRS}) u${query.housePartId !== undefined ? ' WHERE u.house_part_id = ?' : ''})`);
-      if (query.housePartId !== undefined) params.push(query.housePartId);
+    const usableOnly = !query.includeNotCleared;
+    if (usableOnly && text?.usableIds) {
+      // MariaDB turns a long IN list into a lookup table of its own (in_predicate_conversion_threshold).
+      where.push(text.usableIds.length ? `vp.id IN (${text.usableIds.map(() => '?').join(', ')})` : 'FALSE');
+      params.push(...text.usableIds);
+    } else if (usableOnly) {
+      // A derived table joined on id, not `vp.id IN (…)`: MariaDB then materialises the set once instead of probing it per part.
+      joins.push(`JOIN (SELECT DISTINCT u.vendor_part_id FROM (${usablePairs(query.housePartId !== undefined)}) u) usable ON usable.vendor_part_id = vp.id`);
+      if (query.housePartId !== undefined) joinParams.push(query.housePartId, query.housePartId);
+    }
+    if (text?.tokens && text.tokens.length > 0) {
+      // Each branch is an index range (mpn prefix, the few manufacturers and house parts whose names match).
+      const branches: string[] = [];
+      for (const token of text.tokens) {
+        branches.push('SELECT t.id FROM vendor_parts t WHERE t.mpn LIKE ?');
+        wordParams.push(likePrefix(token));
+        branches.push('SELECT t.id FROM vendor_parts t WHERE t.manufacturer_name IN (SELECT m.name FROM manufacturers m WHERE m.name LIKE ?)');
+        wordParams.push(`%${likePrefix(token)}`);
+        branches.push('SELECT s.vendor_part_id FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id WHERE h.part_number LIKE ? OR h.description LIKE ?');
+        wordParams.push(likePrefix(token), `%${likePrefix(token)}`);
+      }
+      words = `(${branches.join(' UNION ')}) words`;
     }
     if (query.vzFrom !== undefined) {
       where.push('vp.vz_nom >= ?');
@@ -151,49 +190,89 @@ export class SearchRepository {
       where.push(`GREATEST(vp.vz_nom - ${VZ_MIN}, ${VZ_MAX} - vp.vz_nom) <= ? * vp.vz_nom`);
       params.push(query.toleranceMax);
     }
-    if (text && text.tokens.length > 0) {
-      const any: string[] = [];
-      for (const token of text.tokens) {
-        any.push('vp.mpn LIKE ?', 'vp.manufacturer_name LIKE ?');
-        params.push(likePrefix(token), `%${likePrefix(token)}`);
-        any.push(
-          `vp.id IN (SELECT s.vendor_part_id FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id WHERE h.part_number LIKE ? OR h.description LIKE ?)`,
-        );
-        params.push(likePrefix(token), `%${likePrefix(token)}`);
-      }
-      where.push(`(${any.join(' OR ')})`);
-    }
-    return { joins: needsCard ? 'JOIN rating_cards rc ON rc.vendor_part_id = vp.id' : '', where, params };
+    if (needsCard) joins.push('JOIN rating_cards rc ON rc.vendor_part_id = vp.id');
+    return {
+      // The parts the words name drive the join (STRAIGHT_JOIN): otherwise MariaDB may walk the Vz index of every part and probe them.
+      from: words ? `FROM ${words} STRAIGHT_JOIN vendor_parts vp ON vp.id = words.id ${joins.join(' ')}` : `FROM vendor_parts vp ${joins.join(' ')}`,
+      where: where.length ? `WHERE ${where.join(' AND ')}` : '',
+      params: [...wordParams, ...joinParams, ...params],
+      usableOnly,
+    };
   }
 
-  /** One page of ids in the chosen order, and how many parts match (no text: SQL pages). */
+  /** One page of ids in the chosen order (parts without the sorted figure last), and how many parts match. */
   async page(query: SearchQuery): Promise<{ ids: number[]; total: number }> {
-    const { joins, where, params } = this.conditions(query);
-    const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+    const c = this.conditions(query);
     const term = query.sort[0] ?? { field: 'relevance' as const, desc: false };
     const column = SORT_COLUMNS[term.field];
     const dir = term.desc ? 'DESC' : 'ASC';
-    const order = `${column} IS NULL, ${column} ${dir}, ${term.field === 'mpn' ? '' : 'vp.mpn, '}vp.id`;
-    const rows = await this.select<{ id: number }>(`SELECT vp.id FROM vendor_parts vp ${joins} ${whereSql} ORDER BY ${order} LIMIT ? OFFSET ?`, [
-      ...params,
-      query.pageSize,
-      query.pageIndex * query.pageSize,
-    ]);
-    const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(*) AS total FROM vendor_parts vp ${joins} ${whereSql}`, params);
-    return { ids: rows.map((r) => r.id), total: Number(total) };
+    const offset = query.pageIndex * query.pageSize;
+    if (c.usableOnly) {
+      // A few thousand parts at most: one query sorts them and counts them (the usable set is built once).
+      const rows = await this.select<{ id: number; total: number | bigint }>(
+        `SELECT vp.id, COUNT(*) OVER () AS total ${c.from} ${c.where} ORDER BY ${column} IS NULL, ${column} ${dir}, vp.id ${dir} LIMIT ? OFFSET ?`,
+        [...c.params, query.pageSize, offset],
+      );
+      if (rows.length > 0 || offset === 0) return { ids: rows.map((r) => r.id), total: Number(rows[0]?.total ?? 0) };
+      const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(*) AS total ${c.from} ${c.where}`, c.params);
+      return { ids: [], total: Number(total) };
+    }
+    // The whole catalogue: sorting on `column IS NULL` first would sort every row; two index ranges instead,
+    // the parts with the figure in its order, then those without.
+    const [counts] = await this.select<{ total: number | bigint; withValue: number | bigint }>(`SELECT COUNT(*) AS total, COUNT(${column}) AS withValue ${c.from} ${c.where}`, c.params);
+    const total = Number(counts.total);
+    const withValue = Number(counts.withValue);
+    const and = c.where ? `${c.where} AND` : 'WHERE';
+    const ids: number[] = [];
+    if (offset < withValue) {
+      const rows = await this.select<{ id: number }>(`SELECT vp.id ${c.from} ${and} ${column} IS NOT NULL ORDER BY ${column} ${dir}, vp.id ${dir} LIMIT ? OFFSET ?`, [...c.params, query.pageSize, offset]);
+      ids.push(...rows.map((r) => r.id));
+    }
+    if (ids.length < query.pageSize && offset + ids.length < total) {
+      const rows = await this.select<{ id: number }>(`SELECT vp.id ${c.from} ${and} ${column} IS NULL ORDER BY vp.id ${dir} LIMIT ? OFFSET ?`, [
+        ...c.params,
+        query.pageSize - ids.length,
+        Math.max(0, offset - withValue),
+      ]);
+      ids.push(...rows.map((r) => r.id));
+    }
+    return { ids, total };
+  }
+
+  /** Ids of every usable part (of one house part when given). */
+  async usableIds(housePartId?: number): Promise<number[]> {
+    const rows = await this.select<{ id: number }>(
+      `SELECT DISTINCT u.vendor_part_id AS id FROM (${usablePairs(housePartId !== undefined)}) u`,
+      housePartId !== undefined ? [housePartId, housePartId] : [],
+    );
+    return rows.map((r) => r.id);
+  }
+
+  /** Whether more than `limit` parts pass the filters (and the narrowing): a scan that stops at limit + 1, no sort. */
+  async exceeds(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<boolean> {
+    const c = this.conditions(query, text);
+    const [{ n }] = await this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM (SELECT vp.id ${c.from} ${c.where} LIMIT ?) probe`, [...c.params, limit + 1]);
+    return Number(n) > limit;
   }
 
   /** Up to `limit` parts the filters (and the text narrowing, if any) leave, with what the text ranking reads. */
-  candidates(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<CandidateRow[]> {
-    const { joins, where, params } = this.conditions(query, text);
-    const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
-    return this.select<CandidateRow>(
-      `SELECT vp.id, vp.mpn, vp.manufacturer_name AS manufacturer, vp.package, vp.vz_nom AS vzNom, vp.pd_max AS pdMax,
-         (SELECT GROUP_CONCAT(h.part_number, '\t', h.description SEPARATOR '\n') FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id WHERE s.vendor_part_id = vp.id) AS houseParts
-       FROM vendor_parts vp ${joins} ${whereSql}
-       ORDER BY vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?`,
-      [...params, limit],
+  async candidates(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<CandidateRow[]> {
+    const c = this.conditions(query, text);
+    const rows = await this.select<Omit<CandidateRow, 'houseParts'>>(
+      `SELECT vp.id, vp.mpn, vp.manufacturer_name AS manufacturer, vp.package, vp.vz_nom AS vzNom, vp.pd_max AS pdMax
+       ${c.from} ${c.where} ORDER BY vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?`,
+      [...c.params, limit],
     );
+    if (rows.length === 0) return [];
+    // The house parts' names only for the parts that will be ranked (one grouped query, not one per part).
+    const texts = await this.select<{ id: number; houseParts: string }>(
+      `SELECT s.vendor_part_id AS id, GROUP_CONCAT(h.part_number, '\t', h.description SEPARATOR '\n') AS houseParts
+       FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id
+       WHERE s.vendor_part_id IN (${rows.map(() => '?').join(', ')}) GROUP BY s.vendor_part_id`,
+      rows.map((r) => r.id),
+    );
+    const byId = new Map(texts.map((t) => [t.id, t.houseParts]));
+    return rows.map((r) => ({ ...r, houseParts: byId.get(r.id) ?? null }));
   }
 
   /** The page's parts with their current card and newest datasheet. */
@@ -212,6 +291,7 @@ export class SearchRepository {
   /** Every house part the page's parts are sources of, with where each pair stands. */
   pairs(ids: number[]): Promise<PairRow[]> {
     if (ids.length === 0) return Promise.resolve([]);
+    const list = ids.map(() => '?').join(', ');
     return this.select<PairRow>(
       `SELECT s.vendor_part_id AS vendorPartId, s.house_part_id AS housePartId, h.part_number AS partNumber, h.description, h.status,
          s.role, s.created_at AS sourceSince, d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
@@ -219,48 +299,34 @@ export class SearchRepository {
          (SELECT MAX(o.id) FROM qualifications o WHERE o.house_part_id = s.house_part_id AND o.vendor_part_id = s.vendor_part_id AND o.state IN ('draft', 'in-review')) AS openCaseId
        FROM house_part_sources s
        JOIN house_parts h ON h.id = s.house_part_id
-       LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${ids.map(() => '?').join(', ')})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
+       LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${list})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
        LEFT JOIN users du ON du.id = d.decided_by_id
-       WHERE s.vendor_part_id IN (${ids.map(() => '?').join(', ')})
+       WHERE s.vendor_part_id IN (${list})
        ORDER BY h.part_number`,
       [...ids, ...ids],
     );
   }
 
-  /** Counts per package, manufacturer and house part, over usable parts and over the whole catalogue. */
+  /** What the facets count: the usable pairs once (with each part's package and maker), and the catalogue's totals. */
   async facets(): Promise<{
+    usable: Array<{ vendorPartId: number; housePartId: number; package: string | null; manufacturer: string }>;
     packages: Array<{ value: string; n: number | bigint }>;
-    clearedPackages: Array<{ value: string; n: number | bigint }>;
     manufacturers: Array<{ value: string; n: number | bigint }>;
-    clearedManufacturers: Array<{ value: string; n: number | bigint }>;
-    houseParts: Array<{ id: number; partNumber: string; description: string; status: HousePartStatus; n: number | bigint }>;
-    clearedParts: number;
+    houseParts: Array<{ id: number; partNumber: string; description: string; status: HousePartStatus }>;
     catalogueParts: number;
   }> {
-    const usableParts = `SELECT DISTINCT u.vendor_part_id FROM (${USABLE_PAIRS}) u`;
-    const [packages, clearedPackages, manufacturers, clearedManufacturers, houseParts, [cleared], [catalogue]] = await Promise.all([
+    const [usable, packages, manufacturers, houseParts, [catalogue]] = await Promise.all([
+      this.select<{ vendorPartId: number; housePartId: number; package: string | null; manufacturer: string }>(
+        `SELECT u.vendor_part_id AS vendorPartId, u.house_part_id AS housePartId, vp.package, vp.manufacturer_name AS manufacturer
+         FROM (${usablePairs(false)}) u JOIN vendor_parts vp ON vp.id = u.vendor_part_id`,
+      ),
       this.select<{ value: string; n: number }>(`SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL GROUP BY vp.package ORDER BY vp.package`),
-      this.select<{ value: string; n: number }>(
-        `SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL AND vp.id IN (${usableParts}) GROUP BY vp.package`,
-      ),
       this.select<{ value: string; n: number }>(`SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp GROUP BY vp.manufacturer_name ORDER BY vp.manufacturer_name`),
-      this.select<{ value: string; n: number }>(`SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.id IN (${usableParts}) GROUP BY vp.manufacturer_name`),
-      this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus; n: number }>(
-        `SELECT h.id, h.part_number AS partNumber, h.description, h.status, COUNT(u.vendor_part_id) AS n
-         FROM house_parts h LEFT JOIN (${USABLE_PAIRS}) u ON u.house_part_id = h.id
-         GROUP BY h.id, h.part_number, h.description, h.status ORDER BY h.part_number`,
+      this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
+        `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h ORDER BY h.part_number`,
       ),
-      this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM (${usableParts}) c`),
       this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM vendor_parts`),
     ]);
-    return {
-      packages,
-      clearedPackages,
-      manufacturers,
-      clearedManufacturers,
-      houseParts,
-      clearedParts: Number(cleared.n),
-      catalogueParts: Number(catalogue.n),
-    };
+    return { usable, packages, manufacturers, houseParts, catalogueParts: Number(catalogue.n) };
   }
 }

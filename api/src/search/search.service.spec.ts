@@ -6,13 +6,15 @@ const candidate = (id: number, mpn: string): CandidateRow => ({ id, mpn, manufac
 
 /** A repository whose candidate query answers by the narrowing asked for, recording each call. */
 function fakeRepository(sizes: { all: number; leading: number; whole: number }) {
-  const calls: Array<TextNarrowing | undefined> = [];
+  const calls: Array<string[] | undefined> = [];
   const rows = (n: number) => Array.from({ length: n }, (_, i) => candidate(i + 1, i === 7 ? 'QHZ5V6A' : `QHX${i}`));
+  const size = (text: TextNarrowing | undefined) => (!text?.tokens ? sizes.all : text.tokens[0].length <= 3 ? sizes.leading : sizes.whole);
   const repository = {
+    usableIds: async () => rows(sizes.all).map((r) => r.id),
+    exceeds: async (_q: SearchQuery, text: TextNarrowing | undefined, limit: number) => size(text) > limit,
     candidates: async (_q: SearchQuery, text: TextNarrowing | undefined, limit: number) => {
-      calls.push(text);
-      const n = text === undefined ? sizes.all : text.tokens[0].length <= 3 ? sizes.leading : sizes.whole;
-      return rows(Math.min(n, limit));
+      calls.push(text?.tokens);
+      return rows(Math.min(size(text), limit));
     },
     parts: async (ids: number[]): Promise<PartRow[]> =>
       ids.map((id) => ({ id, manufacturer: 'Invented Maker', mpn: `P${id}`, package: null, lifecycleNote: null, cardVersion: null, fields: null, datasheetId: null })),
@@ -36,12 +38,12 @@ describe('SearchService text narrowing', () => {
     const many = SEARCH_TEXT_CANDIDATES + 500;
     const leading = fakeRepository({ all: many, leading: 300, whole: 0 });
     const byLeading = await new SearchService(leading.repository).search(query({ q: 'QHZ5V6A' }));
-    expect(leading.calls).toEqual([undefined, { tokens: ['QHZ'] }]);
+    expect(leading.calls).toEqual([['QHZ']]);
     expect(byLeading.text).toMatchObject({ mode: 'prefix', candidates: 300, truncated: false, note: expect.stringMatching(/first letters/) });
 
     const whole = fakeRepository({ all: many, leading: many, whole: many });
     const cut = await new SearchService(whole.repository).search(query({ q: 'QHZ5V6A' }));
-    expect(whole.calls).toEqual([undefined, { tokens: ['QHZ'] }, { tokens: ['QHZ5V6A'] }]);
+    expect(whole.calls).toEqual([['QHZ5V6A']]);
     expect(cut.text).toMatchObject({ mode: 'prefix', candidates: SEARCH_TEXT_CANDIDATES, truncated: true, note: expect.stringMatching(/Narrow the filters/) });
   });
 });

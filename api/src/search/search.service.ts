@@ -10,7 +10,7 @@ import {
   type SearchQuery,
   type SearchSort,
 } from '@shuntwise/contracts';
-import { SearchRepository, type CandidateRow, type PairRow, type PartRow } from './search.repository';
+import { SearchRepository, type CandidateRow, type PairRow, type PartRow, type TextNarrowing } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
 
 /** Leading characters of each word SQL narrows by when the filters leave too many parts: typos after them still match. */
@@ -55,29 +55,48 @@ export class SearchService {
     };
   }
 
-  /** The parts text is ranked over: all the filters leave when few enough, else narrowed by the words. */
+  /**
+   * The parts text is ranked over: all the filters leave when few enough, else those whose
+   * names start with each word's first letters, else with the whole words (cut to the limit).
+   * Each step first probes the count (a scan that stops at limit + 1) and reads rows only once.
+   */
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
-    const all = await this.repository.candidates(query, undefined, limit + 1);
-    if (all.length <= limit) return { candidates: all, mode: 'fuzzy', truncated: false };
+    // The usable set is read once here rather than rebuilt by each step's query.
+    const usableIds = query.includeNotCleared ? undefined : await this.repository.usableIds(query.housePartId);
+    const all: TextNarrowing = { usableIds };
+    if ((usableIds !== undefined && usableIds.length <= limit) || !(await this.repository.exceeds(query, all, limit))) return { candidates: await this.repository.candidates(query, all, limit), mode: 'fuzzy', truncated: false };
     const tokens = textTokens(text);
-    const leading = await this.repository.candidates(query, { tokens: tokens.map((t) => t.slice(0, PREFIX_CHARACTERS)) }, limit + 1);
-    if (leading.length <= limit) return { candidates: leading, mode: 'prefix', truncated: false };
-    const whole = await this.repository.candidates(query, { tokens }, limit + 1);
-    return { candidates: whole.slice(0, limit), mode: 'prefix', truncated: whole.length > limit };
+    const leading: TextNarrowing = { tokens: tokens.map((t) => t.slice(0, PREFIX_CHARACTERS)), usableIds };
+    const whole: TextNarrowing = { tokens, usableIds };
+    const sameNarrowing = leading.tokens!.every((t, i) => t === tokens[i]);
+    if (!sameNarrowing && !(await this.repository.exceeds(query, leading, limit))) {
+      return { candidates: await this.repository.candidates(query, leading, limit), mode: 'prefix', truncated: false };
+    }
+    const truncated = await this.repository.exceeds(query, whole, limit);
+    return { candidates: await this.repository.candidates(query, whole, limit), mode: 'prefix', truncated };
   }
 
   async facets(): Promise<SearchFacets> {
     const f = await this.repository.facets();
-    const merge = (all: Array<{ value: string; n: number | bigint }>, cleared: Array<{ value: string; n: number | bigint }>) => {
-      const byValue = new Map(cleared.map((c) => [c.value, Number(c.n)]));
-      return all.map((a) => ({ value: a.value, cleared: byValue.get(a.value) ?? 0, total: Number(a.n) }));
-    };
+    // Distinct usable parts per package, manufacturer and house part, counted from the pairs read once.
+    const parts = new Map<number, { package: string | null; manufacturer: string }>();
+    const perHousePart = new Map<number, number>();
+    for (const u of f.usable) {
+      parts.set(u.vendorPartId, u);
+      perHousePart.set(u.housePartId, (perHousePart.get(u.housePartId) ?? 0) + 1);
+    }
+    const perPackage = new Map<string, number>();
+    const perMaker = new Map<string, number>();
+    for (const p of parts.values()) {
+      if (p.package !== null) perPackage.set(p.package, (perPackage.get(p.package) ?? 0) + 1);
+      perMaker.set(p.manufacturer, (perMaker.get(p.manufacturer) ?? 0) + 1);
+    }
     return {
-      packages: merge(f.packages, f.clearedPackages),
-      manufacturers: merge(f.manufacturers, f.clearedManufacturers),
-      houseParts: f.houseParts.map((h) => ({ id: h.id, partNumber: h.partNumber, description: h.description, status: h.status, cleared: Number(h.n) })),
-      clearedParts: f.clearedParts,
+      packages: f.packages.map((p) => ({ value: p.value, cleared: perPackage.get(p.value) ?? 0, total: Number(p.n) })),
+      manufacturers: f.manufacturers.map((m) => ({ value: m.value, cleared: perMaker.get(m.value) ?? 0, total: Number(m.n) })),
+      houseParts: f.houseParts.map((h) => ({ ...h, cleared: perHousePart.get(h.id) ?? 0 })),
+      clearedParts: parts.size,
       catalogueParts: f.catalogueParts,
     };
   }

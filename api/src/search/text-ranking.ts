@@ -11,7 +11,7 @@ export interface TextRecord {
   descriptions: string[];
 }
 
-interface IndexedRecord extends TextRecord {
+interface IndexedRecord extends Omit<TextRecord, 'houseParts'> {
   /** The part number without separators, so "bzx84c5v1" finds "BZX84-C5V1". */
   mpnCompact: string;
   housePartsCompact: string[];
@@ -23,14 +23,13 @@ export interface RankedMatch {
   score: number;
 }
 
+// Part numbers are matched without separators on both sides; names and descriptions as written.
 const KEYS = [
-  { name: 'mpn', weight: 3 },
-  { name: 'mpnCompact', weight: 3 },
-  { name: 'houseParts', weight: 2 },
-  { name: 'housePartsCompact', weight: 2 },
-  { name: 'manufacturer', weight: 1 },
-  { name: 'descriptions', weight: 1 },
-  { name: 'package', weight: 0.5 },
+  { name: 'mpnCompact', weight: 3, compact: true },
+  { name: 'housePartsCompact', weight: 2, compact: true },
+  { name: 'manufacturer', weight: 1, compact: false },
+  { name: 'descriptions', weight: 1, compact: false },
+  { name: 'package', weight: 0.5, compact: false },
 ] as const;
 
 const OPTIONS: IFuseOptions<IndexedRecord> = {
@@ -64,15 +63,19 @@ export function textTokens(text: string): string[] {
 export function rankByText(records: readonly TextRecord[], text: string): RankedMatch[] {
   const tokens = textTokens(text);
   if (tokens.length === 0) return records.map((r) => ({ id: r.id, score: 0 }));
+  // Plain literals, not spreads: one object shape for every record (RECIPES: spreads were 25× slower in hot loops).
   const indexed: IndexedRecord[] = records.map((r) => ({
-    ...r,
+    id: r.id,
+    mpn: r.mpn,
+    manufacturer: r.manufacturer,
+    package: r.package,
+    descriptions: r.descriptions,
     mpnCompact: compact(r.mpn),
     housePartsCompact: r.houseParts.map(compact),
   }));
   const fuse = new Fuse(indexed, OPTIONS);
   // A logical query, not fuse's extended syntax: a typed "'" or "!" is then just a character.
-  const query: string | Expression =
-    tokens.length === 1 ? tokens[0] : { $and: tokens.map((t) => ({ $or: KEYS.map((k) => ({ [k.name]: t })) })) };
+  const query: Expression = { $and: tokens.map((t) => ({ $or: KEYS.map((k) => ({ [k.name]: k.compact ? compact(t) || t : t })) })) };
   const results = fuse.search(query);
   return results.map((r) => ({ id: r.item.id, score: r.score ?? 0 }));
 }
