@@ -63,7 +63,9 @@ export function CompareView({ housePartId, renderSourceAction }: { housePartId: 
             <Anchor component={Link} to={`/house-parts/${payload.housePart.id}`} fz="sm">
               {payload.housePart.partNumber}
             </Anchor>{' '}
-            {payload.housePart.description} · <EnvelopeLine payload={payload} />
+            {payload.housePart.description}
+            <br />
+            <EnvelopeLine payload={payload} />
           </>
         }
         actions={

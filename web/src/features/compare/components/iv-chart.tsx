@@ -123,7 +123,7 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
         ) : (
           <Box h={380} data-testid="iv-chart">
             <ResponsiveContainer width="100%" height="100%">
-              <LineChart data={rows} margin={{ top: 8, right: 16, bottom: 20, left: 8 }}>
+              <LineChart data={rows} margin={{ top: 20, right: 16, bottom: 20, left: 8 }}>
                 <CartesianGrid strokeDasharray="3 3" stroke="var(--mantine-color-default-border)" />
                 <XAxis
                   dataKey="current"

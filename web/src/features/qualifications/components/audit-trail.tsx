@@ -47,7 +47,7 @@ export function AuditTrail({ entries }: { entries: readonly AuditEntry[] }) {
         </Title>
         <Timeline bulletSize={12} lineWidth={2} active={entries.length - 1}>
           {entries.map((e) => {
-            // The state change is shown as badges; the rest of the changes as plain lines.
+            // The state change is shown as a badge; the rest as plain lines (a value recorded for the first time without an arrow).
             const others = e.changes.filter((c) => c.field !== 'state');
             return (
               <Timeline.Item
@@ -71,7 +71,7 @@ export function AuditTrail({ entries }: { entries: readonly AuditEntry[] }) {
                 )}
                 {others.length > 0 && (
                   <Text fz="xs" c="dimmed">
-                    {others.map((c) => `${FIELD_LABEL[c.field] ?? c.field}: ${show(c.from)} → ${show(c.to)}`).join(' · ')}
+                    {others.map((c) => `${FIELD_LABEL[c.field] ?? c.field}: ${c.from === null ? show(c.to) : `${show(c.from)} → ${show(c.to)}`}`).join(' · ')}
                   </Text>
                 )}
               </Timeline.Item>

@@ -7,6 +7,7 @@ export function sourcesSearch(params: SourcesParams): string {
   const search = new URLSearchParams();
   if (params.q) search.set('q', params.q);
   if (params.mine) search.set('mine', 'true');
+  if (params.housePartId) search.set('housePartId', String(params.housePartId));
   const text = search.toString();
   return text ? `?${text}` : '';
 }

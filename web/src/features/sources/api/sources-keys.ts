@@ -2,6 +2,8 @@ export interface SourcesParams {
   q?: string;
   /** Only the house parts the signed-in buyer follows. */
   mine?: boolean;
+  /** One house part only (the link in a buyer's mail). */
+  housePartId?: number;
 }
 
 export const sourcesKeys = {

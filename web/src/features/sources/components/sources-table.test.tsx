@@ -115,6 +115,18 @@ describe('Sources screen', () => {
     expect(await screen.findByText('No longer following OHI-ZD-1047')).toBeInTheDocument();
   });
 
+  it("opens on the one house part a buyer's mail links to, and offers to show all", async () => {
+    signInAs('buyer');
+    const calls = api();
+    const { user } = renderApp('/sources?housePartId=4');
+    await screen.findByText('QHZ4V7A');
+    const urls = () => calls.fetch.mock.calls.map(([i]) => String(i)).filter((u) => u.startsWith('/api/qualifications/sources'));
+    expect(urls()).toContain('/api/qualifications/sources?housePartId=4');
+    await user.click(screen.getByRole('button', { name: 'Showing one house part — show all' }));
+    await waitFor(() => expect(urls().at(-1)).toBe('/api/qualifications/sources?mine=true'));
+    expect(screen.getByRole('radio', { name: 'House parts I follow' })).toBeChecked();
+  });
+
   it('shows engineers every house part with links to the catalogue and the case', async () => {
     signInAs('engineer');
     const calls = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/sources': { body: VIEW } });

@@ -3,7 +3,7 @@ import { Alert, Anchor, Badge, Button, Center, Group, Loader, Paper, SegmentedCo
 import { useDebouncedValue } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconBell, IconBellOff, IconDownload, IconSearch } from '@tabler/icons-react';
-import { Link } from 'react-router';
+import { Link, useSearchParams } from 'react-router';
 import { stateLabel, QualificationStateBadge } from '@/components/qualification-state-badge';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
@@ -23,10 +23,22 @@ export function SourcesTable() {
   const buyer = role === 'buyer';
   // Engineers and admins may open the catalogue and the cases; buyers read names only.
   const linked = role === 'engineer' || role === 'admin';
+  const [search, setSearch] = useSearchParams();
+  // The mail's link names one house part; that view shows it whether followed or not.
+  const only = Number(search.get('housePartId')) || undefined;
   const [scope, setScope] = useState<'mine' | 'all'>(buyer ? 'mine' : 'all');
-  const [qText, setQText] = useState('');
+  const [qText, setQText] = useState(search.get('q') ?? '');
   const [q] = useDebouncedValue(qText.trim(), 250);
-  const params = { q: q || undefined, mine: scope === 'mine' ? true : undefined };
+  const params = only ? { housePartId: only } : { q: q || undefined, mine: scope === 'mine' ? true : undefined };
+  const showAll = () =>
+    setSearch(
+      (prev) => {
+        const next = new URLSearchParams(prev);
+        next.delete('housePartId');
+        return next;
+      },
+      { replace: true },
+    );
   const view = useSourcesView(params);
   const followed = useFollowed(buyer);
   const follow = useSetFollowing();
@@ -61,8 +73,24 @@ export function SourcesTable() {
       <Paper p="xs">
         <Group justify="space-between" align="flex-end" wrap="wrap" gap="sm">
           <Group gap="sm" align="flex-end" role="search" aria-label="Filter sources">
-            <TextInput size="xs" w={240} label="House part" placeholder="number or description" leftSection={<IconSearch size={14} />} value={qText} onChange={(e) => setQText(e.currentTarget.value)} />
-            {buyer && (
+            <TextInput
+              size="xs"
+              w={240}
+              label="House part"
+              placeholder="number or description"
+              leftSection={<IconSearch size={14} />}
+              value={qText}
+              onChange={(e) => {
+                setQText(e.currentTarget.value);
+                if (only) showAll();
+              }}
+            />
+            {only && (
+              <Button size="xs" variant="light" onClick={showAll}>
+                Showing one house part — show all
+              </Button>
+            )}
+            {buyer && !only && (
               <SegmentedControl
                 size="xs"
                 value={scope}
