@@ -1,6 +1,10 @@
-import { ScreenNotBuilt } from '@/components/screen-not-built';
+import { mayUse, screenByKey } from '@/app/navigation';
+import { FindPartsScreen } from '@/features/find-parts/components/find-parts-screen';
+import { useSession } from '@/lib/session';
 
-// TODO: replaced by the Find parts screen when its issue is built.
 export function FindPartsRoute() {
-  return <ScreenNotBuilt title="Find parts" purpose="Search cleared parts and check one against your circuit." />;
+  const session = useSession();
+  // Links into the catalogue only for roles that may open those screens (designers may not).
+  const linkCatalogue = session !== null && mayUse(session.user.role, screenByKey('vendor-parts'));
+  return <FindPartsScreen linkCatalogue={linkCatalogue} />;
 }

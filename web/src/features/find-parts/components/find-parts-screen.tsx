@@ -1,0 +1,169 @@
+import { useCallback, useMemo, useRef, useState } from 'react';
+import { Alert, CloseButton, Grid, Group, Loader, Paper, Stack, Tabs, Text, Title } from '@mantine/core';
+import { IconInfoCircle } from '@tabler/icons-react';
+import type { SearchItem } from '@shuntwise/contracts';
+import { useSearchParams } from 'react-router';
+import { PageHeader } from '@/components/page-header';
+import { describeError } from '@/lib/api-client';
+import { useCircuitChecks } from '../api/check-circuit';
+import { useSearchParts } from '../api/search-parts';
+import { regulatorRequest, type CircuitRequest } from '../utils/circuit';
+import { DEFAULT_PAGE_SIZE, searchParamsFromUrl } from '../utils/search-state';
+import { CircuitComparison } from './circuit-comparison';
+import { CircuitForm } from './circuit-form';
+import { CircuitResult } from './circuit-result';
+import { MAX_COMPARED, ResultsTable } from './results-table';
+import { SearchFilters, type FilterChanges } from './search-filters';
+
+export interface FindPartsScreenProps {
+  /** Engineers and admins may open the catalogue's pages from here. */
+  linkCatalogue: boolean;
+}
+
+/**
+ * Find parts: the parts a designer may design in, found by filters and text, and for one
+ * to three of them the series-regulator check against the designer's own circuit.
+ */
+export function FindPartsScreen({ linkCatalogue }: FindPartsScreenProps) {
+  const [search, setSearch] = useSearchParams();
+  const params = useMemo(() => searchParamsFromUrl(search), [search]);
+  const results = useSearchParts(params);
+  const [chosen, setChosen] = useState<SearchItem[]>([]);
+  const [active, setActive] = useState<string | null>(null);
+  const [circuit, setCircuit] = useState<CircuitRequest | null>(null);
+  const checkRef = useRef<HTMLDivElement>(null);
+
+  const setParams = useCallback(
+    (changes: FilterChanges, resetPage = true) =>
+      setSearch(
+        (prev) => {
+          const next = new URLSearchParams(prev);
+          for (const [k, v] of Object.entries(changes)) {
+            if (v === undefined || v === null || v === '' || v === false) next.delete(k);
+            else next.set(k, String(v));
+          }
+          if (resetPage) next.delete('page');
+          return next;
+        },
+        { replace: true },
+      ),
+    [setSearch],
+  );
+
+  const requests = useMemo(() => (circuit ? chosen.map((c) => regulatorRequest(circuit, c.card!)) : []), [circuit, chosen]);
+  const checks = useCircuitChecks(requests);
+  const compared = chosen.map((item, i) => ({ item, result: checks[i]?.data, error: checks[i]?.error ? describeError(checks[i].error) : null }));
+
+  const toggle = (item: SearchItem) => {
+    setChosen((list) => {
+      if (list.some((c) => c.vendorPart.id === item.vendorPart.id)) return list.filter((c) => c.vendorPart.id !== item.vendorPart.id);
+      return list.length >= MAX_COMPARED ? list : [...list, item];
+    });
+  };
+  const checkOne = (item: SearchItem) => {
+    setChosen((list) => (list.some((c) => c.vendorPart.id === item.vendorPart.id) ? list : [item]));
+    setActive(String(item.vendorPart.id));
+    requestAnimationFrame(() => checkRef.current?.scrollIntoView({ behavior: 'smooth', block: 'start' }));
+  };
+  const activeId = active && chosen.some((c) => String(c.vendorPart.id) === active) ? active : chosen[0] ? String(chosen[0].vendorPart.id) : null;
+
+  return (
+    <>
+      <PageHeader
+        title="Find parts"
+        description="Parts you may design in: approved sources and alternates a second engineer cleared. Choose one, or up to three to compare, and check them in your circuit."
+      />
+      <SearchFilters params={params} onChange={setParams} />
+      <ResultsTable
+        page={results.data}
+        loading={results.isPending}
+        fetching={results.isFetching}
+        error={results.error}
+        sort={params.sort}
+        onSort={(sort) => setParams({ sort: sort === 'relevance' ? undefined : sort })}
+        onPage={(pageIndex, pageSize) => setParams({ page: pageIndex || undefined, size: pageSize === DEFAULT_PAGE_SIZE ? undefined : pageSize }, false)}
+        chosenIds={chosen.map((c) => c.vendorPart.id)}
+        onToggleChosen={toggle}
+        onCheck={checkOne}
+        linkCatalogue={linkCatalogue}
+        includeNotCleared={params.includeNotCleared ?? false}
+      />
+
+      <Paper ref={checkRef} p="md" aria-labelledby="circuit-check-title" style={{ scrollMarginTop: 64 }}>
+        <Group justify="space-between" mb="sm" wrap="wrap">
+          <Title order={3} fz="h4" id="circuit-check-title">
+            Circuit check
+          </Title>
+          <Group gap="xs">
+            {chosen.map((c) => (
+              <Group key={c.vendorPart.id} gap={2} px={8} py={2} style={{ border: '1px solid var(--mantine-color-default-border)', borderRadius: 4 }}>
+                <Text fz="sm" fw={500}>
+                  {c.vendorPart.mpn}
+                </Text>
+                {!c.cleared && (
+                  <Text fz="xs" c="orange.7">
+                    not cleared
+                  </Text>
+                )}
+                <CloseButton size="xs" aria-label={`Remove ${c.vendorPart.mpn} from the check`} onClick={() => toggle(c)} />
+              </Group>
+            ))}
+          </Group>
+        </Group>
+        <Text fz="sm" c="dimmed" mb="md">
+          Supply → series resistor → diode in parallel with the load. The engineering core finds the resistor range that keeps the diode above its knee at the lowest supply
+          and largest load and within its derated power at the highest supply and smallest load, picks the nearest standard value inside it, and solves every corner.
+        </Text>
+        <Grid gutter="lg">
+          <Grid.Col span={{ base: 12, md: 4 }}>
+            <CircuitForm onSubmit={(c) => setCircuit(c)} busy={checks.some((q) => q.isFetching)} partCount={chosen.length} />
+          </Grid.Col>
+          <Grid.Col span={{ base: 12, md: 8 }}>
+            {chosen.length === 0 && (
+              <Alert color="gray" icon={<IconInfoCircle size={16} />} title="No part chosen yet">
+                Press Check on a result, or tick up to three to compare them in the same circuit.
+              </Alert>
+            )}
+            {chosen.length > 0 && !circuit && (
+              <Alert color="gray" icon={<IconInfoCircle size={16} />} title="Describe your circuit">
+                Enter the supply range, the load current and the ambient, then press {chosen.length > 1 ? `Check ${chosen.length} parts` : 'Check circuit'}.
+              </Alert>
+            )}
+            {chosen.some((c) => !c.cleared) && circuit && (
+              <Alert color="orange" mb="sm" title="Not cleared for new designs">
+                {chosen.filter((c) => !c.cleared).map((c) => c.vendorPart.mpn).join(', ')} {chosen.filter((c) => !c.cleared).length > 1 ? 'are' : 'is'} not cleared: the check shows how it would behave, but a component engineer must qualify it before it is designed in.
+              </Alert>
+            )}
+            {circuit && chosen.length > 0 && (
+              <Stack gap="md">
+                {chosen.length > 1 && <CircuitComparison parts={compared} />}
+                <Tabs value={activeId} onChange={setActive} keepMounted={false}>
+                  {chosen.length > 1 && (
+                    <Tabs.List mb="sm">
+                      {chosen.map((c) => (
+                        <Tabs.Tab key={c.vendorPart.id} value={String(c.vendorPart.id)}>
+                          {c.vendorPart.mpn}
+                        </Tabs.Tab>
+                      ))}
+                    </Tabs.List>
+                  )}
+                  {compared.map(({ item, result, error }) => (
+                    <Tabs.Panel key={item.vendorPart.id} value={String(item.vendorPart.id)}>
+                      {error && (
+                        <Alert color="red" role="alert" title="The engineering core refused the check">
+                          {error}
+                        </Alert>
+                      )}
+                      {!result && !error && <Loader size="sm" aria-label="Checking" />}
+                      {result && <CircuitResult result={result} circuit={circuit} card={item.card!} mpn={item.vendorPart.mpn} />}
+                    </Tabs.Panel>
+                  ))}
+                </Tabs>
+              </Stack>
+            )}
+          </Grid.Col>
+        </Grid>
+      </Paper>
+    </>
+  );
+}

@@ -1,0 +1,49 @@
+import { regulatorRequestSchema } from '@shuntwise/contracts';
+import { describe, expect, it } from 'vitest';
+import { regulatorAnswer, searchItem } from '../testing/fixtures';
+import { EMPTY_CIRCUIT, regulatorRequest, simpleFinding, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
+
+const filled: CircuitValues = { ...EMPTY_CIRCUIT, supplyMin: 10.8, supplyNom: 12, supplyMax: 13.2, loadMin: 0, loadMax: 0.02 };
+
+describe('circuit form values', () => {
+  it('names every missing value, and one that does not read', () => {
+    expect(validateCircuit(EMPTY_CIRCUIT)).toEqual({
+      supplyMin: 'Enter the lowest supply voltage',
+      supplyMax: 'Enter the highest supply voltage',
+      loadMax: 'Enter the largest load current',
+    });
+    expect(validateCircuit({ ...filled, loadMax: NaN }).loadMax).toMatch(/Does not read/);
+    expect(toCircuit({ ...filled, loadMax: NaN })).toBeNull();
+  });
+
+  it("applies the contract's own rules with its wording (min above max)", () => {
+    expect(validateCircuit({ ...filled, supplyMin: 14 })).toMatchObject({ supplyMin: 'supply.min (14 V) is above supply.max (13.2 V)' });
+    expect(validateCircuit({ ...filled, supplyNom: 20 })).toMatchObject({ supplyNom: 'supply.nom (20 V) lies outside 10.8…13.2 V' });
+    expect(validateCircuit({ ...filled, ambientMin: 90 })).toMatchObject({ ambientMin: expect.stringMatching(/ambient.min/) });
+    expect(validateCircuit(filled)).toEqual({});
+  });
+
+  it('builds a request the API schema accepts, with the card fields the core reads and nothing else', () => {
+    const request = regulatorRequest(toCircuit(filled)!, searchItem(1, 'BRZ05-5V1').card!);
+    expect(() => regulatorRequestSchema.parse(request)).not.toThrow();
+    expect(request).toMatchObject({ supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.02 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } });
+    expect(Object.keys(request.card)).not.toContain('tolerance');
+    expect(toCircuit({ ...filled, supplyNom: null })!.supply).toEqual({ min: 10.8, max: 13.2 });
+  });
+
+  it('fills the supply range from a nominal and a ± fraction (12 V ± 10 % is 10.8 V … 13.2 V; arithmetic)', () => {
+    expect(supplyAround(12, 0.1)).toEqual({ min: 10.8, max: 13.2 });
+    expect(supplyAround(24, 0.05)).toEqual({ min: 22.8, max: 25.2 });
+  });
+});
+
+describe('what the simple formula would do', () => {
+  it('places its resistor against the working range: above it the knee is lost, below it the power', () => {
+    expect(simpleFinding(regulatorAnswer()).verdict).toBe('too-high');
+    expect(simpleFinding(regulatorAnswer()).message).toMatch(/276 Ω is above the largest working value 244 Ω/);
+    expect(simpleFinding(regulatorAnswer({ simple: { ...regulatorAnswer().simple, resistance: 120 } })).verdict).toBe('too-low');
+    expect(simpleFinding(regulatorAnswer({ simple: { ...regulatorAnswer().simple, resistance: 200 } })).verdict).toBe('inside');
+    expect(simpleFinding(regulatorAnswer({ range: { ...regulatorAnswer().range, min: 300 } })).verdict).toBe('no-range');
+    expect(simpleFinding(regulatorAnswer({ simple: { ...regulatorAnswer().simple, resistance: null } })).verdict).toBe('none');
+  });
+});
