@@ -65,11 +65,13 @@ describe('Board screen', () => {
     const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE } });
     const { user } = renderApp('/board');
     await user.click(await screen.findByRole('button', { name: 'Cleared: 1' }));
-    await waitFor(() => expect(boardUrls(api.fetch).at(-1)).toContain('state=cleared'));
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared'));
     expect(currentLocation()).toBe('/board?state=cleared');
+    // The tallies are asked for without the state filter, so the other states keep their numbers.
+    expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=1');
+    expect(screen.getByRole('button', { name: 'Cleared: 1' })).toHaveAttribute('aria-pressed', 'true');
     await user.type(screen.getByLabelText('Unchanged for at least'), '30');
-    await waitFor(() => expect(boardUrls(api.fetch).at(-1)).toContain('minAgeDays=30'));
-    expect(boardUrls(api.fetch).at(-1)).toContain('state=cleared');
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?minAgeDays=30&pageIndex=0&pageSize=25&state=cleared'));
   });
 
   it('opens a case for a source and goes to it', async () => {

@@ -80,15 +80,15 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
     if ((search.get('q') ?? '') !== q) set({ q });
   }, [q, search, set]);
 
-  const board = useBoard({
-    pageIndex: page,
-    pageSize: PAGE_SIZE,
+  const common = {
     q: search.get('q') || undefined,
-    state: states.join(',') || undefined,
     engineerId: engineer ? Number(engineer) : undefined,
     minAgeDays: minAge ? Number(minAge) : undefined,
     needsRecheck: recheck ? true : undefined,
-  });
+  };
+  const board = useBoard({ ...common, pageIndex: page, pageSize: PAGE_SIZE, state: states.join(',') || undefined });
+  // The tallies ignore the state filter, so a state left out still shows how many it has.
+  const tallies = useBoard({ ...common, pageIndex: 0, pageSize: 1 });
 
   // Engineers to filter by: everyone seen preparing or deciding a case so far, and the viewer.
   const [engineers, setEngineers] = useState<ReadonlyMap<number, string>>(new Map());
@@ -121,7 +121,7 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
     set({ state: next.join(',') });
   };
 
-  const counts = board.data?.counts;
+  const counts = (states.length > 0 ? tallies.data : board.data)?.counts;
   const filtered = states.length > 0 || engineer || minAge || recheck || q;
   const pages = board.data ? Math.max(1, Math.ceil(board.data.total / PAGE_SIZE)) : 1;
 
@@ -155,6 +155,16 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
               onChange={(v) => set({ minAge: v === '' ? null : String(v) })}
             />
             <Checkbox size="xs" label="Needs re-check" checked={recheck} onChange={(e) => set({ recheck: e.currentTarget.checked ? '1' : null })} />
+          </Group>
+          <Group gap={6} aria-label="Sources by state">
+            {counts &&
+              BOARD_STATES.map((s) => (
+                <UnstyledButton key={s} onClick={() => toggleState(s)} aria-pressed={states.includes(s)} aria-label={`${stateLabel(s)}: ${counts[s] ?? 0}`}>
+                  <Badge size="md" color={stateColor(s)} variant={states.includes(s) ? 'filled' : 'light'} style={{ cursor: 'pointer' }}>
+                    {stateLabel(s)} {counts[s] ?? 0}
+                  </Badge>
+                </UnstyledButton>
+              ))}
             {filtered && (
               <Button
                 size="compact-xs"
@@ -169,17 +179,6 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
               </Button>
             )}
           </Group>
-          {counts && (
-            <Group gap={6} aria-label="Sources by state">
-              {BOARD_STATES.map((s) => (
-                <UnstyledButton key={s} onClick={() => toggleState(s)} aria-pressed={states.includes(s)} aria-label={`${stateLabel(s)}: ${counts[s] ?? 0}`}>
-                  <Badge size="md" color={stateColor(s)} variant={states.includes(s) ? 'filled' : 'light'} style={{ cursor: 'pointer' }}>
-                    {stateLabel(s)} {counts[s] ?? 0}
-                  </Badge>
-                </UnstyledButton>
-              ))}
-            </Group>
-          )}
         </Stack>
       </Paper>
 
