@@ -14,7 +14,7 @@ export function RecheckFlag({ q }: { q: Qualification }) {
   if (!q.needsRecheck) return null;
   const open = isOpenState(q.state);
   return (
-    <Alert color="orange" icon={<IconRefreshAlert size={18} />} title="Needs a re-check" role="status">
+    <Alert color="orange" icon={<IconRefreshAlert size={18} />} title="Needs a re-check">
       <Text fz="sm">
         {open
           ? 'The catalogue changed after this case was evaluated. Evaluate it again (in draft) before it is decided.'

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { LoginResponse, Qualification } from '@shuntwise/contracts';
 import { setSession } from '@/lib/session';
 import { errorBody, mockApi } from '@/testing/mock-api';
-import { DEMO_USERS, renderApp, signInAs } from '@/testing/render';
+import { DEMO_USERS, currentLocation, renderApp, signInAs } from '@/testing/render';
 import { caseFixture } from '../testing/case-fixture';
 
 // Two engineers as in the demo: the preparer (id 2) and a second engineer who decides (id 3).
@@ -115,6 +115,36 @@ describe('sign-off panel', () => {
     });
     // The answer is the case as it is now: decided, with the next actions.
     expect(await actions()).toEqual(['Revoke', 'Open a re-check']);
+  });
+
+  it('opens a re-check of a flagged decision and goes to the new revision, linked to the old one', async () => {
+    signIn(REVIEWER);
+    const flagged = caseFixture({
+      state: 'cleared',
+      needsRecheck: true,
+      recheckReasons: [{ cause: 'card-changed', at: '2026-12-01T08:00:00.000Z', detail: 'rating card version 2 (changed: zzk)' }],
+      current: { specVersion: 1, cardVersion: 2 },
+      allowedActions: ['revoke', 'recheck'],
+    });
+    const next = caseFixture({ id: 15, revision: 2, previousId: 7, state: 'draft', cardVersion: 2, current: { specVersion: 1, cardVersion: 2 }, allowedActions: ['evaluate', 'submit', 'withdraw'] });
+    const api = mockApi({
+      'GET /api/auth/me': { body: REVIEWER },
+      'GET /api/qualifications/:id': (_call, { id }) => ({ body: id === '15' ? next : flagged }),
+      'POST /api/qualifications/:id/recheck': { status: 201, body: next },
+    });
+    const { user } = renderApp('/qualifications/7');
+    const flag = (await screen.findByText('Needs a re-check')).closest<HTMLElement>('[role="alert"]')!;
+    expect(flag).toHaveTextContent('Needs a re-check');
+    expect(flag).toHaveTextContent('the rating card changed — rating card version 2 (changed: zzk)');
+    await user.click(screen.getByRole('button', { name: 'Open a re-check' }));
+    const dialog = await screen.findByRole('dialog');
+    expect(dialog).toHaveTextContent('Opens revision 2');
+    await user.click(within(dialog).getByRole('button', { name: 'Open a re-check' }));
+    await waitFor(() => expect(currentLocation()).toBe('/qualifications/15'));
+    // A re-check sends no version: it never changes the decided case, it opens a new one.
+    expect(api.callsTo('POST', '/api/qualifications/7/recheck')[0].body).toEqual({ note: null });
+    expect(await screen.findByRole('link', { name: '← previous: case #7' })).toHaveAttribute('href', '/qualifications/7');
+    expect(screen.getByText('Revision 2')).toBeInTheDocument();
   });
 
   it('needs a reason to revoke a clearance', async () => {
