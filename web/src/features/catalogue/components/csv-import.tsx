@@ -137,9 +137,12 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
 
       {result && (
         <Alert color="verdigris" title="Imported" data-testid="csv-result">
-          {result.created} new vendor parts, {result.cardsAdded} cards added, {result.unchanged} unchanged.
+          {result.created} new vendor parts with their cards, {result.cardsAdded} cards added to parts that had none, {result.unchanged} unchanged.
           {result.conflicts.length > 0 && ` ${result.conflicts.length} rows left alone because the part has a different card.`}
           <Group gap="xs" mt={4}>
+            <Text span fz="xs">
+              Open:
+            </Text>
             {result.vendorPartIds.slice(0, 20).map((id) => (
               <Anchor key={id} component={Link} to={`/vendor-parts/${id}`} fz="xs">
                 #{id}

@@ -275,7 +275,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
                 History
               </Button>
               {!readOnly && (
-                <Button size="xs" leftSection={<IconDeviceFloppy size={14} />} onClick={() => save()} loading={put.isPending} disabled={!dirty && baseVersion > 0} title="Save (Ctrl+S)">
+                <Button size="xs" leftSection={<IconDeviceFloppy size={14} />} onClick={() => save()} loading={put.isPending} disabled={!dirty} title="Save (Ctrl+S)">
                   Save card
                 </Button>
               )}
@@ -395,7 +395,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
                 maxLength={500}
                 onChange={(e) => setNote(e.currentTarget.value)}
               />
-              <Button size="xs" onClick={() => save()} loading={put.isPending} disabled={!dirty && baseVersion > 0}>
+              <Button size="xs" onClick={() => save()} loading={put.isPending} disabled={!dirty}>
                 Save card
               </Button>
             </Group>
