@@ -11,11 +11,11 @@ import { useImportVendorSeries, usePreviewVendorSeries } from '../api/import-ven
 // Mantine's list items do not wrap (white-space: nowrap); these are sentences.
 const WRAPPING_LIST = { item: { whiteSpace: 'normal' as const }, itemWrapper: { display: 'inline' } };
 
-const ACTION: Record<CsvRowAction, { label: string; color: string }> = {
-  create: { label: 'new part + card', color: 'verdigris' },
-  'add-card': { label: 'adds a card', color: 'copper' },
-  unchanged: { label: 'unchanged', color: 'gray' },
-  conflict: { label: 'has another card: left alone', color: 'yellow' },
+const ACTION: Record<CsvRowAction, { label: string; title: string; color: string }> = {
+  create: { label: 'new', title: 'a new vendor part with its card', color: 'verdigris' },
+  'add-card': { label: 'adds card', title: 'the part exists without a card: the card is added', color: 'copper' },
+  unchanged: { label: 'unchanged', title: 'the part already has this very card', color: 'gray' },
+  conflict: { label: 'left alone', title: 'the part has a different card, which an import never overwrites', color: 'yellow' },
 };
 
 const EXAMPLE = `manufacturer,mpn,package,vzNom (V),izt (mA),zzt (ohm),izk (mA),zzk (ohm),irMax (uA),vr (V),tc (mV/K),pdMax (mW)`;
@@ -114,7 +114,9 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
               loading={confirm.isPending}
               disabled={!shown || stale || shown.summary.withErrors > 0 || writable === 0 || result !== null}
             >
-              Import {writable} row{writable === 1 ? '' : 's'}
+              {shown && shown.summary.withErrors > 0
+                ? `Import (fix ${shown.summary.withErrors} row${shown.summary.withErrors === 1 ? '' : 's'} first)`
+                : `Import ${writable} row${writable === 1 ? '' : 's'}`}
             </Button>
           </Group>
           {preview.isError && (
@@ -207,7 +209,7 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
                     <Table.Td>{row.package ?? '–'}</Table.Td>
                     <Table.Td>
                       {row.action && (
-                        <Badge size="xs" color={ACTION[row.action].color}>
+                        <Badge size="xs" color={ACTION[row.action].color} title={ACTION[row.action].title}>
                           {ACTION[row.action].label}
                         </Badge>
                       )}

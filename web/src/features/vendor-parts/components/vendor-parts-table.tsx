@@ -11,7 +11,7 @@ import { Quantity } from '@/components/quantity';
 import { QuantityInput } from '@/components/quantity-input';
 import { describeError } from '@/lib/api-client';
 import { denseTableOptions } from '@/lib/data-table';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime, formatShortDate } from '@/lib/format-date';
 import { useManufacturers } from '../api/get-manufacturers';
 import { useVendorParts } from '../api/get-vendor-parts';
 import type { VendorPartListParams } from '../api/vendor-part-keys';
@@ -155,12 +155,16 @@ export function VendorPartsTable() {
         header: 'Lifecycle',
         enableSorting: false,
         Cell: ({ row }) => (
-          <Text fz="sm" maw={260} truncate title={row.original.lifecycleNote ?? undefined}>
+          <Text fz="sm" maw={200} truncate title={row.original.lifecycleNote ?? undefined}>
             {row.original.lifecycleNote ?? ''}
           </Text>
         ),
       },
-      { accessorKey: 'updatedAt', header: 'Updated', Cell: ({ row }) => formatDateTime(row.original.updatedAt) },
+      {
+        accessorKey: 'updatedAt',
+        header: 'Updated',
+        Cell: ({ row }) => <span title={formatDateTime(row.original.updatedAt)}>{formatShortDate(row.original.updatedAt)}</span>,
+      },
     ],
     [],
   );
