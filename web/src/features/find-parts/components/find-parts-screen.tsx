@@ -33,20 +33,30 @@ export function FindPartsScreen({ linkCatalogue }: FindPartsScreenProps) {
   const [circuit, setCircuit] = useState<CircuitRequest | null>(null);
   const checkRef = useRef<HTMLDivElement>(null);
 
+  // The address the last change produced. react-router's functional update starts from the
+  // search params of the last render, so two changes before a re-render (a debounced filter
+  // landing right after a click) would drop the first; changes start from this instead.
+  const latest = useRef(search.toString());
+  const produced = useRef(new Set<string>());
+  const rendered = search.toString();
+  if (rendered === latest.current) produced.current.clear();
+  else if (!produced.current.has(rendered)) {
+    // Changed from outside (a link, the navigation): that is the base now.
+    latest.current = rendered;
+    produced.current.clear();
+  }
   const setParams = useCallback(
-    (changes: FilterChanges, resetPage = true) =>
-      setSearch(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          for (const [k, v] of Object.entries(changes)) {
-            if (v === undefined || v === null || v === '' || v === false) next.delete(k);
-            else next.set(k, String(v));
-          }
-          if (resetPage) next.delete('page');
-          return next;
-        },
-        { replace: true },
-      ),
+    (changes: FilterChanges, resetPage = true) => {
+      const next = new URLSearchParams(latest.current);
+      for (const [k, v] of Object.entries(changes)) {
+        if (v === undefined || v === null || v === '' || v === false) next.delete(k);
+        else next.set(k, String(v));
+      }
+      if (resetPage) next.delete('page');
+      latest.current = next.toString();
+      produced.current.add(latest.current);
+      setSearch(next, { replace: true });
+    },
     [setSearch],
   );
 

@@ -7,7 +7,7 @@ import { Link } from 'react-router';
 import { Quantity } from '@/components/quantity';
 import { describeError } from '@/lib/api-client';
 import { downloadFile } from '@/lib/download';
-import { formatPercent } from '../utils/format';
+import { formatPercent, formatTempCo } from '../utils/format';
 import { PAGE_SIZES, SORT_CHOICES } from '../utils/search-state';
 import { ClearanceList } from './clearance-list';
 
@@ -35,7 +35,7 @@ function SortHeader({ field, sort, onSort, children, align = 'left' }: { field: 
   const desc = sort.startsWith('-');
   const Icon = !active ? IconArrowsSort : desc ? IconArrowDown : IconArrowUp;
   return (
-    <Table.Th ta={align} aria-sort={active ? (desc ? 'descending' : 'ascending') : 'none'}>
+    <Table.Th ta={align} aria-sort={active ? (desc ? 'descending' : 'ascending') : 'none'} style={{ whiteSpace: 'nowrap' }}>
       <UnstyledButton onClick={() => onSort(active && !desc ? `-${field}` : field)} fz="sm" fw={600}>
         <Group gap={4} wrap="nowrap" justify={align === 'right' ? 'flex-end' : 'flex-start'}>
           {children}
@@ -120,7 +120,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
         </Alert>
       )}
       <Table.ScrollContainer minWidth={1000}>
-        <Table aria-label="Search results" withTableBorder={false} verticalSpacing={6} stickyHeader>
+        <Table aria-label="Search results" withTableBorder={false} verticalSpacing={6}>
           <Table.Thead>
             <Table.Tr>
               <Table.Th w={36}>
@@ -135,12 +135,12 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
               <SortHeader field="vzNom" sort={sort} onSort={onSort} align="right">
                 VZ min · nom · max
               </SortHeader>
-              <Table.Th ta="right">Tol.</Table.Th>
-              <Table.Th ta="right">ZZT</Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>Tol.</Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>ZZT</Table.Th>
               <SortHeader field="pdMax" sort={sort} onSort={onSort} align="right">
                 PD max
               </SortHeader>
-              <Table.Th ta="right">αVZ</Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>αVZ</Table.Th>
               <Table.Th>May be designed in</Table.Th>
               <Table.Th w={120} />
             </Table.Tr>
@@ -191,8 +191,8 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                       <Text fz="xs" c="dimmed">
                         {item.vendorPart.manufacturer}
                       </Text>
-                      {item.vendorPart.lifecycleNote && (
-                        <Text fz="xs" c="orange.7">
+                      {item.vendorPart.lifecycleNote && !/^active$/i.test(item.vendorPart.lifecycleNote) && (
+                        <Text fz="xs" c="orange.7" lineClamp={2} title={item.vendorPart.lifecycleNote}>
                           {item.vendorPart.lifecycleNote}
                         </Text>
                       )}
@@ -202,7 +202,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                   <Table.Td ta="right">
                     <VzCell item={item} />
                   </Table.Td>
-                  <Table.Td ta="right" fz="sm">
+                  <Table.Td ta="right" fz="sm" style={{ whiteSpace: 'nowrap' }}>
                     {item.card?.tolerance != null ? `±${formatPercent(item.card.tolerance, 2)}` : '–'}
                   </Table.Td>
                   <Table.Td ta="right" fz="sm">
@@ -212,7 +212,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                     <Quantity value={item.card?.pdMax} kind="power" />
                   </Table.Td>
                   <Table.Td ta="right" fz="sm">
-                    <Quantity value={item.card?.tcVoltsPerKelvin} kind="tempCoVoltage" />
+                    <span style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}>{formatTempCo(item.card?.tcVoltsPerKelvin)}</span>
                   </Table.Td>
                   <Table.Td maw={360}>
                     <ClearanceList item={item} linkHouseParts={linkCatalogue} />

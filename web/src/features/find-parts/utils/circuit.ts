@@ -7,6 +7,7 @@ import {
   type ResistorSeries,
   type SearchCard,
 } from '@shuntwise/contracts';
+import { formatTempCo } from './format';
 
 /** The circuit as the form holds it: SI numbers (null while empty, NaN while a field does not read). */
 export interface CircuitValues {
@@ -193,7 +194,7 @@ export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): stri
     `the smallest load (${formatQuantity(circuit.load.min, 'current')}), where all the current flows through the diode`,
   ];
   if (card.tolerance !== null) out.push(`the diode's tolerance of ±${(card.tolerance * 100).toPrecision(2)} % on VZ`);
-  if (card.tcVoltsPerKelvin !== null) out.push(`the drift of VZ with temperature (${formatQuantity(card.tcVoltsPerKelvin, 'tempCoVoltage')}) over ${circuit.ambient.min} … ${circuit.ambient.max} °C and self-heating`);
+  if (card.tcVoltsPerKelvin !== null) out.push(`the drift of VZ with temperature (${formatTempCo(card.tcVoltsPerKelvin)}) over ${circuit.ambient.min} … ${circuit.ambient.max} °C and self-heating`);
   out.push(`the resistor's own tolerance (±${Number((circuit.resistor.tolerance * 100).toPrecision(3))} %) and its standard values`);
   out.push(`the knee: the diode needs a minimum current to regulate`);
   out.push(`the diode's power rating, derated at the highest ambient`);
