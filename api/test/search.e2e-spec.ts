@@ -221,6 +221,14 @@ describe('search (real MariaDB, demo seed)', () => {
     expect((await t.http.get('/api/search').set(auth(await t.tokenFor('admin')))).status).toBe(200);
   });
 
+  it('publishes its parameters and answers at /api/docs', async () => {
+    const docs = (await t.http.get('/api/docs-json')).body;
+    expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['SearchPageDto', 'SearchFacetsDto']));
+    expect(docs.paths['/api/search'].get.parameters.map((p: { name: string }) => p.name)).toEqual(
+      expect.arrayContaining(['q', 'vzFrom', 'vzTo', 'vzWindow', 'package', 'pdMin', 'toleranceMax', 'manufacturer', 'housePartId', 'includeNotCleared', 'sort', 'pageIndex', 'pageSize']),
+    );
+  });
+
   it('offers facets with usable and catalogue counts', async () => {
     const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as {
       packages: Array<{ value: string; cleared: number; total: number }>;
