@@ -96,6 +96,19 @@ describe('Find parts in Chromium (demo seed)', () => {
     expect(headers.join(' ')).toContain('QHZ5V6A');
     expect(headers.join(' ')).toContain('BRZ05-5V6');
     await shot(page, 'find-parts-compare');
+
+    // A supply too wide for a 500 mW part: no resistor works, and the screen says why.
+    await page.getByRole('button', { name: 'Remove BRZ05-5V6 from the check' }).click();
+    await fill(form, 'Lowest', '9 V');
+    await fill(form, 'Nominal', '15 V');
+    await fill(form, 'Highest', '24 V');
+    await fill(form, 'Largest', '30 mA');
+    await form.getByRole('button', { name: 'Check circuit' }).click();
+    await expect.poll(() => check.getByTestId('verdict-alert').innerText()).toContain('No resistor works');
+    expect(await check.getByTestId('verdict-alert').innerText()).toMatch(/power limit needs at least \d+ Ω but the knee needs at most [\d.]+ Ω/);
+    expect(await check.getByTestId('chosen-resistor').innerText()).toBe('none');
+    expect(await check.getByTestId('resistor-range').innerText()).toMatch(/^none: power needs ≥/);
+    await shot(page, 'find-parts-no-resistor');
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -2,7 +2,7 @@ import { Table, Text } from '@mantine/core';
 import { formatQuantity, type RegulatorResponse, type SearchItem } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { Quantity } from '@/components/quantity';
-import { simpleFinding } from '../utils/circuit';
+import { describeRange, simpleFinding } from '../utils/circuit';
 import { formatPercent } from '../utils/format';
 import { formatLineRegulation, VerdictBadge } from './circuit-result';
 
@@ -49,7 +49,7 @@ export function CircuitComparison({ parts }: { parts: ComparedPart[] }) {
         <Table.Tbody>
           {row('Verdict', (p) => <VerdictBadge verdict={p.result.verdict} />)}
           {row('Chosen resistor', (p) => (p.result.selected ? `${formatQuantity(p.result.selected.resistance, 'resistance')} ${p.result.selected.series} ±${formatPercent(p.result.selected.tolerance)}` : 'none'))}
-          {row('Working range', (p) => `${p.result.range.min !== null ? formatQuantity(p.result.range.min, 'resistance') : '?'} … ${p.result.range.max !== null ? formatQuantity(p.result.range.max, 'resistance') : '?'}`)}
+          {row('Working range', (p) => describeRange(p.result.range))}
           {row('Output band', (p) =>
             p.result.outputBand ? (
               <>

@@ -1,12 +1,13 @@
 import { useState } from 'react';
-import { Alert, Anchor, Badge, Collapse, Group, List, Paper, Progress, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
+import { Alert, Anchor, Badge, Collapse, Group, Paper, Progress, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import { IconAlertTriangle, IconCircleCheck, IconCircleX, IconHelpCircle } from '@tabler/icons-react';
 import { formatQuantity, type RegulatorResponse, type RegulatorVerdict, type SearchCard } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
-import { simpleFinding, simpleOmissions, type CircuitRequest } from '../utils/circuit';
+import { describeRange, simpleFinding, simpleOmissions, type CircuitRequest } from '../utils/circuit';
 import { formatPercent } from '../utils/format';
+import { Notes } from './notes';
 
 export const VERDICT_TEXT: Record<RegulatorVerdict, { title: string; color: string }> = {
   ok: { title: 'Works at every corner', color: 'verdigris' },
@@ -79,11 +80,12 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
           </Text>
         )}
         {result.reasons.length > 0 && (
-          <List size="sm" spacing={2}>
+          <Notes size="sm" spacing={2}>
             {result.reasons.map((r) => (
-              <List.Item key={r}>{r}</List.Item>
+              // The title already says no resistor works; the reason says why.
+              <Notes.Item key={r}>{r.replace(/^no resistor works: (.)/, (_, c: string) => c.toUpperCase())}</Notes.Item>
             ))}
-          </List>
+          </Notes>
         )}
       </Alert>
 
@@ -106,23 +108,23 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
             <Text fz="sm">
               Working range:{' '}
               <Text span fw={500} data-testid="resistor-range">
-                {result.range.min !== null ? formatQuantity(result.range.min, 'resistance') : '?'} … {result.range.max !== null ? formatQuantity(result.range.max, 'resistance') : '?'}
+                {describeRange(result.range)}
               </Text>
             </Text>
-            <List size="xs" c="dimmed" spacing={2}>
-              <List.Item>
+            <Notes size="xs" c="dimmed" spacing={2}>
+              <Notes.Item>
                 <Text span fz="xs" fw={500}>
                   Smallest:
                 </Text>{' '}
                 {result.range.minReason || '–'}
-              </List.Item>
-              <List.Item>
+              </Notes.Item>
+              <Notes.Item>
                 <Text span fz="xs" fw={500}>
                   Largest:
                 </Text>{' '}
                 {result.range.maxReason}
-              </List.Item>
-            </List>
+              </Notes.Item>
+            </Notes>
           </Stack>
         </Paper>
 
@@ -146,11 +148,11 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
             <Text fz="xs" c="dimmed">
               It leaves out:
             </Text>
-            <List size="xs" spacing={1} c="dimmed">
+            <Notes size="xs" spacing={1} c="dimmed">
               {simpleOmissions(circuit, card).map((o) => (
-                <List.Item key={o}>{o}</List.Item>
+                <Notes.Item key={o}>{o}</Notes.Item>
               ))}
-            </List>
+            </Notes>
           </Stack>
         </Paper>
       </SimpleGrid>
@@ -197,11 +199,11 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
 
       {result.warnings.length > 0 && (
         <Alert color="orange" icon={<IconAlertTriangle size={16} />} title="Warnings" py="xs">
-          <List size="sm" spacing={2}>
+          <Notes size="sm" spacing={2}>
             {result.warnings.map((w) => (
-              <List.Item key={w}>{w}</List.Item>
+              <Notes.Item key={w}>{w}</Notes.Item>
             ))}
-          </List>
+          </Notes>
         </Alert>
       )}
 
@@ -253,11 +255,11 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
         <Text fz="xs" fw={600} c="dimmed">
           Assumed
         </Text>
-        <List size="xs" c="dimmed" spacing={1} aria-label="Assumptions">
+        <Notes size="xs" c="dimmed" spacing={1} aria-label="Assumptions">
           {result.assumptions.map((a) => (
-            <List.Item key={a}>{a}</List.Item>
+            <Notes.Item key={a}>{a}</Notes.Item>
           ))}
-        </List>
+        </Notes>
       </Stack>
       <DesignCaution />
     </Stack>

@@ -153,6 +153,7 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     expect(alert).toHaveTextContent('No resistor works');
     expect(alert).toHaveTextContent(/power limit needs at least 300 Ω but the knee needs at most 244 Ω/);
     expect(screen.getByTestId('chosen-resistor')).toHaveTextContent('none');
+    expect(screen.getByTestId('resistor-range')).toHaveTextContent('none: power needs ≥ 300 Ω, the knee ≤ 244 Ω');
     expect(screen.getByTestId('simple-finding')).toHaveTextContent(/No resistor keeps every corner working/);
   });
 

@@ -1,7 +1,7 @@
 import { regulatorRequestSchema } from '@shuntwise/contracts';
 import { describe, expect, it } from 'vitest';
 import { regulatorAnswer, searchItem } from '../testing/fixtures';
-import { EMPTY_CIRCUIT, regulatorRequest, simpleFinding, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
+import { describeRange, EMPTY_CIRCUIT, regulatorRequest, simpleFinding, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
 
 const filled: CircuitValues = { ...EMPTY_CIRCUIT, supplyMin: 10.8, supplyNom: 12, supplyMax: 13.2, loadMin: 0, loadMax: 0.02 };
 
@@ -45,5 +45,13 @@ describe('what the simple formula would do', () => {
     expect(simpleFinding(regulatorAnswer({ simple: { ...regulatorAnswer().simple, resistance: 200 } })).verdict).toBe('inside');
     expect(simpleFinding(regulatorAnswer({ range: { ...regulatorAnswer().range, min: 300 } })).verdict).toBe('no-range');
     expect(simpleFinding(regulatorAnswer({ simple: { ...regulatorAnswer().simple, resistance: null } })).verdict).toBe('none');
+  });
+});
+
+describe('the working range as text', () => {
+  it('reads min … max, or says why there is none when the power needs more than the knee allows', () => {
+    expect(describeRange(regulatorAnswer().range)).toBe('137 Ω … 244 Ω');
+    expect(describeRange({ ...regulatorAnswer().range, min: 368, max: 93.3 })).toBe('none: power needs ≥ 368 Ω, the knee ≤ 93.3 Ω');
+    expect(describeRange({ ...regulatorAnswer().range, min: null })).toBe('? … 244 Ω');
   });
 });

@@ -200,3 +200,11 @@ export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): stri
   out.push(`the diode's power rating, derated at the highest ambient`);
   return out;
 }
+
+/** The working range as text: "143 Ω … 211 Ω", or why there is none. */
+export function describeRange(range: RegulatorResponse['range']): string {
+  const ohms = (x: number) => formatQuantity(x, 'resistance');
+  const { min, max } = range;
+  if (min !== null && max !== null && min > max) return `none: power needs ≥ ${ohms(min)}, the knee ≤ ${ohms(max)}`;
+  return `${min !== null ? ohms(min) : '?'} … ${max !== null ? ohms(max) : '?'}`;
+}
