@@ -2,7 +2,8 @@
 // `npm test`: the same set-up as `npm start` (packages, builds) in throw-away data folders
 // on free ports — the demo data in .data is never touched — then every suite: lint,
 // type-check, contracts (vitest), api (jest, unit + integration against a real MariaDB),
-// web (vitest), end-to-end journeys (playwright-core driving Debian's Chromium).
+// web (vitest), the sign-in page's bundle budget, end-to-end journeys (playwright-core
+// driving Debian's Chromium).
 // Prints each runner's summary and the total time; exits non-zero on any failure.
 import { spawn } from 'node:child_process';
 import { createWriteStream, mkdirSync, rmSync } from 'node:fs';
@@ -132,6 +133,10 @@ async function main() {
     buildAll(root, true);
     return { code: 0, output: '' };
   });
+  // The sign-in page's JavaScript budget (150 kB gzip) and the data grid kept out of it.
+  await step('bundle budget (sign-in page)', (out) => (out.match(/sign-in page JavaScript: .*/) ?? ['no figure'])[0], () =>
+    run('node', ['scripts/measure-bundle.mjs'], { cwd: join(root, 'web') }),
+  );
   if (built !== false) await step('end-to-end (Chromium)', summaryOf.vitest, endToEnd);
 }
 

@@ -32,7 +32,7 @@ export type Invitation = z.infer<typeof invitationSchema>;
 
 export const updateUserRequestSchema = z
   .object({
-    role: roleSchema.optional(),
+    role: z.optional(roleSchema),
     active: z.boolean().optional(),
     name: z.string().trim().min(1).max(120).optional(),
   })
