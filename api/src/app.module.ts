@@ -17,6 +17,7 @@ import { HealthModule } from './health/health.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
+import { QualificationRequestsModule } from './qualification-requests/qualification-requests.module';
 import { QualificationsModule } from './qualifications/qualifications.module';
 import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
@@ -33,7 +34,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule, SearchModule];
+  QualificationsModule, QualificationRequestsModule, SearchModule];
 
 @Module({})
 export class AppModule {

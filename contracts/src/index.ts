@@ -20,6 +20,7 @@ export * from './qualifications/board.schema';
 export * from './qualifications/compare.schema';
 export * from './qualifications/evaluation.schema';
 export * from './qualifications/house-part-buyers.schema';
+export * from './qualifications/qualification-request.schema';
 export * from './qualifications/qualification-state.schema';
 export * from './qualifications/qualification.schema';
 export * from './qualifications/sources-view.schema';

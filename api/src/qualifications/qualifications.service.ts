@@ -54,6 +54,16 @@ export interface ActionBody {
 
 type Transition = { toState: QualificationState; fields: Partial<Qualification>; note: string | null };
 
+/** A case just opened (a new one or a re-check), told to whoever subscribed, inside its transaction. */
+export interface CaseOpened {
+  caseId: number;
+  revision: number;
+  housePart: { id: number; partNumber: string; description: string };
+  vendorPart: { id: number; manufacturer: string; mpn: string };
+  by: AuthUser;
+}
+export type CaseOpenedHandler = (opened: CaseOpened, transaction: Transaction) => Promise<void>;
+
 /**
  * Qualification cases: opening and evaluating them, the two-person decision, revocation,
  * re-checks after catalogue changes, comments and the audit trail. Every change runs in one
@@ -65,6 +75,7 @@ type Transition = { toState: QualificationState; fields: Partial<Qualification>;
 export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('Qualifications');
   private unsubscribe?: () => void;
+  private readonly openedHandlers = new Set<CaseOpenedHandler>();
 
   constructor(
     private readonly cases: QualificationsRepository,
@@ -80,6 +91,15 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   onModuleDestroy(): void {
     this.unsubscribe?.();
+  }
+
+  /**
+   * For whoever must react to a new case (requests for the pair are taken up). Handlers run
+   * in the case's transaction, so the reaction commits with it; subscribe in onModuleInit.
+   */
+  onCaseOpened(handler: CaseOpenedHandler): () => void {
+    this.openedHandlers.add(handler);
+    return () => this.openedHandlers.delete(handler);
   }
 
   async list(query: QualificationListQuery, user: AuthUser): Promise<Page<QualificationSummary>> {
@@ -367,6 +387,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       },
       transaction,
     );
+    const { housePart: hp, vendorPart: vp } = basis;
+    for (const handler of this.openedHandlers) {
+      await handler(
+        { caseId: row.id, revision: row.revision, housePart: { id: hp.id, partNumber: hp.partNumber, description: hp.description }, vendorPart: { id: vp.id, manufacturer: vp.manufacturer, mpn: vp.mpn }, by: user },
+        transaction,
+      );
+    }
     return row;
   }
 
