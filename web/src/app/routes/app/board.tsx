@@ -1,5 +1,6 @@
 import { PageHeader } from '@/components/page-header';
 import { BoardTable } from '@/features/board/components/board-table';
+import { OpenRequestsPanel } from '@/features/qualification-requests/components/open-requests-panel';
 import { OpenCaseButton } from '@/features/qualifications/components/open-case-button';
 import { useSession } from '@/lib/session';
 
@@ -9,6 +10,7 @@ export function BoardRoute() {
   return (
     <>
       <PageHeader title="Board" description="House parts with their sources and where each qualification stands." />
+      <OpenRequestsPanel canAct={engineer} linkParts />
       <BoardTable
         renderSourceAction={(row, source) =>
           // The approved source is the reference; cases qualify alternates.

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef, useState } from 'react';
+import { useCallback, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Alert, CloseButton, Grid, Group, Loader, Paper, Stack, Tabs, Text, Title } from '@mantine/core';
 import { IconInfoCircle } from '@tabler/icons-react';
 import type { SearchItem } from '@shuntwise/contracts';
@@ -18,13 +18,17 @@ import { SearchFilters, type FilterChanges } from './search-filters';
 export interface FindPartsScreenProps {
   /** Engineers and admins may open the catalogue's pages from here. */
   linkCatalogue: boolean;
+  /** What a result offers besides the check (the route puts "ask for qualification" here). */
+  renderPartAction?: (item: SearchItem) => ReactNode;
+  /** Shown above the filters (the route puts the caller's qualification requests here). */
+  requestsPanel?: ReactNode;
 }
 
 /**
  * Find parts: the parts a designer may design in, found by filters and text, and for one
  * to three of them the series-regulator check against the designer's own circuit.
  */
-export function FindPartsScreen({ linkCatalogue }: FindPartsScreenProps) {
+export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel }: FindPartsScreenProps) {
   const [search, setSearch] = useSearchParams();
   const params = useMemo(() => searchParamsFromUrl(search), [search]);
   const results = useSearchParts(params);
@@ -83,6 +87,7 @@ export function FindPartsScreen({ linkCatalogue }: FindPartsScreenProps) {
         title="Find parts"
         description="Parts you may design in: approved sources and alternates a second engineer cleared. Choose one, or up to three to compare, and check them in your circuit."
       />
+      {requestsPanel}
       <SearchFilters params={params} onChange={setParams} />
       <ResultsTable
         page={results.data}
@@ -97,6 +102,7 @@ export function FindPartsScreen({ linkCatalogue }: FindPartsScreenProps) {
         onCheck={checkOne}
         linkCatalogue={linkCatalogue}
         includeNotCleared={params.includeNotCleared ?? false}
+        renderPartAction={renderPartAction}
       />
 
       <Paper ref={checkRef} p="md" aria-labelledby="circuit-check-title" style={{ scrollMarginTop: 64 }}>

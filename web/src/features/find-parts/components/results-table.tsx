@@ -28,6 +28,8 @@ export interface ResultsTableProps {
   /** Engineers and admins may open the catalogue pages; designers see names only. */
   linkCatalogue: boolean;
   includeNotCleared: boolean;
+  /** Shown under a part's clearances (e.g. "ask for qualification"). */
+  renderPartAction?: (item: SearchItem) => ReactNode;
 }
 
 function SortHeader({ field, sort, onSort, children, align = 'left' }: { field: string; sort: string; onSort: (s: string) => void; children: ReactNode; align?: 'left' | 'right' }) {
@@ -70,7 +72,7 @@ function VzCell({ item }: { item: SearchItem }) {
 }
 
 /** One page of results, with what a designer chooses by, and the way into the circuit check. */
-export function ResultsTable({ page, loading, fetching, error, sort, onSort, onPage, chosenIds, onToggleChosen, onCheck, linkCatalogue, includeNotCleared }: ResultsTableProps) {
+export function ResultsTable({ page, loading, fetching, error, sort, onSort, onPage, chosenIds, onToggleChosen, onCheck, linkCatalogue, includeNotCleared, renderPartAction }: ResultsTableProps) {
   const items = page?.items ?? [];
   const total = page?.total ?? 0;
   const pageSize = page?.pageSize ?? 25;
@@ -216,6 +218,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                   </Table.Td>
                   <Table.Td maw={360}>
                     <ClearanceList item={item} linkHouseParts={linkCatalogue} />
+                    {renderPartAction?.(item)}
                   </Table.Td>
                   <Table.Td>
                     <Group gap={4} wrap="nowrap" justify="flex-end">
