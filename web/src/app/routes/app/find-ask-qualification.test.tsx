@@ -123,7 +123,7 @@ describe('Find parts: asking for a qualification', { timeout: 20_000 }, () => {
     // designers cannot open the case screens: the case is named, not linked
     expect(within(taken).queryByRole('link')).toBeNull();
     expect(within(panel).getByRole('row', { name: 'Request #30: NMZ-24' })).toHaveTextContent('Tomas Verhoef: End of life announced; use BRZ05-24.');
-    expect(within(panel).getByRole('row', { name: 'Request #33: NMZ-06V8' })).toHaveTextContent('needed by 31 Mar 2027');
+    expect(within(panel).getByRole('row', { name: 'Request #33: NMZ-06V8' })).toHaveTextContent('Needed by 31 Mar 2027');
   });
 
   it('shows no panel to a designer who never asked', async () => {

@@ -81,6 +81,8 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
   const create = useCreateQualificationRequest();
   const what = `${target.vendorPart.manufacturer} ${target.vendorPart.mpn}`;
   const exclude = new Map(target.clearedFor.map((h) => [h.id, 'already usable']));
+  // A field's complaint goes once it is changed.
+  const clear = (field: Field) => setErrors((e) => (e[field] ? { ...e, [field]: undefined } : e));
 
   const submit = () => {
     const body = { vendorPartId: target.vendorPart.id, housePartId, note, neededBy: neededBy || null };
@@ -125,7 +127,10 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
           description={target.clearedFor.length > 0 ? 'The house part of your design' : 'Optional: leave it empty if you do not know; the engineer chooses'}
           placeholder="any: the engineer chooses"
           value={housePartId}
-          onChange={setHousePartId}
+          onChange={(id) => {
+            setHousePartId(id);
+            clear('housePartId');
+          }}
           exclude={exclude}
           error={errors.housePartId}
         />
@@ -137,11 +142,17 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
           minRows={3}
           maxLength={QUALIFICATION_REQUEST_NOTE_MAX}
           value={note}
-          onChange={(e) => setNote(e.currentTarget.value)}
+          onChange={(e) => {
+            setNote(e.currentTarget.value);
+            clear('note');
+          }}
           error={errors.note}
           data-autofocus
         />
-        <TextInput type="date" w={200} label="Needed by" description="Optional" min={today()} value={neededBy} onChange={(e) => setNeededBy(e.currentTarget.value)} error={errors.neededBy} />
+        <TextInput type="date" w={200} label="Needed by" description="Optional" min={today()} value={neededBy} onChange={(e) => {
+            setNeededBy(e.currentTarget.value);
+            clear('neededBy');
+          }} error={errors.neededBy} />
         {create.isError && Object.keys(fieldErrors(create.error)).length === 0 && (
           <Alert color={create.error instanceof ApiError && create.error.status === 409 ? 'orange' : 'red'} role="alert" title="The request was not sent" p="xs">
             <Text fz="sm">{describeError(create.error)}</Text>

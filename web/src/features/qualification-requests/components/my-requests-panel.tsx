@@ -17,10 +17,12 @@ const RECENT_MS = 14 * 86_400_000;
 function WhereItStands({ request, linkCases }: { request: QualificationRequest; linkCases: boolean }) {
   if (request.state === 'open') {
     return (
-      <Text fz="xs" c="dimmed">
-        Engineers were told {formatDateTime(request.createdAt)}
-        {request.neededBy ? ` · needed by ${formatDay(request.neededBy)}` : ''}
-      </Text>
+      <Stack gap={0}>
+        <Text fz="xs" c="dimmed">
+          Engineers were told {formatDateTime(request.createdAt)}
+        </Text>
+        {request.neededBy && <Text fz="xs">Needed by {formatDay(request.neededBy)}</Text>}
+      </Stack>
     );
   }
   if (request.state === 'declined') {
@@ -97,7 +99,7 @@ export function MyRequestsPanel({ linkCases }: { linkCases: boolean }) {
         <Stack gap={4} mt="xs">
           <Table aria-label="My qualification requests" withTableBorder={false} verticalSpacing={4}>
             <Table.Thead>
-              <Table.Tr>
+              <Table.Tr style={{ whiteSpace: 'nowrap' }}>
                 <Table.Th>Part</Table.Th>
                 <Table.Th>For house part</Table.Th>
                 <Table.Th>What it is for</Table.Th>

@@ -215,7 +215,7 @@ export function OpenRequestsPanel({ canAct, linkParts }: { canAct: boolean; link
         <Table.ScrollContainer minWidth={900} type="native" mt={6}>
           <Table aria-label="Requests for qualification" withTableBorder={false} verticalSpacing={4}>
             <Table.Thead>
-              <Table.Tr>
+              <Table.Tr style={{ whiteSpace: 'nowrap' }}>
                 <Table.Th>Part</Table.Th>
                 <Table.Th>For house part</Table.Th>
                 <Table.Th>Asked by</Table.Th>
