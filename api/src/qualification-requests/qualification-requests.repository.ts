@@ -107,12 +107,15 @@ export class QualificationRequestsRepository {
     await row.update(values, { transaction });
   }
 
-  /** The caller's open request for the same vendor part and house part (none named counts as one choice). */
+  /**
+   * The caller's open request for the same vendor part and house part (none named counts as
+   * one choice). A plain read: two requests at the same moment both pass it, and the unique
+   * open-request index refuses the second insert (a locking read here made them deadlock).
+   */
   async openDuplicate(requestedById: number, vendorPartId: number, housePartId: number | null, transaction: Transaction): Promise<{ id: number; createdAt: Date } | null> {
     const [row] = await this.select<{ id: number; createdAt: Date }>(
       `SELECT id, created_at AS createdAt FROM qualification_requests
-       WHERE state = 'open' AND requested_by_id = ? AND vendor_part_id = ? AND ${housePartId === null ? 'house_part_id IS NULL' : 'house_part_id = ?'}
-       LOCK IN SHARE MODE`,
+       WHERE state = 'open' AND requested_by_id = ? AND vendor_part_id = ? AND ${housePartId === null ? 'house_part_id IS NULL' : 'house_part_id = ?'}`,
       housePartId === null ? [requestedById, vendorPartId] : [requestedById, vendorPartId, housePartId],
       transaction,
     );
