@@ -195,6 +195,8 @@ describe('asking for a qualification in Chromium: the designer asks, an engineer
     // the result says a qualification is under way; the part is still not for new designs
     expect(await row.innerText()).toContain('qualification under way');
     expect(await row.getByTestId(`asked-${asked.part.mpn}`).count()).toBe(0);
+    // asking again is offered for another house part only
+    expect(await row.getByRole('button', { name: `Ask for qualification of ${asked.part.mpn} for another house part` }).count()).toBe(1);
     await shot(page, 'qualification-request-7-my-requests-taken-up');
     expect(errors).toEqual([]);
     await done();

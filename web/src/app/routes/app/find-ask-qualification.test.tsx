@@ -77,6 +77,23 @@ describe('Find parts: asking for a qualification', { timeout: 20_000 }, () => {
     expect(screen.getByRole('option', { name: /OHI-ZD-1056/ })).not.toHaveAttribute('data-combobox-disabled');
   });
 
+  it('on a part whose qualification is under way, asks only for another house part', async () => {
+    signInAs('designer');
+    mockApi({
+      'GET /api/auth/me': { body: DEMO_USERS.designer },
+      'GET /api/search/facets': { body: FACETS },
+      'GET /api/search': { body: page([{ ...NOT_CLEARED, qualificationOpen: true }]) },
+      'GET /api/qualification-requests': { body: requestPage([]) },
+      'GET /api/house-parts': { body: HOUSE_PARTS },
+    });
+    const { user } = renderApp('/find');
+    const row = await screen.findByRole('row', { name: 'NMZ-05V6' });
+    expect(row).toHaveTextContent('qualification under way');
+    expect(within(row).queryByRole('button', { name: 'Ask for qualification of NMZ-05V6' })).not.toBeInTheDocument();
+    await user.click(within(row).getByRole('button', { name: 'Ask for qualification of NMZ-05V6 for another house part' }));
+    expect(await screen.findByRole('dialog')).toHaveTextContent('A qualification of it is under way already; ask only if you need it for another house part.');
+  });
+
   it("says plainly when the server refuses (a duplicate), and keeps what was typed; a past date is named on its field", async () => {
     signInAs('designer');
     const mock = api([], (body) =>

@@ -13,6 +13,8 @@ export interface AskTarget {
   vendorPart: { id: number; manufacturer: string; mpn: string };
   /** House parts the part is already usable for (asking for those makes no sense). */
   clearedFor: ReadonlyArray<{ id: number; partNumber: string }>;
+  /** A case for it is open already (for some house part). */
+  underWay?: boolean;
 }
 
 const FIELDS = ['note', 'neededBy', 'housePartId'] as const;
@@ -39,7 +41,8 @@ export function AskQualificationButton({ target }: { target: AskTarget }) {
   const [opened, setOpened] = useState(false);
   const mine = useMyQualificationRequests();
   const waiting = (mine.data?.items ?? []).filter((r) => r.vendorPart.id === target.vendorPart.id && r.state === 'open');
-  const cleared = target.clearedFor.length > 0;
+  // Usable somewhere, or being qualified already: asking is for another house part.
+  const another = target.clearedFor.length > 0 || (target.underWay ?? false);
   const { mpn } = target.vendorPart;
 
   return (
@@ -56,16 +59,16 @@ export function AskQualificationButton({ target }: { target: AskTarget }) {
           </Badge>
         </Tooltip>
       )}
-      {(waiting.length === 0 || cleared) && (
+      {(waiting.length === 0 || another) && (
         <Button
           size="compact-xs"
-          variant={cleared ? 'subtle' : 'light'}
-          color={cleared ? 'gray' : undefined}
+          variant={another ? 'subtle' : 'light'}
+          color={another ? 'gray' : undefined}
           leftSection={<IconMessageQuestion size={13} />}
-          aria-label={cleared ? `Ask for qualification of ${mpn} for another house part` : `Ask for qualification of ${mpn}`}
+          aria-label={another ? `Ask for qualification of ${mpn} for another house part` : `Ask for qualification of ${mpn}`}
           onClick={() => setOpened(true)}
         >
-          {cleared ? 'Ask for another house part' : 'Ask for qualification'}
+          {another ? 'Ask for another house part' : 'Ask for qualification'}
         </Button>
       )}
       {opened && <AskQualificationDialog target={target} onClose={() => setOpened(false)} />}
@@ -120,6 +123,11 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
         {target.clearedFor.length > 0 && (
           <Text fz="sm" c="dimmed">
             Already usable for {target.clearedFor.map((h) => h.partNumber).join(', ')}: choose the house part you need it for.
+          </Text>
+        )}
+        {target.underWay && (
+          <Text fz="sm" c="dimmed">
+            A qualification of it is under way already; ask only if you need it for another house part.
           </Text>
         )}
         <HousePartSelect
