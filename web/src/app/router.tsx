@@ -27,7 +27,7 @@ const Invitation = page(() => import('./routes/invitation'), (m) => m.Invitation
 const AppLayout = page(() => import('./routes/app/layout'), (m) => m.AppLayout);
 const NotFound = page(() => import('./routes/app/not-found'), (m) => m.NotFoundRoute);
 
-/** One page per navigation entry; the route files of later screens replace the stand-ins. */
+/** One page per navigation entry. */
 const SCREEN_PAGES: Record<ScreenKey, LazyExoticComponent<ComponentType>> = {
   board: page(() => import('./routes/app/board'), (m) => m.BoardRoute),
   'house-parts': page(() => import('./routes/app/house-parts'), (m) => m.HousePartsRoute),

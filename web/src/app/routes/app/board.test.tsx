@@ -38,12 +38,14 @@ const PAGE: BoardPage = {
   counts: { draft: 0, 'in-review': 0, cleared: 1, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 2 },
 };
 
+// The Board also lists open qualification requests; these tests are about the table.
+const NO_REQUESTS = { 'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } } };
 const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) => fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualifications/board'));
 
 describe('Board screen', () => {
   it('shows each source with its state, verdict, case, engineers and age, and links to the case, the compare view and the parts', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
     renderApp('/board');
     const row = (await screen.findByRole('link', { name: 'QHZ4V7A' })).closest('tr')!;
     expect(within(row).getByText('Cleared').closest('[data-state]')).toHaveAttribute('data-state', 'cleared');
@@ -62,7 +64,7 @@ describe('Board screen', () => {
 
   it('filters by state from the tallies and by age, through the server and the address', async () => {
     signInAs('engineer');
-    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE } });
+    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
     const { user } = renderApp('/board');
     await user.click(await screen.findByRole('button', { name: 'Cleared: 1' }));
     await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared'));
@@ -78,7 +80,7 @@ describe('Board screen', () => {
     signInAs('engineer');
     const api = mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualifications/board': { body: PAGE },
+      'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS,
       'POST /api/qualifications': { status: 409, body: { message: 'Case #12 (Corriebank Electronics CBX3-4.7 for OHI-ZD-1047) is still draft: continue that one', correlationId: 'c0ffee00-test' } },
     });
     const { user } = renderApp('/board');

@@ -13,6 +13,8 @@ function api(role: 'designer' | 'engineer' = 'designer', regulator = regulatorAn
     'GET /api/search/facets': { body: FACETS },
     'GET /api/search': { body: page([APPROVED, CONDITIONAL], { total }) },
     'POST /api/engineering/regulator': { body: regulator },
+    // the designer's own qualification requests, shown beside the results
+    'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } },
   });
 }
 const searches = (mock: ReturnType<typeof mockApi>) => mock.calls.filter((c) => c.path === '/api/search');
