@@ -100,7 +100,7 @@ export class QualificationViewsService {
           (s): SourceStandingRow => ({
             vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
             role: s.role,
-            ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []),
+            ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? [], s.role),
           }),
         )
         .filter(visible),
@@ -189,11 +189,17 @@ export class QualificationViewsService {
 
 /**
  * Where a source stands from its cases (oldest revision first): the latest decided case if
- * any, else the latest case, else not qualified; a newer open case is shown beside it.
+ * any; else `approved` for the house part's approved source (the reference part, which
+ * needs no case to be designed in); else the latest case, else not qualified. A newer open
+ * case is shown beside it.
  */
-export function standing(cases: readonly PairCaseRow[]): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
+export function standing(cases: readonly PairCaseRow[], role: SourceStandingRow['role'] = 'alternate'): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
   const latest = cases.at(-1) ?? null;
   const decided = [...cases].reverse().find((c) => isDecidedState(c.state)) ?? null;
+  if (!decided && role === 'approved') {
+    const openCase = latest && isOpenState(latest.state) ? { id: latest.id, state: latest.state } : null;
+    return { standing: 'approved', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase, needsRecheck: false };
+  }
   const basis = decided ?? latest;
   if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());

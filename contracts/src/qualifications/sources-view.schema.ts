@@ -7,14 +7,16 @@ import { vendorPartRefSchema } from './qualification.schema';
 
 /**
  * Where a source stands for procurement: the state of its latest decided case (cleared,
- * cleared with conditions, rejected, revoked); else the state of its latest case; else
- * `not-qualified` (no case yet).
+ * cleared with conditions, rejected, revoked); else, for the house part's approved source,
+ * `approved` (it is the reference the spec was written from, with any open case beside it);
+ * else the state of its latest case; else `not-qualified` (no case yet).
  */
-export const SOURCE_STANDINGS = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked', 'in-review', 'draft', 'withdrawn', 'not-qualified'] as const;
+export const SOURCE_STANDINGS = ['approved', 'cleared', 'cleared-with-conditions', 'rejected', 'revoked', 'in-review', 'draft', 'withdrawn', 'not-qualified'] as const;
 export const sourceStandingSchema = z.enum(SOURCE_STANDINGS);
 export type SourceStanding = z.infer<typeof sourceStandingSchema>;
 
 export const SOURCE_STANDING_LABELS: Record<SourceStanding, string> = {
+  approved: 'Approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
   rejected: 'Rejected',

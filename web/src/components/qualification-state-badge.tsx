@@ -4,7 +4,8 @@ import { QUALIFICATION_STATE_LABELS, SOURCE_STANDING_LABELS, type BoardState, ty
 /**
  * One colour per case state, the same on every screen (Board, Qualifications, Compare,
  * Sources): grey while open, blue waiting for a decision, green cleared, lime cleared on
- * conditions, red rejected, purple revoked; withdrawn and "no case yet" are outlined grey.
+ * conditions, red rejected, purple revoked; withdrawn and "no case yet" are outlined grey;
+ * a house part's approved source (the reference part) is outlined green.
  */
 export const STATE_COLOR: Record<QualificationState, string> = {
   draft: 'gray',
@@ -16,17 +17,18 @@ export const STATE_COLOR: Record<QualificationState, string> = {
   revoked: 'grape',
 };
 
-const OUTLINED = new Set<string>(['withdrawn', 'none', 'not-qualified']);
+const OUTLINED = new Set<string>(['withdrawn', 'none', 'not-qualified', 'approved']);
 
 type AnyState = QualificationState | BoardState | SourceStanding;
 
 export function stateLabel(state: AnyState): string {
   if (state === 'none') return 'No case';
-  if (state === 'not-qualified') return SOURCE_STANDING_LABELS['not-qualified'];
+  if (state === 'not-qualified' || state === 'approved') return SOURCE_STANDING_LABELS[state];
   return QUALIFICATION_STATE_LABELS[state];
 }
 
 export function stateColor(state: AnyState): string {
+  if (state === 'approved') return 'verdigris';
   return state === 'none' || state === 'not-qualified' ? 'gray' : STATE_COLOR[state];
 }
 
