@@ -1,14 +1,14 @@
 import 'mantine-react-table/styles.css';
 
-import { useCallback, useMemo } from 'react';
+import { useMemo } from 'react';
 import { Anchor, Badge, Checkbox, Group, MultiSelect, Stack, Text } from '@mantine/core';
 import { QUALIFICATION_STATES, type QualificationSummary } from '@shuntwise/contracts';
-import { MantineReactTable, useMantineReactTable, type MRT_ColumnDef, type MRT_PaginationState, type MRT_SortingState } from 'mantine-react-table';
-import { Link, useSearchParams } from 'react-router';
+import { MantineReactTable, useMantineReactTable, type MRT_ColumnDef } from 'mantine-react-table';
+import { Link } from 'react-router';
 import { QualificationStateBadge, stateLabel } from '@/components/qualification-state-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
-import { describeError } from '@/lib/api-client';
 import { denseTableOptions } from '@/lib/data-table';
+import { serverTableOptions, useListState } from '@/lib/list-state';
 import { formatDateTime } from '@/lib/format-date';
 import { useSession } from '@/lib/session';
 import { useQualifications } from '../api/get-qualifications';
@@ -19,39 +19,17 @@ const STATE_OPTIONS = QUALIFICATION_STATES.map((s) => ({ value: s, label: stateL
 /** Qualification cases, paged, sorted and filtered by the server; the filters live in the address. */
 export function QualificationsTable() {
   const session = useSession();
-  const [search, setSearch] = useSearchParams();
+  const listState = useListState({ defaultSort: '-updatedAt', sortable: SORTABLE });
+  const { search, set, pagination } = listState;
   const states = (search.get('state') ?? '').split(',').filter(Boolean);
   const mine = search.get('mine') === '1';
   const recheck = search.get('recheck') === '1';
   const all = search.get('revisions') === 'all';
-  const pagination: MRT_PaginationState = { pageIndex: Number(search.get('page') ?? 0) || 0, pageSize: Number(search.get('size') ?? 50) || 50 };
-  const sortText = search.get('sort') ?? '-updatedAt';
-  const sorting: MRT_SortingState = sortText
-    .split(',')
-    .filter(Boolean)
-    .map((s) => ({ id: s.replace(/^-/, ''), desc: s.startsWith('-') }));
-
-  const set = useCallback(
-    (changes: Record<string, string | number | null>, resetPage = true) =>
-      setSearch(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          for (const [k, v] of Object.entries(changes)) {
-            if (v === null || v === '') next.delete(k);
-            else next.set(k, String(v));
-          }
-          if (resetPage && !('page' in changes)) next.delete('page');
-          return next;
-        },
-        { replace: true },
-      ),
-    [setSearch],
-  );
 
   const list = useQualifications({
     pageIndex: pagination.pageIndex,
     pageSize: pagination.pageSize,
-    sort: sortText,
+    sort: listState.sort,
     state: states.join(',') || undefined,
     engineerId: mine ? session?.user.id : undefined,
     needsRecheck: recheck ? true : undefined,
@@ -126,24 +104,8 @@ export function QualificationsTable() {
   const table = useMantineReactTable({
     ...denseTableOptions<QualificationSummary>(),
     columns,
-    data: list.data?.items ?? [],
-    rowCount: list.data?.total ?? 0,
+    ...serverTableOptions(list, listState),
     getRowId: (q) => String(q.id),
-    manualPagination: true,
-    manualSorting: true,
-    manualFiltering: true,
-    enableColumnFilters: false,
-    enableGlobalFilter: false,
-    state: { pagination, sorting, isLoading: list.isPending, showProgressBars: list.isFetching && !list.isPending, showAlertBanner: list.isError },
-    onPaginationChange: (updater) => {
-      const next = typeof updater === 'function' ? updater(pagination) : updater;
-      set({ page: next.pageIndex || null, size: next.pageSize === 50 ? null : next.pageSize }, false);
-    },
-    onSortingChange: (updater) => {
-      const next = (typeof updater === 'function' ? updater(sorting) : updater).filter((s) => SORTABLE.has(s.id));
-      set({ sort: next.map((s) => `${s.desc ? '-' : ''}${s.id}`).join(',') || null });
-    },
-    mantineToolbarAlertBannerProps: list.isError ? { color: 'red', children: describeError(list.error) } : undefined,
     renderEmptyRowsFallback: () => (
       <Text c="dimmed" ta="center" py="lg" fz="sm">
         {filtered ? 'No case matches these filters.' : 'No qualification case yet: open one from the Board for a source of a house part.'}

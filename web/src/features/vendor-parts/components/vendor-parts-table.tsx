@@ -5,12 +5,12 @@ import { Anchor, Badge, Button, Group, MultiSelect, Select, Text, TextInput } fr
 import { useDebouncedValue } from '@mantine/hooks';
 import { IconFilterOff, IconSearch } from '@tabler/icons-react';
 import type { VendorPart } from '@shuntwise/contracts';
-import { MantineReactTable, useMantineReactTable, type MRT_ColumnDef, type MRT_PaginationState, type MRT_SortingState } from 'mantine-react-table';
-import { Link, useSearchParams } from 'react-router';
+import { MantineReactTable, useMantineReactTable, type MRT_ColumnDef } from 'mantine-react-table';
+import { Link } from 'react-router';
 import { Quantity } from '@/components/quantity';
 import { QuantityInput } from '@/components/quantity-input';
-import { describeError } from '@/lib/api-client';
 import { denseTableOptions } from '@/lib/data-table';
+import { serverTableOptions, useListState } from '@/lib/list-state';
 import { formatDateTime, formatShortDate } from '@/lib/format-date';
 import { useManufacturers } from '../api/get-manufacturers';
 import { useVendorParts } from '../api/get-vendor-parts';
@@ -25,27 +25,9 @@ function numberParam(value: string | null): number | undefined {
   return Number.isFinite(n) ? n : undefined;
 }
 
-/** The list's state lives in the address, so back, reload and a shared link show the same page. */
-function useListState() {
-  const [search, setSearch] = useSearchParams();
-  const set = (changes: Record<string, string | number | undefined | null>, resetPage = true) =>
-    setSearch(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        for (const [k, v] of Object.entries(changes)) {
-          if (v === undefined || v === null || v === '') next.delete(k);
-          else next.set(k, String(v));
-        }
-        if (resetPage && !('page' in changes)) next.delete('page');
-        return next;
-      },
-      { replace: true },
-    );
-  return { search, set };
-}
-
 export function VendorPartsTable() {
-  const { search, set } = useListState();
+  const listState = useListState({ defaultSort: 'mpn', sortable: SORTABLE });
+  const { search, set, pagination } = listState;
   const manufacturers = useManufacturers();
   const [mpnText, setMpnText] = useState(search.get('mpn') ?? '');
   const [mpn] = useDebouncedValue(mpnText.trim(), 250);
@@ -54,15 +36,6 @@ export function VendorPartsTable() {
   const [vzMin, setVzMin] = useState<number | null>(numberParam(search.get('vzNomMin')) ?? null);
   const [vzMax, setVzMax] = useState<number | null>(numberParam(search.get('vzNomMax')) ?? null);
 
-  const pagination: MRT_PaginationState = {
-    pageIndex: numberParam(search.get('page')) ?? 0,
-    pageSize: numberParam(search.get('size')) ?? 50,
-  };
-  const sortText = search.get('sort') ?? 'mpn';
-  const sorting: MRT_SortingState = sortText
-    .split(',')
-    .filter(Boolean)
-    .map((s) => ({ id: s.replace(/^-/, ''), desc: s.startsWith('-') }));
   const manufacturerFilter = (search.get('manufacturer') ?? '').split(',').filter(Boolean);
   const hasCard = search.get('hasCard') ?? '';
 
@@ -87,7 +60,7 @@ export function VendorPartsTable() {
   const params: VendorPartListParams = {
     pageIndex: pagination.pageIndex,
     pageSize: pagination.pageSize,
-    sort: sortText,
+    sort: listState.sort,
     mpn: search.get('mpn') || undefined,
     manufacturer: manufacturerFilter.length ? manufacturerFilter.join(',') : undefined,
     package: search.get('package') || undefined,
@@ -173,33 +146,11 @@ export function VendorPartsTable() {
   const table = useMantineReactTable({
     ...denseTableOptions<VendorPart>(),
     columns,
-    data: list.data?.items ?? [],
-    rowCount: list.data?.total ?? 0,
+    ...serverTableOptions(list, listState),
     getRowId: (p) => String(p.id),
-    manualPagination: true,
-    manualSorting: true,
-    manualFiltering: true,
-    enableColumnFilters: false,
-    enableGlobalFilter: false,
     enableMultiSort: true,
     isMultiSortEvent: (e) => (e as MouseEvent).shiftKey,
-    state: {
-      pagination,
-      sorting,
-      isLoading: list.isPending,
-      showProgressBars: list.isFetching && !list.isPending,
-      showAlertBanner: list.isError,
-    },
-    onPaginationChange: (updater) => {
-      const next = typeof updater === 'function' ? updater(pagination) : updater;
-      set({ page: next.pageIndex || undefined, size: next.pageSize === 50 ? undefined : next.pageSize }, false);
-    },
-    onSortingChange: (updater) => {
-      const next = (typeof updater === 'function' ? updater(sorting) : updater).filter((s) => SORTABLE.has(s.id));
-      set({ sort: next.map((s) => `${s.desc ? '-' : ''}${s.id}`).join(',') || 'mpn' });
-    },
     mantinePaginationProps: { rowsPerPageOptions: PAGE_SIZES },
-    mantineToolbarAlertBannerProps: list.isError ? { color: 'red', children: describeError(list.error) } : undefined,
     renderEmptyRowsFallback: () => (
       <Text c="dimmed" ta="center" py="lg" fz="sm">
         {anyFilter ? 'No vendor part matches these filters.' : 'No vendor parts yet: upload a datasheet or import a CSV.'}
