@@ -42,7 +42,7 @@ describe('text ranking (fuse.js over the candidates SQL left)', () => {
   it('splits words, compacts part numbers, and reads the repository lists', () => {
     expect(textTokens('  qhz   5v6 a ')).toEqual(['qhz', '5v6']);
     expect(textTokens('a')).toEqual(['a']);
-    expect(compact('BZX 84-C5.1/V')).toBe('bzx84c51v');
+    expect(compact('QHZ 15-C5.1/V')).toBe('qhz15c51v');
     expect(splitHouseParts('OHI-ZD-1056\tRef diode\nOHI-ZD-1051\t')).toEqual({ numbers: ['OHI-ZD-1056', 'OHI-ZD-1051'], descriptions: ['Ref diode'] });
     expect(splitHouseParts(null)).toEqual({ numbers: [], descriptions: [] });
   });

@@ -12,7 +12,7 @@ export interface TextRecord {
 }
 
 interface IndexedRecord extends Omit<TextRecord, 'houseParts'> {
-  /** The part number without separators, so "bzx84c5v1" finds "BZX84-C5V1". */
+  /** The part number without separators, so "brz055v1" finds "BRZ05-5V1". */
   mpnCompact: string;
   housePartsCompact: string[];
 }
