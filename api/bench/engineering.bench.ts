@@ -5,26 +5,15 @@ import type { EngineeringCard } from '@shuntwise/contracts';
 import { fitBreakdownModel } from '../src/engineering/breakdown-model';
 import { normalize, normalizePoints } from '../src/engineering/normalize';
 import { K_OVER_Q, ZERO_CELSIUS_K, thermalVoltage } from '../src/engineering/physics';
+import { median, seededRandom } from './bench-support';
 
 const CARDS = 100_000;
 const CURRENTS = [0.001, 0.005, 0.02];
 const AMBIENTS_C = [-40, 25, 85];
 const ROUNDS = 5;
 
-/** Small deterministic PRNG (mulberry32) so every run normalises the same cards. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 function generateCards(n: number): EngineeringCard[] {
-  const rnd = random(20261201);
+  const rnd = seededRandom(20261201);
   const logU = (min: number, max: number) => Math.exp(Math.log(min) + rnd() * Math.log(max / min));
   const cards: EngineeringCard[] = [];
   for (let i = 0; i < n; i++) {
@@ -130,11 +119,6 @@ function time(fn: () => number): { ms: number; sum: number } {
   const start = process.hrtime.bigint();
   const sum = fn();
   return { ms: Number(process.hrtime.bigint() - start) / 1e6, sum };
-}
-
-function median(xs: number[]): number {
-  const s = [...xs].sort((x, y) => x - y);
-  return s[Math.floor(s.length / 2)];
 }
 
 const cards = generateCards(CARDS);

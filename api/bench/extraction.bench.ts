@@ -12,16 +12,11 @@ import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { listDatasheetFixtures } from '@shuntwise/test-fixtures';
 import { extractDatasheet, loadPdfjs } from '../src/extraction';
+import { median, quantile } from './bench-support';
 
 const ROUNDS = 7;
 const TEN_PAGE_RUNS = 25;
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = Math.floor(s.length / 2);
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
-const quantile = (xs: number[], q: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(q * xs.length))];
 
 async function pdfjsText(pdfjs: Awaited<ReturnType<typeof loadPdfjs>>, bytes: Uint8Array): Promise<number> {
   const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), verbosity: 0, isEvalSupported: false, disableFontFace: true, useSystemFonts: false })

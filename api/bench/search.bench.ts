@@ -17,6 +17,7 @@ import { ensureDatabase, startMariaDb } from '../src/dev/mariadb-server';
 import { SearchRepository } from '../src/search/search.repository';
 import { SearchService } from '../src/search/search.service';
 import { rankByText, type TextRecord } from '../src/search/text-ranking';
+import { median, p90, seededRandom } from './bench-support';
 
 const PARTS = 100_000;
 const MAKERS = 40;
@@ -25,25 +26,11 @@ const ALTERNATES = 4;
 const ROUNDS = 15;
 const PACKAGES = ['SOD-123', 'SOD-123F', 'SOD-323', 'SOD-523', 'DO-35', 'DO-41', 'SMA', 'SMB', 'SOT-23', 'MELF'];
 
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-const p90 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length * 0.9)];
-
-/** Small deterministic PRNG (mulberry32) so every run loads the same catalogue. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const value = (v: number) => ({ value: v, printed: null, provenance: { source: 'imported', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
 
 async function load(sequelize: Sequelize): Promise<void> {
-  const rnd = random(20261207);
+  const rnd = seededRandom(20261207);
   const insert = (sql: string, replacements: unknown[]) => sequelize.query(sql, { replacements, type: QueryTypes.INSERT });
   await insert(`INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`, []);
   const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
@@ -200,7 +187,7 @@ async function main() {
     }
 
     // The ranking step alone, over candidates shaped like the SQL's.
-    const rnd = random(7);
+    const rnd = seededRandom(7);
     const records: TextRecord[] = Array.from({ length: SEARCH_TEXT_CANDIDATES }, (_, i) => {
       const vz = (2.4 + rnd() * 70).toFixed(1).replace('.', 'V');
       return { id: i + 1, mpn: `ZX${String(i % 40).padStart(2, '0')}-${vz}-${i}`, manufacturer: `Invented Maker ${String(i % 40).padStart(2, '0')}`, package: PACKAGES[i % PACKAGES.length], houseParts: [`HP-${String(i % 2000).padStart(5, '0')}`], descriptions: ['Regulator diode, invented bench part, clamp'] };

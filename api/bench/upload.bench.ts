@@ -16,6 +16,7 @@ import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { listDatasheetFixtures } from '@shuntwise/test-fixtures';
 import { extractDatasheet } from '../src/extraction';
+import { median, p90 } from './bench-support';
 
 const RUNS = 15;
 const root = join(__dirname, '..', '..');
@@ -29,8 +30,6 @@ const freePort = () =>
       s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
     });
   });
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-const p90 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(0.9 * xs.length))];
 
 async function main(): Promise<void> {
   const start = join(root, 'api', 'dist', 'dev', 'start.js');

@@ -15,25 +15,12 @@ import { migrateUp } from '../src/database/migrator';
 import { freePort } from '../src/dev/free-port';
 import { ensureDatabase, startMariaDb } from '../src/dev/mariadb-server';
 import { VendorPartsRepository } from '../src/vendor-parts/vendor-parts.repository';
+import { median, p90, seededRandom } from './bench-support';
 
 const PARTS = 100_000;
 const MAKERS = 40;
 const ROUNDS = 25;
 
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-const p90 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length * 0.9)];
-
-/** Small deterministic PRNG (mulberry32) so every run loads the same parts. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 async function main() {
   const dir = resolve(__dirname, '..', '..', '.data-test', `bench-list-${process.pid}`);
@@ -44,7 +31,7 @@ async function main() {
     await migrateUp(sequelize);
 
     const t0 = performance.now();
-    const rnd = random(20261201);
+    const rnd = seededRandom(20261201);
     const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
     await sequelize.query(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, { replacements: makers, type: QueryTypes.INSERT });
     const packages = ['SOD-123', 'SOD-123F', 'SOD-323', 'SOD-523', 'DO-35', 'DO-41', 'SMA', 'SOT-23'];
