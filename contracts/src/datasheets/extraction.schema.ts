@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CARD_FIELDS, type CardField } from '../parts/rating-card.schema';
 
 /**
  * What the datasheet extraction found: candidate ratings per variant, each traceable to
@@ -6,23 +7,8 @@ import { z } from 'zod';
  * only: an engineer accepts or corrects each one on the rating card.
  */
 
-/** The card fields extraction looks for. */
-export const EXTRACTION_FIELDS = [
-  'vzMin',
-  'vzNom',
-  'vzMax',
-  'izt',
-  'zzt',
-  'izk',
-  'zzk',
-  'irMax',
-  'vr',
-  'tc',
-  'pdMax',
-  'tjMax',
-  'rthJA',
-  'izm',
-] as const;
+/** The card fields extraction looks for: all of the rating card's except pdRefC, which datasheets state as a condition of pdMax. */
+export const EXTRACTION_FIELDS = CARD_FIELDS.filter((f): f is Exclude<CardField, 'pdRefC'> => f !== 'pdRefC');
 export const extractionFieldSchema = z.enum(EXTRACTION_FIELDS);
 export type ExtractionField = z.infer<typeof extractionFieldSchema>;
 
