@@ -11,6 +11,10 @@ import type { Request, RequestHandler, Response } from 'express';
 import multer, { MulterError } from 'multer';
 import { ENV, type Env } from '../config/env';
 
+/** C0 and C1 control characters (and DEL): no file name has a reason to carry them. */
+// eslint-disable-next-line no-control-regex
+const CONTROL_CHARACTER = /[\u0000-\u001f\u007f-\u009f]/;
+
 /**
  * Multer with memory storage for `POST /datasheets`: one file in the field `file`, at most
  * UPLOAD_MAX_BYTES. Its errors become plain 4xx messages. Nothing touches the disk.
@@ -32,16 +36,31 @@ export class DatasheetUploadInterceptor implements NestInterceptor {
 
   async intercept(context: ExecutionContext, next: CallHandler) {
     const http = context.switchToHttp();
+    const req = http.getRequest<Request>();
     await new Promise<void>((resolve, reject) =>
-      this.upload(http.getRequest<Request>(), http.getResponse<Response>(), (error: unknown) => (error ? reject(this.describe(error)) : resolve())),
+      this.upload(req, http.getResponse<Response>(), (error: unknown) => (error ? reject(this.describe(error)) : resolve())),
     );
+    const name = req.file?.originalname;
+    if (name !== undefined && CONTROL_CHARACTER.test(name)) {
+      throw new BadRequestException({
+        message: 'The file name contains control characters; rename the file and upload it again',
+        errors: [{ path: 'file', message: 'file name contains control characters' }],
+      });
+    }
     return next.handle();
   }
 
   private describe(error: unknown): unknown {
     if (!(error instanceof MulterError)) {
       const message = (error as Error)?.message ?? '';
-      if (/multipart|boundary|unexpected end/i.test(message)) return new BadRequestException(`The upload is not a complete multipart form (${message}); send the PDF in the field "file"`);
+      // busboy refuses a part header with control bytes (e.g. in the file name) as malformed.
+      if (/malformed part header/i.test(message)) {
+        return new BadRequestException({
+          message: 'The upload form has a malformed part header: the file name may not contain control characters',
+          errors: [{ path: 'file', message: 'file name or part header contains characters a header cannot carry' }],
+        });
+      }
+      if (/multipart|boundary|unexpected end|malformed/i.test(message)) return new BadRequestException(`The upload is not a complete multipart form (${message}); send the PDF in the field "file"`);
       return error;
     }
     switch (error.code) {

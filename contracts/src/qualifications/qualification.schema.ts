@@ -180,8 +180,12 @@ export type QualificationPage = z.infer<typeof qualificationPageSchema>;
 
 const text = (max: number) => z.string().trim().max(max);
 const required = (what: string, max = 2000) => z.string().trim().min(1, `Write the ${what}`).max(max);
-/** The case version the caller saw; a stale one is refused with 409. */
-const versionField = z.number().int().min(0).optional();
+/**
+ * The case version the caller saw; a stale one is refused with 409. Required on every action
+ * that changes the case, so no request can skip the optimistic lock by leaving it out
+ * (a re-check opens a new case and leaves this one as it is, so it takes none).
+ */
+const versionField = z.number({ error: (i) => (i.input === undefined ? 'Send the case version you loaded' : 'must be the case version, a whole number') }).int().min(0);
 
 /** `POST /api/qualifications` (engineers): opens a case and evaluates it against the current spec and card. */
 export const createQualificationRequestSchema = z.strictObject({
