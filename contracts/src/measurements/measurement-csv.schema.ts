@@ -30,3 +30,7 @@ export const measurementCsvReadingSchema = z.object({
   warnings: z.array(z.string()),
 });
 export type MeasurementCsvReading = z.infer<typeof measurementCsvReadingSchema>;
+
+/** Mean, extremes and sample standard deviation (n − 1) of one figure across samples (SI). */
+export const spreadSchema = z.object({ n: z.number().int(), mean: z.number(), min: z.number(), max: z.number(), stdDev: z.number() });
+export type SpreadDto = z.infer<typeof spreadSchema>;
