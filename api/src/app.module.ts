@@ -21,6 +21,7 @@ import { QualificationRequestsModule } from './qualification-requests/qualificat
 import { QualificationsModule } from './qualifications/qualifications.module';
 import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
+import { MeasurementsModule } from './measurements/measurements.module';
 import { SeedModule } from './seed/seed.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
@@ -34,7 +35,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule, QualificationRequestsModule, SearchModule];
+  QualificationsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
 
 @Module({})
 export class AppModule {

@@ -121,3 +121,7 @@ export const measurementSetSchema = z.object({
   analysis: measurementAnalysisSchema,
 });
 export type MeasurementSet = z.infer<typeof measurementSetSchema>;
+
+/** `?housePartId=` holds the samples against that house part's current spec as well as the card. */
+export const measurementSetQuerySchema = z.object({ housePartId: z.coerce.number().int().positive().optional() });
+export type MeasurementSetQuery = z.infer<typeof measurementSetQuerySchema>;
