@@ -10,7 +10,8 @@ import {
   type SampleResult,
   type Spec,
 } from '@shuntwise/contracts';
-import { diodeVoltage, dynamicImpedance, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { diodeVoltage, dynamicImpedance, fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { EngineeringInputError } from '../engineering/engineering-input.error';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { fitMeasuredSample, MeasuredFitError, spreadOf } from '../engineering/measured-fit';
 import { T_REF_C } from '../engineering/physics';
@@ -111,6 +112,7 @@ export function analyseMeasurements(input: MeasurementAnalysisInput): Measuremen
     if (s.zdMax !== null) checks.push(maxCheck('spec-zd', 'spec', samples, (x) => x.zdAtIRef, s.zdMax, band, amps(s.iRef)));
   }
   return {
+    datasheetBand: card ? datasheetBand(card, samples, warnings) : [],
     cardVersion: input.cardVersion,
     housePartId: spec?.housePartId ?? null,
     specVersion: spec?.version ?? null,
@@ -123,6 +125,24 @@ export function analyseMeasurements(input: MeasurementAnalysisInput): Measuremen
     warnings,
     caution: DESIGN_CAUTION,
   };
+}
+
+/** The card's curve at its tolerance ends over the measured currents (40 log-spaced points). */
+function datasheetBand(card: EngineeringCardInput, samples: SampleResult[], warnings: string[]): MeasurementAnalysis['datasheetBand'] {
+  const ranges = samples.map((s) => s.currentRange).filter((r): r is { min: number; max: number } => r !== null);
+  const lo = ranges.length ? Math.min(...ranges.map((r) => r.min)) : (card.izk ?? card.izt / 10);
+  const hi = ranges.length ? Math.max(...ranges.map((r) => r.max)) : card.izt * 4;
+  try {
+    const model = fitBreakdownModel(card);
+    return Array.from({ length: 40 }, (_, k) => {
+      const current = lo * (hi / lo) ** (k / 39);
+      return { current, low: diodeVoltage(model, current, T_REF_C, 'min'), nom: diodeVoltage(model, current, T_REF_C, 'nom'), high: diodeVoltage(model, current, T_REF_C, 'max') };
+    });
+  } catch (error) {
+    if (!(error instanceof EngineeringInputError)) throw error;
+    warnings.push(`the card cannot be drawn as a band: ${error.message}`);
+    return [];
+  }
 }
 
 function lotsOf(samples: SampleResult[]): LotResult[] {

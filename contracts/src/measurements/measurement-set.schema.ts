@@ -98,6 +98,11 @@ export const measurementAnalysisSchema = z.object({
   /** Per lot, and a last entry with lot null over every sample when there are several lots. */
   lots: z.array(lotResultSchema),
   checks: z.array(measuredCheckSchema),
+  /**
+   * The datasheet's band at 25 °C from the card's fitted model, over the measured currents:
+   * the low and high tolerance ends and the nominal part (V), for drawing the samples against.
+   */
+  datasheetBand: z.array(z.object({ current: z.number(), low: z.number(), nom: z.number(), high: z.number() })),
   overall: qualificationVerdictSchema,
   assumptions: z.array(z.string()),
   warnings: z.array(z.string()),
