@@ -109,6 +109,11 @@ export class MeasurementSetsService {
     }
   }
 
+  /** True when these very bytes are already a measurement set of the part. */
+  async isStored(vendorPartId: number, buffer: Buffer): Promise<boolean> {
+    return (await this.sets.findBySha256(vendorPartId, createHash('sha256').update(buffer).digest('hex'))) !== null;
+  }
+
   async get(id: number, housePartId?: number): Promise<MeasurementSet> {
     const row = await this.sets.findById(id);
     if (!row) throw new NotFoundException(`No measurement set with id ${id}`);
