@@ -22,6 +22,7 @@ import { QualificationsModule } from './qualifications/qualifications.module';
 import { RateLimitsModule } from './rate-limits/rate-limits.module';
 import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
+import { MeasurementsModule } from './measurements/measurements.module';
 import { SeedModule } from './seed/seed.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
@@ -35,7 +36,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule, QualificationRequestsModule, SearchModule];
+  QualificationsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
 
 @Module({})
 export class AppModule {

@@ -7,6 +7,8 @@ export * from './engineering/card.schema';
 export * from './engineering/envelope.schema';
 export * from './engineering/normalize.schema';
 export * from './engineering/regulator.schema';
+export * from './measurements/measurement-csv.schema';
+export * from './measurements/measurement-set.schema';
 export * from './parts/card-from-extraction';
 export * from './parts/csv-import.schema';
 export * from './parts/datasheet.schema';

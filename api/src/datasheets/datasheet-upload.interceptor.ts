@@ -23,6 +23,8 @@ const CONTROL_CHARACTER = /[\u0000-\u001f\u007f-\u009f]/;
 export class DatasheetUploadInterceptor implements NestInterceptor {
   private readonly upload: RequestHandler;
   private readonly limit: number;
+  /** What the one file is, for the messages (a subclass for other uploads says so). */
+  protected readonly fileWord: string = 'PDF';
 
   constructor(@Inject(ENV) env: Env) {
     this.limit = env.UPLOAD_MAX_BYTES;
@@ -60,7 +62,7 @@ export class DatasheetUploadInterceptor implements NestInterceptor {
           errors: [{ path: 'file', message: 'file name or part header contains characters a header cannot carry' }],
         });
       }
-      if (/multipart|boundary|unexpected end|malformed/i.test(message)) return new BadRequestException(`The upload is not a complete multipart form (${message}); send the PDF in the field "file"`);
+      if (/multipart|boundary|unexpected end|malformed/i.test(message)) return new BadRequestException(`The upload is not a complete multipart form (${message}); send the ${this.fileWord} in the field "file"`);
       return error;
     }
     switch (error.code) {
@@ -68,7 +70,7 @@ export class DatasheetUploadInterceptor implements NestInterceptor {
         return new PayloadTooLargeException(`The file is larger than the upload limit of ${megabytes(this.limit)}: nothing was stored`);
       case 'LIMIT_UNEXPECTED_FILE':
         return new BadRequestException(
-          error.field === 'file' ? 'Send one file per upload' : `Send the PDF in the multipart field "file" (it came in "${error.field ?? '?'}")`,
+          error.field === 'file' ? 'Send one file per upload' : `Send the ${this.fileWord} in the multipart field "file" (it came in "${error.field ?? '?'}")`,
         );
       case 'LIMIT_FILE_COUNT':
         return new BadRequestException('Send one file per upload');

@@ -13,8 +13,8 @@ export const normalizeRequestSchema = z.strictObject({
 });
 export type NormalizeRequest = z.infer<typeof normalizeRequestSchema>;
 
-/** How the impedance part of the breakdown model was obtained from the card. */
-export const MODEL_BASES = ['two-point', 'izt-only', 'izk-only', 'clamped', 'none'] as const;
+/** How the impedance part of the breakdown model was obtained: from the card, or fitted to measured points. */
+export const MODEL_BASES = ['two-point', 'izt-only', 'izk-only', 'clamped', 'none', 'measured'] as const;
 export const modelBasisSchema = z.enum(MODEL_BASES);
 export type ModelBasis = z.infer<typeof modelBasisSchema>;
 

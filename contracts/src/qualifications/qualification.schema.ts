@@ -66,7 +66,7 @@ export const qualificationCommentSchema = z.object({
 export type QualificationComment = z.infer<typeof qualificationCommentSchema>;
 
 /** Why a case needs a re-check: a catalogue change after it was evaluated. */
-export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised'] as const;
+export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised', 'measurements-added'] as const;
 export const recheckCauseSchema = z.enum(RECHECK_CAUSES);
 export type RecheckCause = z.infer<typeof recheckCauseSchema>;
 

@@ -5,9 +5,10 @@ import { vendorPartListColumns } from './2026-12-01-0003-vendor-part-list-column
 import { qualifications } from './2026-12-01-0004-qualifications';
 import { qualificationRequests } from './2026-12-01-0005-qualification-requests';
 import { rateLimitWindows } from './2026-12-04-0200-rate-limit-windows';
+import { measurementSets } from './2026-12-04-0700-measurement-sets';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
  * `YYYY-MM-DD-NNNN-what.ts`); never edit one that has landed.
  */
-export const MIGRATIONS: Migration[] = [usersAndMail, catalogue, vendorPartListColumns, qualifications, qualificationRequests, rateLimitWindows];
+export const MIGRATIONS: Migration[] = [usersAndMail, catalogue, vendorPartListColumns, qualifications, qualificationRequests, rateLimitWindows, measurementSets];
