@@ -184,7 +184,8 @@ export interface RandomAnswerKey {
 }
 
 /** One invented datasheet of random layout with its answer key; the same seed gives the same bytes. */
-export declare function generateRandomDatasheet(seed: number): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
+/** `overrides` pins some choices; the rest and all values still come from the seed. */
+export declare function generateRandomDatasheet(seed: number, overrides?: Partial<LayoutChoices>): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
 
 /** "name=value" labels of a choice set (one per choice; vocabulary and clutter per item), for scoring per choice. */
 export declare function layoutChoiceLabels(choices: LayoutChoices): string[];

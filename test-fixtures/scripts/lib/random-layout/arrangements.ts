@@ -50,18 +50,18 @@ function atSign(ctx: Ctx, s: SeriesModel, spec: ParamSpec): boolean {
   return !(spec.cond.key === 'izt' && ownIzt(ctx, s));
 }
 
-/** The printed cell of a quantity for a part; records what it prints. */
+/** The printed cell of a quantity for a part; records what it prints unless page is 0. */
 export function cell(ctx: Ctx, s: SeriesModel, spec: ParamSpec, row: PartModel[], first: boolean, unitInCell: boolean, page: number): string {
   const { pen } = ctx;
   const p = row[0];
   const v = p.values[spec.field];
   if (!v) return '–';
-  pen.record(row, spec.field, page);
+  if (page) pen.record(row, spec.field, page);
   let text = marked(ctx, pen.num(v.value), 2, first && (spec.field === 'vzNom' || spec.field === 'tc'));
   if (unitInCell) text += ` ${v.unit}`;
   if (atSign(ctx, s, spec)) {
     const cv = p.values[spec.cond!.field]!;
-    pen.record(row, spec.cond!.field, page);
+    if (page) pen.record(row, spec.cond!.field, page);
     text += ` @ ${pen.vu(cv)}`;
   }
   return text;
@@ -109,13 +109,26 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   if (withPkg) lead.push({ text: 'Package', width: 46 });
   lead.push({ text: 'Marking', width: 34 });
   const n0 = lead.length;
-  const width = () => (unitInCell || c.conditions === 'at-sign' ? 48 : 34);
-  const columns: GridColumn[] = [...lead.map((l) => ({ width: l.width, align: 'left' as const })), ...specs.map(() => ({ width: width(), align: 'center' as const }))];
-  const total = columns.reduce((a, b) => a + b.width, 0);
-  const avail = pen.frame.right - pen.frame.left;
-  const scale = Math.min(1, avail / total);
-  for (const col of columns) col.width *= scale;
-  const size = Math.max(5.5, 7.5 * Math.min(1, scale * 1.05));
+  const size0 = 7.5;
+  const fit = (texts: string[], bold = false) => Math.max(...texts.map((t) => pen.width(t, { size: size0, condensed: true, bold }))) + 8;
+  const columns: GridColumn[] = [
+    ...lead.map((l, i) => ({
+      width: Math.max(l.width * 0.8, fit([l.text, ...s.rows.map((r) => (i === 0 ? r[0].printedMpn : withPkg && i === 1 ? r[0].pkg.name : r[0].marking))], true)),
+      align: 'left' as const,
+    })),
+    ...specs.map(() => ({ width: 0, align: 'center' as const })),
+  ];
+  const sizeColumns = (header: HeaderSpan[][]) => {
+    specs.forEach((sp, i) => {
+      const own = header.flatMap((line) => line.filter((h) => h.from === n0 + i && h.to === n0 + i).map((h) => h.text));
+      columns[n0 + i].width = Math.max(fit(own, true), fit(s.rows.map((r, k) => cell(ctx, s, sp, r, k === 0, unitInCell, 0))), 26);
+    });
+    const total = columns.reduce((a, b) => a + b.width, 0);
+    const avail = pen.frame.right - pen.frame.left;
+    const scale = Math.min(1, avail / total);
+    for (const col of columns) col.width *= scale;
+    return size0 * scale;
+  };
   const header: HeaderSpan[][] = [];
   const fnote = (text: string, spec: ParamSpec) => (spec.field === 'izt' || spec.field === 'vzNom' ? marked(ctx, text, 3, true) : text);
   if (c.headerRows === 1) {
@@ -150,6 +163,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     );
   }
   if (c.units === 'units-row') header.push(specs.map((sp, i) => ({ text: unitOfSpec(s, sp), from: n0 + i, to: n0 + i })));
+  const size = sizeColumns(header);
   const rowsPerChunk = c.pageBreak === 'none' ? 999 : Math.ceil(s.rows.length / 2);
   const chunks: PartModel[][][] = [];
   for (let i = 0; i < s.rows.length; i += rowsPerChunk) chunks.push(s.rows.slice(i, i + rowsPerChunk));

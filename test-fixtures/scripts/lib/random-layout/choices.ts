@@ -150,7 +150,7 @@ export function choiceLabels(c: LayoutChoices): string[] {
 const ONSETS = ['b', 'br', 'd', 'dr', 'f', 'g', 'gl', 'h', 'k', 'kl', 'l', 'm', 'n', 'p', 'pl', 'r', 's', 'st', 't', 'tr', 'v', 'w', 'z'];
 const VOWELS = ['a', 'e', 'i', 'o', 'u', 'ai', 'ou', 'ea'];
 const CODAS = ['', '', 'n', 'r', 'l', 'm', 'sk', 'nd', 'rt', 'th', 'x'];
-const SUFFIXES = ['Semiconductor', 'Devices', 'Microsystems', 'Components', 'Silicon Works', 'Electronics', 'Diode Co.'];
+const SUFFIXES = ['Semiconductor', 'Devices', 'Microsystems', 'Components', 'Silicon Works', 'Electronics', 'Diode Company'];
 
 function syllable(prng: Prng): string {
   return prng.pick(ONSETS) + prng.pick(VOWELS) + prng.pick(CODAS);

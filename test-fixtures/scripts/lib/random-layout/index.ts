@@ -58,9 +58,13 @@ const ARRANGE: Record<(typeof ARRANGEMENTS)[number], Arranger> = {
   sentences,
 };
 
-export async function generateRandomDatasheet(seed: number): Promise<RandomDatasheet> {
+/**
+ * One random datasheet. `overrides` pins some choices (to look at one layout family); the
+ * other choices and all values are still drawn from the seed.
+ */
+export async function generateRandomDatasheet(seed: number, overrides: Partial<LayoutChoices> = {}): Promise<RandomDatasheet> {
   const prng = new Prng(seed);
-  const drawn = drawChoices(prng);
+  const drawn = { ...drawChoices(prng), ...overrides };
   const vendor = vendorName(prng);
   const model = buildModel(prng, drawn, vendor);
   const c = normaliseChoices(drawn);
