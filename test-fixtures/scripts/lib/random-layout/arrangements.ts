@@ -97,7 +97,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const rotated = c.orientation === 'rotated';
   flow.newPage(rotated);
   const title = tableTitle(ctx, s);
-  let y = pen.sheet.heading(title, flow.y, 9.5);
+  let y = pen.heading(title, pen.frame.left, flow.y, 9.5);
   const titlePage = pen.page;
   if (c.conditions === 'title' || c.conditions === 'header') recordSeriesConditions(ctx, s, titlePage);
   const unitInCell = c.units === 'each-value';
@@ -172,7 +172,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       pen.sheet.text('continued on next page', pen.frame.left, y, { size: 7 });
       pen.newPage(rotated);
       y = pen.frame.top;
-      if (c.pageBreak === 'repeat-header') y = pen.sheet.heading(`${title} (continued)`, y, 9.5);
+      if (c.pageBreak === 'repeat-header') y = pen.heading(`${title} (continued)`, pen.frame.left, y, 9.5);
     }
     const page = pen.page;
     const rows = chunk.map((row, r) => {
@@ -198,7 +198,7 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const rotated = c.orientation === 'rotated';
   flow.newPage(rotated);
   const title = tableTitle(ctx, s);
-  let y = pen.sheet.heading(title, flow.y, 9.5);
+  let y = pen.heading(title, pen.frame.left, flow.y, 9.5);
   if (c.conditions === 'title' || c.conditions === 'header') recordSeriesConditions(ctx, s, pen.page);
   const unitInCell = c.units === 'each-value';
   const unitCol = c.units === 'unit-column';
@@ -290,7 +290,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     if (s.iztConst) pen.record(row, 'izt', page);
     if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
   }
-  y = pen.sheet.heading(title, y, 9.5);
+  y = pen.heading(title, x, y, 9.5);
   pen.sheet.text(`Package: ${p.pkg.name}`, x, y - 4, { size: 7.5 });
   pen.recordPackage(row, page);
   y += 8;
@@ -384,7 +384,7 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       if (s.iztConst) pen.record(row, 'izt', page);
       if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
     }
-    let y = pen.sheet.heading(title, flow.y, 9.5);
+    let y = pen.heading(title, flow.x, flow.y, 9.5);
     const w = flow.width;
     leader(ctx, flow.x, y, w, 'Package', p.pkg.name);
     pen.recordPackage(row, page);
@@ -405,8 +405,10 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
         if (sp.cond?.key === 'vr' && ownVr(ctx)) label += ` at ${sym(ctx, 'vr')}`;
       }
       if (c.units === 'header') label += ` (${unit})`;
-      const text = cell(ctx, s, sp, row, r === 0, c.units === 'each-value', page);
-      leader(ctx, flow.x, y, w, label, text, c.units === 'unit-column' ? unit : '');
+      // A value with "@ condition" carries its own unit (a unit after the condition would be ambiguous).
+      const own = c.units === 'each-value' || (c.units === 'unit-column' && atSign(ctx, s, sp));
+      const text = cell(ctx, s, sp, row, r === 0, own, page);
+      leader(ctx, flow.x, y, w, label, text, c.units === 'unit-column' && !own ? unit : '');
       y += 11;
     }
     flow.y = y + 6;
