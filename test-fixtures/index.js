@@ -58,8 +58,8 @@ function loadRandomLayout() {
   return randomLayout;
 }
 
-function generateRandomDatasheet(seed, overrides) {
-  return loadRandomLayout().generateRandomDatasheet(seed, overrides);
+function generateRandomDatasheet(seed, overrides, options) {
+  return loadRandomLayout().generateRandomDatasheet(seed, overrides, options);
 }
 
 function layoutChoiceLabels(choices) {

@@ -3,6 +3,7 @@
  * iterating on the extractor:
  *
  *   npx tsx api/scripts/score-random-layouts.ts --seed 1 --count 150 [--misses 5] [--failing 40] [--set arrangement=rows --set decimal=comma]
+ *   npx tsx api/scripts/score-random-layouts.ts --seed 1 --count 10 --scanned    (image-only copies, read by OCR)
  *
  * Documents use seeds seed … seed + count − 1; `npm run generate:random -w test-fixtures`
  * writes the same documents to a folder for looking at.
@@ -19,6 +20,7 @@ async function main(): Promise<void> {
       misses: { type: 'string', default: '0' },
       failing: { type: 'string', default: '25' },
       set: { type: 'string', multiple: true, default: [] },
+      scanned: { type: 'boolean', default: false },
     },
   });
   // --set name=value pins a layout choice (numbers and true/false are read as such).
@@ -30,14 +32,30 @@ async function main(): Promise<void> {
   const seed = Number(values.seed);
   const count = Number(values.count);
   if (!Number.isInteger(seed) || !Number.isInteger(count) || count < 1) throw new Error('--seed and --count must be whole numbers (count at least 1)');
+  const rasterise = values.scanned ? await loadRasteriser() : undefined;
   const started = Date.now();
   const report = await scoreRandomLayouts(
     Array.from({ length: count }, (_, i) => seed + i),
     (pdf) => extractDatasheet(pdf),
     overrides,
+    rasterise,
   );
   console.log(formatReport(report, { misses: Number(values.misses), failing: Number(values.failing) }));
   console.log(`\n(${((Date.now() - started) / 1000).toFixed(1)} s)`);
+}
+
+/** The OCR work's rasteriser (test-fixtures/scripts/lib/raster.ts), when it is on this branch. */
+async function loadRasteriser(): Promise<(pdf: Buffer, seed: number) => Promise<Buffer>> {
+  const path = '../../test-fixtures/scripts/lib/raster';
+  let mod: { rasterisePdf?: (pdf: Uint8Array, o: { seed: number }) => Promise<{ pdf: Buffer }> };
+  try {
+    mod = (await import(path)) as typeof mod;
+  } catch {
+    throw new Error('--scanned needs test-fixtures/scripts/lib/raster.ts (the OCR work); merge it first');
+  }
+  const fn = mod.rasterisePdf;
+  if (!fn) throw new Error('test-fixtures/scripts/lib/raster.ts has no rasterisePdf');
+  return async (pdf, seed) => (await fn(pdf, { seed })).pdf;
 }
 
 main().catch((err: unknown) => {

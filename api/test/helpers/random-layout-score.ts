@@ -131,10 +131,11 @@ export async function scoreRandomLayouts(
   seeds: number[],
   extract: (pdf: Uint8Array) => Promise<ExtractionResult>,
   overrides: Partial<LayoutChoices> = {},
+  rasterise?: (pdf: Buffer, seed: number) => Promise<Buffer>,
 ): Promise<RandomLayoutReport> {
   const docs: DocScore[] = [];
   for (const seed of seeds) {
-    const { pdf, answers } = await generateRandomDatasheet(seed, overrides);
+    const { pdf, answers } = await generateRandomDatasheet(seed, overrides, { rasterise });
     docs.push(scoreDocument(answers, await extract(new Uint8Array(pdf))));
   }
   return summarise(docs);

@@ -51,6 +51,8 @@ export interface LayoutChoices {
   clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
   /** The vendor's words and symbols. */
   vocabulary: Vocabulary;
+  /** Image-only pages (a scan made by a rasteriser); never drawn at random, OCR is slow. */
+  imageOnly?: boolean;
 }
 
 export type VocabKey = 'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth';
