@@ -163,6 +163,8 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
   const lines = ratingLines(ctx, pkg, true);
   const record = (page: number) => {
     for (const l of lines) if (l.field && l.val) pen.recordDevice(parts, l.field, l.val, page);
+    // A heading that names the package tells which package these parts come in.
+    if (heading.includes(pkg.name)) pen.recordPackage(parts, page);
   };
   const w = flow.width;
   if (c.ratingsForm === 'sentence') {
