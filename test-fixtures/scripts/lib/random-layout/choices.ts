@@ -166,6 +166,10 @@ export function choiceLabels(c: LayoutChoices): string[] {
       for (const [vk, w] of Object.entries(v as Vocabulary)) out.push(`symbol.${vk}=${w.symbol}`, `name.${vk}=${w.name}`);
     } else if (k === 'clutter') {
       for (const item of ['prose', 'curves', 'outline', 'example']) out.push(`clutter.${item}=${(v as string[]).includes(item)}`);
+    } else if (k === 'micro' || k === 'ohm') {
+      // µ/μ and Ω/Ω look alike: the code point tells them apart in a report.
+      const ch = String(v);
+      out.push(`${k}=${ch}${ch.length === 1 && ch.charCodeAt(0) > 127 ? ` U+${ch.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}` : ''}`);
     } else out.push(`${k}=${String(v)}`);
   }
   return out;
