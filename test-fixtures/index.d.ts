@@ -152,3 +152,65 @@ export interface MeasurementFixture {
   note: string;
 }
 export declare function listMeasurementFixtures(): MeasurementFixture[];
+
+/** A value of a random datasheet's answer key; `derived` when it is not printed as such (min/max from a tolerance letter). */
+export interface RandomAnswerValue extends AnswerValue {
+  derived?: 'tolerance-suffix';
+}
+
+/** The layout choices a random datasheet was drawn with (see README.md, "Random layouts"). */
+export interface LayoutChoices {
+  arrangement: 'rows' | 'transposed' | 'part-per-page' | 'leader-list' | 'param-table' | 'sentences';
+  headerRows: 1 | 2 | 3;
+  footnotes: boolean;
+  units: 'header' | 'units-row' | 'each-value' | 'unit-column';
+  conditions: 'header' | 'column' | 'at-sign' | 'title';
+  decimal: 'point' | 'comma';
+  micro: 'µ' | 'μ' | 'u';
+  ohm: '\u03A9' | '\u2126' | 'ohm';
+  tcUnit: 'mV/K' | 'mV/°C' | '%/K' | '%/°C';
+  rthUnit: 'K/W' | '°C/W';
+  derating: boolean;
+  maxRatings: 'once' | 'per-series' | 'per-package';
+  ratingsForm: 'table' | 'list' | 'sentence';
+  series: 1 | 2;
+  tolerance: 'min-max' | 'suffix-legend';
+  orderingCodes: boolean;
+  orientation: 'portrait' | 'rotated';
+  pageColumns: 1 | 2;
+  ruled: boolean;
+  placement: 'line' | 'word' | 'glyph';
+  pageBreak: 'none' | 'repeat-header' | 'no-repeat';
+  clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
+  vocabulary: Record<'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth', { symbol: string; name: string }>;
+  qualifiers: 'lower' | 'dot' | 'words';
+  unitBrackets: '()' | '[]';
+  /** Image-only pages made by a rasteriser (only when one is passed; never drawn at random). */
+  imageOnly?: boolean;
+}
+
+export interface RandomAnswerKey {
+  file: string;
+  vendor: string;
+  title: string;
+  layout: string;
+  pages: number;
+  seed: number;
+  variants: Array<{ mpn: string; package: { value: string; page: number }; fields: Partial<Record<RatingField, RandomAnswerValue>> }>;
+  choices: LayoutChoices;
+}
+
+/** One invented datasheet of random layout with its answer key; the same seed gives the same bytes. */
+/**
+ * `overrides` pins some choices; the rest and all values still come from the seed.
+ * `rasterise` turns the PDF into an image-only one page for page (e.g. the OCR work's
+ * scripts/lib/raster.ts); the answer key stays valid.
+ */
+export declare function generateRandomDatasheet(
+  seed: number,
+  overrides?: Partial<LayoutChoices>,
+  options?: { rasterise?: (pdf: Buffer, seed: number) => Promise<Buffer> },
+): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
+
+/** "name=value" labels of a choice set (one per choice; vocabulary and clutter per item), for scoring per choice. */
+export declare function layoutChoiceLabels(choices: LayoutChoices): string[];

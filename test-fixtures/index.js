@@ -48,4 +48,28 @@ function listMeasurementFixtures() {
   return readJson(path.join(paths.measurements, 'measurements.json')).map((m) => ({ ...m, csvPath: path.join(paths.measurements, m.file) }));
 }
 
-module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures, listMeasurementFixtures };
+/**
+ * Random-layout datasheets (scripts/lib/random-layout, TypeScript): loaded through tsx's
+ * require hook on first use, so that plain Node, jest and tsx can all call it without a build.
+ */
+let randomLayout;
+function loadRandomLayout() {
+  if (!randomLayout) {
+    // Under jest the test runner's own TypeScript transform loads it; elsewhere tsx does.
+    randomLayout =
+      process.env.JEST_WORKER_ID !== undefined
+        ? require('./scripts/lib/random-layout/index.ts')
+        : require('tsx/cjs/api').require('./scripts/lib/random-layout/index.ts', __filename);
+  }
+  return randomLayout;
+}
+
+function generateRandomDatasheet(seed, overrides, options) {
+  return loadRandomLayout().generateRandomDatasheet(seed, overrides, options);
+}
+
+function layoutChoiceLabels(choices) {
+  return loadRandomLayout().choiceLabels(choices);
+}
+
+module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures, listMeasurementFixtures, generateRandomDatasheet, layoutChoiceLabels };
