@@ -1,8 +1,19 @@
 import { Alert, Anchor } from '@mantine/core';
 import { Link, useParams } from 'react-router';
+import { useCompare } from '@/features/compare/api/get-compare';
 import { CompareView } from '@/features/compare/components/compare-view';
+import { MeasuredEvidence } from '@/features/measurements/components/measured-evidence';
 import { OpenCaseButton } from '@/features/qualifications/components/open-case-button';
 import { useSession } from '@/lib/session';
+
+/** Each source's bench measurements against the spec, below the datasheet-based comparison (engineers and admins). */
+function CompareMeasurements({ housePartId }: { housePartId: number }) {
+  const role = useSession()?.user.role;
+  const compare = useCompare(housePartId);
+  if (!compare.data || (role !== 'engineer' && role !== 'admin')) return null;
+  const sources = compare.data.sources.map((s) => ({ vendorPartId: s.vendorPart.id, label: `${s.vendorPart.manufacturer} ${s.vendorPart.mpn} (${s.role})` }));
+  return <MeasuredEvidence housePartId={housePartId} sources={sources} />;
+}
 
 export function CompareRoute() {
   const session = useSession();
@@ -16,6 +27,7 @@ export function CompareRoute() {
   }
   const engineer = session?.user.role === 'engineer';
   return (
+    <>
     <CompareView
       key={housePartId}
       housePartId={housePartId}
@@ -25,5 +37,7 @@ export function CompareRoute() {
         ) : null
       }
     />
+    <CompareMeasurements key={`m${housePartId}`} housePartId={housePartId} />
+    </>
   );
 }

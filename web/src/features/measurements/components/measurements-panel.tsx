@@ -27,7 +27,8 @@ function Spread({ spread, kind }: { spread: SpreadDto | null; kind: 'voltage' | 
   );
 }
 
-function SetResult({ set }: { set: MeasurementSet }) {
+/** One measurement set: its checks, the points over the datasheet band, the spread per lot. */
+export function MeasurementSetResult({ set }: { set: MeasurementSet }) {
   const a = set.analysis;
   return (
     <Paper withBorder p="sm" component="article" aria-label={`Measurement set ${set.fileName}`}>
@@ -247,7 +248,7 @@ export function MeasurementsPanel({ vendorPartId, canUpload }: { vendorPartId: n
           </Alert>
         )}
         {sets.data?.length === 0 && <Text fz="sm" c="dimmed">No bench measurements of this part yet.</Text>}
-        {sets.data?.map((set) => <SetResult key={set.id} set={set} />)}
+        {sets.data?.map((set) => <MeasurementSetResult key={set.id} set={set} />)}
         {sets.data && sets.data.length > 0 && (
           <Badge variant="light" color="gray" w="fit-content">
             {sets.data.length} set(s)
