@@ -18,7 +18,7 @@ export class CatalogueCsvController {
 
   /** Reads the CSV and says what a confirm would do, row by row; writes nothing. */
   @Post('imports/vendor-series/preview')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @HttpCode(200)
   @ApiOkResponse({ type: CsvImportPreviewDto })
   preview(@Body() body: CsvImportDto) {
@@ -27,7 +27,7 @@ export class CatalogueCsvController {
 
   /** Writes the same CSV: every row or none. */
   @Post('imports/vendor-series')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: CsvImportResultDto })
   confirm(@Body() body: CsvImportDto, @CurrentUser() user: AuthUser) {
     return this.imports.confirm(body, user);

@@ -14,7 +14,7 @@ export class DatasheetsController {
   constructor(private readonly datasheets: DatasheetsService) {}
 
   @Post()
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @UseInterceptors(DatasheetUploadInterceptor)
   @ApiConsumes('multipart/form-data')
   @ApiBody({
@@ -57,7 +57,7 @@ export class DatasheetsController {
   }
 
   @Post(':id/variants')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: CreateVariantsResponseDto })
   variants(@Param('id', ParseIntPipe) id: number, @Body() body: CreateVariantsDto, @CurrentUser() user: AuthUser) {
     return this.datasheets.createVariants(id, body, user);
