@@ -41,6 +41,11 @@ interface DemoCase {
 
 const review: Step = { action: 'submit', by: 'preparer', body: {} };
 
+/** The invented demo catalogue (plain CommonJS), loaded when the demo is seeded. */
+function demoCatalogue(): ReturnType<typeof import('@shuntwise/test-fixtures').loadDemoCatalogue> {
+  return (require('@shuntwise/test-fixtures') as typeof import('@shuntwise/test-fixtures')).loadDemoCatalogue();
+}
+
 /** How long ago the demo's approved sources were approved (before every other case). */
 const APPROVED_DAYS_AGO = 120;
 
@@ -166,11 +171,11 @@ export class QualificationsSeeder {
         type: QueryTypes.SELECT,
       });
       if (existing) continue;
-      const opened = await this.service.create({ ...pair, summary: demo.summary }, preparer);
+      const opened = { id: await this.service.open({ ...pair, summary: demo.summary }, preparer) };
       for (const step of demo.steps) {
         const user = who[step.by];
         if (step.action === 'comment') await this.service.comment(opened.id, step.body!.text!, user);
-        else await this.service.act(opened.id, step.action, step.action === 'submit' ? { reviewerId: reviewer.id, ...step.body } : (step.body ?? {}), user);
+        else await this.service.apply(opened.id, step.action, step.action === 'submit' ? { reviewerId: reviewer.id, ...step.body } : (step.body ?? {}), user);
       }
       await this.backdate(opened.id, demo.daysAgo);
       if (demo.erratum) await this.correctCard(pair.vendorPartId, demo.erratum, preparer);
@@ -187,9 +192,8 @@ export class QualificationsSeeder {
    * trail included). A pair that already has a case is left alone.
    */
   private async approveReferenceSources(preparer: AuthUser, reviewer: AuthUser): Promise<number> {
-    const fixtures = require('@shuntwise/test-fixtures') as typeof import('@shuntwise/test-fixtures');
     let created = 0;
-    for (const housePart of fixtures.loadDemoCatalogue().houseParts) {
+    for (const housePart of demoCatalogue().houseParts) {
       for (const source of housePart.sources.filter((s) => s.role === 'approved')) {
         const pair = await this.pair(housePart.partNumber, source.mpn);
         const [existing] = await this.sequelize.query<{ id: number }>('SELECT id FROM qualifications WHERE house_part_id = ? AND vendor_part_id = ? LIMIT 1', {
@@ -197,10 +201,10 @@ export class QualificationsSeeder {
           type: QueryTypes.SELECT,
         });
         if (existing) continue;
-        const opened = await this.service.create({ ...pair, summary: `Approved source of record for ${housePart.partNumber}: the part its spec was written from.` }, preparer);
-        await this.service.act(opened.id, 'submit', { reviewerId: reviewer.id }, preparer);
-        await this.service.act(opened.id, 'approve', { note: 'Reference part the spec was written from; any margin below is the spec drawn tight around it.' }, reviewer);
-        await this.backdate(opened.id, APPROVED_DAYS_AGO);
+        const id = await this.service.open({ ...pair, summary: `Approved source of record for ${housePart.partNumber}: the part its spec was written from.` }, preparer);
+        await this.service.apply(id, 'submit', { reviewerId: reviewer.id }, preparer);
+        await this.service.apply(id, 'approve', { note: 'Reference part the spec was written from; any margin below is the spec drawn tight around it.' }, reviewer);
+        await this.backdate(id, APPROVED_DAYS_AGO);
         created++;
       }
     }

@@ -149,6 +149,11 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** `POST /qualifications`: opens a case for a house part and vendor part and evaluates it. */
   async create(request: CreateQualificationRequest, user: AuthUser): Promise<QualificationDto> {
+    return this.get(await this.open(request, user), user);
+  }
+
+  /** Opens the case and answers its id (the seed uses it without reading the case back). */
+  async open(request: CreateQualificationRequest, user: AuthUser): Promise<number> {
     let id: number;
     try {
       id = await this.sequelize.transaction(async (transaction) => {
@@ -176,7 +181,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       if (error instanceof UniqueConstraintError) throw new ConflictException('Another case for this source was opened at the same moment; reload to see it');
       throw error;
     }
-    return this.get(id, user);
+    return id;
   }
 
   /** `PATCH /qualifications/:id`: the preparer's notes and the named reviewer, in draft only. */
@@ -216,7 +221,12 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** `POST /qualifications/:id/<action>`: one state change, its audit entry and its mail in one transaction. */
   async act(id: number, action: QualificationAction, body: ActionBody, user: AuthUser): Promise<QualificationDto> {
-    const resultId = await this.sequelize.transaction(async (transaction) => {
+    return this.get(await this.apply(id, action, body, user), user);
+  }
+
+  /** The state change of `act`, answering the id of the case it leaves (a re-check's new one); the seed uses it directly. */
+  async apply(id: number, action: QualificationAction, body: ActionBody, user: AuthUser): Promise<number> {
+    return this.sequelize.transaction(async (transaction) => {
       const peek = await this.cases.findById(id, transaction);
       if (!peek) throw new NotFoundException(`No qualification case with id ${id}`);
       // Catalogue rows first (shared), then the case (exclusive): the order catalogue saves take.
@@ -251,7 +261,6 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       await this.notify(action, row, basis, user, transaction);
       return row.id;
     });
-    return this.get(resultId, user);
   }
 
   /** Field values of each plain state change (the rule has allowed it already). */

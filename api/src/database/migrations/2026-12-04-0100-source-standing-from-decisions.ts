@@ -19,7 +19,7 @@ export const LEGACY_APPROVED_MARK = '[was marked approved without a decision; qu
  */
 export const sourceStandingFromDecisions: Migration = {
   name: '2026-12-04-0100-source-standing-from-decisions',
-  async up({ queryInterface: q, sequelize }) {
+  async up({ sequelize }) {
     await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_AFTER)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_AFTER)} NULL`, { type: QueryTypes.BULKUPDATE });
     await sequelize.query(`UPDATE house_part_sources SET note = LEFT(CONCAT(?, COALESCE(note, '')), 500) WHERE role = 'approved'`, {
       replacements: [LEGACY_APPROVED_MARK],
