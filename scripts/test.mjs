@@ -81,6 +81,7 @@ async function endToEnd() {
     SMTP_PORT: String(smtpPort),
     DB_NAME: 'shuntwise_e2e',
     LOGIN_RATE_LIMIT: '1000',
+    UPLOAD_RATE_LIMIT: '1000',
     MAIL_RETRY_SECONDS: '1',
     WEB_DIST: join(root, 'web/dist'),
   };

@@ -126,6 +126,7 @@ export declare const paths: {
   badUploads: string;
   catalogue: string;
   demoCatalogue: string;
+  measurements: string;
 };
 
 export declare const badUploads: {
@@ -139,3 +140,15 @@ export declare const badUploads: {
 
 export declare function loadDemoCatalogue(): DemoCatalogue;
 export declare function listDatasheetFixtures(): DatasheetFixture[];
+
+/** An invented bench measurement file of a demo vendor part (vendor code and mpn as in the catalogue). */
+export interface MeasurementFixture {
+  file: string;
+  csvPath: string;
+  vendor: string;
+  mpn: string;
+  instrument: string;
+  measuredOn: string;
+  note: string;
+}
+export declare function listMeasurementFixtures(): MeasurementFixture[];

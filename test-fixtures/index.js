@@ -11,6 +11,7 @@ const paths = {
   badUploads: path.join(root, 'bad-uploads'),
   catalogue: path.join(root, 'catalogue'),
   demoCatalogue: path.join(root, 'catalogue', 'demo-catalogue.json'),
+  measurements: path.join(root, 'measurements'),
 };
 
 const badUploads = {
@@ -42,4 +43,9 @@ function listDatasheetFixtures() {
     });
 }
 
-module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures };
+/** The invented bench measurements of demo parts, with the file's path beside each entry. */
+function listMeasurementFixtures() {
+  return readJson(path.join(paths.measurements, 'measurements.json')).map((m) => ({ ...m, csvPath: path.join(paths.measurements, m.file) }));
+}
+
+module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures, listMeasurementFixtures };

@@ -8,6 +8,7 @@ import type { NextFunction, Request, Response } from 'express';
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
+import { securityHeaders } from './common/security/security-headers';
 import type { Env } from './config/env';
 
 export interface CreateAppOptions {
@@ -22,23 +23,24 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
     logger: options.logger ?? ['error', 'warn', 'log'],
     bodyParser: true,
   });
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (none by default),
+  // so a client cannot pick its own address to dodge the per-address limits.
+  app.set('trust proxy', env.TRUST_PROXY);
   app.disable('x-powered-by');
+  app.use(securityHeaders(env));
   app.useBodyParser('json', { limit: '2mb' });
   app.use(correlationIdMiddleware);
-  app.use((_req: Request, res: Response, next: NextFunction) => {
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.setHeader('Referrer-Policy', 'same-origin');
-    next();
-  });
   app.setGlobalPrefix('api');
   if (options.shutdownHooks) app.enableShutdownHooks();
 
-  const document = SwaggerModule.createDocument(
-    app,
-    new DocumentBuilder().setTitle('Shuntwise API').setDescription('JSON in SI units.').setVersion('1').addBearerAuth().build(),
-  );
-  SwaggerModule.setup('api/docs', app, cleanupOpenApiDoc(document));
+  // The API description is a map for attackers as much as for developers: not served in production.
+  if (env.NODE_ENV !== 'production') {
+    const document = SwaggerModule.createDocument(
+      app,
+      new DocumentBuilder().setTitle('Shuntwise API').setDescription('JSON in SI units.').setVersion('1').addBearerAuth().build(),
+    );
+    SwaggerModule.setup('api/docs', app, cleanupOpenApiDoc(document));
+  }
 
   const webDist = resolve(env.WEB_DIST ?? join(__dirname, '..', '..', 'web', 'dist'));
   if (existsSync(join(webDist, 'index.html'))) serveWeb(app, webDist);

@@ -1,6 +1,5 @@
 import { Module, type DynamicModule } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
-import { ThrottlerModule } from '@nestjs/throttler';
 import { ZodValidationPipe } from 'nestjs-zod';
 import { AuthModule } from './auth/auth.module';
 import { CatalogueCsvModule } from './catalogue-csv/catalogue-csv.module';
@@ -8,6 +7,7 @@ import { CatalogueEventsModule } from './catalogue-events/catalogue-events.modul
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
 import { RolesGuard } from './common/guards/roles.guard';
+import { WellFormedTextPipe } from './common/pipes/well-formed-text.pipe';
 import { ConfigModule } from './config/config.module';
 import type { Env } from './config/env';
 import { DatabaseModule } from './database/database.module';
@@ -19,8 +19,10 @@ import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
 import { QualificationRequestsModule } from './qualification-requests/qualification-requests.module';
 import { QualificationsModule } from './qualifications/qualifications.module';
+import { RateLimitsModule } from './rate-limits/rate-limits.module';
 import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
+import { MeasurementsModule } from './measurements/measurements.module';
 import { SeedModule } from './seed/seed.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
@@ -34,7 +36,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule, QualificationRequestsModule, SearchModule];
+  QualificationsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
 
 @Module({})
 export class AppModule {
@@ -46,15 +48,14 @@ export class AppModule {
         DatabaseModule,
         StorageModule,
         MailModule,
-        ThrottlerModule.forRoot({
-          throttlers: [{ name: 'login', ttl: env.LOGIN_RATE_WINDOW_SECONDS * 1000, limit: env.LOGIN_RATE_LIMIT }],
-          errorMessage: 'Too many attempts; wait a minute and try again',
-        }),
+        RateLimitsModule,
         ...FEATURES,
       ],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },
+        // In this order: text that cannot be stored is refused before the schemas run.
+        { provide: APP_PIPE, useClass: WellFormedTextPipe },
         { provide: APP_PIPE, useClass: ZodValidationPipe },
         { provide: APP_FILTER, useClass: AllExceptionsFilter },
       ],

@@ -21,6 +21,7 @@ describe('demo catalogue seed (real MariaDB, S3 fake)', () => {
     specs: await count('house_part_specs'),
     sources: await count('house_part_sources'),
     links: await count('vendor_part_datasheets'),
+    measurementSets: await count('measurement_sets'),
   });
 
   beforeAll(async () => {
@@ -43,10 +44,11 @@ describe('demo catalogue seed (real MariaDB, S3 fake)', () => {
       specs: catalogue.houseParts.length,
       sources: catalogue.houseParts.reduce((n, h) => n + h.sources.length, 0),
       links: catalogue.vendorParts.length,
+      measurementSets: fixtures.listMeasurementFixtures().length,
     });
     const storage = t.stack.app.get(StorageService);
     const listed = await storage.client.send(new ListObjectsV2Command({ Bucket: storage.bucket }));
-    expect(listed.Contents?.length).toBe(catalogue.datasheets.length);
+    expect(listed.Contents?.length).toBe(catalogue.datasheets.length + fixtures.listMeasurementFixtures().length);
   });
 
   it('gives every card value its datasheet and page, confirmed by the demo engineer', async () => {

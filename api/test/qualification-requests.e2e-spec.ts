@@ -144,8 +144,9 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(underWay.body.message).toBe(
       `A qualification of Fennick Semiconductor ${opened.body.vendorPart.mpn} for ${opened.body.housePart.partNumber} is already under way (case #${opened.body.id}); Find parts shows it once it is cleared`,
     );
-    expect((await t.http.post(`/api/qualifications/${opened.body.id}/submit`).set(auth(engineer)).send({ reviewerId })).status).toBe(200);
-    expect((await t.http.post(`/api/qualifications/${opened.body.id}/clear`).set(auth(reviewer)).send({})).status).toBe(200);
+    const submitted = await t.http.post(`/api/qualifications/${opened.body.id}/submit`).set(auth(engineer)).send({ version: opened.body.version, reviewerId });
+    expect(submitted.status).toBe(200);
+    expect((await t.http.post(`/api/qualifications/${opened.body.id}/clear`).set(auth(reviewer)).send({ version: submitted.body.version })).status).toBe(200);
     const cleared = await ask({ vendorPartId: vp, housePartId: hp, note: 'x' });
     expect(cleared.status).toBe(409);
     expect(cleared.body.message).toMatch(/is already cleared for HPR-\d+ \(case #\d+\): you may design it in/);
@@ -283,8 +284,8 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     // rejected for otherHp, asked again, and re-checked: the re-check takes the new request up
     const c = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId: otherHp, vendorPartId: vp });
     expect((await state(forOther.body.id)).state).toBe('taken-up');
-    await t.http.post(`/api/qualifications/${c.body.id}/submit`).set(auth(engineer)).send({ reviewerId });
-    expect((await t.http.post(`/api/qualifications/${c.body.id}/reject`).set(auth(reviewer)).send({ reason: 'leakage above the limit on samples' })).status).toBe(200);
+    const submitted = await t.http.post(`/api/qualifications/${c.body.id}/submit`).set(auth(engineer)).send({ version: c.body.version, reviewerId });
+    expect((await t.http.post(`/api/qualifications/${c.body.id}/reject`).set(auth(reviewer)).send({ version: submitted.body.version, reason: 'leakage above the limit on samples' })).status).toBe(200);
     const again = await ask({ vendorPartId: vp, housePartId: otherHp, note: 'the vendor says the new lot is better; please look again' });
     expect(again.status).toBe(201);
     // opening from the request says how to continue a decided pair

@@ -2,6 +2,7 @@ import { loadDemoCatalogue } from '@shuntwise/test-fixtures';
 import { DEMO_CASES, QualificationsSeeder } from '../src/qualifications/qualifications-seeder.service';
 import { CatalogueSeeder } from '../src/seed/catalogue-seeder.service';
 import { DemoSeedService } from '../src/seed/demo-seed.service';
+import { MeasurementsSeeder } from '../src/seed/measurements-seeder.service';
 import { createTestApp, type TestApp } from './helpers/test-app';
 
 describe('demo qualifications seed (real MariaDB)', () => {
@@ -14,6 +15,7 @@ describe('demo qualifications seed (real MariaDB)', () => {
     t = await createTestApp({ seed: 'users' });
     await t.stack.app.get(CatalogueSeeder).run();
     seconds = (await t.stack.app.get(QualificationsSeeder).run()).seconds;
+    await t.stack.app.get(MeasurementsSeeder).run();
     engineer = await t.tokenFor('engineer');
   });
   afterAll(() => t.close());
@@ -75,6 +77,16 @@ describe('demo qualifications seed (real MariaDB)', () => {
         'qualification.revoked',
       ].sort(),
     );
+  });
+
+  it('seeds the demo bench measurements: the drifting lot of QHZ5V1AF fails its datasheet window', async () => {
+    const engineer = await t.tokenFor('engineer');
+    const [part] = await t.select<{ id: number }>("SELECT id FROM vendor_parts WHERE mpn = 'QHZ5V1AF'");
+    const sets = await t.http.get(`/api/vendor-parts/${part.id}/measurement-sets`).set('Authorization', `Bearer ${engineer}`);
+    expect(sets.status).toBe(200);
+    const vz = sets.body[0].analysis.checks.find((c: { id: string }) => c.id === 'card-vz');
+    expect(vz.verdict).toBe('fail');
+    expect(vz.failingSamples.length).toBeGreaterThan(0);
   });
 
   it('adds nothing when the whole demo seed runs again', async () => {

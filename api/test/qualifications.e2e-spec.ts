@@ -38,7 +38,11 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     return { housePartId, vendorPartId };
   }
   const open = async (ids: { housePartId: number; vendorPartId: number }, token = engineer) => t.http.post('/api/qualifications').set(auth(token)).send(ids);
-  const act = (id: number, action: string, body: object = {}, token = engineer) => t.http.post(`/api/qualifications/${id}/${action}`).set(auth(token)).send(body);
+  /** An action on the case as it is now: the current version is sent unless the body names one (a re-check takes none). */
+  const act = async (id: number, action: string, body: object = {}, token = engineer) => {
+    const withVersion = action === 'recheck' || 'version' in body ? body : { version: (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body.version, ...body };
+    return t.http.post(`/api/qualifications/${id}/${action}`).set(auth(token)).send(withVersion);
+  };
   /** A case opened by the engineer and sent for review. */
   async function inReview(ids?: { housePartId: number; vendorPartId: number }) {
     const opened = await open(ids ?? (await pair()));
@@ -362,12 +366,13 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     ] as const) {
       const c = await inReview();
       const results = await Promise.all([
-        act(c.id, first, first === 'clear' ? {} : { reason: 'race' }, reviewer),
-        act(c.id, second, second === 'clear' ? {} : { reason: 'race' }, third),
+        act(c.id, first, first === 'clear' ? { version: c.version } : { version: c.version, reason: 'race' }, reviewer),
+        act(c.id, second, second === 'clear' ? { version: c.version } : { version: c.version, reason: 'race' }, third),
       ]);
       expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
       const loser = results.find((r) => r.status === 409)!;
-      expect(loser.body.message).toMatch(/decided case cannot be decided again/);
+      // Both saw the same version: the loser finds the case decided, or its version gone (either is the honest 409).
+      expect(loser.body.message).toMatch(/decided case cannot be decided again|changed after you loaded it/);
       const winner = results.find((r) => r.status === 200)!;
       const decisions = await t.select<{ action: string; user_id: number }>(
         "SELECT action, user_id FROM qualification_events WHERE qualification_id = ? AND action IN ('cleared', 'rejected')",
@@ -389,14 +394,15 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
           .put(`/api/vendor-parts/${ids.vendorPartId}/rating-card`)
           .set(auth(engineer))
           .send({ version: 1, fields: { ...passingCard(), zzt: { value: 42, printed: '42 Ω', provenance: entered } } }),
-        act(c.id, 'clear', {}, reviewer),
+        act(c.id, 'clear', { version: c.version }, reviewer),
       ]);
       expect(card.status).toBe(200);
       const after = (await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body;
       if (decision.status === 200) expect(after).toMatchObject({ state: 'cleared', cardVersion: 1, needsRecheck: true });
       else {
         expect(decision.status).toBe(409);
-        expect(decision.body.message).toMatch(/card 2/);
+        // The save flags the case (a new case version), so the decision meets the new card or the new version.
+        expect(decision.body.message).toMatch(/card 2|changed after you loaded it/);
         expect(after).toMatchObject({ state: 'in-review', needsRecheck: true });
       }
     }
@@ -604,7 +610,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     for (const path of ['/api/qualifications', '/api/qualifications/{id}', '/api/qualifications/{id}/clear', '/api/qualifications/board', '/api/qualifications/sources.csv', '/api/house-parts/{id}/buyers']) {
       expect([path, docs.paths[path] !== undefined]).toEqual([path, true]);
     }
-    expect(docs.components.schemas.ClearWithConditionsDto.required).toEqual(['conditions']);
+    expect(docs.components.schemas.ClearWithConditionsDto.required).toEqual(['version', 'conditions']);
   });
 
   it('answers Compare with each source evaluated now, its curves at 25 °C and the envelope’s ambients, and the spec window', async () => {

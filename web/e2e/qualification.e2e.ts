@@ -130,7 +130,12 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     // The server refuses the preparer's own clearance too, in plain words.
     const bearer = await token('engineer@demo.test');
     const id = Number(caseUrl.split('/').pop());
-    const refused = await fetch(`${BASE_URL}/api/qualifications/${id}/clear`, { method: 'POST', headers: { Authorization: `Bearer ${bearer}`, 'Content-Type': 'application/json' }, body: '{}' });
+    const seen = (await (await fetch(`${BASE_URL}/api/qualifications/${id}`, { headers: { Authorization: `Bearer ${bearer}` } })).json()) as { version: number };
+    const refused = await fetch(`${BASE_URL}/api/qualifications/${id}/clear`, {
+      method: 'POST',
+      headers: { Authorization: `Bearer ${bearer}`, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ version: seen.version }),
+    });
     expect(refused.status).toBe(403);
     expect(((await refused.json()) as { message: string }).message).toMatch(/another engineer must decide it/);
     expect(errors).toEqual([]);

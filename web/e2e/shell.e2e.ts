@@ -1,6 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, newContext, screenshot, signIn, watchErrors } from './support/browser';
+import { takeCspViolations } from './support/csp';
 
 // The navigation each demo role must see (and nothing else), as the product's role map says.
 const ALL = ['Board', 'House parts', 'Vendor parts', 'Qualifications', 'Find parts', 'Sources', 'Outbox', 'Users'];
@@ -31,6 +32,22 @@ describe('app shell in Chromium', () => {
     await expect.poll(() => page.getByRole('alert').filter({ hasText: /do not match/i }).count()).toBe(1);
     expect(page.url()).toMatch(/\/sign-in/);
     await screenshot(page, 'shell-sign-in-refused');
+    await context.close();
+  });
+
+  it('is served with a policy that blocks inline scripts, and the journeys notice a violation', async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const res = await page.goto('/sign-in');
+    expect(res?.headers()['content-security-policy']).toMatch(/script-src 'self'/);
+    expect(takeCspViolations()).toEqual([]); // the app itself needs nothing the policy forbids
+    await page.evaluate(() => {
+      const s = document.createElement('script');
+      s.textContent = 'window.injected = true';
+      document.head.append(s);
+    });
+    await expect.poll(() => takeCspViolations().join('\n')).toMatch(/script-src/);
+    expect(await page.evaluate(() => (window as unknown as { injected?: boolean }).injected)).toBeUndefined();
     await context.close();
   });
 

@@ -9,6 +9,7 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 120_000,
     fileParallelism: false,
+    setupFiles: ['./support/csp-setup.ts'],
     reporters: ['default'],
   },
 });

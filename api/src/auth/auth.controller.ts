@@ -1,9 +1,9 @@
-import { Body, Controller, Get, HttpCode, Param, Post, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import { ThrottlerGuard } from '@nestjs/throttler';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Public } from '../common/decorators/public.decorator';
 import { AnyRole } from '../common/decorators/roles.decorator';
+import { RateLimit } from '../rate-limits/rate-limit.decorator';
 import { AcceptInvitationDto, LoginDto } from './auth.dto';
 import { AuthService } from './auth.service';
 
@@ -13,7 +13,7 @@ export class AuthController {
   constructor(private readonly auth: AuthService) {}
 
   @Public()
-  @UseGuards(ThrottlerGuard)
+  @RateLimit('sign-in')
   @Post('login')
   @HttpCode(200)
   login(@Body() body: LoginDto) {
@@ -42,7 +42,7 @@ export class AuthController {
   }
 
   @Public()
-  @UseGuards(ThrottlerGuard)
+  @RateLimit('public-form')
   @Post('invitations/accept')
   @HttpCode(200)
   accept(@Body() body: AcceptInvitationDto) {

@@ -10,11 +10,13 @@ export interface JwtPayload {
   role: string;
   /** The user's token version when the token was issued. */
   tv: number;
+  /** Expiry (seconds since the epoch); jsonwebtoken checks it only when present, so validate() requires it. */
+  exp?: number;
 }
 
 export const JWT_ALGORITHM = 'HS256' as const;
 
-/** Checks signature (HS256 only), expiry, issuer and audience, then that the user is still active and the token not ended. */
+/** Checks signature (HS256 only), expiry (which must be present), issuer and audience, then that the user is still active and the token not ended. */
 @Injectable()
 export class JwtStrategy extends PassportStrategy(Strategy) {
   constructor(
@@ -32,6 +34,8 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   }
 
   async validate(payload: JwtPayload): Promise<AuthUser> {
+    // A correctly signed token without an expiry would be good forever: refuse it.
+    if (typeof payload.exp !== 'number' || !Number.isFinite(payload.exp)) throw new UnauthorizedException('The token has no expiry; sign in again');
     const user = typeof payload.sub === 'number' ? await this.users.findById(payload.sub) : null;
     if (!user || !user.active || user.tokenVersion !== payload.tv || user.role !== payload.role) {
       throw new UnauthorizedException('Your session has ended; sign in again');

@@ -3,6 +3,7 @@ import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiProduces, ApiTags 
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
+import { RateLimit } from '../rate-limits/rate-limit.decorator';
 import { CardExportQueryDto, CsvImportDto, CsvImportPreviewDto, CsvImportResultDto } from './catalogue-csv.dto';
 import { CatalogueCsvService } from './catalogue-csv.service';
 import { CatalogueExportService, exportFileName } from './catalogue-export.service';
@@ -19,6 +20,7 @@ export class CatalogueCsvController {
   /** Reads the CSV and says what a confirm would do, row by row; writes nothing. */
   @Post('imports/vendor-series/preview')
   @Roles('engineer')
+  @RateLimit('upload')
   @HttpCode(200)
   @ApiOkResponse({ type: CsvImportPreviewDto })
   preview(@Body() body: CsvImportDto) {
@@ -28,6 +30,7 @@ export class CatalogueCsvController {
   /** Writes the same CSV: every row or none. */
   @Post('imports/vendor-series')
   @Roles('engineer')
+  @RateLimit('upload')
   @ApiCreatedResponse({ type: CsvImportResultDto })
   confirm(@Body() body: CsvImportDto, @CurrentUser() user: AuthUser) {
     return this.imports.confirm(body, user);

@@ -1,9 +1,9 @@
 import { Readable } from 'node:stream';
 import { Injectable } from '@nestjs/common';
 import { CARD_FIELD_KINDS, CARD_FIELDS, SI_UNIT, type PlainCardField, type RatingCardFields, type TcValue } from '@shuntwise/contracts';
-import { stringify } from 'csv-stringify';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { RatingCardsRepository, type CardExportRow } from '../vendor-parts/rating-cards.repository';
+import { csvExportStringifier } from '../common/csv/csv-export';
 
 const BATCH = 1000;
 
@@ -43,7 +43,7 @@ export class CatalogueExportService {
         after = batch[batch.length - 1].vendorPartId;
       }
     }
-    return Readable.from(rows()).pipe(stringify({ bom: true }));
+    return Readable.from(rows()).pipe(csvExportStringifier());
   }
 
   /** One row per source of every house part (a house part without sources gets one row of its own). */
@@ -61,7 +61,7 @@ export class CatalogueExportService {
         rows.push([...own, s.role, s.manufacturer, s.mpn, s.package ?? '', s.lifecycleNote ?? '', s.cardVersion ?? '', s.note ?? '', new Date(s.createdAt).toISOString().slice(0, 10)]);
       }
     }
-    return Readable.from(rows).pipe(stringify({ bom: true }));
+    return Readable.from(rows).pipe(csvExportStringifier());
   }
 }
 

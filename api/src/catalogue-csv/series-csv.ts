@@ -15,6 +15,7 @@ import {
   type RatingCardFieldsParsed,
 } from '@shuntwise/contracts';
 import { CsvError, parse } from 'csv-parse/sync';
+import { restoreCsvText } from '../common/csv/csv-export';
 
 /** Identity columns of a series CSV besides the card fields. */
 const IDENTITY = ['manufacturer', 'mpn', 'package', 'lifecycleNote'] as const;
@@ -91,6 +92,8 @@ export function parseSeriesCsv(text: string, defaults: { manufacturer?: string; 
     if (error instanceof CsvError) throw new SeriesCsvError(`The CSV cannot be read near line ${(error as CsvError & { lines?: number }).lines ?? '?'}: ${error.message.replace(/^Invalid [^:]*: /, '')}`);
     throw error;
   }
+  // A cell our export neutralised against formula injection reads back as written.
+  for (const r of records) r.record = r.record.map(restoreCsvText);
   if (records.length === 0) throw new SeriesCsvError('The CSV has no header row');
   const [head, ...body] = records;
   const warnings: string[] = [];

@@ -31,7 +31,16 @@ export interface DatasheetRevised {
   userId: number | null;
 }
 
-export type CatalogueChange = CardChanged | SpecChanged | DatasheetRevised;
+/** Bench measurements of a vendor part's samples were added: new evidence for its cases. */
+export interface MeasurementsAdded {
+  kind: 'measurements-added';
+  vendorPartId: number;
+  measurementSetId: number;
+  samples: number;
+  userId: number | null;
+}
+
+export type CatalogueChange = CardChanged | SpecChanged | DatasheetRevised | MeasurementsAdded;
 export type CatalogueChangeHandler = (change: CatalogueChange, transaction: Transaction) => Promise<void> | void;
 
 /**

@@ -29,8 +29,26 @@ export const envSchema = z.object({
   JWT_ISSUER: z.string().default('shuntwise'),
   JWT_AUDIENCE: z.string().default('shuntwise-web'),
 
+  /** Sign-in attempts per account (e-mail) per window; the per-address limit is LOGIN_RATE_LIMIT_PER_ADDRESS. */
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(20),
+  /** Sign-in attempts per client address per window; unset = 5 × LOGIN_RATE_LIMIT (several people may share an address). */
+  LOGIN_RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).optional(),
   LOGIN_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1).default(60),
+  /** Uploads (datasheets, CSV imports and previews) per user per window. */
+  UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(60),
+  UPLOAD_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1).default(600),
+  /**
+   * Which proxies' X-Forwarded-For to believe (Express "trust proxy"): false (default: the
+   * socket address is the client), true, a hop count, or addresses/subnets such as
+   * "loopback" or "10.0.0.0/8,127.0.0.1". Set it only when a proxy you run sits in front.
+   */
+  TRUST_PROXY: z
+    .string()
+    .default('false')
+    .transform((v): boolean | number | string => (v === 'false' || v === '' || v === '0' ? false : v === 'true' ? true : /^\d+$/.test(v) ? Number(v) : v)),
+  /** Send Strict-Transport-Security (only when the site is served over TLS; off by default for loopback). */
+  HSTS: bool.default(false),
+  HSTS_MAX_AGE_SECONDS: z.coerce.number().int().min(0).default(180 * 24 * 3600),
   INVITATION_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
 
   S3_ENDPOINT: z.url().optional(),

@@ -3,6 +3,7 @@ import { ApiBearerAuth, ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse,
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
+import { RateLimit } from '../rate-limits/rate-limit.decorator';
 import { DatasheetUploadInterceptor } from './datasheet-upload.interceptor';
 import { CreateVariantsDto, CreateVariantsResponseDto, DatasheetDto, ExtractionResultDto, UploadDatasheetFieldsDto, UploadDatasheetResponseDto } from './datasheets.dto';
 import { DatasheetsService } from './datasheets.service';
@@ -15,6 +16,7 @@ export class DatasheetsController {
 
   @Post()
   @Roles('engineer')
+  @RateLimit('upload')
   @UseInterceptors(DatasheetUploadInterceptor)
   @ApiConsumes('multipart/form-data')
   @ApiBody({

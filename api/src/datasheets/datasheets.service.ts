@@ -251,7 +251,8 @@ function summary(row: Datasheet): Omit<UploadDatasheetResponse, 'existing'> {
 /** The uploader's name for display only: no path, no control characters, at most 255 characters. */
 export function safeFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
+  // Control characters, quotes and the bidirectional controls (which can make "fdp.exe" read as "exe.pdf") go.
   // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(0, 255);
+  const clean = base.replace(/[\u0000-\u001f\u007f-\u009f"\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, '').trim().slice(0, 255);
   return clean || 'datasheet.pdf';
 }

@@ -25,7 +25,9 @@ export async function startMariaDb(options: { dir: string; port: number; quiet?:
   const socket = join(dir, 'mariadb.sock');
   const pidFile = join(dir, 'mariadb.pid');
   const logFile = join(dir, 'mariadb.log');
-  mkdirSync(dir, { recursive: true });
+  // A private temporary folder: servers of parallel runs sharing /tmp trip over each other's temporary tables.
+  const tmpDir = join(dir, 'tmp');
+  mkdirSync(tmpDir, { recursive: true });
   stopStale(pidFile, dataDir);
 
   if (!existsSync(join(dataDir, 'mysql'))) {
@@ -38,6 +40,7 @@ export async function startMariaDb(options: { dir: string; port: number; quiet?:
         '--auth-root-authentication-method=normal',
         '--skip-test-db',
         '--skip-name-resolve',
+        `--tmpdir=${tmpDir}`,
       ],
       { encoding: 'utf8' },
     );
@@ -53,6 +56,7 @@ export async function startMariaDb(options: { dir: string; port: number; quiet?:
       `--socket=${socket}`,
       `--port=${options.port}`,
       `--pid-file=${pidFile}`,
+      `--tmpdir=${tmpDir}`,
       '--bind-address=127.0.0.1',
       '--skip-name-resolve',
       '--character-set-server=utf8mb4',

@@ -7,44 +7,14 @@ import { designRegulator, solveShuntRegulator } from './regulator';
 import { junctionTemperatureC } from './self-heating';
 import { spiceModelLine } from './spice-model';
 import { cardArbitrary, logUniform } from './testing/card-arbitraries';
+import { NGSPICE_OPTIONS, startNgspice, type Ngspice } from './testing/ngspice';
 
-type Sim = { setNetList(text: string): void; runSim(): Promise<{ data: { name: string; values: unknown[] }[] }> };
-let sim: Sim;
-let runs = 0;
+let ngspice: Ngspice;
 let worstSweepError = 0;
 let worstShiftError = 0;
 let worstRegulatorError = 0;
-
-// Tight tolerances so ngspice's own convergence error stays far below the limits tested.
-const OPTIONS = '.options reltol=1e-7 vntol=1e-10 abstol=1e-16';
-
-/**
- * Runs one netlist. ngspice writes notes to stderr (console.error here), and jest would
- * attach a stack to each, naming the multi-megabyte WebAssembly data URL: collect them
- * instead. A fatal ngspice error never settles runSim, hence the time limit.
- */
-async function run(netlist: string): Promise<Map<string, number[]>> {
-  const messages: string[] = [];
-  const { error, warn } = console;
-  console.error = (...args: unknown[]) => void messages.push(args.join(' '));
-  console.warn = console.error;
-  let timer: NodeJS.Timeout | undefined;
-  try {
-    sim.setNetList(netlist);
-    const result = await Promise.race([
-      sim.runSim(),
-      new Promise<never>((_, reject) => {
-        timer = setTimeout(() => reject(new Error(`ngspice did not finish: ${messages.join(' | ')}\n${netlist}`)), 10000);
-      }),
-    ]);
-    runs++;
-    return new Map(result.data.map((d) => [d.name.toLowerCase(), d.values as number[]]));
-  } finally {
-    clearTimeout(timer);
-    console.error = error;
-    console.warn = warn;
-  }
-}
+const OPTIONS = NGSPICE_OPTIONS;
+const run = (netlist: string) => ngspice.run(netlist);
 
 /** ngspice DC sweep of the exported model driven by a current source, 0.1 mA…50 mA in 0.1 mA steps. */
 async function sweep(modelLine: string, tempC: number): Promise<{ current: number[]; voltage: number[] }> {
@@ -66,16 +36,13 @@ async function regulatorAt(modelLine: string, supply: number, r: number, load: n
 }
 
 beforeAll(async () => {
-  const { Simulation } = await import('eecircuit-engine');
-  const s = new Simulation();
-  await s.start();
-  sim = s as unknown as Sim;
+  ngspice = await startNgspice();
 });
 
 afterAll(() => {
   // Printed so the agreement can be quoted; the assertions below are what fail.
   console.log(
-    `ngspice agreement over ${runs} runs: sweep ${(worstSweepError * 1e3).toFixed(4)} mV, ` +
+    `ngspice agreement over ${ngspice.runs} runs: sweep ${(worstSweepError * 1e3).toFixed(4)} mV, ` +
       `temperature shift ${(worstShiftError * 100).toFixed(4)} %, regulator ${(worstRegulatorError * 1e3).toFixed(4)} mV`,
   );
 });

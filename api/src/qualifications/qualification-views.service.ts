@@ -19,7 +19,6 @@ import {
   type SourcesView,
   type SourcesViewItem,
 } from '@shuntwise/contracts';
-import { stringify } from 'csv-stringify';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
@@ -28,6 +27,7 @@ import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
 import { compareCurves, compareTemperatures, currentGrid } from './evaluation/compare-curves';
 import { evaluateCard } from './evaluation/evaluate';
 import { QualificationsRepository, type PairCaseRow } from './qualifications.repository';
+import { csvExportStringifier } from '../common/csv/csv-export';
 
 const DAY_MS = 86_400_000;
 
@@ -132,7 +132,7 @@ export class QualificationViewsService {
         ]);
       }
     }
-    return Readable.from(rows).pipe(stringify({ bom: true }));
+    return Readable.from(rows).pipe(csvExportStringifier());
   }
 
   /** The approved source and the alternates side by side, each evaluated now on the current spec and card. */

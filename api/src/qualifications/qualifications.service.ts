@@ -482,6 +482,9 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     } else if (change.kind === 'spec-changed') {
       reason = { cause: 'spec-changed', at, detail: `spec version ${change.version}` };
       flagged = await this.cases.flagForRecheck({ housePartId: change.housePartId }, reason, transaction, { specVersionBelow: change.version });
+    } else if (change.kind === 'measurements-added') {
+      reason = { cause: 'measurements-added', at, detail: `measurement set #${change.measurementSetId} (${change.samples} sample${change.samples === 1 ? '' : 's'}) added` };
+      flagged = await this.cases.flagForRecheck({ vendorPartId: change.vendorPartId }, reason, transaction);
     } else {
       reason = { cause: 'datasheet-revised', at, detail: `datasheet ${change.revision ? `revision ${change.revision} ` : ''}(#${change.datasheetId}) added` };
       flagged = await this.cases.flagForRecheck({ vendorPartId: change.vendorPartId }, reason, transaction);

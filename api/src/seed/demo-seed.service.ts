@@ -5,6 +5,7 @@ import { QualificationsSeeder } from '../qualifications/qualifications-seeder.se
 import { UsersRepository } from '../users/users.repository';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DEMO_USERS } from './demo-users';
+import { MeasurementsSeeder } from './measurements-seeder.service';
 
 /**
  * Loads the local demo. Idempotent: every record is looked up by its natural key first,
@@ -22,6 +23,7 @@ export class DemoSeedService {
     private readonly users: UsersRepository,
     private readonly catalogue: CatalogueSeeder,
     private readonly qualifications: QualificationsSeeder,
+    private readonly measurements: MeasurementsSeeder,
   ) {}
 
   async run(level: SeedLevel = 'demo'): Promise<{ created: number }> {
@@ -36,6 +38,8 @@ export class DemoSeedService {
     }
     if (level === 'demo') created += (await this.catalogue.run()).created;
     if (level === 'demo') created += (await this.qualifications.run()).created;
+    // After the cases, so a decided case of a measured part shows the re-check the new evidence asks for.
+    if (level === 'demo') created += (await this.measurements.run()).created;
     if (created) this.logger.log(`demo: ${created} records added`);
     return { created };
   }

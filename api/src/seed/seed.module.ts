@@ -1,15 +1,17 @@
 import { Module } from '@nestjs/common';
 import { DatasheetsModule } from '../datasheets/datasheets.module';
 import { HousePartsModule } from '../house-parts/house-parts.module';
+import { MeasurementsModule } from '../measurements/measurements.module';
 import { QualificationsModule } from '../qualifications/qualifications.module';
 import { UsersModule } from '../users/users.module';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DemoSeedService } from './demo-seed.service';
+import { MeasurementsSeeder } from './measurements-seeder.service';
 
 @Module({
-  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule],
-  providers: [DemoSeedService, CatalogueSeeder],
+  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule, MeasurementsModule],
+  providers: [DemoSeedService, CatalogueSeeder, MeasurementsSeeder],
   exports: [DemoSeedService],
 })
 export class SeedModule {}

@@ -53,6 +53,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       MAIL_RETRY_SECONDS: '0.05',
       DEMO_PASSWORD: 'demo-password-for-tests',
       LOGIN_RATE_LIMIT: '1000',
+      UPLOAD_RATE_LIMIT: '1000',
       ...options.env,
     },
     externalDatabase: { socket },

@@ -36,6 +36,13 @@ export const extractedValueSchema = z.object({
   box: extractionBoxSchema.optional(),
   /** How the value was derived when not read directly (e.g. a %/K figure converted with VZnom). */
   note: z.string().optional(),
+  /** Where on the page it was found: a table cell, a key–value (leader) list, or a sentence of prose. */
+  method: z.enum(['table', 'list', 'sentence']).optional(),
+  /** True when the page had no text layer and the value was read by OCR: check it against the page. */
+  ocr: z.boolean().optional(),
+  /** Set when the value was not printed as such: derived from a part-number suffix's tolerance
+   * legend, or converted (a %/K coefficient to V/K with VZnom). The editor asks for these first. */
+  derived: z.enum(['tolerance-suffix', 'converted']).optional(),
 });
 export type ExtractedValue = z.infer<typeof extractedValueSchema>;
 

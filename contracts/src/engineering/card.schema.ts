@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { leakageCurrent, physical, PHYSICAL_BOUNDS } from '../units/bounds';
 
 /**
  * The ratings the engineering core computes from, in SI (V, A, Ω, W, °C, K/W). The
@@ -9,23 +10,31 @@ export const TEMP_CO_UNITS = ['mV/K', '%/K'] as const;
 export const tempCoUnitSchema = z.enum(TEMP_CO_UNITS);
 export type TempCoUnit = z.infer<typeof tempCoUnitSchema>;
 
-export const tempCoSchema = z.strictObject({
-  value: z.number(),
-  unit: tempCoUnitSchema,
-});
+export const tempCoSchema = z
+  .strictObject({
+    value: z.number(),
+    unit: tempCoUnitSchema,
+  })
+  .superRefine((tc, ctx) => {
+    const bound = PHYSICAL_BOUNDS[tc.unit === 'mV/K' ? 'tempCoMilliVoltsPerK' : 'tempCoPercentPerK'];
+    if (tc.value < bound.min || tc.value > bound.max) {
+      ctx.addIssue({ code: 'custom', path: ['value'], message: `must be between ${bound.min} and ${bound.max} ${bound.unit}` });
+    }
+  });
 export type TempCo = z.infer<typeof tempCoSchema>;
 
-const volts = z.number().positive().max(1000);
-const amperes = z.number().positive().max(100);
-const ohms = z.number().positive().max(1e7);
-const celsius = z.number().min(-100).max(400);
+// Ranges from the one table of plausible values (units/bounds.ts).
+const zenerVolts = physical('zenerVoltage');
+const amperes = physical('current');
+const ohms = physical('resistance');
+const celsius = physical('temperature');
 
 /** The card's fields, unrefined, for schemas that extend or pick from it. */
 export const engineeringCardShape = {
   /** Nominal Zener voltage at izt, 25 °C (V). */
-  vzNom: volts,
-  vzMin: volts.nullish(),
-  vzMax: volts.nullish(),
+  vzNom: zenerVolts,
+  vzMin: zenerVolts.nullish(),
+  vzMax: zenerVolts.nullish(),
   /** Test current for vz and zzt (A). */
   izt: amperes,
   /** Dynamic impedance at izt (Ω). */
@@ -34,15 +43,15 @@ export const engineeringCardShape = {
   izk: amperes.nullish(),
   zzk: ohms.nullish(),
   /** Maximum reverse leakage (A) at reverse voltage vr (V). */
-  irMax: z.number().nonnegative().max(1).nullish(),
-  vr: volts.nullish(),
+  irMax: leakageCurrent().nullish(),
+  vr: physical('voltage').nullish(),
   tc: tempCoSchema.nullish(),
   /** Power rating (W) at the reference temperature pdRefC (°C, 25 °C when absent). */
-  pdMax: z.number().positive().max(1000).nullish(),
+  pdMax: physical('power').nullish(),
   pdRefC: celsius.nullish(),
   tjMax: celsius.nullish(),
   /** Junction-to-ambient thermal resistance (K/W). */
-  rthJA: z.number().positive().max(1e4).nullish(),
+  rthJA: physical('thermalResistance').nullish(),
   /** Largest allowed Zener current (A). */
   izm: amperes.nullish(),
 };

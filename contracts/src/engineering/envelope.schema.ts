@@ -1,12 +1,13 @@
 import { z } from 'zod';
+import { physical } from '../units/bounds';
 
 /** Where a part operates: diode current iMin..iMax (A) and ambient taMin..taMax (°C). */
 export const envelopeSchema = z
   .strictObject({
-    iMin: z.number().positive().max(100),
-    iMax: z.number().positive().max(100),
-    taMin: z.number().min(-100).max(300),
-    taMax: z.number().min(-100).max(300),
+    iMin: physical('current'),
+    iMax: physical('current'),
+    taMin: physical('ambient'),
+    taMax: physical('ambient'),
   })
   .superRefine((e, ctx) => {
     if (e.iMin > e.iMax) ctx.addIssue({ code: 'custom', path: ['iMin'], message: `iMin (${e.iMin} A) is above iMax (${e.iMax} A)` });

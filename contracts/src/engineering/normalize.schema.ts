@@ -1,19 +1,20 @@
 import { z } from 'zod';
+import { physical } from '../units/bounds';
 import { cardIssueSchema, engineeringCardSchema } from './card.schema';
 
 /** `POST /api/engineering/normalize`: a card evaluated at the caller's currents (A) and ambients (°C). */
 export const normalizeRequestSchema = z.strictObject({
   card: engineeringCardSchema,
-  currents: z.array(z.number().positive().max(100)).min(1).max(100),
+  currents: z.array(physical('current')).min(1).max(100),
   /** Ambient temperatures (°C); 25 °C when absent. */
-  temperaturesC: z.array(z.number().min(-100).max(300)).min(1).max(20).optional(),
+  temperaturesC: z.array(physical('ambient')).min(1).max(20).optional(),
   /** Add self-heating Tj = Ta + RthJA·Vz·I (needs rthJA on the card); default true. */
   selfHeating: z.boolean().optional(),
 });
 export type NormalizeRequest = z.infer<typeof normalizeRequestSchema>;
 
-/** How the impedance part of the breakdown model was obtained from the card. */
-export const MODEL_BASES = ['two-point', 'izt-only', 'izk-only', 'clamped', 'none'] as const;
+/** How the impedance part of the breakdown model was obtained: from the card, or fitted to measured points. */
+export const MODEL_BASES = ['two-point', 'izt-only', 'izk-only', 'clamped', 'none', 'measured'] as const;
 export const modelBasisSchema = z.enum(MODEL_BASES);
 export type ModelBasis = z.infer<typeof modelBasisSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { physical } from '../units/bounds';
 import { engineeringCardSchema } from './card.schema';
 import { toleranceCornerSchema } from './envelope.schema';
 
@@ -8,10 +9,10 @@ export type ResistorSeries = z.infer<typeof resistorSeriesSchema>;
 
 const supplySchema = z
   .strictObject({
-    min: z.number().positive().max(1000),
+    min: physical('voltage'),
     /** Nominal supply (V); the middle of min..max when absent. */
-    nom: z.number().positive().max(1000).optional(),
-    max: z.number().positive().max(1000),
+    nom: physical('voltage').optional(),
+    max: physical('voltage'),
   })
   .superRefine((s, ctx) => {
     if (s.min > s.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `supply.min (${s.min} V) is above supply.max (${s.max} V)` });
@@ -27,7 +28,7 @@ const loadSchema = z
   });
 
 const ambientSchema = z
-  .strictObject({ min: z.number().min(-100).max(300), max: z.number().min(-100).max(300) })
+  .strictObject({ min: physical('ambient'), max: physical('ambient') })
   .superRefine((a, ctx) => {
     if (a.min > a.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `ambient.min (${a.min} °C) is above ambient.max (${a.max} °C)` });
   });
@@ -44,7 +45,7 @@ export const regulatorRequestSchema = z.strictObject({
     tolerance: z.number().nonnegative().max(0.2),
   }),
   /** Diode current the simple formula aims for (A); izt when absent. */
-  diodeCurrent: z.number().positive().max(100).optional(),
+  diodeCurrent: physical('current').optional(),
   /** Lowest diode current as a multiple of izk (default 5). */
   kneeFactor: z.number().min(1).max(100).optional(),
   /** Largest fraction of the derated power the diode may dissipate (default 1). */

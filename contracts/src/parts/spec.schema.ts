@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { envelopeSchema } from '../engineering/envelope.schema';
+import { physical } from '../units/bounds';
 import { actorSchema } from './page.schema';
 
 /**
@@ -7,33 +8,35 @@ import { actorSchema } from './page.schema';
  * (A, V, Ω, W, °C, V/K). Optional limits are null when the spec sets none; the
  * qualification treats a null limit as "not required", never as a pass of missing data.
  */
-const amperes = z.number().positive().max(100);
-const volts = z.number().positive().max(1000);
+// Ranges from the one table of plausible values (units/bounds.ts).
+const amperes = physical('current');
+const zenerVolts = physical('zenerVoltage');
+const volts = physical('voltage');
 
 export const specSchema = z
   .strictObject({
     /** Reference current the window and impedance are stated at (A). */
     iRef: amperes,
     /** Zener-voltage window at iRef, 25 °C (V). */
-    vz: z.strictObject({ min: volts, nom: volts, max: volts }),
+    vz: z.strictObject({ min: zenerVolts, nom: zenerVolts, max: zenerVolts }),
     /** Largest dynamic impedance at iRef (Ω). */
-    zdMax: z.number().positive().max(1e7).nullable().default(null),
+    zdMax: physical('resistance').nullable().default(null),
     /** Knee limit: Zd(iKnee)/Zd(iRef) at most maxRatio, and/or the voltage span over iMin..iMax at most maxSpan (V). */
     knee: z
       .strictObject({
         iKnee: amperes.nullable().default(null),
         maxRatio: z.number().min(1).max(1e4).nullable().default(null),
-        maxSpan: z.number().positive().max(1000).nullable().default(null),
+        maxSpan: volts.nullable().default(null),
       })
       .nullable()
       .default(null),
     /** Largest reverse leakage irMax (A) at reverse voltage vr (V). */
-    leakage: z.strictObject({ irMax: z.number().positive().max(1), vr: volts }).nullable().default(null),
+    leakage: z.strictObject({ irMax: physical('leakage'), vr: volts }).nullable().default(null),
     /** Temperature-coefficient window (V/K). */
-    tc: z.strictObject({ min: z.number().min(-1).max(1), max: z.number().min(-1).max(1) }).nullable().default(null),
+    tc: z.strictObject({ min: physical('tempCoVoltsPerK'), max: physical('tempCoVoltsPerK') }).nullable().default(null),
     /** Smallest power rating (W) and the largest fraction of the derated power the part may dissipate. */
     power: z
-      .strictObject({ pdMin: z.number().positive().max(1000), deratingFraction: z.number().positive().max(1) })
+      .strictObject({ pdMin: physical('power'), deratingFraction: z.number().positive().max(1) })
       .nullable()
       .default(null),
     /** Packages allowed; empty means any. */

@@ -67,7 +67,7 @@ export const qualificationCommentSchema = z.object({
 export type QualificationComment = z.infer<typeof qualificationCommentSchema>;
 
 /** Why a case needs a re-check: a catalogue change after it was evaluated. */
-export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised'] as const;
+export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised', 'measurements-added'] as const;
 export const recheckCauseSchema = z.enum(RECHECK_CAUSES);
 export type RecheckCause = z.infer<typeof recheckCauseSchema>;
 
@@ -181,8 +181,12 @@ export type QualificationPage = z.infer<typeof qualificationPageSchema>;
 
 const text = (max: number) => z.string().trim().max(max);
 const required = (what: string, max = 2000) => z.string().trim().min(1, `Write the ${what}`).max(max);
-/** The case version the caller saw; a stale one is refused with 409. */
-const versionField = z.number().int().min(0).optional();
+/**
+ * The case version the caller saw; a stale one is refused with 409. Required on every action
+ * that changes the case, so no request can skip the optimistic lock by leaving it out
+ * (a re-check opens a new case and leaves this one as it is, so it takes none).
+ */
+const versionField = z.number({ error: (i) => (i.input === undefined ? 'Send the case version you loaded' : 'must be the case version, a whole number') }).int().min(0);
 
 /** `POST /api/qualifications` (engineers): opens a case and evaluates it against the current spec and card. */
 export const createQualificationRequestSchema = z.strictObject({

@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { watchCsp } from './csp';
 
 export const BASE_URL = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:8080';
 export const DEMO_PASSWORD = process.env.E2E_DEMO_PASSWORD ?? 'shuntwise-demo';
@@ -31,9 +32,11 @@ export async function launchBrowser(): Promise<{ browser: Browser; close(): Prom
   };
 }
 
+/** A fresh context whose pages report Content-Security-Policy violations (the journey fails on any). */
 export async function newContext(browser: Browser, scheme: 'light' | 'dark' = 'light'): Promise<BrowserContext> {
   const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, colorScheme: scheme, baseURL: BASE_URL });
   context.setDefaultTimeout(20_000);
+  await watchCsp(context);
   return context;
 }
 

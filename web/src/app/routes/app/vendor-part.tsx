@@ -8,6 +8,7 @@ import { Link, useParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { useDatasheet } from '@/features/datasheets/api/get-datasheet';
 import { useExtraction } from '@/features/datasheets/api/get-extraction';
+import { MeasurementsPanel } from '@/features/measurements/components/measurements-panel';
 import { DatasheetUpload } from '@/features/datasheets/components/datasheet-upload';
 import { DatasheetViewer, type ViewerTarget } from '@/features/datasheets/components/datasheet-viewer';
 import { useRatingCard } from '@/features/vendor-parts/api/get-rating-card';
@@ -17,6 +18,7 @@ import type { SourceLocation } from '@/features/vendor-parts/components/card-fie
 import { RatingCardEditor } from '@/features/vendor-parts/components/rating-card-editor';
 import { VendorPartFormModal } from '@/features/vendor-parts/components/vendor-part-form-modal';
 import { describeError } from '@/lib/api-client';
+import { useSession } from '@/lib/session';
 
 /** The datasheet most of the card's values point at, else the newest one linked. */
 function defaultDatasheet(part: VendorPartDetail, card: RatingCardView | undefined): number | null {
@@ -94,6 +96,7 @@ export function VendorPartRoute() {
   const part = useVendorPart(valid ? id : 0);
   const card = useRatingCard(valid ? id : 0);
   const queryClient = useQueryClient();
+  const session = useSession();
   const [editing, editModal] = useDisclosure(false);
   const [chosen, setChosen] = useState<number | null>(null);
   const [target, setTarget] = useState<ViewerTarget | null>(null);
@@ -188,6 +191,7 @@ export function VendorPartRoute() {
           </Box>
         </Grid.Col>
       </Grid>
+      <MeasurementsPanel vendorPartId={p.id} canUpload={session?.user.role === 'engineer'} />
       <VendorPartFormModal key={p.updatedAt} opened={editing} onClose={editModal.close} part={p} />
     </>
   );

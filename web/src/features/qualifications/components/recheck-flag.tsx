@@ -7,6 +7,7 @@ const CAUSE: Record<RecheckCause, string> = {
   'card-changed': 'the rating card changed',
   'spec-changed': 'the spec changed',
   'datasheet-revised': 'a datasheet was revised',
+  'measurements-added': 'measured samples were added',
 };
 
 /** The "needs re-check" flag with what caused it: a catalogue change after the evaluation. */

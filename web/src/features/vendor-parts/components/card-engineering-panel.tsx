@@ -22,6 +22,7 @@ const BASIS_LABEL: Record<ModelBasis, string> = {
   'izk-only': 'one impedance point (IZK, ZZK): stated assumption for the rest',
   clamped: 'fit clamped: the two points gave a non-physical RS',
   none: 'no impedance on the card: voltage only',
+  measured: 'fitted by least squares to measured samples',
 };
 
 export interface BasisOption {
