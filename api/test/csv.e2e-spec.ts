@@ -148,4 +148,17 @@ describe('CSV import and export (real MariaDB)', () => {
     expect(records.find((r) => r.partNumber === 'OHI-ZD-EXP')).toMatchObject({ sourceRole: 'alternate', manufacturer: 'Ostrander Components', mpn: 'ODW-5V1', cardVersion: '1', sourceNote: 'reference' });
     expect(records.find((r) => r.partNumber === 'OHI-ZD-NOSRC')).toMatchObject({ sourceRole: '', mpn: '' });
   });
+
+  it('neutralises text cells a spreadsheet would run as formulas, and keeps negative numbers numbers', async () => {
+    // Formula starts and the apostrophe remedy: OWASP "CSV Injection" guidance (common practice).
+    const hp = await createHousePart(t.http, engineer, 'OHI-ZD-CSVX', '=HYPERLINK("http://x.invalid","open")');
+    const vp = (await t.http.get('/api/vendor-parts?mpn=ODW-4V7').set(auth(engineer))).body.items[0].id;
+    await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, role: 'alternate', note: '@SUM(A1:A9)' });
+    const parts = parse((await t.http.get('/api/exports/house-parts').set(auth(buyer))).text, { bom: true, columns: true }) as Array<Record<string, string>>;
+    expect(parts.find((r) => r.partNumber === 'OHI-ZD-CSVX')).toMatchObject({ description: `'=HYPERLINK("http://x.invalid","open")`, sourceNote: "'@SUM(A1:A9)" });
+    const cards = parse((await t.http.get('/api/exports/rating-cards?manufacturer=Ostrander%20Components').set(auth(designer))).text, { bom: true, columns: true }) as Array<
+      Record<string, string>
+    >;
+    expect(cards[0]['tcVoltsPerKelvin (V/K)']).toBe('-0.0014');
+  });
 });

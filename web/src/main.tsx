@@ -1,3 +1,4 @@
+import './lib/zod-config';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';

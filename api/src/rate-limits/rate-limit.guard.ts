@@ -42,11 +42,9 @@ export class RateLimitGuard implements CanActivate {
     if (!kind) return true;
     const req = context.switchToHttp().getRequest<Request & { user?: AuthUser }>();
     const checks = this.checksFor(kind, req);
-    let retryAfter = 0;
-    for (const check of checks) {
-      const { hits, secondsLeft } = await this.counters.hit(check.name, check.key, check.windowSeconds);
-      if (hits > check.limit) retryAfter = Math.max(retryAfter, secondsLeft);
-    }
+    // Every check counts (in parallel, each its own short transaction), even when one is already spent.
+    const counts = await Promise.all(checks.map((c) => this.counters.hit(c.name, c.key, c.windowSeconds)));
+    const retryAfter = Math.max(0, ...counts.map(({ hits, secondsLeft }, i) => (hits > checks[i].limit ? secondsLeft : 0)));
     if (retryAfter === 0) return true;
     context.switchToHttp().getResponse<Response>().setHeader('Retry-After', String(retryAfter));
     const what = kind === 'upload' ? 'uploads' : 'attempts';

@@ -3,8 +3,8 @@ import { takeCspViolations } from './csp';
 
 // Every journey fails on a Content-Security-Policy violation (see support/csp.ts).
 afterEach(() => {
-  expect(takeCspViolations(), 'Content-Security-Policy violations during this journey').toEqual([]);
+  expect(takeCspViolations().join('\n'), 'Content-Security-Policy violations during this journey').toBe('');
 });
 afterAll(() => {
-  expect(takeCspViolations(), 'Content-Security-Policy violations after the last journey').toEqual([]);
+  expect(takeCspViolations().join('\n'), 'Content-Security-Policy violations after the last journey').toBe('');
 });
