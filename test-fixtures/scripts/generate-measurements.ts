@@ -86,8 +86,9 @@ function gaussian(rng: Prng): number {
 
 function write(plan: Plan, card: Card, rng: Prng): string {
   // Two impedance points give the junction term a = NBV·Vt and RS (as the product's fit does).
-  const a = ((card.zzk - card.zzt) * card.izk * card.izt) / (card.izt - card.izk);
-  const rs = Math.max(0, card.zzt - a / card.izt);
+  // The card's impedances are maxima: typical parts sit near 70 % of them.
+  const a = (0.7 * (card.zzk - card.zzt) * card.izk * card.izt) / (card.izt - card.izk);
+  const rs = Math.max(0, 0.7 * card.zzt - a / card.izt);
   const vt25 = K_OVER_Q * 298.15;
   const nbv = a / vt25;
   const lines = ['sample,lot,current (mA),voltage (V),temperature (°C)'];
