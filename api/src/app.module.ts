@@ -2,6 +2,7 @@ import { Module, type DynamicModule } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, APP_PIPE } from '@nestjs/core';
 import { ZodValidationPipe } from 'nestjs-zod';
 import { AuthModule } from './auth/auth.module';
+import { ClockModule } from './common/clock';
 import { CatalogueCsvModule } from './catalogue-csv/catalogue-csv.module';
 import { CatalogueEventsModule } from './catalogue-events/catalogue-events.module';
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter';
@@ -46,6 +47,7 @@ export class AppModule {
       imports: [
         ConfigModule.forRoot(env),
         DatabaseModule,
+        ClockModule,
         StorageModule,
         MailModule,
         RateLimitsModule,

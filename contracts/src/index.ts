@@ -27,6 +27,7 @@ export * from './qualifications/qualification-state.schema';
 export * from './qualifications/qualification.schema';
 export * from './qualifications/source-standing';
 export * from './qualifications/sources-view.schema';
+export * from './qualifications/waiver.schema';
 export * from './search/search.schema';
 export * from './units/bounds';
 export * from './units/format';

@@ -18,6 +18,7 @@ import {
   type SourcesQuery,
   type SourcesView,
   type SourcesViewItem,
+  type WaiverBrief,
 } from '@shuntwise/contracts';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { DESIGN_CAUTION } from '../engineering/caution';
@@ -27,6 +28,7 @@ import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
 import { compareCurves, compareTemperatures, currentGrid } from './evaluation/compare-curves';
 import { evaluateCard } from './evaluation/evaluate';
 import { QualificationsRepository, type PairCaseRow } from './qualifications.repository';
+import { WaiversService } from './waivers.service';
 import { csvExportStringifier } from '../common/csv/csv-export';
 
 const DAY_MS = 86_400_000;
@@ -38,6 +40,7 @@ export class QualificationViewsService {
     private readonly cases: QualificationsRepository,
     private readonly houseParts: HousePartsRepository,
     private readonly cards: RatingCardsRepository,
+    private readonly waivers: WaiversService,
   ) {}
 
   async board(query: BoardQuery): Promise<BoardPage> {
@@ -81,10 +84,13 @@ export class QualificationViewsService {
 
   /** Per house part, every source with where it stands, its conditions, since when and who decided. */
   async sources(query: SourcesQuery, user: AuthUser): Promise<SourcesView> {
+    // Waivers past their day end before the standing is read (every replica may run it; it happens once).
+    await this.waivers.lapseDue();
     const heads = await this.cases.sourceHeads({ housePartId: query.housePartId, q: query.q, buyerId: query.mine ? user.id : undefined });
     if (query.housePartId !== undefined && heads.length === 0 && !query.mine && !query.q) throw new NotFoundException(`No house part with id ${query.housePartId}`);
     const ids = heads.map((h) => h.id);
     const [sources, cases] = await Promise.all([this.cases.sourcesOf(ids), this.cases.casesOf(ids)]);
+    const waivers = await this.waivers.briefsOf(cases.filter((c) => c.state === 'cleared-with-waiver' || c.state === 'waiver-lapsed').map((c) => c.id));
     const casesByPair = new Map<string, PairCaseRow[]>();
     for (const c of cases) {
       const key = `${c.housePartId}/${c.vendorPartId}`;
@@ -98,7 +104,7 @@ export class QualificationViewsService {
         .filter((s) => s.housePartId === h.id)
         .map(
           (s): SourceStandingRow => {
-            const row = standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []);
+            const row = standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? [], waivers);
             return { vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package }, role: sourceRoleOf(row.standing), ...row };
           },
         )
@@ -191,9 +197,9 @@ export class QualificationViewsService {
  * contracts) reads from them, with the decision it comes from (who, when, on what
  * conditions) and any newer case still open beside it.
  */
-export function standing(cases: readonly PairCaseRow[]): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
+export function standing(cases: readonly PairCaseRow[], waiversOf: ReadonlyMap<number, WaiverBrief[]> = new Map()): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
   const { standing: value, basis, openCase } = sourceStanding(cases);
-  if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false };
+  if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false, waivers: [] };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
   const revoked = basis.state === 'revoked';
   return {
@@ -211,5 +217,6 @@ export function standing(cases: readonly PairCaseRow[]): Omit<SourceStandingRow,
         : null,
     openCase: openCase ? { id: openCase.id, state: openCase.state } : null,
     needsRecheck: Boolean(basis.needsRecheck),
+    waivers: waiversOf.get(basis.id) ?? [],
   };
 }

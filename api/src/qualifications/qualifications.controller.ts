@@ -6,6 +6,7 @@ import {
   ApproveDto,
   ClearDto,
   ClearWithConditionsDto,
+  ClearWithWaiverDto,
   CommentDto,
   CreateQualificationDto,
   EvaluateDto,
@@ -115,6 +116,15 @@ export class QualificationsController {
   @ApiOkResponse({ type: QualificationDto })
   clearWithConditions(@Param('id', ParseIntPipe) id: number, @Body() body: ClearWithConditionsDto, @CurrentUser() user: AuthUser) {
     return this.cases.act(id, 'clear-with-conditions', body, user);
+  }
+
+  /** A second engineer clears the source while its failing or marginal checks are covered by approved, unexpired waivers. */
+  @Post(':id/clear-with-waiver')
+  @Roles('engineer')
+  @HttpCode(200)
+  @ApiOkResponse({ type: QualificationDto })
+  clearWithWaiver(@Param('id', ParseIntPipe) id: number, @Body() body: ClearWithWaiverDto, @CurrentUser() user: AuthUser) {
+    return this.cases.act(id, 'clear-with-waiver', body, user);
   }
 
   @Post(':id/reject')

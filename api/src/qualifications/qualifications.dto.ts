@@ -8,6 +8,7 @@ import {
   qualificationApproveRequestSchema,
   qualificationClearRequestSchema,
   qualificationClearWithConditionsRequestSchema,
+  qualificationClearWithWaiverRequestSchema,
   qualificationCommentRequestSchema,
   qualificationEvaluateRequestSchema,
   qualificationListQuerySchema,
@@ -36,6 +37,7 @@ export class SendBackDto extends createZodDto(qualificationSendBackRequestSchema
 export class ApproveDto extends createZodDto(qualificationApproveRequestSchema) {}
 export class ClearDto extends createZodDto(qualificationClearRequestSchema) {}
 export class ClearWithConditionsDto extends createZodDto(qualificationClearWithConditionsRequestSchema) {}
+export class ClearWithWaiverDto extends createZodDto(qualificationClearWithWaiverRequestSchema) {}
 export class RejectDto extends createZodDto(qualificationRejectRequestSchema) {}
 export class WithdrawDto extends createZodDto(qualificationWithdrawRequestSchema) {}
 export class RevokeDto extends createZodDto(qualificationRevokeRequestSchema) {}

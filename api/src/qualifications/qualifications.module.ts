@@ -15,13 +15,16 @@ import { QualificationsController } from './qualifications.controller';
 import { QualificationsRepository } from './qualifications.repository';
 import { QualificationsSeeder } from './qualifications-seeder.service';
 import { QualificationsService } from './qualifications.service';
+import { QualificationWaiver } from './waiver.model';
+import { WaiversController } from './waivers.controller';
+import { WaiversService } from './waivers.service';
 
 /** Qualification cases, their trail and comments, the buyers of each house part, and the Board, Compare and Sources read models. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User]), HousePartsModule, VendorPartsModule],
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, QualificationWaiver]), HousePartsModule, VendorPartsModule],
   // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
-  controllers: [QualificationViewsController, QualificationsController, HousePartBuyersController],
-  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder],
-  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder],
+  controllers: [QualificationViewsController, QualificationsController, WaiversController, HousePartBuyersController],
+  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder, WaiversService],
+  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder, WaiversService],
 })
 export class QualificationsModule {}

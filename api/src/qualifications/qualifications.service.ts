@@ -14,8 +14,14 @@ import {
   QUALIFICATION_STATE_LABELS,
   QUALIFICATION_TRANSITIONS,
   QUALIFICATION_VERDICT_LABELS,
+  CHECK_LABELS,
   USABLE_STATES,
   actionBlock,
+  isWaiverInForce,
+  waiverGaps,
+  type CheckId,
+  type CheckQuantity,
+  formatQuantity,
   allowedActionsFor,
   isDecidedState,
   isDecisionAction,
@@ -46,6 +52,8 @@ import { MailService } from '../mail/mail.service';
 import { evaluateCard } from './evaluation/evaluate';
 import type { Qualification } from './qualification.model';
 import { QualificationsRepository, type CaseRow, type CatalogueBasis } from './qualifications.repository';
+import type { QualificationWaiver } from './waiver.model';
+import { WaiversService, dateText } from './waivers.service';
 
 /** Bodies of the state changes, as the contracts parse them (all optional fields may be absent). */
 export interface ActionBody {
@@ -86,6 +94,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     private readonly houseParts: HousePartsRepository,
     private readonly mail: MailService,
     private readonly events: CatalogueEvents,
+    private readonly waivers: WaiversService,
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
@@ -118,12 +127,14 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     if (user.role === 'designer' && !isUsableState(row.state)) {
       throw new ForbiddenException(`Case #${id} is ${label(row.state).toLowerCase()}; designers see cleared cases only`);
     }
-    const [comments, audit, current, next] = await Promise.all([
+    const [comments, audit, current, next, waivers] = await Promise.all([
       this.cases.listComments(id),
       this.cases.listEvents(id),
       this.cases.currentVersions(row.housePartId, row.vendorPartId),
       row.nextId !== null ? this.cases.findById(row.nextId) : Promise.resolve(null),
+      this.waivers.waiversOf(id),
     ]);
+    const today = this.waivers.today();
     return {
       ...toSummary(row),
       summary: row.summary,
@@ -142,7 +153,10 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
           note: e.note,
         }),
       ),
-      allowedActions: allowedActions(row, user, current, next?.state ?? null),
+      allowedActions: allowedActions(row, user, current, next?.state ?? null, {
+        gaps: waiverGaps(row.evaluation.checks, waivers, today),
+        inForce: waivers.filter((w) => isWaiverInForce(w, today)).length,
+      }),
       caution: DESIGN_CAUTION,
     };
   }
@@ -236,8 +250,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       // The rule (contracts/src/qualifications/source-standing.ts) decides; here it is said plainly.
       const next = action === 'revoke' || action === 'recheck' ? await this.cases.findNext(row.id, transaction) : null;
       const fresh = isEvaluationFresh(row, { specVersion: basis.housePart.specVersion, cardVersion: basis.vendorPart.cardVersion });
-      const block = actionBlock(action, { state: row.state, preparedById: row.preparedById, overall: row.overall, fresh, nextId: next?.id ?? null, nextState: next?.state ?? null }, user);
-      if (block) throw refusal(block, action, row, basis, next);
+      const waived = action === 'clear-with-waiver' ? await this.waivers.factsFor(row, transaction) : undefined;
+      const block = actionBlock(
+        action,
+        { state: row.state, preparedById: row.preparedById, overall: row.overall, fresh, nextId: next?.id ?? null, nextState: next?.state ?? null, waivers: waived },
+        user,
+      );
+      if (block) throw refusal(block, action, row, basis, next, waived?.gaps);
       if (action === 'recheck') return (await this.recheck(row, basis, body.note ?? null, user, transaction)).id;
       if (action === 'evaluate') {
         await this.reevaluate(row, basis, user, transaction);
@@ -258,7 +277,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         },
         transaction,
       );
-      await this.notify(action, row, basis, user, transaction);
+      await this.notify(action, row, basis, user, transaction, waived?.waivers);
       return row.id;
     });
   }
@@ -273,8 +292,8 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
           errors: [{ path: 'note', message: 'required when the evaluation is not a pass' }],
         });
       }
-      const state = QUALIFICATION_TRANSITIONS[action].to as 'approved' | 'cleared' | 'cleared-with-conditions' | 'rejected';
-      const text = action === 'clear' || action === 'approve' ? (body.note ?? null) : action === 'clear-with-conditions' ? body.conditions! : body.reason!;
+      const state = QUALIFICATION_TRANSITIONS[action].to as 'approved' | 'cleared' | 'cleared-with-conditions' | 'cleared-with-waiver' | 'rejected';
+      const text = action === 'clear' || action === 'approve' || action === 'clear-with-waiver' ? (body.note ?? null) : action === 'clear-with-conditions' ? body.conditions! : body.reason!;
       return { toState: state, fields: { decisionState: state, decidedById: user.id, decidedAt: now, decisionText: text || null }, note: text || null };
     }
     switch (action) {
@@ -416,7 +435,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   /** Mail, written to the outbox in the decision's transaction: buyers on clearance and revocation, reviewers on submission. */
-  private async notify(action: QualificationAction, row: Qualification, basis: CatalogueBasis, user: AuthUser, transaction: Transaction): Promise<void> {
+  private async notify(action: QualificationAction, row: Qualification, basis: CatalogueBasis, user: AuthUser, transaction: Transaction, waivers: readonly QualificationWaiver[] = []): Promise<void> {
     const part = `${basis.vendorPart.manufacturer} ${basis.vendorPart.mpn}`;
     const hp = basis.housePart.partNumber;
     const link = `/qualifications/${row.id}`;
@@ -440,7 +459,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       );
       return;
     }
-    if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'revoke') return;
+    if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'clear-with-waiver' && action !== 'revoke') return;
     const to = await this.cases.buyerEmails(row.housePartId, transaction);
     if (to.length === 0) {
       this.logger.log(`case ${row.id}: no buyers linked to ${hp}, no mail`);
@@ -452,15 +471,17 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         : [
             action === 'approve'
               ? `${user.name} approved ${part} as the approved source of ${hp} (${basis.housePart.description}) (case #${row.id}).`
-              : `${user.name} cleared ${part} as a source of ${hp} (${basis.housePart.description})${action === 'clear-with-conditions' ? ' with conditions' : ''} (case #${row.id}).`,
+              : `${user.name} cleared ${part} as a source of ${hp} (${basis.housePart.description})${action === 'clear-with-conditions' ? ' with conditions' : action === 'clear-with-waiver' ? ' with waiver' : ''} (case #${row.id}).`,
             action === 'clear-with-conditions' ? `Conditions: ${row.decisionText}` : row.decisionText ? `Note: ${row.decisionText}` : '',
+            ...waivers.map((w) => `Waived: ${CHECK_LABELS[w.checkId]}, accepted limit ${w.acceptedLimit === null ? 'as stated' : formatCheckValue(w.acceptedLimit, w.quantity)}, until ${dateText(w.expiresOn)} (${w.reason})`),
+            waivers.length ? 'The clearance lapses when a waiver expires.' : '',
             `Prepared by ${await this.userName(row.preparedById, transaction)}; decided on spec version ${row.specVersion} and card version ${row.cardVersion}.`,
           ];
     await this.mail.enqueue(
       {
         to,
         kind: `qualification.${AUDIT_OF[action]}`,
-        subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : 'cleared with conditions'}`,
+        subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : action === 'clear-with-waiver' ? 'cleared with waiver' : 'cleared with conditions'}`,
         body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`].join('\n'),
       },
       transaction,
@@ -505,6 +526,7 @@ const AUDIT_OF: Record<QualificationAction, AuditEntry['action']> = {
   approve: 'approved',
   clear: 'cleared',
   'clear-with-conditions': 'cleared-with-conditions',
+  'clear-with-waiver': 'cleared-with-waiver',
   reject: 'rejected',
   withdraw: 'withdrawn',
   revoke: 'revoked',
@@ -549,12 +571,13 @@ export function allowedActions(
   user: AuthUser,
   current: { specVersion: number | null; cardVersion: number | null },
   nextState: QualificationState | null,
+  waivers?: { gaps: readonly CheckId[]; inForce: number },
 ): QualificationAction[] {
-  return allowedActionsFor({ state: row.state, preparedById: row.preparedById, overall: row.overall, fresh: isEvaluationFresh(row, current), nextId: row.nextId, nextState }, user);
+  return allowedActionsFor({ state: row.state, preparedById: row.preparedById, overall: row.overall, fresh: isEvaluationFresh(row, current), nextId: row.nextId, nextState, waivers }, user);
 }
 
 /** The refusal of an action the rule blocks, in plain words and with its status. */
-function refusal(block: ActionBlock, action: QualificationAction, row: Qualification, basis: CatalogueBasis, next: Qualification | null): Error {
+function refusal(block: ActionBlock, action: QualificationAction, row: Qualification, basis: CatalogueBasis, next: Qualification | null, gaps: readonly CheckId[] = []): Error {
   const doing = action === 'submit' ? 'sending it for review' : action === 'approve' ? 'approving it' : 'clearing it';
   switch (block) {
     case 'role':
@@ -580,6 +603,12 @@ function refusal(block: ActionBlock, action: QualificationAction, row: Qualifica
       return new ConflictException(`Case #${row.id} was superseded by case #${next!.id} (${label(next!.state).toLowerCase()}); revoke that one`);
     case 'recheck-exists':
       return new ConflictException(`Case #${row.id} already has a re-check: case #${next!.id}`);
+    case 'waiver':
+      return new UnprocessableEntityException(
+        gaps.length > 0
+          ? `Case #${row.id} cannot be cleared with waiver: ${gaps.map((g) => `"${CHECK_LABELS[g]}"`).join(', ')} ${gaps.length === 1 ? 'is' : 'are'} not a pass and not covered by an approved, unexpired waiver`
+          : `Case #${row.id} has no approved, unexpired waiver: clear it (a pass) or prepare a waiver for each failing or marginal check first`,
+      );
   }
 }
 
@@ -619,4 +648,11 @@ export function toSummary(row: CaseRow): QualificationSummary {
     createdAt: iso(row.createdAt)!,
     updatedAt: iso(row.updatedAt)!,
   };
+}
+
+/** A check's value in its unit (SI prefixes), as the evaluation shows it. */
+function formatCheckValue(value: number, quantity: CheckQuantity): string {
+  if (quantity === 'ratio') return String(Number(value.toPrecision(4)));
+  if (quantity === 'text') return String(value);
+  return formatQuantity(value, quantity);
 }

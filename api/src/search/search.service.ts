@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, Optional } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
   isUsableState,
@@ -10,7 +10,9 @@ import {
   type SearchPage,
   type SearchQuery,
   type SearchSort,
+  type WaiverBrief,
 } from '@shuntwise/contracts';
+import { WaiversService } from '../qualifications/waivers.service';
 import { SearchRepository, type CandidateRow, type PairRow, type PartRow, type TextNarrowing } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
 
@@ -25,9 +27,15 @@ const PREFIX_CHARACTERS = 3;
  */
 @Injectable()
 export class SearchService {
-  constructor(private readonly repository: SearchRepository) {}
+  constructor(
+    private readonly repository: SearchRepository,
+    // Optional so the service can be built bare over a repository (unit tests, the bench).
+    @Optional() private readonly waivers?: WaiversService,
+  ) {}
 
   async search(query: SearchQuery): Promise<SearchPage> {
+    // Waivers past their day end before usability is read (see WaiversService.lapseDue).
+    await this.waivers?.lapseDue();
     if (!query.q) {
       const { ids, total } = await this.repository.page(query);
       return { items: await this.items(ids, new Map()), total, pageIndex: query.pageIndex, pageSize: query.pageSize, text: { mode: 'none', candidates: total, truncated: false, note: null } };
@@ -105,18 +113,20 @@ export class SearchService {
   /** The page's parts in the given order, each with its card and where it stands for every house part. */
   private async items(ids: number[], scores: Map<number, number>): Promise<SearchItem[]> {
     const [parts, pairs] = await Promise.all([this.repository.parts(ids), this.repository.pairs(ids)]);
+    const usedWaivers = pairs.filter((p) => p.state === 'cleared-with-waiver' && p.caseId !== null).map((p) => p.caseId!);
+    const waivers = this.waivers ? await this.waivers.briefsOf(usedWaivers) : new Map<number, WaiverBrief[]>();
     const partById = new Map(parts.map((p) => [p.id, p]));
     const pairsByPart = new Map<number, PairRow[]>();
     for (const pair of pairs) pairsByPart.set(pair.vendorPartId, [...(pairsByPart.get(pair.vendorPartId) ?? []), pair]);
     return ids.flatMap((id) => {
       const part = partById.get(id);
-      return part ? [toItem(part, pairsByPart.get(id) ?? [], scores.get(id) ?? null)] : [];
+      return part ? [toItem(part, pairsByPart.get(id) ?? [], scores.get(id) ?? null, waivers)] : [];
     });
   }
 }
 
-function toItem(part: PartRow, pairs: PairRow[], score: number | null): SearchItem {
-  const clearances = pairs.map(toClearance).filter((c): c is Clearance => c !== null);
+function toItem(part: PartRow, pairs: PairRow[], score: number | null, waivers: ReadonlyMap<number, WaiverBrief[]>): SearchItem {
+  const clearances = pairs.map((p) => toClearance(p, waivers)).filter((c): c is Clearance => c !== null);
   return {
     vendorPart: { id: part.id, manufacturer: part.manufacturer, mpn: part.mpn, package: part.package, lifecycleNote: part.lifecycleNote },
     card: toSearchCard(part),
@@ -129,7 +139,7 @@ function toItem(part: PartRow, pairs: PairRow[], score: number | null): SearchIt
 }
 
 /** A pair the designer may design in, or null: approved or cleared by its latest decision (isUsableState in contracts). */
-export function toClearance(pair: PairRow): Clearance | null {
+export function toClearance(pair: PairRow, waivers: ReadonlyMap<number, WaiverBrief[]> = new Map()): Clearance | null {
   if (!isUsableState(pair.state)) return null;
   const housePart = { id: pair.housePartId, partNumber: pair.partNumber, description: pair.description, status: pair.status };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
@@ -143,6 +153,7 @@ export function toClearance(pair: PairRow): Clearance | null {
     revision: pair.revision,
     needsRecheck: Boolean(pair.needsRecheck),
     recheckOpen: pair.openCaseId !== null,
+    waivers: pair.caseId !== null ? (waivers.get(pair.caseId) ?? []) : [],
   };
 }
 

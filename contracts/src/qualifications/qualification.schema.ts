@@ -32,12 +32,17 @@ export const AUDIT_ACTIONS = [
   'approved',
   'cleared',
   'cleared-with-conditions',
+  'cleared-with-waiver',
   'rejected',
   'withdrawn',
   'revoked',
   'recheck-opened',
   'flagged-for-recheck',
   'commented',
+  'waiver-prepared',
+  'waiver-approved',
+  'waiver-refused',
+  'waiver-lapsed',
 ] as const;
 export const auditActionSchema = z.enum(AUDIT_ACTIONS);
 export type AuditAction = z.infer<typeof auditActionSchema>;
@@ -66,8 +71,8 @@ export const qualificationCommentSchema = z.object({
 });
 export type QualificationComment = z.infer<typeof qualificationCommentSchema>;
 
-/** Why a case needs a re-check: a catalogue change after it was evaluated. */
-export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised', 'measurements-added'] as const;
+/** Why a case needs a re-check: a catalogue change after it was evaluated, or a waiver it was cleared on expired. */
+export const RECHECK_CAUSES = ['card-changed', 'spec-changed', 'datasheet-revised', 'measurements-added', 'waiver-expired'] as const;
 export const recheckCauseSchema = z.enum(RECHECK_CAUSES);
 export type RecheckCause = z.infer<typeof recheckCauseSchema>;
 
@@ -83,7 +88,7 @@ export const housePartRefSchema = z.object({ id: z.number().int(), partNumber: z
 export const vendorPartRefSchema = z.object({ id: z.number().int(), manufacturer: z.string(), mpn: z.string(), package: z.string().nullable() });
 
 export const qualificationDecisionSchema = z.object({
-  state: z.enum(['approved', 'cleared', 'cleared-with-conditions', 'rejected']),
+  state: z.enum(['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected']),
   by: actorSchema,
   at: z.string(),
   /** The spec and card versions the decision was made on. */
@@ -214,6 +219,8 @@ export const qualificationSendBackRequestSchema = z.strictObject({ version: vers
 export const qualificationApproveRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });
 export const qualificationClearRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });
 export const qualificationClearWithConditionsRequestSchema = z.strictObject({ version: versionField, conditions: required('conditions') });
+/** Clears the source while its failing or marginal checks are covered by approved, unexpired waivers. */
+export const qualificationClearWithWaiverRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });
 export const qualificationRejectRequestSchema = z.strictObject({ version: versionField, reason: required('reason for the rejection') });
 export const qualificationWithdrawRequestSchema = z.strictObject({ version: versionField, reason: text(2000).nullish() });
 export const qualificationRevokeRequestSchema = z.strictObject({ version: versionField, reason: required('reason for revoking the clearance') });
@@ -226,6 +233,7 @@ export type QualificationSendBackRequest = z.input<typeof qualificationSendBackR
 export type QualificationApproveRequest = z.input<typeof qualificationApproveRequestSchema>;
 export type QualificationClearRequest = z.input<typeof qualificationClearRequestSchema>;
 export type QualificationClearWithConditionsRequest = z.input<typeof qualificationClearWithConditionsRequestSchema>;
+export type QualificationClearWithWaiverRequest = z.input<typeof qualificationClearWithWaiverRequestSchema>;
 export type QualificationRejectRequest = z.input<typeof qualificationRejectRequestSchema>;
 export type QualificationWithdrawRequest = z.input<typeof qualificationWithdrawRequestSchema>;
 export type QualificationRevokeRequest = z.input<typeof qualificationRevokeRequestSchema>;
@@ -240,6 +248,7 @@ export const QUALIFICATION_ACTION_REQUEST_SCHEMAS: Record<QualificationAction, z
   approve: qualificationApproveRequestSchema,
   clear: qualificationClearRequestSchema,
   'clear-with-conditions': qualificationClearWithConditionsRequestSchema,
+  'clear-with-waiver': qualificationClearWithWaiverRequestSchema,
   reject: qualificationRejectRequestSchema,
   withdraw: qualificationWithdrawRequestSchema,
   revoke: qualificationRevokeRequestSchema,

@@ -1,5 +1,7 @@
 import type { Role } from '../auth/auth.schema';
 import type { SourceRole } from '../parts/source.schema';
+import type { CheckId, LimitKind, QualificationCheck } from './evaluation.schema';
+import type { WaiverState } from './waiver.schema';
 import {
   QUALIFICATION_ACTIONS,
   QUALIFICATION_STATES,
@@ -21,7 +23,7 @@ import {
  */
 
 /** Decided states in which the vendor part may be used as a source: designers design it in, buyers order it. */
-export const USABLE_STATES = ['approved', 'cleared', 'cleared-with-conditions'] as const satisfies readonly QualificationState[];
+export const USABLE_STATES = ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver'] as const satisfies readonly QualificationState[];
 export type UsableState = (typeof USABLE_STATES)[number];
 
 export function isUsableState(state: QualificationState | null | undefined): state is UsableState {
@@ -83,6 +85,12 @@ export interface CaseFacts {
   /** The case that revised this one, if any, and its state (undefined: not known to the caller). */
   nextId: number | null;
   nextState?: QualificationState | null;
+  /**
+   * For clear with waiver: the checks that fail, are marginal or lack data and no waiver in
+   * force covers (`waiverGaps`), and whether any waiver is in force at all. Undefined: not
+   * known to the caller, and the action is not offered.
+   */
+  waivers?: { gaps: readonly CheckId[]; inForce: number };
 }
 
 /**
@@ -94,9 +102,11 @@ export interface CaseFacts {
  * - `verdict`: clear needs a pass; approve and clear with conditions anything but a fail
  *   (an approval short of a pass must say in its note how the margin is covered);
  * - `superseded`: a re-check of the case was decided: revoke that one instead;
- * - `recheck-exists`: the case already has a re-check.
+ * - `recheck-exists`: the case already has a re-check;
+ * - `waiver`: clear with waiver needs every failing or marginal check covered by an approved,
+ *   unexpired waiver (and at least one such waiver; a clean pass is simply cleared).
  */
-export type ActionBlock = 'role' | 'state' | 'two-person' | 'stale' | 'verdict' | 'superseded' | 'recheck-exists';
+export type ActionBlock = 'role' | 'state' | 'two-person' | 'stale' | 'verdict' | 'superseded' | 'recheck-exists' | 'waiver';
 
 export function actionBlock(action: QualificationAction, facts: CaseFacts, actor: { id: number; role: Role }): ActionBlock | null {
   if (!(CASE_ROLES as readonly string[]).includes(actor.role)) return 'role';
@@ -112,6 +122,10 @@ export function actionBlock(action: QualificationAction, facts: CaseFacts, actor
     case 'clear-with-conditions':
       if (!facts.fresh) return 'stale';
       return facts.overall !== 'fail' ? null : 'verdict';
+    case 'clear-with-waiver':
+      if (!facts.fresh) return 'stale';
+      if (!facts.waivers || facts.waivers.inForce === 0 || facts.waivers.gaps.length > 0) return 'waiver';
+      return null;
     case 'revoke':
       return facts.nextState != null && isDecidedState(facts.nextState) ? 'superseded' : null;
     case 'recheck':
@@ -138,4 +152,95 @@ export function isEvaluationFresh(evaluated: { needsRecheck: boolean; specVersio
 export function sqlStateList(states: readonly QualificationState[]): string {
   for (const s of states) if (!/^[a-z-]+$/.test(s)) throw new Error(`not a state: ${s}`);
   return `(${states.map((s) => `'${s}'`).join(', ')})`;
+}
+
+/* ------------------------------------------------------------------------------------------
+ * Waivers: a failing or marginal check of one case (one house part, one vendor part) accepted
+ * against a stated limit until an expiry date. The same two-person rule as decisions: one
+ * engineer prepares, another approves or refuses.
+ * ---------------------------------------------------------------------------------------- */
+
+/** Check verdicts a waiver may cover: a no-data check needs data, not a waiver. */
+export const WAIVABLE_VERDICTS = ['fail', 'marginal'] as const satisfies readonly QualificationVerdict[];
+
+/** The least a waiver must say for the rule. `expiresOn` is the last day it holds (YYYY-MM-DD). */
+export interface WaiverFacts {
+  checkId: CheckId;
+  state: WaiverState;
+  expiresOn: string;
+  preparedById: number;
+}
+
+/** Today's date (UTC) as `YYYY-MM-DD`, from the clock's instant. */
+export function dayOf(now: Date): string {
+  return now.toISOString().slice(0, 10);
+}
+
+/** A waiver counts when it was approved and its expiry day has not passed. */
+export function isWaiverInForce(waiver: Pick<WaiverFacts, 'state' | 'expiresOn'>, today: string): boolean {
+  return waiver.state === 'approved' && waiver.expiresOn >= today;
+}
+
+/** An approved waiver whose expiry day has passed: the lapse pass ends it (and the standing it carried). */
+export function isWaiverDue(waiver: Pick<WaiverFacts, 'state' | 'expiresOn'>, today: string): boolean {
+  return waiver.state === 'approved' && waiver.expiresOn < today;
+}
+
+/** The checks that are not a pass and no waiver in force covers, in the evaluation's order. */
+export function waiverGaps(checks: readonly Pick<QualificationCheck, 'id' | 'verdict'>[], waivers: readonly Pick<WaiverFacts, 'checkId' | 'state' | 'expiresOn'>[], today: string): CheckId[] {
+  const covered = new Set(waivers.filter((w) => isWaiverInForce(w, today)).map((w) => w.checkId));
+  return checks.filter((c) => c.verdict !== 'pass' && !covered.has(c.id)).map((c) => c.id);
+}
+
+/** What the rule needs of a case to take a waiver. */
+export interface WaiverCaseFacts {
+  state: QualificationState;
+  checks: readonly Pick<QualificationCheck, 'id' | 'verdict' | 'limitKind' | 'value' | 'quantity'>[];
+}
+
+/**
+ * Why a waiver step is not open, or null when it is:
+ * - `role`: only engineers prepare and decide waivers;
+ * - `state`: the case is not open (prepare, approve, refuse) or the waiver is not waiting;
+ * - `check`: the check is not in the evaluation, or it is not failing or marginal;
+ * - `limit`: the accepted limit does not cover the part's value, or is missing (or given for a text check);
+ * - `expiry`: the expiry day is not after today;
+ * - `duplicate`: the check already has a waiver waiting or in force on this case;
+ * - `two-person`: the preparer never approves or refuses their own waiver.
+ */
+export type WaiverBlock = 'role' | 'state' | 'check' | 'limit' | 'expiry' | 'duplicate' | 'two-person';
+
+export function prepareWaiverBlock(
+  request: { checkId: CheckId; acceptedLimit: number | null; expiresOn: string },
+  facts: WaiverCaseFacts & { waivers: readonly Pick<WaiverFacts, 'checkId' | 'state' | 'expiresOn'>[] },
+  actor: { role: Role },
+  today: string,
+): WaiverBlock | null {
+  if (!(CASE_ROLES as readonly string[]).includes(actor.role)) return 'role';
+  if (!isOpenState(facts.state)) return 'state';
+  const check = facts.checks.find((c) => c.id === request.checkId);
+  if (!check || !(WAIVABLE_VERDICTS as readonly string[]).includes(check.verdict)) return 'check';
+  if (!limitCovers(check, request.acceptedLimit)) return 'limit';
+  if (request.expiresOn <= today) return 'expiry';
+  if (facts.waivers.some((w) => w.checkId === request.checkId && (w.state === 'proposed' || isWaiverInForce(w, today)))) return 'duplicate';
+  return null;
+}
+
+/** Whether an accepted limit covers the part's value the check found (a text check takes no limit). */
+export function limitCovers(check: { limitKind: LimitKind; value: number | null; quantity: string }, acceptedLimit: number | null): boolean {
+  if (check.quantity === 'text' || check.limitKind === 'member') return acceptedLimit === null;
+  if (acceptedLimit === null || !Number.isFinite(acceptedLimit)) return false;
+  if (check.value === null) return true;
+  if (check.limitKind === 'max') return check.value <= acceptedLimit;
+  if (check.limitKind === 'min') return check.value >= acceptedLimit;
+  // A window check's value is its end nearest the limit; the accepted limit widens that end.
+  return true;
+}
+
+export function decideWaiverBlock(waiver: Pick<WaiverFacts, 'state' | 'preparedById' | 'expiresOn'>, caseState: QualificationState, actor: { id: number; role: Role }, today: string): WaiverBlock | null {
+  if (!(CASE_ROLES as readonly string[]).includes(actor.role)) return 'role';
+  if (waiver.state !== 'proposed' || !isOpenState(caseState)) return 'state';
+  if (waiver.preparedById === actor.id) return 'two-person';
+  if (waiver.expiresOn <= today) return 'expiry';
+  return null;
 }

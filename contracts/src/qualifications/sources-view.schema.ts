@@ -5,6 +5,7 @@ import { sourceRoleSchema } from '../parts/source.schema';
 import { qualificationStateSchema } from './qualification-state.schema';
 import { vendorPartRefSchema } from './qualification.schema';
 import { SOURCE_STANDINGS } from './source-standing';
+import { waiverBriefSchema } from './waiver.schema';
 
 /**
  * Where a source stands for procurement: the state of its latest decided case (approved,
@@ -18,8 +19,10 @@ export const SOURCE_STANDING_LABELS: Record<SourceStanding, string> = {
   approved: 'Approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
+  'cleared-with-waiver': 'Cleared with waiver',
   rejected: 'Rejected',
   revoked: 'Revoked',
+  'waiver-lapsed': 'Waiver lapsed',
   'in-review': 'In review',
   draft: 'Draft',
   withdrawn: 'Withdrawn',
@@ -41,6 +44,8 @@ export const sourceStandingRowSchema = z.object({
   /** A newer case still open for this source (a re-check under way). */
   openCase: z.object({ id: z.number().int(), state: qualificationStateSchema }).nullable(),
   needsRecheck: z.boolean(),
+  /** The approved waivers the standing's case was cleared on (a clearance with waiver), with their expiry. */
+  waivers: z.array(waiverBriefSchema),
 });
 export type SourceStandingRow = z.infer<typeof sourceStandingRowSchema>;
 

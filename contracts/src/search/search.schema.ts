@@ -3,6 +3,7 @@ import { tempCoSchema } from '../engineering/card.schema';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
 import { USABLE_STATES } from '../qualifications/source-standing';
+import { waiverBriefSchema } from '../qualifications/waiver.schema';
 
 /**
  * `GET /api/search` (designer, engineer, admin): the parts a designer may design in, found
@@ -19,6 +20,7 @@ export const CLEARANCE_STANDING_LABELS: Record<ClearanceStanding, string> = {
   approved: 'Approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
+  'cleared-with-waiver': 'Cleared with waiver',
 };
 
 export const SEARCH_SORTS = ['relevance', 'vzNom', 'mpn', 'manufacturer', 'package', 'pdMax'] as const;
@@ -96,6 +98,8 @@ export const clearanceSchema = z.object({
   needsRecheck: z.boolean(),
   /** A newer case for this pair is open (a re-check under way). */
   recheckOpen: z.boolean(),
+  /** For a clearance with waiver: the waivers it rests on and when each expires. */
+  waivers: z.array(waiverBriefSchema),
 });
 export type Clearance = z.infer<typeof clearanceSchema>;
 

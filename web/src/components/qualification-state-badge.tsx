@@ -13,9 +13,11 @@ export const STATE_COLOR: Record<QualificationState, string> = {
   approved: 'verdigris',
   cleared: 'verdigris',
   'cleared-with-conditions': 'lime',
+  'cleared-with-waiver': 'yellow',
   rejected: 'red',
   withdrawn: 'gray',
   revoked: 'grape',
+  'waiver-lapsed': 'orange',
 };
 
 const OUTLINED = new Set<string>(['withdrawn', 'none', 'not-qualified', 'approved']);

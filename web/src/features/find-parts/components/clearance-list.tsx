@@ -7,6 +7,7 @@ export const STANDING_COLOR: Record<ClearanceStanding, string> = {
   approved: 'verdigris',
   cleared: 'verdigris',
   'cleared-with-conditions': 'yellow',
+  'cleared-with-waiver': 'orange',
 };
 
 function HousePartName({ clearance, linkHouseParts }: { clearance: Clearance; linkHouseParts: boolean }) {

@@ -37,6 +37,7 @@ export function searchItem(id: number, mpn: string, over: Partial<SearchItem> = 
         revision: null,
         needsRecheck: false,
         recheckOpen: false,
+        waivers: [],
       },
     ],
     qualificationOpen: false,
@@ -59,6 +60,7 @@ export const CONDITIONAL = searchItem(12, 'TPZ15-11', {
       revision: 1,
       needsRecheck: true,
       recheckOpen: false,
+      waivers: [],
     },
   ],
 });

@@ -65,6 +65,13 @@ export const ACTION_FORMS: Record<QualificationAction, ActionForm> = {
     explain: (q) =>
       `Clears ${source(q)} on the conditions you write here; buyers see them on the source list and in their mail. The decision records spec v${q.specVersion} and card v${q.cardVersion} and cannot be changed afterwards.`,
   },
+  'clear-with-waiver': {
+    field: 'note',
+    label: 'Note',
+    placeholder: 'optional',
+    explain: (q) =>
+      `Clears ${source(q)} on the approved waivers of its failing or marginal checks. The clearance lapses when a waiver expires; buyers see each waiver and its expiry. The decision records spec v${q.specVersion} and card v${q.cardVersion}.`,
+  },
   reject: {
     field: 'reason',
     label: 'Reason for the rejection',
@@ -95,6 +102,7 @@ export const ACTION_COLOR: Partial<Record<QualificationAction, string>> = {
   approve: 'verdigris',
   clear: 'verdigris',
   'clear-with-conditions': 'lime',
+  'clear-with-waiver': 'yellow',
   reject: 'red',
   revoke: 'grape',
   withdraw: 'gray',
@@ -107,6 +115,7 @@ const DONE: Record<QualificationAction, string> = {
   approve: 'approved as the approved source',
   clear: 'cleared',
   'clear-with-conditions': 'cleared with conditions',
+  'clear-with-waiver': 'cleared with waiver',
   reject: 'rejected',
   withdraw: 'withdrawn',
   revoke: 'revoked',

@@ -12,12 +12,17 @@ const ACTION_LABEL: Record<AuditAction, string> = {
   approved: 'Approved as approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
+  'cleared-with-waiver': 'Cleared with waiver',
   rejected: 'Rejected',
   withdrawn: 'Withdrawn',
   revoked: 'Revoked',
   'recheck-opened': 'Re-check opened',
   'flagged-for-recheck': 'Flagged for re-check',
   commented: 'Commented',
+  'waiver-prepared': 'Waiver prepared',
+  'waiver-approved': 'Waiver approved',
+  'waiver-refused': 'Waiver refused',
+  'waiver-lapsed': 'Waiver lapsed',
 };
 
 const FIELD_LABEL: Record<string, string> = {

@@ -8,6 +8,7 @@ const CAUSE: Record<RecheckCause, string> = {
   'spec-changed': 'the spec changed',
   'datasheet-revised': 'a datasheet was revised',
   'measurements-added': 'measured samples were added',
+  'waiver-expired': 'a waiver it was cleared on expired',
 };
 
 /** The "needs re-check" flag with what caused it: a catalogue change after the evaluation. */

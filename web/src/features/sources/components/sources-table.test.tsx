@@ -21,6 +21,7 @@ const VIEW: SourcesView = {
           decidedBy: null,
           openCase: null,
           needsRecheck: false,
+          waivers: [],
         },
         {
           vendorPart: { id: 40, manufacturer: 'Quarryhill Semitech', mpn: 'QHZ4V7A', package: 'SOD-123' },
@@ -33,6 +34,7 @@ const VIEW: SourcesView = {
           decidedBy: { id: 3, name: 'Tomas Eklund' },
           openCase: null,
           needsRecheck: true,
+          waivers: [],
         },
       ],
     },

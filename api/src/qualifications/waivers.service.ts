@@ -1,0 +1,349 @@
+import { ConflictException, ForbiddenException, Inject, Injectable, Logger, NotFoundException, UnprocessableEntityException, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import {
+  CHECK_LABELS,
+  QUALIFICATION_STATE_LABELS,
+  dayOf,
+  decideWaiverBlock,
+  isWaiverDue,
+  isWaiverInForce,
+  prepareWaiverBlock,
+  waiverGaps,
+  type ApproveWaiverRequest,
+  type CheckId,
+  type CreateWaiverRequest,
+  type RecheckReason,
+  type RefuseWaiverRequest,
+  type Waiver,
+  type WaiverBlock,
+  type WaiverBrief,
+} from '@shuntwise/contracts';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { Clock } from '../common/clock';
+import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { ENV, publicUrl, type Env } from '../config/env';
+import { MailService } from '../mail/mail.service';
+import type { Qualification } from './qualification.model';
+import { QualificationsRepository } from './qualifications.repository';
+import { QualificationWaiver } from './waiver.model';
+
+/** How often each process runs the lapse pass (every replica does; the case lock makes it happen once). */
+const LAPSE_EVERY_MS = 60_000;
+
+/**
+ * Waivers of failing or marginal checks: prepared by one engineer, approved or refused by
+ * another, each step audited on its case. The lapse pass ends approved waivers past their
+ * expiry day: the case cleared on them becomes `waiver-lapsed` (not usable), is flagged for
+ * a re-check and buyers and the preparer are mailed, all in one transaction per waiver
+ * under the case's row lock, so replicas running the pass together do it once.
+ */
+@Injectable()
+export class WaiversService implements OnModuleInit, OnModuleDestroy {
+  private readonly logger = new Logger('Waivers');
+  private timer?: NodeJS.Timeout;
+
+  constructor(
+    @InjectModel(QualificationWaiver) private readonly waivers: typeof QualificationWaiver,
+    private readonly cases: QualificationsRepository,
+    private readonly mail: MailService,
+    private readonly clock: Clock,
+    @Inject(ENV) private readonly env: Env,
+    @InjectConnection() private readonly sequelize: Sequelize,
+  ) {}
+
+  onModuleInit(): void {
+    this.timer = setInterval(() => void this.lapseDue().catch((error: unknown) => this.logger.warn(`lapse pass failed: ${String(error)}`)), LAPSE_EVERY_MS);
+    this.timer.unref();
+  }
+
+  onModuleDestroy(): void {
+    if (this.timer) clearInterval(this.timer);
+  }
+
+  today(): string {
+    return dayOf(this.clock.now());
+  }
+
+  /** A case's waivers, oldest first (the decision record lists them too). */
+  async waiversOf(qualificationId: number, transaction?: Transaction): Promise<Waiver[]> {
+    const rows = await this.sequelize.query<WaiverRow>(`${WAIVER_SELECT} WHERE w.qualification_id = ? ORDER BY w.id`, { replacements: [qualificationId], type: QueryTypes.SELECT, transaction });
+    return rows.map(toWaiver);
+  }
+
+  async list(qualificationId: number): Promise<{ items: Waiver[] }> {
+    if (!(await this.cases.findById(qualificationId))) throw new NotFoundException(`No qualification case with id ${qualificationId}`);
+    return { items: await this.waiversOf(qualificationId) };
+  }
+
+  /** Approved and lapsed waivers of these cases, for the lists that show a standing (Sources, search). */
+  async briefsOf(caseIds: readonly number[]): Promise<Map<number, WaiverBrief[]>> {
+    const out = new Map<number, WaiverBrief[]>();
+    if (caseIds.length === 0) return out;
+    const rows = await this.sequelize.query<{ id: number; qualificationId: number; checkId: CheckId; quantity: WaiverBrief['quantity']; acceptedLimit: number | null; expiresOn: string | Date; state: WaiverBrief['state'] }>(
+      `SELECT id, qualification_id AS qualificationId, check_id AS checkId, quantity, accepted_limit AS acceptedLimit, expires_on AS expiresOn, state
+       FROM qualification_waivers WHERE qualification_id IN (?) AND state IN ('approved', 'lapsed') ORDER BY id`,
+      { replacements: [caseIds], type: QueryTypes.SELECT },
+    );
+    for (const r of rows) {
+      const brief: WaiverBrief = { id: r.id, checkId: r.checkId, quantity: r.quantity, acceptedLimit: r.acceptedLimit, expiresOn: dateText(r.expiresOn), state: r.state };
+      out.set(r.qualificationId, [...(out.get(r.qualificationId) ?? []), brief]);
+    }
+    return out;
+  }
+
+  /** What clear with waiver needs to know (read under the case's lock): checks left uncovered, waivers in force. */
+  async factsFor(row: Qualification, transaction: Transaction): Promise<{ gaps: CheckId[]; inForce: number; waivers: QualificationWaiver[] }> {
+    const waivers = await this.waivers.findAll({ where: { qualificationId: row.id }, transaction });
+    const today = this.today();
+    const facts = waivers.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) }));
+    return { gaps: waiverGaps(row.evaluation.checks, facts, today), inForce: facts.filter((w) => isWaiverInForce(w, today)).length, waivers: waivers.filter((w) => isWaiverInForce({ state: w.state, expiresOn: dateText(w.expiresOn) }, today)) };
+  }
+
+  async create(qualificationId: number, request: CreateWaiverRequest, user: AuthUser): Promise<Waiver> {
+    const id = await this.sequelize.transaction(async (transaction) => {
+      const row = await this.lockCase(qualificationId, transaction);
+      const existing = await this.waivers.findAll({ where: { qualificationId }, transaction });
+      const today = this.today();
+      const block = prepareWaiverBlock(
+        { checkId: request.checkId, acceptedLimit: request.acceptedLimit, expiresOn: request.expiresOn },
+        { state: row.state, checks: row.evaluation.checks, waivers: existing.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) })) },
+        user,
+        today,
+      );
+      if (block) throw waiverRefusal(block, row, request.checkId, today);
+      const check = row.evaluation.checks.find((c) => c.id === request.checkId)!;
+      const waiver = await this.waivers.create(
+        {
+          qualificationId,
+          housePartId: row.housePartId,
+          vendorPartId: row.vendorPartId,
+          checkId: check.id,
+          quantity: check.quantity,
+          limitKind: check.limitKind,
+          specLimit: check.limit,
+          acceptedLimit: request.acceptedLimit,
+          value: check.value,
+          reason: request.reason,
+          expiresOn: request.expiresOn,
+          state: 'proposed',
+          preparedById: user.id,
+        },
+        { transaction },
+      );
+      await this.cases.addEvent(
+        {
+          qualificationId,
+          userId: user.id,
+          action: 'waiver-prepared',
+          changes: [
+            { field: `waiver#${waiver.id}.state`, from: null, to: 'proposed' },
+            { field: `waiver#${waiver.id}.acceptedLimit`, from: check.limit, to: request.acceptedLimit },
+            { field: `waiver#${waiver.id}.expiresOn`, from: null, to: request.expiresOn },
+          ],
+          note: `${CHECK_LABELS[check.id]} (${check.verdict}) waived until ${request.expiresOn}: ${request.reason}`,
+        },
+        transaction,
+      );
+      return waiver.id;
+    });
+    return this.one(qualificationId, id);
+  }
+
+  approve(qualificationId: number, waiverId: number, body: ApproveWaiverRequest, user: AuthUser): Promise<Waiver> {
+    return this.decide(qualificationId, waiverId, 'approved', body.note ?? null, user);
+  }
+
+  refuse(qualificationId: number, waiverId: number, body: RefuseWaiverRequest, user: AuthUser): Promise<Waiver> {
+    return this.decide(qualificationId, waiverId, 'refused', body.reason, user);
+  }
+
+  private async decide(qualificationId: number, waiverId: number, to: 'approved' | 'refused', note: string | null, user: AuthUser): Promise<Waiver> {
+    await this.sequelize.transaction(async (transaction) => {
+      const row = await this.lockCase(qualificationId, transaction);
+      const waiver = await this.waivers.findOne({ where: { id: waiverId, qualificationId }, transaction, lock: transaction.LOCK.UPDATE });
+      if (!waiver) throw new NotFoundException(`Case #${qualificationId} has no waiver with id ${waiverId}`);
+      const today = this.today();
+      const block = decideWaiverBlock({ state: waiver.state, preparedById: waiver.preparedById, expiresOn: dateText(waiver.expiresOn) }, row.state, user, today);
+      if (block) throw waiverRefusal(block, row, waiver.checkId, today, waiver);
+      await waiver.update({ state: to, decidedById: user.id, decidedAt: this.clock.now(), decisionNote: note }, { transaction });
+      await this.cases.addEvent(
+        {
+          qualificationId,
+          userId: user.id,
+          action: to === 'approved' ? 'waiver-approved' : 'waiver-refused',
+          changes: [{ field: `waiver#${waiver.id}.state`, from: 'proposed', to }],
+          note: `${CHECK_LABELS[waiver.checkId]} waiver #${waiver.id} ${to}${to === 'approved' ? ` until ${dateText(waiver.expiresOn)}` : ''}${note ? `: ${note}` : ''}`,
+        },
+        transaction,
+      );
+    });
+    return this.one(qualificationId, waiverId);
+  }
+
+  /**
+   * The lapse pass: every approved waiver past its expiry day is ended once. Safe to run on
+   * several processes at the same time and more than once: each waiver is re-read under
+   * its case's row lock and only an approved, due one is changed. Answers how many lapsed.
+   */
+  async lapseDue(): Promise<number> {
+    const today = this.today();
+    const due = await this.sequelize.query<{ id: number; qualificationId: number }>(
+      `SELECT id, qualification_id AS qualificationId FROM qualification_waivers WHERE state = 'approved' AND expires_on < ? ORDER BY id`,
+      { replacements: [today], type: QueryTypes.SELECT },
+    );
+    let lapsed = 0;
+    for (const { id, qualificationId } of due) {
+      if (await this.lapseOne(id, qualificationId, today)) lapsed += 1;
+    }
+    if (lapsed > 0) this.logger.log(`${lapsed} waiver(s) lapsed`);
+    return lapsed;
+  }
+
+  private async lapseOne(waiverId: number, qualificationId: number, today: string): Promise<boolean> {
+    return this.sequelize.transaction(async (transaction) => {
+      const row = await this.cases.findById(qualificationId, transaction, true);
+      const waiver = await this.waivers.findByPk(waiverId, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!row || !waiver || !isWaiverDue({ state: waiver.state, expiresOn: dateText(waiver.expiresOn) }, today)) return false;
+      const now = this.clock.now();
+      const expiresOn = dateText(waiver.expiresOn);
+      await waiver.update({ state: 'lapsed', lapsedAt: now }, { transaction });
+      const what = `${CHECK_LABELS[waiver.checkId]} waiver #${waiver.id} expired on ${expiresOn}`;
+      const standingEnds = row.state === 'cleared-with-waiver';
+      if (standingEnds) {
+        const reason: RecheckReason = { cause: 'waiver-expired', at: now.toISOString(), detail: what };
+        await this.cases.save(row, { state: 'waiver-lapsed', needsRecheck: true, recheckReasons: [...(row.recheckReasons ?? []), reason] }, transaction);
+      }
+      await this.cases.addEvent(
+        {
+          qualificationId,
+          userId: null,
+          action: 'waiver-lapsed',
+          fromState: standingEnds ? 'cleared-with-waiver' : null,
+          toState: standingEnds ? 'waiver-lapsed' : null,
+          changes: [{ field: `waiver#${waiver.id}.state`, from: 'approved', to: 'lapsed' }, ...(standingEnds ? [{ field: 'state', from: 'cleared-with-waiver', to: 'waiver-lapsed' }, { field: 'needsRecheck', from: row.needsRecheck, to: true }] : [])],
+          note: standingEnds ? `${what}: the source is no longer usable until a re-check clears it` : what,
+        },
+        transaction,
+      );
+      await this.mailLapse(row, waiver, what, standingEnds, transaction);
+      return true;
+    });
+  }
+
+  private async mailLapse(row: Qualification, waiver: QualificationWaiver, what: string, standingEnds: boolean, transaction: Transaction): Promise<void> {
+    const [pair] = await this.sequelize.query<{ partNumber: string; manufacturer: string; mpn: string }>(
+      `SELECT h.part_number AS partNumber, v.manufacturer_name AS manufacturer, v.mpn FROM house_parts h JOIN vendor_parts v ON v.id = ? WHERE h.id = ?`,
+      { replacements: [row.vendorPartId, row.housePartId], type: QueryTypes.SELECT, transaction },
+    );
+    const preparer = await this.cases.findUser(waiver.preparedById, transaction);
+    const buyers = standingEnds ? await this.cases.buyerEmails(row.housePartId, transaction) : [];
+    const to = [...buyers, ...(preparer?.active ? [preparer.email] : [])];
+    if (to.length === 0) return;
+    const base = publicUrl(this.env);
+    const part = `${pair.manufacturer} ${pair.mpn}`;
+    await this.mail.enqueue(
+      {
+        to,
+        kind: 'qualification.waiver-lapsed',
+        subject: `${pair.partNumber}: ${part} ${standingEnds ? 'no longer usable, a waiver expired' : 'waiver expired'} (case #${row.id})`,
+        body: [
+          `${what} (case #${row.id}, ${part} as a source of ${pair.partNumber}).`,
+          standingEnds
+            ? `The case was ${QUALIFICATION_STATE_LABELS['cleared-with-waiver'].toLowerCase()}; it is now ${QUALIFICATION_STATE_LABELS['waiver-lapsed'].toLowerCase()} and needs a re-check. Do not place new orders for it against this house part until it is cleared again.`
+            : 'The case was not cleared on it; the waiver no longer counts.',
+          '',
+          `Sources of ${pair.partNumber}: ${base}/sources?housePartId=${row.housePartId}`,
+          `Case: ${base}/qualifications/${row.id}`,
+        ].join('\n'),
+      },
+      transaction,
+    );
+  }
+
+  private async one(qualificationId: number, waiverId: number): Promise<Waiver> {
+    return (await this.waiversOf(qualificationId)).find((w) => w.id === waiverId)!;
+  }
+
+  private async lockCase(id: number, transaction: Transaction): Promise<Qualification> {
+    const row = await this.cases.findById(id, transaction, true);
+    if (!row) throw new NotFoundException(`No qualification case with id ${id}`);
+    return row;
+  }
+}
+
+type WaiverRow = Omit<Waiver, 'preparedBy' | 'decidedBy' | 'checkLabel' | 'expiresOn' | 'decidedAt' | 'lapsedAt' | 'createdAt'> & {
+  expiresOn: string | Date;
+  preparedById: number;
+  preparedByName: string;
+  decidedById: number | null;
+  decidedByName: string | null;
+  decidedAt: Date | null;
+  lapsedAt: Date | null;
+  createdAt: Date;
+};
+
+const WAIVER_SELECT = `SELECT w.id, w.qualification_id AS qualificationId, w.house_part_id AS housePartId, w.vendor_part_id AS vendorPartId, w.check_id AS checkId,
+  w.quantity, w.limit_kind AS limitKind, w.spec_limit AS specLimit, w.accepted_limit AS acceptedLimit, w.value, w.reason, w.expires_on AS expiresOn, w.state,
+  w.prepared_by_id AS preparedById, pu.name AS preparedByName, w.decided_by_id AS decidedById, du.name AS decidedByName, w.decided_at AS decidedAt,
+  w.decision_note AS decisionNote, w.lapsed_at AS lapsedAt, w.created_at AS createdAt
+  FROM qualification_waivers w JOIN users pu ON pu.id = w.prepared_by_id LEFT JOIN users du ON du.id = w.decided_by_id`;
+
+function toWaiver(r: WaiverRow): Waiver {
+  const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
+  return {
+    id: r.id,
+    qualificationId: r.qualificationId,
+    housePartId: r.housePartId,
+    vendorPartId: r.vendorPartId,
+    checkId: r.checkId,
+    checkLabel: CHECK_LABELS[r.checkId],
+    quantity: r.quantity,
+    limitKind: r.limitKind,
+    specLimit: r.specLimit,
+    acceptedLimit: r.acceptedLimit,
+    value: r.value,
+    reason: r.reason,
+    expiresOn: dateText(r.expiresOn),
+    state: r.state,
+    preparedBy: { id: r.preparedById, name: r.preparedByName },
+    decidedBy: r.decidedById !== null ? { id: r.decidedById, name: r.decidedByName ?? '' } : null,
+    decidedAt: iso(r.decidedAt),
+    decisionNote: r.decisionNote,
+    lapsedAt: iso(r.lapsedAt),
+    createdAt: iso(r.createdAt)!,
+  };
+}
+
+/** A DATEONLY column as `YYYY-MM-DD` (the driver may answer a string or a Date). */
+export function dateText(value: string | Date): string {
+  return typeof value === 'string' ? value.slice(0, 10) : value.toISOString().slice(0, 10);
+}
+
+function waiverRefusal(block: WaiverBlock, row: Qualification, checkId: CheckId, today: string, waiver?: QualificationWaiver): Error {
+  const check = CHECK_LABELS[checkId];
+  switch (block) {
+    case 'role':
+      return new ForbiddenException('Only engineers prepare and decide waivers');
+    case 'state':
+      return waiver && waiver.state !== 'proposed'
+        ? new ConflictException(`Waiver #${waiver.id} is already ${waiver.state}; only a waiver waiting for approval can be approved or refused`)
+        : new ConflictException(`Case #${row.id} is ${QUALIFICATION_STATE_LABELS[row.state].toLowerCase()}; waivers are prepared and decided while a case is open (draft or in review)`);
+    case 'two-person':
+      return new ForbiddenException(`You prepared waiver #${waiver!.id}; another engineer must approve or refuse it (two-person rule)`);
+    case 'check':
+      return new UnprocessableEntityException({
+        message: `Check "${check}" is not failing or marginal in case #${row.id}'s evaluation: only a failing or marginal check can be waived`,
+        errors: [{ path: 'checkId', message: 'must be a failing or marginal check of the case' }],
+      });
+    case 'limit':
+      return new UnprocessableEntityException({
+        message: `The accepted limit does not cover the part's value for "${check}" (or a limit was given for a check that compares names): state the limit actually accepted, in SI units`,
+        errors: [{ path: 'acceptedLimit', message: 'must cover the part value (SI), or be null for a text check' }],
+      });
+    case 'expiry':
+      return new UnprocessableEntityException({ message: `A waiver must expire after today (${today})`, errors: [{ path: 'expiresOn', message: `must be after ${today}` }] });
+    case 'duplicate':
+      return new ConflictException(`Check "${check}" of case #${row.id} already has a waiver waiting or in force`);
+  }
+}
