@@ -79,7 +79,15 @@ describe('where a pair stands for a designer', () => {
       revision: 2,
       needsRecheck: true,
       recheckOpen: true,
+      waivers: [],
     });
+  });
+
+  it('carries the waivers a clearance with waiver rests on, with their expiry', () => {
+    const brief = { id: 4, checkId: 'zd' as const, quantity: 'resistance' as const, acceptedLimit: 45, expiresOn: '2027-06-30', state: 'approved' as const };
+    const c = toClearance(pair({ caseId: 9, revision: 1, state: 'cleared-with-waiver', decidedAt: new Date('2026-11-02T10:00:00Z') }), new Map([[9, [brief]]]));
+    expect(c).toMatchObject({ standing: 'cleared-with-waiver', waivers: [brief] });
+    expect(toClearance(pair({ caseId: 9, revision: 1, state: 'waiver-lapsed' }), new Map([[9, [brief]]]))).toBeNull();
   });
 
   it('is usable as the approved source only by an approval decision; never without a decision, never once rejected or revoked', () => {

@@ -35,7 +35,7 @@ describe('source standing', () => {
   });
 
   it('writes SQL state lists from the lists, and refuses anything that is not a state', () => {
-    expect(sqlStateList(USABLE_STATES)).toBe("('approved', 'cleared', 'cleared-with-conditions')");
+    expect(sqlStateList(USABLE_STATES)).toBe("('approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver')");
     expect(() => sqlStateList(["cleared') OR ('1" as never])).toThrow(/not a state/);
   });
 
