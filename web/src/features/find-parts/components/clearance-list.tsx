@@ -1,6 +1,7 @@
 import { Anchor, Badge, Group, Stack, Text, Tooltip } from '@mantine/core';
 import { CLEARANCE_STANDING_LABELS, type Clearance, type ClearanceStanding, type SearchItem } from '@shuntwise/contracts';
 import { Link } from 'react-router';
+import { WaiverBadges } from '@/components/waiver-badges';
 import { formatDate } from '../utils/format';
 
 export const STANDING_COLOR: Record<ClearanceStanding, string> = {
@@ -82,6 +83,7 @@ export function ClearanceList({ item, linkHouseParts }: { item: SearchItem; link
               </Badge>
             )}
           </Group>
+          <WaiverBadges waivers={c.waivers} />
           {c.standing === 'cleared-with-conditions' && c.conditions && (
             <Text fz="xs" c="yellow.8" lineClamp={3} title={c.conditions}>
               Conditions: {c.conditions}

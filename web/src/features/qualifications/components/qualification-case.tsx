@@ -13,6 +13,7 @@ import { CommentsPanel } from './comments-panel';
 import { EvaluationPanel } from './evaluation-panel';
 import { RecheckFlag } from './recheck-flag';
 import { SignOffPanel } from './sign-off-panel';
+import { WaiversPanel } from './waivers-panel';
 
 /** One qualification case: what was checked, what it came to, who signed it off, and everything that happened to it. */
 export function QualificationCase({ id }: { id: number }) {
@@ -108,6 +109,7 @@ export function QualificationCase({ id }: { id: number }) {
           <Grid.Col span={{ base: 12, lg: 4 }}>
             <Stack gap="md">
               <SignOffPanel q={q} viewer={viewer} onReload={reload} onDone={(result) => result.id !== q.id && navigate(`/qualifications/${result.id}`)} />
+              <WaiversPanel q={q} viewer={viewer} />
               <CaseNotes key={q.version} q={q} canEdit={viewer.role === 'engineer' && q.state === 'draft'} onReload={reload} />
               <CommentsPanel q={q} canComment={viewer.role === 'engineer'} />
               <AuditTrail entries={q.audit} />

@@ -5,6 +5,7 @@ import { notifications } from '@mantine/notifications';
 import { IconBell, IconBellOff, IconDownload, IconSearch } from '@tabler/icons-react';
 import { Link, useSearchParams } from 'react-router';
 import { stateLabel, QualificationStateBadge } from '@/components/qualification-state-badge';
+import { WaiverBadges } from '@/components/waiver-badges';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
 import { useSession } from '@/lib/session';
@@ -234,6 +235,7 @@ export function SourcesTable() {
                         <Table.Td>
                           <Group gap={4} wrap="nowrap">
                             <QualificationStateBadge state={s.standing} />
+                            <WaiverBadges waivers={s.waivers} />
                             {s.needsRecheck && (
                               <Tooltip label="The catalogue changed after this decision; an engineer will re-check it">
                                 <Badge size="xs" color="orange" variant="outline">
