@@ -29,7 +29,7 @@ describe('demo catalogue seed (real MariaDB, S3 fake)', () => {
     const started = performance.now();
     await t.stack.app.get(DemoSeedService).run('demo');
     seedSeconds = (performance.now() - started) / 1000;
-  });
+  }, 300_000); // the whole demo through the real services: slow on a loaded two-core machine
   afterAll(() => t.close());
 
   it('loads the whole invented catalogue', async () => {
