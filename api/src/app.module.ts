@@ -22,6 +22,7 @@ import { QualificationsModule } from './qualifications/qualifications.module';
 import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
 import { SeedModule } from './seed/seed.module';
+import { TextIndexModule } from './text-index/text-index.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
 
@@ -44,6 +45,7 @@ export class AppModule {
       imports: [
         ConfigModule.forRoot(env),
         DatabaseModule,
+        TextIndexModule,
         StorageModule,
         MailModule,
         ThrottlerModule.forRoot({

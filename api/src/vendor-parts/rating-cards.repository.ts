@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { RatingCardFields, Spec } from '@shuntwise/contracts';
+import { vzTolerance, type RatingCardFields, type Spec } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { User } from '../users/user.model';
@@ -49,8 +49,8 @@ export class RatingCardsRepository {
     const row = { version: values.version, fields: values.fields, note: values.note, updatedById: values.userId };
     if (existing) await existing.update(row, { transaction });
     else await this.cards.create({ vendorPartId: values.vendorPartId, ...row }, { transaction });
-    await this.sequelize.query('UPDATE vendor_parts SET card_version = ?, vz_nom = ?, izt = ?, pd_max = ?, updated_at = NOW() WHERE id = ?', {
-      replacements: [values.version, values.vzNom, values.izt, values.pdMax, values.vendorPartId],
+    await this.sequelize.query('UPDATE vendor_parts SET card_version = ?, vz_nom = ?, izt = ?, pd_max = ?, vz_tolerance = ?, updated_at = NOW() WHERE id = ?', {
+      replacements: [values.version, values.vzNom, values.izt, values.pdMax, vzTolerance(values.fields), values.vendorPartId],
       type: QueryTypes.UPDATE,
       transaction,
     });
