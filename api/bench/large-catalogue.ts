@@ -21,7 +21,10 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
   const rnd = seededRandom(20261207);
   const textIndex = new TextIndexRepository(sequelize as never);
   const insert = (sql: string, replacements: unknown[]) => sequelize.query(sql, { replacements, type: QueryTypes.INSERT });
-  await insert(`INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`, []);
+  // The cases need an engineer: the first user there is (the demo accounts when seeded), else an invented one.
+  const [someone] = await sequelize.query<{ id: number }>('SELECT id FROM users ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
+  if (!someone) await insert(`INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`, []);
+  const userId = someone?.id ?? 1;
   const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
   await insert(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, makers);
   await textIndex.writeNew('manufacturer', makers.map((name, i) => ({ id: i + 1, texts: [name] })));
@@ -103,11 +106,11 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
       const state = pickState();
       const decided = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'].includes(state);
       caseId++;
-      cases.push(caseId, h, vp, 1, state, decided ? (state === 'cleared-with-conditions' ? 'sample five per lot' : null) : null, decided ? 1 : null);
+      cases.push(caseId, h, vp, 1, state, decided ? (state === 'cleared-with-conditions' ? 'sample five per lot' : null) : null, decided ? userId : null, userId);
       // One decided case in twenty has a re-check open above it.
       if (decided && rnd() < 0.05) {
         caseId++;
-        cases.push(caseId, h, vp, 2, 'draft', null, null);
+        cases.push(caseId, h, vp, 2, 'draft', null, null, userId);
       }
     }
   }
@@ -115,11 +118,11 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
     const chunk = sources.slice(i, i + 3000);
     await insert(`INSERT INTO house_part_sources (house_part_id, vendor_part_id, role, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 3 }, () => '(?, ?, ?, NOW(), NOW())').join(', ')}`, chunk);
   }
-  for (let i = 0; i < cases.length; i += 7 * 500) {
-    const chunk = cases.slice(i, i + 7 * 500);
+  for (let i = 0; i < cases.length; i += 8 * 500) {
+    const chunk = cases.slice(i, i + 8 * 500);
     await insert(
       `INSERT INTO qualifications (id, house_part_id, vendor_part_id, revision, state, decision_text, decided_by_id, overall, spec_version, card_version, evaluation, summary, prepared_by_id, recheck_reasons, decided_at, created_at, updated_at)
-       VALUES ${Array.from({ length: chunk.length / 7 }, () => "(?, ?, ?, ?, ?, ?, ?, 'pass', 1, 1, '{}', '', 1, '[]', NOW(), NOW(), NOW())").join(', ')}`,
+       VALUES ${Array.from({ length: chunk.length / 8 }, () => "(?, ?, ?, ?, ?, ?, ?, 'pass', 1, 1, '{}', '', ?, '[]', NOW(), NOW(), NOW())").join(', ')}`,
       chunk,
     );
   }

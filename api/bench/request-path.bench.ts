@@ -94,11 +94,15 @@ async function main(): Promise<void> {
     await waitFor(`${bareBase}/json`, bare, 'the bare server');
 
     const liveUrl = (await fetch(`${base}/api/health/live`).then((r) => r.status)) === 200 ? '/api/health/live' : '/api/health';
-    const bareJson = await load(`${bareBase}/json`);
-    const live = await load(`${base}${liveUrl}`);
-    const bareCard = await load(`${bareBase}/card/${part.id}`);
-    const card = await load(`${base}/api/vendor-parts/${part.id}/rating-card`, auth);
-    const me = await load(`${base}/api/auth/me`, auth);
+    // ONLY=card,me (names below) runs a subset, e.g. to profile one route under CPU_PROF.
+    const only = process.env.ONLY?.split(',');
+    const skipped = { rps: NaN, p50: NaN, p99: NaN, bad: 0 };
+    const run = (name: string, url: string, headers?: Record<string, string>) => (!only || only.includes(name) ? load(url, headers) : Promise.resolve(skipped));
+    const bareJson = await run('json', `${bareBase}/json`);
+    const live = await run('live', `${base}${liveUrl}`);
+    const bareCard = await run('bare-card', `${bareBase}/card/${part.id}`);
+    const card = await run('card', `${base}/api/vendor-parts/${part.id}/rating-card`, auth);
+    const me = await run('me', `${base}/api/auth/me`, auth);
 
     const row = (name: string, r: { rps: number; p50: number; p99: number; bad: number }, ratio?: { of: number; goal: number }) =>
       console.log(

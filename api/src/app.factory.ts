@@ -9,6 +9,7 @@ import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
 import type { Env } from './config/env';
+import { answerLivenessFirst } from './health/liveness';
 
 export interface CreateAppOptions {
   logger?: LoggerService | LogLevel[] | false;
@@ -22,6 +23,7 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
     logger: options.logger ?? ['error', 'warn', 'log'],
     bodyParser: true,
   });
+  answerLivenessFirst(app.getHttpServer());
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
   app.useBodyParser('json', { limit: '2mb' });

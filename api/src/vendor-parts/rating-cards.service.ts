@@ -105,16 +105,19 @@ export class RatingCardsService {
    * without a card gives version 0 and no fields.
    */
   async card(vendorPartId: number, version?: number): Promise<RatingCardDto> {
+    if (version === undefined) {
+      // The common read: part, card and who saved it in one raw primary-key query.
+      const found = await this.cards.currentRow(vendorPartId);
+      if (!found) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
+      const c = found.card;
+      if (!c) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
+      return { vendorPartId, version: c.version, fields: c.fields, note: c.note, updatedAt: new Date(c.updatedAt).toISOString(), updatedBy: c.updatedBy };
+    }
     const part = await this.vendorParts.findById(vendorPartId);
     if (!part) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
-    if (version !== undefined) {
-      const row = await this.cards.findVersion(vendorPartId, version);
-      if (!row) throw new NotFoundException(`Vendor part ${vendorPartId} has no card version ${version}`);
-      return { vendorPartId, version: row.version, fields: row.fields, note: row.note, updatedAt: row.createdAt.toISOString(), updatedBy: actor(row.changedBy) };
-    }
-    const current = await this.cards.findCurrent(vendorPartId);
-    if (!current) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
-    return { vendorPartId, version: current.version, fields: current.fields, note: current.note, updatedAt: current.updatedAt.toISOString(), updatedBy: actor(current.updatedBy) };
+    const row = await this.cards.findVersion(vendorPartId, version);
+    if (!row) throw new NotFoundException(`Vendor part ${vendorPartId} has no card version ${version}`);
+    return { vendorPartId, version: row.version, fields: row.fields, note: row.note, updatedAt: row.createdAt.toISOString(), updatedBy: actor(row.changedBy) };
   }
 
   /** The current card as SPICE `.model` lines: nominal, and the tolerance ends the card gives. */
