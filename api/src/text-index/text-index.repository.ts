@@ -18,6 +18,8 @@ export const COMMON_PIECE = 5000;
 /** How long a piece's (capped) record count is reused: it only decides which pieces narrow, never what matches. */
 const FREQUENCY_TTL_MS = 60_000;
 const FREQUENCY_CACHE_LIMIT = 20_000;
+/** The most records one source of matches (part numbers, house parts) hands on before the filters. */
+const BRANCH_LIMIT = 2000;
 
 /** Escapes LIKE wildcards so a typed "%" or "_" matches itself. */
 function likePrefix(text: string): string {
@@ -124,9 +126,17 @@ export class TextIndexRepository {
       const required = Math.max(1, Math.ceil(usable.length / 3));
       const hits = `SELECT entity_id, COUNT(*) / ? AS score FROM text_grams WHERE kind = ? AND gram IN (${list(usable.length)}) GROUP BY entity_id HAVING COUNT(*) >= ?`;
       params.push(usable.length, TEXT_KINDS[kind], ...usable, required);
-      if (kind === 'vendorPart') branches.push(`SELECT entity_id AS id, score FROM (${hits}) own`);
-      if (kind === 'housePart') branches.push(`SELECT s.vendor_part_id AS id, hp.score FROM (${hits}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`);
-      if (kind === 'manufacturer') branches.push(`SELECT mv.id, mk.score FROM (${hits}) mk JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id`);
+      // Each branch keeps its best records only, so a word many names share (an "invented" in
+      // every description) cannot pull in the whole catalogue: the closest parts of a part
+      // number, the closest house parts, and only the manufacturers that match best.
+      if (kind === 'vendorPart') branches.push(`SELECT entity_id AS id, score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
+      if (kind === 'housePart') branches.push(`SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`);
+      if (kind === 'manufacturer') {
+        branches.push(
+          `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
+           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id`,
+        );
+      }
     }
     if (branches.length === 0) return null;
     return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id`, params };
