@@ -103,14 +103,15 @@ describe('where a pair stands for a designer', () => {
 });
 
 describe('search card and order', () => {
-  it('reads the card fields in SI and the tolerance as the half-width of the window over nominal (common practice, no source)', () => {
+  it('reads the card fields in SI and the tolerance as the half-width of the window over nominal, less the print rounding of its ends (common practice, no source)', () => {
     const v = (value: number) => ({ value, printed: null, provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
     const card = toSearchCard({
       cardVersion: 3,
       fields: JSON.stringify({ vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), izt: v(0.005), tc: { ...v(0.5), unit: 'mV/K', voltsPerKelvin: 0.0005 } }),
     });
     expect(card).toMatchObject({ version: 3, vzNom: 5.1, izt: 0.005, zzt: null, tc: { value: 0.5, unit: 'mV/K' }, tcVoltsPerKelvin: 0.0005 });
-    expect(card!.tolerance).toBeCloseTo(0.26 / 5.1, 6);
+    // 4.85 / 5.36 V are a ±5 % window (4.845…5.355 V) printed to two decimals: 5.355 − 5.1 = 0.255 V = 5 % of 5.1 V.
+    expect(card!.tolerance).toBeCloseTo(0.255 / 5.1, 6);
     expect(toSearchCard({ cardVersion: null, fields: null })).toBeNull();
   });
 
