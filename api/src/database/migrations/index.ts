@@ -7,6 +7,8 @@ import { qualificationRequests } from './2026-12-01-0005-qualification-requests'
 import { rateLimitWindows } from './2026-12-04-0200-rate-limit-windows';
 import { measurementSets } from './2026-12-04-0700-measurement-sets';
 import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-from-decisions';
+import { textGrams } from './2026-12-04-0400-text-grams';
+import { vzToleranceColumn } from './2026-12-04-0401-vz-tolerance';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -21,4 +23,6 @@ export const MIGRATIONS: Migration[] = [
   rateLimitWindows,
   measurementSets,
   sourceStandingFromDecisions,
+  textGrams,
+  vzToleranceColumn,
 ];
