@@ -109,6 +109,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   })();
   const match = fieldFor(label, kind);
   if (!match) return;
+  const method = qualifiers ? 'table' : 'list';
 
   const chosen: Array<[ExtractionField, ValueToken]> = [];
   const byQualifier = (wanted: Qualifier[]) => {
@@ -145,7 +146,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
     if (!k || !FIELD_KINDS[field].includes(k)) continue;
     const si = toSi(v.token.value, unit, k);
     if (si === undefined) continue;
-    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.text, box: cellBox(v.cell), rank: 2 });
+    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.printed, box: cellBox(v.cell), rank: 2, method });
   }
   // Test conditions on the line: "IZ = 5 mA" on a VZ line is IZT, on a ZZK line IZK; "VR = 2 V" on an IR line.
   for (const cell of line.cells) {
@@ -154,7 +155,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
       if (!usable) continue;
       const si = toSi(cond.value, cond.unit, cond.kind);
       if (si === undefined) continue;
-      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.text, box: cellBox(cell), rank: 1 });
+      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(cell), rank: 1, method });
     }
   }
 }

@@ -14,9 +14,14 @@ const UNIT =
 
 /** A number, optionally after ≤/< and followed by a unit; not glued to letters before it. */
 // Not followed by a letter, digit or slash: "12 mW/°C" is a derating slope, not a power.
-const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}\p{N}/])`, 'gu');
+// Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
+const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
-const NUMERIC_CELL = new RegExp(String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*(?:\d\))?\s*$`, 'u');
+const FOOTNOTE = String.raw`(?:\(\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
+const NUMERIC_CELL = new RegExp(
+  String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`,
+  'u',
+);
 
 /**
  * The shared parser knows the ohm as U+03A9 only; datasheets also print the ohm sign
