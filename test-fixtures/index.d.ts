@@ -139,3 +139,52 @@ export declare const badUploads: {
 
 export declare function loadDemoCatalogue(): DemoCatalogue;
 export declare function listDatasheetFixtures(): DatasheetFixture[];
+
+/** A value of a random datasheet's answer key; `derived` when it is not printed as such (min/max from a tolerance letter). */
+export interface RandomAnswerValue extends AnswerValue {
+  derived?: 'tolerance-suffix';
+}
+
+/** The layout choices a random datasheet was drawn with (see README.md, "Random layouts"). */
+export interface LayoutChoices {
+  arrangement: 'rows' | 'transposed' | 'part-per-page' | 'leader-list' | 'param-table' | 'sentences';
+  headerRows: 1 | 2 | 3;
+  footnotes: boolean;
+  units: 'header' | 'units-row' | 'each-value' | 'unit-column';
+  conditions: 'header' | 'column' | 'at-sign' | 'title';
+  decimal: 'point' | 'comma';
+  micro: 'µ' | 'μ' | 'u';
+  ohm: '\u03A9' | '\u2126' | 'ohm';
+  tcUnit: 'mV/K' | 'mV/°C' | '%/K' | '%/°C';
+  rthUnit: 'K/W' | '°C/W';
+  derating: boolean;
+  maxRatings: 'once' | 'per-series' | 'per-package';
+  ratingsForm: 'table' | 'list' | 'sentence';
+  series: 1 | 2;
+  tolerance: 'min-max' | 'suffix-legend';
+  orderingCodes: boolean;
+  orientation: 'portrait' | 'rotated';
+  pageColumns: 1 | 2;
+  ruled: boolean;
+  placement: 'line' | 'word' | 'glyph';
+  pageBreak: 'none' | 'repeat-header' | 'no-repeat';
+  clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
+  vocabulary: Record<'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth', { symbol: string; name: string }>;
+}
+
+export interface RandomAnswerKey {
+  file: string;
+  vendor: string;
+  title: string;
+  layout: string;
+  pages: number;
+  seed: number;
+  variants: Array<{ mpn: string; package: { value: string; page: number }; fields: Partial<Record<RatingField, RandomAnswerValue>> }>;
+  choices: LayoutChoices;
+}
+
+/** One invented datasheet of random layout with its answer key; the same seed gives the same bytes. */
+export declare function generateRandomDatasheet(seed: number): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
+
+/** "name=value" labels of a choice set (one per choice; vocabulary and clutter per item), for scoring per choice. */
+export declare function layoutChoiceLabels(choices: LayoutChoices): string[];

@@ -42,4 +42,25 @@ function listDatasheetFixtures() {
     });
 }
 
-module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures };
+/**
+ * Random-layout datasheets (scripts/lib/random-layout, TypeScript): loaded through tsx's
+ * require hook on first use, so that plain Node, jest and tsx can all call it without a build.
+ */
+let randomLayout;
+function loadRandomLayout() {
+  if (!randomLayout) {
+    const tsx = require('tsx/cjs/api');
+    randomLayout = tsx.require('./scripts/lib/random-layout/index.ts', __filename);
+  }
+  return randomLayout;
+}
+
+function generateRandomDatasheet(seed) {
+  return loadRandomLayout().generateRandomDatasheet(seed);
+}
+
+function layoutChoiceLabels(choices) {
+  return loadRandomLayout().choiceLabels(choices);
+}
+
+module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures, generateRandomDatasheet, layoutChoiceLabels };
