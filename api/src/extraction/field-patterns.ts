@@ -47,7 +47,7 @@ export function fieldFor(text: string, kind: QuantityKind | undefined): FieldMat
       return undefined;
     case 'resistance': {
       const r = q === 'typ' ? 0 : 1;
-      if (/\bZ\s?ZK\b/i.test(text)) return { field: 'zzk', qualifier: q, rank: r };
+      if (/\bZ\s?ZK\b|\br\s?zk\b/i.test(text)) return { field: 'zzk', qualifier: q, rank: r };
       if (/\bZ\s?ZT?\b|\br\s?zj?\b/i.test(text)) return { field: 'zzt', qualifier: q, rank: r };
       if (P.zzk.test(text) || P.izk.test(text)) return { field: 'zzk', qualifier: q, rank: r };
       if (P.zzt.test(text) || /\bimp/i.test(text)) return { field: 'zzt', qualifier: q, rank: r };
@@ -91,7 +91,7 @@ export interface Condition {
 }
 
 /** "@ 0.25 mA", "at 5 mA", "at VR 1 V": a condition after a value, with or without its symbol. */
-const BARE = /(?:@|\bat\b)\s*(?:(I\s?Z\s?T|I\s?Z\s?K|I\s?Z|V\s?R)\s*[=:]?\s*)?(?=[+\-−–]?\.?\d)/giu;
+const BARE = /(?:@|\bat\b)\s*(?:(I\s?Z\s?\(K\)|I\s?Z\s?T|I\s?Z\s?K|I\s?test|I\s?T|I\s?K|I\s?Z|V\s?RM|V\s?R|U\s?R)\s*[=:]?\s*)?(?=[+\-−–]?\.?\d)/giu;
 
 /**
  * Test conditions written as "SYMBOL = value unit" ("IZ = 5 mA", "VR = 2 V", "IZK = 0.25 mA")

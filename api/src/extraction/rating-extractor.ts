@@ -5,6 +5,7 @@ import { covers, DeviceValues, readDeviceValues, specificity } from './device-va
 import { applyDecimalSeparator, DecimalSeparator, detectDecimalSeparator, printedNumber } from './number-style';
 import { PdfText, readPdf } from './pdf-text';
 import { readTables } from './table-reader';
+import { expandToleranceSuffixes, findToleranceLegends } from './tolerance-suffix';
 import { pageLines } from './text-layout';
 import { Candidate, VariantDraft, VariantDrafts } from './variant-drafts';
 
@@ -45,6 +46,8 @@ export function extractRatings(pdf: PdfText): ExtractionResult {
     applyDevice(draft, device, warnings);
     variants.push(toVariant(draft, sep, warnings));
   }
+  const expanded = expandToleranceSuffixes(variants, findToleranceLegends(pages), warnings);
+  variants.splice(0, variants.length, ...expanded);
   if (variants.length === 0) {
     warnings.push('No part numbers with ratings were recognised in this PDF. Enter the ratings by hand.');
   }

@@ -28,28 +28,28 @@ export const FIELD_KINDS: Record<ExtractionField, readonly QuantityKind[]> = {
 
 /** Symbols and words per rating, for headers, row labels and list keys. */
 export const LABELS = {
-  zzk: /\bZ\s?ZK\b|\bknee\s+imp/i,
-  zzt: /\bZ\s?ZT\b|\bZ\s?Z\b|\bdyn(?:amic|\.)?\s*(?:imp|res)|\bdifferential\s+res|\br\s?zj?\b/i,
-  izk: /\bI\s?ZK\b|\bknee\b/i,
-  izm: /\bI\s?ZM\b|\bI\s?Z\s?max\b|\bmax(?:imum|\.)?\s+(?:zener|regulator)\s+current/i,
-  izt: /\bI\s?ZT\b|\btest(?:\s+current)?\b/i,
-  ir: /\bI\s?R\b|\bleakage\b|\breverse\s+(?:leakage\s+)?current/i,
-  vr: /\bV\s?R\b|\breverse\s+voltage/i,
-  vz: /\bV\s?Z(?:min|nom|max|typ)?\b|\bzener\s+voltage|\bbreakdown\s+voltage|\bworking\s+voltage/i,
-  tc: /α|\bTC\b|\bT\s?K\s?VZ\b|\bS\s?Z\b|\btemp(?:erature|\.)?\s*co/i,
-  pd: /\bP\s?(?:tot|D)\b|\bpower\s+(?:dissipation|rating)\b/i,
-  tj: /\bjunction\s+temp|\bT\s?j(?:\s?max)?\b|\bT\s?J\b|\boperating\s+(?:junction\s+)?temp/i,
-  rthJA: /\bR\s?(?:th|θ)\s?\(?j-?a\)?|\bjunction\s+to\s+ambient/i,
-  notRthJA: /\bR\s?(?:th|θ)\s?\(?j-?[lcst]\)?|\bto\s+(?:lead|case|tab|board|solder)/i,
+  zzk: /\bZ\s?ZK\b|\br\s?zk\b|\bknee\s+imp|\b(?:resistance|impedance)\s+at\s+the\s+knee/i,
+  zzt: /\bZ\s?ZT\b|\bZ\s?Z\b|\br\s?zj?\b|\bdyn(?:amic|\.)?\s*(?:imp|res)|\bdifferential\s+res|\bzener\s+imp/i,
+  izk: /\bI\s?ZK\b|\bI\s?Z\s?\(K\)|\bI\s?K\b|\bknee\b/i,
+  izm: /\bI\s?ZM\b|\bI\s?Z\s?\(?max\)?|\bmax(?:imum|\.)?\s+(?:zener|regulator|working)\s+current/i,
+  izt: /\bI\s?ZT\b|\bI\s?T\b|\bI\s?test\b|\btest(?:\s+current)?\b|\bmeasuring\s+current/i,
+  ir: /\bI\s?RM?\b|\bI\s?D\b|\bleakage\b|\breverse\s+(?:leakage\s+)?current/i,
+  vr: /\bV\s?RM?\b|\bU\s?R\b|\breverse\s+(?:test\s+)?voltage|\btest\s+voltage/i,
+  vz: /\b[VU]\s?Z(?:min|nom|max|typ)?\b|\bV\s?\(?BR\)?|\b(?:zener|breakdown|working|regulation)\s+voltage/i,
+  tc: /α|\bθ\s?VZ|\bTC\b|\bT\s?K\s?VZ\b|\bS\s?Z\b|\btemp(?:erature|\.)?\s*co/i,
+  pd: /\bP\s?(?:tot|D|Z)\b|\bpower\s+(?:dissipation|rating)\b/i,
+  tj: /\bjunction\s+temp|\bT\s?(?:v?j)(?:\s?max)?\b|\boperating\s+(?:junction\s+)?temp/i,
+  rthJA: /\bR\s?(?:th|θ)\s?\(?j-?a\)?|\bθ\s?JA\b|\bjunction[\s-]+to[\s-]+ambient/i,
+  notRthJA: /\bR\s?(?:th|θ)\s?\(?j-?[lcst]\)?|\bθ\s?J[LCT]\b|\bto\s+(?:lead|case|tab|board|solder)/i,
   packageHeader: /\bpackage\b|\bcase\b/i,
 };
 
 /** Symbols that name a current column unambiguously, checked before the words. */
 export const CURRENT_SYMBOLS: ReadonlyArray<[RegExp, 'izk' | 'izm' | 'izt' | 'irMax']> = [
-  [/\bI\s?ZK\b/i, 'izk'],
-  [/\bI\s?ZM\b|\bI\s?Z\s?max\b/i, 'izm'],
-  [/\bI\s?ZT\b/i, 'izt'],
-  [/\bI\s?R\b/i, 'irMax'],
+  [/\bI\s?ZK\b|\bI\s?Z\s?\(K\)|\bI\s?K\b/i, 'izk'],
+  [/\bI\s?ZM\b|\bI\s?Z\s?\(?max\b/i, 'izm'],
+  [/\bI\s?ZT\b|\bI\s?T\b|\bI\s?test\b|\bI\s?Z\b(?!\s?\()/i, 'izt'],
+  [/\bI\s?RM?\b|\bI\s?D\b/i, 'irMax'],
 ];
 
 /** A device-wide rating (printed once, or once per series or package) and how to find it. */
@@ -64,21 +64,21 @@ export interface DeviceRule {
 
 export const DEVICE_RULES: Record<'pdMax' | 'tjMax' | 'rthJA', DeviceRule> = {
   pdMax: {
-    symbol: /\bP\s?(?:tot|D)\b/,
-    words: /\b(?:total\s+)?power\s+(?:dissipation|rating)\b/i,
+    symbol: /\bP\s?(?:tot|[DdZ])\b/,
+    words: /\b(?:total\s+|continuous\s+)?power\s+(?:dissipation|rating)\b/i,
     exclude: /surge|peak|pulse|non-repetitive|derat|\bP\s?[ZR]SM\b|above|per\s+(?:K|°C)/i,
     kind: 'power',
   },
   tjMax: {
-    symbol: /\bT\s?[jJ](?:\s?max)?\b/,
+    symbol: /\bT\s?v?[jJ](?:\s?max)?\b/,
     words: /\bjunction\s+temp|\boperating\s+(?:junction\s+)?temp/i,
     exclude: /^(?!.*junction).*(?:storage|solder|reflow|lead\s+temp|wave)|solder|reflow|\bT\s?stg\b/i,
     kind: 'temperature',
     upperOfRange: true,
   },
   rthJA: {
-    symbol: /\bR\s?(?:th|θ)\s?\(?j-?a\)?/i,
-    words: /\bjunction\s+to\s+ambient|\bthermal\s+resistance\b(?!.*\b(?:lead|case|tab|solder))/i,
+    symbol: /\bR\s?(?:th|θ)\s?\(?j-?a\)?|\bθ\s?JA\b/i,
+    words: /\bjunction[\s-]+to[\s-]+ambient|\bthermal\s+resistance\b(?!.*\b(?:lead|case|tab|solder))/i,
     exclude: LABELS.notRthJA,
     kind: 'thermalResistance',
   },
@@ -91,7 +91,7 @@ export const DEVICE_RULES: Record<'pdMax' | 'tjMax' | 'rthJA', DeviceRule> = {
  * a power, and its 25 °C is no junction temperature.
  */
 export const CONDITION_SYMBOL =
-  /(?<![\p{L}\p{N}])(I\s?Z\s?T|I\s?Z\s?K|I\s?Z|V\s?R|I\s?F|I\s?R|T\s?(?:amb|case|stg|sp|[ajcl]|A|J|C|L)?|f|t\s?p)\s*[=≈≤<]\s*/giu;
+  /(?<![\p{L}\p{N}])(I\s?Z\s?\(K\)|I\s?Z\s?T|I\s?Z\s?K|I\s?test|I\s?T|I\s?K|I\s?Z|V\s?RM|V\s?R|U\s?R|I\s?F|I\s?RM?|T\s?(?:amb|case|stg|sp|[ajcl]|A|J|C|L)?|f|t\s?p)\s*[=≈≤<]\s*/giu;
 
 /** "at 25 °C", "@ TA 25 °C", "(25 °C)": a temperature that qualifies, never a rating of its own. */
 export const TEMPERATURE_QUALIFIER = /(?:\b(?:at|up\s+to|below|above)\b|@|\()\s*(?:T\s?(?:amb|[ajcAJC])?\s*)?[+]?\d+(?:\.\d+)?\s?(?:°C|℃|K\b)\)?/giu;
@@ -99,10 +99,10 @@ export const TEMPERATURE_QUALIFIER = /(?:\b(?:at|up\s+to|below|above)\b|@|\()\s*
 /** Which card field a condition symbol names, by the dimension of its value. */
 export function conditionField(symbol: string, kind: QuantityKind | undefined, context?: ExtractionField): 'izt' | 'izk' | 'vr' | undefined {
   const s = symbol.replace(/\s/g, '').toUpperCase();
-  if (s === 'IZT' && kind === 'current') return 'izt';
-  if (s === 'IZK' && kind === 'current') return 'izk';
+  if ((s === 'IZT' || s === 'IT' || s === 'ITEST') && kind === 'current') return 'izt';
+  if ((s === 'IZK' || s === 'IK' || s === 'IZ(K)') && kind === 'current') return 'izk';
   if (s === 'IZ' && kind === 'current') return context === 'zzk' ? 'izk' : 'izt';
-  if (s === 'VR' && kind === 'voltage') return 'vr';
+  if ((s === 'VR' || s === 'VRM' || s === 'UR') && kind === 'voltage') return 'vr';
   return undefined;
 }
 
@@ -122,4 +122,6 @@ export function bareConditionField(kind: QuantityKind | undefined, context?: Ext
 export const NOT_RATINGS_TABLE = /\b(?:order(?:ing)?|packing|packaging|reel|tape|marking|quantity|MOQ|weight)\b/i;
 
 /** A tolerance legend: "B ±2 %", "suffix C: ±5 %", "A = ±1%". */
-export const TOLERANCE_LEGEND = /(?:^|[\s,;(])(?:suffix\s+)?["“]?([A-Z])["”]?\s*(?:[:=]|\s)\s*±\s?(\d+(?:\.\d+)?)\s?%/g;
+export const TOLERANCE_LEGEND = /(?:^|[\s,;(])(?:suffix\s+)?["“]?([A-Z])["”]?\s*(?:[:=]\s*|\s)±\s?(\d+(?:\.\d+)?)\s?%/g;
+/** What makes such letters a tolerance legend rather than anything else with ± in it. */
+export const TOLERANCE_LEGEND_CONTEXT = /\btolerance\b[^.]*\b(?:letter|suffix)\b|\b(?:letter|suffix)\b[^.]*\btolerance\b/i;
