@@ -52,7 +52,8 @@ export function seriesIn(text: string, mpns: readonly string[]): string | undefi
   const keys = mpns.map(flat);
   for (const word of text.split(/[\s,;:()[\]]+/)) {
     const w = flat(word.replace(/(?:x+|\*+|…|\.\.\.)$/i, ''));
-    if (w.length < 3 || !/[A-Z]/.test(w)) continue;
+    // Two capitals ("WE series") name a series only when printed in capitals.
+    if (w.length < 2 || (w.length === 2 && !/^[A-Z]{2}$/.test(word)) || !/[A-Z]/.test(w)) continue;
     const n = keys.filter((k) => k.startsWith(w)).length;
     if (n > 0 && n < keys.length) return w;
   }
@@ -233,7 +234,9 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
       if (used.has(line)) continue;
       for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, line, field, rule));
       const p = findPackage(line.text);
-      if (p) {
+      // "Packages: SOT-23 / SMA" names no package for any one part.
+      const second = p ? findPackage(line.text.slice(p.index + p.value.length)) : undefined;
+      if (p && (!second || second.value === p.value)) {
         const score = /^(?:case|package)\b/i.test(line.text) ? 2 : /\b(?:package|case|outline)\b/i.test(line.text) ? 1 : 0;
         const series = seriesIn(line.text, mpns);
         const scope = series ? { series } : headingScope(ctx, line);

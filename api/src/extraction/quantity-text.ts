@@ -17,7 +17,7 @@ const UNIT =
 // Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
 const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
-const FOOTNOTE = String.raw`(?:\(\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
+const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\(note\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
 const NUMERIC_CELL = new RegExp(
   String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`,
   'u',

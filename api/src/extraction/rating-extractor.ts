@@ -5,6 +5,7 @@ import { covers, DeviceValues, readDeviceValues, specificity } from './device-va
 import { applyDecimalSeparator, DecimalSeparator, detectDecimalSeparator, printedNumber } from './number-style';
 import { PdfText, readPdf } from './pdf-text';
 import { readTables } from './table-reader';
+import { readTransposedTables } from './transposed-reader';
 import { expandToleranceSuffixes, findToleranceLegends } from './tolerance-suffix';
 import { pageLines } from './text-layout';
 import { Candidate, VariantDraft, VariantDrafts } from './variant-drafts';
@@ -33,6 +34,7 @@ export function extractRatings(pdf: PdfText): ExtractionResult {
   applyDecimalSeparator(pages, sep);
   const drafts = new VariantDrafts();
   const used = readTables(pages, drafts, warnings);
+  readTransposedTables(pages, drafts, used, warnings);
   readBlocks(pages, used, drafts);
   const withRatings = drafts.all().filter((d) => d.fields.size > 0);
   const device = readDeviceValues(
@@ -58,11 +60,17 @@ export function extractRatings(pdf: PdfText): ExtractionResult {
 function applyDevice(draft: VariantDraft, device: DeviceValues, warnings: string[]): void {
   if (!draft.package) {
     let best: DeviceValues['packages'][number] | undefined;
+    let tie = false;
     for (const p of device.packages) {
       if (!covers(p.scope, draft.mpn, undefined)) continue;
-      if (!best || specificity(p.scope) > specificity(best.scope) || (specificity(p.scope) === specificity(best.scope) && p.score > best.score)) best = p;
+      const better = !best || specificity(p.scope) > specificity(best.scope) || (specificity(p.scope) === specificity(best.scope) && p.score > best.score);
+      if (better) {
+        best = p;
+        tie = false;
+      } else if (best && specificity(p.scope) === specificity(best.scope) && p.score === best.score && p.candidate.value !== best.candidate.value) tie = true;
     }
-    if (best) draft.offerPackage(best.candidate);
+    // Two packages named alike for this part: which one it comes in is not known.
+    if (best && !tie) draft.offerPackage(best.candidate);
   }
   for (const f of DEVICE_FIELDS) {
     if (draft.fields.has(f)) continue;
