@@ -235,7 +235,8 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
       for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, line, field, rule));
       const p = findPackage(line.text);
       // "Packages: SOT-23 / SMA" names no package for any one part.
-      const second = p ? findPackage(line.text.slice(p.index + p.value.length)) : undefined;
+      const after = p ? line.text.slice(p.index + p.value.length) : '';
+      const second = /^\s*(?:\/|,|\band\b|\bor\b)\s*/.test(after) ? findPackage(after) : undefined;
       if (p && (!second || second.value === p.value)) {
         const score = /^(?:case|package)\b/i.test(line.text) ? 2 : /\b(?:package|case|outline)\b/i.test(line.text) ? 1 : 0;
         const series = seriesIn(line.text, mpns);
