@@ -12,6 +12,8 @@ import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-dra
  * heading or the end of the page.
  */
 
+const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^(?:electrical|thermal)\s+characteristics|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
+
 interface QualifierColumn {
   qualifier: Qualifier;
   x0: number;
@@ -67,6 +69,11 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         mpn = heading;
         order = orderOf(line.page, line.index);
         qualifiers = undefined;
+        continue;
+      }
+      // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.
+      if (SECTION_TITLE.test(line.text) && line.cells.length <= 2 && !findQuantities(line.text).some((t) => t.unit)) {
+        mpn = undefined;
         continue;
       }
       if (!mpn) continue;

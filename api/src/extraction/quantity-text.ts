@@ -17,7 +17,7 @@ const UNIT =
 // Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
 const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
-const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\(note\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
+const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\([Nn]ote\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
 const NUMERIC_CELL = new RegExp(
   String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`,
   'u',
@@ -42,9 +42,16 @@ export interface QuantityToken {
   end: number;
 }
 
+/** Footnote markers: "(Note 2)", "[2]", "(2)", "²", "⁽²⁾", "¹)", and "1)" after a word. Blanked before reading numbers. */
+const FOOTNOTE_MARK = /\((?:note\s*)?\d{1,2}\)|\[\d{1,2}\]|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?\)?|(?<=[\p{L}\s])\d\)(?=\s|$)/giu;
+
+export function blankFootnotes(text: string): string {
+  return text.replace(FOOTNOTE_MARK, (m) => ' '.repeat(m.length));
+}
+
 export function findQuantities(text: string): QuantityToken[] {
   const out: QuantityToken[] = [];
-  for (const m of text.matchAll(TOKEN)) {
+  for (const m of blankFootnotes(text).matchAll(TOKEN)) {
     const unit = m[3] ?? '';
     const start = m.index + (m[1]?.length ?? 0);
     out.push({ value: m[2], unit, kind: unit ? unitKind(unit) : undefined, index: start, end: m.index + m[0].length });

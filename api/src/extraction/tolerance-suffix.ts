@@ -43,7 +43,7 @@ export function expandToleranceSuffixes(variants: ExtractedVariant[], legends: T
   const out: ExtractedVariant[] = [];
   for (const v of variants) {
     const nom = v.fields.vzNom;
-    if (!nom || v.fields.vzMin || v.fields.vzMax) {
+    if (v.fields.vzMin || v.fields.vzMax) {
       out.push(v);
       continue;
     }
@@ -62,6 +62,11 @@ export function expandToleranceSuffixes(variants: ExtractedVariant[], legends: T
     }
     const legend = candidates[0];
     for (const { letter, pct } of legend.letters) {
+      // Without VZnom the letters still name the parts; only their limits stay empty.
+      if (!nom) {
+        out.push({ ...v, mpn: `${v.mpn}${letter}` });
+        continue;
+      }
       const limit = (sign: number): ExtractedValue => {
         const si = Number((nom.si * (1 + (sign * pct) / 100)).toPrecision(12));
         return {
