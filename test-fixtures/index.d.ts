@@ -170,6 +170,8 @@ export interface LayoutChoices {
   pageBreak: 'none' | 'repeat-header' | 'no-repeat';
   clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
   vocabulary: Record<'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth', { symbol: string; name: string }>;
+  /** Image-only pages made by a rasteriser (only when one is passed; never drawn at random). */
+  imageOnly?: boolean;
 }
 
 export interface RandomAnswerKey {
@@ -184,7 +186,16 @@ export interface RandomAnswerKey {
 }
 
 /** One invented datasheet of random layout with its answer key; the same seed gives the same bytes. */
-export declare function generateRandomDatasheet(seed: number): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
+/**
+ * `overrides` pins some choices; the rest and all values still come from the seed.
+ * `rasterise` turns the PDF into an image-only one page for page (e.g. the OCR work's
+ * scripts/lib/raster.ts); the answer key stays valid.
+ */
+export declare function generateRandomDatasheet(
+  seed: number,
+  overrides?: Partial<LayoutChoices>,
+  options?: { rasterise?: (pdf: Buffer, seed: number) => Promise<Buffer> },
+): Promise<{ pdf: Buffer; answers: RandomAnswerKey; choices: LayoutChoices }>;
 
 /** "name=value" labels of a choice set (one per choice; vocabulary and clutter per item), for scoring per choice. */
 export declare function layoutChoiceLabels(choices: LayoutChoices): string[];

@@ -49,14 +49,17 @@ function listDatasheetFixtures() {
 let randomLayout;
 function loadRandomLayout() {
   if (!randomLayout) {
-    const tsx = require('tsx/cjs/api');
-    randomLayout = tsx.require('./scripts/lib/random-layout/index.ts', __filename);
+    // Under jest the test runner's own TypeScript transform loads it; elsewhere tsx does.
+    randomLayout =
+      process.env.JEST_WORKER_ID !== undefined
+        ? require('./scripts/lib/random-layout/index.ts')
+        : require('tsx/cjs/api').require('./scripts/lib/random-layout/index.ts', __filename);
   }
   return randomLayout;
 }
 
-function generateRandomDatasheet(seed) {
-  return loadRandomLayout().generateRandomDatasheet(seed);
+function generateRandomDatasheet(seed, overrides, options) {
+  return loadRandomLayout().generateRandomDatasheet(seed, overrides, options);
 }
 
 function layoutChoiceLabels(choices) {

@@ -50,18 +50,18 @@ function atSign(ctx: Ctx, s: SeriesModel, spec: ParamSpec): boolean {
   return !(spec.cond.key === 'izt' && ownIzt(ctx, s));
 }
 
-/** The printed cell of a quantity for a part; records what it prints. */
+/** The printed cell of a quantity for a part; records what it prints unless page is 0. */
 export function cell(ctx: Ctx, s: SeriesModel, spec: ParamSpec, row: PartModel[], first: boolean, unitInCell: boolean, page: number): string {
   const { pen } = ctx;
   const p = row[0];
   const v = p.values[spec.field];
   if (!v) return '–';
-  pen.record(row, spec.field, page);
+  if (page) pen.record(row, spec.field, page);
   let text = marked(ctx, pen.num(v.value), 2, first && (spec.field === 'vzNom' || spec.field === 'tc'));
   if (unitInCell) text += ` ${v.unit}`;
   if (atSign(ctx, s, spec)) {
     const cv = p.values[spec.cond!.field]!;
-    pen.record(row, spec.cond!.field, page);
+    if (page) pen.record(row, spec.cond!.field, page);
     text += ` @ ${pen.vu(cv)}`;
   }
   return text;
@@ -97,7 +97,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const rotated = c.orientation === 'rotated';
   flow.newPage(rotated);
   const title = tableTitle(ctx, s);
-  let y = pen.sheet.heading(title, flow.y, 9.5);
+  let y = pen.heading(title, pen.frame.left, flow.y, 9.5);
   const titlePage = pen.page;
   if (c.conditions === 'title' || c.conditions === 'header') recordSeriesConditions(ctx, s, titlePage);
   const unitInCell = c.units === 'each-value';
@@ -109,13 +109,26 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   if (withPkg) lead.push({ text: 'Package', width: 46 });
   lead.push({ text: 'Marking', width: 34 });
   const n0 = lead.length;
-  const width = () => (unitInCell || c.conditions === 'at-sign' ? 48 : 34);
-  const columns: GridColumn[] = [...lead.map((l) => ({ width: l.width, align: 'left' as const })), ...specs.map(() => ({ width: width(), align: 'center' as const }))];
-  const total = columns.reduce((a, b) => a + b.width, 0);
-  const avail = pen.frame.right - pen.frame.left;
-  const scale = Math.min(1, avail / total);
-  for (const col of columns) col.width *= scale;
-  const size = Math.max(5.5, 7.5 * Math.min(1, scale * 1.05));
+  const size0 = 7.5;
+  const fit = (texts: string[], bold = false) => Math.max(...texts.map((t) => pen.width(t, { size: size0, condensed: true, bold }))) + 8;
+  const columns: GridColumn[] = [
+    ...lead.map((l, i) => ({
+      width: Math.max(l.width * 0.8, fit([l.text, ...s.rows.map((r) => (i === 0 ? r[0].printedMpn : withPkg && i === 1 ? r[0].pkg.name : r[0].marking))], true)),
+      align: 'left' as const,
+    })),
+    ...specs.map(() => ({ width: 0, align: 'center' as const })),
+  ];
+  const sizeColumns = (header: HeaderSpan[][]) => {
+    specs.forEach((sp, i) => {
+      const own = header.flatMap((line) => line.filter((h) => h.from === n0 + i && h.to === n0 + i).map((h) => h.text));
+      columns[n0 + i].width = Math.max(fit(own, true), fit(s.rows.map((r, k) => cell(ctx, s, sp, r, k === 0, unitInCell, 0))), 26);
+    });
+    const total = columns.reduce((a, b) => a + b.width, 0);
+    const avail = pen.frame.right - pen.frame.left;
+    const scale = Math.min(1, avail / total);
+    for (const col of columns) col.width *= scale;
+    return size0 * scale;
+  };
   const header: HeaderSpan[][] = [];
   const fnote = (text: string, spec: ParamSpec) => (spec.field === 'izt' || spec.field === 'vzNom' ? marked(ctx, text, 3, true) : text);
   if (c.headerRows === 1) {
@@ -150,6 +163,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     );
   }
   if (c.units === 'units-row') header.push(specs.map((sp, i) => ({ text: unitOfSpec(s, sp), from: n0 + i, to: n0 + i })));
+  const size = sizeColumns(header);
   const rowsPerChunk = c.pageBreak === 'none' ? 999 : Math.ceil(s.rows.length / 2);
   const chunks: PartModel[][][] = [];
   for (let i = 0; i < s.rows.length; i += rowsPerChunk) chunks.push(s.rows.slice(i, i + rowsPerChunk));
@@ -158,7 +172,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       pen.sheet.text('continued on next page', pen.frame.left, y, { size: 7 });
       pen.newPage(rotated);
       y = pen.frame.top;
-      if (c.pageBreak === 'repeat-header') y = pen.sheet.heading(`${title} (continued)`, y, 9.5);
+      if (c.pageBreak === 'repeat-header') y = pen.heading(`${title} (continued)`, pen.frame.left, y, 9.5);
     }
     const page = pen.page;
     const rows = chunk.map((row, r) => {
@@ -184,7 +198,7 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const rotated = c.orientation === 'rotated';
   flow.newPage(rotated);
   const title = tableTitle(ctx, s);
-  let y = pen.sheet.heading(title, flow.y, 9.5);
+  let y = pen.heading(title, pen.frame.left, flow.y, 9.5);
   if (c.conditions === 'title' || c.conditions === 'header') recordSeriesConditions(ctx, s, pen.page);
   const unitInCell = c.units === 'each-value';
   const unitCol = c.units === 'unit-column';
@@ -276,7 +290,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     if (s.iztConst) pen.record(row, 'izt', page);
     if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
   }
-  y = pen.sheet.heading(title, y, 9.5);
+  y = pen.heading(title, x, y, 9.5);
   pen.sheet.text(`Package: ${p.pkg.name}`, x, y - 4, { size: 7.5 });
   pen.recordPackage(row, page);
   y += 8;
@@ -370,7 +384,7 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       if (s.iztConst) pen.record(row, 'izt', page);
       if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
     }
-    let y = pen.sheet.heading(title, flow.y, 9.5);
+    let y = pen.heading(title, flow.x, flow.y, 9.5);
     const w = flow.width;
     leader(ctx, flow.x, y, w, 'Package', p.pkg.name);
     pen.recordPackage(row, page);
@@ -391,8 +405,10 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
         if (sp.cond?.key === 'vr' && ownVr(ctx)) label += ` at ${sym(ctx, 'vr')}`;
       }
       if (c.units === 'header') label += ` (${unit})`;
-      const text = cell(ctx, s, sp, row, r === 0, c.units === 'each-value', page);
-      leader(ctx, flow.x, y, w, label, text, c.units === 'unit-column' ? unit : '');
+      // A value with "@ condition" carries its own unit (a unit after the condition would be ambiguous).
+      const own = c.units === 'each-value' || (c.units === 'unit-column' && atSign(ctx, s, sp));
+      const text = cell(ctx, s, sp, row, r === 0, own, page);
+      leader(ctx, flow.x, y, w, label, text, c.units === 'unit-column' && !own ? unit : '');
       y += 11;
     }
     flow.y = y + 6;

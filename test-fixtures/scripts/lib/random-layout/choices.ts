@@ -51,6 +51,8 @@ export interface LayoutChoices {
   clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
   /** The vendor's words and symbols. */
   vocabulary: Vocabulary;
+  /** Image-only pages (a scan made by a rasteriser); never drawn at random, OCR is slow. */
+  imageOnly?: boolean;
 }
 
 export type VocabKey = 'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth';
@@ -150,7 +152,7 @@ export function choiceLabels(c: LayoutChoices): string[] {
 const ONSETS = ['b', 'br', 'd', 'dr', 'f', 'g', 'gl', 'h', 'k', 'kl', 'l', 'm', 'n', 'p', 'pl', 'r', 's', 'st', 't', 'tr', 'v', 'w', 'z'];
 const VOWELS = ['a', 'e', 'i', 'o', 'u', 'ai', 'ou', 'ea'];
 const CODAS = ['', '', 'n', 'r', 'l', 'm', 'sk', 'nd', 'rt', 'th', 'x'];
-const SUFFIXES = ['Semiconductor', 'Devices', 'Microsystems', 'Components', 'Silicon Works', 'Electronics', 'Diode Co.'];
+const SUFFIXES = ['Semiconductor', 'Devices', 'Microsystems', 'Components', 'Silicon Works', 'Electronics', 'Diode Company'];
 
 function syllable(prng: Prng): string {
   return prng.pick(ONSETS) + prng.pick(VOWELS) + prng.pick(CODAS);

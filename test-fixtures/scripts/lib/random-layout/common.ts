@@ -83,6 +83,8 @@ export function cover(ctx: Ctx, flow: Flow): void {
   pen.sheet.text(model.title, pen.frame.left, 58, { size: 17, bold: true });
   const kind = model.packages.map((p) => p.name).join(' / ');
   pen.sheet.text(`Voltage regulator diodes, ${lo} V to ${hi} V, ${kind}`, pen.frame.left, 82, { size: 10.5 });
+  // A single package is named here for every part (its page in the answer key).
+  if (model.packages.length === 1) pen.recordPackage(model.parts, pen.page);
   flow.y = 104;
   flow.startColumns();
   const w = flow.width;
@@ -95,7 +97,7 @@ export function cover(ctx: Ctx, flow: Flow): void {
     flow.y,
     w,
   );
-  y = pen.sheet.heading('Features', y + 4, 10);
+  y = pen.heading('Features', flow.x, y + 4, 10);
   for (const f of [
     `Nominal voltages ${lo} V to ${hi} V`,
     `Packages: ${kind}`,
@@ -165,7 +167,7 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
   const w = flow.width;
   if (c.ratingsForm === 'sentence') {
     flow.need(80);
-    const y = pen.sheet.heading(heading, flow.y, 10);
+    const y = pen.heading(heading, flow.x, flow.y, 10);
     const pd = lines[0];
     const tj = lines.find((l) => l.field === 'tjMax')!;
     const rth = lines.find((l) => l.field === 'rthJA')!;
@@ -181,7 +183,7 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
   }
   if (c.ratingsForm === 'list') {
     flow.need(lines.length * 12 + 30);
-    let y = pen.sheet.heading(heading, flow.y, 10);
+    let y = pen.heading(heading, flow.x, flow.y, 10);
     for (const l of lines) {
       const label = `${l.label}${l.symbol ? `, ${l.symbol}` : ''}${l.cond ? ` (${l.cond})` : ''}`;
       leader(ctx, flow.x, y, w, label, `${l.value} ${l.unit}`);
@@ -192,9 +194,10 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
     return;
   }
   flow.need(lines.length * 12 + 40);
-  const y = pen.sheet.heading(heading, flow.y, 10);
+  const y = pen.heading(heading, flow.x, flow.y, 10);
   const eachValue = c.units === 'each-value';
-  const cols = eachValue ? [0.4, 0.14, 0.28, 0.18] : [0.36, 0.12, 0.26, 0.14, 0.12];
+  const narrow = w < 300;
+  const cols = eachValue ? (narrow ? [0.36, 0.12, 0.26, 0.26] : [0.4, 0.14, 0.28, 0.18]) : narrow ? [0.33, 0.1, 0.23, 0.23, 0.11] : [0.36, 0.12, 0.26, 0.14, 0.12];
   const head = eachValue ? ['Parameter', 'Symbol', 'Conditions', 'Value'] : ['Parameter', 'Symbol', 'Conditions', 'Value', 'Unit'];
   const rows = lines.map((l) => (eachValue ? [l.label, l.symbol, l.cond, `${l.value} ${l.unit}`] : [l.label, l.symbol, l.cond, l.value, l.unit]));
   flow.y = grid(
@@ -204,7 +207,7 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
     cols.map((f, i) => ({ width: f * w, align: i === 0 || i === 2 ? 'left' : 'center' })),
     [head.map((text, i) => ({ text, from: i, to: i }))],
     rows,
-    { size: w < 300 ? 6.5 : 7.5 },
+    { size: narrow ? 5.5 : 7.5 },
   );
   record(pen.page);
   if (c.footnotes) flow.y = pen.prose(`${ctx.marker(1).trim()} Device on an FR4 board of 40 mm × 40 mm × 1.6 mm.`, flow.x, flow.y, w, 7);
@@ -251,7 +254,7 @@ export function orderingBlock(ctx: Ctx, flow: Flow): void {
   const { pen, model, prng } = ctx;
   const parts = model.parts.slice(0, 6);
   flow.need(parts.length * 12 + 50);
-  const y = pen.sheet.heading('Ordering information', flow.y, 10);
+  const y = pen.heading('Ordering information', flow.x, flow.y, 10);
   const packing = prng.pick([
     ['-T7', '3000', '7 in reel'],
     ['-TR', '10000', '13 in reel'],
@@ -284,7 +287,7 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
   const w = flow.width;
   if (c.clutter.includes('prose')) {
     flow.need(70);
-    flow.y = pen.sheet.heading('Application notes', flow.y, 10);
+    flow.y = pen.heading('Application notes', flow.x, flow.y, 10);
     flow.y =
       pen.prose(
         `A regulator diode holds its voltage within a few percent from about ${pen.num('0.5')} mA to the limit set by power. ` +
@@ -297,7 +300,7 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
   }
   if (c.clutter.includes('example')) {
     flow.need(80);
-    flow.y = pen.sheet.heading('Design example', flow.y, 10);
+    flow.y = pen.heading('Design example', flow.x, flow.y, 10);
     const vz = p.values.vzNom!;
     const vin = Math.ceil(vz.si * 1.6 + 2);
     const iz = 10;
@@ -315,7 +318,7 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
   }
   if (c.clutter.includes('curves')) {
     flow.need(150);
-    const y = pen.sheet.heading('Typical characteristics', flow.y, 10);
+    const y = pen.heading('Typical characteristics', flow.x, flow.y, 10);
     const x0 = flow.x + 30;
     const gw = Math.min(200, w - 40);
     pen.doc.rect(x0, y + 4, gw, 100).lineWidth(0.5).strokeColor('#555555').stroke();
@@ -329,7 +332,7 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
   }
   if (c.clutter.includes('outline')) {
     flow.need(110);
-    const y = pen.sheet.heading(`Package outline ${p.pkg.name} (mm)`, flow.y, 10);
+    const y = pen.heading(`Package outline ${p.pkg.name} (mm)`, flow.x, flow.y, 10);
     flow.y = grid(
       pen,
       flow.x,

@@ -43,6 +43,7 @@ export interface RandomAnswerKey {
 }
 
 export interface RandomDatasheet {
+  /** The PDF (image-only when a rasteriser was given). */
   pdf: Buffer;
   answers: RandomAnswerKey;
   choices: LayoutChoices;
@@ -58,9 +59,21 @@ const ARRANGE: Record<(typeof ARRANGEMENTS)[number], Arranger> = {
   sentences,
 };
 
-export async function generateRandomDatasheet(seed: number): Promise<RandomDatasheet> {
+/** Turns a text PDF into an image-only one, page for page (the OCR work's rasteriser, scripts/lib/raster.ts). */
+export type Rasteriser = (pdf: Buffer, seed: number) => Promise<Buffer>;
+
+/**
+ * One random datasheet. `overrides` pins some choices (to look at one layout family); the
+ * other choices and all values are still drawn from the seed. With `rasterise` the document
+ * becomes image-only (a scan); the answer key stays valid page for page.
+ */
+export async function generateRandomDatasheet(
+  seed: number,
+  overrides: Partial<LayoutChoices> = {},
+  options: { rasterise?: Rasteriser } = {},
+): Promise<RandomDatasheet> {
   const prng = new Prng(seed);
-  const drawn = drawChoices(prng);
+  const drawn = { ...drawChoices(prng), ...overrides };
   const vendor = vendorName(prng);
   const model = buildModel(prng, drawn, vendor);
   const c = normaliseChoices(drawn);
@@ -91,7 +104,8 @@ export async function generateRandomDatasheet(seed: number): Promise<RandomDatas
   if (c.orderingCodes) orderingBlock(ctx, flow);
   clutterBlocks(ctx, flow, ['example', 'curves', 'outline']);
   pen.close();
-  const pdf = await pen.sheet.finish();
+  const text = await pen.sheet.finish();
+  const pdf = options.rasterise ? await options.rasterise(text, seed) : text;
   const pages = pen.page;
 
   const variants: RandomAnswerVariant[] = model.parts.map((p) => {
@@ -105,7 +119,8 @@ export async function generateRandomDatasheet(seed: number): Promise<RandomDatas
   for (const p of model.parts) {
     for (const f of ['pdMax', 'tjMax', 'rthJA'] as const) if (!pen.answers.get(p.mpn)!.fields[f]) throw new Error(`seed ${seed}: ${p.mpn} ${f} missing`);
   }
-  const layout = `${c.arrangement}; units ${c.units}; conditions ${c.conditions}; decimal ${c.decimal}; ratings ${c.maxRatings} as ${c.ratingsForm}`;
+  const layout = `${options.rasterise ? 'image-only; ' : ''}${c.arrangement}; units ${c.units}; conditions ${c.conditions}; decimal ${c.decimal}; ratings ${c.maxRatings} as ${c.ratingsForm}`;
   const file = `random-${seed}.pdf`;
-  return { pdf, answers: { file, vendor, title: model.title, layout, pages, seed, variants, choices: c }, choices: c };
+  const choices: LayoutChoices = { ...c, imageOnly: Boolean(options.rasterise) };
+  return { pdf, answers: { file, vendor, title: model.title, layout, pages, seed, variants, choices }, choices };
 }

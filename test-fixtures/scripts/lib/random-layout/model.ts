@@ -80,7 +80,7 @@ function packageModel(name: string, pdW: number, tj: number, rthUnit: string): P
 }
 
 const SMALL_PACKAGES = ['SOD-123', 'SOD-323', 'SOT-23', 'DO-35', 'SOD-523', 'MiniMELF'];
-const POWER_PACKAGES = ['SMA', 'SMB', 'DO-41', 'SOD-123F', 'PowerDI-123'];
+const POWER_PACKAGES = ['SMA', 'SMB', 'DO-41', 'SOD-123F', 'SOD-323F'];
 
 function run(prng: Prng, count: number, from: number, to: number): number[] {
   const pool = E24_VZ.filter((v) => v >= from && v <= to);

@@ -113,6 +113,12 @@ export class Pen {
     this.rotated = false;
   }
 
+  /** A bold heading at x (the current column); returns the y below it. */
+  heading(str: string, x: number, y: number, size = 10): number {
+    this.sheet.text(str, x, y, { size, bold: true });
+    return y + size + 8;
+  }
+
   width(str: string, o: TextOptions = {}): number {
     return this.sheet.widthOf(str, o);
   }
