@@ -1,5 +1,5 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { findQuantities } from './quantity-text';
+import { closeGaps, findQuantities } from './quantity-text';
 import { bareConditionField, conditionField, CONDITION_SYMBOL, CURRENT_SYMBOLS, LABELS, TEMPERATURE_QUALIFIER } from './vocabulary';
 
 /**
@@ -129,5 +129,5 @@ export function findConditions(text: string, context?: ExtractionField): { condi
   }
   let rest = text;
   for (const [a, b] of cuts.sort((x, y) => y[0] - x[0])) rest = rest.slice(0, a) + ' '.repeat(b - a) + rest.slice(b);
-  return { conditions, rest };
+  return { conditions, rest: closeGaps(rest) };
 }

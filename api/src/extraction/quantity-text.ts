@@ -16,6 +16,13 @@ const UNIT =
 // Not followed by a letter, digit or slash: "12 mW/°C" is a derating slope, not a power.
 // Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
 const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
+/** A unit left apart from its number where a footnote or condition was blanked ("11.0 [2] V", "56.0 @ 0.89 mA V"). */
+const GAP = new RegExp(String.raw`(\d)(\s{3,40})(${UNIT})(?![\p{L}0-9/])`, 'gu');
+
+/** Brings such a unit back beside its number, keeping the text's length (and so every offset). */
+export function closeGaps(text: string): string {
+  return text.replace(GAP, (_m, d: string, gap: string, unit: string) => `${d} ${unit}${' '.repeat(gap.length - 1)}`);
+}
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
 const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\([Nn]ote\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
 const NUMERIC_CELL = new RegExp(
@@ -46,7 +53,7 @@ export interface QuantityToken {
 const FOOTNOTE_MARK = /\((?:note\s*)?\d{1,2}\)|\[\d{1,2}\]|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?\)?|(?<=[\p{L}\s])\d\)(?=\s|$)/giu;
 
 export function blankFootnotes(text: string): string {
-  return text.replace(FOOTNOTE_MARK, (m) => ' '.repeat(m.length));
+  return closeGaps(text.replace(FOOTNOTE_MARK, (m) => ' '.repeat(m.length)));
 }
 
 export function findQuantities(text: string): QuantityToken[] {

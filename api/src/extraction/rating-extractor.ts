@@ -4,6 +4,7 @@ import { readBlocks } from './block-reader';
 import { covers, DeviceValues, readDeviceValues, specificity } from './device-values';
 import { applyDecimalSeparator, DecimalSeparator, detectDecimalSeparator, printedNumber } from './number-style';
 import { PdfText, readPdf } from './pdf-text';
+import { readSentences } from './sentence-reader';
 import { readTables } from './table-reader';
 import { readTransposedTables } from './transposed-reader';
 import { expandToleranceSuffixes, findToleranceLegends } from './tolerance-suffix';
@@ -35,6 +36,7 @@ export function extractRatings(pdf: PdfText): ExtractionResult {
   const drafts = new VariantDrafts();
   const used = readTables(pages, drafts, warnings);
   readTransposedTables(pages, drafts, used, warnings);
+  readSentences(pages, used, drafts);
   readBlocks(pages, used, drafts);
   const withRatings = drafts.all().filter((d) => d.fields.size > 0);
   const device = readDeviceValues(

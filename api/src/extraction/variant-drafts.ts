@@ -28,6 +28,7 @@ export interface PackageCandidate {
 }
 
 export { FIELD_KINDS } from './vocabulary';
+import { PLAUSIBLE } from './vocabulary';
 
 export class VariantDraft {
   readonly fields = new Map<ExtractionField, Candidate>();
@@ -42,6 +43,10 @@ export class VariantDraft {
   ) {}
 
   offer(field: ExtractionField, c: Candidate): void {
+    const [lo, hi] = PLAUSIBLE[field];
+    // A %/K coefficient is checked after conversion; its printed figure is a percentage.
+    const x = c.kind === 'tempCoPercent' ? c.si / 100 : field === 'tc' ? c.si : Math.abs(c.si);
+    if (!(x >= lo && x <= hi)) return;
     const current = this.fields.get(field);
     if (!current || c.rank > current.rank) {
       this.fields.set(field, c);

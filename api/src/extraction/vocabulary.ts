@@ -26,6 +26,27 @@ export const FIELD_KINDS: Record<ExtractionField, readonly QuantityKind[]> = {
   izm: ['current'],
 };
 
+/**
+ * What a regulator diode's ratings can physically be, in SI (common practice, no source): a
+ * number outside is a misreading (a lost µ, a date, a page number) and is not returned.
+ */
+export const PLAUSIBLE: Record<ExtractionField, readonly [number, number]> = {
+  vzMin: [0.5, 2000],
+  vzNom: [0.5, 2000],
+  vzMax: [0.5, 2000],
+  izt: [1e-6, 20],
+  zzt: [0.01, 1e5],
+  izk: [1e-7, 5],
+  zzk: [0.01, 1e6],
+  irMax: [1e-12, 0.1],
+  vr: [0.05, 2000],
+  tc: [-1, 1],
+  pdMax: [1e-3, 1e4],
+  tjMax: [60, 300],
+  rthJA: [0.1, 5000],
+  izm: [1e-5, 500],
+};
+
 /** Symbols and words per rating, for headers, row labels and list keys. */
 export const LABELS = {
   zzk: /\bZ\s?ZK\b|\br\s?zk\b|\bknee\s+imp|\b(?:resistance|impedance)\s+at\s+the\s+knee/i,
@@ -35,8 +56,8 @@ export const LABELS = {
   izt: /\bI\s?ZT\b|\bI\s?T\b|\bI\s?test\b|\btest(?:\s+current)?\b|\bmeasuring\s+current/i,
   ir: /\bI\s?RM?\b|\bI\s?D\b|\bleakage\b|\breverse\s+(?:leakage\s+)?current/i,
   vr: /\bV\s?RM?\b|\bU\s?R\b|\breverse\s+(?:test\s+)?voltage|\btest\s+voltage/i,
-  vz: /\b[VU]\s?Z(?:min|nom|max|typ)?\b|\bV\s?\(?BR\)?|\b(?:zener|breakdown|working|regulation)\s+voltage/i,
-  tc: /α|\bθ\s?VZ|\bTC\b|\bT\s?K\s?VZ\b|\bS\s?Z\b|\btemp(?:erature|\.)?\s*co/i,
+  vz: /\b[VU]\s?Z(?:min|nom|max|typ)?\b|\bV\s?\(?BR\)?|\b(?:zener|breakdown|working|regulation)\s+voltage|\bregulates\b/i,
+  tc: /α|\bθ\s?VZ|\bTC\b|\bT\s?K\s?VZ\b|\bS\s?Z\b|\btemp(?:erature|\.)?\s*co|\bdrifts?\b/i,
   pd: /\bP\s?(?:tot|D|Z)\b|\bpower\s+(?:dissipation|rating)\b/i,
   tj: /\bjunction\s+temp|\bT\s?(?:v?j)(?:\s?max)?\b|\boperating\s+(?:junction\s+)?temp/i,
   rthJA: /\bR\s?(?:th|θ)\s?\(?j-?a\)?|\bθ\s?JA\b|\bjunction[\s-]+to[\s-]+ambient/i,
