@@ -12,7 +12,7 @@ import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-dra
  * heading or the end of the page.
  */
 
-const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^(?:electrical|thermal)\s+characteristics|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
+const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
 
 interface QualifierColumn {
   qualifier: Qualifier;

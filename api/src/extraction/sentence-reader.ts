@@ -73,18 +73,22 @@ export function readSentences(pages: Line[][], used: Set<Line>, drafts: VariantD
       // The paragraph must read as ratings: two or more numbers with units.
       const all = findQuantities(p.text).filter((t) => t.kind);
       if (all.length < 2) continue;
-      const draft = drafts.get(p.mpn, orderOf(p.lines[0].page, p.lines[0].index));
+      const found: Array<() => void> = [];
       const offer = (field: ExtractionField, t: QuantityToken, rank: number) => {
         const kind = t.kind as QuantityKind;
         if (!FIELD_KINDS[field].includes(kind)) return;
         const si = toSi(t.value, t.unit, kind);
         if (si === undefined) return;
         const line = lineOf(p, t.index);
-        draft.offer(field, { value: t.value, unit: t.unit, kind, si, page: line.page, text: p.text, box: lineBox(line), rank, method: 'sentence' });
+        const order = orderOf(p.lines[0].page, p.lines[0].index);
+        found.push(() => drafts.get(p.mpn, order).offer(field, { value: t.value, unit: t.unit, kind, si, page: line.page, text: p.text, box: lineBox(line), rank, method: 'sentence' }));
       };
-      const pkg = findPackage(p.text.slice(0, 60));
-      if (pkg) draft.offerPackage({ value: pkg.value, page: p.lines[0].page, text: p.text, box: lineBox(p.lines[0]), rank: 2 });
       for (const clause of clauses(p.text)) readClause(clause.text, clause.start, p.text, offer);
+      // Prose that names no rating ("XY5V1 5.1 V regulator diode" as a heading) is left to the other readers.
+      if (found.length === 0) continue;
+      for (const f of found) f();
+      const pkg = findPackage(p.text.slice(0, 60));
+      if (pkg) drafts.get(p.mpn, 0).offerPackage({ value: pkg.value, page: p.lines[0].page, text: p.text, box: lineBox(p.lines[0]), rank: 2 });
       for (const l of p.lines) used.add(l);
     }
   }
