@@ -124,7 +124,7 @@ function readClause(clause: string, offset: number, whole: string, offer: (f: Ex
     const before = clause.slice(i === 0 ? 0 : tokens[i - 1].end, t.index);
     const at = { ...t, index: t.index + offset, end: t.end + offset };
     // "(4.85 V to 5.36 V)" right after the nominal voltage: its limits.
-    if (primary?.field === 'vzNom' && t.kind === 'voltage' && /^\s*\(\s*$/.test(before)) {
+    if (primary?.field === 'vzNom' && t.kind === 'voltage' && /^[^()0-9]{0,20}\(\s*$/.test(before)) {
       const next = tokens[i + 1];
       if (next?.kind === 'voltage' && /^\s*(?:to|…|–|-)\s*$/.test(clause.slice(t.end, next.index))) {
         offer('vzMin', at, 3);
