@@ -1,6 +1,6 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
-import { headingPartNumber } from './part-numbers';
+import { headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
@@ -22,6 +22,9 @@ interface QualifierColumn {
 
 function headingOf(line: Line): string | undefined {
   if (line.cells.length > 3) return undefined;
+  // "XY5V1 (IT = 5 mA, IZ(K) = 0.5 mA)": a heading with the part's test conditions in brackets.
+  const withConditions = /^(\S+)\s*\(([^()]*(?:\([^()]*\)[^()]*)*)\)$/.exec(line.cells[0].text);
+  if (withConditions && isPartNumber(withConditions[1]) && findConditions(withConditions[2]).conditions.length > 0) return withConditions[1];
   const mpn = headingPartNumber(line.cells[0].text);
   if (!mpn) return undefined;
   return line.cells.slice(1).some((c) => isNumericCell(c.text)) ? undefined : mpn;
@@ -69,6 +72,12 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         mpn = heading;
         order = orderOf(line.page, line.index);
         qualifiers = undefined;
+        for (const cond of findConditions(line.text).conditions) {
+          const si = toSi(cond.value, cond.unit, cond.kind);
+          if (si !== undefined) {
+            drafts.get(heading, order).offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(line.cells[0]), rank: 1, method: 'list' });
+          }
+        }
         continue;
       }
       // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.

@@ -140,7 +140,14 @@ function readClause(clause: string, offset: number, whole: string, offer: (f: Ex
       labelStart = t.end;
       continue;
     }
-    const label = clause.slice(labelStart, t.index) + ' ' + clause.slice(t.end, tokens[i + 1]?.index ?? clause.length).split(/\b(?:at|when|measured)\b|@/)[0];
+    if (/=\s*$/.test(before)) {
+      // "SYMBOL = value" with no value before it names a condition of the part, not a rating.
+      labelStart = t.end;
+      continue;
+    }
+    // After the number only a qualifier word belongs to its label ("12 V nominal", "0.1 µA maximum").
+    const after = /^\s*(?:nom(?:inal)?|max(?:imum)?|min(?:imum)?|typ(?:ical(?:ly)?)?)\b/i.exec(clause.slice(t.end))?.[0] ?? '';
+    const label = clause.slice(labelStart, t.index) + ' ' + after;
     const match = fieldFor(label, t.kind);
     labelStart = t.end;
     if (!match) {
