@@ -72,8 +72,11 @@ function headingScope(ctx: ReadContext, line: Line): Scope {
     const l = ctx.lines[k];
     if (l.cells.length > 2 || l.text.length > 80) continue;
     if (findQuantities(l.text).some((t) => t.unit)) continue;
+    // A features bullet is no heading.
+    if (/^[•·]/.test(l.text)) continue;
     const series = seriesIn(l.text, ctx.mpns);
-    const pkg = findPackage(l.text)?.value;
+    const pkgFound = findPackage(l.text);
+    const pkg = pkgFound && !/^\s*(?:\/|,|\band\b|\bor\b)/.test(l.text.slice(pkgFound.index + pkgFound.value.length)) ? pkgFound.value : undefined;
     if (series || pkg) return { ...(series ? { series } : {}), ...(pkg ? { package: pkg } : {}) };
   }
   return {};
