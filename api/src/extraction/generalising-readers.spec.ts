@@ -40,6 +40,8 @@ describe('the decimal separator of a document', () => {
     const text = normaliseNumbers('VZ 3,6 V; reel of 1.000', ',');
     expect(text).toHaveLength('VZ 3,6 V; reel of 1.000'.length);
     expect(findQuantities(text).map((q) => q.value)).toEqual(['3.6']);
+    // A signed value is a number; a part number's "-3,6" is not touched.
+    expect(normaliseNumbers('TC -0,058 %/K for AB-3,6', ',')).toBe('TC -0.058 %/K for AB-3,6');
   });
 
   it('returns the value as printed, with its comma, and the SI value', () => {

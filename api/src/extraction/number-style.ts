@@ -37,7 +37,11 @@ function count(text: string, re: RegExp, onlyThreeDigits = false): number {
   return n;
 }
 
-const BETWEEN_DIGITS = { ',': /(?<=(?<![\p{L}\d.,\-/])\d+),(?=\d)/gu, '.': /(?<=(?<![\p{L}\d.,\-/])\d+)\.(?=\d)/gu };
+// The number may carry a sign ("-0,058"), but a hyphen after letters makes it part of a part number ("AB-3,6").
+const BETWEEN_DIGITS = {
+  ',': /(?<=(?:^|[^\p{L}\d.,/\-−–+])[-+−–]?\d+),(?=\d)/gu,
+  '.': /(?<=(?:^|[^\p{L}\d.,/\-−–+])[-+−–]?\d+)\.(?=\d)/gu,
+};
 
 /**
  * Rewrites the numbers of the lines for reading, keeping every offset: the document's

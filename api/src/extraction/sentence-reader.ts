@@ -16,10 +16,10 @@ import { bareConditionField, conditionField, CONDITION_SYMBOL } from './vocabula
  */
 
 /** The part a paragraph is about, when it opens with it ("The XY5V1 …", "XY5V1, SOD-123: …"). */
-function openingPart(line: Line): string | undefined {
+function openingPart(text: string): string | undefined {
   // A heading alone ("XY5V1") opens a list or table, not prose.
-  if (line.text.split(/\s+/).length < 5) return undefined;
-  const words = line.text.split(/\s+/).slice(0, 3);
+  if (text.split(/\s+/).length < 5) return undefined;
+  const words = text.split(/\s+/).slice(0, 3);
   for (const w of words) {
     const t = w.replace(/^[("]+|[),:;."]+$/g, '');
     if (isPartNumber(t)) return t;
@@ -30,6 +30,9 @@ function openingPart(line: Line): string | undefined {
 interface Paragraph {
   mpn: string;
   lines: Line[];
+  /** The text of each line's cell in the paragraph's column (a two-column page puts two cells on one line). */
+  parts: string[];
+  x0: number;
   text: string;
 }
 
@@ -42,18 +45,19 @@ function paragraphs(lines: Line[], used: Set<Line>): Paragraph[] {
       current = undefined;
       continue;
     }
-    const mpn = openingPart(line);
     const last = current?.lines[current.lines.length - 1];
-    const continues =
-      current && last && !mpn && Math.abs(line.cells[0].x0 - current.lines[0].cells[0].x0) < 4 && last.y - line.y < 1.8 * Math.max(line.size, last.size);
+    const cell = current ? line.cells.find((c) => Math.abs(c.x0 - current!.x0) < 4) : undefined;
+    const opening = line.cells.map((c) => ({ c, mpn: openingPart(c.text) })).find((o) => o.mpn);
+    const continues = current && last && cell && !openingPart(cell.text) && last.y - line.y < 1.8 * Math.max(line.size, last.size);
     if (continues) {
       current!.lines.push(line);
-      current!.text += ' ' + line.text;
+      current!.parts.push(cell!.text);
+      current!.text += ' ' + cell!.text;
       continue;
     }
     current = undefined;
-    if (mpn) {
-      current = { mpn, lines: [line], text: line.text };
+    if (opening) {
+      current = { mpn: opening.mpn!, lines: [line], parts: [opening.c.text], x0: opening.c.x0, text: opening.c.text };
       out.push(current);
     }
   }
@@ -96,9 +100,9 @@ export function readSentences(pages: Line[][], used: Set<Line>, drafts: VariantD
 
 function lineOf(p: Paragraph, index: number): Line {
   let at = 0;
-  for (const l of p.lines) {
-    if (index < at + l.text.length + 1) return l;
-    at += l.text.length + 1;
+  for (let k = 0; k < p.lines.length; k++) {
+    if (index < at + p.parts[k].length + 1) return p.lines[k];
+    at += p.parts[k].length + 1;
   }
   return p.lines[p.lines.length - 1];
 }
