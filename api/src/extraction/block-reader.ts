@@ -91,6 +91,8 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         qualifiers = q;
         continue;
       }
+      // A line of prose (a legend, a note, an example) is not a key–value line: "the 4.3 V type" is no rating of this part.
+      if (line.cells.length === 1 && line.text.split(/\s+/).length >= 9) continue;
       const current = mpn;
       readLine(line, qualifiers, () => drafts.get(current, order));
     }
