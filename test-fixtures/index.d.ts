@@ -170,6 +170,8 @@ export interface LayoutChoices {
   pageBreak: 'none' | 'repeat-header' | 'no-repeat';
   clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
   vocabulary: Record<'vz' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'ir' | 'vr' | 'tc' | 'izm' | 'pd' | 'tj' | 'rth', { symbol: string; name: string }>;
+  qualifiers: 'lower' | 'dot' | 'words';
+  unitBrackets: '()' | '[]';
   /** Image-only pages made by a rasteriser (only when one is passed; never drawn at random). */
   imageOnly?: boolean;
 }

@@ -1,6 +1,6 @@
 import { randomInt } from 'node:crypto';
 import { generateRandomDatasheet } from '@shuntwise/test-fixtures';
-import { formatReport, GOAL, precisionOf, recallOf, scoreRandomLayouts, type RandomLayoutReport } from '../../test/helpers/random-layout-score';
+import { formatReport, GOAL, matchesPrinted, precisionOf, recallOf, scoreRandomLayouts, type RandomLayoutReport } from '../../test/helpers/random-layout-score';
 import { readPdf } from './pdf-text';
 import { extractDatasheet } from './rating-extractor';
 
@@ -39,8 +39,16 @@ describe('datasheet extraction on random layouts', () => {
     `${what} ${(100 * value).toFixed(1)} % is below the goal of ${(100 * goal).toFixed(1)} % (replay: LAYOUT_SEED=${seed})\n` +
     formatReport(report, { worstChoices: 20, failing: 20, misses: 2 });
 
+  it('draws every arrangement and both sides of each main choice in one run', () => {
+    const drawn = new Set(report.perChoice.keys());
+    for (const a of ['rows', 'transposed', 'part-per-page', 'leader-list', 'param-table', 'sentences']) expect(drawn).toContain(`arrangement=${a}`);
+    for (const label of ['decimal=comma', 'decimal=point', 'orientation=rotated', 'pageColumns=2', 'tolerance=suffix-legend', 'series=2', 'maxRatings=per-package']) {
+      expect(drawn).toContain(label);
+    }
+  });
+
   it('writes answer keys that agree with the text of the PDFs (the generator itself)', async () => {
-    for (const s of REGRESSION_SEEDS.slice(0, 8)) {
+    for (const s of REGRESSION_SEEDS.slice(0, 12)) {
       const { pdf, answers } = await generateRandomDatasheet(s);
       const text = await readPdf(new Uint8Array(pdf));
       expect(text.pageCount).toBe(answers.pages);
@@ -72,5 +80,36 @@ describe('datasheet extraction on random layouts', () => {
     const missing = report.docs.filter((d) => d.missingParts.length).map((d) => `seed ${d.seed}: ${d.missingParts.slice(0, 5).join(', ')}`);
     const invented = report.docs.filter((d) => d.inventedParts.length).map((d) => `seed ${d.seed}: ${d.inventedParts.slice(0, 5).join(', ')}`);
     expect({ missing: missing.slice(0, 20), invented: invented.slice(0, 20) }).toEqual({ missing: [], invented: [] });
+  });
+});
+
+describe('scoring a returned value against the printed one', () => {
+  const value = (v: string, unit: string, si: number, derived?: 'tolerance-suffix') => ({ value: v, unit, si, page: 1, ...(derived ? { derived } : {}) });
+  const got = (si: number) => ({ value: '', unit: '', si, page: 1, text: '' });
+
+  // Rounding to the printed digits: half a unit of the last digit (common practice, no source).
+  it('accepts the printed value within the rounding of its digits and nothing further', () => {
+    expect(matchesPrinted(value('5.1', 'V', 5.1), got(5.1))).toBe(true);
+    expect(matchesPrinted(value('5.1', 'V', 5.1), got(5.149))).toBe(true);
+    expect(matchesPrinted(value('5.1', 'V', 5.1), got(5.16))).toBe(false);
+  });
+
+  it('rejects a decimal comma read as a whole number (0,30 µA read as 3, or as 30 µA)', () => {
+    // µ = 10⁻⁶ (BIPM SI Brochure, 9th edition; from memory).
+    expect(matchesPrinted(value('0,30', 'µA', 0.3e-6), got(0.3e-6))).toBe(true);
+    expect(matchesPrinted(value('0,30', 'µA', 0.3e-6), got(3))).toBe(false);
+    expect(matchesPrinted(value('0,30', 'µA', 0.3e-6), got(30e-6))).toBe(false);
+  });
+
+  it('compares a %/K coefficient in V/K (α·VZ/100, common practice, no source)', () => {
+    // −0.005 %/K of 5.1 V = −0.255 mV/K.
+    expect(matchesPrinted(value('−0.005', '%/K', -0.000255), got(-0.000255))).toBe(true);
+    expect(matchesPrinted(value('−0.005', '%/K', -0.000255), got(-0.005))).toBe(false);
+  });
+
+  it('holds a limit derived from a tolerance letter to one part in a million', () => {
+    // 5.1 V with ±2 %: 4.998 V.
+    expect(matchesPrinted(value('4.998', 'V', 4.998, 'tolerance-suffix'), got(4.998))).toBe(true);
+    expect(matchesPrinted(value('4.998', 'V', 4.998, 'tolerance-suffix'), got(5.0))).toBe(false);
   });
 });

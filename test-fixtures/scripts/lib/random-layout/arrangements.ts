@@ -1,7 +1,7 @@
 import { HeaderSpan } from '../sheet';
 import { Field } from '../types';
-import { VocabKey } from './choices';
-import { allParts, Ctx, condText, leader, marked, name, ownIzk, ownIzt, ownVr, recordSeriesConditions, seriesConditions, sym } from './common';
+import { bracketed, qualifierWord, VocabKey } from './choices';
+import { Ctx, condText, leader, marked, name, ownIzk, ownIzt, ownVr, recordSeriesConditions, seriesConditions, sym } from './common';
 import { PartModel, SeriesModel } from './model';
 import { Flow, grid, GridColumn } from './pen';
 
@@ -104,7 +104,8 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const withPkg = needsPackageColumn(ctx, s);
   // Header lines.
   const groupName = (spec: ParamSpec) => (c.headerRows === 3 ? `${name(ctx, spec.key)}` : sym(ctx, spec.key));
-  const unitText = (spec: ParamSpec) => `(${unitOfSpec(s, spec)})`;
+  const unitText = (spec: ParamSpec) => bracketed(c, unitOfSpec(s, spec));
+  const qw = (spec: ParamSpec) => qualifierWord(c, spec.qual);
   const lead: Array<{ text: string; width: number }> = [{ text: 'Type', width: 62 }];
   if (withPkg) lead.push({ text: 'Package', width: 46 });
   lead.push({ text: 'Marking', width: 34 });
@@ -137,7 +138,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       ...specs.map((sp, i) => {
         const cond = sp.qual === 'min' || sp.qual === '' || sp.key !== 'vz' ? headerCondition(ctx, s, sp) : '';
         const unit = c.units === 'header' ? ` ${unitText(sp)}` : '';
-        return { text: fnote(`${sym(ctx, sp.key)}${sp.qual ? ` ${sp.qual}` : ''}${cond}${unit}`, sp), from: n0 + i, to: n0 + i };
+        return { text: fnote(`${sym(ctx, sp.key)}${sp.qual ? ` ${qw(sp)}` : ''}${cond}${unit}`, sp), from: n0 + i, to: n0 + i };
       }),
     ]);
   } else {
@@ -156,7 +157,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     }
     header.push(
       specs.map((sp, i) => ({
-        text: `${sp.qual}${c.units === 'header' ? ` ${unitText(sp)}` : ''}`.trim(),
+        text: `${qw(sp)}${c.units === 'header' ? ` ${unitText(sp)}` : ''}`.trim(),
         from: n0 + i,
         to: n0 + i,
       })),
@@ -187,7 +188,6 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     y = grid(pen, pen.frame.left, y + 4, columns, hdr, rows, { size, rowHeight: size + 4.5 });
   });
   flow.y = y + 4;
-  if (!withPkg) pen.recordPackage(allParts(s), pen.page);
 }
 
 /** Series table with parts as columns (parameters as rows), a block of parts at a time. */
@@ -243,8 +243,8 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     }
     for (const sp of specs) {
       const unit = unitOfSpec(s, sp);
-      let label = `${name(ctx, sp.key)}${sp.qual ? `, ${sp.qual}` : ''}${headerCondition(ctx, s, sp)}`;
-      if (c.units === 'header') label += ` (${unit})`;
+      let label = `${name(ctx, sp.key)}${sp.qual ? `, ${qualifierWord(c, sp.qual)}` : ''}${headerCondition(ctx, s, sp)}`;
+      if (c.units === 'header') label += ` ${bracketed(c, unit)}`;
       let cond = '';
       if (condCol && sp.cond) {
         const cv = s.rows[0][0].values[sp.cond.field];
@@ -261,7 +261,6 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       ]);
     }
     y = grid(pen, pen.frame.left, y + 4, columns, b === 0 || c.pageBreak !== 'no-repeat' ? header : [], rows, { size: 7 });
-    if (!withPkg) pen.recordPackage(block.flat(), page);
   });
   flow.y = y + 4;
 }
@@ -304,7 +303,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     ...(unitCol ? [{ width: 0.06, align: 'center' as const }] : []),
   ];
   const columns: GridColumn[] = fractions.map((col) => ({ ...col, width: col.width * w * (unitCol ? 1 : 1.06) }));
-  const head = ['Symbol', 'Parameter', 'Conditions', 'Min', 'Typ', 'Max', ...(unitCol ? ['Unit'] : [])];
+  const head = ['Symbol', 'Parameter', 'Conditions', qualifierWord(c, 'min'), qualifierWord(c, 'typ'), qualifierWord(c, 'max'), ...(unitCol ? ['Unit'] : [])];
   const rows: string[][] = [];
   const vzRow: string[] = [];
   for (const sp of specs) {
@@ -312,7 +311,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
       // Conditions printed as their own row: test current, knee current, VR.
       const v = p.values[sp.field]!;
       pen.record(row, sp.field, page);
-      rows.push([sym(ctx, sp.key), name(ctx, sp.key) + (c.units === 'header' ? ` (${v.unit})` : ''), '', '', unitInCell ? pen.vu(v) : pen.num(v.value), '', ...(unitCol ? [v.unit] : [])]);
+      rows.push([sym(ctx, sp.key), name(ctx, sp.key) + (c.units === 'header' ? ` ${bracketed(c, v.unit)}` : ''), '', '', unitInCell ? pen.vu(v) : pen.num(v.value), '', ...(unitCol ? [v.unit] : [])]);
       continue;
     }
     let cond = '';
@@ -323,7 +322,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     }
     const text = cell(ctx, s, sp, row, first, unitInCell, page);
     const unit = unitOfSpec(s, sp);
-    const label = `${name(ctx, sp.key)}${headerCondition(ctx, s, sp)}${c.units === 'header' ? ` (${unit})` : ''}`;
+    const label = `${name(ctx, sp.key)}${headerCondition(ctx, s, sp)}${c.units === 'header' ? ` ${bracketed(c, unit)}` : ''}`;
     if (sp.key === 'vz') {
       if (!vzRow.length) vzRow.push(sym(ctx, 'vz'), label, cond, '', '', '', ...(unitCol ? [unit] : []));
       const at = sp.qual === 'min' ? 3 : sp.qual === 'nom' ? 4 : 5;
@@ -392,7 +391,7 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     for (const sp of specs) {
       const v = p.values[sp.field]!;
       const unit = v.unit;
-      let label = `${name(ctx, sp.key)}${sp.qual ? ` ${sp.qual}.` : ''}, ${sym(ctx, sp.key)}`;
+      let label = `${name(ctx, sp.key)}${sp.qual ? ` ${qualifierWord(c, sp.qual)}` : ''}, ${sym(ctx, sp.key)}`;
       if (c.conditions === 'header' || c.conditions === 'column') {
         // A condition in the label ("at IZT = 5 mA"); with conditions "column" it repeats the part's own value.
         if (sp.cond && !(sp.cond.key === 'izt' && ownIzt(ctx, s)) && !(sp.cond.key === 'izk' && ownIzk(ctx, s)) && !(sp.cond.key === 'vr' && ownVr(ctx))) {
@@ -404,7 +403,7 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
         }
         if (sp.cond?.key === 'vr' && ownVr(ctx)) label += ` at ${sym(ctx, 'vr')}`;
       }
-      if (c.units === 'header') label += ` (${unit})`;
+      if (c.units === 'header') label += ` ${bracketed(c, unit)}`;
       // A value with "@ condition" carries its own unit (a unit after the condition would be ambiguous).
       const own = c.units === 'each-value' || (c.units === 'unit-column' && atSign(ctx, s, sp));
       const text = cell(ctx, s, sp, row, r === 0, own, page);

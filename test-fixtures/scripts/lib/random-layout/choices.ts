@@ -51,6 +51,10 @@ export interface LayoutChoices {
   clutter: Array<'prose' | 'curves' | 'outline' | 'example'>;
   /** The vendor's words and symbols. */
   vocabulary: Vocabulary;
+  /** How limits are qualified: min/nom/max, Min./Typ./Max., minimum/nominal/maximum. */
+  qualifiers: 'lower' | 'dot' | 'words';
+  /** Brackets around a unit in a header or label: (V) or [V]. */
+  unitBrackets: '()' | '[]';
   /** Image-only pages (a scan made by a rasteriser); never drawn at random, OCR is slow. */
   imageOnly?: boolean;
 }
@@ -118,7 +122,25 @@ export function drawChoices(prng: Prng): LayoutChoices {
     pageBreak: prng.pick(['none', 'repeat-header', 'no-repeat'] as const),
     clutter,
     vocabulary: drawVocabulary(prng),
+    qualifiers: prng.pick(['lower', 'dot', 'words'] as const),
+    unitBrackets: prng.pick(['()', '[]'] as const),
   };
+}
+
+const QUALIFIERS: Record<LayoutChoices['qualifiers'], Record<'min' | 'nom' | 'typ' | 'max', string>> = {
+  lower: { min: 'min', nom: 'nom', typ: 'typ', max: 'max' },
+  dot: { min: 'Min.', nom: 'Typ.', typ: 'Typ.', max: 'Max.' },
+  words: { min: 'minimum', nom: 'nominal', typ: 'typical', max: 'maximum' },
+};
+
+/** A qualifier word in the vendor's style ('' stays ''). */
+export function qualifierWord(c: LayoutChoices, q: '' | 'min' | 'nom' | 'typ' | 'max'): string {
+  return q ? QUALIFIERS[c.qualifiers][q] : '';
+}
+
+/** A unit in the vendor's brackets. */
+export function bracketed(c: LayoutChoices, unit: string): string {
+  return c.unitBrackets === '[]' ? `[${unit}]` : `(${unit})`;
 }
 
 /** What the arrangement actually drew for choices that do not apply to it. */
@@ -144,6 +166,10 @@ export function choiceLabels(c: LayoutChoices): string[] {
       for (const [vk, w] of Object.entries(v as Vocabulary)) out.push(`symbol.${vk}=${w.symbol}`, `name.${vk}=${w.name}`);
     } else if (k === 'clutter') {
       for (const item of ['prose', 'curves', 'outline', 'example']) out.push(`clutter.${item}=${(v as string[]).includes(item)}`);
+    } else if (k === 'micro' || k === 'ohm') {
+      // µ/μ and Ω/Ω look alike: the code point tells them apart in a report.
+      const ch = String(v);
+      out.push(`${k}=${ch}${ch.length === 1 && ch.charCodeAt(0) > 127 ? ` U+${ch.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}` : ''}`);
     } else out.push(`${k}=${String(v)}`);
   }
   return out;

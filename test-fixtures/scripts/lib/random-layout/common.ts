@@ -103,6 +103,8 @@ export function cover(ctx: Ctx, flow: Flow): void {
     `Packages: ${kind}`,
     `Reflow soldering up to 260 °C for 10 s`,
     `Moisture sensitivity level 1, lead-free plating`,
+    // Thousands separators and a date: numbers a decimal-comma reader must not take for values.
+    pen.c.decimal === 'comma' ? 'Life test 1.000 h at 125 °C; issued 04.12.2026' : 'Life test 1,000 h at 125 °C; issued 2026-12-04',
   ]) {
     pen.sheet.text('•', flow.x + 2, y, { size: 8.5 });
     y = pen.prose(f, flow.x + 12, y, w - 12) - 2;
@@ -163,6 +165,8 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
   const lines = ratingLines(ctx, pkg, true);
   const record = (page: number) => {
     for (const l of lines) if (l.field && l.val) pen.recordDevice(parts, l.field, l.val, page);
+    // A heading that names the package tells which package these parts come in.
+    if (heading.includes(pkg.name)) pen.recordPackage(parts, page);
   };
   const w = flow.width;
   if (c.ratingsForm === 'sentence') {

@@ -90,7 +90,7 @@ export async function generateRandomDatasheet(
   for (const s of model.series) {
     if (c.maxRatings === 'per-series') {
       flow.need(140);
-      ratingsBlock(ctx, flow, `Maximum ratings, ${s.name} series`, s.packages[0], s.rows.flat());
+      ratingsBlock(ctx, flow, `Maximum ratings, ${s.name} series (${s.packages[0].name})`, s.packages[0], s.rows.flat());
     }
     if (rotated && c.arrangement !== 'rows' && c.arrangement !== 'transposed' && c.arrangement !== 'part-per-page') flow.newPage(true);
     else if (c.arrangement !== 'rows' && c.arrangement !== 'transposed' && c.arrangement !== 'part-per-page') flow.need(200);
