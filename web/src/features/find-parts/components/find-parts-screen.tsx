@@ -1,13 +1,17 @@
 import { useCallback, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Alert, CloseButton, Grid, Group, Loader, Paper, Stack, Tabs, Text, Title } from '@mantine/core';
+import { notifications } from '@mantine/notifications';
 import { IconInfoCircle } from '@tabler/icons-react';
-import type { SearchItem } from '@shuntwise/contracts';
+import type { RegulatorResponse, SearchItem } from '@shuntwise/contracts';
 import { useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { describeError } from '@/lib/api-client';
+import { saveBlob } from '@/lib/download';
+import { allSearchResults, EXPORT_LIMIT } from '../api/export-results';
 import { useCircuitChecks } from '../api/check-circuit';
 import { useSearchParts } from '../api/search-parts';
 import { regulatorRequest, type CircuitRequest } from '../utils/circuit';
+import { resultsCsv } from '../utils/results-csv';
 import { DEFAULT_PAGE_SIZE, searchParamsFromUrl } from '../utils/search-state';
 import { CircuitComparison } from './circuit-comparison';
 import { CircuitForm } from './circuit-form';
@@ -68,6 +72,22 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
   const checks = useCircuitChecks(requests);
   const compared = chosen.map((item, i) => ({ item, result: checks[i]?.data, error: checks[i]?.error ? describeError(checks[i].error) : null }));
 
+  const [exporting, setExporting] = useState(false);
+  const exportCsv = async () => {
+    setExporting(true);
+    try {
+      const { items, total } = await allSearchResults(params);
+      const done = new Map<number, RegulatorResponse>();
+      if (circuit) compared.forEach((c) => c.result && done.set(c.item.vendorPart.id, c.result));
+      saveBlob(new Blob([resultsCsv(items, done)], { type: 'text/csv;charset=utf-8' }), 'shuntwise-find-parts.csv');
+      if (total > items.length) notifications.show({ color: 'orange', title: 'Export shortened', message: `The first ${EXPORT_LIMIT} of ${total} parts were saved: narrow the filters for the rest.` });
+    } catch (e) {
+      notifications.show({ color: 'red', title: 'The results could not be exported', message: describeError(e) });
+    } finally {
+      setExporting(false);
+    }
+  };
+
   const toggle = (item: SearchItem) => {
     setChosen((list) => {
       if (list.some((c) => c.vendorPart.id === item.vendorPart.id)) return list.filter((c) => c.vendorPart.id !== item.vendorPart.id);
@@ -103,6 +123,8 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
         linkCatalogue={linkCatalogue}
         includeNotCleared={params.includeNotCleared ?? false}
         renderPartAction={renderPartAction}
+        onExport={() => void exportCsv()}
+        exporting={exporting}
       />
 
       <Paper ref={checkRef} p="md" aria-labelledby="circuit-check-title" style={{ scrollMarginTop: 64 }}>

@@ -4,10 +4,18 @@ import {
   type EngineeringCardInput,
   type RegulatorRequest,
   type RegulatorResponse,
+  type RegulatorVerdict,
   type ResistorSeries,
   type SearchCard,
 } from '@shuntwise/contracts';
 import { formatTempCo } from './format';
+
+/** What the circuit check's verdict reads as, on screen and in the CSV. */
+export const VERDICT_TITLE: Record<RegulatorVerdict, string> = {
+  ok: 'Works at every corner',
+  'no-solution': 'No resistor works',
+  'no-data': 'Cannot decide: data missing',
+};
 
 /** The circuit as the form holds it: SI numbers (null while empty, NaN while a field does not read). */
 export interface CircuitValues {
