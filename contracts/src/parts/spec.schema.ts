@@ -63,6 +63,33 @@ export const specSchema = z
 export type Spec = z.infer<typeof specSchema>;
 export type SpecInput = z.input<typeof specSchema>;
 
+/** Numbers closer than this (relative) are the same value: a unit round trip (5 mA → 0.005 A) leaves noise in the last bit. */
+const SAME_RELATIVE = 1e-9;
+
+function sameValue(a: unknown, b: unknown): boolean {
+  if (typeof a === 'number' && typeof b === 'number') return a === b || Math.abs(a - b) <= SAME_RELATIVE * Math.max(Math.abs(a), Math.abs(b));
+  if (Array.isArray(a) && Array.isArray(b)) return a.length === b.length && a.every((x, i) => sameValue(x, b[i]));
+  if (a && b && typeof a === 'object' && typeof b === 'object') {
+    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
+    // A key left out and a key set to null say the same: no limit.
+    return [...keys].every((k) => sameValue((a as Record<string, unknown>)[k] ?? null, (b as Record<string, unknown>)[k] ?? null));
+  }
+  return (a ?? null) === (b ?? null);
+}
+
+/**
+ * Whether two specs state the same requirement: defaults filled in, numbers equal to
+ * within a unit round trip, packages as a set. The API makes no new version (and flags
+ * no decided case) for a save that changes nothing by this rule; the editor uses it too.
+ */
+export function sameSpec(a: SpecInput, b: SpecInput): boolean {
+  const pa = specSchema.safeParse(a);
+  const pb = specSchema.safeParse(b);
+  if (!pa.success || !pb.success) return false;
+  const canonical = (s: Spec) => ({ ...s, packages: [...new Set(s.packages)].sort() });
+  return sameValue(canonical(pa.data), canonical(pb.data));
+}
+
 /** `PUT /house-parts/:id/spec`: a new version, based on the version the editor loaded (0 for the first). */
 export const putSpecRequestSchema = z.strictObject({
   baseVersion: z.number().int().min(0),
