@@ -25,6 +25,7 @@ export * from './qualifications/qualification-state.schema';
 export * from './qualifications/qualification.schema';
 export * from './qualifications/sources-view.schema';
 export * from './search/search.schema';
+export * from './units/field-labels';
 export * from './units/format';
 export * from './units/parse';
 export * from './units/quantity';

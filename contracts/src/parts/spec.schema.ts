@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldValue, fieldWithValue as fw } from '../units/field-labels';
 import { envelopeSchema } from '../engineering/envelope.schema';
 import { actorSchema } from './page.schema';
 
@@ -47,17 +48,17 @@ export const specSchema = z
   })
   .superRefine((s, ctx) => {
     const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message });
-    if (s.vz.min > s.vz.nom) issue(['vz', 'min'], `vz.min (${s.vz.min} V) is above vz.nom (${s.vz.nom} V)`);
-    if (s.vz.max < s.vz.nom) issue(['vz', 'max'], `vz.max (${s.vz.max} V) is below vz.nom (${s.vz.nom} V)`);
+    if (s.vz.min > s.vz.nom) issue(['vz', 'min'], `${fw('vz.min', s.vz.min)} is above ${fw('vz.nom', s.vz.nom)}`);
+    if (s.vz.max < s.vz.nom) issue(['vz', 'max'], `${fw('vz.max', s.vz.max)} is below ${fw('vz.nom', s.vz.nom)}`);
     if (s.knee) {
-      if (s.knee.maxRatio === null && s.knee.maxSpan === null) issue(['knee'], 'a knee limit needs maxRatio (with iKnee) or maxSpan');
-      if (s.knee.maxRatio !== null && s.knee.iKnee === null) issue(['knee', 'iKnee'], 'maxRatio is stated at a knee current: give iKnee');
-      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef) issue(['knee', 'iKnee'], `iKnee (${s.knee.iKnee} A) must be below iRef (${s.iRef} A)`);
+      if (s.knee.maxRatio === null && s.knee.maxSpan === null) issue(['knee'], 'A knee limit needs the largest ratio (with the knee current) or the largest span');
+      if (s.knee.maxRatio !== null && s.knee.iKnee === null) issue(['knee', 'iKnee'], 'The knee ratio is stated at a knee current: give the knee current');
+      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef) issue(['knee', 'iKnee'], `${fw('knee.iKnee', s.knee.iKnee)} must be below the reference current (${fieldValue('iRef', s.iRef)})`);
     }
-    if (s.leakage && s.leakage.vr >= s.vz.min) issue(['leakage', 'vr'], `vr (${s.leakage.vr} V) must be below the window's vz.min (${s.vz.min} V)`);
-    if (s.tc && s.tc.min > s.tc.max) issue(['tc', 'min'], `tc.min (${s.tc.min} V/K) is above tc.max (${s.tc.max} V/K)`);
+    if (s.leakage && s.leakage.vr >= s.vz.min) issue(['leakage', 'vr'], `${fw('leakage.vr', s.leakage.vr)} must be below ${fw('vz.min', s.vz.min)}`);
+    if (s.tc && s.tc.min > s.tc.max) issue(['tc', 'min'], `${fw('tc.min', s.tc.min)} is above ${fw('tc.max', s.tc.max)}`);
     if (s.outputWindow && s.outputWindow.vMin >= s.outputWindow.vMax) {
-      issue(['outputWindow', 'vMin'], `outputWindow.vMin (${s.outputWindow.vMin} V) must be below vMax (${s.outputWindow.vMax} V)`);
+      issue(['outputWindow', 'vMin'], `${fw('outputWindow.vMin', s.outputWindow.vMin)} must be below ${fw('outputWindow.vMax', s.outputWindow.vMax)}`);
     }
   });
 export type Spec = z.infer<typeof specSchema>;

@@ -1,7 +1,9 @@
 import {
   formatQuantity,
+  issueMessage,
   regulatorRequestSchema,
   type EngineeringCardInput,
+  type LabelledIssue,
   type RegulatorRequest,
   type RegulatorResponse,
   type RegulatorVerdict,
@@ -119,15 +121,12 @@ export function validateCircuit(v: CircuitValues): Partial<Record<keyof CircuitV
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const field = FIELD_OF_PATH[issue.path.map(String).join('.')];
-      if (field && !errors[field]) errors[field] = plain(issue.message, issue.path.map(String).join('.'));
+      if (field && !errors[field]) errors[field] = issueMessage(issue as LabelledIssue);
     }
   }
   return errors;
 }
 
-function plain(message: string, path: string): string {
-  return /^(Too small|Too big|Invalid)/.test(message) ? `${path}: out of range` : message;
-}
 
 /** The card fields the engineering core reads, from a search result's card. */
 export function engineeringCard(card: SearchCard): EngineeringCardInput {

@@ -101,7 +101,7 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
     await user.clear(vzMin);
     await user.type(vzMin, '5.3');
     await user.click(screen.getAllByRole('button', { name: 'Save as v2' })[0]);
-    expect(screen.getByText('vz.min (5.3 V) is above vz.nom (5.1 V)')).toBeInTheDocument();
+    expect(screen.getByText('VZ min (5.3 V) is above VZ nom (5.1 V)')).toBeInTheDocument();
     expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(0);
   });
 

@@ -199,7 +199,7 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
         </Section>
 
         <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md">
-          <Section title="Knee" hint="ratio Zd(iKnee)/Zd(iRef), and/or the span over the envelope">
+          <Section title="Knee" hint="Zd at the knee current ÷ Zd at the reference current, and/or the span over the envelope">
             <SimpleGrid cols={3} spacing="xs">
               <QuantityInput label="Knee current" kind="current" unit="mA" {...q('knee.iKnee')} />
               <NumberInput label="Largest ratio" min={1} max={10000} decimalScale={3} hideControls {...ip('knee.maxRatio')} />

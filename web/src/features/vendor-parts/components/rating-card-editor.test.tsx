@@ -177,7 +177,7 @@ describe('RatingCardEditor', () => {
     api({
       'PUT /api/vendor-parts/:id/rating-card': {
         status: 400,
-        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [{ path: 'fields.zzt.value', message: 'zzt (900 Ω) × izt (0.005 A) is not below vzNom (5.1 V)' }]),
+        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [{ path: 'fields.zzt.value', message: 'ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)' }]),
       },
     });
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
@@ -185,7 +185,7 @@ describe('RatingCardEditor', () => {
     await user.clear(vzMax);
     await user.type(vzMax, '5.4 V');
     await user.click(screen.getAllByRole('button', { name: 'Save card' })[0]);
-    expect(await screen.findByText('zzt (900 Ω) × izt (0.005 A) is not below vzNom (5.1 V)')).toBeInTheDocument();
+    expect(await screen.findByText('ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)')).toBeInTheDocument();
     expect(screen.getByLabelText(/^ZZT \(/)).toHaveAttribute('aria-invalid', 'true');
     expect(vzMax).toHaveValue('5.4 V');
   });
