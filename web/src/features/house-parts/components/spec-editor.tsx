@@ -8,6 +8,7 @@ import { sameSpec, type SpecVersion } from '@shuntwise/contracts';
 import { QuantityInput } from '@/components/quantity-input';
 import { ApiError, describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
+import { useLeaveGuard } from '@/lib/leave-guard';
 import { usePutSpec } from '../api/spec';
 import { emptySpecForm, formPath, formToSpec, specToForm, validateSpecForm, type SpecFormValues } from '../utils/spec-form';
 
@@ -83,6 +84,7 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
   };
   // Unsaved means the form states another requirement than the loaded version (a note alone is not saved).
   const changed = loaded ? form.isDirty() && !sameSpec(formToSpec(form.getValues()), loaded.spec) : true;
+  useLeaveGuard(loaded ? changed : form.isDirty(), 'The spec has unsaved changes. Leave this page and lose them?');
 
   const save = (values: SpecFormValues, onTopOf = baseVersion) => {
     setGeneralError(null);

@@ -1,8 +1,9 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { Link } from 'react-router';
 import { describe, expect, it, vi } from 'vitest';
 import type { ExtractedVariant, NormalizeResponse, RatingCardView, VendorPartDetail } from '@shuntwise/contracts';
 import { errorBody, mockApi, type RecordedCall } from '@/testing/mock-api';
-import { render, signInAs } from '@/testing/render';
+import { currentLocation, render, signInAs } from '@/testing/render';
 import { RatingCardEditor } from './rating-card-editor';
 
 // Invented part and datasheet (demo data, no real vendor).
@@ -245,4 +246,29 @@ describe('RatingCardEditor', () => {
     expect(sent.fields.vzNom.value).toBe(5.1);
     await waitFor(() => expect(screen.getByTestId('card-version')).toHaveTextContent('v3'));
   }, 20_000);
+
+  it('asks before a link leaves unsaved edits, and stays when told to', { timeout: 60_000 }, async () => {
+    signInAs('engineer');
+    api();
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    const { user } = render(
+      <>
+        <Link to="/board">Board</Link>
+        <RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />
+      </>,
+      { route: '/vendor-parts/5' },
+    );
+    const zzt = screen.getByLabelText(/^ZZT \(/);
+    await user.clear(zzt);
+    await user.type(zzt, '9 Ω');
+    await user.tab();
+    fireEvent.click(screen.getByRole('link', { name: 'Board' }));
+    expect(confirm).toHaveBeenCalledWith(expect.stringMatching(/rating card has unsaved changes/));
+    expect(currentLocation()).toBe('/vendor-parts/5');
+    expect(zzt).toHaveValue('9 Ω');
+    confirm.mockReturnValue(true);
+    fireEvent.click(screen.getByRole('link', { name: 'Board' }));
+    await waitFor(() => expect(currentLocation()).toBe('/board'));
+    confirm.mockRestore();
+  });
 });
