@@ -140,6 +140,40 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     expect(within(region).getByRole('table', { name: 'Corners' })).toHaveTextContent('13.2 V');
   });
 
+  it('takes the last results away as soon as the circuit no longer matches them', { timeout: 90_000 }, async () => {
+    signInAs('designer');
+    const mock = api();
+    const { user } = renderApp('/find');
+    await user.click(await screen.findByRole('button', { name: /Check BRZ05-5V1 .* in my circuit/ }, { timeout: 15_000 }));
+    const form = screen.getByRole('form', { name: 'Circuit' });
+    await user.type(within(form).getByRole('textbox', { name: 'Lowest' }), '10.8');
+    await user.type(within(form).getByRole('textbox', { name: 'Highest' }), '13.2');
+    await user.type(within(form).getByRole('textbox', { name: 'Largest' }), '20 mA');
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    expect(await screen.findByTestId('verdict-alert')).toHaveTextContent('Works at every corner');
+
+    // An unreadable value: no verdict of the old circuit beside the error.
+    const largest = within(form).getByRole('textbox', { name: 'Largest' });
+    await user.clear(largest);
+    await user.type(largest, '20 parsecs');
+    await user.tab();
+    expect(screen.queryByTestId('verdict-alert')).toBeNull();
+    expect(screen.getByTestId('circuit-stale')).toHaveTextContent(/missing or do not read/);
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    expect(screen.queryByText('Works at every corner')).toBeNull();
+
+    // A readable but different circuit: marked, not shown, until checked again.
+    await user.clear(largest);
+    await user.type(largest, '25 mA');
+    await user.tab();
+    expect(screen.getByTestId('circuit-stale')).toHaveTextContent(/for other values/);
+    expect(screen.queryByTestId('verdict-alert')).toBeNull();
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    await waitFor(() => expect(mock.callsTo('POST', '/api/engineering/regulator')).toHaveLength(2));
+    expect(await screen.findByTestId('verdict-alert')).toBeInTheDocument();
+    expect(screen.queryByTestId('circuit-stale')).toBeNull();
+  });
+
   it('says why when no resistor works', async () => {
     signInAs('designer');
     const reasons = ['no resistor works: the power limit needs at least 300 Ω but the knee needs at most 244 Ω; narrow the supply or load range, or use a diode with more power or a lower knee current'];

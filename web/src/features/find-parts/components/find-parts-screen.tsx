@@ -39,6 +39,9 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
   const [chosen, setChosen] = useState<SearchItem[]>([]);
   const [active, setActive] = useState<string | null>(null);
   const [circuit, setCircuit] = useState<CircuitRequest | null>(null);
+  // What the form describes now; results of another circuit are not shown beside it.
+  const [typed, setTyped] = useState<CircuitRequest | null | undefined>(undefined);
+  const stale = circuit !== null && typed !== undefined && JSON.stringify(typed) !== JSON.stringify(circuit);
   const checkRef = useRef<HTMLDivElement>(null);
 
   // The address the last change produced. react-router's functional update starts from the
@@ -78,7 +81,7 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
     try {
       const { items, total } = await allSearchResults(params);
       const done = new Map<number, RegulatorResponse>();
-      if (circuit) compared.forEach((c) => c.result && done.set(c.item.vendorPart.id, c.result));
+      if (circuit && !stale) compared.forEach((c) => c.result && done.set(c.item.vendorPart.id, c.result));
       saveBlob(new Blob([resultsCsv(items, done)], { type: 'text/csv;charset=utf-8' }), 'shuntwise-find-parts.csv');
       if (total > items.length) notifications.show({ color: 'orange', title: 'Export shortened', message: `The first ${EXPORT_LIMIT} of ${total} parts were saved: narrow the filters for the rest.` });
     } catch (e) {
@@ -154,7 +157,15 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
         </Text>
         <Grid gutter="lg">
           <Grid.Col span={{ base: 12, md: 4 }}>
-            <CircuitForm onSubmit={(c) => setCircuit(c)} busy={checks.some((q) => q.isFetching)} partCount={chosen.length} />
+            <CircuitForm
+              onSubmit={(c) => {
+                setCircuit(c);
+                setTyped(c);
+              }}
+              onValuesChange={setTyped}
+              busy={checks.some((q) => q.isFetching)}
+              partCount={chosen.length}
+            />
           </Grid.Col>
           <Grid.Col span={{ base: 12, md: 8 }}>
             {chosen.length === 0 && (
@@ -167,12 +178,19 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
                 Enter the supply range, the load current and the ambient, then press {chosen.length > 1 ? `Check ${chosen.length} parts` : 'Check circuit'}.
               </Alert>
             )}
-            {chosen.some((c) => !c.cleared) && circuit && (
+            {chosen.some((c) => !c.cleared) && circuit && !stale && (
               <Alert color="orange" mb="sm" title="Not cleared for new designs">
                 {chosen.filter((c) => !c.cleared).map((c) => c.vendorPart.mpn).join(', ')} {chosen.filter((c) => !c.cleared).length > 1 ? 'are' : 'is'} not cleared: the check shows how it would behave, but a component engineer must qualify it before it is designed in.
               </Alert>
             )}
-            {circuit && chosen.length > 0 && (
+            {stale && chosen.length > 0 && (
+              <Alert color="gray" icon={<IconInfoCircle size={16} />} title="The circuit changed" data-testid="circuit-stale">
+                {typed === null
+                  ? 'Some values are missing or do not read, so the last results no longer apply. Correct them and check again.'
+                  : `The results of the last check were for other values. Press ${chosen.length > 1 ? `Check ${chosen.length} parts` : 'Check circuit'} to see this circuit.`}
+              </Alert>
+            )}
+            {circuit && !stale && chosen.length > 0 && (
               <Stack gap="md">
                 {chosen.length > 1 && <CircuitComparison parts={compared} />}
                 <Tabs value={activeId} onChange={setActive} keepMounted={false}>
