@@ -4,9 +4,10 @@ import { catalogue } from './2026-12-01-0002-catalogue';
 import { vendorPartListColumns } from './2026-12-01-0003-vendor-part-list-columns';
 import { qualifications } from './2026-12-01-0004-qualifications';
 import { qualificationRequests } from './2026-12-01-0005-qualification-requests';
+import { invitationRevoked } from './2026-12-04-0500-invitation-revoked';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
  * `YYYY-MM-DD-NNNN-what.ts`); never edit one that has landed.
  */
-export const MIGRATIONS: Migration[] = [usersAndMail, catalogue, vendorPartListColumns, qualifications, qualificationRequests];
+export const MIGRATIONS: Migration[] = [usersAndMail, catalogue, vendorPartListColumns, qualifications, qualificationRequests, invitationRevoked];
