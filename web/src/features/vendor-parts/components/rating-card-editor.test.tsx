@@ -105,7 +105,7 @@ describe('RatingCardEditor', () => {
     await user.click(screen.getByRole('button', { name: 'Use 5.10 V for VZ nom' }));
     expect(screen.getByLabelText(/^VZ nom \(/)).toHaveValue('5.1 V');
     expect(within(screen.getByTestId('provenance-vzNom')).getByText('Extracted')).toBeInTheDocument();
-    expect(within(screen.getByTestId('provenance-vzNom')).getByText('p. 2')).toBeInTheDocument();
+    expect(within(screen.getByTestId('provenance-vzNom')).getByText('page 2')).toBeInTheDocument();
     expect(onShowSource).toHaveBeenLastCalledWith(expect.objectContaining({ datasheetId: 7, page: 2, box }));
 
     // The rest in one go; the temperature coefficient keeps the unit the datasheet used.
