@@ -113,6 +113,14 @@ describe('app shell in Chromium', () => {
       for (const path of paths) {
         await page.goto(path);
         await audit(page, `${who}${path.replace(/\//g, '-')}`, findings);
+        if (path === '/sources') {
+          // At 1024 px, beside the navigation, every column of Sources is in view (no hidden scroll).
+          const [needs, has] = await page.evaluate(() => {
+            const table = document.querySelector('table[aria-label="Sources"]') as HTMLElement;
+            return [table.scrollWidth, table.parentElement!.clientWidth];
+          });
+          if (needs > has) findings.push(`${who} sources @1024: the table needs ${needs} px of ${has} px`);
+        }
       }
       if (who === 'engineer') {
         for (const [list, selector] of DETAILS) {
