@@ -31,6 +31,7 @@ export * from './qualifications/source-standing';
 export * from './qualifications/sources-view.schema';
 export * from './search/search.schema';
 export * from './units/bounds';
+export * from './units/field-labels';
 export * from './units/format';
 export * from './units/parse';
 export * from './units/quantity';

@@ -47,7 +47,7 @@ export class AuthService {
 
   async findInvitation(token: string) {
     const invitation = await this.users.findInvitationByHash(hashToken(token));
-    if (!invitation || invitation.acceptedAt || invitation.expiresAt.getTime() < Date.now()) {
+    if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt.getTime() < Date.now()) {
       throw new NotFoundException('This invitation is unknown, already used or expired; ask an admin for a new one');
     }
     return { email: invitation.email, name: invitation.name, role: invitation.role, expiresAt: invitation.expiresAt.toISOString() };
@@ -58,7 +58,7 @@ export class AuthService {
     const passwordHash = await hashPassword(request.password);
     const user = await this.sequelize.transaction(async (transaction) => {
       const invitation = await this.users.findInvitationByHash(hashToken(request.token), transaction);
-      if (!invitation || invitation.acceptedAt || invitation.expiresAt.getTime() < Date.now()) {
+      if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt.getTime() < Date.now()) {
         throw new NotFoundException('This invitation is unknown, already used or expired; ask an admin for a new one');
       }
       await invitation.update({ acceptedAt: new Date() }, { transaction });

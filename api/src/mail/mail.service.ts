@@ -2,7 +2,8 @@ import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplica
 import { InjectModel } from '@nestjs/sequelize';
 import { createTransport, type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
-import { ENV, type Env } from '../config/env';
+import { ENV, publicUrl, type Env } from '../config/env';
+import { absoluteLinks } from './mail-links';
 import { OutgoingMail } from './outgoing-mail.model';
 
 export interface MailMessage {
@@ -52,11 +53,12 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
     this.transport.close();
   }
 
-  /** Writes the message to the outbox in the caller's transaction; it is sent after commit. */
+  /** Writes the message to the outbox in the caller's transaction; it is sent after commit. App paths in the body become absolute links (PUBLIC_URL). */
   async enqueue(message: MailMessage, transaction?: Transaction): Promise<OutgoingMail> {
     const recipients = [...new Set(message.to.map((t) => t.toLowerCase()))];
+    const body = absoluteLinks(message.body, publicUrl(this.env));
     const row = await this.outbox.create(
-      { recipients, subject: message.subject, body: message.body, kind: message.kind, nextAttemptAt: new Date() },
+      { recipients, subject: message.subject, body, kind: message.kind, nextAttemptAt: new Date() },
       { transaction },
     );
     const kick = () => {

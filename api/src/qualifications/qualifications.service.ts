@@ -440,6 +440,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       );
       return;
     }
+    if (isDecisionAction(action)) await this.mailPreparer(row, part, hp, link, user, transaction);
     if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'revoke') return;
     const to = await this.cases.buyerEmails(row.housePartId, transaction);
     if (to.length === 0) {
@@ -462,6 +463,31 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         kind: `qualification.${AUDIT_OF[action]}`,
         subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : 'cleared with conditions'}`,
         body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`].join('\n'),
+      },
+      transaction,
+    );
+  }
+
+  /** The engineer who prepared a case hears how it was decided (unless they decided it, or have left). */
+  private async mailPreparer(row: Qualification, part: string, hp: string, link: string, user: AuthUser, transaction: Transaction): Promise<void> {
+    if (row.preparedById === user.id) return;
+    const preparer = await this.cases.findUser(row.preparedById, transaction);
+    if (!preparer?.active) return;
+    const outcome = QUALIFICATION_STATE_LABELS[row.state];
+    await this.mail.enqueue(
+      {
+        to: [preparer.email],
+        kind: 'qualification.decided',
+        subject: `Case #${row.id} decided: ${part} for ${hp}: ${outcome}`,
+        body: [
+          `${user.name} decided case #${row.id} that you prepared: ${part} as a source of ${hp}.`,
+          `Decision: ${outcome}.`,
+          row.decisionText ? `${row.state === 'cleared-with-conditions' ? 'Conditions' : row.state === 'rejected' ? 'Reason' : 'Note'}: ${row.decisionText}` : '',
+          '',
+          `Open it in Shuntwise: ${link}`,
+        ]
+          .filter((line, i, all) => line !== '' || all[i - 1] !== '')
+          .join('\n'),
       },
       transaction,
     );

@@ -52,6 +52,10 @@ export class UsersRepository {
     return this.invitations.findAll({ order: [['createdAt', 'DESC']] });
   }
 
+  findInvitationById(id: number, transaction?: Transaction): Promise<Invitation | null> {
+    return this.invitations.findByPk(id, { transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  }
+
   findInvitationByHash(tokenHash: string, transaction?: Transaction): Promise<Invitation | null> {
     return this.invitations.findOne({ where: { tokenHash }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
   }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldWithValue as fw } from '../units/field-labels';
 import { tempCoSchema } from '../engineering/card.schema';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
@@ -69,7 +70,7 @@ export const searchQuerySchema = z
   })
   .superRefine((q, ctx) => {
     if (q.vzFrom !== undefined && q.vzTo !== undefined && q.vzFrom > q.vzTo) {
-      ctx.addIssue({ code: 'custom', path: ['vzFrom'], message: `vzFrom (${q.vzFrom} V) is above vzTo (${q.vzTo} V)` });
+      ctx.addIssue({ code: 'custom', path: ['vzFrom'], message: `${fw('vzFrom', q.vzFrom)} is above ${fw('vzTo', q.vzTo)}` });
     }
     if (q.vzWindow && q.vzFrom === undefined && q.vzTo === undefined) {
       ctx.addIssue({ code: 'custom', path: ['vzWindow'], message: 'vzWindow needs vzFrom or vzTo: the window is checked against that range' });

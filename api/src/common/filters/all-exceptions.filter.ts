@@ -1,5 +1,5 @@
 import { ArgumentsHost, Catch, HttpException, HttpStatus, Logger, type ExceptionFilter } from '@nestjs/common';
-import type { ErrorBody } from '@shuntwise/contracts';
+import { fieldName, issueMessage, type ErrorBody, type LabelledIssue } from '@shuntwise/contracts';
 import type { Response } from 'express';
 import { ZodValidationException } from 'nestjs-zod';
 import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError } from 'sequelize';
@@ -65,11 +65,18 @@ export class AllExceptionsFilter implements ExceptionFilter {
   }
 
   private fromZod(error: ZodError): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
-    const errors = error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }));
+    // Messages in the form's words (labels, prefixed values), from the contracts' one map.
+    const errors = error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: issueMessage(i as LabelledIssue) }));
     const first = errors[0];
     return {
       status: HttpStatus.BAD_REQUEST,
-      body: { message: first ? `Invalid request: ${first.path}: ${first.message}` : 'Invalid request', errors },
+      body: { message: first ? `Invalid request: ${named(first.path, first.message)}` : 'Invalid request', errors },
     };
   }
+}
+
+/** A message with the field's label in front unless it names it already. */
+function named(path: string, message: string): string {
+  const name = fieldName(path);
+  return message.includes(name) ? message : `${name}: ${message}`;
 }

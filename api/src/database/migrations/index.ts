@@ -9,6 +9,7 @@ import { measurementSets } from './2026-12-04-0700-measurement-sets';
 import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-from-decisions';
 import { textGrams } from './2026-12-04-0400-text-grams';
 import { vzToleranceColumn } from './2026-12-04-0401-vz-tolerance';
+import { invitationRevoked } from './2026-12-04-0500-invitation-revoked';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -25,4 +26,5 @@ export const MIGRATIONS: Migration[] = [
   sourceStandingFromDecisions,
   textGrams,
   vzToleranceColumn,
+  invitationRevoked,
 ];

@@ -94,7 +94,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               <Anchor component="button" type="button" fz="xs" c="verdigris" onClick={() => onShowSource(suggestion)} aria-label={`${meta.symbol} as printed on page ${suggestion.page}`}>
                 <Group gap={2} wrap="nowrap">
                   <IconCheck size={14} />
-                  p. {suggestion.page}
+                  page {suggestion.page}
                 </Group>
               </Anchor>
             </Tooltip>
@@ -116,7 +116,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
                 </Button>
               </Tooltip>
               <Anchor component="button" type="button" fz="xs" onClick={() => onShowSource(suggestion)} aria-label={`Show ${meta.symbol} on page ${suggestion.page}`}>
-                p. {suggestion.page}
+                page {suggestion.page}
               </Anchor>
             </Group>
           ))}
@@ -129,7 +129,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
             </Badge>
             {location && (
               <Anchor component="button" type="button" fz="xs" onClick={showLocation} aria-label={`Show the source of ${meta.symbol}, page ${location.page}`} style={{ flexShrink: 0 }}>
-                p. {location.page}
+                page {location.page}
               </Anchor>
             )}
             <Text
