@@ -71,7 +71,7 @@ async function load(sequelize: Sequelize): Promise<void> {
     await insert(`INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${Array.from({ length: cards.length / 2 }, () => '(?, 1, ?, NOW(), NOW())').join(', ')}`, cards);
   }
 
-  // House parts, each with an approved source and four alternates; three of these carry cases.
+  // House parts, each with an approved source (approved by its case) and four alternates; three of these carry cases.
   const houseParts: unknown[] = [];
   for (let h = 1; h <= HOUSE_PARTS; h++) houseParts.push(h, `HP-${String(h).padStart(5, '0')}`, `Regulator diode, invented bench part ${h}, ${['clamp', 'reference', 'shunt regulator', 'gate protection'][h % 4]}`);
   await insert(`INSERT INTO house_parts (id, part_number, description, status, created_at, updated_at) VALUES ${Array.from({ length: HOUSE_PARTS }, () => "(?, ?, ?, 'active', NOW(), NOW())").join(', ')}`, houseParts);
@@ -95,10 +95,13 @@ async function load(sequelize: Sequelize): Promise<void> {
   };
   let caseId = 0;
   for (let h = 1; h <= HOUSE_PARTS; h++) {
-    sources.push(h, pickPart(), 'approved');
+    const reference = pickPart();
+    sources.push(h, reference);
+    caseId++;
+    cases.push(caseId, h, reference, 1, 'approved', null, 1);
     for (let a = 0; a < ALTERNATES; a++) {
       const vp = pickPart();
-      sources.push(h, vp, 'alternate');
+      sources.push(h, vp);
       if (a === ALTERNATES - 1) continue;
       const state = pickState();
       const decided = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'].includes(state);
@@ -111,9 +114,9 @@ async function load(sequelize: Sequelize): Promise<void> {
       }
     }
   }
-  for (let i = 0; i < sources.length; i += 3000) {
-    const chunk = sources.slice(i, i + 3000);
-    await insert(`INSERT INTO house_part_sources (house_part_id, vendor_part_id, role, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 3 }, () => '(?, ?, ?, NOW(), NOW())').join(', ')}`, chunk);
+  for (let i = 0; i < sources.length; i += 2000) {
+    const chunk = sources.slice(i, i + 2000);
+    await insert(`INSERT INTO house_part_sources (house_part_id, vendor_part_id, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 2 }, () => '(?, ?, NOW(), NOW())').join(', ')}`, chunk);
   }
   for (let i = 0; i < cases.length; i += 7 * 500) {
     const chunk = cases.slice(i, i + 7 * 500);

@@ -137,14 +137,15 @@ describe('CSV import and export (real MariaDB)', () => {
   it('exports house parts with their sources for buyers', async () => {
     const hp = await createHousePart(t.http, engineer, 'OHI-ZD-EXP', 'Regulator diode 5.1 V, export test');
     const vp = (await t.http.get('/api/vendor-parts?mpn=ODW-5V1').set(auth(engineer))).body.items[0].id;
-    await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, role: 'approved', note: 'reference' });
+    // A link is a candidate: the export says alternate until a decision approves it.
+    await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, note: 'reference' });
     await createHousePart(t.http, engineer, 'OHI-ZD-NOSRC');
     const res = await t.http.get('/api/exports/house-parts').set(auth(buyer));
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/filename="shuntwise-house-parts-and-sources-\d{4}-\d{2}-\d{2}\.csv"/);
     const records = parse(res.text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(records.find((r) => r.partNumber === 'OHI-ZD-EXP')).toMatchObject({ sourceRole: 'approved', manufacturer: 'Ostrander Components', mpn: 'ODW-5V1', cardVersion: '1', sourceNote: 'reference' });
+    expect(records.find((r) => r.partNumber === 'OHI-ZD-EXP')).toMatchObject({ sourceRole: 'alternate', manufacturer: 'Ostrander Components', mpn: 'ODW-5V1', cardVersion: '1', sourceNote: 'reference' });
     expect(records.find((r) => r.partNumber === 'OHI-ZD-NOSRC')).toMatchObject({ sourceRole: '', mpn: '' });
   });
 });

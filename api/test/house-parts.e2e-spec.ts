@@ -134,15 +134,15 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect((await t.http.get(`/api/house-parts/${id}/spec`).set(auth(engineer))).body.version).toBe(1);
   });
 
-  it('links vendor parts as sources; buyers read them, only engineers and admins change them', async () => {
+  it('links vendor parts as candidates; buyers read them, only engineers change them', async () => {
     const housePartId = await createHousePart(t.http, engineer, 'HP-SRC-1');
-    const approved = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ5V1-T', package: 'SOD-123' });
+    const first = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ5V1-T', package: 'SOD-123' });
     const alternate = await createVendorPart(t.http, engineer, { manufacturer: 'Brackenford Devices', mpn: 'BRZ-5V1', package: 'SOD-323' });
 
-    const a = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: approved, role: 'approved' });
+    const a = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: first });
     expect(a.status).toBe(201);
-    expect(a.body).toMatchObject({ housePartId, vendorPartId: approved, manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ5V1-T', role: 'approved', cardVersion: null });
-    await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: alternate, note: 'cheaper' });
+    expect(a.body).toMatchObject({ housePartId, vendorPartId: first, manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ5V1-T', role: 'alternate', cardVersion: null });
+    await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: alternate, role: 'alternate', note: 'cheaper' });
     const dup = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: alternate });
     expect(dup.status).toBe(409);
     expect(dup.body.message).toMatch(/already a source/);
@@ -151,16 +151,56 @@ describe('house parts, specs and sources (real MariaDB)', () => {
 
     const list = await t.http.get(`/api/house-parts/${housePartId}/sources`).set(auth(buyer));
     expect(list.status).toBe(200);
-    expect(list.body.map((s: { mpn: string; role: string }) => `${s.role} ${s.mpn}`)).toEqual(['approved AMZ5V1-T', 'alternate BRZ-5V1']);
+    expect(list.body.map((s: { mpn: string; role: string }) => `${s.role} ${s.mpn}`)).toEqual(['alternate AMZ5V1-T', 'alternate BRZ-5V1']);
     expect((await t.http.get(`/api/house-parts/${housePartId}`).set(auth(buyer))).body.sourceCount).toBe(2);
 
-    const patched = await t.http.patch(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer)).send({ role: 'approved', note: null });
-    expect(patched.body).toMatchObject({ role: 'approved', note: null });
-    expect((await t.http.get(`/api/vendor-parts/${alternate}`).set(auth(buyer))).body.sourceOf).toEqual([{ housePartId, partNumber: 'HP-SRC-1', role: 'approved' }]);
+    const patched = await t.http.patch(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer)).send({ note: null });
+    expect(patched.body).toMatchObject({ role: 'alternate', note: null });
+    expect((await t.http.get(`/api/vendor-parts/${alternate}`).set(auth(buyer))).body.sourceOf).toEqual([{ housePartId, partNumber: 'HP-SRC-1', role: 'alternate' }]);
 
     expect((await t.http.delete(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(buyer))).status).toBe(403);
     expect((await t.http.delete(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer))).status).toBe(204);
     expect((await t.http.delete(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer))).status).toBe(404);
     expect((await t.http.get(`/api/house-parts/${housePartId}/sources`).set(auth(buyer))).body).toHaveLength(1);
   });
+
+  it('refuses to set a standing through the sources routes, naming the field, and changes nothing a buyer sees', async () => {
+    const admin = await t.tokenFor('admin');
+    const reviewer = await t.tokenFor('reviewer@demo.test');
+    const housePartId = await createHousePart(t.http, engineer, 'HP-SIDE-1');
+    const linked = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ-SIDE-A', package: 'SOD-123' });
+    const other = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ-SIDE-B', package: 'SOD-123' });
+    expect((await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: linked })).status).toBe(201);
+    const snapshot = async () => ({
+      sources: (await t.http.get(`/api/house-parts/${housePartId}/sources`).set(auth(buyer))).body,
+      view: (await t.http.get(`/api/qualifications/sources?housePartId=${housePartId}`).set(auth(buyer))).body,
+      cases: await t.select('SELECT id FROM qualifications WHERE house_part_id = ?', [housePartId]),
+      mail: (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM outgoing_mail'))[0].n,
+    });
+    const before = await snapshot();
+
+    for (const token of [engineer, reviewer]) {
+      for (const role of ['approved', 'alternate', 'cleared']) {
+        const patch = await t.http.patch(`/api/house-parts/${housePartId}/sources/${linked}`).set(auth(token)).send({ role });
+        expect(patch.status).toBe(400);
+        expect(patch.body.errors).toEqual([expect.objectContaining({ path: 'role', message: expect.stringMatching(/only by a second engineer's decision on its qualification case/) })]);
+      }
+      const post = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(token)).send({ vendorPartId: other, role: 'approved' });
+      expect(post.status).toBe(400);
+      expect(post.body.errors).toEqual([expect.objectContaining({ path: 'role', message: expect.stringMatching(/a source's role is not set here/) })]);
+    }
+    // an admin may not even try: the catalogue is the engineers'
+    expect((await t.http.patch(`/api/house-parts/${housePartId}/sources/${linked}`).set(auth(admin)).send({ role: 'approved' })).status).toBe(403);
+    expect((await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(admin)).send({ vendorPartId: other, role: 'approved' })).status).toBe(403);
+
+    const after = await snapshot();
+    expect(after).toEqual(before);
+    expect(after.view.items[0].sources).toEqual([expect.objectContaining({ role: 'alternate', standing: 'not-qualified', caseId: null })]);
+    // and the designers' search does not offer it
+    const designer = await t.tokenFor('designer');
+    const found = await t.http.get('/api/search?q=AMZ-SIDE').set(auth(designer));
+    expect(found.status).toBe(200);
+    expect(found.body.items).toEqual([]);
+  });
+
 });

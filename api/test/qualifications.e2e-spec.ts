@@ -513,22 +513,81 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect((await t.http.delete(`/api/house-parts/${housePartId}/buyers/${buyerId}`).set(auth(buyer))).status).toBe(404);
   });
 
+  it('makes a source the approved source only by the approval of a second engineer, with its audit entry and mail to the buyers; a revocation ends it', async () => {
+    const ids = await pair();
+    expect((await t.http.post(`/api/house-parts/${ids.housePartId}/buyers`).set(auth(engineer)).send({ userId: buyerId })).status).toBe(201);
+    const c = await inReview(ids);
+    // the preparer may not approve their own case; nor may an admin, a designer or a buyer
+    const self = await act(c.id, 'approve', {}, engineer);
+    expect(self.status).toBe(403);
+    expect(self.body.message).toMatch(/two-person rule/);
+    for (const token of [admin, designer, buyer]) expect((await act(c.id, 'approve', {}, token)).status).toBe(403);
+    const view = async () => (await t.http.get(`/api/qualifications/sources?housePartId=${ids.housePartId}`).set(auth(buyer))).body.items[0].sources[0];
+    expect(await view()).toMatchObject({ role: 'alternate', standing: 'in-review' });
+    expect((await t.http.get(`/api/qualifications/${c.id}`).set(auth(reviewer))).body.allowedActions).toEqual(expect.arrayContaining(['approve', 'clear']));
+    expect((await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body.allowedActions).not.toContain('approve');
+
+    const approved = await act(c.id, 'approve', { note: 'reference part of the spec' }, reviewer);
+    expect(approved.status).toBe(200);
+    expect(approved.body).toMatchObject({ state: 'approved', sourceRole: 'approved', decision: { state: 'approved', by: { name: 'Tomas Eklund' }, text: 'reference part of the spec' } });
+    expect(approved.body.preparedBy.name).toBe('Priya Raman');
+    expect(approved.body.audit.at(-1)).toMatchObject({ action: 'approved', by: { name: 'Tomas Eklund' }, fromState: 'in-review', toState: 'approved' });
+    expect(await view()).toMatchObject({ role: 'approved', standing: 'approved', caseId: c.id, decidedBy: { name: 'Tomas Eklund' }, since: expect.any(String) });
+    expect((await t.http.get(`/api/house-parts/${ids.housePartId}/sources`).set(auth(buyer))).body[0]).toMatchObject({ role: 'approved' });
+    const mail = t.stack.app.get(MailService);
+    const told = await eventually(async () => {
+      await mail.flush();
+      return (await t.capturedMail()).find((m) => m.subject === `HPQ-${n}: Fennick Semiconductor FZ-${n} approved as the approved source`);
+    });
+    expect(told.recipients).toEqual(['buyer@demo.test']);
+    expect(told.body).toMatch(/Tomas Eklund approved Fennick Semiconductor FZ-\d+ as the approved source of HPQ-\d+/);
+    // designers find it, approved
+    const found = (await t.http.get(`/api/search?q=FZ-${n}&housePartId=${ids.housePartId}`).set(auth(designer))).body.items;
+    expect(found.map((i: { vendorPart: { mpn: string } }) => i.vendorPart.mpn)).toContain(`FZ-${n}`);
+    // while it stands, unlinking it is refused: only a decision ends it
+    const unlink = await t.http.delete(`/api/house-parts/${ids.housePartId}/sources/${ids.vendorPartId}`).set(auth(engineer));
+    expect(unlink.status).toBe(409);
+    expect(unlink.body.message).toMatch(/revoke it on that case first/);
+
+    expect((await act(c.id, 'revoke', { reason: 'vendor moved the wafer fab' }, engineer)).status).toBe(200);
+    expect(await view()).toMatchObject({ role: 'alternate', standing: 'revoked' });
+    const after = (await t.http.get(`/api/search?q=FZ-${n}&housePartId=${ids.housePartId}`).set(auth(designer))).body.items;
+    expect(after).toEqual([]);
+  });
+
+  it('approves only an evaluation short of a fail, and one short of a pass only with a note', async () => {
+    // the card's own window as the spec: margin 0 %, marginal (as in the clearing test above)
+    const marginal = await inReview(await pair(demoSpec(), demoCardFields()));
+    const bare = await act(marginal.id, 'approve', {}, reviewer);
+    expect(bare.status).toBe(422);
+    expect(bare.body.errors).toEqual([expect.objectContaining({ path: 'note' })]);
+    const noted = await act(marginal.id, 'approve', { note: 'spec drawn tight around this part' }, reviewer);
+    expect(noted.status).toBe(200);
+    expect(noted.body).toMatchObject({ state: 'approved', overall: 'marginal', decision: { text: 'spec drawn tight around this part' } });
+
+    const failing = await inReview(await pair(passingSpec(), passingCard(), 'SMA'));
+    const refused = await act(failing.id, 'approve', { note: 'use anyway' }, reviewer);
+    expect(refused.status).toBe(422);
+    expect(refused.body.message).toMatch(/fails \(Fails: package\).*cannot be approved/);
+  });
+
   it('answers the Board with sources and latest states, filtered by state, engineer and age', async () => {
     const a = await pair();
     const c = await inReview(a);
     const b = { housePartId: a.housePartId, vendorPartId: await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: `FZ-${n}-N`, package: 'SOD-123' }) };
-    await t.http.post(`/api/house-parts/${b.housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: b.vendorPartId, role: 'approved' });
+    await t.http.post(`/api/house-parts/${b.housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: b.vendorPartId });
     const q = encodeURIComponent(`HPQ-${n}`);
 
     const all = await t.http.get(`/api/qualifications/board?q=${q}`).set(auth(engineer));
     expect(all.status).toBe(200);
     expect(all.body.items).toHaveLength(1);
     expect(all.body.items[0].housePart).toMatchObject({ id: a.housePartId, specVersion: 1 });
+    // a link is a candidate: no role but alternate before a decision
     expect(all.body.items[0].sources.map((s: { role: string; state: string }) => [s.role, s.state])).toEqual([
-      ['approved', 'none'],
       ['alternate', 'in-review'],
+      ['alternate', 'none'],
     ]);
-    expect(all.body.items[0].sources[1].latestCase).toMatchObject({ id: c.id, state: 'in-review', preparedBy: { name: 'Priya Raman' }, ageDays: 0 });
+    expect(all.body.items[0].sources[0].latestCase).toMatchObject({ id: c.id, state: 'in-review', preparedBy: { name: 'Priya Raman' }, ageDays: 0 });
     expect(all.body.counts).toMatchObject({ none: 1, 'in-review': 1, cleared: 0 });
 
     const none = await t.http.get(`/api/qualifications/board?q=${q}&state=none`).set(auth(engineer));
@@ -540,9 +599,9 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const old = await t.http.get(`/api/qualifications/board?q=${q}&minAgeDays=7`).set(auth(admin));
     expect(old.body.items[0].sources).toHaveLength(1);
     expect(old.body.items[0].sources[0].latestCase.ageDays).toBeGreaterThanOrEqual(9);
-    const bad = await t.http.get('/api/qualifications/board?state=approved').set(auth(engineer));
+    const bad = await t.http.get('/api/qualifications/board?state=granted').set(auth(engineer));
     expect(bad.status).toBe(400);
-    expect(bad.body.message).toMatch(/unknown state in "approved"/);
+    expect(bad.body.message).toMatch(/unknown state in "granted"/);
   });
 
   it('publishes its routes and schemas at /api/docs', async () => {

@@ -32,20 +32,21 @@ describe('search (real MariaDB, demo seed)', () => {
 
   let usableFromSources: Set<string>;
 
+  // The demo seed now approves every approved source through its case: give it time on a busy machine.
   beforeAll(async () => {
     t = await createTestApp({ seed: 'demo' });
     [designer, engineer] = await Promise.all([t.tokenFor('designer'), t.tokenFor('engineer@demo.test')]);
-    // The engineers' Sources view, independently of the search's SQL: approved sources not
-    // rejected or revoked, and alternates standing cleared.
+    // The engineers' Sources view, independently of the search's SQL: sources standing
+    // approved (by a decision) or cleared.
     const view = (await t.http.get('/api/qualifications/sources').set(auth(engineer))).body as SourcesView;
     usableFromSources = new Set(
       view.items.flatMap((h) =>
         h.sources
-          .filter((s) => s.standing === 'cleared' || s.standing === 'cleared-with-conditions' || (s.role === 'approved' && !['rejected', 'revoked'].includes(s.standing)))
+          .filter((s) => s.standing === 'approved' || s.standing === 'cleared' || s.standing === 'cleared-with-conditions')
           .map((s) => s.vendorPart.mpn),
       ),
     );
-  });
+  }, 240_000);
   afterAll(() => t.close());
 
   it('lists only usable parts by default, exactly those the Sources view stands cleared or approved', async () => {
@@ -84,7 +85,10 @@ describe('search (real MariaDB, demo seed)', () => {
     expect(flagged.clearances).toEqual([expect.objectContaining({ standing: 'cleared', needsRecheck: true, housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1120' }) })]);
 
     const approved = (await search('q=BRZ05-4V7')).items.find((i) => i.vendorPart.mpn === 'BRZ05-4V7')!;
-    expect(approved.clearances).toEqual([expect.objectContaining({ standing: 'approved', caseId: null, housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1047' }) })]);
+    // approved by a decision: the case, who and since when
+    expect(approved.clearances).toEqual([
+      expect.objectContaining({ standing: 'approved', caseId: expect.any(Number), decidedBy: expect.objectContaining({ name: 'Tomas Eklund' }), housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1047' }) }),
+    ]);
     expect(approved.clearances[0].since).toEqual(expect.any(String));
   });
 

@@ -25,6 +25,7 @@ export * from './qualifications/house-part-buyers.schema';
 export * from './qualifications/qualification-request.schema';
 export * from './qualifications/qualification-state.schema';
 export * from './qualifications/qualification.schema';
+export * from './qualifications/source-standing';
 export * from './qualifications/sources-view.schema';
 export * from './search/search.schema';
 export * from './units/bounds';

@@ -19,7 +19,7 @@ export class CatalogueCsvController {
 
   /** Reads the CSV and says what a confirm would do, row by row; writes nothing. */
   @Post('imports/vendor-series/preview')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @RateLimit('upload')
   @HttpCode(200)
   @ApiOkResponse({ type: CsvImportPreviewDto })
@@ -29,7 +29,7 @@ export class CatalogueCsvController {
 
   /** Writes the same CSV: every row or none. */
   @Post('imports/vendor-series')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @RateLimit('upload')
   @ApiCreatedResponse({ type: CsvImportResultDto })
   confirm(@Body() body: CsvImportDto, @CurrentUser() user: AuthUser) {

@@ -15,7 +15,7 @@ export class DatasheetsController {
   constructor(private readonly datasheets: DatasheetsService) {}
 
   @Post()
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @RateLimit('upload')
   @UseInterceptors(DatasheetUploadInterceptor)
   @ApiConsumes('multipart/form-data')
@@ -59,7 +59,7 @@ export class DatasheetsController {
   }
 
   @Post(':id/variants')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: CreateVariantsResponseDto })
   variants(@Param('id', ParseIntPipe) id: number, @Body() body: CreateVariantsDto, @CurrentUser() user: AuthUser) {
     return this.datasheets.createVariants(id, body, user);

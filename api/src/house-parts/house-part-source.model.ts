@@ -1,11 +1,12 @@
-import type { SourceRole } from '@shuntwise/contracts';
-import { SOURCE_ROLES } from '@shuntwise/contracts';
 import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { User } from '../users/user.model';
 import { VendorPart } from '../vendor-parts/vendor-part.model';
 import { HousePart } from './house-part.model';
 
-/** A vendor part linked to a house part as a source (approved or alternate). */
+/**
+ * A vendor part linked to a house part as a source: a candidate until decisions on its
+ * qualification cases give it a standing (the role lists show is derived, never stored).
+ */
 @Table({ tableName: 'house_part_sources', underscored: true })
 export class HousePartSource extends Model {
   @ForeignKey(() => HousePart)
@@ -21,9 +22,6 @@ export class HousePartSource extends Model {
 
   @BelongsTo(() => VendorPart, 'vendorPartId')
   declare vendorPart?: VendorPart;
-
-  @Column({ type: DataType.ENUM(...SOURCE_ROLES), allowNull: false })
-  declare role: SourceRole;
 
   @Column({ type: DataType.STRING(500), allowNull: true })
   declare note: string | null;

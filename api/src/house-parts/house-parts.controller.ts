@@ -32,7 +32,7 @@ export class HousePartsController {
   }
 
   @Post()
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: HousePartDto })
   create(@Body() body: CreateHousePartDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.create(body, user);
@@ -46,7 +46,7 @@ export class HousePartsController {
   }
 
   @Patch(':id')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiOkResponse({ type: HousePartDto })
   update(@Param('id', ParseIntPipe) id: number, @Body() body: UpdateHousePartDto) {
     return this.houseParts.update(id, body);
@@ -60,7 +60,7 @@ export class HousePartsController {
   }
 
   @Put(':id/spec')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiOkResponse({ type: SpecVersionDto })
   putSpec(@Param('id', ParseIntPipe) id: number, @Body() body: PutSpecDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.putSpec(id, body, user);
@@ -81,21 +81,21 @@ export class HousePartsController {
   }
 
   @Post(':id/sources')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: SourceDto })
   addSource(@Param('id', ParseIntPipe) id: number, @Body() body: AddSourceDto, @CurrentUser() user: AuthUser) {
     return this.houseParts.addSource(id, body, user);
   }
 
   @Patch(':id/sources/:vendorPartId')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiOkResponse({ type: SourceDto })
   updateSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number, @Body() body: UpdateSourceDto) {
     return this.houseParts.updateSource(id, vendorPartId, body);
   }
 
   @Delete(':id/sources/:vendorPartId')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @HttpCode(204)
   @ApiNoContentResponse()
   removeSource(@Param('id', ParseIntPipe) id: number, @Param('vendorPartId', ParseIntPipe) vendorPartId: number) {

@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { HousePartListQuery, HousePartSort, HousePartStatus, SortTerm, Spec } from '@shuntwise/contracts';
+import type { HousePartListQuery, HousePartSort, HousePartStatus, QualificationState, SortTerm, Spec } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { DECIDED_SQL, sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
 import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 import { HousePartSource } from './house-part-source.model';
@@ -29,6 +30,7 @@ export interface SourceRow {
   mpn: string;
   package: string | null;
   lifecycleNote: string | null;
+  /** Derived from the decisions on the pair's cases (sourceRoleSql). */
   role: 'approved' | 'alternate';
   note: string | null;
   cardVersion: number | null;
@@ -51,7 +53,7 @@ const SELECT_ROW = `SELECT h.id, h.part_number AS partNumber, h.description, h.s
 FROM house_parts h LEFT JOIN users u ON u.id = h.created_by_id`;
 
 const SELECT_SOURCE = `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, m.name AS manufacturer, vp.mpn,
-  vp.package, vp.lifecycle_note AS lifecycleNote, s.role, s.note, rc.version AS cardVersion,
+  vp.package, vp.lifecycle_note AS lifecycleNote, ${sourceRoleSql('s')} AS role, s.note, rc.version AS cardVersion,
   s.added_by_id AS addedById, u.name AS addedByName, s.created_at AS createdAt, s.updated_at AS updatedAt
 FROM house_part_sources s
 JOIN vendor_parts vp ON vp.id = s.vendor_part_id
@@ -137,7 +139,7 @@ export class HousePartsRepository {
   }
 
   async listSources(housePartId: number): Promise<SourceRow[]> {
-    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} WHERE s.house_part_id = ? ORDER BY s.role = 'approved' DESC, m.name, vp.mpn`, {
+    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} WHERE s.house_part_id = ? ORDER BY ${sourceRoleSql('s')} = 'approved' DESC, m.name, vp.mpn`, {
       replacements: [housePartId],
       type: QueryTypes.SELECT,
     });
@@ -154,18 +156,27 @@ export class HousePartsRepository {
 
   /** Every source of every house part (exports), house-part-number order. */
   async listAllSources(): Promise<SourceRow[]> {
-    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} ORDER BY s.house_part_id, s.role = 'approved' DESC, m.name, vp.mpn`, { type: QueryTypes.SELECT });
+    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} ORDER BY s.house_part_id, ${sourceRoleSql('s')} = 'approved' DESC, m.name, vp.mpn`, { type: QueryTypes.SELECT });
   }
 
-  findSource(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<HousePartSource | null> {
-    return this.sources.findOne({ where: { housePartId, vendorPartId }, transaction });
+  findSource(housePartId: number, vendorPartId: number, transaction?: Transaction, lock = false): Promise<HousePartSource | null> {
+    return this.sources.findOne({ where: { housePartId, vendorPartId }, transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
   }
 
-  createSource(values: { housePartId: number; vendorPartId: number; role: 'approved' | 'alternate'; note: string | null; addedById: number | null }, transaction?: Transaction): Promise<HousePartSource> {
+  /** The latest decided case of a source, the one its standing comes from (null before any decision). */
+  async latestDecision(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<{ id: number; state: QualificationState } | null> {
+    const [row] = await this.sequelize.query<{ id: number; state: QualificationState }>(
+      `SELECT d.id, d.state FROM qualifications d WHERE d.house_part_id = ? AND d.vendor_part_id = ? AND d.state IN ${DECIDED_SQL} ORDER BY d.revision DESC LIMIT 1`,
+      { replacements: [housePartId, vendorPartId], type: QueryTypes.SELECT, transaction },
+    );
+    return row ?? null;
+  }
+
+  createSource(values: { housePartId: number; vendorPartId: number; note: string | null; addedById: number | null }, transaction?: Transaction): Promise<HousePartSource> {
     return this.sources.create(values, { transaction });
   }
 
-  async updateSource(source: HousePartSource, values: Partial<Pick<HousePartSource, 'role' | 'note'>>, transaction?: Transaction): Promise<void> {
+  async updateSource(source: HousePartSource, values: Partial<Pick<HousePartSource, 'note'>>, transaction?: Transaction): Promise<void> {
     await source.update(values, { transaction });
   }
 

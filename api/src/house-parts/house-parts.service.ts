@@ -1,19 +1,21 @@
 import { isDeepStrictEqual } from 'node:util';
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type {
-  AddSourceRequest,
-  CreateHousePartRequest,
-  HousePart as HousePartDto,
-  HousePartListQuery,
-  Page,
-  PutSpecRequest,
-  Source,
-  Spec,
-  SpecVersion,
-  SpecVersionSummary,
-  UpdateHousePartRequest,
-  UpdateSourceRequest,
+import {
+  QUALIFICATION_STATE_LABELS,
+  isUsableState,
+  type AddSourceRequest,
+  type CreateHousePartRequest,
+  type HousePart as HousePartDto,
+  type HousePartListQuery,
+  type Page,
+  type PutSpecRequest,
+  type Source,
+  type Spec,
+  type SpecVersion,
+  type SpecVersionSummary,
+  type UpdateHousePartRequest,
+  type UpdateSourceRequest,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
@@ -131,7 +133,8 @@ export class HousePartsService {
     const vendorPart = await this.vendorParts.findById(request.vendorPartId);
     if (!vendorPart) throw new NotFoundException(`No vendor part with id ${request.vendorPartId}`);
     try {
-      await this.houseParts.createSource({ housePartId, vendorPartId: request.vendorPartId, role: request.role ?? 'alternate', note: request.note ?? null, addedById: user.id });
+      // A link only makes a candidate: the standing comes from decisions on its cases.
+      await this.houseParts.createSource({ housePartId, vendorPartId: request.vendorPartId, note: request.note ?? null, addedById: user.id });
     } catch (error) {
       if (error instanceof UniqueConstraintError) {
         throw new ConflictException(`${vendorPart.manufacturer!.name} ${vendorPart.mpn} is already a source of ${part.partNumber}`);
@@ -141,17 +144,32 @@ export class HousePartsService {
     return toSourceDto((await this.houseParts.findSourceRow(housePartId, request.vendorPartId))!);
   }
 
+  /** The link's note only: the request schema refuses a role, which only decisions give. */
   async updateSource(housePartId: number, vendorPartId: number, request: UpdateSourceRequest): Promise<Source> {
     const source = await this.houseParts.findSource(housePartId, vendorPartId);
     if (!source) throw new NotFoundException(`Vendor part ${vendorPartId} is not a source of house part ${housePartId}`);
-    await this.houseParts.updateSource(source, request);
+    if (request.note !== undefined) await this.houseParts.updateSource(source, { note: request.note });
     return toSourceDto((await this.houseParts.findSourceRow(housePartId, vendorPartId))!);
   }
 
+  /**
+   * Unlinks a candidate. A source that a decision made usable (approved, cleared) stays
+   * linked until a decision ends that (revoke): unlinking it would take it off the buyers'
+   * list with no decision, no audit entry and no mail. The link is locked first, as the
+   * decisions read it, so a decision and an unlink cannot cross.
+   */
   async removeSource(housePartId: number, vendorPartId: number): Promise<void> {
-    const source = await this.houseParts.findSource(housePartId, vendorPartId);
-    if (!source) throw new NotFoundException(`Vendor part ${vendorPartId} is not a source of house part ${housePartId}`);
-    await this.houseParts.deleteSource(source);
+    await this.sequelize.transaction(async (transaction) => {
+      const source = await this.houseParts.findSource(housePartId, vendorPartId, transaction, true);
+      if (!source) throw new NotFoundException(`Vendor part ${vendorPartId} is not a source of house part ${housePartId}`);
+      const decision = await this.houseParts.latestDecision(housePartId, vendorPartId, transaction);
+      if (decision && isUsableState(decision.state)) {
+        throw new ConflictException(
+          `Vendor part ${vendorPartId} is ${QUALIFICATION_STATE_LABELS[decision.state].toLowerCase()} for house part ${housePartId} by case #${decision.id}: revoke it on that case first (POST /api/qualifications/${decision.id}/revoke), which records why and tells the buyers`,
+        );
+      }
+      await this.houseParts.deleteSource(source, transaction);
+    });
   }
 }
 

@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { QualificationRequestState, QualificationState, SourceRole } from '@shuntwise/contracts';
+import type { QualificationRequestState, QualificationState } from '@shuntwise/contracts';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { QualificationRequest } from './qualification-request.model';
@@ -145,15 +145,13 @@ export class QualificationRequestsRepository {
     return row ?? null;
   }
 
-  /** Where a vendor part stands for a house part: its source role and its latest case, if any. */
-  async pairStanding(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<{ role: SourceRole | null; latestCase: { id: number; state: QualificationState } | null }> {
-    const [source] = await this.select<{ role: SourceRole }>('SELECT role FROM house_part_sources WHERE house_part_id = ? AND vendor_part_id = ?', [housePartId, vendorPartId], transaction);
-    const [latest] = await this.select<{ id: number; state: QualificationState }>(
-      'SELECT id, state FROM qualifications WHERE house_part_id = ? AND vendor_part_id = ? ORDER BY revision DESC LIMIT 1',
+  /** Every case of a vendor part for a house part (what its standing is read from), oldest revision first. */
+  pairCases(housePartId: number, vendorPartId: number, transaction?: Transaction): Promise<Array<{ id: number; revision: number; state: QualificationState }>> {
+    return this.select<{ id: number; revision: number; state: QualificationState }>(
+      'SELECT id, revision, state FROM qualifications WHERE house_part_id = ? AND vendor_part_id = ? ORDER BY revision',
       [housePartId, vendorPartId],
       transaction,
     );
-    return { role: source?.role ?? null, latestCase: latest ?? null };
   }
 
   async user(id: number, transaction?: Transaction): Promise<{ id: number; name: string; email: string; active: boolean } | null> {

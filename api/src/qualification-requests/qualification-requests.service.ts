@@ -10,7 +10,8 @@ import {
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
-  isClearedState,
+  isUsableState,
+  sourceStanding,
   isOpenState,
   type CreateQualificationRequestRequest,
   type DeclineQualificationRequest,
@@ -185,14 +186,14 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
 
   /** A request for a pair that is already cleared or under way is refused: there is nothing to ask for. */
   private async refuseAnswered(hp: { id: number; partNumber: string }, part: string, vendorPartId: number, transaction: Transaction): Promise<void> {
-    const { role, latestCase } = await this.requests.pairStanding(hp.id, vendorPartId, transaction);
-    if (latestCase && isClearedState(latestCase.state)) {
-      throw new ConflictException(`${part} is already ${QUALIFICATION_STATE_LABELS[latestCase.state].toLowerCase()} for ${hp.partNumber} (case #${latestCase.id}): you may design it in; Find parts shows its conditions`);
+    const { basis, openCase } = sourceStanding(await this.requests.pairCases(hp.id, vendorPartId, transaction));
+    if (basis && isUsableState(basis.state)) {
+      throw new ConflictException(`${part} is already ${QUALIFICATION_STATE_LABELS[basis.state].toLowerCase()} for ${hp.partNumber} (case #${basis.id}): you may design it in; Find parts shows its conditions`);
     }
-    if (latestCase && isOpenState(latestCase.state)) {
-      throw new ConflictException(`A qualification of ${part} for ${hp.partNumber} is already under way (case #${latestCase.id}); Find parts shows it once it is cleared`);
+    const underWay = openCase ?? (basis && isOpenState(basis.state) ? basis : null);
+    if (underWay) {
+      throw new ConflictException(`A qualification of ${part} for ${hp.partNumber} is already under way (case #${underWay.id}); Find parts shows it once it is cleared`);
     }
-    if (role === 'approved' && !latestCase) throw new ConflictException(`${part} is the approved source of ${hp.partNumber}: you may design it in`);
   }
 
   private async closed(row: QualificationRequest): Promise<ConflictException> {

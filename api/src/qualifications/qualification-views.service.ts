@@ -2,11 +2,11 @@ import { Readable } from 'node:stream';
 import { Injectable, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
 import {
   BOARD_STATES,
-  CLEARED_STATES,
   SOURCE_STANDING_LABELS,
   SOURCES_CSV_COLUMNS,
-  isDecidedState,
-  isOpenState,
+  isUsableStanding,
+  sourceRoleOf,
+  sourceStanding,
   toEngineeringCard,
   type BoardPage,
   type BoardQuery,
@@ -91,17 +91,16 @@ export class QualificationViewsService {
       casesByPair.set(key, [...(casesByPair.get(key) ?? []), c]);
     }
     // Designers see the sources they may design in: the approved ones and the cleared alternates.
-    const visible = (row: SourceStandingRow) => user.role !== 'designer' || row.role === 'approved' || (CLEARED_STATES as readonly string[]).includes(row.standing);
+    const visible = (row: SourceStandingRow) => user.role !== 'designer' || isUsableStanding(row.standing);
     const items: SourcesViewItem[] = heads.map((h) => ({
       housePart: { id: h.id, partNumber: h.partNumber, description: h.description, status: h.status },
       sources: sources
         .filter((s) => s.housePartId === h.id)
         .map(
-          (s): SourceStandingRow => ({
-            vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package },
-            role: s.role,
-            ...standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? [], s.role),
-          }),
+          (s): SourceStandingRow => {
+            const row = standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? []);
+            return { vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package }, role: sourceRoleOf(row.standing), ...row };
+          },
         )
         .filter(visible),
     }));
@@ -188,24 +187,17 @@ export class QualificationViewsService {
 }
 
 /**
- * Where a source stands from its cases (oldest revision first): the latest decided case if
- * any; else `approved` for the house part's approved source (the reference part, which
- * needs no case to be designed in); else the latest case, else not qualified. A newer open
- * case is shown beside it.
+ * A source's row in the Sources view from its cases: the standing `sourceStanding` (in
+ * contracts) reads from them, with the decision it comes from (who, when, on what
+ * conditions) and any newer case still open beside it.
  */
-export function standing(cases: readonly PairCaseRow[], role: SourceStandingRow['role'] = 'alternate'): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
-  const latest = cases.at(-1) ?? null;
-  const decided = [...cases].reverse().find((c) => isDecidedState(c.state)) ?? null;
-  if (!decided && role === 'approved') {
-    const openCase = latest && isOpenState(latest.state) ? { id: latest.id, state: latest.state } : null;
-    return { standing: 'approved', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase, needsRecheck: false };
-  }
-  const basis = decided ?? latest;
+export function standing(cases: readonly PairCaseRow[]): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
+  const { standing: value, basis, openCase } = sourceStanding(cases);
   if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
   const revoked = basis.state === 'revoked';
   return {
-    standing: basis.state as SourceStanding,
+    standing: value as SourceStanding,
     caseId: basis.id,
     revision: basis.revision,
     conditions: revoked ? basis.revokeReason : basis.decisionText,
@@ -217,7 +209,7 @@ export function standing(cases: readonly PairCaseRow[], role: SourceStandingRow[
       : basis.decidedById !== null
         ? { id: basis.decidedById, name: basis.decidedByName ?? '' }
         : null,
-    openCase: latest && latest !== basis && isOpenState(latest.state) ? { id: latest.id, state: latest.state } : null,
+    openCase: openCase ? { id: openCase.id, state: openCase.state } : null,
     needsRecheck: Boolean(basis.needsRecheck),
   };
 }

@@ -11,7 +11,7 @@ import { HousePart } from '../house-parts/house-part.model';
 import { User } from '../users/user.model';
 import { VendorPart } from '../vendor-parts/vendor-part.model';
 
-export type DecisionState = 'cleared' | 'cleared-with-conditions' | 'rejected';
+export type DecisionState = 'approved' | 'cleared' | 'cleared-with-conditions' | 'rejected';
 
 /**
  * One qualification case: a vendor part's card checked against a house part's spec, with
@@ -75,7 +75,7 @@ export class Qualification extends Model {
   @Column({ type: DataType.DATE, allowNull: true })
   declare submittedAt: Date | null;
 
-  @Column({ type: DataType.ENUM('cleared', 'cleared-with-conditions', 'rejected'), allowNull: true })
+  @Column({ type: DataType.ENUM('approved', 'cleared', 'cleared-with-conditions', 'rejected'), allowNull: true })
   declare decisionState: DecisionState | null;
 
   @ForeignKey(() => User)

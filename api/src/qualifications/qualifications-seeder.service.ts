@@ -41,6 +41,14 @@ interface DemoCase {
 
 const review: Step = { action: 'submit', by: 'preparer', body: {} };
 
+/** The invented demo catalogue (plain CommonJS), loaded when the demo is seeded. */
+function demoCatalogue(): ReturnType<typeof import('@shuntwise/test-fixtures').loadDemoCatalogue> {
+  return (require('@shuntwise/test-fixtures') as typeof import('@shuntwise/test-fixtures')).loadDemoCatalogue();
+}
+
+/** How long ago the demo's approved sources were approved (before every other case). */
+const APPROVED_DAYS_AGO = 120;
+
 /**
  * The demo's qualification cases: one in every state, prepared by the demo engineer and
  * decided by the second engineer, with comments and a full audit trail, plus one cleared
@@ -145,6 +153,9 @@ export class QualificationsSeeder {
     const who = { preparer, reviewer };
     let created = 0;
 
+    // The approved sources first, before any buyer follows the parts: the demo's history starts with them.
+    created += await this.approveReferenceSources(preparer, reviewer);
+
     // The demo buyer follows every house part, so decisions reach the demo outbox.
     const parts = await this.sequelize.query<{ id: number }>('SELECT id FROM house_parts ORDER BY id', { type: QueryTypes.SELECT });
     for (const { id } of parts) {
@@ -160,11 +171,11 @@ export class QualificationsSeeder {
         type: QueryTypes.SELECT,
       });
       if (existing) continue;
-      const opened = await this.service.create({ ...pair, summary: demo.summary }, preparer);
+      const opened = { id: await this.service.open({ ...pair, summary: demo.summary }, preparer) };
       for (const step of demo.steps) {
         const user = who[step.by];
         if (step.action === 'comment') await this.service.comment(opened.id, step.body!.text!, user);
-        else await this.service.act(opened.id, step.action, step.action === 'submit' ? { reviewerId: reviewer.id, ...step.body } : (step.body ?? {}), user);
+        else await this.service.apply(opened.id, step.action, step.action === 'submit' ? { reviewerId: reviewer.id, ...step.body } : (step.body ?? {}), user);
       }
       await this.backdate(opened.id, demo.daysAgo);
       if (demo.erratum) await this.correctCard(pair.vendorPartId, demo.erratum, preparer);
@@ -173,6 +184,31 @@ export class QualificationsSeeder {
     const seconds = (performance.now() - started) / 1000;
     this.logger.log(`demo qualifications: ${created} records added in ${seconds.toFixed(2)} s`);
     return { created, seconds };
+  }
+
+  /**
+   * Each approved source of the demo catalogue becomes one the only way there is: a case the
+   * demo engineer prepares and sends for review, and the second engineer approves (audit
+   * trail included). A pair that already has a case is left alone.
+   */
+  private async approveReferenceSources(preparer: AuthUser, reviewer: AuthUser): Promise<number> {
+    let created = 0;
+    for (const housePart of demoCatalogue().houseParts) {
+      for (const source of housePart.sources.filter((s) => s.role === 'approved')) {
+        const pair = await this.pair(housePart.partNumber, source.mpn);
+        const [existing] = await this.sequelize.query<{ id: number }>('SELECT id FROM qualifications WHERE house_part_id = ? AND vendor_part_id = ? LIMIT 1', {
+          replacements: [pair.housePartId, pair.vendorPartId],
+          type: QueryTypes.SELECT,
+        });
+        if (existing) continue;
+        const id = await this.service.open({ ...pair, summary: `Approved source of record for ${housePart.partNumber}: the part its spec was written from.` }, preparer);
+        await this.service.apply(id, 'submit', { reviewerId: reviewer.id }, preparer);
+        await this.service.apply(id, 'approve', { note: 'Reference part the spec was written from; any margin below is the spec drawn tight around it.' }, reviewer);
+        await this.backdate(id, APPROVED_DAYS_AGO);
+        created++;
+      }
+    }
+    return created;
   }
 
   private async user(email: string): Promise<AuthUser> {

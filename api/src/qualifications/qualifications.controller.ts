@@ -3,6 +3,7 @@ import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nest
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import {
+  ApproveDto,
   ClearDto,
   ClearWithConditionsDto,
   CommentDto,
@@ -61,7 +62,7 @@ export class QualificationsController {
   }
 
   @Post(':id/comments')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: QualificationDto })
   comment(@Param('id', ParseIntPipe) id: number, @Body() body: CommentDto, @CurrentUser() user: AuthUser) {
     return this.cases.comment(id, body.text, user);
@@ -89,6 +90,15 @@ export class QualificationsController {
   @ApiOkResponse({ type: QualificationDto })
   sendBack(@Param('id', ParseIntPipe) id: number, @Body() body: SendBackDto, @CurrentUser() user: AuthUser) {
     return this.cases.act(id, 'send-back', body, user);
+  }
+
+  /** A second engineer makes the source the house part's approved source (buyers are mailed). */
+  @Post(':id/approve')
+  @Roles('engineer')
+  @HttpCode(200)
+  @ApiOkResponse({ type: QualificationDto })
+  approve(@Param('id', ParseIntPipe) id: number, @Body() body: ApproveDto, @CurrentUser() user: AuthUser) {
+    return this.cases.act(id, 'approve', body, user);
   }
 
   @Post(':id/clear')

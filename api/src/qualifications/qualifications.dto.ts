@@ -5,6 +5,7 @@ import {
   comparePayloadSchema,
   createQualificationRequestSchema,
   housePartBuyerSchema,
+  qualificationApproveRequestSchema,
   qualificationClearRequestSchema,
   qualificationClearWithConditionsRequestSchema,
   qualificationCommentRequestSchema,
@@ -32,6 +33,7 @@ export class UpdateQualificationDto extends createZodDto(updateQualificationRequ
 export class EvaluateDto extends createZodDto(qualificationEvaluateRequestSchema) {}
 export class SubmitDto extends createZodDto(qualificationSubmitRequestSchema) {}
 export class SendBackDto extends createZodDto(qualificationSendBackRequestSchema) {}
+export class ApproveDto extends createZodDto(qualificationApproveRequestSchema) {}
 export class ClearDto extends createZodDto(qualificationClearRequestSchema) {}
 export class ClearWithConditionsDto extends createZodDto(qualificationClearWithConditionsRequestSchema) {}
 export class RejectDto extends createZodDto(qualificationRejectRequestSchema) {}

@@ -17,6 +17,7 @@ import type {
 } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
 import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 import { HousePartBuyer } from './house-part-buyer.model';
@@ -121,7 +122,7 @@ export interface PairCaseRow {
 const SORT_COLUMNS: Record<QualificationSort, string> = { updatedAt: 'q.updated_at', createdAt: 'q.created_at', state: 'q.state', id: 'q.id' };
 
 const CASE_SELECT = `SELECT q.id, q.house_part_id AS housePartId, h.part_number AS partNumber, h.description AS housePartDescription,
-  q.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package, src.role AS sourceRole,
+  q.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package, IF(src.id IS NULL, NULL, ${sourceRoleSql('src')}) AS sourceRole,
   q.revision, q.previous_id AS previousId, nx.id AS nextId, q.state, q.overall, q.spec_version AS specVersion, q.card_version AS cardVersion,
   q.summary, q.prepared_by_id AS preparedById, pu.name AS preparedByName, q.reviewer_id AS reviewerId, ru.name AS reviewerName,
   q.submitted_at AS submittedAt, q.decision_state AS decisionState, q.decided_by_id AS decidedById, du.name AS decidedByName,
@@ -185,7 +186,7 @@ export class QualificationsRepository {
     }
     const [card] = await this.select<{ version: number; fields: RatingCardFields | string }>(`SELECT version, fields FROM rating_cards WHERE vendor_part_id = ? LOCK IN SHARE MODE`, [vendorPartId], transaction);
     const [source] = await this.select<{ role: SourceRole }>(
-      `SELECT role FROM house_part_sources WHERE house_part_id = ? AND vendor_part_id = ? LOCK IN SHARE MODE`,
+      `SELECT ${sourceRoleSql('s')} AS role FROM house_part_sources s WHERE s.house_part_id = ? AND s.vendor_part_id = ? LOCK IN SHARE MODE`,
       [housePartId, vendorPartId],
       transaction,
     );
@@ -376,7 +377,7 @@ export class QualificationsRepository {
     const ids = heads.map((h) => h.id);
     const sources = await this.select<BoardSourceRow>(
       `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
-         s.role, vp.card_version AS cardVersion, q.id AS caseId, q.revision, q.state, q.overall,
+         ${sourceRoleSql('s')} AS role, vp.card_version AS cardVersion, q.id AS caseId, q.revision, q.state, q.overall,
          q.prepared_by_id AS preparedById, pu.name AS preparedByName, q.decided_by_id AS decidedById, du.name AS decidedByName,
          q.needs_recheck AS needsRecheck, q.updated_at AS updatedAt
        ${from}
@@ -384,7 +385,7 @@ export class QualificationsRepository {
        LEFT JOIN users pu ON pu.id = q.prepared_by_id
        LEFT JOIN users du ON du.id = q.decided_by_id
        WHERE h.id IN (${ids.map(() => '?').join(', ')}) ${filtered ? `AND ${sourceWhere.join(' AND ')}` : ''}
-       ORDER BY h.part_number, s.role = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
+       ORDER BY h.part_number, ${sourceRoleSql('s')} = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
       [...ids, ...sourceParams],
     );
     return { heads, sources, total: Number(total), counts };
@@ -417,10 +418,10 @@ export class QualificationsRepository {
     if (housePartIds.length === 0) return [];
     return this.select(
       `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
-         s.role, vp.card_version AS cardVersion
+         ${sourceRoleSql('s')} AS role, vp.card_version AS cardVersion
        FROM house_part_sources s JOIN vendor_parts vp ON vp.id = s.vendor_part_id
        WHERE s.house_part_id IN (${housePartIds.map(() => '?').join(', ')})
-       ORDER BY s.role = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
+       ORDER BY ${sourceRoleSql('s')} = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
       housePartIds,
     );
   }

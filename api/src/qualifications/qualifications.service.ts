@@ -11,14 +11,18 @@ import {
 } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
-  CLEARED_STATES,
-  DECISION_ACTIONS,
-  QUALIFICATION_ACTIONS,
   QUALIFICATION_STATE_LABELS,
   QUALIFICATION_TRANSITIONS,
   QUALIFICATION_VERDICT_LABELS,
+  USABLE_STATES,
+  actionBlock,
+  allowedActionsFor,
   isDecidedState,
+  isDecisionAction,
+  isEvaluationFresh,
   isOpenState,
+  isUsableState,
+  type ActionBlock,
   toEngineeringCard,
   type AuditEntry,
   type CreateQualificationRequest,
@@ -103,15 +107,15 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   async list(query: QualificationListQuery, user: AuthUser): Promise<Page<QualificationSummary>> {
-    // Designers see cleared cases only: those are the parts they may design in.
-    const { rows, total } = await this.cases.list(query, user.role === 'designer' ? CLEARED_STATES : undefined);
+    // Designers see approved and cleared cases only: those are the parts they may design in.
+    const { rows, total } = await this.cases.list(query, user.role === 'designer' ? USABLE_STATES : undefined);
     return { items: rows.map(toSummary), total, pageIndex: query.pageIndex, pageSize: query.pageSize };
   }
 
   async get(id: number, user: AuthUser): Promise<QualificationDto> {
     const row = await this.cases.findRow(id);
     if (!row) throw new NotFoundException(`No qualification case with id ${id}`);
-    if (user.role === 'designer' && !(CLEARED_STATES as readonly string[]).includes(row.state)) {
+    if (user.role === 'designer' && !isUsableState(row.state)) {
       throw new ForbiddenException(`Case #${id} is ${label(row.state).toLowerCase()}; designers see cleared cases only`);
     }
     const [comments, audit, current, next] = await Promise.all([
@@ -145,6 +149,11 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** `POST /qualifications`: opens a case for a house part and vendor part and evaluates it. */
   async create(request: CreateQualificationRequest, user: AuthUser): Promise<QualificationDto> {
+    return this.get(await this.open(request, user), user);
+  }
+
+  /** Opens the case and answers its id (the seed uses it without reading the case back). */
+  async open(request: CreateQualificationRequest, user: AuthUser): Promise<number> {
     let id: number;
     try {
       id = await this.sequelize.transaction(async (transaction) => {
@@ -161,10 +170,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         }
         const notes: string[] = [];
         if (basis.sourceRole === null) {
-          await this.houseParts.createSource(
-            { housePartId: request.housePartId, vendorPartId: request.vendorPartId, role: 'alternate', note: 'added when its qualification was opened', addedById: user.id },
-            transaction,
-          );
+          await this.houseParts.createSource({ housePartId: request.housePartId, vendorPartId: request.vendorPartId, note: 'added when its qualification was opened', addedById: user.id }, transaction);
           notes.push(`${basis.vendorPart.manufacturer} ${basis.vendorPart.mpn} added to ${basis.housePart.partNumber} as an alternate source`);
         }
         if (latest) notes.push(`follows withdrawn case #${latest.id}`);
@@ -175,7 +181,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       if (error instanceof UniqueConstraintError) throw new ConflictException('Another case for this source was opened at the same moment; reload to see it');
       throw error;
     }
-    return this.get(id, user);
+    return id;
   }
 
   /** `PATCH /qualifications/:id`: the preparer's notes and the named reviewer, in draft only. */
@@ -215,24 +221,29 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** `POST /qualifications/:id/<action>`: one state change, its audit entry and its mail in one transaction. */
   async act(id: number, action: QualificationAction, body: ActionBody, user: AuthUser): Promise<QualificationDto> {
-    const resultId = await this.sequelize.transaction(async (transaction) => {
+    return this.get(await this.apply(id, action, body, user), user);
+  }
+
+  /** The state change of `act`, answering the id of the case it leaves (a re-check's new one); the seed uses it directly. */
+  async apply(id: number, action: QualificationAction, body: ActionBody, user: AuthUser): Promise<number> {
+    return this.sequelize.transaction(async (transaction) => {
       const peek = await this.cases.findById(id, transaction);
       if (!peek) throw new NotFoundException(`No qualification case with id ${id}`);
       // Catalogue rows first (shared), then the case (exclusive): the order catalogue saves take.
       const basis = await this.basis(peek.housePartId, peek.vendorPartId, transaction);
       const row = await this.lockCase(id, transaction);
       if (action !== 'recheck') checkVersion(row, body.version);
-      const allowedFrom = QUALIFICATION_TRANSITIONS[action].from;
-      if (!allowedFrom.includes(row.state)) {
-        if (isDecidedState(row.state) && action !== 'revoke' && action !== 'recheck') throw immutable(row, actionWord(action));
-        throw new ConflictException(`Case #${id} is ${label(row.state).toLowerCase()}; "${QUALIFICATION_TRANSITIONS[action].label}" needs ${allowedFrom.map((s) => label(s).toLowerCase()).join(' or ')}`);
-      }
+      // The rule (contracts/src/qualifications/source-standing.ts) decides; here it is said plainly.
+      const next = action === 'revoke' || action === 'recheck' ? await this.cases.findNext(row.id, transaction) : null;
+      const fresh = isEvaluationFresh(row, { specVersion: basis.housePart.specVersion, cardVersion: basis.vendorPart.cardVersion });
+      const block = actionBlock(action, { state: row.state, preparedById: row.preparedById, overall: row.overall, fresh, nextId: next?.id ?? null, nextState: next?.state ?? null }, user);
+      if (block) throw refusal(block, action, row, basis, next);
       if (action === 'recheck') return (await this.recheck(row, basis, body.note ?? null, user, transaction)).id;
       if (action === 'evaluate') {
         await this.reevaluate(row, basis, user, transaction);
         return row.id;
       }
-      const transition = await this.transition(row, action, body, basis, user, transaction);
+      const transition = await this.transition(row, action, body, user, transaction);
       const fromState = row.state;
       await this.cases.save(row, { ...transition.fields, state: transition.toState }, transaction);
       await this.cases.addEvent(
@@ -250,32 +261,24 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       await this.notify(action, row, basis, user, transaction);
       return row.id;
     });
-    return this.get(resultId, user);
   }
 
-  /** Rules and field values of each plain state change; throws the refusal with its plain message. */
-  private async transition(row: Qualification, action: QualificationAction, body: ActionBody, basis: CatalogueBasis, user: AuthUser, transaction: Transaction): Promise<Transition> {
+  /** Field values of each plain state change (the rule has allowed it already). */
+  private async transition(row: Qualification, action: QualificationAction, body: ActionBody, user: AuthUser, transaction: Transaction): Promise<Transition> {
     const now = new Date();
-    if ((DECISION_ACTIONS as readonly string[]).includes(action)) {
-      if (row.preparedById === user.id) {
-        throw new ForbiddenException(`You prepared case #${row.id}; another engineer must decide it (two-person rule)`);
+    if (isDecisionAction(action)) {
+      if (action === 'approve' && row.overall !== 'pass' && !body.note) {
+        throw new UnprocessableEntityException({
+          message: `Case #${row.id} evaluates as ${QUALIFICATION_VERDICT_LABELS[row.overall]} (${row.evaluation.summary}): approving it as the approved source needs a note that says how that is covered`,
+          errors: [{ path: 'note', message: 'required when the evaluation is not a pass' }],
+        });
       }
-      if (action !== 'reject') {
-        this.checkCurrent(row, basis, 'clearing it');
-        if (action === 'clear' && row.overall !== 'pass') {
-          throw new UnprocessableEntityException(
-            `Case #${row.id} evaluates as ${QUALIFICATION_VERDICT_LABELS[row.overall]} (${row.evaluation.summary}): ${row.overall === 'fail' ? 'reject it' : 'clear it with conditions that say how the gap is covered, or reject it'}`,
-          );
-        }
-        if (row.overall === 'fail') throw new UnprocessableEntityException(`Case #${row.id} fails (${row.evaluation.summary}): a failing source cannot be cleared; reject it`);
-      }
-      const state = QUALIFICATION_TRANSITIONS[action].to as 'cleared' | 'cleared-with-conditions' | 'rejected';
-      const text = action === 'clear' ? (body.note ?? null) : action === 'clear-with-conditions' ? body.conditions! : body.reason!;
+      const state = QUALIFICATION_TRANSITIONS[action].to as 'approved' | 'cleared' | 'cleared-with-conditions' | 'rejected';
+      const text = action === 'clear' || action === 'approve' ? (body.note ?? null) : action === 'clear-with-conditions' ? body.conditions! : body.reason!;
       return { toState: state, fields: { decisionState: state, decidedById: user.id, decidedAt: now, decisionText: text || null }, note: text || null };
     }
     switch (action) {
       case 'submit': {
-        this.checkCurrent(row, basis, 'sending it for review');
         const reviewerId = body.reviewerId === undefined ? row.reviewerId : body.reviewerId;
         if (reviewerId !== null) await this.checkReviewer(reviewerId, row, transaction);
         return { toState: 'in-review', fields: { submittedAt: now, reviewerId }, note: body.note ?? null };
@@ -284,25 +287,10 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         return { toState: 'draft', fields: { submittedAt: null }, note: body.reason! };
       case 'withdraw':
         return { toState: 'withdrawn', fields: {}, note: body.reason ?? null };
-      case 'revoke': {
-        const next = await this.cases.findNext(row.id, transaction);
-        if (next && isDecidedState(next.state)) throw new ConflictException(`Case #${row.id} was superseded by case #${next.id} (${label(next.state).toLowerCase()}); revoke that one`);
+      case 'revoke':
         return { toState: 'revoked', fields: { revokedById: user.id, revokedAt: now, revokeReason: body.reason! }, note: body.reason! };
-      }
       default:
         throw new BadRequestException(`Unknown action ${action}`);
-    }
-  }
-
-  /** Refuses to clear or submit on an evaluation the catalogue has moved past. */
-  private checkCurrent(row: Qualification, basis: CatalogueBasis, doing: string): void {
-    const specNow = basis.housePart.specVersion;
-    const cardNow = basis.vendorPart.cardVersion;
-    if (row.needsRecheck || row.specVersion !== specNow || row.cardVersion !== cardNow) {
-      throw new ConflictException(
-        `Case #${row.id} was evaluated on spec version ${row.specVersion} and card version ${row.cardVersion}; the catalogue is now at spec ${specNow ?? '—'} and card ${cardNow}. ` +
-          `Evaluate it again (in draft) before ${doing}.`,
-      );
     }
   }
 
@@ -333,8 +321,6 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** A new revision of a decided case, evaluated on the catalogue as it is now; the old case stays as decided. */
   private async recheck(row: Qualification, basis: CatalogueBasis, note: string | null, user: AuthUser, transaction: Transaction): Promise<Qualification> {
-    const next = await this.cases.findNext(row.id, transaction);
-    if (next) throw new ConflictException(`Case #${row.id} already has a re-check: case #${next.id}`);
     const why = row.recheckReasons.map((r) => r.detail).join('; ');
     const summary = [`Re-check of case #${row.id} (${label(row.state).toLowerCase()})${why ? ` after: ${why}` : ''}.`, note ?? ''].filter(Boolean).join(' ');
     const created = await this.openCase(basis, { revision: row.revision + 1, previousId: row.id, summary }, user, [`re-check of case #${row.id}`], transaction);
@@ -454,7 +440,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       );
       return;
     }
-    if (action !== 'clear' && action !== 'clear-with-conditions' && action !== 'revoke') return;
+    if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'revoke') return;
     const to = await this.cases.buyerEmails(row.housePartId, transaction);
     if (to.length === 0) {
       this.logger.log(`case ${row.id}: no buyers linked to ${hp}, no mail`);
@@ -464,7 +450,9 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       action === 'revoke'
         ? [`${user.name} revoked the clearance of ${part} as a source of ${hp} (case #${row.id}).`, `Reason: ${row.revokeReason}`, 'Do not place new orders for it against this house part until it is cleared again.']
         : [
-            `${user.name} cleared ${part} as a source of ${hp} (${basis.housePart.description})${action === 'clear-with-conditions' ? ' with conditions' : ''} (case #${row.id}).`,
+            action === 'approve'
+              ? `${user.name} approved ${part} as the approved source of ${hp} (${basis.housePart.description}) (case #${row.id}).`
+              : `${user.name} cleared ${part} as a source of ${hp} (${basis.housePart.description})${action === 'clear-with-conditions' ? ' with conditions' : ''} (case #${row.id}).`,
             action === 'clear-with-conditions' ? `Conditions: ${row.decisionText}` : row.decisionText ? `Note: ${row.decisionText}` : '',
             `Prepared by ${await this.userName(row.preparedById, transaction)}; decided on spec version ${row.specVersion} and card version ${row.cardVersion}.`,
           ];
@@ -472,7 +460,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       {
         to,
         kind: `qualification.${AUDIT_OF[action]}`,
-        subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'clear' ? 'cleared' : 'cleared with conditions'}`,
+        subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : 'cleared with conditions'}`,
         body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`].join('\n'),
       },
       transaction,
@@ -514,6 +502,7 @@ const AUDIT_OF: Record<QualificationAction, AuditEntry['action']> = {
   evaluate: 'evaluated',
   submit: 'submitted',
   'send-back': 'sent-back',
+  approve: 'approved',
   clear: 'cleared',
   'clear-with-conditions': 'cleared-with-conditions',
   reject: 'rejected',
@@ -523,7 +512,7 @@ const AUDIT_OF: Record<QualificationAction, AuditEntry['action']> = {
 };
 
 function auditChanges(action: QualificationAction, row: Qualification, basis: CatalogueBasis): AuditEntry['changes'] {
-  if (!(DECISION_ACTIONS as readonly string[]).includes(action)) return [];
+  if (!isDecisionAction(action)) return [];
   // A decision records what it was made on.
   return [
     { field: 'specVersion', from: null, to: basis.housePart.specVersion },
@@ -554,34 +543,44 @@ function excerpt(text: string): string {
   return text.length > 200 ? `${text.slice(0, 197)}…` : text;
 }
 
-/** What the caller may do with the case now; the server enforces the same rules on each action. */
+/** What the caller may do with the case now: the same rule (contracts' actionBlock) the server enforces on each action. */
 export function allowedActions(
   row: Pick<CaseRow, 'state' | 'preparedById' | 'overall' | 'needsRecheck' | 'nextId' | 'specVersion' | 'cardVersion'>,
   user: AuthUser,
   current: { specVersion: number | null; cardVersion: number | null },
   nextState: QualificationState | null,
 ): QualificationAction[] {
-  if (user.role !== 'engineer') return [];
-  const fresh = !row.needsRecheck && row.specVersion === current.specVersion && row.cardVersion === current.cardVersion;
-  return QUALIFICATION_ACTIONS.filter((action) => {
-    if (!QUALIFICATION_TRANSITIONS[action].from.includes(row.state)) return false;
-    switch (action) {
-      case 'submit':
-        return fresh;
-      case 'clear':
-        return row.preparedById !== user.id && fresh && row.overall === 'pass';
-      case 'clear-with-conditions':
-        return row.preparedById !== user.id && fresh && row.overall !== 'fail';
-      case 'reject':
-        return row.preparedById !== user.id;
-      case 'recheck':
-        return row.nextId === null;
-      case 'revoke':
-        return nextState === null || !isDecidedState(nextState);
-      default:
-        return true;
+  return allowedActionsFor({ state: row.state, preparedById: row.preparedById, overall: row.overall, fresh: isEvaluationFresh(row, current), nextId: row.nextId, nextState }, user);
+}
+
+/** The refusal of an action the rule blocks, in plain words and with its status. */
+function refusal(block: ActionBlock, action: QualificationAction, row: Qualification, basis: CatalogueBasis, next: Qualification | null): Error {
+  const doing = action === 'submit' ? 'sending it for review' : action === 'approve' ? 'approving it' : 'clearing it';
+  switch (block) {
+    case 'role':
+      return new ForbiddenException('Only engineers prepare and decide qualification cases');
+    case 'state': {
+      if (isDecidedState(row.state) && action !== 'revoke' && action !== 'recheck') return immutable(row, actionWord(action));
+      const from = QUALIFICATION_TRANSITIONS[action].from;
+      return new ConflictException(`Case #${row.id} is ${label(row.state).toLowerCase()}; "${QUALIFICATION_TRANSITIONS[action].label}" needs ${from.map((s) => label(s).toLowerCase()).join(' or ')}`);
     }
-  });
+    case 'two-person':
+      return new ForbiddenException(`You prepared case #${row.id}; another engineer must decide it (two-person rule)`);
+    case 'stale':
+      return new ConflictException(
+        `Case #${row.id} was evaluated on spec version ${row.specVersion} and card version ${row.cardVersion}; the catalogue is now at spec ${basis.housePart.specVersion ?? '—'} and card ${basis.vendorPart.cardVersion}. ` +
+          `Evaluate it again (in draft) before ${doing}.`,
+      );
+    case 'verdict':
+      if (row.overall === 'fail') return new UnprocessableEntityException(`Case #${row.id} fails (${row.evaluation.summary}): a failing source cannot be ${action === 'approve' ? 'approved' : 'cleared'}; reject it`);
+      return new UnprocessableEntityException(
+        `Case #${row.id} evaluates as ${QUALIFICATION_VERDICT_LABELS[row.overall]} (${row.evaluation.summary}): clear it with conditions that say how the gap is covered, or reject it`,
+      );
+    case 'superseded':
+      return new ConflictException(`Case #${row.id} was superseded by case #${next!.id} (${label(next!.state).toLowerCase()}); revoke that one`);
+    case 'recheck-exists':
+      return new ConflictException(`Case #${row.id} already has a re-check: case #${next!.id}`);
+  }
 }
 
 export function toSummary(row: CaseRow): QualificationSummary {

@@ -2,8 +2,8 @@ import type { PairCaseRow } from './qualifications.repository';
 import { standing } from './qualification-views.service';
 
 // How a source reads for procurement (common practice, no source): a decision counts
-// until a newer decision replaces it; the house part's approved source is the reference
-// the spec was written from and stands as approved until a decision says otherwise.
+// until a newer decision replaces it, and only decisions give a standing: a link alone,
+// whatever anyone called it, is not qualified.
 const row = (over: Partial<PairCaseRow>): PairCaseRow => ({
   id: 1,
   housePartId: 1,
@@ -24,27 +24,29 @@ const row = (over: Partial<PairCaseRow>): PairCaseRow => ({
 });
 
 describe('source standing', () => {
-  it('an alternate without a case is not qualified; the approved source is approved', () => {
-    expect(standing([], 'alternate').standing).toBe('not-qualified');
-    expect(standing([], 'approved').standing).toBe('approved');
+  it('a source without a case is not qualified', () => {
+    expect(standing([]).standing).toBe('not-qualified');
   });
 
-  it('an approved source with an open case stays approved and shows the case beside it', () => {
-    const s = standing([row({ id: 7, state: 'in-review' })], 'approved');
-    expect(s).toMatchObject({ standing: 'approved', caseId: null, openCase: { id: 7, state: 'in-review' } });
+  it('an approval decision makes the approved source, with who and since when', () => {
+    const at = new Date('2026-09-01T08:00:00Z');
+    const s = standing([row({ id: 5, state: 'approved', decidedAt: at, decidedById: 3, decidedByName: 'Reviewer' })]);
+    expect(s).toMatchObject({ standing: 'approved', caseId: 5, since: at.toISOString(), decidedBy: { id: 3 }, openCase: null });
   });
 
-  it('a decision on the approved source wins over its role', () => {
+  it('an approved source with a re-check open stays approved and shows the case beside it', () => {
+    const s = standing([row({ id: 5, state: 'approved', decidedAt: new Date() }), row({ id: 7, revision: 2, state: 'in-review' })]);
+    expect(s).toMatchObject({ standing: 'approved', caseId: 5, openCase: { id: 7, state: 'in-review' } });
+  });
+
+  it('a revocation ends an approval', () => {
     const at = new Date('2026-11-20T10:00:00Z');
-    const s = standing([row({ id: 3, state: 'revoked', revokedAt: at, revokeReason: 'process change', revokedById: 4, revokedByName: 'Reviewer' })], 'approved');
+    const s = standing([row({ id: 3, state: 'revoked', revokedAt: at, revokeReason: 'process change', revokedById: 4, revokedByName: 'Reviewer' })]);
     expect(s).toMatchObject({ standing: 'revoked', caseId: 3, conditions: 'process change', since: at.toISOString(), decidedBy: { id: 4 } });
   });
 
   it('an alternate reads its latest decided case, with a newer open one beside it', () => {
-    const s = standing(
-      [row({ id: 1, state: 'cleared', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 2, decidedByName: 'B' }), row({ id: 2, revision: 2, state: 'draft' })],
-      'alternate',
-    );
+    const s = standing([row({ id: 1, state: 'cleared', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 2, decidedByName: 'B' }), row({ id: 2, revision: 2, state: 'draft' })]);
     expect(s).toMatchObject({ standing: 'cleared', caseId: 1, openCase: { id: 2, state: 'draft' } });
   });
 });

@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type { HousePartStatus, QualificationState, RatingCardFields, SearchQuery, SearchSort, SourceRole } from '@shuntwise/contracts';
+import type { HousePartStatus, QualificationState, RatingCardFields, SearchQuery, SearchSort } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
 import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 
 /** A part as the text ranking reads it: its names and the house parts it is a source of. */
@@ -35,8 +36,6 @@ export interface PairRow {
   partNumber: string;
   description: string;
   status: HousePartStatus;
-  role: SourceRole;
-  sourceSince: Date;
   caseId: number | null;
   revision: number | null;
   state: QualificationState | null;
@@ -56,8 +55,9 @@ export interface TextNarrowing {
   usableIds?: readonly number[];
 }
 
-const DECIDED = `('cleared', 'cleared-with-conditions', 'rejected', 'revoked')`;
-const CLEARED = `('cleared', 'cleared-with-conditions')`;
+// The state lists come from the standing rule in contracts (approved is decided and usable).
+const DECIDED = DECIDED_SQL;
+const USABLE = USABLE_SQL;
 
 /**
  * The latest decided case of each house part and vendor part (the one no later revision
@@ -72,22 +72,16 @@ const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revisi
 
 /**
  * Pairs (vendor_part_id, house_part_id) a designer may design in: on the house part's
- * source list and either cleared by the latest decision, or the approved source with no
- * decision at all. Written as a union of two index-driven halves: at 10 000 sources and
- * 6 000 cases it takes about a third of the time of a LEFT JOIN onto LATEST_DECIDED.
+ * source list and approved or cleared by the latest decision (sourceStanding in contracts).
  */
 function usablePairs(housePartId: boolean): string {
-  const hp = (alias: string) => (housePartId ? ` AND ${alias}.house_part_id = ?` : '');
+  const hp = housePartId ? ' AND qualifications.house_part_id = ?' : '';
   return `SELECT q.vendor_part_id, q.house_part_id FROM qualifications q
-    JOIN (SELECT house_part_id, vendor_part_id, MAX(revision) AS revision FROM qualifications WHERE state IN ${DECIDED}${hp('qualifications')}
+    JOIN (SELECT house_part_id, vendor_part_id, MAX(revision) AS revision FROM qualifications WHERE state IN ${DECIDED}${hp}
           GROUP BY house_part_id, vendor_part_id) m
       ON m.house_part_id = q.house_part_id AND m.vendor_part_id = q.vendor_part_id AND m.revision = q.revision
     JOIN house_part_sources s ON s.house_part_id = q.house_part_id AND s.vendor_part_id = q.vendor_part_id
-    WHERE q.state IN ${CLEARED}
-    UNION ALL
-    SELECT s.vendor_part_id, s.house_part_id FROM house_part_sources s
-    WHERE s.role = 'approved'${hp('s')} AND NOT EXISTS (
-      SELECT 1 FROM qualifications d WHERE d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id AND d.state IN ${DECIDED})`;
+    WHERE q.state IN ${USABLE}`;
 }
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
@@ -138,7 +132,7 @@ export class SearchRepository {
     } else if (usableOnly) {
       // A derived table joined on id, not `vp.id IN (…)`: MariaDB then materialises the set once instead of probing it per part.
       joins.push(`JOIN (SELECT DISTINCT u.vendor_part_id FROM (${usablePairs(query.housePartId !== undefined)}) u) usable ON usable.vendor_part_id = vp.id`);
-      if (query.housePartId !== undefined) joinParams.push(query.housePartId, query.housePartId);
+      if (query.housePartId !== undefined) joinParams.push(query.housePartId);
     }
     if (text?.tokens && text.tokens.length > 0) {
       // Each branch is an index range (mpn prefix, the few manufacturers and house parts whose names match).
@@ -243,7 +237,7 @@ export class SearchRepository {
   async usableIds(housePartId?: number): Promise<number[]> {
     const rows = await this.select<{ id: number }>(
       `SELECT DISTINCT u.vendor_part_id AS id FROM (${usablePairs(housePartId !== undefined)}) u`,
-      housePartId !== undefined ? [housePartId, housePartId] : [],
+      housePartId !== undefined ? [housePartId] : [],
     );
     return rows.map((r) => r.id);
   }
@@ -294,9 +288,9 @@ export class SearchRepository {
     const list = ids.map(() => '?').join(', ');
     return this.select<PairRow>(
       `SELECT s.vendor_part_id AS vendorPartId, s.house_part_id AS housePartId, h.part_number AS partNumber, h.description, h.status,
-         s.role, s.created_at AS sourceSince, d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
+         d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
          d.decided_by_id AS decidedById, du.name AS decidedByName, d.needs_recheck AS needsRecheck,
-         (SELECT MAX(o.id) FROM qualifications o WHERE o.house_part_id = s.house_part_id AND o.vendor_part_id = s.vendor_part_id AND o.state IN ('draft', 'in-review')) AS openCaseId
+         (SELECT MAX(o.id) FROM qualifications o WHERE o.house_part_id = s.house_part_id AND o.vendor_part_id = s.vendor_part_id AND o.state IN ${OPEN_SQL}) AS openCaseId
        FROM house_part_sources s
        JOIN house_parts h ON h.id = s.house_part_id
        LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${list})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id

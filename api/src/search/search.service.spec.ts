@@ -54,8 +54,6 @@ const pair = (over: Partial<PairRow>): PairRow => ({
   partNumber: 'OHI-ZD-1',
   description: 'clamp',
   status: 'active',
-  role: 'alternate',
-  sourceSince: new Date('2026-10-01T00:00:00Z'),
   caseId: null,
   revision: null,
   state: null,
@@ -84,11 +82,17 @@ describe('where a pair stands for a designer', () => {
     });
   });
 
-  it('is usable as the approved source while no decision stands against it; never once rejected or revoked', () => {
-    expect(toClearance(pair({ role: 'approved' }))).toMatchObject({ standing: 'approved', since: '2026-10-01T00:00:00.000Z', caseId: null });
-    expect(toClearance(pair({ role: 'approved', state: 'revoked', caseId: 4 }))).toBeNull();
-    expect(toClearance(pair({ role: 'alternate', state: 'rejected', caseId: 4 }))).toBeNull();
-    expect(toClearance(pair({ role: 'alternate', openCaseId: 5 }))).toBeNull();
+  it('is usable as the approved source only by an approval decision; never without a decision, never once rejected or revoked', () => {
+    expect(toClearance(pair({ caseId: 4, revision: 1, state: 'approved', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 3, decidedByName: 'Tomas Eklund' }))).toMatchObject({
+      standing: 'approved',
+      since: '2026-10-01T00:00:00.000Z',
+      caseId: 4,
+      decidedBy: { id: 3 },
+    });
+    expect(toClearance(pair({}))).toBeNull();
+    expect(toClearance(pair({ state: 'revoked', caseId: 4 }))).toBeNull();
+    expect(toClearance(pair({ state: 'rejected', caseId: 4 }))).toBeNull();
+    expect(toClearance(pair({ openCaseId: 5 }))).toBeNull();
   });
 });
 

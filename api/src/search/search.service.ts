@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
+  isUsableState,
   type Clearance,
   type RatingCardFields,
   type SearchCard,
@@ -127,27 +128,22 @@ function toItem(part: PartRow, pairs: PairRow[], score: number | null): SearchIt
   };
 }
 
-/** A pair the designer may design in, or null: cleared by its latest decision, or the approved source with none against it. */
+/** A pair the designer may design in, or null: approved or cleared by its latest decision (isUsableState in contracts). */
 export function toClearance(pair: PairRow): Clearance | null {
+  if (!isUsableState(pair.state)) return null;
   const housePart = { id: pair.housePartId, partNumber: pair.partNumber, description: pair.description, status: pair.status };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
-  if (pair.state === 'cleared' || pair.state === 'cleared-with-conditions') {
-    return {
-      housePart,
-      standing: pair.state,
-      conditions: pair.decisionText,
-      since: iso(pair.decidedAt),
-      decidedBy: pair.decidedById !== null ? { id: pair.decidedById, name: pair.decidedByName ?? '' } : null,
-      caseId: pair.caseId,
-      revision: pair.revision,
-      needsRecheck: Boolean(pair.needsRecheck),
-      recheckOpen: pair.openCaseId !== null,
-    };
-  }
-  if (pair.state === null && pair.role === 'approved') {
-    return { housePart, standing: 'approved', conditions: null, since: iso(pair.sourceSince), decidedBy: null, caseId: null, revision: null, needsRecheck: false, recheckOpen: pair.openCaseId !== null };
-  }
-  return null;
+  return {
+    housePart,
+    standing: pair.state,
+    conditions: pair.decisionText,
+    since: iso(pair.decidedAt),
+    decidedBy: pair.decidedById !== null ? { id: pair.decidedById, name: pair.decidedByName ?? '' } : null,
+    caseId: pair.caseId,
+    revision: pair.revision,
+    needsRecheck: Boolean(pair.needsRecheck),
+    recheckOpen: pair.openCaseId !== null,
+  };
 }
 
 export function toSearchCard(part: Pick<PartRow, 'cardVersion' | 'fields'>): SearchCard | null {

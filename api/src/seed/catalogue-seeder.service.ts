@@ -30,7 +30,8 @@ export const DEMO_CATALOGUE_ENGINEER = 'engineer@demo.test';
 /**
  * Loads the demo catalogue through the same services the API uses: the datasheets are
  * uploaded (real objects, real extraction), each series becomes vendor parts with cards
- * whose values point at their datasheet page, house parts get their spec and sources.
+ * whose values point at their datasheet page, house parts get their spec and sources
+ * (linked as candidates: the approved ones are approved by decisions in QualificationsSeeder).
  * Idempotent by natural keys (sha256, manufacturer + mpn, part number): a second run adds nothing.
  */
 @Injectable()
@@ -112,7 +113,8 @@ export class CatalogueSeeder {
       const [vendorPart] = await this.vendorParts.findByNames([{ manufacturer: vendorName.get(source.vendor)!, mpn: source.mpn }]);
       if (!vendorPart) throw new Error(`demo catalogue: ${item.partNumber} names a source ${source.vendor} ${source.mpn} that is not in the catalogue`);
       if (await this.houseParts.findSource(part.id, vendorPart.id)) continue;
-      await this.houseParts.createSource({ housePartId: part.id, vendorPartId: vendorPart.id, role: source.role, note: null, addedById: user.id });
+      // Linked as a candidate; the approved source becomes one through its case (QualificationsSeeder).
+      await this.houseParts.createSource({ housePartId: part.id, vendorPartId: vendorPart.id, note: null, addedById: user.id });
       created++;
     }
     return created;

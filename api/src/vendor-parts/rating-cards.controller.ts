@@ -21,7 +21,7 @@ export class RatingCardsController {
   }
 
   @Put('rating-card')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiOkResponse({ type: RatingCardViewDto })
   @ApiConflictResponse({ type: RatingCardConflictDto, description: 'the card changed since `version`; the body carries the current card' })
   put(@Param('id', ParseIntPipe) id: number, @Body() body: PutRatingCardDto, @CurrentUser() user: AuthUser) {

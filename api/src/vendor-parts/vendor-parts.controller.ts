@@ -19,7 +19,7 @@ export class VendorPartsController {
   }
 
   @Post('vendor-parts')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiCreatedResponse({ type: VendorPartDetailDto })
   create(@Body() body: CreateVendorPartDto, @CurrentUser() user: AuthUser) {
     return this.vendorParts.create(body, user);
@@ -33,7 +33,7 @@ export class VendorPartsController {
   }
 
   @Patch('vendor-parts/:id')
-  @Roles('engineer', 'admin')
+  @Roles('engineer')
   @ApiOkResponse({ type: VendorPartDetailDto })
   update(@Param('id', ParseIntPipe) id: number, @Body() body: UpdateVendorPartDto) {
     return this.vendorParts.update(id, body);

@@ -3,6 +3,7 @@ import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import type { SortTerm, VendorPartListQuery, VendorPartSort } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
 import { Manufacturer } from './manufacturer.model';
 import { VendorPart } from './vendor-part.model';
@@ -197,7 +198,7 @@ export class VendorPartsRepository {
 
   async sourceOf(vendorPartId: number): Promise<Array<{ housePartId: number; partNumber: string; role: 'approved' | 'alternate' }>> {
     return this.sequelize.query(
-      `SELECT s.house_part_id AS housePartId, h.part_number AS partNumber, s.role
+      `SELECT s.house_part_id AS housePartId, h.part_number AS partNumber, ${sourceRoleSql('s')} AS role
        FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id
        WHERE s.vendor_part_id = ? ORDER BY h.part_number`,
       { replacements: [vendorPartId], type: QueryTypes.SELECT },

@@ -2,16 +2,20 @@ import { z } from 'zod';
 
 /**
  * A qualification case's life, in our own plain words. Open cases can still change;
- * decided cases are fixed (only a cleared one can later be revoked); a withdrawn case was
- * abandoned before any decision.
+ * decided cases are fixed (only an approved or cleared one can later be revoked); a
+ * withdrawn case was abandoned before any decision. `approved` is the decision that makes
+ * the vendor part the house part's approved source (the reference part); `cleared` makes
+ * it a usable alternate. Which states let a part be used, and where a source stands, is
+ * in ./source-standing.ts.
  */
-export const QUALIFICATION_STATES = ['draft', 'in-review', 'cleared', 'cleared-with-conditions', 'rejected', 'withdrawn', 'revoked'] as const;
+export const QUALIFICATION_STATES = ['draft', 'in-review', 'approved', 'cleared', 'cleared-with-conditions', 'rejected', 'withdrawn', 'revoked'] as const;
 export const qualificationStateSchema = z.enum(QUALIFICATION_STATES);
 export type QualificationState = z.infer<typeof qualificationStateSchema>;
 
 export const QUALIFICATION_STATE_LABELS: Record<QualificationState, string> = {
   draft: 'Draft',
   'in-review': 'In review',
+  approved: 'Approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
   rejected: 'Rejected',
@@ -21,19 +25,14 @@ export const QUALIFICATION_STATE_LABELS: Record<QualificationState, string> = {
 
 /** States in which the case may still be edited, evaluated again or decided. */
 export const OPEN_STATES = ['draft', 'in-review'] as const satisfies readonly QualificationState[];
-/** States reached by a second engineer's decision (revoked included: it ends a clearance). */
-export const DECIDED_STATES = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'] as const satisfies readonly QualificationState[];
-/** States in which the vendor part may be used as a source of the house part. */
-export const CLEARED_STATES = ['cleared', 'cleared-with-conditions'] as const satisfies readonly QualificationState[];
+/** States reached by a second engineer's decision (revoked included: it ends an approval or clearance). */
+export const DECIDED_STATES = ['approved', 'cleared', 'cleared-with-conditions', 'rejected', 'revoked'] as const satisfies readonly QualificationState[];
 
 export function isOpenState(state: QualificationState): boolean {
   return (OPEN_STATES as readonly string[]).includes(state);
 }
 export function isDecidedState(state: QualificationState): boolean {
   return (DECIDED_STATES as readonly string[]).includes(state);
-}
-export function isClearedState(state: QualificationState): boolean {
-  return (CLEARED_STATES as readonly string[]).includes(state);
 }
 
 /**
@@ -44,6 +43,7 @@ export const QUALIFICATION_ACTIONS = [
   'evaluate',
   'submit',
   'send-back',
+  'approve',
   'clear',
   'clear-with-conditions',
   'reject',
@@ -58,16 +58,21 @@ export const QUALIFICATION_TRANSITIONS: Record<QualificationAction, { from: read
   evaluate: { from: ['draft'], to: null, label: 'Evaluate again' },
   submit: { from: ['draft'], to: 'in-review', label: 'Send for review' },
   'send-back': { from: ['in-review'], to: 'draft', label: 'Send back to draft' },
+  approve: { from: ['in-review'], to: 'approved', label: 'Approve as approved source' },
   clear: { from: ['in-review'], to: 'cleared', label: 'Clear' },
   'clear-with-conditions': { from: ['in-review'], to: 'cleared-with-conditions', label: 'Clear with conditions' },
   reject: { from: ['in-review'], to: 'rejected', label: 'Reject' },
   withdraw: { from: ['draft', 'in-review'], to: 'withdrawn', label: 'Withdraw' },
-  revoke: { from: ['cleared', 'cleared-with-conditions'], to: 'revoked', label: 'Revoke' },
-  recheck: { from: ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'], to: null, label: 'Open a re-check' },
+  revoke: { from: ['approved', 'cleared', 'cleared-with-conditions'], to: 'revoked', label: 'Revoke' },
+  recheck: { from: ['approved', 'cleared', 'cleared-with-conditions', 'rejected', 'revoked'], to: null, label: 'Open a re-check' },
 };
 
 /** The decisions a second engineer makes; the preparer of a case may make none of them. */
-export const DECISION_ACTIONS = ['clear', 'clear-with-conditions', 'reject'] as const satisfies readonly QualificationAction[];
+export const DECISION_ACTIONS = ['approve', 'clear', 'clear-with-conditions', 'reject'] as const satisfies readonly QualificationAction[];
+export type DecisionAction = (typeof DECISION_ACTIONS)[number];
+export function isDecisionAction(action: QualificationAction): action is DecisionAction {
+  return (DECISION_ACTIONS as readonly string[]).includes(action);
+}
 
 /** Verdict of one check and of the whole evaluation. */
 export const QUALIFICATION_VERDICTS = ['pass', 'marginal', 'fail', 'no-data'] as const;

@@ -19,9 +19,9 @@ describe('qualification contracts', () => {
 
   it('reads states as a comma list and names an unknown one', () => {
     expect(qualificationListQuerySchema.parse({ state: 'draft, in-review,draft' }).state).toEqual(['draft', 'in-review']);
-    const bad = qualificationListQuerySchema.safeParse({ state: 'draft,approved' });
+    const bad = qualificationListQuerySchema.safeParse({ state: 'draft,granted' });
     expect(bad.success).toBe(false);
-    expect(bad.error?.issues[0].message).toMatch(/unknown state in "draft,approved"/);
+    expect(bad.error?.issues[0].message).toMatch(/unknown state in "draft,granted"/);
     expect(boardQuerySchema.parse({ state: 'none,cleared', minAgeDays: '7' })).toMatchObject({ state: ['none', 'cleared'], minAgeDays: 7 });
   });
 

@@ -5,7 +5,7 @@
  *   GET  qualifications/:id                  engineer, admin, designer (cleared only)
  *   PATCH qualifications/:id                 engineer (draft only)                       {version, summary?, reviewerId?}
  *   POST qualifications/:id/<action>         engineer                                    QUALIFICATION_ACTION_REQUEST_SCHEMAS[action]
- *   POST qualifications/:id/comments         engineer, admin                             {text}
+ *   POST qualifications/:id/comments         engineer                                    {text}
  *   GET  qualifications/board                engineer, admin                             boardQuerySchema
  *   GET  qualifications/compare/:housePartId engineer, admin, designer
  *   GET  qualifications/sources(.csv)        buyer, engineer, admin, designer            sourcesQuerySchema
@@ -29,6 +29,7 @@ export const AUDIT_ACTIONS = [
   'edited',
   'submitted',
   'sent-back',
+  'approved',
   'cleared',
   'cleared-with-conditions',
   'rejected',
@@ -82,13 +83,13 @@ export const housePartRefSchema = z.object({ id: z.number().int(), partNumber: z
 export const vendorPartRefSchema = z.object({ id: z.number().int(), manufacturer: z.string(), mpn: z.string(), package: z.string().nullable() });
 
 export const qualificationDecisionSchema = z.object({
-  state: z.enum(['cleared', 'cleared-with-conditions', 'rejected']),
+  state: z.enum(['approved', 'cleared', 'cleared-with-conditions', 'rejected']),
   by: actorSchema,
   at: z.string(),
   /** The spec and card versions the decision was made on. */
   specVersion: z.number().int(),
   cardVersion: z.number().int(),
-  /** Conditions of a clearance with conditions; the reason of a rejection; an optional note otherwise. */
+  /** Conditions of a clearance with conditions; the reason of a rejection; an optional note otherwise (approval, clearance). */
   text: z.string().nullable(),
 });
 export type QualificationDecision = z.infer<typeof qualificationDecisionSchema>;
@@ -209,6 +210,8 @@ export const qualificationEvaluateRequestSchema = z.strictObject({ version: vers
 /** Send for review; name a reviewer (another engineer) or leave it to every other engineer. */
 export const qualificationSubmitRequestSchema = z.strictObject({ version: versionField, reviewerId: z.number().int().positive().nullish(), note: text(2000).nullish() });
 export const qualificationSendBackRequestSchema = z.strictObject({ version: versionField, reason: required('reason for sending it back') });
+/** A second engineer makes the source the house part's approved source (the reference part). */
+export const qualificationApproveRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });
 export const qualificationClearRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });
 export const qualificationClearWithConditionsRequestSchema = z.strictObject({ version: versionField, conditions: required('conditions') });
 export const qualificationRejectRequestSchema = z.strictObject({ version: versionField, reason: required('reason for the rejection') });
@@ -220,6 +223,7 @@ export const qualificationCommentRequestSchema = z.strictObject({ text: required
 export type QualificationEvaluateRequest = z.input<typeof qualificationEvaluateRequestSchema>;
 export type QualificationSubmitRequest = z.input<typeof qualificationSubmitRequestSchema>;
 export type QualificationSendBackRequest = z.input<typeof qualificationSendBackRequestSchema>;
+export type QualificationApproveRequest = z.input<typeof qualificationApproveRequestSchema>;
 export type QualificationClearRequest = z.input<typeof qualificationClearRequestSchema>;
 export type QualificationClearWithConditionsRequest = z.input<typeof qualificationClearWithConditionsRequestSchema>;
 export type QualificationRejectRequest = z.input<typeof qualificationRejectRequestSchema>;
@@ -233,6 +237,7 @@ export const QUALIFICATION_ACTION_REQUEST_SCHEMAS: Record<QualificationAction, z
   evaluate: qualificationEvaluateRequestSchema,
   submit: qualificationSubmitRequestSchema,
   'send-back': qualificationSendBackRequestSchema,
+  approve: qualificationApproveRequestSchema,
   clear: qualificationClearRequestSchema,
   'clear-with-conditions': qualificationClearWithConditionsRequestSchema,
   reject: qualificationRejectRequestSchema,

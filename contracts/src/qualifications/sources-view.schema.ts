@@ -4,14 +4,13 @@ import { actorSchema, queryBooleanSchema } from '../parts/page.schema';
 import { sourceRoleSchema } from '../parts/source.schema';
 import { qualificationStateSchema } from './qualification-state.schema';
 import { vendorPartRefSchema } from './qualification.schema';
+import { SOURCE_STANDINGS } from './source-standing';
 
 /**
- * Where a source stands for procurement: the state of its latest decided case (cleared,
- * cleared with conditions, rejected, revoked); else, for the house part's approved source,
- * `approved` (it is the reference the spec was written from, with any open case beside it);
- * else the state of its latest case; else `not-qualified` (no case yet).
+ * Where a source stands for procurement: the state of its latest decided case (approved,
+ * cleared, cleared with conditions, rejected, revoked); else the state of its latest case;
+ * else `not-qualified` (no case yet). The rule is `sourceStanding` in ./source-standing.ts.
  */
-export const SOURCE_STANDINGS = ['approved', 'cleared', 'cleared-with-conditions', 'rejected', 'revoked', 'in-review', 'draft', 'withdrawn', 'not-qualified'] as const;
 export const sourceStandingSchema = z.enum(SOURCE_STANDINGS);
 export type SourceStanding = z.infer<typeof sourceStandingSchema>;
 

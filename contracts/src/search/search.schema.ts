@@ -2,15 +2,16 @@ import { z } from 'zod';
 import { tempCoSchema } from '../engineering/card.schema';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
+import { USABLE_STATES } from '../qualifications/source-standing';
 
 /**
  * `GET /api/search` (designer, engineer, admin): the parts a designer may design in, found
  * by parametric filters and text. A vendor part is usable for a house part when it is on
- * that house part's source list and either its latest decided qualification is cleared
- * (with or without conditions), or it is the approved source with no decided case against
- * it (the reference the spec was written from). A rejection or revocation ends both.
+ * that house part's source list and its latest decided qualification approved it as the
+ * approved source or cleared it (with or without conditions): USABLE_STATES in
+ * qualifications/source-standing.ts. A rejection or revocation ends that.
  */
-export const CLEARANCE_STANDINGS = ['approved', 'cleared', 'cleared-with-conditions'] as const;
+export const CLEARANCE_STANDINGS = USABLE_STATES;
 export const clearanceStandingSchema = z.enum(CLEARANCE_STANDINGS);
 export type ClearanceStanding = z.infer<typeof clearanceStandingSchema>;
 

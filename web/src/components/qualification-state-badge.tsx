@@ -5,11 +5,12 @@ import { QUALIFICATION_STATE_LABELS, SOURCE_STANDING_LABELS, type BoardState, ty
  * One colour per case state, the same on every screen (Board, Qualifications, Compare,
  * Sources): grey while open, blue waiting for a decision, green cleared, lime cleared on
  * conditions, red rejected, purple revoked; withdrawn and "no case yet" are outlined grey;
- * a house part's approved source (the reference part) is outlined green.
+ * a house part's approved source (approved by a decision, the reference part) is outlined green.
  */
 export const STATE_COLOR: Record<QualificationState, string> = {
   draft: 'gray',
   'in-review': 'blue',
+  approved: 'verdigris',
   cleared: 'verdigris',
   'cleared-with-conditions': 'lime',
   rejected: 'red',
@@ -23,12 +24,11 @@ type AnyState = QualificationState | BoardState | SourceStanding;
 
 export function stateLabel(state: AnyState): string {
   if (state === 'none') return 'No case';
-  if (state === 'not-qualified' || state === 'approved') return SOURCE_STANDING_LABELS[state];
+  if (state === 'not-qualified') return SOURCE_STANDING_LABELS[state];
   return QUALIFICATION_STATE_LABELS[state];
 }
 
 export function stateColor(state: AnyState): string {
-  if (state === 'approved') return 'verdigris';
   return state === 'none' || state === 'not-qualified' ? 'gray' : STATE_COLOR[state];
 }
 

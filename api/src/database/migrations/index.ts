@@ -6,9 +6,19 @@ import { qualifications } from './2026-12-01-0004-qualifications';
 import { qualificationRequests } from './2026-12-01-0005-qualification-requests';
 import { rateLimitWindows } from './2026-12-04-0200-rate-limit-windows';
 import { measurementSets } from './2026-12-04-0700-measurement-sets';
+import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-from-decisions';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
  * `YYYY-MM-DD-NNNN-what.ts`); never edit one that has landed.
  */
-export const MIGRATIONS: Migration[] = [usersAndMail, catalogue, vendorPartListColumns, qualifications, qualificationRequests, rateLimitWindows, measurementSets];
+export const MIGRATIONS: Migration[] = [
+  usersAndMail,
+  catalogue,
+  vendorPartListColumns,
+  qualifications,
+  qualificationRequests,
+  rateLimitWindows,
+  measurementSets,
+  sourceStandingFromDecisions,
+];

@@ -10,7 +10,7 @@ const EMPTY_BOARD: BoardPage = {
   total: 0,
   pageIndex: 0,
   pageSize: 25,
-  counts: { draft: 0, 'in-review': 0, cleared: 0, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 0 },
+  counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 0, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 0 },
 };
 
 // Invented requests: one naming its house part, one leaving the choice to the engineer.

@@ -35,7 +35,7 @@ const PAGE: BoardPage = {
   total: 1,
   pageIndex: 0,
   pageSize: 25,
-  counts: { draft: 0, 'in-review': 0, cleared: 1, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 2 },
+  counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 1, 'cleared-with-conditions': 0, rejected: 0, withdrawn: 0, revoked: 0, none: 2 },
 };
 
 // The Board also lists open qualification requests; these tests are about the table.

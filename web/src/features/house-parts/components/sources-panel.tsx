@@ -3,22 +3,24 @@ import { ActionIcon, Alert, Anchor, Badge, Button, Group, Loader, Modal, Paper, 
 import { useDebouncedValue } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconLinkPlus, IconTrash } from '@tabler/icons-react';
-import { formatQuantity, SOURCE_ROLES, type Source, type SourceRole } from '@shuntwise/contracts';
+import { formatQuantity, type Source, type SourceRole } from '@shuntwise/contracts';
 import { Link } from 'react-router';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
-import { useAddSource, useRemoveSource, useSources, useUpdateSource, useVendorPartSearch } from '../api/sources';
+import { useAddSource, useRemoveSource, useSources, useVendorPartSearch } from '../api/sources';
 
-const ROLE_LABEL: Record<SourceRole, string> = { approved: 'Approved', alternate: 'Alternate' };
-const ROLE_OPTIONS = SOURCE_ROLES.map((r) => ({ value: r, label: ROLE_LABEL[r] }));
+const ROLE_LABEL: Record<SourceRole, string> = { approved: 'Approved source', alternate: 'Alternate' };
 
-/** Links a vendor part, found by part number or manufacturer, as a source. */
+/**
+ * Links a vendor part, found by part number or manufacturer, as a candidate alternate. Its
+ * standing (approved source, cleared) comes only from a second engineer's decision on its
+ * qualification case, so there is nothing to choose here.
+ */
 function AddSource({ housePartId, linked }: { housePartId: number; linked: ReadonlySet<number> }) {
   const [text, setText] = useState('');
   const [query] = useDebouncedValue(text.trim(), 200);
   const search = useVendorPartSearch(query);
   const [picked, setPicked] = useState<string | null>(null);
-  const [role, setRole] = useState<SourceRole>('alternate');
   const [note, setNote] = useState('');
   const add = useAddSource();
 
@@ -31,10 +33,10 @@ function AddSource({ housePartId, linked }: { housePartId: number; linked: Reado
   const submit = () => {
     if (!picked) return;
     add.mutate(
-      { housePartId, request: { vendorPartId: Number(picked), role, note: note.trim() || null } },
+      { housePartId, request: { vendorPartId: Number(picked), note: note.trim() || null } },
       {
         onSuccess: (source) => {
-          notifications.show({ color: 'verdigris', title: 'Source linked', message: `${source.mpn} (${source.manufacturer}) as ${ROLE_LABEL[source.role].toLowerCase()}.` });
+          notifications.show({ color: 'verdigris', title: 'Source linked', message: `${source.mpn} (${source.manufacturer}) as a candidate; open its qualification case to approve or clear it.` });
           setPicked(null);
           setText('');
           setNote('');
@@ -62,7 +64,6 @@ function AddSource({ housePartId, linked }: { housePartId: number; linked: Reado
           rightSection={search.isFetching ? <Loader size={12} /> : undefined}
           clearable
         />
-        <Select size="xs" w={120} label="As" data={ROLE_OPTIONS} value={role} onChange={(v) => v && setRole(v as SourceRole)} allowDeselect={false} />
         <TextInput size="xs" w={220} label="Note" placeholder="optional" value={note} onChange={(e) => setNote(e.currentTarget.value)} maxLength={500} />
         <Button size="xs" leftSection={<IconLinkPlus size={14} />} onClick={submit} disabled={!picked} loading={add.isPending}>
           Link source
@@ -77,19 +78,12 @@ function AddSource({ housePartId, linked }: { housePartId: number; linked: Reado
   );
 }
 
-/** The vendor parts linked to a house part: the approved source and its candidate alternates. */
+/** The vendor parts linked to a house part, each with the role its decisions gave it (read only). */
 export function SourcesPanel({ housePartId, partNumber }: { housePartId: number; partNumber: string }) {
   const sources = useSources(housePartId);
-  const update = useUpdateSource();
   const remove = useRemoveSource();
   const [removing, setRemoving] = useState<Source | null>(null);
   const linked = new Set((sources.data ?? []).map((s) => s.vendorPartId));
-
-  const changeRole = (source: Source, role: SourceRole) =>
-    update.mutate(
-      { housePartId, vendorPartId: source.vendorPartId, changes: { role } },
-      { onError: (error) => notifications.show({ color: 'red', title: 'Role not changed', message: describeError(error) }) },
-    );
 
   return (
     <Paper>
@@ -106,7 +100,7 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
         )}
         {sources.data?.length === 0 && (
           <Text fz="sm" c="dimmed">
-            No vendor part is linked yet. Link the approved source first, then the alternates to qualify.
+            No vendor part is linked yet. Link the parts to qualify; a second engineer's decision on each one's case makes it the approved source or a cleared alternate.
           </Text>
         )}
         {sources.data && sources.data.length > 0 && (
@@ -134,15 +128,11 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
                   <Table.Td>{s.manufacturer}</Table.Td>
                   <Table.Td>{s.package ?? '–'}</Table.Td>
                   <Table.Td>
-                    <Select
-                      size="xs"
-                      w={120}
-                      data={ROLE_OPTIONS}
-                      value={s.role}
-                      allowDeselect={false}
-                      aria-label={`Role of ${s.mpn}`}
-                      onChange={(v) => v && v !== s.role && changeRole(s, v as SourceRole)}
-                    />
+                    <Tooltip label="Set by decisions on its qualification case, not here">
+                      <Badge size="sm" variant="outline" color={s.role === 'approved' ? 'verdigris' : 'gray'} aria-label={`Role of ${s.mpn}`}>
+                        {ROLE_LABEL[s.role]}
+                      </Badge>
+                    </Tooltip>
                   </Table.Td>
                   <Table.Td>
                     {s.cardVersion ? (

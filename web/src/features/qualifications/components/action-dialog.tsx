@@ -43,6 +43,13 @@ export const ACTION_FORMS: Record<QualificationAction, ActionForm> = {
     placeholder: 'What the preparer should look at',
     explain: () => 'Returns the case to draft so it can be evaluated again or edited, then sent for review anew.',
   },
+  approve: {
+    field: 'note',
+    label: 'Note',
+    placeholder: 'required when the evaluation is not a pass: how the margin is covered',
+    explain: (q) =>
+      `Approves ${source(q)} as the house part's approved source (the reference part). The decision records you, now, spec v${q.specVersion} and card v${q.cardVersion}, and cannot be changed afterwards; a revocation ends it. The house part's buyers are told by mail.`,
+  },
   clear: {
     field: 'note',
     label: 'Note',
@@ -85,6 +92,7 @@ export const ACTION_FORMS: Record<QualificationAction, ActionForm> = {
 };
 
 export const ACTION_COLOR: Partial<Record<QualificationAction, string>> = {
+  approve: 'verdigris',
   clear: 'verdigris',
   'clear-with-conditions': 'lime',
   reject: 'red',
@@ -96,6 +104,7 @@ const DONE: Record<QualificationAction, string> = {
   evaluate: 'evaluated again',
   submit: 'sent for review',
   'send-back': 'sent back to draft',
+  approve: 'approved as the approved source',
   clear: 'cleared',
   'clear-with-conditions': 'cleared with conditions',
   reject: 'rejected',

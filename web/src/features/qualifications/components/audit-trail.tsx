@@ -9,6 +9,7 @@ const ACTION_LABEL: Record<AuditAction, string> = {
   edited: 'Edited',
   submitted: 'Sent for review',
   'sent-back': 'Sent back to draft',
+  approved: 'Approved as approved source',
   cleared: 'Cleared',
   'cleared-with-conditions': 'Cleared with conditions',
   rejected: 'Rejected',

@@ -6,7 +6,7 @@ import { schemaResolver } from '@/lib/form';
 import { useCommentOnQualification } from '../api/comment-on-qualification';
 import { ChangeRefused } from './conflict-notice';
 
-/** The discussion on a case; engineers and admins may add to it in any state (comments never change the decision). */
+/** The discussion on a case; engineers may add to it in any state (comments never change the decision). */
 export function CommentsPanel({ q, canComment }: { q: Qualification; canComment: boolean }) {
   const mutation = useCommentOnQualification();
   const form = useForm<{ text: string }>({ initialValues: { text: '' }, validate: schemaResolver(qualificationCommentRequestSchema) });

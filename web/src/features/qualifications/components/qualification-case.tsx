@@ -109,7 +109,7 @@ export function QualificationCase({ id }: { id: number }) {
             <Stack gap="md">
               <SignOffPanel q={q} viewer={viewer} onReload={reload} onDone={(result) => result.id !== q.id && navigate(`/qualifications/${result.id}`)} />
               <CaseNotes key={q.version} q={q} canEdit={viewer.role === 'engineer' && q.state === 'draft'} onReload={reload} />
-              <CommentsPanel q={q} canComment={viewer.role === 'engineer' || viewer.role === 'admin'} />
+              <CommentsPanel q={q} canComment={viewer.role === 'engineer'} />
               <AuditTrail entries={q.audit} />
             </Stack>
           </Grid.Col>

@@ -60,7 +60,7 @@ describe('sign-off panel', () => {
     serve(DEMO_USERS.admin, inReview({ allowedActions: [] }));
     renderApp('/qualifications/7');
     expect(await screen.findByText('Nothing for you to do on this case now.')).toBeInTheDocument();
-    expect(screen.getByText(/Only engineers prepare and decide cases/)).toBeInTheDocument();
+    expect(screen.getByText(/Only engineers prepare, discuss and decide cases/)).toBeInTheDocument();
     expect(screen.queryByRole('group', { name: 'Actions on this case' })).not.toBeInTheDocument();
   });
 

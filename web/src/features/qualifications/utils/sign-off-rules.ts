@@ -1,7 +1,7 @@
 import {
-  DECISION_ACTIONS,
-  QUALIFICATION_TRANSITIONS,
   QUALIFICATION_VERDICT_LABELS,
+  actionBlock,
+  isEvaluationFresh,
   type Qualification,
   type QualificationAction,
   type Role,
@@ -13,31 +13,29 @@ export interface Viewer {
 }
 
 /** The order the panel offers actions in: the decision first, then the way out. */
-const ORDER: readonly QualificationAction[] = ['submit', 'evaluate', 'clear', 'clear-with-conditions', 'reject', 'send-back', 'withdraw', 'revoke', 'recheck'];
-
-function isDecision(action: QualificationAction): boolean {
-  return (DECISION_ACTIONS as readonly string[]).includes(action);
-}
+const ORDER: readonly QualificationAction[] = ['submit', 'evaluate', 'approve', 'clear', 'clear-with-conditions', 'reject', 'send-back', 'withdraw', 'revoke', 'recheck'];
 
 /** True when the evaluation is on the spec and card the catalogue holds now, and nothing flagged it. */
 export function isEvaluationCurrent(q: Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>): boolean {
-  return !q.needsRecheck && q.specVersion === q.current.specVersion && q.cardVersion === q.current.cardVersion;
+  return isEvaluationFresh(q, q.current);
 }
+
+type OfferFacts = Pick<Qualification, 'state' | 'preparedBy' | 'overall' | 'nextId'> & Partial<Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>>;
 
 /**
- * The rules the panel applies on top of the server's list: only engineers act, only from
- * the states an action starts in, and the preparer never decides their own case. The
- * server refuses the same (403/409); this keeps a button from being offered at all.
+ * The same rule the server enforces (actionBlock in contracts/qualifications/source-standing.ts):
+ * only engineers act, only from the states an action starts in, the preparer never decides
+ * their own case, stale evaluations and verdicts rule out what they rule out. The server's
+ * list is applied too; this keeps a button from being offered at all.
  */
-export function mayOffer(action: QualificationAction, q: Pick<Qualification, 'state' | 'preparedBy'>, viewer: Viewer): boolean {
-  if (viewer.role !== 'engineer') return false;
-  if (!QUALIFICATION_TRANSITIONS[action].from.includes(q.state)) return false;
-  if (isDecision(action) && q.preparedBy.id === viewer.id) return false;
-  return true;
+export function mayOffer(action: QualificationAction, q: OfferFacts, viewer: Viewer): boolean {
+  const fresh = q.current && q.specVersion !== undefined && q.cardVersion !== undefined ? isEvaluationFresh({ needsRecheck: q.needsRecheck ?? false, specVersion: q.specVersion, cardVersion: q.cardVersion }, q.current) : true;
+  // The state of a newer revision is the server's to know: its list decides revoke.
+  return actionBlock(action, { state: q.state, preparedById: q.preparedBy.id, overall: q.overall, fresh, nextId: q.nextId, nextState: undefined }, viewer) === null;
 }
 
-/** The actions to show as buttons: what the server allows now, within the panel's own rules, in a fixed order. */
-export function offeredActions(q: Pick<Qualification, 'state' | 'preparedBy' | 'allowedActions'>, viewer: Viewer): QualificationAction[] {
+/** The actions to show as buttons: what the server allows now, within the same rule, in a fixed order. */
+export function offeredActions(q: OfferFacts & Pick<Qualification, 'allowedActions'>, viewer: Viewer): QualificationAction[] {
   return ORDER.filter((a) => q.allowedActions.includes(a) && mayOffer(a, q, viewer));
 }
 
@@ -50,7 +48,7 @@ export function signOffNotes(q: Qualification, viewer: Viewer): string[] {
   const mine = q.preparedBy.id === viewer.id;
   const current = isEvaluationCurrent(q);
   if (viewer.role !== 'engineer') {
-    notes.push(`Only engineers prepare and decide cases; you can read this one${viewer.role === 'admin' ? ' and comment on it' : ''}.`);
+    notes.push('Only engineers prepare, discuss and decide cases; you can read this one.');
     return notes;
   }
   switch (q.state) {
@@ -73,6 +71,7 @@ export function signOffNotes(q: Qualification, viewer: Viewer): string[] {
         );
       }
       break;
+    case 'approved':
     case 'cleared':
     case 'cleared-with-conditions':
     case 'rejected':
