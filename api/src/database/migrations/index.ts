@@ -7,6 +7,7 @@ import { qualificationRequests } from './2026-12-01-0005-qualification-requests'
 import { rateLimitWindows } from './2026-12-04-0200-rate-limit-windows';
 import { measurementSets } from './2026-12-04-0700-measurement-sets';
 import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-from-decisions';
+import { decisionRecords } from './2026-12-04-0800-decision-records';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -21,4 +22,5 @@ export const MIGRATIONS: Migration[] = [
   rateLimitWindows,
   measurementSets,
   sourceStandingFromDecisions,
+  decisionRecords,
 ];
