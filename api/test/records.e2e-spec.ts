@@ -26,7 +26,7 @@ describe('decision records (real MariaDB, S3 fake)', () => {
   const sha = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
   const entered = { source: 'entered' as const };
 
-  async function decided(action: 'clear' | 'reject' | 'clear-with-conditions', body: Record<string, unknown> = {}) {
+  async function decided(action: 'clear' | 'reject' | 'clear-with-conditions', body: Record<string, unknown> = {}, measured = false) {
     n++;
     const housePartId = await createHousePart(t.http, engineer, `HPR-${n}`, `Record case ${n}`);
     expect((await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 } }) })).status).toBe(200);
@@ -34,6 +34,14 @@ describe('decision records (real MariaDB, S3 fake)', () => {
     const fields = demoCardFields({ vzMin: { value: 4.9, printed: '4.9 V', provenance: entered }, vzMax: { value: 5.3, printed: '5.3 V', provenance: entered } });
     expect((await t.http.put(`/api/vendor-parts/${vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields })).status).toBe(200);
     await t.http.post('/api/house-parts/' + housePartId + '/buyers').set(auth(buyer)).send({ userId: buyerId });
+    if (measured) {
+      // Two invented samples on the card's own law, Zd = 2·Vt/I + 5 Ω around 5.1 V at 5 mA (SPICE reverse branch; common practice, no source).
+      const VT = 0.025693;
+      const lines = ['sample,lot,current (mA),voltage (V),temperature (°C)'];
+      for (const [id, v0] of [['S1', 5.08], ['S2', 5.12]] as const) for (const mA of [0.5, 1, 2, 5, 10, 20]) lines.push(`${id},L7,${mA},${(v0 + 2 * VT * Math.log(mA / 5) + 5 * (mA - 5) * 1e-3).toFixed(5)},25`);
+      const up = await t.http.post('/api/measurement-sets').set(auth(engineer)).field('vendorPartId', String(vendorPartId)).attach('file', Buffer.from(lines.join('\n')), 'bench-or.csv');
+      expect(up.status).toBe(201);
+    }
     const opened = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId, vendorPartId });
     expect(opened.status).toBe(201);
     const id = opened.body.id as number;
@@ -65,7 +73,7 @@ describe('decision records (real MariaDB, S3 fake)', () => {
   afterAll(() => t.close());
 
   it('stores one PDF per decision whose bytes match the recorded sha256 and whose text names the decision, the checks, both engineers and the inputs hash', async () => {
-    const c = await decided('clear', { note: 'Second source for the 5.1 V rail.' });
+    const c = await decided('clear', { note: 'Second source for the 5.1 V rail.' }, true);
     const row = await recordRow(c.id);
     expect(row).toMatchObject({ state: 'stored', storage_key: expect.stringMatching(/^records\/[0-9a-f-]{36}\.pdf$/) });
     const stored = await t.stack.app.get(StorageService).getBytes(row.storage_key);
@@ -97,6 +105,11 @@ describe('decision records (real MariaDB, S3 fake)', () => {
     expect(text).toContain(squash('Bench notes for case'));
     expect(text).toContain(squash('I–V curve of the card at 25 °C'));
     expect(text).toContain(squash('Estimates from datasheet values'));
+    // the measurement set with its file, hash and measured checks
+    const [set] = await t.select<{ sha256: string }>(`SELECT m.sha256 FROM measurement_sets m JOIN qualifications q ON q.vendor_part_id = m.vendor_part_id WHERE q.id = ?`, [c.id]);
+    expect(text).toContain(squash('bench-or.csv, 2 sample(s), 12 point(s)'));
+    expect(text).toContain(set.sha256);
+    expect(text).toContain(squash('Zener voltage at the card’s test current'));
     // the card with its provenance and the spec version
     expect(text).toContain(squash('rating card version 1'));
     expect(text).toContain(squash('spec version 1'));

@@ -49,6 +49,22 @@ export class DecisionRecordsService {
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
+  private deferring = 0;
+
+  /**
+   * Runs work whose decisions leave their records pending, to be drawn on first read (the demo
+   * seed makes dozens of decisions at start-up). The inputs are frozen all the same, so the
+   * bytes are those an immediate drawing would have given.
+   */
+  async deferStoring<T>(work: () => Promise<T>): Promise<T> {
+    this.deferring++;
+    try {
+      return await work();
+    } finally {
+      this.deferring--;
+    }
+  }
+
   /**
    * Called inside a decision's transaction: freezes the case as decided into a pending record,
    * and stores the PDF once the transaction commits. A case that has its record keeps it: the
@@ -66,6 +82,7 @@ export class DecisionRecordsService {
       return;
     }
     await this.records.create({ qualificationId, state: 'pending', storageKey: `records/${randomUUID()}.pdf`, inputsSha256, inputs: text, createdAt: new Date(inputs.madeAt) }, transaction);
+    if (this.deferring > 0) return;
     // Runs after commit (Sequelize also runs it after a failed commit: then there is no row and nothing happens).
     transaction.afterCommit(async () => {
       try {

@@ -311,9 +311,12 @@ class Pen {
       doc.moveTo(x, top).lineTo(x, top + h).lineWidth(0.2).strokeColor('#cccccc').stroke();
       doc.text(formatQuantity(10 ** d, 'current'), x - 20, top + h + 3, { width: 40, align: 'center', lineBreak: false });
     }
-    const ticks = 5;
-    for (let k = 0; k <= ticks; k++) {
-      const v = y0 + ((y1 - y0) * k) / ticks;
+    // Round voltages on the axis: a 1-2-5 step giving about five lines.
+    const raw = (y1 - y0) / 5;
+    const decade = 10 ** Math.floor(Math.log10(raw));
+    const step = [1, 2, 5, 10].map((m) => m * decade).find((s) => s >= raw)!;
+    for (let k = Math.ceil(y0 / step); k * step <= y1; k++) {
+      const v = k * step;
       const y = Y(v);
       doc.moveTo(left, y).lineTo(left + w, y).lineWidth(0.2).strokeColor('#cccccc').stroke();
       doc.text(formatQuantity(v, 'voltage', { digits: 4 }), MARGIN - 5, y - 3, { width: 48, align: 'right', lineBreak: false });
