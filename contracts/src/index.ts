@@ -22,6 +22,7 @@ export * from './parts/vendor-part.schema';
 export * from './parts/vz-tolerance';
 export * from './qualifications/board.schema';
 export * from './qualifications/compare.schema';
+export * from './qualifications/decision-record.schema';
 export * from './qualifications/evaluation.schema';
 export * from './qualifications/house-part-buyers.schema';
 export * from './qualifications/qualification-request.schema';

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { HousePartsModule } from '../house-parts/house-parts.module';
+import { MeasurementsModule } from '../measurements/measurements.module';
 import { User } from '../users/user.model';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { HousePartBuyer } from './house-part-buyer.model';
@@ -15,13 +16,17 @@ import { QualificationsController } from './qualifications.controller';
 import { QualificationsRepository } from './qualifications.repository';
 import { QualificationsSeeder } from './qualifications-seeder.service';
 import { QualificationsService } from './qualifications.service';
+import { DecisionRecord } from './records/decision-record.model';
+import { DecisionRecordsController } from './records/decision-records.controller';
+import { DecisionRecordsRepository } from './records/decision-records.repository';
+import { DecisionRecordsService } from './records/decision-records.service';
 
 /** Qualification cases, their trail and comments, the buyers of each house part, and the Board, Compare and Sources read models. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User]), HousePartsModule, VendorPartsModule],
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, DecisionRecord]), HousePartsModule, VendorPartsModule, MeasurementsModule],
   // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
-  controllers: [QualificationViewsController, QualificationsController, HousePartBuyersController],
-  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder],
-  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder],
+  controllers: [QualificationViewsController, QualificationsController, HousePartBuyersController, DecisionRecordsController],
+  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder],
+  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder, DecisionRecordsService],
 })
 export class QualificationsModule {}

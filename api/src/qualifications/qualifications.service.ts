@@ -15,6 +15,7 @@ import {
   QUALIFICATION_TRANSITIONS,
   QUALIFICATION_VERDICT_LABELS,
   USABLE_STATES,
+  decisionRecordPath,
   actionBlock,
   allowedActionsFor,
   isDecidedState,
@@ -44,6 +45,7 @@ import { DESIGN_CAUTION } from '../engineering/caution';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
 import { evaluateCard } from './evaluation/evaluate';
+import { DecisionRecordsService } from './records/decision-records.service';
 import type { Qualification } from './qualification.model';
 import { QualificationsRepository, type CaseRow, type CatalogueBasis } from './qualifications.repository';
 
@@ -86,6 +88,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     private readonly houseParts: HousePartsRepository,
     private readonly mail: MailService,
     private readonly events: CatalogueEvents,
+    private readonly records: DecisionRecordsService,
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
@@ -259,6 +262,8 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         transaction,
       );
       await this.notify(action, row, basis, user, transaction);
+      // The decision's PDF record: frozen in this transaction, stored after commit (records/decision-records.service.ts).
+      if (isDecisionAction(action)) await this.records.capture(row.id, transaction);
       return row.id;
     });
   }
@@ -462,7 +467,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         to,
         kind: `qualification.${AUDIT_OF[action]}`,
         subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : 'cleared with conditions'}`,
-        body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`].join('\n'),
+        body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`, `Decision record (PDF): ${decisionRecordPath(row.id)}`].join('\n'),
       },
       transaction,
     );

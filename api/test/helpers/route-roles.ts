@@ -95,6 +95,9 @@ export const ROUTE_ROLES: Readonly<Record<string, Access>> = {
   'POST /api/qualifications/:id/withdraw': ENGINEER,
   'POST /api/qualifications/:id/revoke': ENGINEER,
   'POST /api/qualifications/:id/recheck': ENGINEER,
+  // the PDF record of a decided case (designers: usable cases only, as the case route decides)
+  'GET /api/qualifications/:id/record': ALL,
+  'GET /api/qualifications/:id/record/meta': ALL,
   'GET /api/qualifications/board': ['engineer', 'admin'],
   'GET /api/qualifications/compare/:housePartId': READERS,
   'GET /api/qualifications/sources': ALL,

@@ -10,6 +10,7 @@ import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-f
 import { textGrams } from './2026-12-04-0400-text-grams';
 import { vzToleranceColumn } from './2026-12-04-0401-vz-tolerance';
 import { invitationRevoked } from './2026-12-04-0500-invitation-revoked';
+import { decisionRecords } from './2026-12-04-0800-decision-records';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -27,4 +28,5 @@ export const MIGRATIONS: Migration[] = [
   textGrams,
   vzToleranceColumn,
   invitationRevoked,
+  decisionRecords,
 ];

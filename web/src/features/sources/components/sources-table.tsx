@@ -4,6 +4,7 @@ import { useDebouncedValue } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconBell, IconBellOff, IconDownload, IconSearch } from '@tabler/icons-react';
 import { Link, useSearchParams } from 'react-router';
+import { DecisionRecordButton } from '@/components/decision-record-button';
 import { stateLabel, QualificationStateBadge } from '@/components/qualification-state-badge';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
@@ -266,6 +267,7 @@ export function SourcesTable() {
                               {s.revision && s.revision > 1 ? ` rev. ${s.revision}` : ''}
                             </Text>
                           )}
+                          {s.caseId !== null && <DecisionRecordButton caseId={s.caseId} state={s.standing} />}
                         </Table.Td>
                       </Table.Tr>
                     ))}
