@@ -125,6 +125,7 @@ export declare const paths: {
   datasheets: string;
   badUploads: string;
   catalogue: string;
+  scanned: string;
   demoCatalogue: string;
 };
 
@@ -139,3 +140,12 @@ export declare const badUploads: {
 
 export declare function loadDemoCatalogue(): DemoCatalogue;
 export declare function listDatasheetFixtures(): DatasheetFixture[];
+
+/** A scanned copy of a fixture datasheet: every page an image, the original's answer key page for page. */
+export interface ScannedFixture {
+  name: string;
+  pdfPath: string;
+  original: DatasheetFixture;
+}
+
+export declare function listScannedFixtures(): ScannedFixture[];

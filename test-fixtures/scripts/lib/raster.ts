@@ -43,11 +43,11 @@ function pdfjs(): Promise<Pdfjs> {
 }
 
 export async function rasterisePdf(source: Uint8Array, options: RasterOptions): Promise<Rasterised> {
-  const dpi = options.dpi ?? 250;
+  const dpi = options.dpi ?? 300;
   const maxRotation = options.maxRotation ?? 1;
-  const noise = options.noise ?? 18;
-  const specks = options.specks ?? 0.0015;
-  const quality = options.quality ?? 80;
+  const noise = options.noise ?? 10;
+  const specks = options.specks ?? 0.0005;
+  const quality = options.quality ?? 85;
   const prng = new Prng(options.seed);
   const lib = await pdfjs();
   const doc = await lib.getDocument({ data: new Uint8Array(source), verbosity: 0, isEvalSupported: false, useSystemFonts: false }).promise;

@@ -83,21 +83,28 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
 }
 
 /**
- * OCR voltages that cannot all be right: VZ min ≤ nom ≤ max must hold, and the nominal
+ * OCR voltages that cannot all be right: VZ min ≤ nom ≤ max must hold, VR must be below VZ, the coefficient within ±0.15 %/K, and the nominal
  * voltage coded in a regulator part number (…5V1 = 5.1 V) must be within 10 %
  * of the VZ read (common practice for regulator-diode part numbering, no source).
  */
 export function implausibleVoltages(mpn: string, fields: ExtractedVariant['fields']): ExtractionField[] {
-  const vz = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f]?.ocr);
+  const vzRead = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f]?.ocr);
   const coded = codedVoltage(mpn);
   const bad = new Set<ExtractionField>();
   if (coded !== undefined) {
-    for (const f of vz) {
+    for (const f of vzRead) {
       const si = fields[f]!.si;
       const limit = f === 'vzNom' ? 0.1 : 0.25;
       if (Math.abs(si - coded) > limit * coded) bad.add(f);
     }
   }
+  // The reverse (stand-off) voltage of a leakage test lies below the breakdown voltage (common practice, no source).
+  const vzLow = fields.vzMin ?? fields.vzNom;
+  if (fields.vr?.ocr && vzLow && fields.vr.si >= vzLow.si) bad.add('vr');
+  // A regulator diode's coefficient stays within about ±0.15 %/K of VZ (common practice, no source): a
+  // larger one is a decimal point the scan lost.
+  const vz = fields.vzNom ?? fields.vzMax;
+  if (fields.tc?.ocr && vz && Math.abs(fields.tc.si) > 0.0015 * vz.si) bad.add('tc');
   const ordered = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
   for (let i = 1; i < ordered.length; i++) {
     if (fields[ordered[i - 1]]!.si > fields[ordered[i]]!.si) {

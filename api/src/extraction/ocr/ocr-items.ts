@@ -36,17 +36,21 @@ export function repairOcrWord(raw: string): string | undefined {
   // unit glued to a number.
   w = w.replace(/^\(([HpuyW]|µ|μ)A\)$/, '(µA)').replace(/^\(([kKmM]?)[QO02]\)$/, '($1Ω)');
   w = w.replace(/^(\d+(?:\.\d+)?)([HyW])A$/, '$1µA').replace(/^(\d+(?:\.\d+)?)([kK]?)Q$/, '$1$2Ω');
-  if (/^[HyW]A$/.test(w)) w = 'µA';
+  // A lone pA is µA too: regulator-diode leakage is specified in µA or nA, never pA (common practice, no source).
+  if (/^[HypW]A$/.test(w)) w = 'µA';
   if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
   w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)');
   // Symbols: I read as 1 or l before Z; α before VZ read as a.
-  w = w.replace(/^[1l|]Z([TKM])/, 'IZ$1').replace(/^a(VZ|Vz|vz)$/, 'αVZ');
+  w = w.replace(/^[1lI|]{1,2}Z([TKM])/, 'IZ$1').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
   w = w.replace(/(\d)[Vv]{1,2}(?=\d)/g, '$1V');
   // A token that starts like a number but carries other marks (234], 1:, 5:7.) is not trusted.
   if (/^[+\-−]?\d/.test(w) && !NUMBER.test(w) && /[^\w.%/°µΩ()\-−+]/.test(w)) return undefined;
   return w;
 }
+
+/** Column symbols of regulator-diode tables. */
+const SYMBOL = /^(?:IZ[TKM]|ZZ[TK]|VZ|IR|VR|αVZ)$/;
 
 export interface PageGeometry {
   /** Pixels per PDF point of the rendered image. */
@@ -85,9 +89,12 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     for (const word of line.words) {
       const text = repairOcrWord(word.text);
       if (!text) continue;
-      // A bracketed unit the repair made sense of is kept however unsure the engine was.
+      // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
       const unit = /^\(([^()]+)\)$/.exec(text);
-      if (!(unit && unitKind(unit[1]) !== undefined) && word.confidence < (NUMBER.test(text) ? MIN_NUMBER_CONFIDENCE : MIN_WORD_CONFIDENCE)) continue;
+      const known = (unit && unitKind(unit[1]) !== undefined) || SYMBOL.test(text);
+      // Anything that starts with a number (also "4.7V", glued) is held to the number threshold.
+      const numeric = /^[+\-−]?\.?\d/.test(text);
+      if (!known && word.confidence < (numeric ? MIN_NUMBER_CONFIDENCE : MIN_WORD_CONFIDENCE)) continue;
       // The word's baseline point on the line's own baseline, then un-skewed.
       const t = b.x1 > b.x0 ? (word.x0 - b.x0) / (b.x1 - b.x0) : 0;
       const p = unskew(word.x0, b.y0 + t * (b.y1 - b.y0));
