@@ -54,7 +54,7 @@ function ExtractionSummary({ result, children }: { result: UploadDatasheetRespon
         {result.pages} page{result.pages === 1 ? '' : 's'} · {hasText
           ? `${variants.length} part${variants.length === 1 ? '' : 's'} found, ${fields} values`
           : variants.length > 0
-            ? `a scan read by OCR: ${variants.length} part${variants.length === 1 ? '' : 's'}, ${fields} values to check against the page`
+            ? `a scan read by OCR: ${variants.length} part${variants.length === 1 ? '' : 's'}, ${fields} value${fields === 1 ? '' : 's'} to check against the page`
             : 'no text layer (a scan): OCR found no ratings'}
         {warnings.length > 0 ? ` · ${warnings.length} warning${warnings.length === 1 ? '' : 's'}` : ''}
       </Text>
