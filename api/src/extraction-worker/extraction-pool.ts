@@ -142,6 +142,9 @@ export class ExtractionPool {
         if (m.type !== 'ready') return;
         clearTimeout(timer);
         child.off('message', onMessage);
+        // An idle child does not keep the API (or a test run) alive; a job refs it again.
+        child.unref();
+        child.channel?.unref();
         resolve(child);
       };
       child.on('message', onMessage);
@@ -156,9 +159,6 @@ export class ExtractionPool {
         slot.ready = undefined;
       }
     });
-    // An idle child does not keep the API (or a test run) alive.
-    child.unref();
-    child.channel?.unref();
     slot.ready = ready.catch((err: unknown) => {
       slot.ready = undefined;
       throw err;
@@ -241,6 +241,8 @@ export class ExtractionPool {
     if (!child || child.exitCode !== null || child.signalCode !== null) return;
     await new Promise<void>((resolve) => {
       child.once('exit', () => resolve());
+      // Held until it has gone: an unref'd child would let a short-lived process end mid-wait.
+      child.ref();
       child.kill('SIGKILL');
     });
   }
