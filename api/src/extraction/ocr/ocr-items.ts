@@ -34,12 +34,12 @@ export function repairOcrWord(raw: string): string | undefined {
   // Units the model cannot spell: µ comes out as H, p, u, y or W before A; Ω as Q (or 0, 2
   // inside brackets). Only where the shape leaves no doubt: a bracketed header unit or a
   // unit glued to a number.
-  w = w.replace(/^\(([HpuyW]|µ|μ)A\)$/, '(µA)').replace(/^\(([kKmM]?)[QO02]\)$/, '($1Ω)');
+  w = w.replace(/^([([])([HpuyW]|µ|μ)A([)\]])$/, '$1µA$3').replace(/^([([])([kKmM]?)[QO02]([)\]])$/, '$1$2Ω$3');
   w = w.replace(/^(\d+(?:\.\d+)?)([HyW])A$/, '$1µA').replace(/^(\d+(?:\.\d+)?)([kK]?)Q$/, '$1$2Ω');
   // A lone pA is µA too: regulator-diode leakage is specified in µA or nA, never pA (common practice, no source).
   if (/^[HypW]A$/.test(w)) w = 'µA';
   if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
-  w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)');
+  w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)').replace(/^\[Vv\]$|^\[v\]$/, '[V]');
   // Symbols: I read as 1 or l before Z; α before VZ read as a.
   w = w.replace(/^[1lI|]{1,2}Z([TKM])/, 'IZ$1').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
@@ -90,7 +90,7 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
       const text = repairOcrWord(word.text);
       if (!text) continue;
       // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
-      const unit = /^\(([^()]+)\)$/.exec(text);
+      const unit = /^[([]([^()[\]]+)[)\]]$/.exec(text);
       const known = (unit && unitKind(unit[1]) !== undefined) || SYMBOL.test(text);
       // Anything that starts with a number (also "4.7V", glued) is held to the number threshold.
       const numeric = /^[+\-−]?\.?\d/.test(text);
