@@ -91,6 +91,10 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
       if (!text) continue;
       // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
       const unit = /^[([]([^()[\]]+)[)\]]$/.exec(text);
+      // Except a current unit read as printed but unsure: µA and nA differ by one stroke, and a
+      // wrong prefix makes every value of the column 1000 times off.
+      const unsureCurrent = unit && unitKind(unit[1]) === 'current' && text === word.text.trim() && word.confidence < MIN_NUMBER_CONFIDENCE;
+      if (unsureCurrent) continue;
       const known = (unit && unitKind(unit[1]) !== undefined) || SYMBOL.test(text);
       // Anything that starts with a number (also "4.7V", glued) is held to the number threshold.
       const numeric = /^[+\-−]?\.?\d/.test(text);
