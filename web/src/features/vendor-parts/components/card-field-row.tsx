@@ -7,6 +7,7 @@ import { TempCoInput } from '@/components/temp-co-input';
 import { CARD_FIELD_META, cardFieldKind, formatCardValue } from '@/lib/card-fields';
 import { formatDateTime, formatShortDate } from '@/lib/format-date';
 import { sameFieldValue, type DraftField, type Suggestion } from '../utils/card-draft';
+import { SuggestionOrigin } from './suggestion-origin';
 
 export const SOURCE_LABEL: Record<ProvenanceSource, string> = { extracted: 'Extracted', entered: 'Entered', imported: 'Imported' };
 export const SOURCE_COLOR: Record<ProvenanceSource, string> = { extracted: 'copper', entered: 'grape', imported: 'indigo' };
@@ -120,6 +121,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               </Anchor>
             </Group>
           ))}
+        {suggestion && <SuggestionOrigin suggestion={suggestion} />}
       </Table.Td>
       <Table.Td w={200} maw={200}>
         {value && !Number.isNaN(value.value) && (

@@ -33,6 +33,7 @@ import { basisFromSpec, normalizeRequestFor, standardBasis } from '../utils/norm
 import { CardConflictModal } from './card-conflict-modal';
 import { CardEngineeringPanel, MECHANISM_LABEL } from './card-engineering-panel';
 import { CardFieldRow, type SourceLocation } from './card-field-row';
+import { CheckFirstNote } from './suggestion-origin';
 import { CardVersionsModal } from './card-versions-modal';
 
 export interface CardExtraction {
@@ -327,6 +328,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
                   Accept all suggestions ({pending.length})
                 </Button>
               )}
+              <CheckFirstNote suggestions={Object.values(suggestions)} />
               {packageSuggestion && packageSuggestion.value !== vendorPart.package && !readOnly && (
                 <Button
                   size="compact-xs"
