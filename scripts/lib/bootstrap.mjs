@@ -19,16 +19,16 @@ export function haveCommands(...commands) {
   return commands.every((c) => spawnSync('sh', ['-c', `command -v ${c}`], { stdio: 'ignore' }).status === 0);
 }
 
-/** Installs Debian packages with apt-get when the commands they provide are missing. */
-export function ensureDebianPackages(packages, commands) {
-  if (haveCommands(...commands)) return;
+/** Installs Debian packages with apt-get when the commands (or files, e.g. a library) they provide are missing. */
+export function ensureDebianPackages(packages, commands, files = []) {
+  if (haveCommands(...commands) && files.every((f) => existsSync(f))) return;
   console.log(`[setup] installing Debian packages: ${packages.join(' ')}`);
   const sudo = process.getuid && process.getuid() === 0 ? [] : ['sudo'];
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   const run = (args) => execFileSync(sudo.length ? 'sudo' : args[0], sudo.length ? args : args.slice(1), { stdio: 'inherit', env });
   run(['apt-get', 'update', '-qq']);
   run(['apt-get', 'install', '-y', '-qq', '--no-install-recommends', ...packages]);
-  if (!haveCommands(...commands)) throw new Error(`after installing ${packages.join(' ')}, still missing: ${commands.join(' ')}`);
+  if (!haveCommands(...commands) || !files.every((f) => existsSync(f))) throw new Error(`after installing ${packages.join(' ')}, still missing: ${[...commands, ...files].join(' ')}`);
 }
 
 /** Newest modification time under the given paths (files only; skips node_modules and dist). */

@@ -3,7 +3,7 @@ import { hostname } from 'node:os';
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { createTransport, type Transporter } from 'nodemailer';
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { ENV, type Env } from '../config/env';
 import { OutgoingMail } from './outgoing-mail.model';
@@ -40,6 +40,8 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   private readonly logger = new Logger('Mail');
   private readonly transport: Transporter;
   private timer?: NodeJS.Timeout;
+  /** Sent messages whose result the database has not taken yet (by outbox id). */
+  private readonly unsettled = new Map<number, Record<string, unknown>>();
   private running?: Promise<number>;
 
   /** This process's name in `claimed_by`. */
@@ -105,6 +107,12 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   /** Claims and sends batches until nothing is due (or the mail server refuses one). */
   private async sendDue(): Promise<number> {
     let sent = 0;
+    // Results the database did not take last time (it went away between send and record) go in first:
+    // those messages were handed to SMTP and must not be claimed and sent again.
+    for (const [id, values] of this.unsettled) {
+      await this.release(id, values);
+      this.unsettled.delete(id);
+    }
     for (;;) {
       const batch = await this.claim();
       if (!batch.length) return sent;
@@ -117,7 +125,9 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   /** Takes up to CLAIM_BATCH due rows for this replica; another replica's claim is skipped, never waited for. */
   private async claim(): Promise<OutgoingMail[]> {
     try {
-      return await this.sequelize.transaction(async (transaction) => {
+      // READ COMMITTED: InnoDB then locks only the rows it takes, no gaps, so a claim never blocks (or
+      // deadlocks with) a transaction that is inserting a new message.
+      return await this.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
         const now = new Date();
         const rows = await this.sequelize.query<{ id: number }>(
           // Rows this replica claimed earlier and could not settle (the database went away mid-batch) are its own
@@ -168,7 +178,14 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
         this.logger.warn(`mail ${mail.id} not sent (attempt ${attempts}): ${(error as Error).message}`);
         return { delivered, refused: true };
       }
-      const kept = await this.release(mail.id, { state: 'sent', sent_at: new Date(), attempts: mail.attempts + 1, last_error: null });
+      const result = { state: 'sent', sent_at: new Date(), attempts: mail.attempts + 1, last_error: null };
+      let kept: boolean;
+      try {
+        kept = await this.release(mail.id, result);
+      } catch (error) {
+        this.unsettled.set(mail.id, result);
+        throw error;
+      }
       if (!kept) this.logger.warn(`mail ${mail.id} was sent after this replica's claim ran out; another replica may send it again`);
       delivered++;
     }
