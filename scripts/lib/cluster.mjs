@@ -258,6 +258,8 @@ export async function startCluster({ root, dir, replicas = 3, seed = 'demo', por
       S3_FAKE_PORT: String(s3Port),
       SMTP_PORT: String(smtpPort),
       MAIL_RETRY_SECONDS: '1',
+      // nginx is the one proxy in front: believe its X-Forwarded-For, so per-address limits see the client
+      TRUST_PROXY: 'loopback',
       WEB_DIST: join(root, 'web/dist'),
       ...extraEnv,
     };

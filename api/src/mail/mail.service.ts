@@ -27,8 +27,9 @@ const CLAIM_BATCH = 20;
  * Any number of API replicas share the outbox. A replica first claims a batch of due rows
  * in a short transaction (SELECT … FOR UPDATE SKIP LOCKED, then its id in `claimed_by` and
  * `next_attempt_at` moved to the end of a MAIL_CLAIM_SECONDS lease), commits, and only then
- * sends; each result is written only while it still holds the claim. So two live replicas
- * never send one message. On a Galera cluster two nodes may lock the same row at once; the
+ * sends, renewing the lease on each message just before handing it to SMTP; each result is
+ * written only while it still holds the claim. So two live replicas never send one message
+ * (unless one SMTP hand-over alone takes longer than the lease). On a Galera cluster two nodes may lock the same row at once; the
  * certification then fails one claim at commit (a deadlock error), and that replica sends
  * nothing. A replica that dies mid-batch leaves its rows claimed until the lease ends; another
  * replica then sends them — a message that was already handed to the SMTP server when the
@@ -155,6 +156,9 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   private async sendBatch(batch: OutgoingMail[]): Promise<{ delivered: number; refused: boolean }> {
     let delivered = 0;
     for (const [index, mail] of batch.entries()) {
+      // The lease is renewed per message, so a slow batch never outlives it: a message whose claim
+      // ran out (another replica took it) is left to that replica.
+      if (!(await this.renew(mail.id))) continue;
       try {
         await this.transport.sendMail({
           from: this.env.MAIL_FROM,
@@ -186,10 +190,19 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
         this.unsettled.set(mail.id, result);
         throw error;
       }
-      if (!kept) this.logger.warn(`mail ${mail.id} was sent after this replica's claim ran out; another replica may send it again`);
+      if (!kept) this.logger.warn(`mail ${mail.id} was sent after this replica's claim ran out (the send took longer than MAIL_CLAIM_SECONDS); another replica may send it again`);
       delivered++;
     }
     return { delivered, refused: false };
+  }
+
+  /** Extends this replica's claim on one message by a full lease; false when it no longer holds it. */
+  private async renew(id: number): Promise<boolean> {
+    const [, affected] = (await this.sequelize.query('UPDATE outgoing_mail SET next_attempt_at = ? WHERE id = ? AND claimed_by = ?', {
+      replacements: [new Date(Date.now() + this.env.MAIL_CLAIM_SECONDS * 1000), id, this.replicaId],
+      type: QueryTypes.UPDATE,
+    })) as unknown as [unknown, number];
+    return affected > 0;
   }
 
   /** Writes a result and drops the claim, only while this replica still holds it; false when it no longer did. */
