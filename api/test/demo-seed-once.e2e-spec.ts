@@ -43,6 +43,7 @@ describe('demo seed across restarts (real MariaDB)', () => {
     const again = await second.select('SELECT 1 FROM house_part_buyers WHERE user_id = ? AND house_part_id = ?', [buyer.id, followed.housePartId]);
     expect(again).toHaveLength(0);
     const steps = await second.select<{ name: string }>('SELECT name FROM demo_seed_steps ORDER BY name');
-    expect(steps.map((r) => r.name)).toEqual(['catalogue', 'qualifications', 'users']);
+    // every step of the demo is recorded as done (other steps may follow these three)
+    expect(steps.map((r) => r.name)).toEqual(expect.arrayContaining(['catalogue', 'qualifications', 'users']));
   }, 240_000);
 });
