@@ -44,3 +44,15 @@ function isLostConnection(error: unknown): boolean {
   // The mariadb driver marks errors after which the connection is unusable as fatal.
   return e.fatal === true && e.name === 'SqlError';
 }
+
+/**
+ * True when the database refused a transaction because of a conflicting one and rolled it
+ * back whole: an InnoDB deadlock, or on Galera a write set that lost certification to a
+ * change made on another node at the same moment (reported as a deadlock, 1213). Nothing of
+ * the request was saved; the same request a moment later normally goes through.
+ */
+export function isTransactionConflict(error: unknown): boolean {
+  const driver = error instanceof DatabaseError ? (error.parent ?? error.original) : error;
+  const e = driver as { code?: unknown; errno?: unknown } | null;
+  return e?.code === 'ER_LOCK_DEADLOCK' || e?.errno === 1213;
+}
