@@ -44,6 +44,7 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   /** Sent messages whose result the database has not taken yet (by outbox id). */
   private readonly unsettled = new Map<number, Record<string, unknown>>();
   private running?: Promise<number>;
+  private again?: Promise<number>;
 
   /** This process's name in `claimed_by`. */
   readonly replicaId = `${hostname().slice(0, 40)}:${process.pid}:${randomBytes(3).toString('hex')}`;
@@ -90,9 +91,22 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
     return row;
   }
 
-  /** Sends every due message; returns how many went out. Concurrent calls share one run. */
+  /**
+   * Sends every due message; returns how many went out. One run at a time per process: a call
+   * during a run gets one more run after it (shared by every call made meanwhile), so what was
+   * committed before the call is always looked at.
+   */
   flush(): Promise<number> {
-    this.running ??= this.sendDue().finally(() => (this.running = undefined));
+    if (this.running) {
+      this.again ??= this.running
+        .catch(() => 0)
+        .then(() => {
+          this.again = undefined;
+          return this.flush();
+        });
+      return this.again;
+    }
+    this.running = this.sendDue().finally(() => (this.running = undefined));
     return this.running;
   }
 
@@ -198,11 +212,17 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
 
   /** Extends this replica's claim on one message by a full lease; false when it no longer holds it. */
   private async renew(id: number): Promise<boolean> {
-    const [, affected] = (await this.sequelize.query('UPDATE outgoing_mail SET next_attempt_at = ? WHERE id = ? AND claimed_by = ?', {
+    await this.sequelize.query('UPDATE outgoing_mail SET next_attempt_at = ? WHERE id = ? AND claimed_by = ?', {
       replacements: [new Date(Date.now() + this.env.MAIL_CLAIM_SECONDS * 1000), id, this.replicaId],
       type: QueryTypes.UPDATE,
-    })) as unknown as [unknown, number];
-    return affected > 0;
+    });
+    // Read back rather than count affected rows: the driver counts changed rows, and a lease renewed
+    // within the same second as the claim leaves the row unchanged.
+    const [row] = await this.sequelize.query<{ claimedBy: string | null }>("SELECT claimed_by AS claimedBy FROM outgoing_mail WHERE id = ? AND state = 'pending'", {
+      replacements: [id],
+      type: QueryTypes.SELECT,
+    });
+    return row?.claimedBy === this.replicaId;
   }
 
   /** Writes a result and drops the claim, only while this replica still holds it; false when it no longer did. */
