@@ -19,11 +19,12 @@ export function haveCommands(...commands) {
   return commands.every((c) => spawnSync('sh', ['-c', `command -v ${c}`], { stdio: 'ignore' }).status === 0);
 }
 
-/** Installs Debian packages with apt-get when the commands they provide are missing. */
-export function ensureDebianPackages(packages, commands) {
-  if (haveCommands(...commands)) return;
+/** Installs Debian packages with apt-get when the commands (or files, e.g. a library) they provide are missing. */
+export function ensureDebianPackages(packages, commands, files = []) {
+  const present = () => haveCommands(...commands) && files.every((f) => existsSync(f));
+  if (present()) return;
   aptInstall(packages);
-  if (!haveCommands(...commands)) throw new Error(`after installing ${packages.join(' ')}, still missing: ${commands.join(' ')}`);
+  if (!present()) throw new Error(`after installing ${packages.join(' ')}, still missing: ${[...commands, ...files].join(' ')}`);
 }
 
 /** Installs Debian packages with apt-get when files they provide are missing (fonts, data). */

@@ -11,6 +11,8 @@ import { textGrams } from './2026-12-04-0400-text-grams';
 import { vzToleranceColumn } from './2026-12-04-0401-vz-tolerance';
 import { invitationRevoked } from './2026-12-04-0500-invitation-revoked';
 import { decisionRecords } from './2026-12-04-0800-decision-records';
+import { demoSeedSteps } from './2026-12-04-0300-demo-seed-steps';
+import { mailClaims } from './2026-12-04-0301-mail-claims';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -29,4 +31,6 @@ export const MIGRATIONS: Migration[] = [
   vzToleranceColumn,
   invitationRevoked,
   decisionRecords,
+  demoSeedSteps,
+  mailClaims,
 ];
