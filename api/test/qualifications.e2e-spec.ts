@@ -284,7 +284,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect((await t.http.put(`/api/vendor-parts/${ids2.vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields: passingCard() })).status).toBe(200);
     const draft = (await open(ids2)).body;
 
-    expect((await t.http.put(`/api/house-parts/${ids.housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: passingSpec(), note: 'same limits, new note' })).status).toBe(200);
+    expect((await t.http.put(`/api/house-parts/${ids.housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: { ...passingSpec(), zdMax: 59 }, note: 'Zd limit tightened' })).status).toBe(200);
     const rejected = (await t.http.get(`/api/qualifications/${decided.id}`).set(auth(engineer))).body;
     expect(rejected).toMatchObject({ needsRecheck: true, recheckReasons: [{ cause: 'spec-changed', detail: 'spec version 2' }] });
     const stale = await act(draft.id, 'submit', {}, engineer);

@@ -33,7 +33,8 @@ describe('messages name fields by their labels and values with prefixes and unit
 
   it('rewords zod’s generic messages', () => {
     const issue = specSchema.safeParse({ iRef: 0.005, vz: { min: 4.8, nom: 5.1, max: -1 }, envelope: { iMin: 1e-3, iMax: 2e-3, taMin: 0, taMax: 85 } }).error!.issues.find((i) => i.path.join('.') === 'vz.max')!;
-    expect(issueMessage({ ...issue, path: ['spec', ...issue.path] })).toBe('VZ max must be above 0 V');
+    // a Zener voltage is held to the physical bounds (units/bounds.ts): named by its label, the range in units
+    expect(issueMessage({ ...issue, path: ['spec', ...issue.path] })).toBe('VZ max must be between 0.5 and 1000 V');
     expect(issueMessage({ code: 'too_big', origin: 'number', maximum: 1, inclusive: true, path: ['spec', 'power', 'deratingFraction'], message: 'Too big: expected number to be <=1' })).toBe('Share of derated power must be at most 100 %');
     expect(issueMessage({ code: 'invalid_type', expected: 'number', path: ['card', 'izt'], message: 'Invalid input: expected number, received string' })).toBe('IZT: give a number');
     // the contracts' own messages pass unchanged

@@ -149,6 +149,8 @@ export function isGenericIssueMessage(message: string): boolean {
  * as written; zod's generic ones as "VZ max must be above 0 V", "IZT: give a number".
  */
 export function issueMessage(issue: LabelledIssue): string {
+  // The physical bounds (units/bounds.ts) say the range in words and units; they only lack the field's name.
+  if (/^must be /.test(issue.message)) return `${fieldName(issue.path)} ${issue.message}`;
   if (!isGenericIssueMessage(issue.message)) return issue.message;
   const name = fieldName(issue.path);
   const limit = (x: number | bigint | undefined) => fieldValue(issue.path, Number(x));
