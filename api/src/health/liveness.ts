@@ -15,7 +15,16 @@ export function answerLivenessFirst(server: Server): void {
   server.removeAllListeners('request');
   server.on('request', (req: IncomingMessage, res: ServerResponse) => {
     if (req.url === LIVENESS_PATH && (req.method === 'GET' || req.method === 'HEAD')) {
-      res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', 'x-content-type-options': 'nosniff', 'content-length': BODY.length });
+      // The headers every response carries (common/security), fixed here: a JSON answer needs no policy beyond 'none'.
+      res.writeHead(200, {
+        'content-type': 'application/json; charset=utf-8',
+        'cache-control': 'no-store',
+        'x-content-type-options': 'nosniff',
+        'content-security-policy': "default-src 'none'; frame-ancestors 'none'",
+        'x-frame-options': 'DENY',
+        'referrer-policy': 'no-referrer',
+        'content-length': BODY.length,
+      });
       res.end(req.method === 'HEAD' ? undefined : BODY);
       return;
     }
