@@ -4,11 +4,12 @@
 // in the foreground. Ctrl-C stops everything it started.
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
-import { buildAll, ensureDebianPackages, ensureNodeModules } from './lib/bootstrap.mjs';
+import { RECORD_FONTS, buildAll, ensureDebianFiles, ensureDebianPackages, ensureNodeModules } from './lib/bootstrap.mjs';
 
 const root = new URL('..', import.meta.url).pathname;
 try {
   ensureDebianPackages(['mariadb-server', 'mariadb-client'], ['mariadbd', 'mariadb-install-db']);
+  ensureDebianFiles(['fonts-dejavu-core'], RECORD_FONTS);
   ensureNodeModules(root);
   buildAll(root);
 } catch (error) {

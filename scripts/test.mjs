@@ -9,7 +9,7 @@ import { spawn } from 'node:child_process';
 import { createWriteStream, mkdirSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
-import { buildAll, ensureDebianPackages, ensureNodeModules } from './lib/bootstrap.mjs';
+import { RECORD_FONTS, buildAll, ensureDebianFiles, ensureDebianPackages, ensureNodeModules } from './lib/bootstrap.mjs';
 
 const root = new URL('..', import.meta.url).pathname;
 const started = Date.now();
@@ -119,6 +119,7 @@ async function endToEnd() {
 async function main() {
   await step('set-up (Debian packages, npm ci, contracts build)', () => 'done', async () => {
     ensureDebianPackages(['mariadb-server', 'mariadb-client'], ['mariadbd', 'mariadb-install-db']);
+    ensureDebianFiles(['fonts-dejavu-core'], RECORD_FONTS);
     ensureDebianPackages(['chromium'], ['chromium']);
     ensureNodeModules(root);
     return run('npm', ['run', 'build', '-w', 'contracts']);

@@ -125,6 +125,7 @@ export declare const paths: {
   datasheets: string;
   badUploads: string;
   catalogue: string;
+  scanned: string;
   demoCatalogue: string;
   measurements: string;
 };
@@ -214,3 +215,12 @@ export declare function generateRandomDatasheet(
 
 /** "name=value" labels of a choice set (one per choice; vocabulary and clutter per item), for scoring per choice. */
 export declare function layoutChoiceLabels(choices: LayoutChoices): string[];
+
+/** A scanned copy of a fixture datasheet: every page an image, the original's answer key page for page. */
+export interface ScannedFixture {
+  name: string;
+  pdfPath: string;
+  original: DatasheetFixture;
+}
+
+export declare function listScannedFixtures(): ScannedFixture[];

@@ -10,6 +10,7 @@ const paths = {
   datasheets: path.join(root, 'datasheets'),
   badUploads: path.join(root, 'bad-uploads'),
   catalogue: path.join(root, 'catalogue'),
+  scanned: path.join(root, 'scanned'),
   demoCatalogue: path.join(root, 'catalogue', 'demo-catalogue.json'),
   measurements: path.join(root, 'measurements'),
 };
@@ -72,4 +73,26 @@ function layoutChoiceLabels(choices) {
   return loadRandomLayout().choiceLabels(choices);
 }
 
-module.exports = { paths, badUploads, loadDemoCatalogue, listDatasheetFixtures, listMeasurementFixtures, generateRandomDatasheet, layoutChoiceLabels };
+/** Scanned copies (image-only pages) of some datasheets; the original's answer key holds page for page. */
+function listScannedFixtures() {
+  const originals = listDatasheetFixtures();
+  return fs
+    .readdirSync(paths.scanned)
+    .filter((f) => f.endsWith('.scanned.pdf'))
+    .sort()
+    .map((f) => {
+      const original = originals.find((o) => o.name === f.replace(/\.scanned\.pdf$/, '.pdf'));
+      return { name: f, pdfPath: path.join(paths.scanned, f), original };
+    });
+}
+
+module.exports = {
+  paths,
+  badUploads,
+  loadDemoCatalogue,
+  listDatasheetFixtures,
+  listScannedFixtures,
+  listMeasurementFixtures,
+  generateRandomDatasheet,
+  layoutChoiceLabels,
+};

@@ -30,5 +30,7 @@ export default defineConfig({
     setupFiles: ['./src/testing/setup-tests.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
     css: false,
+    // Rendering Mantine in jsdom on a busy two-core machine can take seconds per test; a limit, not a measurement.
+    testTimeout: 30_000,
   },
 });

@@ -17,117 +17,12 @@ import { ensureDatabase, startMariaDb } from '../src/dev/mariadb-server';
 import { SearchRepository } from '../src/search/search.repository';
 import { SearchService } from '../src/search/search.service';
 import { rankByText, type TextRecord } from '../src/search/text-ranking';
+import { TextIndexRepository } from '../src/text-index/text-index.repository';
 import { median, p90, seededRandom } from './bench-support';
+import { ALTERNATES, HOUSE_PARTS, loadLargeCatalogue, PACKAGES } from './large-catalogue';
 
-const PARTS = 100_000;
-const MAKERS = 40;
-const HOUSE_PARTS = 2_000;
-const ALTERNATES = 4;
+const PARTS = Number(process.env.BENCH_PARTS ?? 100_000);
 const ROUNDS = 15;
-const PACKAGES = ['SOD-123', 'SOD-123F', 'SOD-323', 'SOD-523', 'DO-35', 'DO-41', 'SMA', 'SMB', 'SOT-23', 'MELF'];
-
-
-const value = (v: number) => ({ value: v, printed: null, provenance: { source: 'imported', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
-
-async function load(sequelize: Sequelize): Promise<void> {
-  const rnd = seededRandom(20261207);
-  const insert = (sql: string, replacements: unknown[]) => sequelize.query(sql, { replacements, type: QueryTypes.INSERT });
-  await insert(`INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`, []);
-  const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
-  await insert(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, makers);
-  const CHUNK = 2000;
-  for (let start = 0; start < PARTS; start += CHUNK) {
-    const parts: unknown[] = [];
-    const cards: unknown[] = [];
-    for (let i = start; i < Math.min(PARTS, start + CHUNK); i++) {
-      const vz = Math.round(Math.exp(Math.log(2.4) + rnd() * Math.log(75 / 2.4)) * 10) / 10;
-      const maker = Math.floor(rnd() * MAKERS);
-      const hasCard = rnd() < 0.9;
-      const tol = [0.01, 0.02, 0.05, 0.05, 0.1][Math.floor(rnd() * 5)];
-      const pd = [0.35, 0.5, 0.5, 1, 1.5, 3][Math.floor(rnd() * 6)];
-      const izt = vz < 12 ? 0.005 : 0.002;
-      const mpn = `ZX${String(maker).padStart(2, '0')}-${vz.toFixed(1).replace('.', 'V')}-${i}`;
-      parts.push(i + 1, maker + 1, makers[maker], mpn, PACKAGES[i % PACKAGES.length], hasCard ? 1 : null, hasCard ? vz : null, hasCard ? izt : null, hasCard ? pd : null);
-      if (hasCard) {
-        const fields = {
-          vzMin: value(Number((vz * (1 - tol)).toFixed(3))),
-          vzNom: value(vz),
-          vzMax: value(Number((vz * (1 + tol)).toFixed(3))),
-          izt: value(izt),
-          zzt: value(Math.round(5 + vz * 1.5)),
-          izk: value(0.00025),
-          zzk: value(Math.round(400 + vz * 20)),
-          pdMax: value(pd),
-          tjMax: value(150),
-          rthJA: value(Math.round(125 / pd)),
-        };
-        cards.push(i + 1, JSON.stringify(fields));
-      }
-    }
-    await insert(
-      `INSERT INTO vendor_parts (id, manufacturer_id, manufacturer_name, mpn, package, card_version, vz_nom, izt, pd_max, created_at, updated_at) VALUES ${Array.from({ length: parts.length / 9 }, () => '(?, ?, ?, ?, ?, ?, ?, ?, ?, NOW(), NOW())').join(', ')}`,
-      parts,
-    );
-    await insert(`INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${Array.from({ length: cards.length / 2 }, () => '(?, 1, ?, NOW(), NOW())').join(', ')}`, cards);
-  }
-
-  // House parts, each with an approved source (approved by its case) and four alternates; three of these carry cases.
-  const houseParts: unknown[] = [];
-  for (let h = 1; h <= HOUSE_PARTS; h++) houseParts.push(h, `HP-${String(h).padStart(5, '0')}`, `Regulator diode, invented bench part ${h}, ${['clamp', 'reference', 'shunt regulator', 'gate protection'][h % 4]}`);
-  await insert(`INSERT INTO house_parts (id, part_number, description, status, created_at, updated_at) VALUES ${Array.from({ length: HOUSE_PARTS }, () => "(?, ?, ?, 'active', NOW(), NOW())").join(', ')}`, houseParts);
-  const sources: unknown[] = [];
-  const cases: unknown[] = [];
-  const STATES: Array<[string, number]> = [['cleared', 0.4], ['cleared-with-conditions', 0.1], ['rejected', 0.15], ['revoked', 0.05], ['in-review', 0.15], ['draft', 0.15]];
-  const pickState = () => {
-    let x = rnd();
-    for (const [state, share] of STATES) if ((x -= share) < 0) return state;
-    return 'draft';
-  };
-  const used = new Set<number>();
-  const pickPart = () => {
-    for (;;) {
-      const id = 1 + Math.floor(rnd() * PARTS);
-      if (!used.has(id)) {
-        used.add(id);
-        return id;
-      }
-    }
-  };
-  let caseId = 0;
-  for (let h = 1; h <= HOUSE_PARTS; h++) {
-    const reference = pickPart();
-    sources.push(h, reference);
-    caseId++;
-    cases.push(caseId, h, reference, 1, 'approved', null, 1);
-    for (let a = 0; a < ALTERNATES; a++) {
-      const vp = pickPart();
-      sources.push(h, vp);
-      if (a === ALTERNATES - 1) continue;
-      const state = pickState();
-      const decided = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'].includes(state);
-      caseId++;
-      cases.push(caseId, h, vp, 1, state, decided ? (state === 'cleared-with-conditions' ? 'sample five per lot' : null) : null, decided ? 1 : null);
-      // One decided case in twenty has a re-check open above it.
-      if (decided && rnd() < 0.05) {
-        caseId++;
-        cases.push(caseId, h, vp, 2, 'draft', null, null);
-      }
-    }
-  }
-  for (let i = 0; i < sources.length; i += 2000) {
-    const chunk = sources.slice(i, i + 2000);
-    await insert(`INSERT INTO house_part_sources (house_part_id, vendor_part_id, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 2 }, () => '(?, ?, NOW(), NOW())').join(', ')}`, chunk);
-  }
-  for (let i = 0; i < cases.length; i += 7 * 500) {
-    const chunk = cases.slice(i, i + 7 * 500);
-    await insert(
-      `INSERT INTO qualifications (id, house_part_id, vendor_part_id, revision, state, decision_text, decided_by_id, overall, spec_version, card_version, evaluation, summary, prepared_by_id, recheck_reasons, decided_at, created_at, updated_at)
-       VALUES ${Array.from({ length: chunk.length / 7 }, () => "(?, ?, ?, ?, ?, ?, ?, 'pass', 1, 1, '{}', '', 1, '[]', NOW(), NOW(), NOW())").join(', ')}`,
-      chunk,
-    );
-  }
-  await sequelize.query('ANALYZE TABLE vendor_parts, rating_cards, house_parts, house_part_sources, qualifications', { type: QueryTypes.SELECT });
-}
 
 async function main() {
   const dir = resolve(__dirname, '..', '..', '.data-test', `bench-search-${process.pid}`);
@@ -137,11 +32,11 @@ async function main() {
     const sequelize = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: server.port, database: 'bench', username: 'bench', password: 'bench-only-local', logging: false, define: { underscored: true }, timezone: '+00:00' });
     await migrateUp(sequelize);
     const t0 = performance.now();
-    await load(sequelize);
+    await loadLargeCatalogue(sequelize, PARTS);
     const [{ n: caseCount }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM qualifications', { type: QueryTypes.SELECT });
     console.log(`loaded ${PARTS} vendor parts (90 % with cards), ${HOUSE_PARTS} house parts, ${HOUSE_PARTS * (1 + ALTERNATES)} sources, ${caseCount} cases in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
 
-    const service = new SearchService(new SearchRepository(sequelize as never));
+    const service = new SearchService(new SearchRepository(sequelize as never), new TextIndexRepository(sequelize as never));
     const floor: number[] = [];
     for (let r = 0; r < ROUNDS; r++) {
       const s = performance.now();

@@ -10,6 +10,7 @@ import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
 import { securityHeaders } from './common/security/security-headers';
 import type { Env } from './config/env';
+import { answerLivenessFirst } from './health/liveness';
 
 export interface CreateAppOptions {
   logger?: LoggerService | LogLevel[] | false;
@@ -23,6 +24,7 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
     logger: options.logger ?? ['error', 'warn', 'log'],
     bodyParser: true,
   });
+  answerLivenessFirst(app.getHttpServer());
   // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (none by default),
   // so a client cannot pick its own address to dodge the per-address limits.
   app.set('trust proxy', env.TRUST_PROXY);

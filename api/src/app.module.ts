@@ -25,6 +25,7 @@ import { StorageModule } from './storage/storage.module';
 import { SearchModule } from './search/search.module';
 import { MeasurementsModule } from './measurements/measurements.module';
 import { SeedModule } from './seed/seed.module';
+import { TextIndexModule } from './text-index/text-index.module';
 import { UsersModule } from './users/users.module';
 import { VendorPartsModule } from './vendor-parts/vendor-parts.module';
 
@@ -48,6 +49,7 @@ export class AppModule {
         ConfigModule.forRoot(env),
         DatabaseModule,
         ClockModule,
+        TextIndexModule,
         StorageModule,
         MailModule,
         RateLimitsModule,

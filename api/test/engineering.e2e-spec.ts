@@ -62,7 +62,7 @@ describe('engineering routes against the running app', () => {
       .set('Authorization', `Bearer ${tokens.engineer}`)
       .send({ card: { ...card, vzMin: 5.3 }, currents: [0.01] });
     expect(contradiction.status).toBe(400);
-    expect(contradiction.body.errors).toEqual([{ path: 'card.vzMin', message: expect.stringMatching(/vzMin .* is above vzNom/) }]);
+    expect(contradiction.body.errors).toEqual([{ path: 'card.vzMin', message: expect.stringMatching(/VZ min \(.*\) is above VZ nom/) }]);
     expect(contradiction.body.correlationId).toEqual(expect.any(String));
 
     const wrongType = await t.http

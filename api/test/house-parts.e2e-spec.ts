@@ -94,6 +94,27 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect((await t.http.put(`/api/house-parts/${id}/spec`).set(auth(buyer)).send({ baseVersion: 2, spec: demoSpec() })).status).toBe(403);
   });
 
+  it('a save that changes nothing makes no version and tells no subscriber (so no decided case is flagged)', async () => {
+    const id = await createHousePart(t.http, engineer, 'HP-SPEC-SAME');
+    await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec(), note: 'first issue' });
+    const events = t.stack.app.get(CatalogueEvents);
+    const seen: CatalogueChange[] = [];
+    const off = events.subscribe(async (change) => {
+      seen.push(change);
+    });
+    // What an editor sends back unchanged: no note, values through a unit round trip
+    // (5 mA typed back reads 0.005000000000000001), packages in another order, defaults spelt out.
+    const echoed = demoSpec({ iRef: 0.005000000000000001, packages: ['SOD-323', 'SOD-123'], vz: { min: 4.85, nom: 5.1, max: 5.359999999999999 } });
+    const same = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: echoed });
+    expect(same.status).toBe(200);
+    expect(same.body.version).toBe(1);
+    const noteOnly = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec(), note: 'just saying' });
+    expect(noteOnly.body.version).toBe(1);
+    off();
+    expect(seen).toEqual([]);
+    expect(await t.select('SELECT version FROM house_part_specs WHERE house_part_id = ?', [id])).toEqual([{ version: 1 }]);
+  });
+
   it('names the field of every bad spec value', async () => {
     const id = await createHousePart(t.http, engineer, 'HP-SPEC-BAD');
     const put = (spec: unknown) => t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec });

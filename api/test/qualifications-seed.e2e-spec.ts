@@ -17,7 +17,7 @@ describe('demo qualifications seed (real MariaDB)', () => {
     seconds = (await t.stack.app.get(QualificationsSeeder).run()).seconds;
     await t.stack.app.get(MeasurementsSeeder).run();
     engineer = await t.tokenFor('engineer');
-  });
+  }, 300_000); // the whole demo through the real services: slow on a loaded two-core machine
   afterAll(() => t.close());
 
   it('has a case in every state, prepared by the demo engineer and decided by the second engineer', async () => {

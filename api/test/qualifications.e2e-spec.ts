@@ -284,7 +284,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect((await t.http.put(`/api/vendor-parts/${ids2.vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields: passingCard() })).status).toBe(200);
     const draft = (await open(ids2)).body;
 
-    expect((await t.http.put(`/api/house-parts/${ids.housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: passingSpec(), note: 'same limits, new note' })).status).toBe(200);
+    expect((await t.http.put(`/api/house-parts/${ids.housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: { ...passingSpec(), zdMax: 59 }, note: 'Zd limit tightened' })).status).toBe(200);
     const rejected = (await t.http.get(`/api/qualifications/${decided.id}`).set(auth(engineer))).body;
     expect(rejected).toMatchObject({ needsRecheck: true, recheckReasons: [{ cause: 'spec-changed', detail: 'spec version 2' }] });
     const stale = await act(draft.id, 'submit', {}, engineer);
@@ -429,6 +429,18 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     });
     expect(cleared.recipients).toEqual(['buyer@demo.test']);
     expect(cleared.body).toMatch(/Tomas Eklund cleared Fennick Semiconductor FZ-\d+ as a source of HPQ-\d+/);
+    // links are absolute (PUBLIC_URL, else the app's own address)
+    expect(cleared.body).toContain(`${t.stack.url}/qualifications/${c.id}`);
+    expect(cleared.body).not.toMatch(/(^|\s)\/(qualifications|sources)/m);
+    // the engineer who prepared the case hears the decision
+    const decided = await eventually(async () => {
+      await mail.flush();
+      return (await t.capturedMail()).find((m) => m.subject.startsWith(`Case #${c.id} decided`));
+    });
+    expect(decided.recipients).toEqual(['engineer@demo.test']);
+    expect(decided.subject).toBe(`Case #${c.id} decided: Fennick Semiconductor FZ-${n} for HPQ-${n}: Cleared`);
+    expect(decided.body).toMatch(/Note: all checks pass/);
+    expect(decided.body).toContain(`${t.stack.url}/qualifications/${c.id}`);
 
     await act(c.id, 'revoke', { reason: 'lot failed incoming inspection' }, reviewer);
     const revoked = await eventually(async () => {

@@ -1,3 +1,4 @@
+import { normalizeBasis, normalizeRequestFor, toEngineeringCard, type Spec } from '@shuntwise/contracts';
 import { CatalogueEvents, type CatalogueChange } from '../src/catalogue-events/catalogue-events.service';
 import { createHousePart, createVendorPart, demoCardFields, demoSpec } from './helpers/catalogue-fixtures';
 import { createTestApp, type TestApp } from './helpers/test-app';
@@ -11,7 +12,7 @@ describe('rating cards (real MariaDB)', () => {
   let maker = 0;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
   const newPart = () => createVendorPart(t.http, engineer, { manufacturer: 'Nettlecombe Devices', mpn: `NMZ-${++maker}` });
-  const put = (id: number, version: number, fields: unknown, token = engineer) => t.http.put(`/api/vendor-parts/${id}/rating-card`).set(auth(token)).send({ version, fields });
+  const put = (id: number, version: number, fields: unknown, token = engineer) => t.http.put(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(token)).send({ version, fields });
   const errorPaths = (body: { errors?: Array<{ path: string }> }) => (body.errors ?? []).map((e) => e.path);
 
   beforeAll(async () => {
@@ -22,7 +23,7 @@ describe('rating cards (real MariaDB)', () => {
 
   it('starts empty, saves a whole card with provenance and who confirmed it, and shows the engineering reading', async () => {
     const id = await newPart();
-    const empty = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer));
+    const empty = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(engineer));
     expect(empty.status).toBe(200);
     expect(empty.body).toMatchObject({ vendorPartId: id, version: 0, fields: {}, issues: [], engineering: { result: null, reason: expect.stringMatching(/vzNom and izt/) } });
 
@@ -153,13 +154,41 @@ describe('rating cards (real MariaDB)', () => {
     await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ iRef: 2e-3 }) });
     await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: id });
 
-    const view = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(designer));
+    const view = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(designer));
     expect(view.body.engineering.basis).toEqual({ housePartId, partNumber: 'HP-CARD-1', specVersion: 1 });
     const points = view.body.engineering.result.points as Array<{ current: number; tempC: number }>;
     expect([...new Set(points.map((p) => p.current))]).toEqual([0.25e-3, 1e-3, 2e-3, 20e-3]);
     expect([...new Set(points.map((p) => p.tempC))]).toEqual([-40, 25, 85]);
-    const explicit = await t.http.get(`/api/vendor-parts/${id}/rating-card?housePartId=${housePartId}`).set(auth(designer));
+    const explicit = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering&housePartId=${housePartId}`).set(auth(designer));
     expect(explicit.body.engineering.basis.housePartId).toBe(housePartId);
+
+    // The card editor asks POST /engineering/normalize with the request contracts' normalizeBasis builds from the
+    // spec (as the web does); the read and the editor must show the same numbers, from the one function.
+    const spec = (await t.http.get(`/api/house-parts/${housePartId}/spec`).set(auth(designer))).body as { spec: Spec; version: number };
+    const card = toEngineeringCard(view.body.fields)!;
+    const editorRequest = normalizeRequestFor(card, normalizeBasis(card, { spec: spec.spec, partNumber: 'HP-CARD-1', version: spec.version }));
+    const editor = await t.http.post('/api/engineering/normalize').set(auth(engineer)).send(editorRequest);
+    expect(editor.status).toBe(200);
+    expect(editor.body).toEqual(view.body.engineering.result);
+    // With no spec the editor's stated defaults (the card's test points and 1, 5, 10, 20 mA at 25 °C) are the read's too.
+    const lone = await newPart();
+    const own = await put(lone, 0, demoCardFields());
+    const ownCard = toEngineeringCard(own.body.fields)!;
+    const editorOwn = await t.http.post('/api/engineering/normalize').set(auth(engineer)).send(normalizeRequestFor(ownCard, normalizeBasis(ownCard, null)));
+    expect(editorOwn.body).toEqual(own.body.engineering.result);
+    expect([...new Set((own.body.engineering.result.points as Array<{ current: number }>).map((p) => p.current))]).toEqual([0.25e-3, 1e-3, 5e-3, 10e-3, 20e-3]);
+  });
+
+  it('reads the card without computing its engineering summary unless asked', async () => {
+    const id = await newPart();
+    await put(id, 0, demoCardFields());
+    const plain = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(designer));
+    expect(plain.status).toBe(200);
+    expect(plain.body).toMatchObject({ vendorPartId: id, version: 1, issues: expect.any(Array) });
+    expect(plain.body).not.toHaveProperty('engineering');
+    const asked = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(designer));
+    expect(asked.body.engineering.result.model.basis).toBe('two-point');
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card?include=everything`).set(auth(designer))).status).toBe(400);
   });
 
   it('tells subscribers of a new card version inside the transaction', async () => {

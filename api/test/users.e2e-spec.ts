@@ -4,9 +4,10 @@ import { createTestApp, eventually, type TestApp } from './helpers/test-app';
 describe('invitations through the real SMTP fake', () => {
   let t: TestApp;
   let admin: string;
+  let engineer: string;
   beforeAll(async () => {
     t = await createTestApp();
-    admin = await t.tokenFor('admin');
+    [admin, engineer] = await Promise.all([t.tokenFor('admin'), t.tokenFor('engineer')]);
   });
   afterAll(() => t.close());
 
@@ -54,6 +55,34 @@ describe('invitations through the real SMTP fake', () => {
     const res = await t.http.post('/api/auth/invitations/accept').send({ token: linkToken(mail.body), name: 'Late Person', password: 'a-long-enough-password' });
     expect(res.status).toBe(404);
     expect(res.body.message).toMatch(/expired/);
+  });
+
+  it('resends an invitation with a new link (the old one stops working) and revokes one; admins only', async () => {
+    const auth = { Authorization: `Bearer ${admin}` };
+    const invited = await t.http.post('/api/users/invitations').set(auth).send({ email: 'resend.me@demo.test', name: 'Resend Me', role: 'designer' });
+    const first = await eventually(async () => (await t.capturedMail()).find((m) => m.recipients.includes('resend.me@demo.test')));
+    const oldToken = linkToken(first.body)!;
+    // links in mail are absolute: the public URL, then the path
+    expect(first.body).toContain(`${t.stack.url}/invitation/${oldToken}`);
+
+    expect((await t.http.post(`/api/users/invitations/${invited.body.id}/resend`).set('Authorization', `Bearer ${engineer}`)).status).toBe(403);
+    const resent = await t.http.post(`/api/users/invitations/${invited.body.id}/resend`).set(auth);
+    expect(resent.status).toBe(200);
+    const second = await eventually(async () => (await t.capturedMail()).filter((m) => m.recipients.includes('resend.me@demo.test'))[1]);
+    const newToken = linkToken(second.body)!;
+    expect(newToken).not.toBe(oldToken);
+    expect((await t.http.get(`/api/auth/invitations/${oldToken}`)).status).toBe(404);
+    expect((await t.http.get(`/api/auth/invitations/${newToken}`)).status).toBe(200);
+
+    expect((await t.http.post(`/api/users/invitations/${invited.body.id}/revoke`).set('Authorization', `Bearer ${engineer}`)).status).toBe(403);
+    const revoked = await t.http.post(`/api/users/invitations/${invited.body.id}/revoke`).set(auth);
+    expect(revoked.status).toBe(200);
+    expect(revoked.body.revokedAt).toEqual(expect.any(String));
+    expect((await t.http.get(`/api/auth/invitations/${newToken}`)).status).toBe(404);
+    const late = await t.http.post('/api/auth/invitations/accept').send({ token: newToken, name: 'Resend Me', password: 'a-long-enough-password' });
+    expect(late.status).toBe(404);
+    expect((await t.http.post(`/api/users/invitations/${invited.body.id}/resend`).set(auth)).status).toBe(409);
+    expect((await t.http.post('/api/users/invitations/999999/revoke').set(auth)).status).toBe(404);
   });
 
   it('refuses to invite an existing user (409) and a non-admin (403)', async () => {

@@ -19,16 +19,32 @@ export function haveCommands(...commands) {
   return commands.every((c) => spawnSync('sh', ['-c', `command -v ${c}`], { stdio: 'ignore' }).status === 0);
 }
 
-/** Installs Debian packages with apt-get when the commands they provide are missing. */
-export function ensureDebianPackages(packages, commands) {
-  if (haveCommands(...commands)) return;
+/** Installs Debian packages with apt-get when the commands (or files, e.g. a library) they provide are missing. */
+export function ensureDebianPackages(packages, commands, files = []) {
+  const present = () => haveCommands(...commands) && files.every((f) => existsSync(f));
+  if (present()) return;
+  aptInstall(packages);
+  if (!present()) throw new Error(`after installing ${packages.join(' ')}, still missing: ${[...commands, ...files].join(' ')}`);
+}
+
+/** Installs Debian packages with apt-get when files they provide are missing (fonts, data). */
+export function ensureDebianFiles(packages, files) {
+  const missing = () => files.filter((f) => !existsSync(f));
+  if (missing().length === 0) return;
+  aptInstall(packages);
+  if (missing().length) throw new Error(`after installing ${packages.join(' ')}, still missing: ${missing().join(' ')}`);
+}
+
+/** The DejaVu Sans files the decision-record PDFs embed (api/src/qualifications/records/record-pdf.ts). */
+export const RECORD_FONTS = ['/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf', '/usr/share/fonts/truetype/dejavu/DejaVuSans-Bold.ttf'];
+
+function aptInstall(packages) {
   console.log(`[setup] installing Debian packages: ${packages.join(' ')}`);
   const sudo = process.getuid && process.getuid() === 0 ? [] : ['sudo'];
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   const run = (args) => execFileSync(sudo.length ? 'sudo' : args[0], sudo.length ? args : args.slice(1), { stdio: 'inherit', env });
   run(['apt-get', 'update', '-qq']);
   run(['apt-get', 'install', '-y', '-qq', '--no-install-recommends', ...packages]);
-  if (!haveCommands(...commands)) throw new Error(`after installing ${packages.join(' ')}, still missing: ${commands.join(' ')}`);
 }
 
 /** Newest modification time under the given paths (files only; skips node_modules and dist). */

@@ -8,6 +8,7 @@ import { mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { corruptPdf, encryptedPdf, notAPdf, scannedPdf, truncatedPdf } from './lib/bad-uploads';
 import { buildCatalogue } from './lib/catalogue';
+import { rasterisePdf } from './lib/raster';
 import { brackenford, Built, corriebank, lumenvale } from './lib/datasheets-a';
 import { aldmoor, nettlecombe, quarryhill } from './lib/datasheets-b';
 import { ostrander, tevorrow } from './lib/datasheets-c';
@@ -18,6 +19,12 @@ const root = join(__dirname, '..');
 const datasheetDir = join(root, 'datasheets');
 const badDir = join(root, 'bad-uploads');
 const catalogueDir = join(root, 'catalogue');
+const scannedDir = join(root, 'scanned');
+/** Datasheets that also get a scanned copy (image-only pages, the same answer key page for page). */
+const SCANNED: Array<{ layout: keyof typeof SERIES; seed: number }> = [
+  { layout: 'brz', seed: 301 },
+  { layout: 'cbx', seed: 302 },
+];
 
 const LAYOUTS: Array<[keyof typeof SERIES, (d: SeriesData) => Promise<Built>]> = [
   ['brz', brackenford],
@@ -35,7 +42,7 @@ function json(value: unknown): string {
 }
 
 async function main(): Promise<void> {
-  for (const dir of [datasheetDir, badDir, catalogueDir]) {
+  for (const dir of [datasheetDir, badDir, catalogueDir, scannedDir]) {
     mkdirSync(dir, { recursive: true });
     for (const f of readdirSync(dir)) rmSync(join(dir, f));
   }
@@ -59,6 +66,12 @@ async function main(): Promise<void> {
   writeFileSync(join(badDir, 'corrupt.pdf'), corruptPdf());
   writeFileSync(join(badDir, 'encrypted.pdf'), await encryptedPdf());
   writeFileSync(join(badDir, 'scanned.pdf'), await scannedPdf());
+  for (const { layout, seed } of SCANNED) {
+    const file = SERIES[layout].file;
+    const scan = await rasterisePdf(pdfs.get(layout)!, { seed });
+    writeFileSync(join(scannedDir, file.replace(/\.pdf$/, '.scanned.pdf')), scan.pdf);
+    console.log(`scanned/${file}: ${scan.pages.length} pages at ${scan.dpi} dpi, ${scan.pdf.length} bytes`);
+  }
   console.log(`bad-uploads: ${readdirSync(badDir).length} files`);
 
   const catalogue = buildCatalogue(series, keys);

@@ -9,6 +9,8 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 120_000,
     fileParallelism: false,
+    // Server round trips on a busy two-core machine take longer than expect.poll's default second.
+    expect: { poll: { timeout: 15_000 } },
     setupFiles: ['./support/csp-setup.ts'],
     reporters: ['default'],
   },

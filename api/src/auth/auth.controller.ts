@@ -24,7 +24,7 @@ export class AuthController {
   @AnyRole()
   @Get('me')
   me(@CurrentUser() user: AuthUser) {
-    return this.auth.me(user.id);
+    return this.auth.me(user);
   }
 
   @ApiBearerAuth()

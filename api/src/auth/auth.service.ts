@@ -4,6 +4,7 @@ import { JwtService } from '@nestjs/jwt';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { AcceptInvitationRequest, LoginRequest, LoginResponse, UserSummary } from '@shuntwise/contracts';
 import { Sequelize } from 'sequelize-typescript';
+import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, type Env } from '../config/env';
 import type { User } from '../users/user.model';
 import { UsersRepository } from '../users/users.repository';
@@ -39,15 +40,14 @@ export class AuthService {
     if (user) await user.increment('tokenVersion');
   }
 
-  async me(userId: number): Promise<UserSummary> {
-    const user = await this.users.findById(userId);
-    if (!user) throw new UnauthorizedException('Your session has ended; sign in again');
-    return summary(user);
+  /** The signed-in user as the token check read it from the users row in this very request: no second read. */
+  me(user: AuthUser): UserSummary {
+    return { id: user.id, email: user.email, name: user.name, role: user.role };
   }
 
   async findInvitation(token: string) {
     const invitation = await this.users.findInvitationByHash(hashToken(token));
-    if (!invitation || invitation.acceptedAt || invitation.expiresAt.getTime() < Date.now()) {
+    if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt.getTime() < Date.now()) {
       throw new NotFoundException('This invitation is unknown, already used or expired; ask an admin for a new one');
     }
     return { email: invitation.email, name: invitation.name, role: invitation.role, expiresAt: invitation.expiresAt.toISOString() };
@@ -58,7 +58,7 @@ export class AuthService {
     const passwordHash = await hashPassword(request.password);
     const user = await this.sequelize.transaction(async (transaction) => {
       const invitation = await this.users.findInvitationByHash(hashToken(request.token), transaction);
-      if (!invitation || invitation.acceptedAt || invitation.expiresAt.getTime() < Date.now()) {
+      if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt.getTime() < Date.now()) {
         throw new NotFoundException('This invitation is unknown, already used or expired; ask an admin for a new one');
       }
       await invitation.update({ acceptedAt: new Date() }, { transaction });

@@ -1,3 +1,4 @@
+import { createSecretKey } from 'node:crypto';
 import { Inject, Injectable, UnauthorizedException } from '@nestjs/common';
 import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
@@ -25,7 +26,10 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-      secretOrKey: env.JWT_SECRET,
+      // A key object, not the string: jsonwebtoken otherwise tries (and fails, with a thrown
+      // error) to read the string as a public key on every request. passport-jwt hands it to
+      // jsonwebtoken.verify unchanged; its types only list string and Buffer.
+      secretOrKey: createSecretKey(Buffer.from(env.JWT_SECRET, 'utf8')) as unknown as Buffer,
       algorithms: [JWT_ALGORITHM],
       issuer: env.JWT_ISSUER,
       audience: env.JWT_AUDIENCE,
@@ -36,7 +40,7 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   async validate(payload: JwtPayload): Promise<AuthUser> {
     // A correctly signed token without an expiry would be good forever: refuse it.
     if (typeof payload.exp !== 'number' || !Number.isFinite(payload.exp)) throw new UnauthorizedException('The token has no expiry; sign in again');
-    const user = typeof payload.sub === 'number' ? await this.users.findById(payload.sub) : null;
+    const user = typeof payload.sub === 'number' ? await this.users.tokenHolder(payload.sub) : null;
     if (!user || !user.active || user.tokenVersion !== payload.tv || user.role !== payload.role) {
       throw new UnauthorizedException('Your session has ended; sign in again');
     }

@@ -18,6 +18,15 @@ export const envSchema = z.object({
 
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: port.default(3406),
+  /**
+   * Several database nodes (a Galera cluster), `host:port,host:port,…`: a new connection goes
+   * to the first that accepts one, so the API keeps working when one node goes away.
+   * Unset: DB_HOST and DB_PORT only.
+   */
+  DB_HOSTS: z
+    .string()
+    .regex(/^[^\s,:]+:\d{1,5}(,[^\s,:]+:\d{1,5})*$/, 'host:port,host:port,…')
+    .optional(),
   DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('shuntwise'),
   DB_USER: z.string().default('shuntwise'),
   DB_PASSWORD: z.string().min(1),
@@ -66,7 +75,20 @@ export const envSchema = z.object({
   MAIL_FROM: z.string().default('Shuntwise <shuntwise@demo.test>'),
   MAIL_RETRY_SECONDS: z.coerce.number().min(0.05).default(15),
 
+  /** How long the readiness check reuses its last object-store and mail probe (they are probed in the background). */
+  HEALTH_PROBE_SECONDS: z.coerce.number().min(0.05).max(300).default(5),
+  /** Outbox claims: how long a replica holds the messages it took before another may take them (seconds). */
+  MAIL_CLAIM_SECONDS: z.coerce.number().min(1).max(3600).default(120),
+
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
+  // Datasheet reading runs in a child process, killed past these limits per file (api/src/extraction-worker).
+  EXTRACTION_TIME_LIMIT_SECONDS: z.coerce.number().min(1).max(3600).default(20),
+  EXTRACTION_MEMORY_LIMIT_MB: z.coerce.number().int().min(128).max(65536).default(1024),
+  EXTRACTION_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
+  EXTRACTION_OCR: bool.default(true),
+  EXTRACTION_OCR_MAX_PAGES: z.coerce.number().int().min(0).max(500).default(10),
+  EXTRACTION_OCR_SECONDS_PER_PAGE: z.coerce.number().min(1).max(600).default(15),
+  EXTRACTION_OCR_DPI: z.coerce.number().int().min(100).max(600).default(300),
   DEMO_PASSWORD: z.string().min(8).default('shuntwise-demo'),
 });
 

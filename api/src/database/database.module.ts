@@ -1,6 +1,7 @@
 import { Global, Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { ENV, type Env } from '../config/env';
+import { RawRows } from './raw-rows';
 import { sequelizeOptions } from './sequelize-options';
 
 /** MariaDB through Sequelize. Models register themselves with SequelizeModule.forFeature; the schema comes from migrations only. */
@@ -16,5 +17,7 @@ import { sequelizeOptions } from './sequelize-options';
       }),
     }),
   ],
+  providers: [RawRows],
+  exports: [RawRows],
 })
 export class DatabaseModule {}

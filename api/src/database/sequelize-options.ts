@@ -1,5 +1,6 @@
 import type { Options } from 'sequelize';
 import type { Env } from '../config/env';
+import { parseDbHosts, pickNode } from './node-failover';
 
 /**
  * Connection settings shared by the Nest module, the migrator and the seed.
@@ -7,6 +8,7 @@ import type { Env } from '../config/env';
  * result's `meta` non-deletable and Sequelize 6's untyped raw path tries to delete it.
  */
 export function sequelizeOptions(env: Env, database = env.DB_NAME): Options {
+  const nodes = env.DB_HOSTS ? parseDbHosts(env.DB_HOSTS) : undefined;
   return {
     dialect: 'mariadb',
     host: env.DB_HOST,
@@ -19,5 +21,15 @@ export function sequelizeOptions(env: Env, database = env.DB_NAME): Options {
     timezone: '+00:00',
     dialectOptions: { connectTimeout: 5_000 },
     define: { underscored: true },
+    // Several nodes: each new pooled connection goes to the first node that accepts one.
+    hooks: nodes
+      ? {
+          beforeConnect: async (config) => {
+            const node = await pickNode(nodes);
+            config.host = node.host;
+            config.port = String(node.port);
+          },
+        }
+      : undefined,
   };
 }

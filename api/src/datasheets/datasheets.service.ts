@@ -28,6 +28,7 @@ import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { PdfReadError } from '../extraction';
+import { ExtractionLimitError } from '../extraction-worker/extraction-pool';
 import { StorageService } from '../storage/storage.service';
 import { RatingCardsService, StaleCardError } from '../vendor-parts/rating-cards.service';
 import { VendorPartsRepository } from '../vendor-parts/vendor-parts.repository';
@@ -222,6 +223,7 @@ export class DatasheetsService {
         if (status === HttpStatus.UNPROCESSABLE_ENTITY) throw new UnprocessableEntityException(error.message);
         throw new HttpException(error.message, status);
       }
+      if (error instanceof ExtractionLimitError) throw new UnprocessableEntityException(error.message);
       throw error;
     }
   }

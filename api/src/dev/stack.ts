@@ -32,6 +32,9 @@ export interface Stack {
   database: MariaDbServer;
   sequelize: Sequelize;
   s3: RunningFake;
+  /** The S3 fake can be stopped and started again (same port and folder) to test uploads while it is away. */
+  stopS3(): Promise<void>;
+  startS3(): Promise<void>;
   /** The SMTP fake can be stopped and started again to test the mail outbox. */
   stopSmtp(): Promise<void>;
   startSmtp(): Promise<void>;
@@ -69,8 +72,14 @@ export async function startStack(options: StackOptions = {}): Promise<Stack> {
     const applied = await migrateUp(sequelize);
     log(`[migrate] ${applied.length ? `applied ${applied.join(', ')}` : 'schema up to date'}`);
 
-    const s3 = await startS3Fake({ port: env.S3_FAKE_PORT, directory: join(dataDir, 'objects'), bucket: env.S3_BUCKET });
-    stopped.push(() => s3.stop());
+    const startS3 = () => startS3Fake({ port: env.S3_FAKE_PORT, directory: join(dataDir, 'objects'), bucket: env.S3_BUCKET });
+    let s3Running: RunningFake | undefined = await startS3();
+    const s3: RunningFake = { port: s3Running.port, stop: async () => stopS3() };
+    const stopS3 = async () => {
+      await s3Running?.stop();
+      s3Running = undefined;
+    };
+    stopped.push(stopS3);
     log(`[s3 fake] http://127.0.0.1:${s3.port} bucket ${env.S3_BUCKET}`);
 
     const capture = (mail: ReceivedMail) =>
@@ -99,7 +108,21 @@ export async function startStack(options: StackOptions = {}): Promise<Stack> {
     if (seed !== 'none') await app.get(DemoSeedService).run(seed);
     if (options.listen ?? true) await app.listen(env.PORT, env.HOST);
 
-    return { env, url: publicUrl(env), app, database, sequelize, s3, stopSmtp, startSmtp, stop: stopAll };
+    return {
+      env,
+      url: publicUrl(env),
+      app,
+      database,
+      sequelize,
+      s3,
+      stopS3,
+      async startS3() {
+        s3Running ??= await startS3();
+      },
+      stopSmtp,
+      startSmtp,
+      stop: stopAll,
+    };
   } catch (error) {
     await stopAll();
     throw error;

@@ -40,7 +40,7 @@ describe('fitting the SPICE reverse-breakdown law V = BV + NBV·Vt·ln(I/IBV) + 
     const model = fitBreakdownModel({ vzNom: 12, izt: 0.01, zzt: 20, izk: 0.001, zzk: 10 });
     expect(model.basis).toBe('clamped');
     expect(model.nbv).toBeGreaterThan(0);
-    expect(model.warnings[0]).toMatch(/zzk .* is not above zzt/);
+    expect(model.warnings[0]).toMatch(/ZZK .* is not above ZZT/);
   });
 
   it('with one impedance point assumes RS = 0 and says so', () => {

@@ -78,54 +78,54 @@ export function fitBreakdownModel(card: EngineeringCardInput): BreakdownModel {
       nbvVt = zzt * izt;
       rs = 0;
       warnings.push(
-        `zzk (${ohm(zzk)}) is not above zzt (${ohm(zzt)}): a junction's impedance falls with current, so the knee point is ignored; RS = 0 and zzt is kept at izt`,
+        `ZZK (${ohm(zzk)}) is not above ZZT (${ohm(zzt)}): a junction's impedance falls with current, so the knee point is ignored; RS = 0 and ZZT is kept at IZT`,
       );
     } else if (r < 0) {
       basis = 'clamped';
       nbvVt = zzt * izt;
       rs = 0;
       warnings.push(
-        `the two impedance points give RS = ${ohm(r)} (non-physical): clamped to 0 Ω keeping zzt at izt; the model's Zd at izk is ${ohm(nbvVt / izk)} against the card's ${ohm(zzk)}, so knee checks from this model understate the knee`,
+        `the two impedance points give RS = ${ohm(r)} (non-physical): clamped to 0 Ω keeping ZZT at IZT; the model's Zd at IZK is ${ohm(nbvVt / izk)} against the card's ${ohm(zzk)}, so knee checks from this model understate the knee`,
       );
     } else {
       basis = 'two-point';
       nbvVt = a;
       rs = r;
-      assumptions.push('NBV·Vt and RS solved exactly from (izt, zzt) and (izk, zzk)');
+      assumptions.push('NBV·Vt and RS solved exactly from (IZT, ZZT) and (IZK, ZZK)');
     }
   } else if (zzt !== null) {
     basis = 'izt-only';
     nbvVt = zzt * izt;
     rs = 0;
-    assumptions.push('one impedance point (izt, zzt): RS assumed 0, so all of zzt comes from the junction term (the steepest knee the model allows for this zzt)');
+    assumptions.push('one impedance point (IZT, ZZT): RS assumed 0, so all of ZZT comes from the junction term (the steepest knee the model allows for this ZZT)');
   } else if (izk !== null && zzk !== null) {
     basis = 'izk-only';
     nbvVt = zzk * izk;
     rs = 0;
-    assumptions.push('one impedance point (izk, zzk): RS assumed 0, so Zd at izt is extrapolated from the knee');
-    warnings.push('no zzt on the card: Zd at izt comes from the knee point alone');
+    assumptions.push('one impedance point (IZK, ZZK): RS assumed 0, so Zd at IZT is extrapolated from the knee');
+    warnings.push('no ZZT on the card: Zd at IZT comes from the knee point alone');
   } else {
     basis = 'none';
     nbvVt = VT_REF;
     rs = 0;
-    warnings.push('no impedance on the card: Zd is no data; V away from izt assumes an ideal junction (NBV = 1, RS = 0)');
+    warnings.push('no impedance on the card: Zd is no data; V away from IZT assumes an ideal junction (NBV = 1, RS = 0)');
   }
   if ((izk === null) !== (zzk === null)) {
-    warnings.push(izk === null ? 'zzk given without izk: the knee point is not used' : 'izk given without zzk: the knee point is not used');
+    warnings.push(izk === null ? 'ZZK given without IZK: the knee point is not used' : 'IZK given without ZZK: the knee point is not used');
   }
 
   let alphaVz = 0;
   const hasAlpha = card.tc != null;
   if (card.tc != null) {
     alphaVz = tcToVoltsPerKelvin(card.tc, vzNom);
-    assumptions.push('Vz(Tj) = Vz(25 °C) + αVz·(Tj − 25 °C) at izt; the log term follows Vt = kT/q as in SPICE');
+    assumptions.push('Vz(Tj) = Vz(25 °C) + αVz·(Tj − 25 °C) at IZT; the log term follows Vt = kT/q as in SPICE');
   } else {
-    assumptions.push('no temperature coefficient on the card: Vz at izt taken as constant with temperature');
+    assumptions.push('no temperature coefficient on the card: Vz at IZT taken as constant with temperature');
   }
   const hasVzMin = card.vzMin != null;
   const hasVzMax = card.vzMax != null;
   if (hasVzMin || hasVzMax) {
-    assumptions.push('tolerance parts share the nominal curve shifted to vzMin/vzMax at izt');
+    assumptions.push('tolerance parts share the nominal curve shifted to VZ min/VZ max at IZT');
   }
 
   return {

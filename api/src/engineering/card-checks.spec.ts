@@ -18,7 +18,7 @@ describe('card sanity checks name their field', () => {
   it('contradictions are errors: vzMin ≤ vzNom ≤ vzMax, izk < izt, vr below vz, izm ≥ izt, tjMax above the rating temperature', () => {
     const issues = checkCard({ ...good, vzMin: 5.2, vzMax: 5.0, izk: 0.02, zzk: 100, vr: 5.1, izm: 0.01, tjMax: 20 });
     expect(fields(issues, 'error')).toEqual(['vzMin', 'vzMax', 'izk', 'vr', 'izm', 'tjMax']);
-    expect(issues[0].message).toMatch(/vzMin \(5\.2 V\) is above vzNom \(5\.1 V\)/);
+    expect(issues[0].message).toMatch(/VZ min \(5\.2 V\) is above VZ nom \(5\.1 V\)/);
   });
 
   it('an impedance too large for the voltage is an error (zzt·izt ≥ vzNom)', () => {
@@ -41,7 +41,7 @@ describe('card sanity checks name their field', () => {
     expect(issues.find((i) => i.field === 'tc')!.message).toMatch(/check the unit/);
   });
 
-  it('ratings that disagree with each other are warnings (izm·vz vs pdMax, (tjMax − 25 °C)/rthJA vs pdMax)', () => {
+  it('ratings that disagree with each other are warnings (izm·vz vs pdMax, (tjMax − 25 °C)/RthJA vs pdMax)', () => {
     expect(fields(checkCard({ ...good, izm: 0.2 }), 'warning')).toEqual(['izm']);
     expect(fields(checkCard({ ...good, rthJA: 150 }), 'warning')).toEqual(['rthJA']);
   });

@@ -45,6 +45,6 @@ describe('worst-case voltage window over an envelope', () => {
     const model = fitBreakdownModel({ vzNom: 5.1, izt: 0.02, zzt: 17 });
     const w = worstCaseWindow(model, { iMin: 0.01, iMax: 0.02, taMin: 0, taMax: 50 });
     expect(w.toleranceIncluded).toBe(false);
-    expect(w.warnings.join(' ')).toMatch(/vzMin or vzMax.*no rthJA/);
+    expect(w.warnings.join(' ')).toMatch(/VZ min or VZ max.*no RthJA/);
   });
 });

@@ -27,11 +27,11 @@ export function worstCaseWindow(model: BreakdownModel, envelope: Envelope, optio
   const lowCorner: ToleranceCorner = includeTolerance && model.hasVzMin ? 'min' : 'nom';
   const highCorner: ToleranceCorner = includeTolerance && model.hasVzMax ? 'max' : 'nom';
   const toleranceIncluded = includeTolerance && model.hasVzMin && model.hasVzMax;
-  if (includeTolerance && !toleranceIncluded) warnings.push('the card lacks vzMin or vzMax: the window leaves that tolerance end out');
+  if (includeTolerance && !toleranceIncluded) warnings.push('the card lacks VZ min or VZ max: the window leaves that tolerance end out');
   const heating = selfHeating && model.rthJA !== null;
-  if (selfHeating && model.rthJA === null) warnings.push('no rthJA on the card: the window is computed at Tj = Ta');
+  if (selfHeating && model.rthJA === null) warnings.push('no RthJA on the card: the window is computed at Tj = Ta');
   if (heating) assumptions.push('Tj = Ta + RthJA·Vz·I, iterated to convergence');
-  if (envelope.iMin < model.lowestTestCurrent) warnings.push('iMin lies below the lowest current the card was measured at: the low end is extrapolated');
+  if (envelope.iMin < model.lowestTestCurrent) warnings.push('the lowest current lies below the lowest current the card was measured at: the low end is extrapolated');
 
   let atMin: EnvelopeCorner | null = null;
   let atMax: EnvelopeCorner | null = null;

@@ -43,7 +43,7 @@ describe('normalising a card to other currents and temperatures', () => {
     const response = normalize({ card: { vzNom: 10, izt: 0.0125, izm: 0.04 }, currents: [0.001, 0.05] });
     expect(response.points.every((p) => p.zd === null)).toBe(true);
     expect(response.warnings.join(' ')).toMatch(/1\.00 mA lies below .* extrapolated/);
-    expect(response.warnings.join(' ')).toMatch(/50\.0 mA exceeds izm/);
+    expect(response.warnings.join(' ')).toMatch(/50\.0 mA exceeds IZM/);
     expect(response.issues.map((i) => i.field)).toContain('zzt');
   });
 });

@@ -71,7 +71,7 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
   const assumptions: string[] = [];
   if (request.temperaturesC === undefined) assumptions.push('no temperatures asked for: evaluated at 25 °C ambient');
   if (selfHeating && model.rthJA !== null) assumptions.push('temperatures are ambients; Tj = Ta + RthJA·Vz·I, iterated to convergence');
-  else if (selfHeating) warnings.push('no rthJA on the card: no self-heating, Tj = Ta');
+  else if (selfHeating) warnings.push('no RthJA on the card: no self-heating, Tj = Ta');
   else assumptions.push('self-heating off: Tj = Ta');
   assumptions.push('Zd is the small-signal electrical impedance at Tj, as datasheets measure it');
 
@@ -79,12 +79,12 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
     if (current < model.lowestTestCurrent) {
       warnings.push(`${formatQuantity(current, 'current')} lies below the lowest current the card was measured at: extrapolated`);
     }
-    if (card.izm != null && current > card.izm) warnings.push(`${formatQuantity(current, 'current')} exceeds izm (${formatQuantity(card.izm, 'current')})`);
+    if (card.izm != null && current > card.izm) warnings.push(`${formatQuantity(current, 'current')} exceeds IZM (${formatQuantity(card.izm, 'current')})`);
   }
   const runaway = points.some((p) => Number.isNaN(p.tjC) || Number.isNaN(p.vzMin) || Number.isNaN(p.vzMax));
   if (runaway) warnings.push('thermal runaway at some points (RthJA·I·dV/dT ≥ 1): no steady state, their values are null');
   if (points.some((p) => p.vzNom < 0.5 * card.vzNom)) {
-    warnings.push('at some currents the model falls below half of vzNom: far below the knee the log law is not a good description');
+    warnings.push('at some currents the model falls below half of VZ nom: far below the knee the log law is not a good description');
   }
   // The card's own findings (the tc sign among them) follow, named by field, unless the fit said the same.
   for (const issue of issues) {

@@ -13,7 +13,7 @@ describe('power rating derated linearly to zero at tjMax', () => {
     expect(deratedPowerLimit(card, 190).limit).toBe(0);
   });
 
-  it('through rthJA the limit is (tjMax − Ta)/rthJA: 150 °C, 250 K/W at 50 °C gives 400 mW (common practice, no source)', () => {
+  it('through rthJA the limit is (tjMax − Ta)/RthJA: 150 °C, 250 K/W at 50 °C gives 400 mW (common practice, no source)', () => {
     const limit = deratedPowerLimit({ vzNom: 5.1, izt: 0.02, tjMax: 150, rthJA: 250 }, 50);
     expect(limit.basis).toBe('rthJA');
     expect(limit.limit).toBeCloseTo(0.4, 12);
@@ -28,7 +28,7 @@ describe('power rating derated linearly to zero at tjMax', () => {
   it('has no limit above the reference temperature without tjMax', () => {
     const limit = deratedPowerLimit({ vzNom: 5.1, izt: 0.02, pdMax: 0.5 }, 60);
     expect(limit.limit).toBeNull();
-    expect(limit.reason).toMatch(/no tjMax/);
+    expect(limit.reason).toMatch(/no TJ max/);
   });
 });
 
@@ -56,6 +56,6 @@ describe('worst-case power check over an envelope', () => {
 
   it('fails a current above izm', () => {
     const withIzm = { ...card, izm: 0.04 };
-    expect(powerCheck(fitBreakdownModel(withIzm), withIzm, { iMin: 0.001, iMax: 0.045, taMin: 0, taMax: 25 }).reason).toMatch(/exceeds izm/);
+    expect(powerCheck(fitBreakdownModel(withIzm), withIzm, { iMin: 0.001, iMax: 0.045, taMin: 0, taMax: 25 }).reason).toMatch(/exceeds IZM/);
   });
 });

@@ -19,7 +19,7 @@ export interface PowerLimit {
 
 /**
  * Power rating (W) at an ambient (°C): pdMax up to its reference temperature, then linear
- * to zero at tjMax; or (tjMax − Ta)/rthJA; the lower of the two when both are known.
+ * to zero at tjMax; or (tjMax − Ta)/RthJA; the lower of the two when both are known.
  */
 export function deratedPowerLimit(card: EngineeringCardInput, taC: number): PowerLimit {
   const pdRefC = card.pdRefC ?? 25;
@@ -30,13 +30,13 @@ export function deratedPowerLimit(card: EngineeringCardInput, taC: number): Powe
   }
   const fromRth = card.rthJA != null && card.tjMax != null ? Math.max(0, (card.tjMax - taC) / card.rthJA) : null;
   if (fromPd !== null && (fromRth === null || fromPd <= fromRth)) {
-    return { limit: fromPd, basis: 'pdMax', reason: `pdMax derated linearly from ${pdRefC} °C to zero at tjMax` };
+    return { limit: fromPd, basis: 'pdMax', reason: `PD max derated linearly from ${pdRefC} °C to zero at TJ max` };
   }
-  if (fromRth !== null) return { limit: fromRth, basis: 'rthJA', reason: '(tjMax − Ta)/rthJA' };
+  if (fromRth !== null) return { limit: fromRth, basis: 'rthJA', reason: '(TJ max − Ta)/RthJA' };
   if (card.pdMax != null) {
-    return { limit: null, basis: 'none', reason: `pdMax applies up to ${pdRefC} °C and the card has no tjMax to derate it above` };
+    return { limit: null, basis: 'none', reason: `PD max applies up to ${pdRefC} °C and the card has no TJ max to derate it above` };
   }
-  return { limit: null, basis: 'none', reason: 'the card gives neither pdMax nor tjMax with rthJA' };
+  return { limit: null, basis: 'none', reason: 'the card gives neither PD max nor TJ max with RthJA' };
 }
 
 export interface PowerCheckOptions {
@@ -60,9 +60,9 @@ export function powerCheck(
   const selfHeating = options.selfHeating ?? true;
   const assumptions = [`the diode may dissipate ${policyFraction * 100} % of its derated rating`];
   const warnings: string[] = [];
-  if (selfHeating && model.rthJA === null) warnings.push('no rthJA on the card: dissipation computed at Tj = Ta');
+  if (selfHeating && model.rthJA === null) warnings.push('no RthJA on the card: dissipation computed at Tj = Ta');
   const corner: ToleranceCorner = model.hasVzMax ? 'max' : 'nom';
-  if (!model.hasVzMax) warnings.push('no vzMax on the card: dissipation uses the nominal voltage');
+  if (!model.hasVzMax) warnings.push('no VZ max on the card: dissipation uses the nominal voltage');
 
   let worst: { at: EnvelopeCorner; power: number; derated: number | null; allowed: number | null; margin: number } | null = null;
   let noDataReason = '';
@@ -106,7 +106,7 @@ export function powerCheck(
       policyFraction,
       allowed: worst.allowed,
       margin: Number.isNaN(worst.margin) ? null : worst.margin,
-      reason: `iMax (${amps(current)}) exceeds izm (${amps(card.izm)})`,
+      reason: `the highest current (${amps(current)}) exceeds IZM (${amps(card.izm)})`,
       assumptions,
       warnings,
     };

@@ -89,7 +89,7 @@ describe('verdicts say why', () => {
     expect(design.selected!.resistance).toBeGreaterThanOrEqual(design.range.min!);
     expect(design.selected!.resistance).toBeLessThanOrEqual(design.range.max!);
     expect(design.outputBand!.corners).toHaveLength(32);
-    expect(design.assumptions.join(' ')).toMatch(/5 × izk/);
+    expect(design.assumptions.join(' ')).toMatch(/5 × IZK/);
     expect(design.caution).toMatch(/Safety-relevant circuits/);
   });
 

@@ -99,31 +99,31 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
   const warnings = [...model.warnings];
   const assumptions = [...model.assumptions];
   if (supply.nom === undefined) assumptions.push(`no nominal supply given: ${volts(vsNom)}, the middle of the range`);
-  if (request.diodeCurrent === undefined) assumptions.push('the simple formula aims for the diode current izt');
+  if (request.diodeCurrent === undefined) assumptions.push('the simple formula aims for the diode current IZT');
   assumptions.push(`the diode may dissipate ${powerFraction * 100} % of its derated power rating`);
   if (heat) assumptions.push('self-heating: Tj = Ta + RthJA·Vz·I, iterated to convergence');
-  else if (selfHeating) warnings.push('no rthJA on the card: self-heating left out (Tj = Ta)');
+  else if (selfHeating) warnings.push('no RthJA on the card: self-heating left out (Tj = Ta)');
   assumptions.push('the load draws a constant current; the resistor fitted may be anywhere within its tolerance');
 
   // 1. The simple formula.
   const simpleResistance = vsNom > card.vzNom ? (vsNom - card.vzNom) / (targetIz + load.max) : null;
-  if (simpleResistance === null) reasons.push(`the nominal supply ${volts(vsNom)} is not above vz (${volts(card.vzNom)})`);
+  if (simpleResistance === null) reasons.push(`the nominal supply ${volts(vsNom)} is not above VZ (${volts(card.vzNom)})`);
 
   // 2. Knee side: the highest diode voltage at the knee current sets the largest resistor.
   let kneeCurrent: number;
   if (card.izk != null) {
     kneeCurrent = kneeFactor * card.izk;
-    assumptions.push(`the diode current stays at least ${kneeFactor} × izk = ${amps(kneeCurrent)}`);
+    assumptions.push(`the diode current stays at least ${kneeFactor} × IZK = ${amps(kneeCurrent)}`);
   } else {
     kneeCurrent = KNEE_FRACTION_OF_IZT * card.izt;
-    assumptions.push(`no izk on the card: the diode current stays at least ${KNEE_FRACTION_OF_IZT * 100} % of izt = ${amps(kneeCurrent)} (common practice)`);
+    assumptions.push(`no IZK on the card: the diode current stays at least ${KNEE_FRACTION_OF_IZT * 100} % of IZT = ${amps(kneeCurrent)} (common practice)`);
   }
-  if (kneeCurrent > card.izt) warnings.push(`the knee limit ${amps(kneeCurrent)} lies above izt (${amps(card.izt)})`);
+  if (kneeCurrent > card.izt) warnings.push(`the knee limit ${amps(kneeCurrent)} lies above IZT (${amps(card.izt)})`);
   const ambients = ambient.min === ambient.max ? [ambient.min] : [ambient.min, ambient.max];
   const lowCorner: ToleranceCorner = model.hasVzMin ? 'min' : 'nom';
   const highCorner: ToleranceCorner = model.hasVzMax ? 'max' : 'nom';
   const tolCorners: ToleranceCorner[] = lowCorner === highCorner ? [lowCorner] : [lowCorner, highCorner];
-  if (!model.hasVzMin || !model.hasVzMax) warnings.push('the card lacks vzMin or vzMax: that tolerance end is taken as nominal');
+  if (!model.hasVzMin || !model.hasVzMax) warnings.push('the card lacks VZ min or VZ max: that tolerance end is taken as nominal');
 
   let vKnee = Number.NEGATIVE_INFINITY;
   let vKneeAt = ambients[0];
@@ -169,7 +169,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
       let limitedBy = allowedPower === null ? '' : `${watts(allowedPower)} allowed at ${taC} °C`;
       if (card.izm != null && card.izm < iAllow) {
         iAllow = card.izm;
-        limitedBy = `izm = ${amps(card.izm)}`;
+        limitedBy = `IZM = ${amps(card.izm)}`;
       }
       const tjC = heat ? junctionTemperatureC(model, iAllow, taC, corner) : taC;
       const v = diodeVoltage(model, iAllow, tjC, corner);
@@ -183,10 +183,10 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
   }
   let rangeMin: number | null = null;
   if (unlimitedAt !== null) {
-    minReason = `no power limit at ${unlimitedAt} °C: ${deratedPowerLimit(card, unlimitedAt).reason}, and no izm`;
+    minReason = `no power limit at ${unlimitedAt} °C: ${deratedPowerLimit(card, unlimitedAt).reason}, and no IZM`;
     reasons.push(`no data: ${minReason}`);
   } else if (allowedDiodeCurrent !== null) {
-    if (!powerKnown) warnings.push('the power rating cannot be derated over the whole ambient range: only izm limits the current there');
+    if (!powerKnown) warnings.push('the power rating cannot be derated over the whole ambient range: only IZM limits the current there');
     rangeMin = Math.max(0, rMinActual) / (1 - tol);
     if (rMinActual <= 0) minReason = `the maximum supply ${volts(supply.max)} cannot drive the diode to its limit at minimum load`;
   }

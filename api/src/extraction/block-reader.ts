@@ -1,6 +1,6 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
-import { headingPartNumber } from './part-numbers';
+import { headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
@@ -12,6 +12,8 @@ import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-dra
  * heading or the end of the page.
  */
 
+const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
+
 interface QualifierColumn {
   qualifier: Qualifier;
   x0: number;
@@ -20,6 +22,9 @@ interface QualifierColumn {
 
 function headingOf(line: Line): string | undefined {
   if (line.cells.length > 3) return undefined;
+  // "XY5V1 (IT = 5 mA, IZ(K) = 0.5 mA)": a heading with the part's test conditions in brackets.
+  const withConditions = /^(\S+)\s*\(([^()]*(?:\([^()]*\)[^()]*)*)\)$/.exec(line.cells[0].text);
+  if (withConditions && isPartNumber(withConditions[1]) && findConditions(withConditions[2]).conditions.length > 0) return withConditions[1];
   const mpn = headingPartNumber(line.cells[0].text);
   if (!mpn) return undefined;
   return line.cells.slice(1).some((c) => isNumericCell(c.text)) ? undefined : mpn;
@@ -67,6 +72,17 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         mpn = heading;
         order = orderOf(line.page, line.index);
         qualifiers = undefined;
+        for (const cond of findConditions(line.text).conditions) {
+          const si = toSi(cond.value, cond.unit, cond.kind);
+          if (si !== undefined) {
+            drafts.get(heading, order).offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(line.cells[0]), rank: 1, method: 'list' });
+          }
+        }
+        continue;
+      }
+      // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.
+      if (SECTION_TITLE.test(line.text) && line.cells.length <= 2 && !findQuantities(line.text).some((t) => t.unit)) {
+        mpn = undefined;
         continue;
       }
       if (!mpn) continue;
@@ -75,6 +91,8 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         qualifiers = q;
         continue;
       }
+      // A line of prose (a legend, a note, an example) is not a key–value line: "the 4.3 V type" is no rating of this part.
+      if (line.cells.length === 1 && line.text.split(/\s+/).length >= 9) continue;
       const current = mpn;
       readLine(line, qualifiers, () => drafts.get(current, order));
     }
@@ -109,6 +127,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   })();
   const match = fieldFor(label, kind);
   if (!match) return;
+  const method = qualifiers ? 'table' : 'list';
 
   const chosen: Array<[ExtractionField, ValueToken]> = [];
   const byQualifier = (wanted: Qualifier[]) => {
@@ -145,7 +164,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
     if (!k || !FIELD_KINDS[field].includes(k)) continue;
     const si = toSi(v.token.value, unit, k);
     if (si === undefined) continue;
-    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.text, box: cellBox(v.cell), rank: 2 });
+    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.printed, box: cellBox(v.cell), rank: 2, method });
   }
   // Test conditions on the line: "IZ = 5 mA" on a VZ line is IZT, on a ZZK line IZK; "VR = 2 V" on an IR line.
   for (const cell of line.cells) {
@@ -154,7 +173,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
       if (!usable) continue;
       const si = toSi(cond.value, cond.unit, cond.kind);
       if (si === undefined) continue;
-      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.text, box: cellBox(cell), rank: 1 });
+      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(cell), rank: 1, method });
     }
   }
 }

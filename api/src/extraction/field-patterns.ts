@@ -1,5 +1,6 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { findQuantities } from './quantity-text';
+import { closeGaps, findQuantities } from './quantity-text';
+import { bareConditionField, conditionField, CONDITION_SYMBOL, CURRENT_SYMBOLS, LABELS, TEMPERATURE_QUALIFIER } from './vocabulary';
 
 /**
  * Which card field a column header or a row label names. The symbol or words say what is
@@ -7,22 +8,7 @@ import { findQuantities } from './quantity-text';
  * "IR at VR (V)" or "VZ at IZT (V)" is about.
  */
 
-const P = {
-  zzk: /\bZ\s?ZK\b|\bknee\s+imp/i,
-  zzt: /\bZ\s?ZT\b|\bZ\s?Z\b|\bdyn(?:amic|\.)?\s*imp|\br\s?zj?\b/i,
-  izk: /\bI\s?ZK\b|\bknee\b/i,
-  izm: /\bI\s?ZM\b|\bI\s?Z\s?max\b|\bmax(?:imum|\.)?\s+(?:zener|regulator)\s+current/i,
-  izt: /\bI\s?ZT\b|\btest(?:\s+current)?\b/i,
-  ir: /\bI\s?R\b|\bleakage\b|\breverse\s+current/i,
-  vr: /\bV\s?R\b|\breverse\s+voltage/i,
-  vz: /\bV\s?Z(?:min|nom|max|typ)?\b|\bzener\s+voltage/i,
-  tc: /α|\bTC\b|\bS\s?Z\b|\btemp(?:erature|\.)?\s*co/i,
-  pd: /\bP\s?(?:tot|D)\b|\bpower\s+(?:dissipation|rating)\b/i,
-  tj: /\bjunction\s+temp|\bT\s?j\b|\bT\s?J\b/i,
-  rthJA: /\bR\s?(?:th|θ)\s?\(?j-?a\)?|\bjunction\s+to\s+ambient/i,
-  notRthJA: /\bR\s?(?:th|θ)\s?\(?j-?[lc]\)?|\bto\s+(?:lead|case|tab|board)/i,
-  packageHeader: /\bpackage\b|\bcase\b/i,
-};
+const P = LABELS;
 
 export type Qualifier = 'min' | 'nom' | 'typ' | 'max';
 
@@ -51,10 +37,9 @@ export function fieldFor(text: string, kind: QuantityKind | undefined): FieldMat
       return undefined;
     case 'current':
       // Symbols first: "Knee imp. … IR max" is a leakage column even though "knee" is in it.
-      if (/\bI\s?ZK\b/i.test(text)) return { field: 'izk', rank: 1 };
-      if (/\bI\s?ZM\b|\bI\s?Z\s?max\b/i.test(text)) return { field: 'izm', rank: 1 };
-      if (/\bI\s?ZT\b/i.test(text)) return { field: 'izt', rank: 1 };
-      if (/\bI\s?R\b/i.test(text)) return { field: 'irMax', qualifier: q, rank: q === 'typ' ? 0 : 1 };
+      for (const [re, field] of CURRENT_SYMBOLS) {
+        if (re.test(text)) return field === 'irMax' ? { field, qualifier: q, rank: q === 'typ' ? 0 : 1 } : { field, rank: 1 };
+      }
       if (/\bknee\b/i.test(text)) return { field: 'izk', rank: 1 };
       if (P.izm.test(text)) return { field: 'izm', rank: 1 };
       if (P.izt.test(text)) return { field: 'izt', rank: 1 };
@@ -62,7 +47,7 @@ export function fieldFor(text: string, kind: QuantityKind | undefined): FieldMat
       return undefined;
     case 'resistance': {
       const r = q === 'typ' ? 0 : 1;
-      if (/\bZ\s?ZK\b/i.test(text)) return { field: 'zzk', qualifier: q, rank: r };
+      if (/\bZ\s?ZK\b|\br\s?zk\b/i.test(text)) return { field: 'zzk', qualifier: q, rank: r };
       if (/\bZ\s?ZT?\b|\br\s?zj?\b/i.test(text)) return { field: 'zzt', qualifier: q, rank: r };
       if (P.zzk.test(text) || P.izk.test(text)) return { field: 'zzk', qualifier: q, rank: r };
       if (P.zzt.test(text) || /\bimp/i.test(text)) return { field: 'zzt', qualifier: q, rank: r };
@@ -93,7 +78,7 @@ export function isPackageHeader(text: string): boolean {
   return P.packageHeader.test(text);
 }
 
-export const LABELS = P;
+export { LABELS };
 
 export interface Condition {
   field: 'izt' | 'izk' | 'vr';
@@ -105,32 +90,44 @@ export interface Condition {
   end: number;
 }
 
-const CONDITION = /\b(I\s?Z\s?T|I\s?Z\s?K|I\s?Z|V\s?R|I\s?F|I\s?R|T\s?amb|T\s?a|T\s?j|f|t\s?p)\s*=\s*/gi;
+/** "@ 0.25 mA", "at 5 mA", "at VR 1 V": a condition after a value, with or without its symbol. */
+const BARE = /(?:@|\bat\b)\s*(?:(I\s?Z\s?\(K\)|I\s?Z\s?T|I\s?Z\s?K|I\s?test|I\s?T|I\s?K|I\s?Z|V\s?RM|V\s?R|U\s?R)\s*[=:]?\s*)?(?=[+\-−–]?\.?\d)/giu;
 
 /**
- * Test conditions written as "SYMBOL = value unit" ("IZ = 5 mA", "VR = 2 V", "IZK = 0.25 mA").
- * `context` is the field of the line they sit on: IZ on a knee-impedance line is the knee
- * current. Conditions that are not card fields (f, tp, Tamb, IF) are reported with no field
- * so the caller can remove them from the text too.
+ * Test conditions written as "SYMBOL = value unit" ("IZ = 5 mA", "VR = 2 V", "IZK = 0.25 mA")
+ * or after "@" / "at" ("144 Ω @ 0.25 mA", "0.10 µA @ 6.5 V"). `context` is the field of the
+ * value they qualify: IZ on a knee-impedance line is the knee current, a bare current after a
+ * knee impedance too. Conditions that are not card fields (f, tp, TA, Tj, IF, "at 25 °C") are
+ * cut from the text as well, so that the caller never reads them as a rating.
  */
 export function findConditions(text: string, context?: ExtractionField): { conditions: Condition[]; rest: string } {
   const conditions: Condition[] = [];
-  let rest = text;
   const cuts: Array<[number, number]> = [];
-  for (const m of text.matchAll(CONDITION)) {
+  const taken = (a: number, b: number) => cuts.some(([x, y]) => a < y && b > x);
+  for (const m of text.matchAll(CONDITION_SYMBOL)) {
     const after = m.index + m[0].length;
     const q = findQuantities(text.slice(after, after + 24))[0];
     if (!q || q.index !== 0) continue;
     const end = after + q.end;
     cuts.push([m.index, end]);
-    const symbol = m[1].replace(/\s/g, '').toUpperCase();
-    let field: Condition['field'] | undefined;
-    if (symbol === 'IZT' && q.kind === 'current') field = 'izt';
-    else if (symbol === 'IZK' && q.kind === 'current') field = 'izk';
-    else if (symbol === 'IZ' && q.kind === 'current') field = context === 'zzk' ? 'izk' : 'izt';
-    else if (symbol === 'VR' && q.kind === 'voltage') field = 'vr';
+    const field = conditionField(m[1], q.kind, context);
     if (field && q.kind) conditions.push({ field, value: q.value, unit: q.unit, kind: q.kind, index: m.index, end });
   }
-  for (const [a, b] of cuts.reverse()) rest = rest.slice(0, a) + ' '.repeat(b - a) + rest.slice(b);
-  return { conditions, rest };
+  for (const m of text.matchAll(BARE)) {
+    const after = m.index + m[0].length;
+    const q = findQuantities(text.slice(after, after + 24))[0];
+    if (!q || q.index !== 0 || !q.kind || taken(m.index, after + q.end)) continue;
+    // "rated at 500 mW" is the rating itself; only what a test sets up is a condition.
+    if (!m[1] && q.kind !== 'current' && q.kind !== 'voltage' && q.kind !== 'temperature') continue;
+    const end = after + q.end;
+    cuts.push([m.index, end]);
+    const field = m[1] ? conditionField(m[1], q.kind, context) : bareConditionField(q.kind, context);
+    if (field) conditions.push({ field, value: q.value, unit: q.unit, kind: q.kind, index: m.index, end });
+  }
+  for (const m of text.matchAll(TEMPERATURE_QUALIFIER)) {
+    if (!taken(m.index, m.index + m[0].length)) cuts.push([m.index, m.index + m[0].length]);
+  }
+  let rest = text;
+  for (const [a, b] of cuts.sort((x, y) => y[0] - x[0])) rest = rest.slice(0, a) + ' '.repeat(b - a) + rest.slice(b);
+  return { conditions, rest: closeGaps(rest) };
 }

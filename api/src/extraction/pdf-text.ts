@@ -41,6 +41,21 @@ export interface PdfText {
   pages: PdfPageText[];
 }
 
+/** The direction of a run's baseline in quarter turns: 0 (left to right), 90 (upwards), 180, 270 (downwards). */
+function turnOf(a: number, b: number): 0 | 90 | 180 | 270 {
+  if (Math.abs(a) >= Math.abs(b)) return a >= 0 ? 0 : 180;
+  return b > 0 ? 90 : 270;
+}
+
+/** The direction most of a page's text runs in (by characters), so that a page turned by 90° is read upright. */
+function dominantTurn(items: Array<{ str: string; a: number; b: number }>): 0 | 90 | 180 | 270 {
+  const count = new Map<number, number>();
+  for (const i of items) count.set(turnOf(i.a, i.b), (count.get(turnOf(i.a, i.b)) ?? 0) + i.str.length);
+  let best: 0 | 90 | 180 | 270 = 0;
+  for (const [t, n] of count) if (n > (count.get(best) ?? 0)) best = t as 0 | 90 | 180 | 270;
+  return best;
+}
+
 /** Bytes are enough to tell the common mistakes apart. */
 function sniff(bytes: Uint8Array): string | undefined {
   const head = (n: number) => Array.from(bytes.subarray(0, n));
@@ -116,14 +131,27 @@ export async function readPdf(buffer: Uint8Array): Promise<PdfText> {
         throw new CorruptPdfError('corrupt', `page ${n} could not be read (${describe(err)})`);
       }
       const [x0, y0, x1, y1] = page.view;
-      const items: PdfTextItem[] = [];
+      const raw: Array<{ str: string; a: number; b: number; e: number; f: number; width: number; height: number }> = [];
       for (const item of content.items) {
         if (!('str' in item) || item.str.trim() === '') continue;
         const [a, b, , , e, f] = item.transform as number[];
-        items.push({ str: item.str, x: e, y: f, width: item.width, height: item.height || Math.hypot(a, b) });
+        raw.push({ str: item.str, a, b, e, f, width: item.width, height: item.height });
+      }
+      const turn = dominantTurn(raw);
+      const w = x1 - x0;
+      const h = y1 - y0;
+      const items: PdfTextItem[] = [];
+      for (const r of raw) {
+        // Text turned by 90° (a landscape table on a portrait page) is read in its own frame: its baseline becomes horizontal.
+        if (turnOf(r.a, r.b) !== turn) continue;
+        const size = turn === 0 ? r.height || Math.hypot(r.a, r.b) : Math.hypot(r.a, r.b) || r.height;
+        const width = turn === 0 ? r.width : r.width || r.height;
+        const [x, y] = turn === 90 ? [r.f - y0, w - (r.e - x0)] : turn === 270 ? [h - (r.f - y0), r.e - x0] : turn === 180 ? [w - (r.e - x0), h - (r.f - y0)] : [r.e, r.f];
+        items.push({ str: r.str, x, y, width, height: size });
       }
       if (items.length) hasText = true;
-      pages.push({ page: n, width: x1 - x0, height: y1 - y0, items });
+      const across = turn === 90 || turn === 270;
+      pages.push({ page: n, width: across ? h : w, height: across ? w : h, items });
       page.cleanup();
     }
     return { pageCount: doc.numPages, hasText, pages };

@@ -14,9 +14,21 @@ const UNIT =
 
 /** A number, optionally after ≤/< and followed by a unit; not glued to letters before it. */
 // Not followed by a letter, digit or slash: "12 mW/°C" is a derating slope, not a power.
-const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}\p{N}/])`, 'gu');
+// Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
+const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
+/** A unit left apart from its number where a footnote or condition was blanked ("11.0 [2] V", "56.0 @ 0.89 mA V"). */
+const GAP = new RegExp(String.raw`(\d)(\s{3,40})(${UNIT})(?![\p{L}0-9/])`, 'gu');
+
+/** Brings such a unit back beside its number, keeping the text's length (and so every offset). */
+export function closeGaps(text: string): string {
+  return text.replace(GAP, (_m, d: string, gap: string, unit: string) => `${d} ${unit}${' '.repeat(gap.length - 1)}`);
+}
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
-const NUMERIC_CELL = new RegExp(String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*(?:\d\))?\s*$`, 'u');
+const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\([Nn]ote\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
+const NUMERIC_CELL = new RegExp(
+  String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`,
+  'u',
+);
 
 /**
  * The shared parser knows the ohm as U+03A9 only; datasheets also print the ohm sign
@@ -37,9 +49,16 @@ export interface QuantityToken {
   end: number;
 }
 
+/** Footnote markers: "(Note 2)", "[2]", "(2)", "²", "⁽²⁾", "¹)", and "1)" after a word. Blanked before reading numbers. */
+const FOOTNOTE_MARK = /\((?:note\s*)?\d{1,2}\)|\[\d{1,2}\]|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?\)?|(?<=[\p{L}\s])\d\)(?=\s|$)/giu;
+
+export function blankFootnotes(text: string): string {
+  return closeGaps(text.replace(FOOTNOTE_MARK, (m) => ' '.repeat(m.length)));
+}
+
 export function findQuantities(text: string): QuantityToken[] {
   const out: QuantityToken[] = [];
-  for (const m of text.matchAll(TOKEN)) {
+  for (const m of blankFootnotes(text).matchAll(TOKEN)) {
     const unit = m[3] ?? '';
     const start = m.index + (m[1]?.length ?? 0);
     out.push({ value: m[2], unit, kind: unit ? unitKind(unit) : undefined, index: start, end: m.index + m[0].length });

@@ -179,7 +179,7 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
       if (seen.has(cell)) continue;
       seen.add(cell);
       for (const cond of findConditions(cell.text, c.match?.field).conditions) {
-        conditions.push({ ...cond, page: header[0].page, text: cell.text, cell });
+        conditions.push({ ...cond, page: header[0].page, text: cell.printed, cell });
       }
     }
   });
@@ -258,12 +258,13 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts
     if (!cell || isEmptyCell(cell.text)) return;
     if (col.isPackage) {
       const found = findPackage(cell.text);
-      draft.offerPackage({ value: found?.value ?? cell.text, page: row.page, text: row.text, box: cellBox(cell), rank: 3 });
+      draft.offerPackage({ value: found?.value ?? cell.text, page: row.page, text: row.printed, box: cellBox(cell), rank: 3 });
       return;
     }
     if (!col.match) return;
     const field = col.match.field;
-    const q = findQuantities(cell.text)[0];
+    const { conditions, rest } = findConditions(cell.text, field);
+    const q = findQuantities(rest)[0];
     if (!q) {
       warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} is not a number; ${field} left empty.`);
       return;
@@ -276,11 +277,16 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts
     }
     const si = toSi(q.value, unit, kind);
     if (si === undefined) return;
-    draft.offer(field, { value: q.value, unit, kind, si, page: row.page, text: row.text, box: cellBox(cell), rank: 3 });
+    draft.offer(field, { value: q.value, unit, kind, si, page: row.page, text: row.printed, box: cellBox(cell), rank: 3, method: 'table' });
+    // "144 Ω @ 0.25 mA": the condition printed beside the value beats the one in the header.
+    for (const cond of conditions) {
+      const cs = toSi(cond.value, cond.unit, cond.kind);
+      if (cs !== undefined) draft.offer(cond.field, { ...cond, si: cs, page: row.page, text: row.printed, box: cellBox(cell), rank: 2, method: 'table' });
+    }
   });
   for (const cond of plan.conditions) {
     const si = toSi(cond.value, cond.unit, cond.kind);
     if (si === undefined) continue;
-    draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: cond.page, text: cond.text, box: cellBox(cond.cell), rank: 1 });
+    draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: cond.page, text: cond.text, box: cellBox(cond.cell), rank: 1, method: 'table' });
   }
 }

@@ -3,7 +3,10 @@ import type { PdfPageText } from './pdf-text';
 /** Text items grouped into lines and cells (runs of text separated by a clear gap). */
 
 export interface Cell {
+  /** The text for reading: numbers in the document's decimal style made plain (see number-style). */
   text: string;
+  /** The text as printed. */
+  printed: string;
   x0: number;
   x1: number;
   /** Baseline. */
@@ -19,6 +22,8 @@ export interface Line {
   size: number;
   cells: Cell[];
   text: string;
+  /** The text as printed. */
+  printed: string;
 }
 
 /** A gap wider than this many font sizes starts a new cell (a word space is about 0.3). */
@@ -53,13 +58,14 @@ export function pageLines(page: PdfPageText): Line[] {
         last.x1 = Math.max(last.x1, item.x1);
         last.size = Math.max(last.size, item.size);
       } else {
-        cells.push({ text: item.str, x0: item.x0, x1: item.x1, y: item.y, size: item.size });
+        cells.push({ text: item.str, printed: '', x0: item.x0, x1: item.x1, y: item.y, size: item.size });
       }
     }
-    for (const c of cells) c.text = c.text.replace(/\s+/g, ' ').trim();
+    for (const c of cells) c.printed = c.text = c.text.replace(/\s+/g, ' ').trim();
     const y = group[0].y;
     const size = Math.max(...group.map((g) => g.size));
-    return { page: page.page, index, y, size, cells, text: cells.map((c) => c.text).join(' ') };
+    const text = cells.map((c) => c.text).join(' ');
+    return { page: page.page, index, y, size, cells, text, printed: text };
   });
 }
 

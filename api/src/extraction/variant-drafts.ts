@@ -12,6 +12,9 @@ export interface Candidate {
   text: string;
   box?: ExtractionBox;
   note?: string;
+  /** Where on the page it was found. */
+  method: 'table' | 'list' | 'sentence';
+  derived?: 'tolerance-suffix' | 'converted';
   /** Higher wins: a value in its own column or line beats one taken from a test condition. */
   rank: number;
 }
@@ -24,25 +27,13 @@ export interface PackageCandidate {
   rank: number;
 }
 
-export const FIELD_KINDS: Record<ExtractionField, readonly QuantityKind[]> = {
-  vzMin: ['voltage'],
-  vzNom: ['voltage'],
-  vzMax: ['voltage'],
-  izt: ['current'],
-  zzt: ['resistance'],
-  izk: ['current'],
-  zzk: ['resistance'],
-  irMax: ['current'],
-  vr: ['voltage'],
-  tc: ['tempCoVoltage', 'tempCoPercent'],
-  pdMax: ['power'],
-  tjMax: ['temperature'],
-  rthJA: ['thermalResistance'],
-  izm: ['current'],
-};
+export { FIELD_KINDS } from './vocabulary';
+import { PLAUSIBLE } from './vocabulary';
 
 export class VariantDraft {
   readonly fields = new Map<ExtractionField, Candidate>();
+  /** Fields where two equally good candidates disagree: returned empty, with the reason. */
+  readonly conflicts = new Map<ExtractionField, string>();
   package?: PackageCandidate;
 
   constructor(
@@ -52,8 +43,17 @@ export class VariantDraft {
   ) {}
 
   offer(field: ExtractionField, c: Candidate): void {
+    const [lo, hi] = PLAUSIBLE[field];
+    // A %/K coefficient is checked after conversion; its printed figure is a percentage.
+    const x = c.kind === 'tempCoPercent' ? c.si / 100 : field === 'tc' ? c.si : Math.abs(c.si);
+    if (!(x >= lo && x <= hi)) return;
     const current = this.fields.get(field);
-    if (!current || c.rank > current.rank) this.fields.set(field, c);
+    if (!current || c.rank > current.rank) {
+      this.fields.set(field, c);
+      this.conflicts.delete(field);
+    } else if (c.rank === current.rank && !sameValue(c, current)) {
+      this.conflicts.set(field, `"${current.text}" (page ${current.page}) and "${c.text}" (page ${c.page}) give different values`);
+    }
   }
 
   offerPackage(p: PackageCandidate): void {
@@ -81,4 +81,8 @@ export class VariantDrafts {
 
 export function orderOf(page: number, lineIndex: number): number {
   return page * 100_000 + lineIndex;
+}
+
+function sameValue(a: Candidate, b: Candidate): boolean {
+  return a.kind === b.kind && Math.abs(a.si - b.si) <= 1e-9 * Math.max(Math.abs(a.si), Math.abs(b.si), 1e-12);
 }

@@ -9,11 +9,30 @@ import { HealthService } from './health.service';
 export class HealthController {
   constructor(private readonly health: HealthService) {}
 
-  /** 200 while the database answers (other services may be down: "degraded"); 503 when it does not. */
+  /** Readiness: 200 while the database answers (object store or mail down: "degraded"); 503 when it does not. */
   @Public()
   @Get()
-  async get(@Res({ passthrough: true }) res: Response) {
+  ready(@Res({ passthrough: true }) res: Response) {
+    return this.readiness(res);
+  }
+
+  /** The same as GET /api/health, under the name load balancers and orchestrators expect. */
+  @Public()
+  @Get('ready')
+  readyAlias(@Res({ passthrough: true }) res: Response) {
+    return this.readiness(res);
+  }
+
+  /** Liveness: the process is up and serving; answered from memory, never touches a dependency. */
+  @Public()
+  @Get('live')
+  live() {
+    return this.health.live();
+  }
+
+  private async readiness(res: Response) {
     const report = await this.health.report();
+    res.setHeader('Cache-Control', 'no-store');
     if (report.services.database === 'down') res.status(503);
     return report;
   }

@@ -4,8 +4,8 @@ import type { HousePartListQuery, HousePartSort, HousePartStatus, QualificationS
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, sourceRoleSql } from '../common/source-standing.sql';
+import { TextIndexRepository } from '../text-index/text-index.repository';
 import { User } from '../users/user.model';
-import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 import { HousePartSource } from './house-part-source.model';
 import { HousePartSpec } from './house-part-spec.model';
 import { HousePart } from './house-part.model';
@@ -69,14 +69,16 @@ export class HousePartsRepository {
     @InjectModel(HousePart) private readonly houseParts: typeof HousePart,
     @InjectModel(HousePartSpec) private readonly specs: typeof HousePartSpec,
     @InjectModel(HousePartSource) private readonly sources: typeof HousePartSource,
+    private readonly textIndex: TextIndexRepository,
   ) {}
 
   async list(query: HousePartListQuery): Promise<{ rows: HousePartRow[]; total: number }> {
     const where: string[] = [];
     const params: unknown[] = [];
     if (query.q) {
-      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
-      params.push(likePrefix(query.q), `%${likePrefix(query.q)}`);
+      const text = this.textIndex.housePartCondition('h', query.q);
+      where.push(text.sql);
+      params.push(...text.params);
     }
     if (query.status) {
       where.push('h.status = ?');
@@ -113,12 +115,24 @@ export class HousePartsRepository {
     return this.houseParts.findOne({ where: { partNumber }, transaction });
   }
 
+  /** Creates the house part and indexes its number and description in the same transaction (its own when none is given). */
   create(values: { partNumber: string; description: string; status: HousePartStatus; createdById: number | null }, transaction?: Transaction): Promise<HousePart> {
-    return this.houseParts.create(values, { transaction });
+    return this.within(transaction, async (t) => {
+      const part = await this.houseParts.create(values, { transaction: t });
+      await this.textIndex.write('housePart', part.id, [part.partNumber, part.description], t);
+      return part;
+    });
   }
 
   async update(part: HousePart, values: Partial<Pick<HousePart, 'partNumber' | 'description' | 'status' | 'specVersion'>>, transaction?: Transaction): Promise<void> {
-    await part.update(values, { transaction });
+    await this.within(transaction, async (t) => {
+      await part.update(values, { transaction: t });
+      if (values.partNumber !== undefined || values.description !== undefined) await this.textIndex.write('housePart', part.id, [part.partNumber, part.description], t);
+    });
+  }
+
+  private within<T>(transaction: Transaction | undefined, work: (t: Transaction) => Promise<T>): Promise<T> {
+    return transaction ? work(transaction) : this.sequelize.transaction(work);
   }
 
   findSpec(housePartId: number, version: number, transaction?: Transaction): Promise<HousePartSpec | null> {

@@ -1,4 +1,3 @@
-import { isDeepStrictEqual } from 'node:util';
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
@@ -17,6 +16,7 @@ import {
   type UpdateHousePartRequest,
   type UpdateSourceRequest,
 } from '@shuntwise/contracts';
+import { sameSpec } from '@shuntwise/contracts';
 import { UniqueConstraintError } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
@@ -110,8 +110,10 @@ export class HousePartsService {
         });
       }
       if (current > 0) {
+        // Nothing changed (a note alone is no change of the requirement): no version, no
+        // event, so no decided case is flagged for a re-check it does not need.
         const previous = await this.houseParts.findSpec(housePartId, current, transaction);
-        if (previous && isDeepStrictEqual(previous.spec, request.spec) && (previous.note ?? null) === (request.note ?? null)) return current;
+        if (previous && sameSpec(previous.spec, request.spec)) return current;
       }
       const next = current + 1;
       await this.houseParts.createSpec({ housePartId, version: next, spec: request.spec, note: request.note ?? null, createdById: user.id }, transaction);

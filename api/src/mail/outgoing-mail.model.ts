@@ -37,6 +37,10 @@ export class OutgoingMail extends Model {
   @Column({ type: DataType.DATE, allowNull: true })
   declare sentAt: Date | null;
 
+  /** The replica sending it right now (until nextAttemptAt, its lease); null when nobody holds it. */
+  @Column({ type: DataType.STRING(64), allowNull: true })
+  declare claimedBy: string | null;
+
   declare createdAt: Date;
   declare updatedAt: Date;
 }

@@ -13,6 +13,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { RatingCardsService } from '../vendor-parts/rating-cards.service';
 import { QualificationsRepository } from './qualifications.repository';
 import { QualificationsService, type ActionBody } from './qualifications.service';
+import { DecisionRecordsService } from './records/decision-records.service';
 
 /** Card versions the qualification seed adds to the demo catalogue (the re-check story's erratum). */
 export const QUALIFICATION_SEED_CARD_REVISIONS = 1;
@@ -144,10 +145,16 @@ export class QualificationsSeeder {
     private readonly cases: QualificationsRepository,
     private readonly service: QualificationsService,
     private readonly cards: RatingCardsService,
+    private readonly records: DecisionRecordsService,
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
   async run(): Promise<{ created: number; seconds: number }> {
+    // Dozens of decisions at start-up: their PDF records are drawn on first read instead (records/decision-records.service.ts).
+    return this.records.deferStoring(() => this.seedAll());
+  }
+
+  private async seedAll(): Promise<{ created: number; seconds: number }> {
     const started = performance.now();
     const [preparer, reviewer, buyer] = await Promise.all([PREPARER, REVIEWER, BUYER].map((e) => this.user(e)));
     const who = { preparer, reviewer };

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { HousePartsModule } from '../house-parts/house-parts.module';
+import { MeasurementsModule } from '../measurements/measurements.module';
 import { User } from '../users/user.model';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { HousePartBuyer } from './house-part-buyer.model';
@@ -15,16 +16,20 @@ import { QualificationsController } from './qualifications.controller';
 import { QualificationsRepository } from './qualifications.repository';
 import { QualificationsSeeder } from './qualifications-seeder.service';
 import { QualificationsService } from './qualifications.service';
+import { DecisionRecord } from './records/decision-record.model';
+import { DecisionRecordsController } from './records/decision-records.controller';
+import { DecisionRecordsRepository } from './records/decision-records.repository';
+import { DecisionRecordsService } from './records/decision-records.service';
 import { QualificationWaiver } from './waiver.model';
 import { WaiversController } from './waivers.controller';
 import { WaiversService } from './waivers.service';
 
-/** Qualification cases, their trail and comments, the buyers of each house part, and the Board, Compare and Sources read models. */
+/** Qualification cases, their trail and comments, waivers, the buyers of each house part, and the Board, Compare and Sources read models. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, QualificationWaiver]), HousePartsModule, VendorPartsModule],
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, DecisionRecord, QualificationWaiver]), HousePartsModule, VendorPartsModule, MeasurementsModule],
   // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
-  controllers: [QualificationViewsController, QualificationsController, WaiversController, HousePartBuyersController],
-  providers: [QualificationsRepository, QualificationsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder, WaiversService],
-  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder, WaiversService],
+  controllers: [QualificationViewsController, QualificationsController, WaiversController, HousePartBuyersController, DecisionRecordsController],
+  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder, WaiversService],
+  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder, DecisionRecordsService, WaiversService],
 })
 export class QualificationsModule {}

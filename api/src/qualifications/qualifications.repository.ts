@@ -19,7 +19,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
-import { likePrefix } from '../vendor-parts/vendor-parts.repository';
+import { TextIndexRepository } from '../text-index/text-index.repository';
 import { HousePartBuyer } from './house-part-buyer.model';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
@@ -153,6 +153,7 @@ export class QualificationsRepository {
     @InjectModel(QualificationComment) private readonly comments: typeof QualificationComment,
     @InjectModel(HousePartBuyer) private readonly buyers: typeof HousePartBuyer,
     @InjectModel(User) private readonly users: typeof User,
+    private readonly textIndex: TextIndexRepository,
   ) {}
 
   private select<T extends object>(sql: string, replacements: unknown[], transaction?: Transaction): Promise<T[]> {
@@ -328,8 +329,9 @@ export class QualificationsRepository {
     const where: string[] = [];
     const params: unknown[] = [];
     if (query.q) {
-      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
-      params.push(likePrefix(query.q), `%${likePrefix(query.q)}`);
+      const text = this.textIndex.housePartCondition('h', query.q);
+      where.push(text.sql);
+      params.push(...text.params);
     }
     const sourceWhere: string[] = [];
     const sourceParams: unknown[] = [];
@@ -400,8 +402,9 @@ export class QualificationsRepository {
       params.push(filter.housePartId);
     }
     if (filter.q) {
-      where.push('(h.part_number LIKE ? OR h.description LIKE ?)');
-      params.push(likePrefix(filter.q), `%${likePrefix(filter.q)}`);
+      const text = this.textIndex.housePartCondition('h', filter.q);
+      where.push(text.sql);
+      params.push(...text.params);
     }
     if (filter.buyerId !== undefined) {
       where.push('EXISTS (SELECT 1 FROM house_part_buyers b WHERE b.house_part_id = h.id AND b.user_id = ?)');

@@ -16,6 +16,7 @@ import {
   QUALIFICATION_VERDICT_LABELS,
   CHECK_LABELS,
   USABLE_STATES,
+  decisionRecordPath,
   actionBlock,
   isWaiverInForce,
   waiverGaps,
@@ -50,6 +51,7 @@ import { DESIGN_CAUTION } from '../engineering/caution';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
 import { evaluateCard } from './evaluation/evaluate';
+import { DecisionRecordsService } from './records/decision-records.service';
 import type { Qualification } from './qualification.model';
 import { QualificationsRepository, type CaseRow, type CatalogueBasis } from './qualifications.repository';
 import type { QualificationWaiver } from './waiver.model';
@@ -95,6 +97,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     private readonly mail: MailService,
     private readonly events: CatalogueEvents,
     private readonly waivers: WaiversService,
+    private readonly records: DecisionRecordsService,
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
@@ -278,6 +281,8 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         transaction,
       );
       await this.notify(action, row, basis, user, transaction, waived?.waivers);
+      // The decision's PDF record: frozen in this transaction, stored after commit (records/decision-records.service.ts).
+      if (isDecisionAction(action)) await this.records.capture(row.id, transaction);
       return row.id;
     });
   }
@@ -459,6 +464,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       );
       return;
     }
+    if (isDecisionAction(action)) await this.mailPreparer(row, part, hp, link, user, transaction);
     if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'clear-with-waiver' && action !== 'revoke') return;
     const to = await this.cases.buyerEmails(row.housePartId, transaction);
     if (to.length === 0) {
@@ -482,7 +488,32 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         to,
         kind: `qualification.${AUDIT_OF[action]}`,
         subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : action === 'clear-with-waiver' ? 'cleared with waiver' : 'cleared with conditions'}`,
-        body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`].join('\n'),
+        body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`, `Decision record (PDF): ${decisionRecordPath(row.id)}`].join('\n'),
+      },
+      transaction,
+    );
+  }
+
+  /** The engineer who prepared a case hears how it was decided (unless they decided it, or have left). */
+  private async mailPreparer(row: Qualification, part: string, hp: string, link: string, user: AuthUser, transaction: Transaction): Promise<void> {
+    if (row.preparedById === user.id) return;
+    const preparer = await this.cases.findUser(row.preparedById, transaction);
+    if (!preparer?.active) return;
+    const outcome = QUALIFICATION_STATE_LABELS[row.state];
+    await this.mail.enqueue(
+      {
+        to: [preparer.email],
+        kind: 'qualification.decided',
+        subject: `Case #${row.id} decided: ${part} for ${hp}: ${outcome}`,
+        body: [
+          `${user.name} decided case #${row.id} that you prepared: ${part} as a source of ${hp}.`,
+          `Decision: ${outcome}.`,
+          row.decisionText ? `${row.state === 'cleared-with-conditions' ? 'Conditions' : row.state === 'rejected' ? 'Reason' : 'Note'}: ${row.decisionText}` : '',
+          '',
+          `Open it in Shuntwise: ${link}`,
+        ]
+          .filter((line, i, all) => line !== '' || all[i - 1] !== '')
+          .join('\n'),
       },
       transaction,
     );

@@ -4,6 +4,7 @@ import type { HousePartStatus, QualificationState, RatingCardFields, SearchQuery
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
+import type { SqlPart } from '../text-index/text-index.repository';
 import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 
 /** A part as the text ranking reads it: its names and the house parts it is a source of. */
@@ -53,6 +54,8 @@ export interface TextNarrowing {
   tokens?: string[];
   /** The usable parts, read once for the several narrowing steps of one search (else joined as a derived table). */
   usableIds?: readonly number[];
+  /** The n-gram index's scored matches, a derived table (id, score): the parts it names drive the query, best score first. */
+  scored?: SqlPart;
 }
 
 // The state lists come from the standing rule in contracts (approved is decided and usable).
@@ -134,7 +137,10 @@ export class SearchRepository {
       joins.push(`JOIN (SELECT DISTINCT u.vendor_part_id FROM (${usablePairs(query.housePartId !== undefined)}) u) usable ON usable.vendor_part_id = vp.id`);
       if (query.housePartId !== undefined) joinParams.push(query.housePartId);
     }
-    if (text?.tokens && text.tokens.length > 0) {
+    if (text?.scored) {
+      words = `(${text.scored.sql}) words`;
+      wordParams.push(...text.scored.params);
+    } else if (text?.tokens && text.tokens.length > 0) {
       // Each branch is an index range (mpn prefix, the few manufacturers and house parts whose names match).
       const branches: string[] = [];
       for (const token of text.tokens) {
@@ -179,9 +185,8 @@ export class SearchRepository {
       params.push(query.pdMin);
     }
     if (query.toleranceMax !== undefined) {
-      needsCard = true;
-      // Without both ends the tolerance is unknown: GREATEST gives NULL and the part drops out.
-      where.push(`GREATEST(vp.vz_nom - ${VZ_MIN}, ${VZ_MAX} - vp.vz_nom) <= ? * vp.vz_nom`);
+      // The card's tolerance as vzTolerance (contracts) wrote it: printed, or the ends less their rounding; unknown drops out.
+      where.push('vp.vz_tolerance <= ?');
       params.push(query.toleranceMax);
     }
     if (needsCard) joins.push('JOIN rating_cards rc ON rc.vendor_part_id = vp.id');
@@ -242,19 +247,12 @@ export class SearchRepository {
     return rows.map((r) => r.id);
   }
 
-  /** Whether more than `limit` parts pass the filters (and the narrowing): a scan that stops at limit + 1, no sort. */
-  async exceeds(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<boolean> {
-    const c = this.conditions(query, text);
-    const [{ n }] = await this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM (SELECT vp.id ${c.from} ${c.where} LIMIT ?) probe`, [...c.params, limit + 1]);
-    return Number(n) > limit;
-  }
-
-  /** Up to `limit` parts the filters (and the text narrowing, if any) leave, with what the text ranking reads. */
+  /** Up to `limit` parts the filters (and the text narrowing, if any) leave, with what the text ranking reads (best index score first). */
   async candidates(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<CandidateRow[]> {
     const c = this.conditions(query, text);
     const rows = await this.select<Omit<CandidateRow, 'houseParts'>>(
       `SELECT vp.id, vp.mpn, vp.manufacturer_name AS manufacturer, vp.package, vp.vz_nom AS vzNom, vp.pd_max AS pdMax
-       ${c.from} ${c.where} ORDER BY vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?`,
+       ${c.from} ${c.where} ORDER BY ${text?.scored ? 'words.score DESC, ' : ''}vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?`,
       [...c.params, limit],
     );
     if (rows.length === 0) return [];

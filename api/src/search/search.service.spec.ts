@@ -1,20 +1,18 @@
 import { SEARCH_TEXT_CANDIDATES, searchQuerySchema, type SearchQuery } from '@shuntwise/contracts';
 import type { CandidateRow, PairRow, PartRow, SearchRepository, TextNarrowing } from './search.repository';
+import type { TextIndexRepository } from '../text-index/text-index.repository';
 import { SearchService, sortMatches, toClearance, toSearchCard } from './search.service';
 
 const candidate = (id: number, mpn: string): CandidateRow => ({ id, mpn, manufacturer: 'Invented Maker', package: 'SOD-123', vzNom: 2 + id / 1000, pdMax: 0.5, houseParts: null });
 
-/** A repository whose candidate query answers by the narrowing asked for, recording each call. */
-function fakeRepository(sizes: { all: number; leading: number; whole: number }) {
-  const calls: Array<string[] | undefined> = [];
+/** A repository whose candidate query returns `found` rows (cut to the limit asked), recording the narrowing it was given. */
+function fakeRepository(found: number) {
+  const calls: Array<TextNarrowing | undefined> = [];
   const rows = (n: number) => Array.from({ length: n }, (_, i) => candidate(i + 1, i === 7 ? 'QHZ5V6A' : `QHX${i}`));
-  const size = (text: TextNarrowing | undefined) => (!text?.tokens ? sizes.all : text.tokens[0].length <= 3 ? sizes.leading : sizes.whole);
   const repository = {
-    usableIds: async () => rows(sizes.all).map((r) => r.id),
-    exceeds: async (_q: SearchQuery, text: TextNarrowing | undefined, limit: number) => size(text) > limit,
     candidates: async (_q: SearchQuery, text: TextNarrowing | undefined, limit: number) => {
-      calls.push(text?.tokens);
-      return rows(Math.min(size(text), limit));
+      calls.push(text);
+      return rows(Math.min(found, limit));
     },
     parts: async (ids: number[]): Promise<PartRow[]> =>
       ids.map((id) => ({ id, manufacturer: 'Invented Maker', mpn: `P${id}`, package: null, lifecycleNote: null, cardVersion: null, fields: null, datasheetId: null })),
@@ -23,28 +21,40 @@ function fakeRepository(sizes: { all: number; leading: number; whole: number }) 
   return { repository, calls };
 }
 
+/** An index that scores text of three characters or more (the real one's rule) and records what it was asked. */
+function fakeIndex() {
+  const asked: string[] = [];
+  const index = {
+    scoredVendorParts: async (text: string) => {
+      asked.push(text);
+      return text.replace(/[\s-]/g, '').length >= 3 ? { sql: 'SELECT 1 AS id, 1 AS score', params: [] } : null;
+    },
+  } as unknown as TextIndexRepository;
+  return { index, asked };
+}
+
 const query = (raw: Record<string, string>) => searchQuerySchema.parse(raw);
 
 describe('SearchService text narrowing', () => {
-  it('ranks every part the filters leave when they are few enough (fuzzy)', async () => {
-    const { repository, calls } = fakeRepository({ all: 50, leading: 0, whole: 0 });
-    const page = await new SearchService(repository).search(query({ q: 'QZH5V6A' }));
-    expect(calls).toEqual([undefined]);
+  it('hands the index\'s scored matches to the candidate query and re-ranks them fuzzily', async () => {
+    const { repository, calls } = fakeRepository(50);
+    const { index, asked } = fakeIndex();
+    const page = await new SearchService(repository, index).search(query({ q: 'QZH5V6A' }));
+    expect(asked).toEqual(['QZH5V6A']);
+    expect(calls).toEqual([{ scored: { sql: expect.any(String), params: [] } }]);
     expect(page.text).toEqual({ mode: 'fuzzy', candidates: 50, truncated: false, note: null });
     expect(page.items[0].vendorPart.id).toBe(8);
   });
 
-  it('narrows by each word\'s first three letters when the filters leave too many, then by whole words, and says when it had to cut', async () => {
-    const many = SEARCH_TEXT_CANDIDATES + 500;
-    const leading = fakeRepository({ all: many, leading: 300, whole: 0 });
-    const byLeading = await new SearchService(leading.repository).search(query({ q: 'QHZ5V6A' }));
-    expect(leading.calls).toEqual([['QHZ']]);
-    expect(byLeading.text).toMatchObject({ mode: 'prefix', candidates: 300, truncated: false, note: expect.stringMatching(/first letters/) });
+  it('narrows text too short to index by the start of the names, and says when it had to cut', async () => {
+    const short = fakeRepository(10);
+    const byPrefix = await new SearchService(short.repository, fakeIndex().index).search(query({ q: 'QH' }));
+    expect(short.calls).toEqual([{ tokens: ['QH'] }]);
+    expect(byPrefix.text).toMatchObject({ mode: 'prefix', candidates: 10, truncated: false, note: expect.stringMatching(/three characters/) });
 
-    const whole = fakeRepository({ all: many, leading: many, whole: many });
-    const cut = await new SearchService(whole.repository).search(query({ q: 'QHZ5V6A' }));
-    expect(whole.calls).toEqual([['QHZ5V6A']]);
-    expect(cut.text).toMatchObject({ mode: 'prefix', candidates: SEARCH_TEXT_CANDIDATES, truncated: true, note: expect.stringMatching(/Narrow the filters/) });
+    const many = fakeRepository(SEARCH_TEXT_CANDIDATES + 500);
+    const cut = await new SearchService(many.repository, fakeIndex().index).search(query({ q: 'QHZ5V6A' }));
+    expect(cut.text).toMatchObject({ mode: 'fuzzy', candidates: SEARCH_TEXT_CANDIDATES, truncated: true, note: expect.stringMatching(/Narrow the filters/) });
   });
 });
 
@@ -105,14 +115,15 @@ describe('where a pair stands for a designer', () => {
 });
 
 describe('search card and order', () => {
-  it('reads the card fields in SI and the tolerance as the half-width of the window over nominal (common practice, no source)', () => {
+  it('reads the card fields in SI and the tolerance as the half-width of the window over nominal, less the print rounding of its ends (common practice, no source)', () => {
     const v = (value: number) => ({ value, printed: null, provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
     const card = toSearchCard({
       cardVersion: 3,
       fields: JSON.stringify({ vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), izt: v(0.005), tc: { ...v(0.5), unit: 'mV/K', voltsPerKelvin: 0.0005 } }),
     });
     expect(card).toMatchObject({ version: 3, vzNom: 5.1, izt: 0.005, zzt: null, tc: { value: 0.5, unit: 'mV/K' }, tcVoltsPerKelvin: 0.0005 });
-    expect(card!.tolerance).toBeCloseTo(0.26 / 5.1, 6);
+    // 4.85 / 5.36 V are a ±5 % window (4.845…5.355 V) printed to two decimals: 5.355 − 5.1 = 0.255 V = 5 % of 5.1 V.
+    expect(card!.tolerance).toBeCloseTo(0.255 / 5.1, 6);
     expect(toSearchCard({ cardVersion: null, fields: null })).toBeNull();
   });
 

@@ -2,6 +2,7 @@ import { Injectable, Optional } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
   isUsableState,
+  vzTolerance,
   type Clearance,
   type RatingCardFields,
   type SearchCard,
@@ -13,22 +14,21 @@ import {
   type WaiverBrief,
 } from '@shuntwise/contracts';
 import { WaiversService } from '../qualifications/waivers.service';
-import { SearchRepository, type CandidateRow, type PairRow, type PartRow, type TextNarrowing } from './search.repository';
+import { TextIndexRepository } from '../text-index/text-index.repository';
+import { SearchRepository, type CandidateRow, type PairRow, type PartRow } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
-
-/** Leading characters of each word SQL narrows by when the filters leave too many parts: typos after them still match. */
-const PREFIX_CHARACTERS = 3;
 
 /**
  * The designers' search. Without text, SQL filters, sorts and pages on indexed columns.
- * With text, SQL narrows to at most SEARCH_TEXT_CANDIDATES parts (by the filters, then if
- * needed by each word's first letters, then by whole words) and fuse.js ranks those; the
- * page is cut from the ranking. Only the page's parts are then read in full.
+ * With text, one SQL statement takes the parts the n-gram index scores closest, applies the
+ * filters and keeps the best SEARCH_TEXT_CANDIDATES; fuse.js re-ranks those and the page is
+ * cut from the ranking. Only the page's parts are then read in full.
  */
 @Injectable()
 export class SearchService {
   constructor(
     private readonly repository: SearchRepository,
+    private readonly textIndex: TextIndexRepository,
     // Optional so the service can be built bare over a repository (unit tests, the bench).
     @Optional() private readonly waivers?: WaiversService,
   ) {}
@@ -53,8 +53,8 @@ export class SearchService {
     const pageIds = ordered.slice(start, start + query.pageSize);
     const scores = new Map(ranked.map((r) => [r.id, r.score]));
     let note: string | null = null;
-    if (mode === 'prefix') note = `Over ${SEARCH_TEXT_CANDIDATES} parts match the filters: the text was matched among parts whose names start with the words' first letters. Narrow the filters for typo-tolerant matching.`;
-    if (truncated) note = `Over ${SEARCH_TEXT_CANDIDATES} parts match even by whole words: only the first ${SEARCH_TEXT_CANDIDATES} by Zener voltage were ranked. Narrow the filters.`;
+    if (mode === 'prefix') note = 'Text this short is matched as the start of part numbers and names; type three characters or more to match anywhere inside them.';
+    if (truncated) note = `More than ${SEARCH_TEXT_CANDIDATES} parts match the text: the ${SEARCH_TEXT_CANDIDATES} closest were ranked. Narrow the filters or the text.`;
     return {
       items: await this.items(pageIds, scores),
       total: ordered.length,
@@ -65,25 +65,15 @@ export class SearchService {
   }
 
   /**
-   * The parts text is ranked over: all the filters leave when few enough, else those whose
-   * names start with each word's first letters, else with the whole words (cut to the limit).
-   * Each step first probes the count (a scan that stops at limit + 1) and reads rows only once.
+   * The parts text is ranked over: the filters and the n-gram index's best matches in one
+   * statement (at most SEARCH_TEXT_CANDIDATES, closest first); text too short to index
+   * narrows by the start of the part numbers and names instead.
    */
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
-    // The usable set is read once here rather than rebuilt by each step's query.
-    const usableIds = query.includeNotCleared ? undefined : await this.repository.usableIds(query.housePartId);
-    const all: TextNarrowing = { usableIds };
-    if ((usableIds !== undefined && usableIds.length <= limit) || !(await this.repository.exceeds(query, all, limit))) return { candidates: await this.repository.candidates(query, all, limit), mode: 'fuzzy', truncated: false };
-    const tokens = textTokens(text);
-    const leading: TextNarrowing = { tokens: tokens.map((t) => t.slice(0, PREFIX_CHARACTERS)), usableIds };
-    const whole: TextNarrowing = { tokens, usableIds };
-    const sameNarrowing = leading.tokens!.every((t, i) => t === tokens[i]);
-    if (!sameNarrowing && !(await this.repository.exceeds(query, leading, limit))) {
-      return { candidates: await this.repository.candidates(query, leading, limit), mode: 'prefix', truncated: false };
-    }
-    const truncated = await this.repository.exceeds(query, whole, limit);
-    return { candidates: await this.repository.candidates(query, whole, limit), mode: 'prefix', truncated };
+    const scored = await this.textIndex.scoredVendorParts(text);
+    const rows = await this.repository.candidates(query, scored ? { scored } : { tokens: textTokens(text) }, limit + 1);
+    return { candidates: rows.slice(0, limit), mode: scored ? 'fuzzy' : 'prefix', truncated: rows.length > limit };
   }
 
   async facets(): Promise<SearchFacets> {
@@ -184,7 +174,7 @@ export function toSearchCard(part: Pick<PartRow, 'cardVersion' | 'fields'>): Sea
     tjMax: v('tjMax'),
     rthJA: v('rthJA'),
     izm: v('izm'),
-    tolerance: vzMin !== null && vzMax !== null ? Number((Math.max(vzNom - vzMin, vzMax - vzNom) / vzNom).toPrecision(6)) : null,
+    tolerance: vzTolerance(fields),
   };
 }
 

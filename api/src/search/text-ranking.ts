@@ -1,4 +1,5 @@
 import Fuse, { type Expression, type IFuseOptions } from 'fuse.js';
+import { compact } from '../text-index/text-grams';
 
 /** What the text is matched against, per part. */
 export interface TextRecord {
@@ -42,9 +43,8 @@ const OPTIONS: IFuseOptions<IndexedRecord> = {
   shouldSort: true,
 };
 
-export function compact(text: string): string {
-  return text.toLowerCase().replace(/[\s\-_./,]+/g, '');
-}
+// The one normalisation of names, shared with the text index.
+export { compact };
 
 /** Words of the typed text (at most 6, each at least 2 characters unless that leaves none). */
 export function textTokens(text: string): string[] {

@@ -30,6 +30,10 @@ export class Invitation extends Model {
   @Column({ type: DataType.DATE, allowNull: true })
   declare acceptedAt: Date | null;
 
+  /** Taken back by an admin: the link no longer works. */
+  @Column({ type: DataType.DATE, allowNull: true })
+  declare revokedAt: Date | null;
+
   declare createdAt: Date;
   declare updatedAt: Date;
 }

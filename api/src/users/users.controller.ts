@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
@@ -25,6 +25,18 @@ export class UsersController {
   @Post('invitations')
   invite(@Body() body: CreateInvitationDto, @CurrentUser() admin: AuthUser) {
     return this.users.invite(body, admin);
+  }
+
+  @Post('invitations/:id/resend')
+  @HttpCode(200)
+  resend(@Param('id', ParseIntPipe) id: number, @CurrentUser() admin: AuthUser) {
+    return this.users.resendInvitation(id, admin);
+  }
+
+  @Post('invitations/:id/revoke')
+  @HttpCode(200)
+  revoke(@Param('id', ParseIntPipe) id: number) {
+    return this.users.revokeInvitation(id);
   }
 
   @Patch(':id')

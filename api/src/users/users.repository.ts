@@ -1,6 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
+import type { Role } from '@shuntwise/contracts';
 import type { Transaction } from 'sequelize';
+import { RawRows } from '../database/raw-rows';
 import { Invitation } from './invitation.model';
 import { User } from './user.model';
 
@@ -10,7 +12,21 @@ export class UsersRepository {
   constructor(
     @InjectModel(User) private readonly users: typeof User,
     @InjectModel(Invitation) private readonly invitations: typeof Invitation,
+    private readonly raw: RawRows,
   ) {}
+
+  /**
+   * What every authenticated request checks its token against, read fresh from the row each
+   * time (one primary-key read, no model instance): logout and deactivation end a token at
+   * once on every replica, with no cache to expire.
+   */
+  async tokenHolder(id: number): Promise<{ id: number; email: string; name: string; role: Role; active: boolean; tokenVersion: number } | null> {
+    const [row] = await this.raw.select<{ id: number; email: string; name: string; role: Role; active: number; tokenVersion: number }>(
+      'SELECT id, email, name, role, active, token_version AS tokenVersion FROM users WHERE id = ?',
+      [id],
+    );
+    return row ? { id: row.id, email: row.email, name: row.name, role: row.role, active: Boolean(row.active), tokenVersion: row.tokenVersion } : null;
+  }
 
   findById(id: number, transaction?: Transaction): Promise<User | null> {
     return this.users.findByPk(id, { transaction });
@@ -34,6 +50,10 @@ export class UsersRepository {
 
   listInvitations(): Promise<Invitation[]> {
     return this.invitations.findAll({ order: [['createdAt', 'DESC']] });
+  }
+
+  findInvitationById(id: number, transaction?: Transaction): Promise<Invitation | null> {
+    return this.invitations.findByPk(id, { transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
   }
 
   findInvitationByHash(tokenHash: string, transaction?: Transaction): Promise<Invitation | null> {

@@ -1,6 +1,7 @@
 import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { CreateInvitationRequest, Invitation as InvitationDto, UpdateUserRequest, User as UserDto } from '@shuntwise/contracts';
+import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { hashToken, newToken } from '../auth/auth.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
@@ -38,26 +39,63 @@ export class UsersService {
         { email: request.email, name: request.name, role: request.role, tokenHash: hashToken(token), invitedById: admin.id, expiresAt },
         transaction,
       );
-      const link = `${publicUrl(this.env)}/invitation/${token}`;
-      await this.mail.enqueue(
-        {
-          to: [request.email],
-          subject: 'You are invited to Shuntwise',
-          kind: 'invitation',
-          body: [
-            `Hello ${request.name},`,
-            '',
-            `${admin.name} has invited you to Shuntwise as ${request.role}.`,
-            `Set your password here (the link works once and expires ${expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC):`,
-            '',
-            link,
-          ].join('\n'),
-        },
-        transaction,
-      );
+      await this.mailInvitation(created, token, admin, transaction);
       return created;
     });
     return toInvitationDto(invitation);
+  }
+
+  /**
+   * Sends the invitation again with a new link (the old one stops working) and a new
+   * expiry; an accepted or revoked invitation cannot be resent.
+   */
+  async resendInvitation(id: number, admin: AuthUser): Promise<InvitationDto> {
+    const invitation = await this.sequelize.transaction(async (transaction) => {
+      const row = await this.openInvitation(id, transaction, 'resent');
+      const token = newToken();
+      await row.update({ tokenHash: hashToken(token), expiresAt: new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000) }, { transaction });
+      await this.mailInvitation(row, token, admin, transaction);
+      return row;
+    });
+    return toInvitationDto(invitation);
+  }
+
+  /** Takes an open invitation back: its link stops working at once. */
+  async revokeInvitation(id: number): Promise<InvitationDto> {
+    const invitation = await this.sequelize.transaction(async (transaction) => {
+      const row = await this.openInvitation(id, transaction, 'revoked');
+      await row.update({ revokedAt: new Date() }, { transaction });
+      return row;
+    });
+    return toInvitationDto(invitation);
+  }
+
+  private async openInvitation(id: number, transaction: Transaction, doing: string): Promise<Invitation> {
+    const row = await this.users.findInvitationById(id, transaction);
+    if (!row) throw new NotFoundException(`No invitation with id ${id}`);
+    if (row.acceptedAt) throw new ConflictException(`The invitation of ${row.email} was accepted; it cannot be ${doing}`);
+    if (row.revokedAt) throw new ConflictException(`The invitation of ${row.email} was revoked; invite them again instead`);
+    return row;
+  }
+
+  private async mailInvitation(invitation: Invitation, token: string, admin: AuthUser, transaction: Transaction): Promise<void> {
+    const link = `${publicUrl(this.env)}/invitation/${token}`;
+    await this.mail.enqueue(
+      {
+        to: [invitation.email],
+        subject: 'You are invited to Shuntwise',
+        kind: 'invitation',
+        body: [
+          `Hello ${invitation.name},`,
+          '',
+          `${admin.name} has invited you to Shuntwise as ${invitation.role}.`,
+          `Set your password here (the link works once and expires ${invitation.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC):`,
+          '',
+          link,
+        ].join('\n'),
+      },
+      transaction,
+    );
   }
 
   /** Role change and deactivation end the user's tokens; an admin cannot lock themselves out. */
@@ -93,6 +131,7 @@ export function toInvitationDto(invitation: Invitation): InvitationDto {
     role: invitation.role,
     expiresAt: invitation.expiresAt.toISOString(),
     acceptedAt: invitation.acceptedAt ? invitation.acceptedAt.toISOString() : null,
+    revokedAt: invitation.revokedAt ? invitation.revokedAt.toISOString() : null,
     createdAt: invitation.createdAt.toISOString(),
   };
 }

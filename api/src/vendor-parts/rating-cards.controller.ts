@@ -24,8 +24,8 @@ export class RatingCardsController {
   @Roles('engineer')
   @ApiOkResponse({ type: RatingCardViewDto })
   @ApiConflictResponse({ type: RatingCardConflictDto, description: 'the card changed since `version`; the body carries the current card' })
-  put(@Param('id', ParseIntPipe) id: number, @Body() body: PutRatingCardDto, @CurrentUser() user: AuthUser) {
-    return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user);
+  put(@Param('id', ParseIntPipe) id: number, @Body() body: PutRatingCardDto, @CurrentUser() user: AuthUser, @Query() query: RatingCardQueryDto) {
+    return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user, { include: query.include, housePartId: query.housePartId });
   }
 
   @Get('rating-card/versions')

@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { RatingCardFields, Spec } from '@shuntwise/contracts';
+import { vzTolerance, type RatingCardFields, type Spec } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { RawRows } from '../database/raw-rows';
 import { User } from '../users/user.model';
 import { RatingCardVersion } from './rating-card-version.model';
 import { RatingCard } from './rating-card.model';
@@ -21,7 +22,32 @@ export class RatingCardsRepository {
     @InjectConnection() private readonly sequelize: Sequelize,
     @InjectModel(RatingCard) private readonly cards: typeof RatingCard,
     @InjectModel(RatingCardVersion) private readonly versions: typeof RatingCardVersion,
+    private readonly raw: RawRows,
   ) {}
+
+  /**
+   * The vendor part's current card in one primary-key read (raw row, no model instances):
+   * null when there is no such vendor part, `card: null` when it has no card yet.
+   */
+  async currentRow(vendorPartId: number): Promise<{ card: { version: number; fields: RatingCardFields; note: string | null; updatedAt: Date; updatedBy: { id: number; name: string } | null } | null } | null> {
+    const [row] = await this.raw.select<{ version: number | null; fields: string | RatingCardFields | null; note: string | null; updatedAt: Date | null; userId: number | null; userName: string | null }>(
+      `SELECT rc.version, rc.fields, rc.note, rc.updated_at AS updatedAt, u.id AS userId, u.name AS userName
+       FROM vendor_parts vp LEFT JOIN rating_cards rc ON rc.vendor_part_id = vp.id LEFT JOIN users u ON u.id = rc.updated_by_id
+       WHERE vp.id = ?`,
+      [vendorPartId],
+    );
+    if (!row) return null;
+    if (row.version === null || row.fields === null) return { card: null };
+    return {
+      card: {
+        version: row.version,
+        fields: typeof row.fields === 'string' ? (JSON.parse(row.fields) as RatingCardFields) : row.fields,
+        note: row.note,
+        updatedAt: row.updatedAt!,
+        updatedBy: row.userId !== null ? { id: row.userId, name: row.userName ?? '' } : null,
+      },
+    };
+  }
 
   findCurrent(vendorPartId: number, transaction?: Transaction): Promise<RatingCard | null> {
     return this.cards.findByPk(vendorPartId, { include: [{ model: User, attributes: ['id', 'name'] }], transaction });
@@ -49,8 +75,8 @@ export class RatingCardsRepository {
     const row = { version: values.version, fields: values.fields, note: values.note, updatedById: values.userId };
     if (existing) await existing.update(row, { transaction });
     else await this.cards.create({ vendorPartId: values.vendorPartId, ...row }, { transaction });
-    await this.sequelize.query('UPDATE vendor_parts SET card_version = ?, vz_nom = ?, izt = ?, pd_max = ?, updated_at = NOW() WHERE id = ?', {
-      replacements: [values.version, values.vzNom, values.izt, values.pdMax, values.vendorPartId],
+    await this.sequelize.query('UPDATE vendor_parts SET card_version = ?, vz_nom = ?, izt = ?, pd_max = ?, vz_tolerance = ?, updated_at = NOW() WHERE id = ?', {
+      replacements: [values.version, values.vzNom, values.izt, values.pdMax, vzTolerance(values.fields), values.vendorPartId],
       type: QueryTypes.UPDATE,
       transaction,
     });

@@ -63,11 +63,14 @@ describe('normalizeAt', () => {
     expect([...new Set(result.points.map((p) => p.current))]).toEqual([0.5e-3, 1e-3, 2e-3, 20e-3]);
     expect([...new Set(result.points.map((p) => p.tempC))]).toEqual([-40, 25, 85]);
   });
-  it("falls back to the card's own test currents at 25 °C", () => {
+  it("falls back to the card's own test currents and the stated 1, 5, 10, 20 mA at 25 °C, as the card editor does", () => {
     const result = normalizeAt(card, null);
     expect(result.points.map((p) => [p.current, p.tempC])).toEqual([
       [0.25e-3, 25],
+      [1e-3, 25],
       [5e-3, 25],
+      [10e-3, 25],
+      [20e-3, 25],
     ]);
   });
 });

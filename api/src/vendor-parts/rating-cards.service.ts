@@ -2,6 +2,8 @@ import { BadRequestException, Injectable, NotFoundException } from '@nestjs/comm
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
+  normalizeBasis,
+  normalizeRequestFor,
   toEngineeringCard,
   type Actor,
   type CardField,
@@ -75,10 +77,12 @@ export class RatingCardsService {
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
-  /** The card (current or an earlier version) with the engineering core's reading of it. */
+  /** The card (current or an earlier version), with the engineering core's reading of it only when asked (`include=engineering`). */
   async view(vendorPartId: number, query: RatingCardQuery = {}): Promise<RatingCardView> {
     const card = await this.card(vendorPartId, query.version);
     const engineeringCard = toEngineeringCard(card.fields);
+    const view: RatingCardView = { ...card, issues: engineeringCard ? checkCard(engineeringCard) : [] };
+    if (query.include !== 'engineering') return view;
     const basis = await this.cards.specBasis(vendorPartId, query.housePartId);
     let reason: string | null = null;
     let result: NormalizeResponse | null = null;
@@ -92,15 +96,8 @@ export class RatingCardsService {
       }
     }
     if (query.housePartId !== undefined && !basis) reason ??= `house part ${query.housePartId} has no spec yet: normalised at the card's own test currents`;
-    return {
-      ...card,
-      issues: engineeringCard ? checkCard(engineeringCard) : [],
-      engineering: {
-        basis: basis ? { housePartId: basis.housePartId, partNumber: basis.partNumber, specVersion: basis.specVersion } : null,
-        result,
-        reason,
-      },
-    };
+    view.engineering = { basis: basis ? { housePartId: basis.housePartId, partNumber: basis.partNumber, specVersion: basis.specVersion } : null, result, reason };
+    return view;
   }
 
   /**
@@ -108,16 +105,19 @@ export class RatingCardsService {
    * without a card gives version 0 and no fields.
    */
   async card(vendorPartId: number, version?: number): Promise<RatingCardDto> {
+    if (version === undefined) {
+      // The common read: part, card and who saved it in one raw primary-key query.
+      const found = await this.cards.currentRow(vendorPartId);
+      if (!found) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
+      const c = found.card;
+      if (!c) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
+      return { vendorPartId, version: c.version, fields: c.fields, note: c.note, updatedAt: new Date(c.updatedAt).toISOString(), updatedBy: c.updatedBy };
+    }
     const part = await this.vendorParts.findById(vendorPartId);
     if (!part) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
-    if (version !== undefined) {
-      const row = await this.cards.findVersion(vendorPartId, version);
-      if (!row) throw new NotFoundException(`Vendor part ${vendorPartId} has no card version ${version}`);
-      return { vendorPartId, version: row.version, fields: row.fields, note: row.note, updatedAt: row.createdAt.toISOString(), updatedBy: actor(row.changedBy) };
-    }
-    const current = await this.cards.findCurrent(vendorPartId);
-    if (!current) return { vendorPartId, version: 0, fields: {}, note: null, updatedAt: null, updatedBy: null };
-    return { vendorPartId, version: current.version, fields: current.fields, note: current.note, updatedAt: current.updatedAt.toISOString(), updatedBy: actor(current.updatedBy) };
+    const row = await this.cards.findVersion(vendorPartId, version);
+    if (!row) throw new NotFoundException(`Vendor part ${vendorPartId} has no card version ${version}`);
+    return { vendorPartId, version: row.version, fields: row.fields, note: row.note, updatedAt: row.createdAt.toISOString(), updatedBy: actor(row.changedBy) };
   }
 
   /** The current card as SPICE `.model` lines: nominal, and the tolerance ends the card gives. */
@@ -164,19 +164,19 @@ export class RatingCardsService {
   }
 
   /** `PUT …/rating-card`: saves a new version, or answers 409 with the current card when the base is stale. */
-  async put(vendorPartId: number, request: CardWrite, user: AuthUser): Promise<RatingCardView> {
+  async put(vendorPartId: number, request: CardWrite, user: AuthUser, read: Pick<RatingCardQuery, 'include' | 'housePartId'> = {}): Promise<RatingCardView> {
     try {
       await this.sequelize.transaction((transaction) => this.write(vendorPartId, request, user, transaction));
     } catch (error) {
       if (error instanceof StaleCardError) {
         throw new RatingCardConflictError(
           `Someone else saved this card (now version ${error.currentVersion}) after you loaded version ${error.baseVersion}: compare both and save again on version ${error.currentVersion}`,
-          await this.view(vendorPartId),
+          await this.view(vendorPartId, read),
         );
       }
       throw error;
     }
-    return this.view(vendorPartId);
+    return this.view(vendorPartId, read);
   }
 
   /**
@@ -227,24 +227,10 @@ export class RatingCardsService {
   }
 }
 
-/** The currents and ambients a card is normalised at: the spec's, or the card's own test points at 25 °C. */
+/** The card normalised at the one basis the editor uses too (contracts' normalizeBasis): the spec's currents, else the stated defaults. */
 export function normalizeAt(card: EngineeringCardInput, basis: SpecBasis | null): NormalizeResponse {
-  let currents: number[];
-  let temperaturesC: number[];
-  if (basis) {
-    const { spec } = basis;
-    currents = [spec.iRef, spec.knee?.iKnee ?? null, spec.envelope.iMin, spec.envelope.iMax].filter((c): c is number => c !== null);
-    temperaturesC = [25, spec.envelope.taMin, spec.envelope.taMax];
-  } else {
-    currents = [card.izk ?? null, card.izt].filter((c): c is number => c !== null);
-    temperaturesC = [25];
-  }
-  return normalize({
-    card: card as Parameters<typeof normalize>[0]['card'],
-    currents: [...new Set(currents)].sort((a, b) => a - b),
-    temperaturesC: [...new Set(temperaturesC)].sort((a, b) => a - b),
-    selfHeating: true,
-  });
+  const chosen = normalizeBasis(card, basis ? { spec: basis.spec, partNumber: basis.partNumber, version: basis.specVersion } : null);
+  return normalize(normalizeRequestFor(card, chosen) as Parameters<typeof normalize>[0]);
 }
 
 function actor(user: { id?: number; name: string } | null | undefined): Actor | null {

@@ -4,6 +4,7 @@ import type { SortTerm, VendorPartListQuery, VendorPartSort } from '@shuntwise/c
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { sourceRoleSql } from '../common/source-standing.sql';
+import { TextIndexRepository } from '../text-index/text-index.repository';
 import { User } from '../users/user.model';
 import { Manufacturer } from './manufacturer.model';
 import { VendorPart } from './vendor-part.model';
@@ -53,6 +54,7 @@ export class VendorPartsRepository {
     @InjectConnection() private readonly sequelize: Sequelize,
     @InjectModel(VendorPart) private readonly vendorParts: typeof VendorPart,
     @InjectModel(Manufacturer) private readonly manufacturers: typeof Manufacturer,
+    private readonly textIndex: TextIndexRepository,
   ) {}
 
   /** One page, narrowed and sorted in SQL on indexed columns; the count uses the same conditions. */
@@ -60,8 +62,9 @@ export class VendorPartsRepository {
     const where: string[] = [];
     const params: unknown[] = [];
     if (query.q) {
-      where.push('(vp.mpn LIKE ? OR vp.manufacturer_name LIKE ?)');
-      params.push(likePrefix(query.q), likePrefix(query.q));
+      const text = this.textIndex.vendorPartCondition('vp', query.q);
+      where.push(text.sql);
+      params.push(...text.params);
     }
     if (query.mpn) {
       where.push(`vp.mpn LIKE ?`);
@@ -144,21 +147,25 @@ export class VendorPartsRepository {
     return rows;
   }
 
-  create(
+  /** Creates the part and indexes its part number in the same transaction. */
+  async create(
     values: { manufacturer: Manufacturer; mpn: string; package: string | null; lifecycleNote: string | null; createdById: number | null },
-    transaction?: Transaction,
+    transaction: Transaction,
   ): Promise<VendorPart> {
     const { manufacturer, ...rest } = values;
-    return this.vendorParts.create({ ...rest, manufacturerId: manufacturer.id, manufacturerName: manufacturer.name }, { transaction });
+    const part = await this.vendorParts.create({ ...rest, manufacturerId: manufacturer.id, manufacturerName: manufacturer.name }, { transaction });
+    await this.textIndex.write('vendorPart', part.id, [part.mpn], transaction);
+    return part;
   }
 
   async update(
     part: VendorPart,
     values: { manufacturer?: Manufacturer } & Partial<Pick<VendorPart, 'mpn' | 'package' | 'lifecycleNote'>>,
-    transaction?: Transaction,
+    transaction: Transaction,
   ): Promise<void> {
     const { manufacturer, ...rest } = values;
     await part.update({ ...rest, ...(manufacturer ? { manufacturerId: manufacturer.id, manufacturerName: manufacturer.name } : {}) }, { transaction });
+    if (values.mpn !== undefined) await this.textIndex.write('vendorPart', part.id, [part.mpn], transaction);
   }
 
   findManufacturerByName(name: string, transaction?: Transaction): Promise<Manufacturer | null> {
@@ -170,12 +177,15 @@ export class VendorPartsRepository {
     const existing = await this.findManufacturerByName(name, transaction);
     if (existing) return existing;
     // INSERT IGNORE: two imports naming the same new manufacturer do not fail each other.
-    await this.sequelize.query('INSERT IGNORE INTO manufacturers (name, created_at, updated_at) VALUES (?, NOW(), NOW())', {
+    const [, inserted] = await this.sequelize.query('INSERT IGNORE INTO manufacturers (name, created_at, updated_at) VALUES (?, NOW(), NOW())', {
       replacements: [name],
       type: QueryTypes.INSERT,
       transaction,
     });
-    return (await this.findManufacturerByName(name, transaction))!;
+    const manufacturer = (await this.findManufacturerByName(name, transaction))!;
+    // Indexed by whichever transaction inserted the row (the other found it already there).
+    if (Number(inserted) > 0) await this.textIndex.write('manufacturer', manufacturer.id, [manufacturer.name], transaction);
+    return manufacturer;
   }
 
   async listManufacturers(): Promise<Array<{ id: number; name: string; vendorPartCount: number }>> {

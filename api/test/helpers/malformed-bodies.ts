@@ -137,6 +137,8 @@ const VALUE_OF: Record<string, fc.Arbitrary<unknown>> = {
 interface Site {
   path: Path;
   node: Json;
+  /** The non-null branch of a nullable node: only its bounds are poisons (null is a valid value there). */
+  boundsOnly?: boolean;
 }
 
 /** Every place in the body the schema describes (optional and nested ones included), at most a few levels deep. */
@@ -160,7 +162,7 @@ function sitesOf(node: Json, root: Json, path: Path = [], depth = 0): Site[] {
 /** The one non-null branch of a nullable node, so its bounds are checked too (null stays allowed, the bound still fails). */
 function branchBounds(node: Json, root: Json, path: Path, nullable: boolean): Site[] {
   const n = resolve(node, root);
-  return nullable && (n.type === 'number' || n.type === 'integer' || n.type === 'string' || n.type === 'array') ? [{ path, node: n }] : [];
+  return nullable && (n.type === 'number' || n.type === 'integer' || n.type === 'string' || n.type === 'array') ? [{ path, node: n, boundsOnly: true }] : [];
 }
 
 /** The poisons that make a body invalid at one site, each certain to be refused. */
@@ -172,7 +174,7 @@ function poisonsAt(site: Site, root: Json, strictParents: Set<string>): Array<fc
   // (Not as the whole body: a bare string is not JSON the API's parser takes at all.)
   const out: Array<fc.Arbitrary<Poison>> = [at('deep nesting', deeplyNested)];
   if (path.length > 0) out.push(at('control character', textWith(CONTROL)), at('lone surrogate', textWith(SURROGATES)));
-  const types = typesOf(node, root);
+  const types = site.boundsOnly ? null : typesOf(node, root);
   if (types) {
     const wrong = Object.keys(VALUE_OF).filter((t) => !types.has(t) && !(t === 'number' && types.has('integer')));
     if (path.length === 0) wrong.splice(0, wrong.length, ...wrong.filter((t) => t === 'array'));

@@ -100,6 +100,9 @@ export const ROUTE_ROLES: Readonly<Record<string, Access>> = {
   'POST /api/qualifications/:id/waivers': ENGINEER,
   'POST /api/qualifications/:id/waivers/:waiverId/approve': ENGINEER,
   'POST /api/qualifications/:id/waivers/:waiverId/refuse': ENGINEER,
+  // the PDF record of a decided case (designers: usable cases only, as the case route decides)
+  'GET /api/qualifications/:id/record': ALL,
+  'GET /api/qualifications/:id/record/meta': ALL,
   'GET /api/qualifications/board': ['engineer', 'admin'],
   'GET /api/qualifications/compare/:housePartId': READERS,
   'GET /api/qualifications/sources': ALL,

@@ -10,6 +10,8 @@ import type { SeedLevel } from '../../src/seed/demo-seed.service';
 import { DEMO_USERS } from '../../src/seed/demo-users';
 
 export interface TestApp {
+  /** Names this app's database, user and data folder (t_<id>, u_<id>). */
+  id: string;
   stack: Stack;
   http: TestAgent;
   /** A fresh token for a demo account: by role (the first account with it) or by e-mail. */
@@ -20,13 +22,18 @@ export interface TestApp {
   select<T = Record<string, unknown>>(sql: string, replacements?: unknown[]): Promise<T[]>;
   /** Raw UPDATE/DELETE/INSERT against the test database (to set up odd states). */
   exec(sql: string, replacements?: unknown[]): Promise<void>;
-  close(): Promise<void>;
+  /** Stops the app and drops its database (`keepDatabase`: leaves it for a restart). */
+  close(options?: { keepDatabase?: boolean }): Promise<void>;
 }
 
 export interface TestAppOptions {
   /** Extra environment (e.g. LOGIN_RATE_LIMIT). */
   env?: Record<string, string>;
   seed?: SeedLevel;
+  /** Start on the database of an app started earlier (a restart); the earlier app should be closed with `keepDatabase`. */
+  sameDatabaseAs?: TestApp;
+  /** A MariaDB of the test's own (one it stops and starts) instead of jest's shared one. */
+  database?: { port: number; socket: string };
 }
 
 /**
@@ -34,10 +41,10 @@ export interface TestAppOptions {
  * fakes on free ports. Migrations run from empty; the demo accounts are seeded.
  */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
-  const port = process.env.TEST_DB_PORT;
-  const socket = process.env.TEST_DB_SOCKET;
+  const port = options.database ? String(options.database.port) : process.env.TEST_DB_PORT;
+  const socket = options.database?.socket ?? process.env.TEST_DB_SOCKET;
   if (!port || !socket) throw new Error('TEST_DB_PORT is not set: run through jest (test/setup/global-setup.ts starts MariaDB)');
-  const id = randomBytes(4).toString('hex');
+  const id = options.sameDatabaseAs?.id ?? randomBytes(4).toString('hex');
   const dataDir = join(process.env.TEST_DATA_DIR!, `app-${id}`);
   const stack = await startStack({
     source: {
@@ -47,7 +54,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       DB_NAME: `t_${id}`,
       DB_USER: `u_${id}`,
       DB_PASSWORD: `p_${id}_local_only`,
-      JWT_SECRET: randomBytes(32).toString('hex'),
+      JWT_SECRET: options.sameDatabaseAs?.stack.env.JWT_SECRET ?? randomBytes(32).toString('hex'),
       S3_FAKE_PORT: String(await freePort()),
       SMTP_PORT: String(await freePort()),
       MAIL_RETRY_SECONDS: '0.05',
@@ -65,6 +72,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   const select = <T>(sql: string, replacements: unknown[] = []) =>
     stack.sequelize.query(sql, { replacements, type: QueryTypes.SELECT }) as unknown as Promise<T[]>;
   return {
+    id,
     stack,
     http,
     select,
@@ -83,8 +91,9 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       );
       return rows.map((r) => ({ ...r, recipients: typeof r.recipients === 'string' ? JSON.parse(r.recipients) : r.recipients }));
     },
-    async close() {
+    async close(closing = {}) {
       await stack.stop();
+      if (closing.keepDatabase) return;
       await stack.database.admin(`DROP DATABASE IF EXISTS \`t_${id}\``).catch(() => undefined);
     },
   };

@@ -26,6 +26,8 @@ export const invitationSchema = z.object({
   role: roleSchema,
   expiresAt: z.string(),
   acceptedAt: z.string().nullable(),
+  /** Taken back by an admin; the link no longer works. */
+  revokedAt: z.string().nullable(),
   createdAt: z.string(),
 });
 export type Invitation = z.infer<typeof invitationSchema>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { leakageCurrent, physical, PHYSICAL_BOUNDS } from '../units/bounds';
+import { fieldWithValue as fw } from '../units/field-labels';
 
 /**
  * The ratings the engineering core computes from, in SI (V, A, Ω, W, °C, K/W). The
@@ -72,31 +73,31 @@ export interface CardFieldProblem {
 export function engineeringCardContradictions(card: EngineeringCardInput): CardFieldProblem[] {
   const problems: CardFieldProblem[] = [];
   if (card.vzMin != null && card.vzMin > card.vzNom) {
-    problems.push({ field: 'vzMin', message: `vzMin (${card.vzMin} V) is above vzNom (${card.vzNom} V)` });
+    problems.push({ field: 'vzMin', message: `${fw('vzMin', card.vzMin)} is above ${fw('vzNom', card.vzNom)}` });
   }
   if (card.vzMax != null && card.vzMax < card.vzNom) {
-    problems.push({ field: 'vzMax', message: `vzMax (${card.vzMax} V) is below vzNom (${card.vzNom} V)` });
+    problems.push({ field: 'vzMax', message: `${fw('vzMax', card.vzMax)} is below ${fw('vzNom', card.vzNom)}` });
   }
   if (card.izk != null && card.izk >= card.izt) {
-    problems.push({ field: 'izk', message: `izk (${card.izk} A) must be below izt (${card.izt} A)` });
+    problems.push({ field: 'izk', message: `${fw('izk', card.izk)} must be below ${fw('izt', card.izt)}` });
   }
   // zzt·izt is the junction's log slope at izt if RS were 0; a slope as large as vz itself
   // would put the voltage below zero a few times below izt.
   if (card.zzt != null && card.zzt * card.izt >= card.vzNom) {
-    problems.push({ field: 'zzt', message: `zzt (${card.zzt} Ω) × izt (${card.izt} A) is not below vzNom (${card.vzNom} V): no junction in breakdown has that impedance` });
+    problems.push({ field: 'zzt', message: `${fw('zzt', card.zzt)} × ${fw('izt', card.izt)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance` });
   }
   if (card.zzk != null && card.izk != null && card.zzk * card.izk >= card.vzNom) {
-    problems.push({ field: 'zzk', message: `zzk (${card.zzk} Ω) × izk (${card.izk} A) is not below vzNom (${card.vzNom} V): no junction in breakdown has that impedance` });
+    problems.push({ field: 'zzk', message: `${fw('zzk', card.zzk)} × ${fw('izk', card.izk)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance` });
   }
   if (card.vr != null && card.vr >= card.vzNom) {
-    problems.push({ field: 'vr', message: `vr (${card.vr} V) must be below the Zener voltage (${card.vzNom} V)` });
+    problems.push({ field: 'vr', message: `${fw('vr', card.vr)} must be below the Zener voltage ${fw('vzNom', card.vzNom)}` });
   }
   if (card.izm != null && card.izm < card.izt) {
-    problems.push({ field: 'izm', message: `izm (${card.izm} A) is below the test current izt (${card.izt} A)` });
+    problems.push({ field: 'izm', message: `${fw('izm', card.izm)} is below the test current ${fw('izt', card.izt)}` });
   }
   const pdRefC = card.pdRefC ?? 25;
   if (card.tjMax != null && card.tjMax <= pdRefC) {
-    problems.push({ field: 'tjMax', message: `tjMax (${card.tjMax} °C) must be above the power rating's reference temperature (${pdRefC} °C)` });
+    problems.push({ field: 'tjMax', message: `${fw('tjMax', card.tjMax)} must be above the power rating's reference temperature ${fw('pdRefC', pdRefC)}` });
   }
   return problems;
 }

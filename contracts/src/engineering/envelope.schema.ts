@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { physical } from '../units/bounds';
+import { fieldWithValue as fw } from '../units/field-labels';
 
 /** Where a part operates: diode current iMin..iMax (A) and ambient taMin..taMax (°C). */
 export const envelopeSchema = z
@@ -10,8 +11,8 @@ export const envelopeSchema = z
     taMax: physical('ambient'),
   })
   .superRefine((e, ctx) => {
-    if (e.iMin > e.iMax) ctx.addIssue({ code: 'custom', path: ['iMin'], message: `iMin (${e.iMin} A) is above iMax (${e.iMax} A)` });
-    if (e.taMin > e.taMax) ctx.addIssue({ code: 'custom', path: ['taMin'], message: `taMin (${e.taMin} °C) is above taMax (${e.taMax} °C)` });
+    if (e.iMin > e.iMax) ctx.addIssue({ code: 'custom', path: ['iMin'], message: `${fw('envelope.iMin', e.iMin)} is above ${fw('envelope.iMax', e.iMax)}` });
+    if (e.taMin > e.taMax) ctx.addIssue({ code: 'custom', path: ['taMin'], message: `${fw('envelope.taMin', e.taMin)} is above ${fw('envelope.taMax', e.taMax)}` });
   });
 export type Envelope = z.infer<typeof envelopeSchema>;
 

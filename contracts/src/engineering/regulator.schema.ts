@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { physical } from '../units/bounds';
+import { fieldValue, fieldWithValue as fw } from '../units/field-labels';
 import { engineeringCardSchema } from './card.schema';
 import { toleranceCornerSchema } from './envelope.schema';
 
@@ -15,22 +16,22 @@ const supplySchema = z
     max: physical('voltage'),
   })
   .superRefine((s, ctx) => {
-    if (s.min > s.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `supply.min (${s.min} V) is above supply.max (${s.max} V)` });
+    if (s.min > s.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('supply.min', s.min)} is above ${fw('supply.max', s.max)}` });
     if (s.nom !== undefined && (s.nom < s.min || s.nom > s.max)) {
-      ctx.addIssue({ code: 'custom', path: ['nom'], message: `supply.nom (${s.nom} V) lies outside ${s.min}…${s.max} V` });
+      ctx.addIssue({ code: 'custom', path: ['nom'], message: `${fw('supply.nom', s.nom)} lies outside ${fieldValue('supply.min', s.min)} … ${fieldValue('supply.max', s.max)}` });
     }
   });
 
 const loadSchema = z
   .strictObject({ min: z.number().nonnegative().max(100), max: z.number().nonnegative().max(100) })
   .superRefine((l, ctx) => {
-    if (l.min > l.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `load.min (${l.min} A) is above load.max (${l.max} A)` });
+    if (l.min > l.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('load.min', l.min)} is above ${fw('load.max', l.max)}` });
   });
 
 const ambientSchema = z
   .strictObject({ min: physical('ambient'), max: physical('ambient') })
   .superRefine((a, ctx) => {
-    if (a.min > a.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `ambient.min (${a.min} °C) is above ambient.max (${a.max} °C)` });
+    if (a.min > a.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('ambient.min', a.min)} is above ${fw('ambient.max', a.max)}` });
   });
 
 /** `POST /api/engineering/regulator`: a shunt regulator (supply → R → diode ∥ load) designed around a card. */

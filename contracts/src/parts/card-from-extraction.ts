@@ -16,7 +16,8 @@ export function cardDraftFromExtraction(variant: ExtractedVariant, datasheetId: 
     const provenance = { source: 'extracted' as const, datasheetId, page: found.page, text: found.text.slice(0, 500) };
     if (field === 'tc') {
       const percent = kindOfUnit(found.unit) === 'tempCoPercent';
-      const value = percent ? Number(normaliseQuantityText(found.value)) : Number((found.si * 1e3).toPrecision(12));
+      // The printed figure may use a decimal comma ("−0,058"); extraction keeps it as printed.
+      const value = percent ? Number(normaliseQuantityText(found.value).replace(',', '.')) : Number((found.si * 1e3).toPrecision(12));
       if (!Number.isFinite(value)) continue;
       draft.tc = { value, unit: percent ? '%/K' : 'mV/K', printed, provenance };
     } else {

@@ -86,4 +86,8 @@ describe('cardDraftFromExtraction', () => {
     const draft = cardDraftFromExtraction({ mpn: 'Y', fields: { tc: { value: '+0.06', unit: '%/K', si: 0.0072, page: 1, text: 'αVZ +0.06 %/K' } } }, 1);
     expect(draft.tc).toMatchObject({ value: 0.06, unit: '%/K' });
   });
+  it('reads a %/K coefficient printed with a decimal comma (common practice in datasheets, no source)', () => {
+    const draft = cardDraftFromExtraction({ mpn: 'Z', fields: { tc: { value: '−0,058', unit: '%/K', si: -0.0029, page: 1, text: 'αVZ −0,058 %/K' } } }, 1);
+    expect(draft.tc).toMatchObject({ value: -0.058, unit: '%/K', printed: '−0,058 %/K' });
+  });
 });

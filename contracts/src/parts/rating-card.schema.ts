@@ -233,20 +233,23 @@ export type RatingCard = z.infer<typeof ratingCardSchema>;
  */
 export const ratingCardViewSchema = ratingCardSchema.extend({
   issues: z.array(cardIssueSchema),
+  /** Only with `include=engineering`: the card normalised by the same function and currents the card editor uses (normalizeBasis). */
   engineering: z.object({
     basis: z.object({ housePartId: z.number().int(), partNumber: z.string(), specVersion: z.number().int() }).nullable(),
     result: normalizeResponseSchema.nullable(),
     /** Why there is no result (no vzNom/izt yet, or the core refused the card). */
     reason: z.string().nullable(),
-  }),
+  }).optional(),
 });
 export type RatingCardView = z.infer<typeof ratingCardViewSchema>;
 
 export const ratingCardQuerySchema = z.object({
   /** Read an earlier version. */
   version: z.coerce.number().int().min(1).optional(),
-  /** Normalise at this house part's spec currents. */
+  /** Normalise at this house part's spec currents (with include=engineering). */
   housePartId: z.coerce.number().int().positive().optional(),
+  /** `engineering` adds the card's normalised reading; a plain read does not compute it. */
+  include: z.enum(['engineering']).optional(),
 });
 export type RatingCardQuery = z.infer<typeof ratingCardQuerySchema>;
 

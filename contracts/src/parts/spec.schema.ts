@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldValue, fieldWithValue as fw } from '../units/field-labels';
 import { envelopeSchema } from '../engineering/envelope.schema';
 import { physical } from '../units/bounds';
 import { actorSchema } from './page.schema';
@@ -50,21 +51,48 @@ export const specSchema = z
   })
   .superRefine((s, ctx) => {
     const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message });
-    if (s.vz.min > s.vz.nom) issue(['vz', 'min'], `vz.min (${s.vz.min} V) is above vz.nom (${s.vz.nom} V)`);
-    if (s.vz.max < s.vz.nom) issue(['vz', 'max'], `vz.max (${s.vz.max} V) is below vz.nom (${s.vz.nom} V)`);
+    if (s.vz.min > s.vz.nom) issue(['vz', 'min'], `${fw('vz.min', s.vz.min)} is above ${fw('vz.nom', s.vz.nom)}`);
+    if (s.vz.max < s.vz.nom) issue(['vz', 'max'], `${fw('vz.max', s.vz.max)} is below ${fw('vz.nom', s.vz.nom)}`);
     if (s.knee) {
-      if (s.knee.maxRatio === null && s.knee.maxSpan === null) issue(['knee'], 'a knee limit needs maxRatio (with iKnee) or maxSpan');
-      if (s.knee.maxRatio !== null && s.knee.iKnee === null) issue(['knee', 'iKnee'], 'maxRatio is stated at a knee current: give iKnee');
-      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef) issue(['knee', 'iKnee'], `iKnee (${s.knee.iKnee} A) must be below iRef (${s.iRef} A)`);
+      if (s.knee.maxRatio === null && s.knee.maxSpan === null) issue(['knee'], 'A knee limit needs the largest ratio (with the knee current) or the largest span');
+      if (s.knee.maxRatio !== null && s.knee.iKnee === null) issue(['knee', 'iKnee'], 'The knee ratio is stated at a knee current: give the knee current');
+      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef) issue(['knee', 'iKnee'], `${fw('knee.iKnee', s.knee.iKnee)} must be below the reference current (${fieldValue('iRef', s.iRef)})`);
     }
-    if (s.leakage && s.leakage.vr >= s.vz.min) issue(['leakage', 'vr'], `vr (${s.leakage.vr} V) must be below the window's vz.min (${s.vz.min} V)`);
-    if (s.tc && s.tc.min > s.tc.max) issue(['tc', 'min'], `tc.min (${s.tc.min} V/K) is above tc.max (${s.tc.max} V/K)`);
+    if (s.leakage && s.leakage.vr >= s.vz.min) issue(['leakage', 'vr'], `${fw('leakage.vr', s.leakage.vr)} must be below ${fw('vz.min', s.vz.min)}`);
+    if (s.tc && s.tc.min > s.tc.max) issue(['tc', 'min'], `${fw('tc.min', s.tc.min)} is above ${fw('tc.max', s.tc.max)}`);
     if (s.outputWindow && s.outputWindow.vMin >= s.outputWindow.vMax) {
-      issue(['outputWindow', 'vMin'], `outputWindow.vMin (${s.outputWindow.vMin} V) must be below vMax (${s.outputWindow.vMax} V)`);
+      issue(['outputWindow', 'vMin'], `${fw('outputWindow.vMin', s.outputWindow.vMin)} must be below ${fw('outputWindow.vMax', s.outputWindow.vMax)}`);
     }
   });
 export type Spec = z.infer<typeof specSchema>;
 export type SpecInput = z.input<typeof specSchema>;
+
+/** Numbers closer than this (relative) are the same value: a unit round trip (5 mA → 0.005 A) leaves noise in the last bit. */
+const SAME_RELATIVE = 1e-9;
+
+function sameValue(a: unknown, b: unknown): boolean {
+  if (typeof a === 'number' && typeof b === 'number') return a === b || Math.abs(a - b) <= SAME_RELATIVE * Math.max(Math.abs(a), Math.abs(b));
+  if (Array.isArray(a) && Array.isArray(b)) return a.length === b.length && a.every((x, i) => sameValue(x, b[i]));
+  if (a && b && typeof a === 'object' && typeof b === 'object') {
+    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
+    // A key left out and a key set to null say the same: no limit.
+    return [...keys].every((k) => sameValue((a as Record<string, unknown>)[k] ?? null, (b as Record<string, unknown>)[k] ?? null));
+  }
+  return (a ?? null) === (b ?? null);
+}
+
+/**
+ * Whether two specs state the same requirement: defaults filled in, numbers equal to
+ * within a unit round trip, packages as a set. The API makes no new version (and flags
+ * no decided case) for a save that changes nothing by this rule; the editor uses it too.
+ */
+export function sameSpec(a: SpecInput, b: SpecInput): boolean {
+  const pa = specSchema.safeParse(a);
+  const pb = specSchema.safeParse(b);
+  if (!pa.success || !pb.success) return false;
+  const canonical = (s: Spec) => ({ ...s, packages: [...new Set(s.packages)].sort() });
+  return sameValue(canonical(pa.data), canonical(pb.data));
+}
 
 /** `PUT /house-parts/:id/spec`: a new version, based on the version the editor loaded (0 for the first). */
 export const putSpecRequestSchema = z.strictObject({

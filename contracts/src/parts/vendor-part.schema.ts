@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldWithValue as fw } from '../units/field-labels';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from './page.schema';
 
 export const manufacturerNameSchema = z.string().trim().min(1, 'Enter the manufacturer').max(120);
@@ -92,7 +93,7 @@ export const vendorPartListQuerySchema = z
   })
   .superRefine((q, ctx) => {
     if (q.vzNomMin !== undefined && q.vzNomMax !== undefined && q.vzNomMin > q.vzNomMax) {
-      ctx.addIssue({ code: 'custom', path: ['vzNomMin'], message: `vzNomMin (${q.vzNomMin} V) is above vzNomMax (${q.vzNomMax} V)` });
+      ctx.addIssue({ code: 'custom', path: ['vzNomMin'], message: `${fw('vzNomMin', q.vzNomMin)} is above ${fw('vzNomMax', q.vzNomMax)}` });
     }
   });
 export type VendorPartListQuery = z.infer<typeof vendorPartListQuerySchema>;

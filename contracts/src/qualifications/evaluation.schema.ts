@@ -25,7 +25,7 @@ export type CheckId = z.infer<typeof checkIdSchema>;
 export const CHECK_LABELS: Record<CheckId, string> = {
   'vz-window': 'Zener voltage at the reference current',
   zd: 'Dynamic impedance at the reference current',
-  'knee-ratio': 'Knee ratio Zd(iKnee)/Zd(iRef)',
+  'knee-ratio': 'Knee ratio: Zd at the knee current ÷ Zd at the reference current',
   'knee-span': 'Voltage span over the operating currents',
   leakage: 'Reverse leakage',
   tc: 'Temperature coefficient',

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { fieldWithValue as fw } from '../units/field-labels';
 import { tempCoSchema } from '../engineering/card.schema';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
@@ -26,8 +27,8 @@ export const CLEARANCE_STANDING_LABELS: Record<ClearanceStanding, string> = {
 export const SEARCH_SORTS = ['relevance', 'vzNom', 'mpn', 'manufacturer', 'package', 'pdMax'] as const;
 export type SearchSort = (typeof SEARCH_SORTS)[number];
 
-/** Matching at most this many parts, text is ranked fuzzily over all of them; above it SQL narrows by prefix first. */
-export const SEARCH_TEXT_CANDIDATES = 4000;
+/** The n-gram index hands at most this many best-matching parts (after the filters) to the fuzzy ranking. */
+export const SEARCH_TEXT_CANDIDATES = 300;
 
 /** A comma list of exact names ("SOD-123,SOD-323"); empty entries dropped. */
 const commaListSchema = (max: number) =>
@@ -58,7 +59,7 @@ export const searchQuerySchema = z
     package: commaListSchema(1000),
     /** Smallest power rating pdMax (W). */
     pdMin: z.coerce.number().positive().max(1000).optional(),
-    /** Largest Zener-voltage tolerance as a fraction (0.02 for ±2 %): max(vzNom − vzMin, vzMax − vzNom)/vzNom. */
+    /** Largest Zener-voltage tolerance as a fraction (0.02 for ±2 %), as `vzTolerance` reads the card: printed, else the window ends less their print rounding. */
     toleranceMax: z.coerce.number().positive().max(0.5).optional(),
     /** Manufacturers, exact names, comma separated. */
     manufacturer: commaListSchema(2000),
@@ -71,7 +72,7 @@ export const searchQuerySchema = z
   })
   .superRefine((q, ctx) => {
     if (q.vzFrom !== undefined && q.vzTo !== undefined && q.vzFrom > q.vzTo) {
-      ctx.addIssue({ code: 'custom', path: ['vzFrom'], message: `vzFrom (${q.vzFrom} V) is above vzTo (${q.vzTo} V)` });
+      ctx.addIssue({ code: 'custom', path: ['vzFrom'], message: `${fw('vzFrom', q.vzFrom)} is above ${fw('vzTo', q.vzTo)}` });
     }
     if (q.vzWindow && q.vzFrom === undefined && q.vzTo === undefined) {
       ctx.addIssue({ code: 'custom', path: ['vzWindow'], message: 'vzWindow needs vzFrom or vzTo: the window is checked against that range' });
@@ -126,7 +127,7 @@ export const searchCardSchema = z.object({
   tjMax: z.number().nullable(),
   rthJA: z.number().nullable(),
   izm: z.number().nullable(),
-  /** max(vzNom − vzMin, vzMax − vzNom)/vzNom; null without both ends. */
+  /** The Zener-voltage tolerance as `vzTolerance` reads the card (printed, else the ends less their print rounding); null without both ends. */
   tolerance: z.number().nullable(),
 });
 export type SearchCard = z.infer<typeof searchCardSchema>;
@@ -156,7 +157,7 @@ export type SearchItem = z.infer<typeof searchItemSchema>;
 export const SEARCH_TEXT_MODES = ['none', 'fuzzy', 'prefix'] as const;
 
 export const searchPageSchema = pageSchema(searchItemSchema).extend({
-  /** How the text was matched: fuzzily over every part the filters leave, or (too many of those) over parts whose names start with a word's first letters. */
+  /** How the text was matched: fuzzily over the parts the n-gram index found closest (after the filters), or, for text too short to index, over parts whose names start with the words. */
   text: z.object({
     mode: z.enum(SEARCH_TEXT_MODES),
     /** Parts the text was ranked over. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatQuantity } from './format';
+import { formatQuantity, roundToDigits } from './format';
 import { parseQuantity } from './parse';
 
 // Engineering notation with SI prefixes (BIPM SI Brochure, 9th edition): the mantissa stays
@@ -40,5 +40,15 @@ describe('formatQuantity prints SI numbers with engineering prefixes', () => {
     for (const [value, kind] of [[4.7, 'voltage'], [2.5e-7, 'current'], [-0.0019, 'tempCoVoltage'], [0.06, 'tempCoPercent']] as const) {
       expect(parseQuantity(formatQuantity(value, kind), kind)).toBeCloseTo(value, 12);
     }
+  });
+});
+
+describe('roundToDigits keeps exported numbers to the printed precision', () => {
+  it('drops binary noise a subtraction leaves (IEEE 754 doubles, common practice)', () => {
+    expect(roundToDigits(0.0012 - 0.003)).toBe(-0.0018);
+    expect(String(roundToDigits(0.1 + 0.2, 3))).toBe('0.3');
+    expect(roundToDigits(5.1234, 4)).toBe(5.123);
+    expect(roundToDigits(null)).toBeNull();
+    expect(roundToDigits(Number.NaN)).toBeNull();
   });
 });

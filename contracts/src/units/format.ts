@@ -64,3 +64,13 @@ function toDigits(x: number, digits: number): string {
   const text = x.toPrecision(digits);
   return text.includes('e') ? String(Number(text)) : text;
 }
+
+/**
+ * A number for a file a machine reads next (CSV): rounded to the significant digits the
+ * screen prints, so -0.0018000000000000002 leaves as -0.0018. Plain ASCII, no prefix;
+ * null stays null.
+ */
+export function roundToDigits(value: number | null | undefined, digits = 3): number | null {
+  if (value === null || value === undefined || !Number.isFinite(value)) return null;
+  return Number(value.toPrecision(digits));
+}

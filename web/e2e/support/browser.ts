@@ -66,3 +66,54 @@ export function watchErrors(page: Page): string[] {
   });
   return errors;
 }
+
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: Array<{ target: unknown[] }>;
+}
+
+/**
+ * Runs axe-core (the root's copy, injected into the page) on what the page shows now and
+ * returns the serious and critical violations, each as "rule: help (targets)".
+ */
+export async function seriousAxeViolations(page: Page): Promise<string[]> {
+  const loaded = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe !== 'undefined');
+  if (!loaded) await page.addScriptTag({ path: join(process.cwd(), 'node_modules', 'axe-core', 'axe.min.js') });
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: AxeViolation[] }> } }).axe;
+    const result = await axe.run(document, { resultTypes: ['violations'] });
+    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => ({ target: n.target })) }));
+  });
+  return violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => JSON.stringify(n.target)).join(', ')}`);
+}
+
+/** Tables wider than their box with no way to scroll to the rest (cut off, not scrollable). */
+export async function clippedTables(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const out: string[] = [];
+    for (const table of Array.from(document.querySelectorAll('table'))) {
+      const rect = table.getBoundingClientRect();
+      if (rect.width === 0) continue;
+      let node: HTMLElement | null = table.parentElement;
+      while (node && node !== document.body) {
+        const style = getComputedStyle(node);
+        const scrolls = /(auto|scroll)/.test(style.overflowX);
+        if (scrolls) break;
+        const box = node.getBoundingClientRect();
+        if (style.overflowX === 'hidden' && rect.right > box.right + 1) {
+          out.push(`${table.getAttribute('aria-label') ?? 'table'} is cut at ${Math.round(box.right)} px (needs ${Math.round(rect.right)} px)`);
+          break;
+        }
+        node = node.parentElement;
+      }
+      if (!node || node === document.body) {
+        if (rect.right > document.documentElement.clientWidth + 1) out.push(`${table.getAttribute('aria-label') ?? 'table'} runs past the window (${Math.round(rect.right)} px)`);
+      }
+    }
+    return out;
+  });
+}

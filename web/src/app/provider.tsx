@@ -5,6 +5,7 @@ import '@mantine/core/styles.css';
 
 import type { ReactNode } from 'react';
 import { MantineProvider } from '@mantine/core';
+import { cssVariablesResolver } from '@/theme/css-variables';
 import { theme } from '@/theme/theme';
 
 /**
@@ -14,7 +15,7 @@ import { theme } from '@/theme/theme';
  */
 export function AppProvider({ children }: { children: ReactNode }) {
   return (
-    <MantineProvider theme={theme} defaultColorScheme="auto">
+    <MantineProvider theme={theme} defaultColorScheme="auto" cssVariablesResolver={cssVariablesResolver}>
       {children}
     </MantineProvider>
   );

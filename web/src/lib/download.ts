@@ -33,7 +33,13 @@ export async function downloadFile(path: string, fallbackName: string): Promise<
     throw errorFromBody(response.status, response.statusText, body);
   }
   const name = fileNameFromDisposition(response.headers.get('Content-Disposition')) ?? fallbackName;
-  const url = URL.createObjectURL(await response.blob());
+  saveBlob(await response.blob(), name);
+  return name;
+}
+
+/** Hands a file made in the page (a CSV of results, a .model text) to the browser as a download. */
+export function saveBlob(blob: Blob, name: string): void {
+  const url = URL.createObjectURL(blob);
   const link = document.createElement('a');
   link.href = url;
   link.download = name;
@@ -42,7 +48,6 @@ export async function downloadFile(path: string, fallbackName: string): Promise<
   link.remove();
   // Give the browser a moment to start the download before the URL goes.
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
-  return name;
 }
 
 /** The PDF bytes of a datasheet, with the token (pdf.js reads them from memory). */

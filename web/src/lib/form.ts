@@ -1,4 +1,5 @@
 import type { FormErrors } from '@mantine/form';
+import { issueMessage } from '@shuntwise/contracts';
 
 interface SchemaIssue {
   code?: string;
@@ -8,6 +9,8 @@ interface SchemaIssue {
   maximum?: number | bigint;
   values?: ReadonlyArray<unknown>;
   format?: string;
+  origin?: string;
+  inclusive?: boolean;
 }
 
 /** Anything with zod 4's `safeParse` (the contracts schemas). */
@@ -21,6 +24,8 @@ const ZOD_DEFAULT = /^(Too small|Too big|Invalid (input|option|string|format)|Re
 
 function plainMessage(issue: SchemaIssue): string {
   if (!ZOD_DEFAULT.test(issue.message)) return issue.message;
+  // Numbers: the field's label and the limit with its unit, from the contracts' one map.
+  if (issue.origin === 'number' && (issue.code === 'too_small' || issue.code === 'too_big')) return issueMessage(issue);
   switch (issue.code) {
     case 'too_small':
       return Number(issue.minimum) <= 1 ? 'Required' : `Use at least ${issue.minimum} characters`;

@@ -4,7 +4,7 @@ import { afterEach, vi } from 'vitest';
 import { resetSession } from '@/lib/session';
 
 // The data grid renders slowly in jsdom on a 2-core machine; a second is too tight.
-configure({ asyncUtilTimeout: 4000 });
+configure({ asyncUtilTimeout: 10_000 });
 
 // jsdom lacks what Mantine measures with (as in Mantine's own Vite template).
 const { getComputedStyle } = window;

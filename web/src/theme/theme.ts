@@ -16,6 +16,13 @@ const copper: MantineColorsTuple = [
   '#63320f',
 ];
 
+// Mantine's orange, yellow, lime and green, with shades 7–9 dark enough for text and white-on-colour
+// at 4.5:1 (WCAG 2.2, 1.4.3); shades 0–6 as Mantine has them.
+const orange: MantineColorsTuple = ['#fff4e6', '#ffe8cc', '#ffd8a8', '#ffc078', '#ffa94d', '#ff922b', '#fd7e14', '#c2410c', '#9a3412', '#7c2d12'];
+const yellow: MantineColorsTuple = ['#fff9db', '#fff3bf', '#ffec99', '#ffe066', '#ffd43b', '#fcc419', '#fab005', '#a16207', '#854d0e', '#713f12'];
+const lime: MantineColorsTuple = ['#f4fce3', '#e9fac8', '#d8f5a2', '#c0eb75', '#a9e34b', '#94d82d', '#82c91e', '#4d7c0f', '#3f6212', '#365314'];
+const green: MantineColorsTuple = ['#ebfbee', '#d3f9d8', '#b2f2bb', '#8ce99a', '#69db7c', '#51cf66', '#40c057', '#2b8a3e', '#1f6f33', '#14532d'];
+
 const verdigris: MantineColorsTuple = [
   '#ebf7f3',
   '#d5ece5',
@@ -67,8 +74,9 @@ const fontFamily = 'Lexend, "Segoe UI", system-ui, -apple-system, sans-serif';
 
 export const theme = createTheme({
   primaryColor: 'copper',
-  primaryShade: { light: 6, dark: 5 },
-  colors: { copper, verdigris, dark: graphite },
+  // Shade 8 in the light scheme: filled buttons, links and outlines at 4.5:1 or more on white.
+  primaryShade: { light: 8, dark: 5 },
+  colors: { copper, verdigris, orange, yellow, lime, green, dark: graphite },
   fontFamily,
   fontFamilyMonospace: '"DejaVu Sans Mono", "Cascadia Mono", Menlo, monospace',
   headings: { fontFamily, fontWeight: '500' },

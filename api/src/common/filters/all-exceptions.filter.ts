@@ -1,15 +1,20 @@
 import { ArgumentsHost, Catch, HttpException, HttpStatus, Logger, type ExceptionFilter } from '@nestjs/common';
-import type { ErrorBody } from '@shuntwise/contracts';
+import { fieldName, issueMessage, type ErrorBody, type LabelledIssue } from '@shuntwise/contracts';
 import type { Response } from 'express';
 import { ZodValidationException } from 'nestjs-zod';
 import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { EngineeringInputError } from '../../engineering/engineering-input.error';
 import type { RequestWithCorrelation } from '../correlation-id.middleware';
+import { isDatabaseUnavailable, isTransactionConflict } from '../database-unavailable';
+
+/** Seconds a client should wait before retrying while the database is away. */
+export const DATABASE_RETRY_AFTER_SECONDS = 5;
 
 /**
  * One error body for the whole API: {message, errors?, correlationId}. Known errors keep
- * their status; anything else is logged and answered as a 500 without internals.
+ * their status; a database that cannot be reached is a 503 with Retry-After (for every
+ * route, here and nowhere else); anything else is logged and answered as a 500 without internals.
  */
 @Catch()
 export class AllExceptionsFilter implements ExceptionFilter {
@@ -21,7 +26,11 @@ export class AllExceptionsFilter implements ExceptionFilter {
     const res = ctx.getResponse<Response>();
     const correlationId = req.correlationId ?? 'none';
     const { status, body } = this.describe(exception);
-    if (status >= 500) {
+    if (status === HttpStatus.SERVICE_UNAVAILABLE) {
+      // Expected while a service is away: one line, no stack trace per request.
+      this.logger.warn(`${req.method} ${req.originalUrl} [${correlationId}] unavailable: ${(exception as Error).message}`);
+      if ((isDatabaseUnavailable(exception) || isTransactionConflict(exception)) && !res.headersSent) res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+    } else if (status >= 500) {
       this.logger.error(`${req.method} ${req.originalUrl} [${correlationId}] ${exception instanceof Error ? exception.stack : String(exception)}`);
     }
     if (res.headersSent) return;
@@ -29,6 +38,18 @@ export class AllExceptionsFilter implements ExceptionFilter {
   }
 
   private describe(exception: unknown): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
+    if (isDatabaseUnavailable(exception)) {
+      return {
+        status: HttpStatus.SERVICE_UNAVAILABLE,
+        body: { message: 'The database is unavailable; try again in a few seconds. If this was a change, check whether it was saved before repeating it.' },
+      };
+    }
+    if (isTransactionConflict(exception)) {
+      return {
+        status: HttpStatus.SERVICE_UNAVAILABLE,
+        body: { message: 'The database turned this change away because of a conflicting change made at the same moment; nothing was saved. Try again.' },
+      };
+    }
     if (exception instanceof ZodValidationException) return this.fromZod(exception.getZodError() as ZodError);
     if (exception instanceof ZodError) return this.fromZod(exception);
     if (exception instanceof HttpException) {
@@ -65,11 +86,18 @@ export class AllExceptionsFilter implements ExceptionFilter {
   }
 
   private fromZod(error: ZodError): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
-    const errors = error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }));
+    // Messages in the form's words (labels, prefixed values), from the contracts' one map.
+    const errors = error.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: issueMessage(i as LabelledIssue) }));
     const first = errors[0];
     return {
       status: HttpStatus.BAD_REQUEST,
-      body: { message: first ? `Invalid request: ${first.path}: ${first.message}` : 'Invalid request', errors },
+      body: { message: first ? `Invalid request: ${named(first.path, first.message)}` : 'Invalid request', errors },
     };
   }
+}
+
+/** A message with the field's label in front unless it names it already. */
+function named(path: string, message: string): string {
+  const name = fieldName(path);
+  return message.includes(name) ? message : `${name}: ${message}`;
 }

@@ -7,6 +7,12 @@ import { qualificationRequests } from './2026-12-01-0005-qualification-requests'
 import { rateLimitWindows } from './2026-12-04-0200-rate-limit-windows';
 import { measurementSets } from './2026-12-04-0700-measurement-sets';
 import { sourceStandingFromDecisions } from './2026-12-04-0100-source-standing-from-decisions';
+import { textGrams } from './2026-12-04-0400-text-grams';
+import { vzToleranceColumn } from './2026-12-04-0401-vz-tolerance';
+import { invitationRevoked } from './2026-12-04-0500-invitation-revoked';
+import { decisionRecords } from './2026-12-04-0800-decision-records';
+import { demoSeedSteps } from './2026-12-04-0300-demo-seed-steps';
+import { mailClaims } from './2026-12-04-0301-mail-claims';
 import { waivers } from './2026-12-04-0900-waivers';
 
 /**
@@ -22,5 +28,11 @@ export const MIGRATIONS: Migration[] = [
   rateLimitWindows,
   measurementSets,
   sourceStandingFromDecisions,
+  textGrams,
+  vzToleranceColumn,
+  invitationRevoked,
+  decisionRecords,
+  demoSeedSteps,
+  mailClaims,
   waivers,
 ];

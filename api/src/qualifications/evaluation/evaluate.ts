@@ -56,7 +56,7 @@ export function evaluateCard(input: EvaluationInput): Evaluation {
 
   let model: BreakdownModel | null = null;
   let noCard: string | null = null;
-  if (!card) noCard = 'the card needs vzNom and izt before anything can be computed';
+  if (!card) noCard = 'the card needs VZ nom and IZT before anything can be computed';
   else {
     try {
       model = fitBreakdownModel(card);
@@ -156,12 +156,12 @@ function vzWindowCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'vz-window' as const, quantity: 'voltage' as const, limitKind: 'window' as const, window: { min: spec.vz.min, max: spec.vz.max } };
   if (!card || !model) return noData(base, ctx.noCard!);
   if (card.vzMin == null || card.vzMax == null) {
-    return noData(base, `the card gives no ${card.vzMin == null ? 'vzMin' : 'vzMax'}: the tolerance window at izt is unknown`);
+    return noData(base, `the card gives no ${card.vzMin == null ? 'VZ min' : 'VZ max'}: the tolerance window at IZT is unknown`);
   }
   const assumptions: string[] = [];
   if (!sameCurrent(spec.iRef, card.izt)) {
-    if (model.basis === 'none') return noData(base, `the card gives no impedance, so Vz cannot be moved from izt (${amps(card.izt)}) to iRef (${amps(spec.iRef)})`);
-    assumptions.push(`moved from izt (${amps(card.izt)}) to iRef (${amps(spec.iRef)}) along the fitted curve (${model.basis} fit)`);
+    if (model.basis === 'none') return noData(base, `the card gives no impedance, so Vz cannot be moved from IZT (${amps(card.izt)}) to the reference current (${amps(spec.iRef)})`);
+    assumptions.push(`moved from IZT (${amps(card.izt)}) to the reference current (${amps(spec.iRef)}) along the fitted curve (${model.basis} fit)`);
     if (model.basis !== 'two-point') assumptions.push(basisAssumption(model, spec.iRef, card.izt));
   }
   const low = diodeVoltage(model, spec.iRef, T_REF_C, 'min');
@@ -180,7 +180,7 @@ function vzWindowCheck(ctx: CheckContext): CheckResult {
     text: null,
     margin,
     detail: `${volts(low)} … ${volts(high)} at ${amps(spec.iRef)}, 25 °C, against the window ${volts(spec.vz.min)} … ${volts(spec.vz.max)}`,
-    assumptions: [...assumptions, 'tolerance parts share the nominal curve shifted to vzMin/vzMax at izt'],
+    assumptions: [...assumptions, 'tolerance parts share the nominal curve shifted to VZ min/VZ max at IZT'],
     warnings: [],
   };
 }
@@ -190,7 +190,7 @@ function zdCheck(ctx: CheckContext): CheckResult {
   if (spec.zdMax === null) return { skip: 'the spec sets no largest dynamic impedance' };
   const base = { id: 'zd' as const, quantity: 'resistance' as const, limitKind: 'max' as const, limit: spec.zdMax };
   if (!card || !model) return noData(base, ctx.noCard!);
-  if (model.basis === 'none') return noData(base, 'the card gives no dynamic impedance (neither zzt nor zzk)');
+  if (model.basis === 'none') return noData(base, 'the card gives no dynamic impedance (neither ZZT nor ZZK)');
   const zd = dynamicImpedance(model, spec.iRef, T_REF_C);
   const assumptions: string[] = [];
   if (!sameCurrent(spec.iRef, card.izt) || model.basis !== 'two-point') assumptions.push(basisAssumption(model, spec.iRef, card.izt));
@@ -220,7 +220,7 @@ function kneeRatioCheck(ctx: CheckContext): CheckResult {
   if ('missing' in knee) return noData(base, knee.missing);
   const ratio = knee.zd(iKnee) / knee.zd(spec.iRef);
   const margin = percent(maxRatio - ratio, maxRatio);
-  const warnings = iKnee < model.lowestTestCurrent ? [`iKnee (${amps(iKnee)}) lies below the card's izk (${amps(model.lowestTestCurrent)}): the ratio is extrapolated`] : [];
+  const warnings = iKnee < model.lowestTestCurrent ? [`the knee current (${amps(iKnee)}) lies below the card's IZK (${amps(model.lowestTestCurrent)}): the ratio is extrapolated`] : [];
   return {
     ...base,
     label: CHECK_LABELS['knee-ratio'],
@@ -247,7 +247,7 @@ function kneeSpanCheck(ctx: CheckContext): CheckResult {
   if ('missing' in knee) return noData(base, knee.missing);
   const span = knee.span(iMin, iMax);
   const margin = percent(maxSpan - span, maxSpan);
-  const warnings = iMin < model.lowestTestCurrent ? [`iMin (${amps(iMin)}) lies below the card's lowest test current (${amps(model.lowestTestCurrent)}): extrapolated`] : [];
+  const warnings = iMin < model.lowestTestCurrent ? [`the lowest current (${amps(iMin)}) lies below the card's lowest test current (${amps(model.lowestTestCurrent)}): extrapolated`] : [];
   return {
     ...base,
     label: CHECK_LABELS['knee-span'],
@@ -290,11 +290,11 @@ export function kneeReading(model: BreakdownModel, card: EngineeringCardInput): 
     return {
       zd: (i) => zzt * (izt / i) ** p,
       span: (a, b) => (Math.abs(p - 1) < 1e-12 ? zzt * izt * Math.log(b / a) : (zzt * izt ** p * (b ** (1 - p) - a ** (1 - p))) / (1 - p)),
-      assumption: `the card's impedance points need RS < 0, which no junction has: Zd joined through both points as zzt·(izt/I)^p with p = ${fixed(p)}, which does not understate the knee as the clamped fit would`,
+      assumption: `the card's impedance points need RS < 0, which no junction has: Zd joined through both points as ZZT·(IZT/I)^p with p = ${fixed(p)}, which does not understate the knee as the clamped fit would`,
     };
   }
-  if (model.basis === 'clamped') return { missing: 'the card’s zzk is not above its zzt, so its knee point contradicts itself: the knee is not known' };
-  return { missing: 'the card gives no knee point (izk with zzk): the curve below izt would be an assumption, not vendor data' };
+  if (model.basis === 'clamped') return { missing: 'the card’s ZZK is not above its ZZT, so its knee point contradicts itself: the knee is not known' };
+  return { missing: 'the card gives no knee point (IZK with ZZK): the curve below IZT would be an assumption, not vendor data' };
 }
 
 function leakageCheck(ctx: CheckContext): CheckResult {
@@ -303,8 +303,8 @@ function leakageCheck(ctx: CheckContext): CheckResult {
   const { irMax, vr } = spec.leakage;
   const base = { id: 'leakage' as const, quantity: 'current' as const, limitKind: 'max' as const, limit: irMax };
   if (!card) return noData(base, ctx.noCard!);
-  if (card.irMax == null) return noData(base, 'the card gives no reverse leakage (irMax)');
-  if (card.vr == null) return noData(base, 'the card gives irMax without the reverse voltage it was measured at (vr)');
+  if (card.irMax == null) return noData(base, 'the card gives no reverse leakage (IR max)');
+  if (card.vr == null) return noData(base, 'the card gives IR max without the reverse voltage it was measured at (VR)');
   if (card.vr < vr * (1 - VOLTAGE_MATCH)) {
     return noData(
       base,
@@ -313,7 +313,7 @@ function leakageCheck(ctx: CheckContext): CheckResult {
   }
   const assumptions =
     card.vr > vr * (1 + VOLTAGE_MATCH)
-      ? [`the card states irMax at ${volts(card.vr)}, above the spec's ${volts(vr)}: leakage rises with reverse voltage, so it bounds the leakage at ${volts(vr)}`]
+      ? [`the card states IR max at ${volts(card.vr)}, above the spec's ${volts(vr)}: leakage rises with reverse voltage, so it bounds the leakage at ${volts(vr)}`]
       : [];
   const margin = percent(irMax - card.irMax, irMax);
   return {
@@ -325,7 +325,7 @@ function leakageCheck(ctx: CheckContext): CheckResult {
     window: null,
     text: null,
     margin,
-    detail: `irMax ${amps(card.irMax)} at ${volts(card.vr)} against at most ${amps(irMax)} at ${volts(vr)}`,
+    detail: `IR max ${amps(card.irMax)} at ${volts(card.vr)} against at most ${amps(irMax)} at ${volts(vr)}`,
     assumptions: [...assumptions, 'datasheet leakage is stated at 25 °C, as is the spec’s'],
     warnings: [],
   };
@@ -345,7 +345,7 @@ function tcCheck(ctx: CheckContext): CheckResult {
   const reference = Math.max(Math.abs(min), Math.abs(max));
   const lowBinds = alpha - min <= max - alpha;
   const margin = reference > 0 ? percent(Math.min(alpha - min, max - alpha), reference) : alpha === 0 ? 0 : -100;
-  const assumptions = card.tc.unit === '%/K' ? [`${card.tc.value} %/K converted to V/K with vzNom (${volts(card.vzNom)})`] : [];
+  const assumptions = card.tc.unit === '%/K' ? [`${card.tc.value} %/K converted to V/K with VZ nom (${volts(card.vzNom)})`] : [];
   return {
     ...base,
     label: CHECK_LABELS.tc,
@@ -368,11 +368,11 @@ function outputWindowCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'output-window' as const, quantity: 'voltage' as const, limitKind: 'window' as const, window: { min: vMin, max: vMax } };
   if (!card || !model) return noData(base, ctx.noCard!);
   const missing: string[] = [];
-  if (card.vzMin == null || card.vzMax == null) missing.push('the tolerance window (vzMin, vzMax)');
+  if (card.vzMin == null || card.vzMax == null) missing.push('the tolerance window (VZ min, VZ max)');
   if (card.tc == null) missing.push('the temperature coefficient');
-  if (card.rthJA == null) missing.push('rthJA for self-heating');
+  if (card.rthJA == null) missing.push('RthJA for self-heating');
   const { iMin, iMax } = spec.envelope;
-  if (model.basis === 'none' && !(sameCurrent(iMin, card.izt) && sameCurrent(iMax, card.izt))) missing.push('an impedance to move Vz away from izt');
+  if (model.basis === 'none' && !(sameCurrent(iMin, card.izt) && sameCurrent(iMax, card.izt))) missing.push('an impedance to move Vz away from IZT');
   if (missing.length) return noData(base, `the worst case over the envelope needs ${missing.join(', ')}, which the card does not give`);
   const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${spec.envelope.taMin} … ${spec.envelope.taMax} °C`;
   if (!ctx.window) {
@@ -395,7 +395,7 @@ function outputWindowCheck(ctx: CheckContext): CheckResult {
     margin,
     detail: `${volts(w.vMin)} … ${volts(w.vMax)} over ${envelopeText} (tolerance and self-heating included), against ${volts(vMin)} … ${volts(vMax)}`,
     assumptions: [
-      'currents iMin…iMax (log-spaced, ends included) × both ambient ends × both tolerance ends',
+      'currents from the lowest to the highest of the envelope (log-spaced, ends included) × both ambient ends × both tolerance ends',
       ...w.assumptions,
     ],
     warnings: w.warnings,
@@ -446,7 +446,7 @@ function powerRatingCheck(ctx: CheckContext): CheckResult {
     const derived = deratedPowerLimit(card, refC);
     if (derived.limit === null) return noData(base, `the card gives no power rating: ${derived.reason}`);
     rating = derived.limit;
-    assumptions.push(`no pdMax on the card: rating taken as (tjMax − ${refC} °C)/rthJA`);
+    assumptions.push(`no PD max on the card: rating taken as (TJ max − ${refC} °C)/RthJA`);
   }
   const margin = percent(rating - pdMin, pdMin);
   // A rating is a category the vendor states (300 mW, 500 mW): meeting it exactly meets it;
@@ -492,13 +492,13 @@ function packageCheck(ctx: CheckContext): CheckResult {
 function basisAssumption(model: BreakdownModel, iRef: number, izt: number): string {
   switch (model.basis) {
     case 'izt-only':
-      return `one impedance point (izt, zzt): RS assumed 0, Zd moved from izt (${amps(izt)}) to iRef (${amps(iRef)}) as NBV·Vt/I`;
+      return `one impedance point (IZT, ZZT): RS assumed 0, Zd moved from IZT (${amps(izt)}) to the reference current (${amps(iRef)}) as NBV·Vt/I`;
     case 'izk-only':
-      return 'no zzt on the card: Zd at iRef extrapolated from the knee point with RS = 0';
+      return 'no ZZT on the card: Zd at the reference current extrapolated from the knee point with RS = 0';
     case 'clamped':
       return 'the fit was clamped to RS = 0 (see the warnings)';
     default:
-      return `Zd moved from izt (${amps(izt)}) to iRef (${amps(iRef)}) along the two-point fit`;
+      return `Zd moved from IZT (${amps(izt)}) to the reference current (${amps(iRef)}) along the two-point fit`;
   }
 }
 

@@ -15,7 +15,7 @@ export function BoardRoute() {
         renderSourceAction={(row, source) =>
           // The approved source is the reference; cases qualify alternates.
           engineer && source.role === 'alternate' && row.housePart.specVersion !== null && (source.state === 'none' || source.state === 'withdrawn') ? (
-            <OpenCaseButton target={{ housePart: row.housePart, vendorPart: source.vendorPart }} label="Qualify" />
+            <OpenCaseButton target={{ housePart: row.housePart, vendorPart: source.vendorPart }} />
           ) : null
         }
       />

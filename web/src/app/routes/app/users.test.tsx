@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import type { Invitation, User } from '@shuntwise/contracts';
 import { errorBody, mockApi } from '@/testing/mock-api';
 import { DEMO_USERS, renderApp, signInAs } from '@/testing/render';
@@ -11,9 +11,9 @@ const users: User[] = [
 ];
 
 const invitations: Invitation[] = [
-  { id: 11, email: 'oskar@demo.test', name: 'Oskar Benitez', role: 'designer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, createdAt: '2026-11-30T10:00:00.000Z' },
-  { id: 10, email: 'old@demo.test', name: 'Mara Old', role: 'buyer', expiresAt: '2026-01-01T00:00:00.000Z', acceptedAt: null, createdAt: '2025-12-25T10:00:00.000Z' },
-  { id: 9, email: 'done@demo.test', name: 'Done Already', role: 'engineer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: '2026-11-02T10:00:00.000Z', createdAt: '2026-11-01T10:00:00.000Z' },
+  { id: 11, email: 'oskar@demo.test', name: 'Oskar Benitez', role: 'designer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2026-11-30T10:00:00.000Z' },
+  { id: 10, email: 'old@demo.test', name: 'Mara Old', role: 'buyer', expiresAt: '2026-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2025-12-25T10:00:00.000Z' },
+  { id: 9, email: 'done@demo.test', name: 'Done Already', role: 'engineer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: '2026-11-02T10:00:00.000Z', revokedAt: null, createdAt: '2026-11-01T10:00:00.000Z' },
 ];
 
 function usersApi(overrides: Parameters<typeof mockApi>[0] = {}) {
@@ -26,8 +26,10 @@ function usersApi(overrides: Parameters<typeof mockApi>[0] = {}) {
     }),
     'POST /api/users/invitations': (call) => ({
       status: 201,
-      body: { id: 12, ...(call.body as object), expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, createdAt: '2026-12-01T10:00:00.000Z' },
+      body: { id: 12, ...(call.body as object), expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2026-12-01T10:00:00.000Z' },
     }),
+    'POST /api/users/invitations/:id/resend': (_call, params) => ({ body: { ...invitations.find((i) => i.id === Number(params.id))!, expiresAt: '2099-02-01T00:00:00.000Z' } }),
+    'POST /api/users/invitations/:id/revoke': (_call, params) => ({ body: { ...invitations.find((i) => i.id === Number(params.id))!, revokedAt: '2026-12-04T08:00:00.000Z' } }),
     ...overrides,
   });
 }
@@ -142,5 +144,21 @@ describe('Users screen', () => {
     expect(await within(dialog).findByText('A user with this e-mail exists')).toBeInTheDocument();
     expect(within(dialog).getByLabelText('E-mail')).toHaveValue('engineer@demo.test');
     expect(await screen.findByText('Invitation not sent')).toBeInTheDocument();
+  });
+
+  it('sends an invitation again, and revokes one only after confirmation', { timeout: 60_000 }, async () => {
+    const api = usersApi();
+    const { user } = await openUsers();
+    const pending = screen.getByRole('table', { name: 'Pending invitations' });
+    await user.click(within(pending).getByRole('button', { name: 'Send the invitation of oskar@demo.test again' }));
+    await waitFor(() => expect(api.callsTo('POST', '/api/users/invitations/11/resend')).toHaveLength(1));
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    await user.click(within(pending).getByRole('button', { name: 'Revoke the invitation of old@demo.test' }));
+    expect(confirm).toHaveBeenCalledWith(expect.stringMatching(/Its link stops working/));
+    expect(api.callsTo('POST', '/api/users/invitations/10/revoke')).toHaveLength(0);
+    confirm.mockReturnValue(true);
+    await user.click(within(pending).getByRole('button', { name: 'Revoke the invitation of old@demo.test' }));
+    await waitFor(() => expect(api.callsTo('POST', '/api/users/invitations/10/revoke')).toHaveLength(1));
+    confirm.mockRestore();
   });
 });

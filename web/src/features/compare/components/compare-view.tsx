@@ -44,7 +44,7 @@ export function CompareView({ housePartId, renderSourceAction }: { housePartId: 
           <Button size="xs" variant="default" onClick={() => void compare.refetch()}>
             Try again
           </Button>
-          <Anchor component={Link} to={`/house-parts/${housePartId}`} fz="sm">
+          <Anchor component={Link} to={`/house-parts/${housePartId}`} fz="sm" underline="always">
             Open the house part
           </Anchor>
         </Group>
@@ -60,7 +60,7 @@ export function CompareView({ housePartId, renderSourceAction }: { housePartId: 
         title={`Compare sources of ${payload.housePart.partNumber}`}
         description={
           <>
-            <Anchor component={Link} to={`/house-parts/${payload.housePart.id}`} fz="sm">
+            <Anchor component={Link} to={`/house-parts/${payload.housePart.id}`} fz="sm" underline="always">
               {payload.housePart.partNumber}
             </Anchor>{' '}
             {payload.housePart.description}

@@ -51,7 +51,11 @@ function ExtractionSummary({ result, children }: { result: UploadDatasheetRespon
     <Stack gap={4}>
       <Text fz="xs" data-testid="extraction-summary">
         {result.existing ? 'Already stored (same file): ' : ''}
-        {result.pages} page{result.pages === 1 ? '' : 's'} · {hasText ? `${variants.length} part${variants.length === 1 ? '' : 's'} found, ${fields} values` : 'no text layer (a scan): nothing to read'}
+        {result.pages} page{result.pages === 1 ? '' : 's'} · {hasText
+          ? `${variants.length} part${variants.length === 1 ? '' : 's'} found, ${fields} values`
+          : variants.length > 0
+            ? `a scan read by OCR: ${variants.length} part${variants.length === 1 ? '' : 's'}, ${fields} value${fields === 1 ? '' : 's'} to check against the page`
+            : 'no text layer (a scan): OCR found no ratings'}
         {warnings.length > 0 ? ` · ${warnings.length} warning${warnings.length === 1 ? '' : 's'}` : ''}
       </Text>
       {variants.length > 0 && (

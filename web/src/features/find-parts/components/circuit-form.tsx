@@ -10,6 +10,8 @@ export interface CircuitFormProps {
   /** Called with the validated circuit when the designer asks for the check. */
   onSubmit: (circuit: CircuitRequest, values: CircuitValues) => void;
   busy?: boolean;
+  /** Called on every edit with the circuit the form now describes (null while it does not read or is incomplete). */
+  onValuesChange?: (circuit: CircuitRequest | null) => void;
   /** How many parts the check will run for (1 to 3). */
   partCount: number;
 }
@@ -18,12 +20,13 @@ export interface CircuitFormProps {
  * The designer's circuit: supply → series resistor → diode ∥ load. Values read as typed
  * ("12 V", "20 mA", "-40"); a bare number is in the field's unit.
  */
-export function CircuitForm({ initialValues = EMPTY_CIRCUIT, onSubmit, busy, partCount }: CircuitFormProps) {
+export function CircuitForm({ initialValues = EMPTY_CIRCUIT, onSubmit, busy, partCount, onValuesChange }: CircuitFormProps) {
   const [advanced, setAdvanced] = useState(false);
   const form = useForm<CircuitValues>({
     mode: 'controlled',
     initialValues,
     validate: (values) => validateCircuit(values),
+    onValuesChange: (values) => onValuesChange?.(Object.keys(validateCircuit(values)).length === 0 ? toCircuit(values) : null),
   });
   const v = form.values;
   type QuantityField = 'supplyMin' | 'supplyNom' | 'supplyMax' | 'loadMin' | 'loadMax' | 'ambientMin' | 'ambientMax';

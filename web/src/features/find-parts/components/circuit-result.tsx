@@ -5,14 +5,14 @@ import { formatQuantity, type RegulatorResponse, type RegulatorVerdict, type Sea
 import type { ReactNode } from 'react';
 import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
-import { describeRange, simpleFinding, simpleOmissions, type CircuitRequest } from '../utils/circuit';
+import { describeRange, simpleFinding, simpleOmissions, VERDICT_TITLE, type CircuitRequest } from '../utils/circuit';
 import { formatPercent } from '../utils/format';
 import { Notes } from './notes';
 
 export const VERDICT_TEXT: Record<RegulatorVerdict, { title: string; color: string }> = {
-  ok: { title: 'Works at every corner', color: 'verdigris' },
-  'no-solution': { title: 'No resistor works', color: 'red' },
-  'no-data': { title: 'Cannot decide: data missing', color: 'gray' },
+  ok: { title: VERDICT_TITLE.ok, color: 'verdigris' },
+  'no-solution': { title: VERDICT_TITLE['no-solution'], color: 'red' },
+  'no-data': { title: VERDICT_TITLE['no-data'], color: 'gray' },
 };
 const VERDICT_ICON: Record<RegulatorVerdict, ReactNode> = {
   ok: <IconCircleCheck size={18} />,

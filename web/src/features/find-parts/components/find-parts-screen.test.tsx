@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
-import type { RegulatorRequest } from '@shuntwise/contracts';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { MODEL_BASES, type RegulatorRequest } from '@shuntwise/contracts';
 import { errorBody, mockApi } from '@/testing/mock-api';
 import { DEMO_USERS, renderApp, signInAs } from '@/testing/render';
 import { CONDITIONAL, FACETS, page, regulatorAnswer, searchItem } from '../testing/fixtures';
@@ -140,6 +140,40 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     expect(within(region).getByRole('table', { name: 'Corners' })).toHaveTextContent('13.2 V');
   });
 
+  it('takes the last results away as soon as the circuit no longer matches them', { timeout: 90_000 }, async () => {
+    signInAs('designer');
+    const mock = api();
+    const { user } = renderApp('/find');
+    await user.click(await screen.findByRole('button', { name: /Check BRZ05-5V1 .* in my circuit/ }, { timeout: 15_000 }));
+    const form = screen.getByRole('form', { name: 'Circuit' });
+    await user.type(within(form).getByRole('textbox', { name: 'Lowest' }), '10.8');
+    await user.type(within(form).getByRole('textbox', { name: 'Highest' }), '13.2');
+    await user.type(within(form).getByRole('textbox', { name: 'Largest' }), '20 mA');
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    expect(await screen.findByTestId('verdict-alert')).toHaveTextContent('Works at every corner');
+
+    // An unreadable value: no verdict of the old circuit beside the error.
+    const largest = within(form).getByRole('textbox', { name: 'Largest' });
+    await user.clear(largest);
+    await user.type(largest, '20 parsecs');
+    await user.tab();
+    expect(screen.queryByTestId('verdict-alert')).toBeNull();
+    expect(screen.getByTestId('circuit-stale')).toHaveTextContent(/missing or do not read/);
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    expect(screen.queryByText('Works at every corner')).toBeNull();
+
+    // A readable but different circuit: marked, not shown, until checked again.
+    await user.clear(largest);
+    await user.type(largest, '25 mA');
+    await user.tab();
+    expect(screen.getByTestId('circuit-stale')).toHaveTextContent(/for other values/);
+    expect(screen.queryByTestId('verdict-alert')).toBeNull();
+    await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+    await waitFor(() => expect(mock.callsTo('POST', '/api/engineering/regulator')).toHaveLength(2));
+    expect(await screen.findByTestId('verdict-alert')).toBeInTheDocument();
+    expect(screen.queryByTestId('circuit-stale')).toBeNull();
+  });
+
   it('says why when no resistor works', async () => {
     signInAs('designer');
     const reasons = ['no resistor works: the power limit needs at least 300 Ω but the knee needs at most 244 Ω; narrow the supply or load range, or use a diode with more power or a lower knee current'];
@@ -185,5 +219,96 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     // the second part's refusal is shown in its column, with the API's message
     expect(comparison).toHaveTextContent(/card\.zzt: out of range/);
     expect(screen.getByRole('tab', { name: 'TPZ15-11' })).toBeInTheDocument();
+  });
+
+  describe('what a designer takes away', { timeout: 60_000 }, () => {
+    let saved: Blob[];
+    // jsdom's Blob has no text(): read it as a page would.
+    const savedText = () =>
+      new Promise<string>((resolve) => {
+        const reader = new FileReader();
+        reader.onload = () => resolve(String(reader.result));
+        reader.readAsText(saved[saved.length - 1]);
+      });
+    function recordDownloads() {
+      saved = [];
+      // jsdom has no object URLs and does not download: record what would be saved.
+      URL.createObjectURL = vi.fn((blob: Blob) => {
+        saved.push(blob);
+        return 'blob:find';
+      });
+      URL.revokeObjectURL = vi.fn();
+      vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(() => undefined);
+    }
+    afterEach(() => vi.restoreAllMocks());
+
+    it('exports the results as CSV with headers in words and units, and the circuit check columns once it ran', async () => {
+      recordDownloads();
+      signInAs('designer');
+      const noisy = searchItem(5, 'BRZ05-5V1', { card: { ...APPROVED.card!, tcVoltsPerKelvin: 0.0012 - 0.003 } });
+      mockApi({
+        'GET /api/auth/me': { body: DEMO_USERS.designer },
+        'GET /api/search/facets': { body: FACETS },
+        'GET /api/search': { body: page([noisy, CONDITIONAL]) },
+        'POST /api/engineering/regulator': { body: regulatorAnswer() },
+        'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } },
+      });
+      const { user } = renderApp('/find');
+      await screen.findByRole('row', { name: 'BRZ05-5V1' }, { timeout: 15_000 });
+      await user.click(screen.getByRole('button', { name: 'Export CSV' }));
+      await waitFor(() => expect(saved).toHaveLength(1));
+      const before = (await savedText()).split('\r\n');
+      expect(before[0]).toBe(
+        'Part number,Manufacturer,Package,Zener voltage min (V),Zener voltage nominal (V),Zener voltage max (V),Test current (A),Tolerance (%),Dynamic impedance at test current (Ω),Power rating (W),Temperature coefficient (V/K),May be designed in for',
+      );
+      // rounded as printed: no -0.0018000000000000002 (IEEE 754 noise of 0.0012 − 0.003)
+      expect(before[1]).toBe('BRZ05-5V1,Brackenford Semiconductor,SOD-123,4.85,5.1,5.36,0.005,5.1,28,0.5,-0.0018,OHI-ZD-1051: Approved source');
+      expect(before[2]).toBe('TPZ15-11,Tevorrow Power Devices,SMB,10.45,11,11.55,0.034,5,7,1.5,0.0003,OHI-ZD-2110: Cleared with conditions (Incoming inspection measures reverse leakage on five pieces per lot.)');
+      expect(before[0]).not.toContain('Circuit check');
+
+      await user.click(screen.getByRole('button', { name: /Check BRZ05-5V1 .* in my circuit/ }));
+      const form = screen.getByRole('form', { name: 'Circuit' });
+      await user.type(within(form).getByRole('textbox', { name: 'Lowest' }), '10.8');
+      await user.type(within(form).getByRole('textbox', { name: 'Highest' }), '13.2');
+      await user.type(within(form).getByRole('textbox', { name: 'Largest' }), '20 mA');
+      await user.click(within(form).getByRole('button', { name: 'Check circuit' }));
+      await screen.findByTestId('verdict-alert');
+      await user.click(screen.getByRole('button', { name: 'Export CSV' }));
+      await waitFor(() => expect(saved).toHaveLength(2));
+      const after = (await savedText()).split('\r\n');
+      expect(after[0]).toMatch(/,Circuit check,Chosen resistor \(Ω\),Resistor series,Working range from \(Ω\),Working range to \(Ω\),Output lowest \(V\),Output highest \(V\),/);
+      expect(after[1]).toMatch(/,Works at every corner,240,E24,137,244,4.61,5.52,0.162,0.32,0.266$/);
+      // a part the check did not run on has those cells empty
+      expect(after[2]).toMatch(/,,,,,,,,,,$/);
+    });
+
+    it('downloads a part’s SPICE .model for a designer', async () => {
+      recordDownloads();
+      signInAs('designer');
+      mockApi({
+        'GET /api/auth/me': { body: DEMO_USERS.designer },
+        'GET /api/search/facets': { body: FACETS },
+        'GET /api/search': { body: page([APPROVED, CONDITIONAL]) },
+        'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } },
+        'GET /api/vendor-parts/:id/model': (_c, p) => ({
+          body: {
+            vendorPartId: Number(p.id),
+            cardVersion: 3,
+            name: 'BRZ05_5V1',
+            lines: { nom: '.model BRZ05_5V1 D(BV=5.1 IBV=5m NBV=1.5 RS=20)', min: '.model BRZ05_5V1_MIN D(BV=4.85 IBV=5m NBV=1.5 RS=20)', max: null },
+            model: { bv: 5.1, ibv: 0.005, nbv: 1.5, rs: 20, nbvVt: 0.0388, alphaVz: 0.0003, basis: MODEL_BASES[0], assumptions: [] },
+            warnings: [],
+            caution: 'Estimates from datasheet values.',
+          },
+        }),
+      });
+      const { user } = renderApp('/find');
+      await user.click(await screen.findByRole('button', { name: 'SPICE model of BRZ05-5V1' }));
+      await waitFor(() => expect(saved).toHaveLength(1));
+      const text = await savedText();
+      expect(text).toContain('.model BRZ05_5V1 D(BV=5.1 IBV=5m NBV=1.5 RS=20)');
+      expect(text).toContain('.model BRZ05_5V1_MIN');
+      expect(text).toMatch(/^\* BRZ05-5V1: SPICE diode models fitted to rating card version 3/);
+    });
   });
 });

@@ -1,13 +1,17 @@
 import { useCallback, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Alert, CloseButton, Grid, Group, Loader, Paper, Stack, Tabs, Text, Title } from '@mantine/core';
+import { notifications } from '@mantine/notifications';
 import { IconInfoCircle } from '@tabler/icons-react';
-import type { SearchItem } from '@shuntwise/contracts';
+import type { RegulatorResponse, SearchItem } from '@shuntwise/contracts';
 import { useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { describeError } from '@/lib/api-client';
+import { saveBlob } from '@/lib/download';
+import { allSearchResults, EXPORT_LIMIT } from '../api/export-results';
 import { useCircuitChecks } from '../api/check-circuit';
 import { useSearchParts } from '../api/search-parts';
 import { regulatorRequest, type CircuitRequest } from '../utils/circuit';
+import { resultsCsv } from '../utils/results-csv';
 import { DEFAULT_PAGE_SIZE, searchParamsFromUrl } from '../utils/search-state';
 import { CircuitComparison } from './circuit-comparison';
 import { CircuitForm } from './circuit-form';
@@ -35,6 +39,9 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
   const [chosen, setChosen] = useState<SearchItem[]>([]);
   const [active, setActive] = useState<string | null>(null);
   const [circuit, setCircuit] = useState<CircuitRequest | null>(null);
+  // What the form describes now; results of another circuit are not shown beside it.
+  const [typed, setTyped] = useState<CircuitRequest | null | undefined>(undefined);
+  const stale = circuit !== null && typed !== undefined && JSON.stringify(typed) !== JSON.stringify(circuit);
   const checkRef = useRef<HTMLDivElement>(null);
 
   // The address the last change produced. react-router's functional update starts from the
@@ -67,6 +74,22 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
   const requests = useMemo(() => (circuit ? chosen.map((c) => regulatorRequest(circuit, c.card!)) : []), [circuit, chosen]);
   const checks = useCircuitChecks(requests);
   const compared = chosen.map((item, i) => ({ item, result: checks[i]?.data, error: checks[i]?.error ? describeError(checks[i].error) : null }));
+
+  const [exporting, setExporting] = useState(false);
+  const exportCsv = async () => {
+    setExporting(true);
+    try {
+      const { items, total } = await allSearchResults(params);
+      const done = new Map<number, RegulatorResponse>();
+      if (circuit && !stale) compared.forEach((c) => c.result && done.set(c.item.vendorPart.id, c.result));
+      saveBlob(new Blob([resultsCsv(items, done)], { type: 'text/csv;charset=utf-8' }), 'shuntwise-find-parts.csv');
+      if (total > items.length) notifications.show({ color: 'orange', title: 'Export shortened', message: `The first ${EXPORT_LIMIT} of ${total} parts were saved: narrow the filters for the rest.` });
+    } catch (e) {
+      notifications.show({ color: 'red', title: 'The results could not be exported', message: describeError(e) });
+    } finally {
+      setExporting(false);
+    }
+  };
 
   const toggle = (item: SearchItem) => {
     setChosen((list) => {
@@ -103,6 +126,8 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
         linkCatalogue={linkCatalogue}
         includeNotCleared={params.includeNotCleared ?? false}
         renderPartAction={renderPartAction}
+        onExport={() => void exportCsv()}
+        exporting={exporting}
       />
 
       <Paper ref={checkRef} p="md" aria-labelledby="circuit-check-title" style={{ scrollMarginTop: 64 }}>
@@ -132,7 +157,15 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
         </Text>
         <Grid gutter="lg">
           <Grid.Col span={{ base: 12, md: 4 }}>
-            <CircuitForm onSubmit={(c) => setCircuit(c)} busy={checks.some((q) => q.isFetching)} partCount={chosen.length} />
+            <CircuitForm
+              onSubmit={(c) => {
+                setCircuit(c);
+                setTyped(c);
+              }}
+              onValuesChange={setTyped}
+              busy={checks.some((q) => q.isFetching)}
+              partCount={chosen.length}
+            />
           </Grid.Col>
           <Grid.Col span={{ base: 12, md: 8 }}>
             {chosen.length === 0 && (
@@ -145,12 +178,19 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
                 Enter the supply range, the load current and the ambient, then press {chosen.length > 1 ? `Check ${chosen.length} parts` : 'Check circuit'}.
               </Alert>
             )}
-            {chosen.some((c) => !c.cleared) && circuit && (
+            {chosen.some((c) => !c.cleared) && circuit && !stale && (
               <Alert color="orange" mb="sm" title="Not cleared for new designs">
                 {chosen.filter((c) => !c.cleared).map((c) => c.vendorPart.mpn).join(', ')} {chosen.filter((c) => !c.cleared).length > 1 ? 'are' : 'is'} not cleared: the check shows how it would behave, but a component engineer must qualify it before it is designed in.
               </Alert>
             )}
-            {circuit && chosen.length > 0 && (
+            {stale && chosen.length > 0 && (
+              <Alert color="gray" icon={<IconInfoCircle size={16} />} title="The circuit changed" data-testid="circuit-stale">
+                {typed === null
+                  ? 'Some values are missing or do not read, so the last results no longer apply. Correct them and check again.'
+                  : `The results of the last check were for other values. Press ${chosen.length > 1 ? `Check ${chosen.length} parts` : 'Check circuit'} to see this circuit.`}
+              </Alert>
+            )}
+            {circuit && !stale && chosen.length > 0 && (
               <Stack gap="md">
                 {chosen.length > 1 && <CircuitComparison parts={compared} />}
                 <Tabs value={activeId} onChange={setActive} keepMounted={false}>

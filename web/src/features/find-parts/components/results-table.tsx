@@ -1,12 +1,13 @@
 import { ActionIcon, Alert, Anchor, Button, Center, Checkbox, Group, Loader, Pagination, Paper, Select, Stack, Table, Text, Tooltip, UnstyledButton, VisuallyHidden } from '@mantine/core';
 import { notifications } from '@mantine/notifications';
-import { IconArrowDown, IconArrowUp, IconArrowsSort, IconFileTypePdf, IconInfoCircle, IconPlugConnected } from '@tabler/icons-react';
+import { IconArrowDown, IconArrowUp, IconArrowsSort, IconDownload, IconFileCode, IconFileTypePdf, IconInfoCircle, IconPlugConnected } from '@tabler/icons-react';
 import type { SearchItem, SearchPage } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
 import { Quantity } from '@/components/quantity';
 import { describeError } from '@/lib/api-client';
 import { downloadFile } from '@/lib/download';
+import { downloadPartModel } from '../api/get-part-model';
 import { formatPercent, formatTempCo } from '../utils/format';
 import { PAGE_SIZES, SORT_CHOICES } from '../utils/search-state';
 import { ClearanceList } from './clearance-list';
@@ -30,6 +31,9 @@ export interface ResultsTableProps {
   includeNotCleared: boolean;
   /** Shown under a part's clearances (e.g. "ask for qualification"). */
   renderPartAction?: (item: SearchItem) => ReactNode;
+  /** Saves every matching part as CSV (with the circuit check's columns when it ran). */
+  onExport?: () => void;
+  exporting?: boolean;
 }
 
 function SortHeader({ field, sort, onSort, children, align = 'left' }: { field: string; sort: string; onSort: (s: string) => void; children: ReactNode; align?: 'left' | 'right' }) {
@@ -72,7 +76,7 @@ function VzCell({ item }: { item: SearchItem }) {
 }
 
 /** One page of results, with what a designer chooses by, and the way into the circuit check. */
-export function ResultsTable({ page, loading, fetching, error, sort, onSort, onPage, chosenIds, onToggleChosen, onCheck, linkCatalogue, includeNotCleared, renderPartAction }: ResultsTableProps) {
+export function ResultsTable({ page, loading, fetching, error, sort, onSort, onPage, chosenIds, onToggleChosen, onCheck, linkCatalogue, includeNotCleared, renderPartAction, onExport, exporting = false }: ResultsTableProps) {
   const items = page?.items ?? [];
   const total = page?.total ?? 0;
   const pageSize = page?.pageSize ?? 25;
@@ -109,6 +113,11 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
           <Text fz="xs" c="dimmed">
             {chosenIds.length}/{MAX_COMPARED} chosen to compare
           </Text>
+          {onExport && (
+            <Button size="xs" variant="default" leftSection={<IconDownload size={14} />} onClick={onExport} loading={exporting} disabled={total === 0}>
+              Export CSV
+            </Button>
+          )}
         </Group>
       </Group>
       {page?.text.note && (
@@ -225,6 +234,22 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                       <Button size="compact-xs" variant="light" leftSection={<IconPlugConnected size={13} />} disabled={!item.card} onClick={() => onCheck(item)} aria-label={`Check ${label} in my circuit`}>
                         Check
                       </Button>
+                      {item.card && (
+                        <Tooltip label="Download the SPICE .model" withArrow>
+                          <ActionIcon
+                            variant="subtle"
+                            color="gray"
+                            aria-label={`SPICE model of ${item.vendorPart.mpn}`}
+                            onClick={() =>
+                              downloadPartModel(item.vendorPart.id, item.vendorPart.mpn).catch((e) =>
+                                notifications.show({ color: 'red', title: 'The SPICE model could not be downloaded', message: describeError(e) }),
+                              )
+                            }
+                          >
+                            <IconFileCode size={16} />
+                          </ActionIcon>
+                        </Tooltip>
+                      )}
                       {item.datasheetId !== null && (
                         <Tooltip label="Download the datasheet" withArrow>
                           <ActionIcon

@@ -17,9 +17,9 @@ describe('circuit form values', () => {
   });
 
   it("applies the contract's own rules with its wording (min above max)", () => {
-    expect(validateCircuit({ ...filled, supplyMin: 14 })).toMatchObject({ supplyMin: 'supply.min (14 V) is above supply.max (13.2 V)' });
-    expect(validateCircuit({ ...filled, supplyNom: 20 })).toMatchObject({ supplyNom: 'supply.nom (20 V) lies outside 10.8…13.2 V' });
-    expect(validateCircuit({ ...filled, ambientMin: 90 })).toMatchObject({ ambientMin: expect.stringMatching(/ambient.min/) });
+    expect(validateCircuit({ ...filled, supplyMin: 14 })).toMatchObject({ supplyMin: 'Lowest supply (14 V) is above Highest supply (13.2 V)' });
+    expect(validateCircuit({ ...filled, supplyNom: 20 })).toMatchObject({ supplyNom: 'Nominal supply (20 V) lies outside 10.8 V … 13.2 V' });
+    expect(validateCircuit({ ...filled, ambientMin: 90 })).toMatchObject({ ambientMin: expect.stringMatching(/Lowest ambient \(90 °C\) is above Highest ambient/) });
     expect(validateCircuit(filled)).toEqual({});
   });
 

@@ -1,13 +1,23 @@
 import {
   formatQuantity,
+  issueMessage,
   regulatorRequestSchema,
   type EngineeringCardInput,
+  type LabelledIssue,
   type RegulatorRequest,
   type RegulatorResponse,
+  type RegulatorVerdict,
   type ResistorSeries,
   type SearchCard,
 } from '@shuntwise/contracts';
 import { formatTempCo } from './format';
+
+/** What the circuit check's verdict reads as, on screen and in the CSV. */
+export const VERDICT_TITLE: Record<RegulatorVerdict, string> = {
+  ok: 'Works at every corner',
+  'no-solution': 'No resistor works',
+  'no-data': 'Cannot decide: data missing',
+};
 
 /** The circuit as the form holds it: SI numbers (null while empty, NaN while a field does not read). */
 export interface CircuitValues {
@@ -111,15 +121,12 @@ export function validateCircuit(v: CircuitValues): Partial<Record<keyof CircuitV
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const field = FIELD_OF_PATH[issue.path.map(String).join('.')];
-      if (field && !errors[field]) errors[field] = plain(issue.message, issue.path.map(String).join('.'));
+      if (field && !errors[field]) errors[field] = issueMessage(issue as LabelledIssue);
     }
   }
   return errors;
 }
 
-function plain(message: string, path: string): string {
-  return /^(Too small|Too big|Invalid)/.test(message) ? `${path}: out of range` : message;
-}
 
 /** The card fields the engineering core reads, from a search result's card. */
 export function engineeringCard(card: SearchCard): EngineeringCardInput {

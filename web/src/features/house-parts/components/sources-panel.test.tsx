@@ -33,6 +33,15 @@ describe('SourcesPanel', { timeout: 20_000 }, () => {
     expect(screen.queryByLabelText('As')).not.toBeInTheDocument();
   });
 
+  it('offers an admin no link or unlink: admins read the catalogue', async () => {
+    signInAs('admin');
+    mockApi({ 'GET /api/house-parts/:id/sources': { body: [source({ role: 'approved' })] } });
+    render(<SourcesPanel housePartId={5} partNumber="OHI-ZD-9051" />);
+    expect(await screen.findByLabelText('Role of AMZ5V1-T')).toHaveTextContent('Approved source');
+    expect(screen.queryByRole('button', { name: 'Link source' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Remove AMZ5V1-T' })).not.toBeInTheDocument();
+  });
+
   it('links a vendor part as a candidate: the request carries no role', async () => {
     signInAs('engineer');
     const api = mockApi({

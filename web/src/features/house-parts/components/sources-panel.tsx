@@ -1,45 +1,88 @@
-import { useState } from 'react';
-import { ActionIcon, Alert, Anchor, Badge, Button, Group, Loader, Modal, Paper, Select, Stack, Table, Text, TextInput, Title, Tooltip } from '@mantine/core';
-import { useDebouncedValue } from '@mantine/hooks';
-import { notifications } from '@mantine/notifications';
-import { IconLinkPlus, IconTrash } from '@tabler/icons-react';
-import { formatQuantity, type Source, type SourceRole } from '@shuntwise/contracts';
-import { Link } from 'react-router';
-import { describeError } from '@/lib/api-client';
-import { formatDateTime } from '@/lib/format-date';
-import { useAddSource, useRemoveSource, useSources, useVendorPartSearch } from '../api/sources';
+import { useState } from "react";
+import {
+  ActionIcon,
+  Alert,
+  Anchor,
+  Badge,
+  Button,
+  Group,
+  Loader,
+  Modal,
+  Paper,
+  Select,
+  Stack,
+  Table,
+  Text,
+  TextInput,
+  Title,
+  Tooltip,
+} from "@mantine/core";
+import { useDebouncedValue } from "@mantine/hooks";
+import { notifications } from "@mantine/notifications";
+import { IconLinkPlus, IconTrash } from "@tabler/icons-react";
+import {
+  formatQuantity,
+  type Source,
+  type SourceRole,
+} from "@shuntwise/contracts";
+import { Link } from "react-router";
+import { describeError } from "@/lib/api-client";
+import { formatDateTime } from "@/lib/format-date";
+import { useSession } from "@/lib/session";
+import {
+  useAddSource,
+  useRemoveSource,
+  useSources,
+  useVendorPartSearch,
+} from "../api/sources";
 
-const ROLE_LABEL: Record<SourceRole, string> = { approved: 'Approved source', alternate: 'Alternate' };
+const ROLE_LABEL: Record<SourceRole, string> = {
+  approved: "Approved source",
+  alternate: "Alternate",
+};
 
 /**
  * Links a vendor part, found by part number or manufacturer, as a candidate alternate. Its
  * standing (approved source, cleared) comes only from a second engineer's decision on its
  * qualification case, so there is nothing to choose here.
  */
-function AddSource({ housePartId, linked }: { housePartId: number; linked: ReadonlySet<number> }) {
-  const [text, setText] = useState('');
+function AddSource({
+  housePartId,
+  linked,
+}: {
+  housePartId: number;
+  linked: ReadonlySet<number>;
+}) {
+  const [text, setText] = useState("");
   const [query] = useDebouncedValue(text.trim(), 200);
   const search = useVendorPartSearch(query);
   const [picked, setPicked] = useState<string | null>(null);
-  const [note, setNote] = useState('');
+  const [note, setNote] = useState("");
   const add = useAddSource();
 
   const options = (search.data?.items ?? []).map((p) => ({
     value: String(p.id),
-    label: `${p.mpn} — ${p.manufacturer}${p.package ? `, ${p.package}` : ''}${p.card ? `, ${formatQuantity(p.card.vzNom, 'voltage')} at ${formatQuantity(p.card.izt, 'current')}` : ', no card'}`,
+    label: `${p.mpn} — ${p.manufacturer}${p.package ? `, ${p.package}` : ""}${p.card ? `, ${formatQuantity(p.card.vzNom, "voltage")} at ${formatQuantity(p.card.izt, "current")}` : ", no card"}`,
     disabled: linked.has(p.id),
   }));
 
   const submit = () => {
     if (!picked) return;
     add.mutate(
-      { housePartId, request: { vendorPartId: Number(picked), note: note.trim() || null } },
+      {
+        housePartId,
+        request: { vendorPartId: Number(picked), note: note.trim() || null },
+      },
       {
         onSuccess: (source) => {
-          notifications.show({ color: 'verdigris', title: 'Source linked', message: `${source.mpn} (${source.manufacturer}) as a candidate; open its qualification case to approve or clear it.` });
+          notifications.show({
+            color: "verdigris",
+            title: "Source linked",
+            message: `${source.mpn} (${source.manufacturer}) as a candidate; open its qualification case to approve or clear it.`,
+          });
           setPicked(null);
-          setText('');
-          setNote('');
+          setText("");
+          setNote("");
         },
       },
     );
@@ -60,12 +103,32 @@ function AddSource({ housePartId, linked }: { housePartId: number; linked: Reado
           value={picked}
           onChange={setPicked}
           filter={({ options: o }) => o}
-          nothingFoundMessage={query ? (search.isFetching ? 'Searching…' : 'No vendor part starts with this') : 'Type to search'}
+          nothingFoundMessage={
+            query
+              ? search.isFetching
+                ? "Searching…"
+                : "No vendor part starts with this"
+              : "Type to search"
+          }
           rightSection={search.isFetching ? <Loader size={12} /> : undefined}
           clearable
         />
-        <TextInput size="xs" w={220} label="Note" placeholder="optional" value={note} onChange={(e) => setNote(e.currentTarget.value)} maxLength={500} />
-        <Button size="xs" leftSection={<IconLinkPlus size={14} />} onClick={submit} disabled={!picked} loading={add.isPending}>
+        <TextInput
+          size="xs"
+          w={220}
+          label="Note"
+          placeholder="optional"
+          value={note}
+          onChange={(e) => setNote(e.currentTarget.value)}
+          maxLength={500}
+        />
+        <Button
+          size="xs"
+          leftSection={<IconLinkPlus size={14} />}
+          onClick={submit}
+          disabled={!picked}
+          loading={add.isPending}
+        >
           Link source
         </Button>
       </Group>
@@ -79,11 +142,19 @@ function AddSource({ housePartId, linked }: { housePartId: number; linked: Reado
 }
 
 /** The vendor parts linked to a house part, each with the role its decisions gave it (read only). */
-export function SourcesPanel({ housePartId, partNumber }: { housePartId: number; partNumber: string }) {
+export function SourcesPanel({
+  housePartId,
+  partNumber,
+}: {
+  housePartId: number;
+  partNumber: string;
+}) {
   const sources = useSources(housePartId);
   const remove = useRemoveSource();
   const [removing, setRemoving] = useState<Source | null>(null);
   const linked = new Set((sources.data ?? []).map((s) => s.vendorPartId));
+  // Only engineers link and unlink (the API refuses others); an admin reads.
+  const engineer = useSession()?.user.role === "engineer";
 
   return (
     <Paper>
@@ -91,8 +162,10 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
         <Title order={3} fz="h5">
           Sources
         </Title>
-        <AddSource housePartId={housePartId} linked={linked} />
-        {sources.isPending && <Loader size="sm" aria-label="Loading the sources" />}
+        {engineer && <AddSource housePartId={housePartId} linked={linked} />}
+        {sources.isPending && (
+          <Loader size="sm" aria-label="Loading the sources" />
+        )}
         {sources.isError && (
           <Alert color="red" role="alert">
             {describeError(sources.error)}
@@ -100,7 +173,9 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
         )}
         {sources.data?.length === 0 && (
           <Text fz="sm" c="dimmed">
-            No vendor part is linked yet. Link the parts to qualify; a second engineer's decision on each one's case makes it the approved source or a cleared alternate.
+            No vendor part is linked yet. Link the parts to qualify; a second
+            engineer's decision on each one's case makes it the approved source
+            or a cleared alternate.
           </Text>
         )}
         {sources.data && sources.data.length > 0 && (
@@ -121,15 +196,25 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
               {sources.data.map((s) => (
                 <Table.Tr key={s.vendorPartId}>
                   <Table.Td>
-                    <Anchor component={Link} to={`/vendor-parts/${s.vendorPartId}`} fz="sm" fw={500}>
+                    <Anchor
+                      component={Link}
+                      to={`/vendor-parts/${s.vendorPartId}`}
+                      fz="sm"
+                      fw={500}
+                    >
                       {s.mpn}
                     </Anchor>
                   </Table.Td>
                   <Table.Td>{s.manufacturer}</Table.Td>
-                  <Table.Td>{s.package ?? '–'}</Table.Td>
+                  <Table.Td>{s.package ?? "–"}</Table.Td>
                   <Table.Td>
                     <Tooltip label="Set by decisions on its qualification case, not here">
-                      <Badge size="sm" variant="outline" color={s.role === 'approved' ? 'verdigris' : 'gray'} aria-label={`Role of ${s.mpn}`}>
+                      <Badge
+                        size="sm"
+                        variant="outline"
+                        color={s.role === "approved" ? "verdigris" : "gray"}
+                        aria-label={`Role of ${s.mpn}`}
+                      >
                         {ROLE_LABEL[s.role]}
                       </Badge>
                     </Tooltip>
@@ -146,19 +231,26 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
                     )}
                   </Table.Td>
                   <Table.Td>
-                    <Text fz="xs">{s.note ?? ''}</Text>
+                    <Text fz="xs">{s.note ?? ""}</Text>
                   </Table.Td>
                   <Table.Td>
                     <Text fz="xs">
-                      {s.addedBy?.name ?? '–'}, {formatDateTime(s.createdAt)}
+                      {s.addedBy?.name ?? "–"}, {formatDateTime(s.createdAt)}
                     </Text>
                   </Table.Td>
                   <Table.Td>
-                    <Tooltip label="Remove this source">
-                      <ActionIcon variant="subtle" color="red" onClick={() => setRemoving(s)} aria-label={`Remove ${s.mpn}`}>
-                        <IconTrash size={16} />
-                      </ActionIcon>
-                    </Tooltip>
+                    {engineer && (
+                      <Tooltip label="Remove this source">
+                        <ActionIcon
+                          variant="subtle"
+                          color="red"
+                          onClick={() => setRemoving(s)}
+                          aria-label={`Remove ${s.mpn}`}
+                        >
+                          <IconTrash size={16} />
+                        </ActionIcon>
+                      </Tooltip>
+                    )}
                   </Table.Td>
                 </Table.Tr>
               ))}
@@ -166,12 +258,19 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
           </Table>
         )}
       </Stack>
-      <Modal opened={removing !== null} onClose={() => setRemoving(null)} title="Remove this source?" centered>
+      <Modal
+        opened={removing !== null}
+        onClose={() => setRemoving(null)}
+        title="Remove this source?"
+        centered
+      >
         {removing && (
           <Stack gap="sm">
             <Text fz="sm">
-              {removing.mpn} ({removing.manufacturer}) stops being {removing.role === 'approved' ? 'an approved' : 'an alternate'} source of {partNumber}.
-              The vendor part and its card stay in the catalogue.
+              {removing.mpn} ({removing.manufacturer}) stops being{" "}
+              {removing.role === "approved" ? "an approved" : "an alternate"}{" "}
+              source of {partNumber}. The vendor part and its card stay in the
+              catalogue.
             </Text>
             {remove.isError && (
               <Alert color="red" p="xs" role="alert">
@@ -190,7 +289,11 @@ export function SourcesPanel({ housePartId, partNumber }: { housePartId: number;
                     { housePartId, vendorPartId: removing.vendorPartId },
                     {
                       onSuccess: () => {
-                        notifications.show({ color: 'verdigris', title: 'Source removed', message: `${removing.mpn} is no longer a source of ${partNumber}.` });
+                        notifications.show({
+                          color: "verdigris",
+                          title: "Source removed",
+                          message: `${removing.mpn} is no longer a source of ${partNumber}.`,
+                        });
                         setRemoving(null);
                       },
                     },

@@ -1,5 +1,6 @@
 import { screen, waitFor } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { notifications } from '@mantine/notifications';
+import { describe, expect, it, vi } from 'vitest';
 import type { SpecVersion } from '@shuntwise/contracts';
 import { errorBody, mockApi } from '@/testing/mock-api';
 import { render, signInAs } from '@/testing/render';
@@ -100,7 +101,7 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
     await user.clear(vzMin);
     await user.type(vzMin, '5.3');
     await user.click(screen.getAllByRole('button', { name: 'Save as v2' })[0]);
-    expect(screen.getByText('vz.min (5.3 V) is above vz.nom (5.1 V)')).toBeInTheDocument();
+    expect(screen.getByText('VZ min (5.3 V) is above VZ nom (5.1 V)')).toBeInTheDocument();
     expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(0);
   });
 
@@ -154,5 +155,33 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
     const second = api.callsTo('PUT', '/api/house-parts/5/spec')[1].body as Put;
     expect(second.baseVersion).toBe(2);
     expect(second.spec.zdMax).toBe(25);
+  });
+
+  it('after a save shows the saved state, and a save that changes nothing sends nothing', async () => {
+    signInAs('engineer');
+    const api = mockApi({ 'PUT /api/house-parts/:id/spec': (call) => ({ body: saved(2, (call.body as Put).spec) }) });
+    const { user } = render(<SpecEditor housePartId={5} partNumber="OHI-ZD-9051" current={v1} />);
+    // nothing typed yet: nothing to save
+    expect(screen.getAllByRole('button', { name: /No changes to save|Saved/ })[0]).toBeDisabled();
+    const zd = screen.getByLabelText('Largest Zd at iRef');
+    await user.clear(zd);
+    await user.type(zd, '25 Ω');
+    await user.tab();
+    expect(screen.getByText('unsaved changes')).toBeInTheDocument();
+    await user.click(screen.getAllByRole('button', { name: 'Save as v2' })[0]);
+    await waitFor(() => expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(1));
+    expect(await screen.findByText('v2')).toBeInTheDocument();
+    await waitFor(() => expect(screen.queryByText('unsaved changes')).toBeNull());
+    expect(screen.queryByRole('button', { name: 'Save as v3' })).toBeNull();
+
+    // Typing the same value again (in another unit) is no change: no badge, no version.
+    await user.clear(zd);
+    await user.type(zd, '0.025 kΩ');
+    await user.tab();
+    expect(screen.queryByText('unsaved changes')).toBeNull();
+    const shown = vi.spyOn(notifications, 'show');
+    await user.keyboard('{Control>}s{/Control}');
+    await waitFor(() => expect(shown).toHaveBeenCalledWith(expect.objectContaining({ title: 'Nothing to save' })));
+    expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(1);
   });
 });

@@ -4,10 +4,11 @@ import { useForm } from '@mantine/form';
 import { getHotkeyHandler } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconDeviceFloppy } from '@tabler/icons-react';
-import type { SpecVersion } from '@shuntwise/contracts';
+import { sameSpec, type SpecVersion } from '@shuntwise/contracts';
 import { QuantityInput } from '@/components/quantity-input';
 import { ApiError, describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
+import { useLeaveGuard } from '@/lib/leave-guard';
 import { usePutSpec } from '../api/spec';
 import { emptySpecForm, formPath, formToSpec, specToForm, validateSpecForm, type SpecFormValues } from '../utils/spec-form';
 
@@ -60,10 +61,9 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
   // A newer version from the server replaces an untouched form; with changes, the save's 409 decides.
   const untouched = !form.isDirty();
   useEffect(() => {
-    if (current && current.version !== loaded?.version && untouched && !stale) {
+    if (current && current.version > (loaded?.version ?? 0) && untouched && !stale) {
       setLoaded(current);
-      form.setInitialValues(specToForm(current.spec));
-      form.setValues(specToForm(current.spec));
+      show(current);
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [current, loaded, untouched, stale]);
@@ -75,16 +75,31 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [startNonce]);
 
+  /** Puts the form back to a saved version: values, what counts as unchanged, no dirty marks. */
+  const show = (version: SpecVersion) => {
+    const values = specToForm(version.spec);
+    form.setInitialValues(values);
+    form.setValues(values);
+    form.resetDirty(values);
+  };
+  // Unsaved means the form states another requirement than the loaded version (a note alone is not saved).
+  const changed = loaded ? form.isDirty() && !sameSpec(formToSpec(form.getValues()), loaded.spec) : true;
+  useLeaveGuard(loaded ? changed : form.isDirty(), 'The spec has unsaved changes. Leave this page and lose them?');
+
   const save = (values: SpecFormValues, onTopOf = baseVersion) => {
     setGeneralError(null);
+    if (loaded && onTopOf === loaded.version && sameSpec(formToSpec(values), loaded.spec)) {
+      show(loaded);
+      notifications.show({ color: 'gray', title: 'Nothing to save', message: `${partNumber}: the values equal version ${loaded.version}.` });
+      return;
+    }
     put.mutate(
       { housePartId, request: { baseVersion: onTopOf, spec: formToSpec(values), note: values.note.trim() || undefined } },
       {
         onSuccess: (saved) => {
           setStale(null);
           setLoaded(saved);
-          form.setInitialValues({ ...specToForm(saved.spec), note: '' });
-          form.setValues({ ...specToForm(saved.spec), note: '' });
+          show(saved);
           notifications.show({
             color: 'verdigris',
             title: saved.version === onTopOf ? 'Spec unchanged' : 'Spec saved',
@@ -133,14 +148,14 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
                 {loaded.note ? ` — ${loaded.note}` : ''}
               </Text>
             )}
-            {form.isDirty() && (
+            {changed && loaded && (
               <Badge color="yellow" size="sm">
                 unsaved changes
               </Badge>
             )}
           </Group>
-          <Button type="submit" size="xs" leftSection={<IconDeviceFloppy size={14} />} loading={put.isPending} title="Save (Ctrl+S)">
-            Save as v{baseVersion + 1}
+          <Button type="submit" size="xs" leftSection={<IconDeviceFloppy size={14} />} loading={put.isPending} title="Save (Ctrl+S)" disabled={!changed}>
+            {changed ? `Save as v${baseVersion + 1}` : 'Saved'}
           </Button>
         </Group>
 
@@ -158,8 +173,7 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
                   onClick={() => {
                     if (!current) return;
                     setLoaded(current);
-                    form.setInitialValues(specToForm(current.spec));
-                    form.setValues(specToForm(current.spec));
+                    show(current);
                     setStale(null);
                   }}
                   disabled={!current || current.version !== stale.current}
@@ -187,7 +201,7 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
         </Section>
 
         <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md">
-          <Section title="Knee" hint="ratio Zd(iKnee)/Zd(iRef), and/or the span over the envelope">
+          <Section title="Knee" hint="Zd at the knee current ÷ Zd at the reference current, and/or the span over the envelope">
             <SimpleGrid cols={3} spacing="xs">
               <QuantityInput label="Knee current" kind="current" unit="mA" {...q('knee.iKnee')} />
               <NumberInput label="Largest ratio" min={1} max={10000} decimalScale={3} hideControls {...ip('knee.maxRatio')} />
@@ -240,8 +254,8 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
 
         <Group align="flex-end" gap="xs">
           <TextInput style={{ flex: 1 }} label="Note for this version" placeholder="e.g. envelope widened for the outdoor variant" maxLength={500} {...ip('note')} />
-          <Button type="submit" loading={put.isPending}>
-            Save as v{baseVersion + 1}
+          <Button type="submit" loading={put.isPending} disabled={!changed}>
+            {changed ? `Save as v${baseVersion + 1}` : 'No changes to save'}
           </Button>
         </Group>
       </Stack>

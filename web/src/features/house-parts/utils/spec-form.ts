@@ -1,4 +1,4 @@
-import { formatQuantity, specSchema, type QuantityKind, type Spec, type SpecInput } from '@shuntwise/contracts';
+import { fieldName, isGenericIssueMessage, issueMessage, specSchema, type LabelledIssue, type QuantityKind, type Spec, type SpecInput } from '@shuntwise/contracts';
 
 /**
  * The spec editor's values: the spec's own shape, so the API's error paths
@@ -134,28 +134,12 @@ export function formPath(specPath: string): string {
   return path === 'knee' ? 'knee.maxRatio' : path;
 }
 
-interface Issue {
-  code?: string;
-  path: ReadonlyArray<PropertyKey>;
-  message: string;
-  minimum?: number | bigint;
-  maximum?: number | bigint;
-  inclusive?: boolean;
-  origin?: string;
-}
-
-function limitText(path: string, limit: number): string {
-  if (path === 'power.deratingPercent') return `${Number((limit * 100).toPrecision(6))} %`;
-  const kind = SPEC_FIELD_KINDS[path];
-  return kind ? formatQuantity(limit, kind, { digits: 4 }) : String(limit);
-}
-
-/** A message an engineer reads: limits in the field's unit, not zod's wording. */
-function messageOf(issue: Issue, path: string): string {
-  if (issue.code === 'too_small' && issue.origin === 'number') return `Must be ${issue.inclusive ? 'at least' : 'above'} ${limitText(path, Number(issue.minimum))}`;
-  if (issue.code === 'too_big' && issue.origin === 'number') return `Must be at most ${limitText(path, Number(issue.maximum))}`;
-  if (issue.code === 'invalid_type') return 'Check this value';
-  return issue.message;
+/** A message an engineer reads: the form's labels and limits in the field's unit (contracts' one map). */
+function messageOf(issue: LabelledIssue, path: string): string {
+  // Under its own input the label is already shown: "Must be above 0 V".
+  const text = issueMessage({ ...issue, path: ['spec', ...path.replace('power.deratingPercent', 'power.deratingFraction').split('.')] });
+  const label = fieldName(['spec', ...path.replace('power.deratingPercent', 'power.deratingFraction').split('.')]);
+  return isGenericIssueMessage(issue.message) && text.startsWith(`${label} `) ? text.slice(label.length + 1).replace(/^./, (c) => c.toUpperCase()) : text;
 }
 
 /** The editor's validation: what is missing or unreadable, then the contracts' own spec rules. */
@@ -176,7 +160,7 @@ export function validateSpecForm(values: SpecFormValues): Record<string, string>
 
   const parsed = specSchema.safeParse(formToSpec(values));
   if (!parsed.success) {
-    for (const issue of parsed.error.issues as unknown as Issue[]) {
+    for (const issue of parsed.error.issues as unknown as LabelledIssue[]) {
       const path = formPath(issue.path.map(String).join('.'));
       errors[path] ??= messageOf(issue, path);
     }

@@ -24,7 +24,7 @@ function MailBody({ text }: { text: string }) {
     >
       {parts.map((part, index) =>
         index % 2 === 1 ? (
-          <Anchor key={index} href={part} inherit>
+          <Anchor key={index} href={part} inherit underline="always">
             {part}
           </Anchor>
         ) : (

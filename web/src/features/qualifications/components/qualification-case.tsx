@@ -1,6 +1,7 @@
 import { Alert, Anchor, Badge, Button, Center, Grid, Group, Loader, Stack, Text } from '@mantine/core';
 import { IconArrowLeft, IconChartLine } from '@tabler/icons-react';
 import { Link, useNavigate } from 'react-router';
+import { DecisionRecordButton } from '@/components/decision-record-button';
 import { PageHeader } from '@/components/page-header';
 import { QualificationStateBadge } from '@/components/qualification-state-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
@@ -81,6 +82,7 @@ export function QualificationCase({ id }: { id: number }) {
             <Button component={Link} to={`/compare/${q.housePart.id}`} variant="default" leftSection={<IconChartLine size={16} />}>
               Compare sources
             </Button>
+            <DecisionRecordButton caseId={q.id} state={q.state} />
           </>
         }
       />

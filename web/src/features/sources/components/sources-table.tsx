@@ -4,6 +4,7 @@ import { useDebouncedValue } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconBell, IconBellOff, IconDownload, IconSearch } from '@tabler/icons-react';
 import { Link, useSearchParams } from 'react-router';
+import { DecisionRecordButton } from '@/components/decision-record-button';
 import { stateLabel, QualificationStateBadge } from '@/components/qualification-state-badge';
 import { WaiverBadges } from '@/components/waiver-badges';
 import { describeError } from '@/lib/api-client';
@@ -136,7 +137,7 @@ export function SourcesTable() {
         </Text>
       )}
       {items.length > 0 && (
-        <Table.ScrollContainer minWidth={1000} type="native">
+        <Table.ScrollContainer minWidth={740} type="native">
           <Table aria-label="Sources" style={{ opacity: view.isPlaceholderData ? 0.6 : 1 }}>
             <Table.Thead>
               <Table.Tr>
@@ -146,9 +147,7 @@ export function SourcesTable() {
                 <Table.Th>Role</Table.Th>
                 <Table.Th>Standing</Table.Th>
                 <Table.Th>Conditions or reason</Table.Th>
-                <Table.Th>Since</Table.Th>
-                <Table.Th>Decided by</Table.Th>
-                <Table.Th>Case</Table.Th>
+                <Table.Th>Decided</Table.Th>
               </Table.Tr>
             </Table.Thead>
             <Table.Tbody>
@@ -197,7 +196,7 @@ export function SourcesTable() {
                   return (
                     <Table.Tr key={hp.id}>
                       {head}
-                      <Table.Td colSpan={8}>
+                      <Table.Td colSpan={6}>
                         <Text fz="sm" c="dimmed">
                           No source linked.
                         </Text>
@@ -250,27 +249,16 @@ export function SourcesTable() {
                             </Text>
                           )}
                         </Table.Td>
-                        <Table.Td maw={340}>
+                        <Table.Td maw={260}>
                           <Text fz="xs" style={{ whiteSpace: 'pre-wrap' }}>
                             {s.conditions ?? ''}
                           </Text>
                         </Table.Td>
+                        {/* Since, by whom and the case in one cell: the table fits 1024 px beside the navigation. */}
                         <Table.Td>
-                          <Text fz="xs" style={{ whiteSpace: 'nowrap' }}>
-                            {formatDateTime(s.since)}
-                          </Text>
-                        </Table.Td>
-                        <Table.Td>
-                          <Text fz="xs" style={{ whiteSpace: 'nowrap' }}>
-                            {s.decidedBy?.name ?? '–'}
-                          </Text>
-                        </Table.Td>
-                        <Table.Td>
-                          {s.caseId === null ? (
-                            <Text fz="xs" c="dimmed">
-                              –
-                            </Text>
-                          ) : linked ? (
+                          <Text fz="xs">{formatDateTime(s.since)}</Text>
+                          <Text fz="xs">{s.decidedBy?.name ?? '–'}</Text>
+                          {s.caseId === null ? null : linked ? (
                             <Anchor component={Link} to={`/qualifications/${s.caseId}`} fz="xs">
                               #{s.caseId}
                               {s.revision && s.revision > 1 ? ` rev. ${s.revision}` : ''}
@@ -281,6 +269,7 @@ export function SourcesTable() {
                               {s.revision && s.revision > 1 ? ` rev. ${s.revision}` : ''}
                             </Text>
                           )}
+                          {s.caseId !== null && <DecisionRecordButton caseId={s.caseId} state={s.standing} />}
                         </Table.Td>
                       </Table.Tr>
                     ))}

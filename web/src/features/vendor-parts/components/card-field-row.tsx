@@ -7,6 +7,7 @@ import { TempCoInput } from '@/components/temp-co-input';
 import { CARD_FIELD_META, cardFieldKind, formatCardValue } from '@/lib/card-fields';
 import { formatDateTime, formatShortDate } from '@/lib/format-date';
 import { sameFieldValue, type DraftField, type Suggestion } from '../utils/card-draft';
+import { SuggestionOrigin } from './suggestion-origin';
 
 export const SOURCE_LABEL: Record<ProvenanceSource, string> = { extracted: 'Extracted', entered: 'Entered', imported: 'Imported' };
 export const SOURCE_COLOR: Record<ProvenanceSource, string> = { extracted: 'copper', entered: 'grape', imported: 'indigo' };
@@ -94,7 +95,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               <Anchor component="button" type="button" fz="xs" c="verdigris" onClick={() => onShowSource(suggestion)} aria-label={`${meta.symbol} as printed on page ${suggestion.page}`}>
                 <Group gap={2} wrap="nowrap">
                   <IconCheck size={14} />
-                  p. {suggestion.page}
+                  page {suggestion.page}
                 </Group>
               </Anchor>
             </Tooltip>
@@ -116,10 +117,11 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
                 </Button>
               </Tooltip>
               <Anchor component="button" type="button" fz="xs" onClick={() => onShowSource(suggestion)} aria-label={`Show ${meta.symbol} on page ${suggestion.page}`}>
-                p. {suggestion.page}
+                page {suggestion.page}
               </Anchor>
             </Group>
           ))}
+        {suggestion && <SuggestionOrigin suggestion={suggestion} />}
       </Table.Td>
       <Table.Td w={200} maw={200}>
         {value && !Number.isNaN(value.value) && (
@@ -129,7 +131,7 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
             </Badge>
             {location && (
               <Anchor component="button" type="button" fz="xs" onClick={showLocation} aria-label={`Show the source of ${meta.symbol}, page ${location.page}`} style={{ flexShrink: 0 }}>
-                p. {location.page}
+                page {location.page}
               </Anchor>
             )}
             <Text

@@ -1,8 +1,9 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { Link } from 'react-router';
 import { describe, expect, it, vi } from 'vitest';
 import type { ExtractedVariant, NormalizeResponse, RatingCardView, VendorPartDetail } from '@shuntwise/contracts';
 import { errorBody, mockApi, type RecordedCall } from '@/testing/mock-api';
-import { render, signInAs } from '@/testing/render';
+import { currentLocation, render, signInAs } from '@/testing/render';
 import { RatingCardEditor } from './rating-card-editor';
 
 // Invented part and datasheet (demo data, no real vendor).
@@ -104,7 +105,7 @@ describe('RatingCardEditor', () => {
     await user.click(screen.getByRole('button', { name: 'Use 5.10 V for VZ nom' }));
     expect(screen.getByLabelText(/^VZ nom \(/)).toHaveValue('5.1 V');
     expect(within(screen.getByTestId('provenance-vzNom')).getByText('Extracted')).toBeInTheDocument();
-    expect(within(screen.getByTestId('provenance-vzNom')).getByText('p. 2')).toBeInTheDocument();
+    expect(within(screen.getByTestId('provenance-vzNom')).getByText('page 2')).toBeInTheDocument();
     expect(onShowSource).toHaveBeenLastCalledWith(expect.objectContaining({ datasheetId: 7, page: 2, box }));
 
     // The rest in one go; the temperature coefficient keeps the unit the datasheet used.
@@ -177,7 +178,7 @@ describe('RatingCardEditor', () => {
     api({
       'PUT /api/vendor-parts/:id/rating-card': {
         status: 400,
-        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [{ path: 'fields.zzt.value', message: 'zzt (900 Ω) × izt (0.005 A) is not below vzNom (5.1 V)' }]),
+        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [{ path: 'fields.zzt.value', message: 'ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)' }]),
       },
     });
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
@@ -185,7 +186,7 @@ describe('RatingCardEditor', () => {
     await user.clear(vzMax);
     await user.type(vzMax, '5.4 V');
     await user.click(screen.getAllByRole('button', { name: 'Save card' })[0]);
-    expect(await screen.findByText('zzt (900 Ω) × izt (0.005 A) is not below vzNom (5.1 V)')).toBeInTheDocument();
+    expect(await screen.findByText('ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)')).toBeInTheDocument();
     expect(screen.getByLabelText(/^ZZT \(/)).toHaveAttribute('aria-invalid', 'true');
     expect(vzMax).toHaveValue('5.4 V');
   });
@@ -245,4 +246,29 @@ describe('RatingCardEditor', () => {
     expect(sent.fields.vzNom.value).toBe(5.1);
     await waitFor(() => expect(screen.getByTestId('card-version')).toHaveTextContent('v3'));
   }, 20_000);
+
+  it('asks before a link leaves unsaved edits, and stays when told to', { timeout: 60_000 }, async () => {
+    signInAs('engineer');
+    api();
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    const { user } = render(
+      <>
+        <Link to="/board">Board</Link>
+        <RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />
+      </>,
+      { route: '/vendor-parts/5' },
+    );
+    const zzt = screen.getByLabelText(/^ZZT \(/);
+    await user.clear(zzt);
+    await user.type(zzt, '9 Ω');
+    await user.tab();
+    fireEvent.click(screen.getByRole('link', { name: 'Board' }));
+    expect(confirm).toHaveBeenCalledWith(expect.stringMatching(/rating card has unsaved changes/));
+    expect(currentLocation()).toBe('/vendor-parts/5');
+    expect(zzt).toHaveValue('9 Ω');
+    confirm.mockReturnValue(true);
+    fireEvent.click(screen.getByRole('link', { name: 'Board' }));
+    await waitFor(() => expect(currentLocation()).toBe('/board'));
+    confirm.mockRestore();
+  });
 });

@@ -1,11 +1,12 @@
 import { useCallback, useMemo, useState } from 'react';
 import { Alert, Badge, Button, Group, Paper, Select, Stack, Table, Text, TextInput, Title } from '@mantine/core';
-import { getHotkeyHandler, useDebouncedValue, useDisclosure, useWindowEvent } from '@mantine/hooks';
+import { getHotkeyHandler, useDebouncedValue, useDisclosure } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconDeviceFloppy, IconHistory, IconListCheck } from '@tabler/icons-react';
 import type { CardField, ExtractedVariant, RatingCardView, TempCoUnit, VendorPartDetail } from '@shuntwise/contracts';
 import { Quantity } from '@/components/quantity';
 import { ApiError, describeError } from '@/lib/api-client';
+import { useLeaveGuard } from '@/lib/leave-guard';
 import { CARD_FIELD_GROUPS, CARD_FIELD_META } from '@/lib/card-fields';
 import { formatDateTime } from '@/lib/format-date';
 import { useSpecBasis } from '../api/get-spec-basis';
@@ -32,6 +33,7 @@ import { basisFromSpec, normalizeRequestFor, standardBasis } from '../utils/norm
 import { CardConflictModal } from './card-conflict-modal';
 import { CardEngineeringPanel, MECHANISM_LABEL } from './card-engineering-panel';
 import { CardFieldRow, type SourceLocation } from './card-field-row';
+import { CheckFirstNote } from './suggestion-origin';
 import { CardVersionsModal } from './card-versions-modal';
 
 export interface CardExtraction {
@@ -99,9 +101,8 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
   // editor; with unsaved changes it waits, and the save's 409 brings the merge.
   if (card !== loaded && card.version > loaded.version && !dirty && !conflict) resetTo(card);
 
-  useWindowEvent('beforeunload', (event) => {
-    if (dirty) event.preventDefault();
-  });
+  // Unsaved edits are not dropped silently: leaving asks first (links and closing the tab).
+  useLeaveGuard(dirty, 'The rating card has unsaved changes. Leave this page and lose them?');
 
   // Suggestions: the variant of the shown datasheet that carries this part number.
   const [variantChoice, setVariantChoice] = useState<{ datasheetId: number; mpn: string } | null>(null);
@@ -327,6 +328,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
                   Accept all suggestions ({pending.length})
                 </Button>
               )}
+              <CheckFirstNote suggestions={Object.values(suggestions)} />
               {packageSuggestion && packageSuggestion.value !== vendorPart.package && !readOnly && (
                 <Button
                   size="compact-xs"

@@ -48,6 +48,10 @@ export interface Suggestion {
   text: string;
   box?: ExtractionBox;
   note?: string;
+  /** Where on the page it was read, whether by OCR, and whether it was worked out rather than printed. */
+  method?: ExtractedValue['method'];
+  ocr?: boolean;
+  derived?: ExtractedValue['derived'];
 }
 
 export function draftFromCard(card: Pick<RatingCard, 'fields'>): CardDraft {
@@ -89,6 +93,9 @@ export function suggestionsFrom(variant: ExtractedVariant | null | undefined, da
       text: found.text,
       box: found.box,
       note: found.note,
+      method: found.method,
+      ocr: found.ocr,
+      derived: found.derived,
     };
   }
   return out;

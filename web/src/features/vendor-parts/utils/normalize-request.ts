@@ -1,35 +1,14 @@
-import type { EngineeringCardInput, NormalizeRequest, Spec } from '@shuntwise/contracts';
+import { normalizeBasis, type EngineeringCardInput, type NormalizeBasis, type Spec } from '@shuntwise/contracts';
 
-/**
- * Currents a card is shown at when no spec applies: its own test points and the usual
- * small-signal currents of regulator diodes (1, 5, 10 and 20 mA; common practice, no source).
- */
-export const STANDARD_CURRENTS = [0.001, 0.005, 0.01, 0.02] as const;
-
-export interface NormalizeBasis {
-  /** How the currents were chosen, for the panel's heading. */
-  label: string;
-  currents: number[];
-  temperaturesC: number[];
-}
-
-const sorted = (values: number[]) => [...new Set(values.map((v) => Number(v.toPrecision(12))))].sort((a, b) => a - b);
+// One choice of currents for the editor, the card read and the evaluation: it lives in contracts.
+export { normalizeRequestFor, STANDARD_CURRENTS, type NormalizeBasis } from '@shuntwise/contracts';
 
 /** The spec's currents and ambients, as the API normalises a card for a house part. */
 export function basisFromSpec(spec: Spec, partNumber: string, version: number): NormalizeBasis {
-  const currents = [spec.iRef, spec.knee?.iKnee ?? null, spec.envelope.iMin, spec.envelope.iMax].filter((c): c is number => c !== null);
-  return {
-    label: `at the currents of ${partNumber}'s spec v${version}`,
-    currents: sorted(currents),
-    temperaturesC: sorted([25, spec.envelope.taMin, spec.envelope.taMax]),
-  };
+  return normalizeBasis({ izt: spec.iRef, izk: null }, { spec, partNumber, version });
 }
 
+/** The card's own test points and the stated standard currents at 25 °C. */
 export function standardBasis(card: EngineeringCardInput): NormalizeBasis {
-  const own = [card.izk ?? null, card.izt].filter((c): c is number => c !== null);
-  return { label: 'at its test currents and 1, 5, 10, 20 mA, 25 °C', currents: sorted([...own, ...STANDARD_CURRENTS]), temperaturesC: [25] };
-}
-
-export function normalizeRequestFor(card: EngineeringCardInput, basis: NormalizeBasis): NormalizeRequest {
-  return { card, currents: basis.currents, temperaturesC: basis.temperaturesC };
+  return normalizeBasis(card, null);
 }

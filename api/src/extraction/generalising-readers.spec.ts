@@ -1,0 +1,214 @@
+import { detectDecimalSeparator, normaliseNumbers } from './number-style';
+import { findConditions } from './field-patterns';
+import type { PdfText, PdfTextItem } from './pdf-text';
+import { findQuantities, unitKind } from './quantity-text';
+import { generateRandomDatasheet } from '@shuntwise/test-fixtures';
+import { readPdf } from './pdf-text';
+import { extractRatings } from './rating-extractor';
+import { fieldFor } from './field-patterns';
+
+/**
+ * The pieces that make extraction generalise over layouts, each with small inputs built
+ * here. Values and part numbers are invented. Unit notation (µ/μ/u, Ω/Ω/ohm, mV/K, %/°C,
+ * K/W, °C/W) and the decimal comma are common practice in datasheets (no source); SI
+ * prefixes follow the BIPM SI Brochure, 9th edition (from memory); tolerance limits as
+ * VZnom × (1 ∓ tolerance) are common practice (no source).
+ */
+
+function item(str: string, x: number, y: number, size = 8, width = str.length * size * 0.5): PdfTextItem {
+  return { str, x, y, width, height: size };
+}
+
+function pdf(...pages: PdfTextItem[][]): PdfText {
+  return { pageCount: pages.length, hasText: true, pages: pages.map((items, i) => ({ page: i + 1, width: 595, height: 842, items })) };
+}
+
+function row(y: number, xs: number[], cells: string[]): PdfTextItem[] {
+  return cells.map((c, i) => item(c, xs[i], y));
+}
+
+describe('the decimal separator of a document', () => {
+  it('is the comma when values print "3,6 V" and "0,30 µA"', () => {
+    expect(detectDecimalSeparator(['VZ 3,6 V', 'IR 0,30 µA', 'Page 1 of 2'])).toBe(',');
+  });
+
+  it('stays the point when the only commas are thousands separators, dates or lists', () => {
+    expect(detectDecimalSeparator(['5.1 V', '1,000 pieces per reel', 'issued 01.05.2024', 'IZ = 5, 10 and 20 mA'])).toBe('.');
+  });
+
+  it('reads a decimal-comma number in place and never takes "1.000" (a thousand) for 1', () => {
+    const text = normaliseNumbers('VZ 3,6 V; reel of 1.000', ',');
+    expect(text).toHaveLength('VZ 3,6 V; reel of 1.000'.length);
+    expect(findQuantities(text).map((q) => q.value)).toEqual(['3.6']);
+    // A signed value is a number; a part number's "-3,6" is not touched.
+    expect(normaliseNumbers('TC -0,058 %/K for AB-3,6', ',')).toBe('TC -0.058 %/K for AB-3,6');
+  });
+
+  it('returns the value as printed, with its comma, and the SI value', () => {
+    const XS = [50, 130, 180, 230];
+    const result = extractRatings(
+      pdf([...row(700, XS, ['Type', 'VZ nom (V)', 'IR max (µA)', 'VR (V)']), ...row(685, XS, ['QK-3V6', '3,6', '0,30', '1,5']), ...row(673, XS, ['QK-3V9', '3,9', '0,20', '1,5'])]),
+    );
+    expect(result.variants[0].fields.vzNom).toMatchObject({ value: '3,6', si: 3.6, method: 'table' });
+    expect(result.variants[0].fields.irMax).toMatchObject({ value: '0,30', si: 3e-7 });
+  });
+});
+
+describe('the physical dimension of a unit decides what a column can be', () => {
+  it('classifies the unit spellings datasheets use', () => {
+    expect(unitKind('mV/K')).toBe('tempCoVoltage');
+    expect(unitKind('mV/°C')).toBe('tempCoVoltage');
+    expect(unitKind('%/K')).toBe('tempCoPercent');
+    expect(unitKind('%/°C')).toBe('tempCoPercent');
+    expect(unitKind('K/W')).toBe('thermalResistance');
+    expect(unitKind('°C/W')).toBe('thermalResistance');
+    expect(unitKind('\u2126')).toBe('resistance');
+    expect(unitKind('ohm')).toBe('resistance');
+    expect(unitKind('uA')).toBe('current');
+    expect(unitKind('μA')).toBe('current');
+  });
+
+  it('takes a current under "IZT" for the test current and refuses a voltage-unit header as an impedance', () => {
+    expect(fieldFor('IZT', 'current')).toMatchObject({ field: 'izt' });
+    expect(fieldFor('ZZT', 'voltage')).toBeUndefined();
+    expect(fieldFor('rzk max', 'resistance')).toMatchObject({ field: 'zzk' });
+    expect(fieldFor('UR', 'voltage')).toMatchObject({ field: 'vr' });
+  });
+});
+
+describe('conditions bound to the value they qualify', () => {
+  it('reads "@" after a value as its test condition, by the field of that value', () => {
+    expect(findConditions('144 ohm @ 0.25 mA', 'zzk').conditions).toEqual([expect.objectContaining({ field: 'izk', value: '0.25', unit: 'mA' })]);
+    expect(findConditions('0.10 uA @ 6.5 V', 'irMax').conditions).toEqual([expect.objectContaining({ field: 'vr', value: '6.5', unit: 'V' })]);
+    // What remains to be read is the value itself, never the condition's number.
+    expect(findQuantities(findConditions('0.10 uA @ 6.5 V', 'irMax').rest).map((q) => q.value)).toEqual(['0.10']);
+  });
+
+  it('keeps the unit printed after the condition with its value ("56.0 @ 0.89 mA V")', () => {
+    const rest = findConditions('56.0 @ 0.89 mA V', 'vzNom').rest;
+    expect(findQuantities(rest)[0]).toMatchObject({ value: '56.0', unit: 'V' });
+  });
+
+  it('never reads the 25 °C of a test condition as the junction temperature', () => {
+    const result = extractRatings(
+      pdf(
+        [
+          ...row(760, [50, 130, 180, 230], ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+          ...row(745, [50, 130, 180, 230], ['RX-5V1', '5.1', '5', '60']),
+          ...row(733, [50, 130, 180, 230], ['RX-5V6', '5.6', '5', '40']),
+          item('Maximum ratings (Tj = 25 °C unless otherwise noted)', 50, 700, 9, 260),
+          ...row(685, [50, 250, 330, 420, 460], ['Power dissipation', 'Ptot', 'TA = 25 °C', '500', 'mW']),
+          ...row(673, [50, 250, 420, 460], ['Junction temperature', 'Tj', '150', '°C']),
+        ],
+      ),
+    );
+    expect(result.variants[0].fields.pdMax).toMatchObject({ value: '500', si: 0.5 });
+    expect(result.variants[0].fields.tjMax).toMatchObject({ value: '150', si: 150 });
+  });
+});
+
+describe('transposed tables: part numbers as columns', () => {
+  const XS = [50, 180, 230, 280, 330];
+  it('reads each row by its label and unit, and its condition for every part', () => {
+    const result = extractRatings(
+      pdf([
+        ...row(700, XS, ['Parameter', 'Symbol', 'TV-100', 'TV-110', 'TV-120']),
+        ...row(688, XS, ['Zener voltage, nom at IZT = 5 mA (V)', 'VZ', '10.0', '11.0', '12.0']),
+        ...row(676, XS, ['Dynamic impedance, max (Ω)', 'ZZT', '20', '22', '25']),
+        ...row(664, XS, ['Reverse current, max at VR (µA)', 'IR', '0.2', '0.1', '0.1']),
+        item('Package', 50, 652),
+        ...row(652, XS.slice(2), ['SOD-123', 'SOD-123', 'SOD-323']),
+      ]),
+    );
+    expect(result.variants.map((v) => v.mpn)).toEqual(['TV-100', 'TV-110', 'TV-120']);
+    expect(result.variants[1].fields.vzNom).toMatchObject({ value: '11.0', si: 11, method: 'table' });
+    expect(result.variants[1].fields.izt).toMatchObject({ value: '5', si: 0.005 });
+    expect(result.variants[2].fields.zzt).toMatchObject({ si: 25 });
+    expect(result.variants[0].fields.irMax).toMatchObject({ si: 2e-7 });
+    expect(result.variants[2].package).toMatchObject({ value: 'SOD-323' });
+  });
+});
+
+describe('maximum ratings scoped to the series or package they name', () => {
+  it('gives each series its own power rating and leaves a field empty when two values cannot be told apart', () => {
+    const XS = [50, 130, 180, 230];
+    const result = extractRatings(
+      pdf([
+        ...row(760, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+        ...row(745, XS, ['ABQ5V1', '5.1', '5', '60']),
+        ...row(733, XS, ['ABQ5V6', '5.6', '5', '40']),
+        ...row(721, XS, ['CDW5V1', '5.1', '20', '10']),
+        ...row(709, XS, ['CDW5V6', '5.6', '20', '8']),
+        item('Maximum ratings, ABQ series', 50, 680, 10, 150),
+        ...row(665, [50, 250, 420], ['Power dissipation', 'Ptot', '500 mW']),
+        item('Maximum ratings, CDW series', 50, 640, 10, 150),
+        ...row(625, [50, 250, 420], ['Power dissipation', 'Ptot', '1.3 W']),
+        item('Thermal resistance junction to ambient RthJA 250 K/W', 50, 600, 9, 240),
+        item('Thermal resistance junction to ambient RthJA 300 K/W', 50, 588, 9, 240),
+      ]),
+    );
+    const byMpn = new Map(result.variants.map((v) => [v.mpn, v]));
+    expect(byMpn.get('ABQ5V1')!.fields.pdMax).toMatchObject({ si: 0.5 });
+    expect(byMpn.get('CDW5V6')!.fields.pdMax).toMatchObject({ si: 1.3 });
+    expect(byMpn.get('ABQ5V1')!.fields.rthJA).toBeUndefined();
+    expect(result.warnings.some((w) => /rthJA left empty/.test(w))).toBe(true);
+  });
+});
+
+describe('tolerance given by a part-number letter with a legend', () => {
+  it('makes one variant per letter with VZ limits derived from VZnom, marked as derived', () => {
+    const XS = [50, 130, 180, 230];
+    const result = extractRatings(
+      pdf([
+        ...row(760, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+        ...row(745, XS, ['LGX10', '10', '5', '20']),
+        ...row(733, XS, ['LGX12', '12', '5', '25']),
+        item('Tolerance of VZ: the letter after the type number gives it (B ±2 %, C ±5 %).', 50, 700, 9, 330),
+      ]),
+    );
+    expect(result.variants.map((v) => v.mpn)).toEqual(['LGX10B', 'LGX10C', 'LGX12B', 'LGX12C']);
+    const c = result.variants[1];
+    expect(c.fields.vzMin).toMatchObject({ si: 9.5, derived: 'tolerance-suffix' });
+    expect(c.fields.vzMax).toMatchObject({ si: 10.5, derived: 'tolerance-suffix' });
+    expect(c.fields.vzNom).toMatchObject({ si: 10 });
+    expect(c.fields.vzNom!.derived).toBeUndefined();
+  });
+});
+
+describe('ratings in prose', () => {
+  it('reads a part paragraph clause by clause, conditions included', () => {
+    const result = extractRatings(
+      pdf([
+        item('SQN120, SOD-123: VZ is 12 V nominal (11.4 V to 12.6 V) measured at IZT = 5 mA.', 50, 700, 9, 360),
+        item('ZZT does not exceed 30 ohm. IR is 0.1 µA maximum at VR = 8.4 V; SZ is 9.2 mV/K typical.', 50, 688, 9, 360),
+      ]),
+    );
+    const v = result.variants[0];
+    expect(v.mpn).toBe('SQN120');
+    expect(v.fields.vzNom).toMatchObject({ si: 12, method: 'sentence' });
+    expect(v.fields.vzMin).toMatchObject({ si: 11.4 });
+    expect(v.fields.vzMax).toMatchObject({ si: 12.6 });
+    expect(v.fields.izt).toMatchObject({ si: 0.005 });
+    expect(v.fields.zzt).toMatchObject({ si: 30 });
+    expect(v.fields.irMax).toMatchObject({ si: 1e-7 });
+    expect(v.fields.vr).toMatchObject({ si: 8.4 });
+    expect(v.fields.tc).toMatchObject({ si: 0.0092 });
+    expect(v.package).toMatchObject({ value: 'SOD-123' });
+  });
+
+  it('leaves a worked example full of numbers alone', () => {
+    const result = extractRatings(pdf([item('Design example: supply 24 V, load 5 mA, R = (24 V − 12 V) / 15 mA ≈ 800 Ω; the diode dissipates 180 mW.', 50, 700, 9, 420)]));
+    expect(result.variants).toEqual([]);
+  });
+});
+
+describe('a page turned by 90°', () => {
+  it('is read in the frame of its text: every part of a rotated series table is found', async () => {
+    // A generated datasheet (test-fixtures random layouts) whose characteristics page is drawn turned by 90°.
+    const { pdf: bytes, answers } = await generateRandomDatasheet(4242, { orientation: 'rotated', arrangement: 'rows', pageColumns: 1, tolerance: 'min-max' });
+    const text = await readPdf(new Uint8Array(bytes));
+    const result = extractRatings(text);
+    const found = new Set(result.variants.map((v) => v.mpn));
+    for (const v of answers.variants) expect(found.has(v.mpn)).toBe(true);
+  });
+});

@@ -1,0 +1,129 @@
+import type { ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
+import { readPdf, type PdfText } from '../pdf-text';
+import { extractRatings } from '../rating-extractor';
+import type { OcrEngine } from './ocr-engine';
+import { ocrPages } from './page-ocr';
+
+/**
+ * The whole reading of one file: the text layer where there is one, OCR for the pages that
+ * are only an image. OCR'd pages become ordinary text items, so the same extractor reads
+ * both; every value read from an OCR'd page carries `ocr: true` and its page and box, and
+ * values that do not hang together (VZ min > nom, a nominal voltage far from the one coded in
+ * the part number) are dropped with a warning: no value rather than a doubtful one.
+ */
+
+export interface OcrExtractionOptions {
+  /** Null switches OCR off: image-only pages are reported, not read. */
+  engine: OcrEngine | null;
+  dpi: number;
+  /** At most this many pages are read by OCR per file; the rest are named in a warning. */
+  maxOcrPages: number;
+  onOcrPage?: (page: number) => void;
+}
+
+export function noOcrRatingsWarning(page: number): string {
+  return `page ${page}: no text layer and OCR found no ratings. Enter that page's ratings by hand.`;
+}
+
+export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionOptions): Promise<ExtractionResult> {
+  const text = await readPdf(buffer);
+  const textless = text.pages.filter((p) => p.items.length === 0).map((p) => p.page);
+  if (textless.length === 0) return extractRatings(text);
+
+  const warnings: string[] = [];
+  const budget = options.engine ? Math.max(0, options.maxOcrPages) : 0;
+  const toRead = textless.slice(0, budget);
+  const skipped = textless.slice(budget);
+  if (skipped.length) {
+    warnings.push(
+      options.engine
+        ? `${pageList(skipped)}: no text layer, and not read by OCR (at most ${budget} page${budget === 1 ? '' : 's'} per file are). Enter their ratings by hand.`
+        : `${pageList(skipped)}: no text layer, and OCR is switched off on this server. Enter their ratings by hand.`,
+    );
+  }
+  const read = options.engine && toRead.length ? await ocrPages(buffer, toRead, { engine: options.engine, dpi: options.dpi, onPage: options.onOcrPage }) : [];
+  const ocrItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items]));
+  const merged: PdfText = {
+    pageCount: text.pageCount,
+    hasText: text.hasText || [...ocrItems.values()].some((items) => items.length > 0),
+    pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
+  };
+  const result = extractRatings(merged);
+  const variants = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
+
+  const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
+  for (const page of ocrItems.keys()) {
+    if (!pagesWithValues.has(page)) warnings.push(noOcrRatingsWarning(page));
+  }
+  // The extractor's own "no text found" remark is replaced by the per-page ones above.
+  const rest = result.warnings.filter((w) => !/^No text found/.test(w) && !(variants.length === 0 && /^No part numbers/.test(w)));
+  if (variants.length === 0 && text.hasText) warnings.push('No part numbers with ratings were recognised in this PDF. Enter the ratings by hand.');
+  return { variants, warnings: [...warnings, ...rest], pages: text.pageCount, hasText: text.hasText };
+}
+
+/** Flags what came from OCR and drops OCR'd voltages that contradict each other or the part number. */
+function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>, warnings: string[]): ExtractedVariant | undefined {
+  const fields = { ...variant.fields };
+  let fromOcr = false;
+  for (const key of Object.keys(fields) as ExtractionField[]) {
+    const value = fields[key]!;
+    if (ocrPages.has(value.page)) {
+      fields[key] = { ...value, ocr: true };
+      fromOcr = true;
+    }
+  }
+  if (!fromOcr) return variant;
+  const dropped = implausibleVoltages(variant.mpn, fields);
+  for (const f of dropped) delete fields[f];
+  if (dropped.length) {
+    warnings.push(`${variant.mpn}: ${dropped.join(', ')} read by OCR did not agree with the other voltages or the part number; left empty, check the page.`);
+  }
+  if (Object.keys(fields).length === 0) return undefined;
+  return { ...variant, fields };
+}
+
+/**
+ * OCR voltages that cannot all be right: VZ min ≤ nom ≤ max must hold, VR must be below VZ, the coefficient within ±0.15 %/K, and the nominal
+ * voltage coded in a regulator part number (…5V1 = 5.1 V) must be within 10 %
+ * of the VZ read (common practice for regulator-diode part numbering, no source).
+ */
+export function implausibleVoltages(mpn: string, fields: ExtractedVariant['fields']): ExtractionField[] {
+  const vzRead = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f]?.ocr);
+  const coded = codedVoltage(mpn);
+  const bad = new Set<ExtractionField>();
+  if (coded !== undefined) {
+    for (const f of vzRead) {
+      const si = fields[f]!.si;
+      const limit = f === 'vzNom' ? 0.1 : 0.25;
+      if (Math.abs(si - coded) > limit * coded) bad.add(f);
+    }
+  }
+  // The reverse (stand-off) voltage of a leakage test lies below the breakdown voltage (common practice, no source).
+  const vzLow = fields.vzMin ?? fields.vzNom;
+  if (fields.vr?.ocr && vzLow && fields.vr.si >= vzLow.si) bad.add('vr');
+  // A regulator diode's coefficient stays within about ±0.15 %/K of VZ (common practice, no source): a
+  // larger one is a decimal point the scan lost.
+  const vz = fields.vzNom ?? fields.vzMax;
+  if (fields.tc?.ocr && vz && Math.abs(fields.tc.si) > 0.0015 * vz.si) bad.add('tc');
+  const ordered = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
+  for (let i = 1; i < ordered.length; i++) {
+    if (fields[ordered[i - 1]]!.si > fields[ordered[i]]!.si) {
+      for (const f of ordered) if (fields[f]!.ocr) bad.add(f);
+      break;
+    }
+  }
+  return [...bad];
+}
+
+/** "BRZ05-5V1" → 5.1; undefined when the part number codes no voltage. */
+export function codedVoltage(mpn: string): number | undefined {
+  const v = /(\d{1,3})V(\d{1,2})(?!\d)/.exec(mpn);
+  // Only the letter-for-point code: a plain number at the end means different things per vendor (033 = 3.3 V or 33 V).
+  return v ? Number(`${v[1]}.${v[2]}`) : undefined;
+}
+
+function pageList(pages: number[]): string {
+  if (pages.length === 1) return `page ${pages[0]}`;
+  const contiguous = pages.every((p, i) => i === 0 || p === pages[i - 1] + 1);
+  return contiguous ? `pages ${pages[0]}–${pages[pages.length - 1]}` : `pages ${pages.join(', ')}`;
+}

@@ -1,0 +1,91 @@
+import type { OcrLine } from './ocr-engine';
+import { codedVoltage, implausibleVoltages } from './ocr-extraction';
+import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
+
+/**
+ * The repairs and checks applied to OCR output. The misreadings are the ones the English
+ * model makes on scanned datasheets (seen on rasterised fixture pages: µ as H/p/y, Ω as Q,
+ * − as '=', a decimal point as ':', IZT as 1ZT).
+ */
+describe('repairOcrWord', () => {
+  it.each([
+    ['=1.7', '-1.7'],
+    ['—0.57', '-0.57'],
+    ['2:52', '2.52'],
+    ['0;25', '0.25'],
+    ['2:57.', '2.57'],
+    ['(Q)', '(Ω)'],
+    ['(kQ)', '(kΩ)'],
+    ['(HA)', '(µA)'],
+    ['(pA)', '(µA)'],
+    ['[pA]', '[µA]'],
+    ['[Q]', '[Ω]'],
+    ['10HA', '10µA'],
+    ['25Q', '25Ω'],
+    ['(Vv)', '(V)'],
+    ['1ZT', 'IZT'],
+    ['1IZT', 'IZT'],
+    ['lZK', 'IZK'],
+    ['aVvVZ', 'αVZ'],
+    ['BRZ05-2Vv7', 'BRZ05-2V7'],
+    ['BRZ05-2v4', 'BRZ05-2V4'],
+    ['SOD-123', 'SOD-123'],
+    ['150', '150'],
+  ])('%s → %s', (raw, fixed) => {
+    expect(repairOcrWord(raw)).toBe(fixed);
+  });
+
+  it.each(['234]', '3:1]', '1.2|3'])('does not trust a number with stray marks: %s', (raw) => {
+    expect(repairOcrWord(raw)).toBeUndefined();
+  });
+});
+
+describe('ocrItems', () => {
+  const word = (text: string, x0: number, confidence = 95) => ({ text, confidence, x0, y0: 0, x1: x0 + 60, y1: 30 });
+  // A line tilted by 1°: its baseline climbs 35 px over 2000 px (tan 1° ≈ 0.01746).
+  const tilted = (y: number, words: OcrLine['words']): OcrLine => ({ baseline: { x0: 200, y0: y, x1: 2200, y1: y + 34.9 }, rowHeight: 33, words });
+  const geometry = { scale: 300 / 72, widthPx: 2480, heightPx: 3508, pageHeight: 841.89 };
+
+  it('measures the skew from the long baselines', () => {
+    expect(skewOf([tilted(500, []), tilted(600, [])], 500)).toBeCloseTo((1 * Math.PI) / 180, 3);
+  });
+
+  it('puts a tilted row back on one baseline in PDF points and keeps its columns in line with the next row', () => {
+    const items = ocrItems([tilted(500, [word('BRZ05-5V1', 200), word('5.1', 1000), word('5', 2000)]), tilted(550, [word('BRZ05-5V6', 200), word('5.6', 1000)])], geometry);
+    const row1 = items.slice(0, 3);
+    expect(new Set(row1.map((i) => i.y)).size).toBe(1);
+    expect(row1[0].y).toBeGreaterThan(items[3].y);
+    // 1000 px at 300 dpi is 240 pt (72 pt per inch); both rows' 5.x cells stay within a point of each other.
+    expect(Math.abs(items[1].x - items[4].x)).toBeLessThan(1);
+    expect(items[0].height).toBeCloseTo(33 / (300 / 72), 1);
+  });
+
+  it('leaves out unsure numbers but keeps unsure header units and symbols, repaired', () => {
+    const items = ocrItems([tilted(500, [word('(Q)', 200, 30), word('1ZT', 400, 20), word('5.1', 600, 60), word('Type', 800, 30)])], geometry);
+    expect(items.map((i) => i.str)).toEqual(['(Ω)', 'IZT']);
+  });
+});
+
+describe('plausibility of OCR voltages', () => {
+  const v = (si: number) => ({ value: String(si), unit: 'V', si, page: 1, text: '', ocr: true });
+
+  it('reads the voltage code of a part number (5V1 = 5.1 V, common practice for regulator diodes, no source)', () => {
+    expect(codedVoltage('BRZ05-5V1')).toBe(5.1);
+    expect(codedVoltage('NMZ-03V6')).toBe(3.6);
+    expect(codedVoltage('QHZ4V7A')).toBe(4.7);
+    expect(codedVoltage('LVD1-033')).toBeUndefined();
+  });
+
+  it('drops a VZ that lost its decimal point, a VR above VZ and an out-of-order VZ set', () => {
+    expect(implausibleVoltages('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(51), vzMax: v(5.36) })).toEqual(['vzNom']);
+    expect(implausibleVoltages('BRZ05-7V5', { vzNom: v(7.5), vr: v(53) })).toEqual(['vr']);
+    expect(implausibleVoltages('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
+    expect(implausibleVoltages('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), vr: v(2) })).toEqual([]);
+  });
+
+  it('drops a temperature coefficient beyond ±0.15 %/K of VZ', () => {
+    const tc = (si: number) => ({ value: '', unit: 'mV/°C', si, page: 1, text: '', ocr: true });
+    expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
+    expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
+  });
+});

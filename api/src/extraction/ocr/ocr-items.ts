@@ -1,0 +1,120 @@
+import type { PdfTextItem } from '../pdf-text';
+import { unitKind } from '../quantity-text';
+import type { OcrLine } from './ocr-engine';
+
+/**
+ * OCR words → the text items the text extractor reads (PDF points, baseline, origin
+ * bottom-left), so one extractor serves text PDFs and scans alike. The scan's skew is taken
+ * out, words the engine was unsure of are left out (no value rather than a doubtful one),
+ * and the usual misreadings of the English model are repaired from context: it has no µ and
+ * no Ω, reads a minus sign as '=', a decimal point as ':' and the I of IZT as a 1.
+ */
+
+/** Numbers below this confidence (0–100) are dropped: a blank cell beats a wrong number. */
+export const MIN_NUMBER_CONFIDENCE = 80;
+/** Other words (labels, units, part numbers) are repaired from context and kept down to this. */
+export const MIN_WORD_CONFIDENCE = 45;
+
+/** A number as a cell holds it, possibly signed. */
+const NUMBER = /^[+\-−]?\d+(?:\.\d+)?$/;
+
+/**
+ * One word, repaired; undefined when it cannot be trusted (a number with stray marks in it).
+ * Exported for its unit spec.
+ */
+export function repairOcrWord(raw: string): string | undefined {
+  let w = raw.trim();
+  if (!w) return undefined;
+  // Minus signs: the model has '−' as '=', '—', '–', '~' or '-' before a number.
+  w = w.replace(/^[=—–~](?=\d)/, '-');
+  // A decimal point read as ':' ';' or ',' between digits (datasheets print points, not commas).
+  w = w.replace(/(\d)[:;,](?=\d)/g, '$1.');
+  // A full stop or colon left hanging after a number at the end of a cell.
+  if (/^[+\-−]?\d+(?:\.\d+)?[.:;,]$/.test(w)) w = w.slice(0, -1);
+  // Units the model cannot spell: µ comes out as H, p, u, y or W before A; Ω as Q (or 0, 2
+  // inside brackets). Only where the shape leaves no doubt: a bracketed header unit or a
+  // unit glued to a number.
+  w = w.replace(/^([([])([HpuyW]|µ|μ)A([)\]])$/, '$1µA$3').replace(/^([([])([kKmM]?)[QO02]([)\]])$/, '$1$2Ω$3');
+  w = w.replace(/^(\d+(?:\.\d+)?)([HyW])A$/, '$1µA').replace(/^(\d+(?:\.\d+)?)([kK]?)Q$/, '$1$2Ω');
+  // A lone pA is µA too: regulator-diode leakage is specified in µA or nA, never pA (common practice, no source).
+  if (/^[HypW]A$/.test(w)) w = 'µA';
+  if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
+  w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)').replace(/^\[Vv\]$|^\[v\]$/, '[V]');
+  // Symbols: I read as 1 or l before Z; α before VZ read as a.
+  w = w.replace(/^[1lI|]{1,2}Z([TKM])/, 'IZ$1').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
+  // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
+  w = w.replace(/(\d)[Vv]{1,2}(?=\d)/g, '$1V');
+  // A token that starts like a number but carries other marks (234], 1:, 5:7.) is not trusted.
+  if (/^[+\-−]?\d/.test(w) && !NUMBER.test(w) && /[^\w.%/°µΩ()\-−+]/.test(w)) return undefined;
+  return w;
+}
+
+/** Column symbols of regulator-diode tables. */
+const SYMBOL = /^(?:IZ[TKM]|ZZ[TK]|VZ|IR|VR|αVZ)$/;
+
+export interface PageGeometry {
+  /** Pixels per PDF point of the rendered image. */
+  scale: number;
+  /** Image size, pixels. */
+  widthPx: number;
+  heightPx: number;
+  /** Page height in points (to flip y). */
+  pageHeight: number;
+}
+
+/** The page's skew, radians: the median slope of the longer baselines. */
+export function skewOf(lines: OcrLine[], minLengthPx: number): number {
+  const slopes = lines
+    .map((l) => l.baseline)
+    .filter((b) => b.x1 - b.x0 >= minLengthPx)
+    .map((b) => Math.atan2(b.y1 - b.y0, b.x1 - b.x0))
+    .sort((a, b) => a - b);
+  if (!slopes.length) return 0;
+  return slopes[Math.floor(slopes.length / 2)];
+}
+
+export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
+  const angle = skewOf(lines, g.widthPx / 4);
+  const cos = Math.cos(-angle);
+  const sin = Math.sin(-angle);
+  const cx = g.widthPx / 2;
+  const cy = g.heightPx / 2;
+  // Rotates an image point by −skew about the image centre.
+  const unskew = (x: number, y: number) => ({ x: cx + (x - cx) * cos - (y - cy) * sin, y: cy + (x - cx) * sin + (y - cy) * cos });
+  const items: PdfTextItem[] = [];
+  for (const line of lines) {
+    const b = line.baseline;
+    const start = unskew(b.x0, b.y0);
+    const size = Math.max(1, line.rowHeight / g.scale);
+    for (const word of line.words) {
+      const text = repairOcrWord(word.text);
+      if (!text) continue;
+      // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
+      const unit = /^[([]([^()[\]]+)[)\]]$/.exec(text);
+      // Except a current unit read as printed but unsure: µA and nA differ by one stroke, and a
+      // wrong prefix makes every value of the column 1000 times off.
+      const unsureCurrent = unit && unitKind(unit[1]) === 'current' && text === word.text.trim() && word.confidence < MIN_NUMBER_CONFIDENCE;
+      if (unsureCurrent) continue;
+      const known = (unit && unitKind(unit[1]) !== undefined) || SYMBOL.test(text);
+      // Anything that starts with a number (also "4.7V", glued) is held to the number threshold.
+      const numeric = /^[+\-−]?\.?\d/.test(text);
+      if (!known && word.confidence < (numeric ? MIN_NUMBER_CONFIDENCE : MIN_WORD_CONFIDENCE)) continue;
+      // The word's baseline point on the line's own baseline, then un-skewed.
+      const t = b.x1 > b.x0 ? (word.x0 - b.x0) / (b.x1 - b.x0) : 0;
+      const p = unskew(word.x0, b.y0 + t * (b.y1 - b.y0));
+      items.push({
+        str: text,
+        x: round(p.x / g.scale),
+        // One baseline for the whole OCR line, so a row stays one row after the skew is removed.
+        y: round(g.pageHeight - start.y / g.scale),
+        width: round((word.x1 - word.x0) / g.scale),
+        height: round(size),
+      });
+    }
+  }
+  return items;
+}
+
+function round(x: number): number {
+  return Math.round(x * 100) / 100;
+}

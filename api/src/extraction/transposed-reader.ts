@@ -1,0 +1,129 @@
+import type { ExtractionField } from '@shuntwise/contracts';
+import { fieldFor, findConditions, isPackageHeader } from './field-patterns';
+import { findPackage, isPartNumber } from './part-numbers';
+import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
+import { Cell, cellBox, Line } from './text-layout';
+import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
+
+/**
+ * Transposed series tables: part numbers across the top as columns, one characteristic per
+ * row ("Zener voltage, nom at IZT = 5 mA (V) | VZ | 4.7 | 5.1 | 5.6"). Each row is recognised
+ * like a column header of an ordinary table, by its words and the dimension of its unit; a
+ * condition in the row label ("at IZT = 5 mA") belongs to every part of the row.
+ */
+
+interface PartColumn {
+  mpn: string;
+  x0: number;
+  x1: number;
+  order: number;
+}
+
+const centre = (c: { x0: number; x1: number }) => (c.x0 + c.x1) / 2;
+
+/** A line that names two or more parts side by side, after a label column: the top of a transposed table. */
+export function partColumns(line: Line): PartColumn[] | undefined {
+  const parts = line.cells.filter((c) => isPartNumber(c.text));
+  if (parts.length < 2) return undefined;
+  // Most of the line must be part numbers: a sentence naming two parts is no table header.
+  const others = line.cells.filter((c) => !isPartNumber(c.text));
+  if (others.length > 3 || others.some((c) => c.x0 > parts[0].x0)) return undefined;
+  return parts.map((c, i) => ({ mpn: c.text, x0: c.x0, x1: c.x1, order: orderOf(line.page, line.index) + i / 100 }));
+}
+
+function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
+  const pitch = cols.length > 1 ? (centre(cols[cols.length - 1]) - centre(cols[0])) / (cols.length - 1) : 40;
+  let best: PartColumn | undefined;
+  let distance = Infinity;
+  for (const c of cols) {
+    const d = Math.abs(centre(c) - centre(cell));
+    if (d < distance) {
+      best = c;
+      distance = d;
+    }
+  }
+  return distance < 0.45 * pitch ? best : undefined;
+}
+
+export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, used: Set<Line>, warnings: string[]): void {
+  for (const lines of pages) {
+    let cols: PartColumn[] | undefined;
+    let misses = 0;
+    for (const line of lines) {
+      if (used.has(line)) continue;
+      const top = partColumns(line);
+      if (top) {
+        cols = top;
+        misses = 0;
+        used.add(line);
+        continue;
+      }
+      if (!cols) continue;
+      if (!readRow(line, cols, drafts, warnings)) {
+        // A table ends after two lines that are not rows of it.
+        if (++misses >= 2) cols = undefined;
+        continue;
+      }
+      misses = 0;
+      used.add(line);
+    }
+  }
+}
+
+function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings: string[]): boolean {
+  const first = cols[0].x0 - 0.3 * (cols[1].x0 - cols[0].x0);
+  const label = line.cells.filter((c) => c.x1 <= first + 2);
+  const values = new Map<PartColumn, Cell>();
+  let unitCell: string | undefined;
+  for (const c of line.cells) {
+    if (label.includes(c)) continue;
+    if (isUnitOnly(c.text) && centre(c) > centre(cols[cols.length - 1])) {
+      unitCell = c.text.trim();
+      continue;
+    }
+    const col = columnOf(cols, c);
+    if (col && !values.has(col)) values.set(col, c);
+  }
+  const numeric = [...values.values()].filter((c) => isNumericCell(c.text.replace(/\s*\[\d+\]\s*$/, ''))).length;
+  const packages = [...values.values()].filter((c) => findPackage(c.text)).length;
+  if (label.length === 0 || (numeric < Math.min(2, cols.length) && packages < Math.min(2, cols.length))) return false;
+  const labelText = label.map((c) => c.text).join(' ');
+  if (isPackageHeader(labelText) && label.length <= 2) {
+    for (const col of cols) {
+      const cell = values.get(col);
+      const found = cell ? findPackage(cell.text) : undefined;
+      if (cell && found) drafts.get(col.mpn, col.order).offerPackage({ value: found.value, page: line.page, text: line.printed, box: cellBox(cell), rank: 3 });
+    }
+    return true;
+  }
+  const { rest } = findConditions(labelText);
+  const unit = unitCell ?? headerUnit(rest) ?? findQuantities([...values.values()][0]?.text ?? '')[0]?.unit;
+  const kind = unit ? unitKind(unit) : undefined;
+  const match = fieldFor(rest, kind);
+  if (!match || (match.field === 'tc' && match.rank === 0) || match.qualifier === 'typ' && match.field !== 'tc') return true;
+  const field: ExtractionField = match.field;
+  const conditions = findConditions(labelText, field).conditions;
+  for (const col of cols) {
+    const cell = values.get(col);
+    if (!cell || isEmptyCell(cell.text)) continue;
+    const q = findQuantities(findConditions(cell.text, field).rest)[0];
+    if (!q) continue;
+    const u = q.unit || unit || '';
+    const k = u ? unitKind(u) : undefined;
+    if (!k || !FIELD_KINDS[field].includes(k)) {
+      warnings.push(`${col.mpn}: "${cell.text}" in the row "${labelText}" on page ${line.page} has no usable unit for ${field}; left empty.`);
+      continue;
+    }
+    const si = toSi(q.value, u, k);
+    if (si === undefined) continue;
+    const draft = drafts.get(col.mpn, col.order);
+    draft.offer(field, { value: q.value, unit: u, kind: k, si, page: line.page, text: line.printed, box: cellBox(cell), rank: 3, method: 'table' });
+    for (const cond of conditions) {
+      const cs = toSi(cond.value, cond.unit, cond.kind);
+      if (cs !== undefined) {
+        draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si: cs, page: line.page, text: line.printed, box: cellBox(label[0]), rank: 1, method: 'table' });
+      }
+    }
+  }
+  return true;
+}

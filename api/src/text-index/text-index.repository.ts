@@ -1,0 +1,167 @@
+import { Injectable } from '@nestjs/common';
+import { InjectConnection } from '@nestjs/sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { grams, indexRowsOf, TEXT_KINDS, type TextKind } from './text-grams';
+
+/** An SQL fragment with its replacements, in order. */
+export interface SqlPart {
+  sql: string;
+  params: unknown[];
+}
+
+/**
+ * A piece found in more records than this is too common to narrow by (a shared prefix such
+ * as a vendor's "ZX0"): the scored match skips it rather than read its whole posting list.
+ */
+export const COMMON_PIECE = 5000;
+/** How long a piece's (capped) record count is reused: it only decides which pieces narrow, never what matches. */
+const FREQUENCY_TTL_MS = 60_000;
+const FREQUENCY_CACHE_LIMIT = 20_000;
+/** The most records one source of matches (part numbers, house parts) hands on before the filters. */
+const BRANCH_LIMIT = 2000;
+
+/** Escapes LIKE wildcards so a typed "%" or "_" matches itself. */
+function likePrefix(text: string): string {
+  return `${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+const list = (n: number) => Array.from({ length: n }, () => '?').join(', ');
+
+/**
+ * The text index (text_grams): written with each vendor part, house part and manufacturer in
+ * the caller's transaction, and read as SQL fragments the list and search queries embed, so
+ * text narrows in the same statement as the other filters.
+ */
+@Injectable()
+export class TextIndexRepository {
+  private readonly frequencies = new Map<string, { n: number; at: number }>();
+
+  constructor(@InjectConnection() private readonly sequelize: Sequelize) {}
+
+  /** Rewrites one record's pieces inside the caller's transaction (it must be the one that writes the record). */
+  async write(kind: TextKind, id: number, texts: ReadonlyArray<string | null | undefined>, transaction: Transaction): Promise<void> {
+    await this.sequelize.query('DELETE FROM text_grams WHERE kind = ? AND entity_id = ?', { replacements: [TEXT_KINDS[kind], id], type: QueryTypes.DELETE, transaction });
+    await this.insertRows(indexRowsOf(kind, id, texts), transaction);
+  }
+
+  /** Adds the pieces of many new records at once (bulk loads); the records must not be indexed yet. */
+  async writeNew(kind: TextKind, records: ReadonlyArray<{ id: number; texts: ReadonlyArray<string | null | undefined> }>, transaction?: Transaction): Promise<void> {
+    await this.insertRows(
+      records.flatMap((r) => indexRowsOf(kind, r.id, r.texts)),
+      transaction,
+    );
+  }
+
+  private async insertRows(rows: Array<[number, string, number]>, transaction?: Transaction): Promise<void> {
+    for (let i = 0; i < rows.length; i += 3000) {
+      const chunk = rows.slice(i, i + 3000);
+      await this.sequelize.query(`INSERT IGNORE INTO text_grams (kind, gram, entity_id) VALUES ${chunk.map(() => '(?, ?, ?)').join(', ')}`, {
+        replacements: chunk.flat(),
+        type: QueryTypes.INSERT,
+        transaction,
+      });
+    }
+  }
+
+  /**
+   * Ids (one column, `entity_id`) of the records whose names contain the text: every piece of
+   * it is among theirs. Null when the text has fewer than three characters to index.
+   */
+  containing(kind: TextKind, text: string): SqlPart | null {
+    const pieces = grams(text);
+    if (pieces.length === 0) return null;
+    return {
+      sql: `SELECT entity_id FROM text_grams WHERE kind = ? AND gram IN (${list(pieces.length)}) GROUP BY entity_id HAVING COUNT(*) = ?`,
+      params: [TEXT_KINDS[kind], ...pieces, pieces.length],
+    };
+  }
+
+  /**
+   * The condition the house-part lists (Board, Sources, House parts, pickers) filter by: the
+   * text is inside the part number or description, or inside the part number of one of its
+   * sources. Shorter than three characters: a prefix of those part numbers (index ranges).
+   */
+  housePartCondition(alias: string, text: string): SqlPart {
+    const own = this.containing('housePart', text);
+    const sourced = this.containing('vendorPart', text);
+    if (own && sourced) {
+      return {
+        sql: `(${alias}.id IN (${own.sql}) OR ${alias}.id IN (SELECT s.house_part_id FROM house_part_sources s WHERE s.vendor_part_id IN (${sourced.sql})))`,
+        params: [...own.params, ...sourced.params],
+      };
+    }
+    const short = text.trim();
+    return {
+      sql: `(${alias}.part_number LIKE ? OR ${alias}.id IN (SELECT s.house_part_id FROM house_part_sources s JOIN vendor_parts sv ON sv.id = s.vendor_part_id WHERE sv.mpn LIKE ?))`,
+      params: [likePrefix(short), likePrefix(short)],
+    };
+  }
+
+  /** The condition of the vendor-part list: the text is inside the part number or the manufacturer's name (a prefix of them when short). */
+  vendorPartCondition(alias: string, text: string): SqlPart {
+    const own = this.containing('vendorPart', text);
+    const maker = this.containing('manufacturer', text);
+    if (own && maker) return { sql: `(${alias}.id IN (${own.sql}) OR ${alias}.manufacturer_id IN (${maker.sql}))`, params: [...own.params, ...maker.params] };
+    return { sql: `(${alias}.mpn LIKE ? OR ${alias}.manufacturer_name LIKE ?)`, params: [likePrefix(text.trim()), likePrefix(text.trim())] };
+  }
+
+  /**
+   * Vendor parts whose names share the most pieces with the text, as a derived table
+   * `(id, score)` with score in 0..1 (the share of the usable pieces found): through their
+   * own part number, a house part they are a source of (number or description), or their
+   * manufacturer's name. A record needs a third of the usable pieces, so a typo or two
+   * swapped letters still match; the best few hundred go on to the fuzzy ranking. Null when the text has no usable piece (too short, or every piece too common).
+   */
+  async scoredVendorParts(text: string): Promise<SqlPart | null> {
+    const pieces = grams(text);
+    if (pieces.length === 0) return null;
+    const branches: string[] = [];
+    const params: unknown[] = [];
+    for (const kind of ['vendorPart', 'housePart', 'manufacturer'] as const) {
+      const counts = await this.pieceCounts(kind, pieces);
+      const usable = pieces.filter((p) => (counts.get(p) ?? 0) <= COMMON_PIECE);
+      if (usable.length === 0) continue;
+      // A third of the pieces: a typo costs up to three, two swapped letters four of a short part number's five.
+      const required = Math.max(1, Math.ceil(usable.length / 3));
+      const hits = `SELECT entity_id, COUNT(*) / ? AS score FROM text_grams WHERE kind = ? AND gram IN (${list(usable.length)}) GROUP BY entity_id HAVING COUNT(*) >= ?`;
+      params.push(usable.length, TEXT_KINDS[kind], ...usable, required);
+      // Each branch keeps its best records only, so a word many names share (an "invented" in
+      // every description) cannot pull in the whole catalogue: the closest parts of a part
+      // number, the closest house parts, and only the manufacturers that match best.
+      if (kind === 'vendorPart') branches.push(`SELECT entity_id AS id, score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
+      if (kind === 'housePart') branches.push(`SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`);
+      if (kind === 'manufacturer') {
+        branches.push(
+          `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
+           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id`,
+        );
+      }
+    }
+    if (branches.length === 0) return null;
+    return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id`, params };
+  }
+
+  /** How many records of a kind hold each piece, capped just above COMMON_PIECE; reused for a minute. */
+  private async pieceCounts(kind: TextKind, pieces: string[]): Promise<Map<string, number>> {
+    const now = Date.now();
+    const out = new Map<string, number>();
+    const missing: string[] = [];
+    for (const p of pieces) {
+      const hit = this.frequencies.get(`${kind}:${p}`);
+      if (hit && now - hit.at < FREQUENCY_TTL_MS) out.set(p, hit.n);
+      else missing.push(p);
+    }
+    if (missing.length === 0) return out;
+    const rows = await this.sequelize.query<{ gram: string; n: number | bigint }>(
+      missing.map(() => `SELECT ? AS gram, COUNT(*) AS n FROM (SELECT 1 FROM text_grams WHERE kind = ? AND gram = ? LIMIT ${COMMON_PIECE + 1}) c`).join(' UNION ALL '),
+      { replacements: missing.flatMap((p) => [p, TEXT_KINDS[kind], p]), type: QueryTypes.SELECT },
+    );
+    if (this.frequencies.size > FREQUENCY_CACHE_LIMIT) this.frequencies.clear();
+    for (const r of rows) {
+      out.set(r.gram, Number(r.n));
+      this.frequencies.set(`${kind}:${r.gram}`, { n: Number(r.n), at: now });
+    }
+    return out;
+  }
+}

@@ -1,0 +1,115 @@
+import type { HousePartPage, SearchPage, SourcesView, VendorPartPage } from '@shuntwise/contracts';
+import { QueryTypes } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import { HousePartsRepository } from '../src/house-parts/house-parts.repository';
+import { VendorPartsRepository } from '../src/vendor-parts/vendor-parts.repository';
+import { createVendorPart } from './helpers/catalogue-fixtures';
+import { createTestApp, type TestApp } from './helpers/test-app';
+
+/**
+ * The n-gram text index (text_grams) on the real MariaDB with the demo seed: written in the
+ * transaction of the record it indexes, and serving substring part-number search on every
+ * list that takes `q`.
+ */
+describe('text index (real MariaDB, demo seed)', () => {
+  let t: TestApp;
+  let engineer: string;
+  let designer: string;
+  let buyer: string;
+  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+  const get = async <T>(path: string, token = engineer): Promise<T> => {
+    const res = await t.http.get(path).set(auth(token));
+    expect(res.status).toBe(200);
+    return res.body as T;
+  };
+  const gramsOf = async (kind: number, id: number) => Number((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM text_grams WHERE kind = ? AND entity_id = ?', [kind, id]))[0].n);
+
+  beforeAll(async () => {
+    t = await createTestApp({ seed: 'demo' });
+    [engineer, designer, buyer] = await Promise.all([t.tokenFor('engineer@demo.test'), t.tokenFor('designer'), t.tokenFor('buyer')]);
+  });
+  afterAll(() => t.close());
+
+  it('indexes every seeded part, and a rolled-back write leaves no index rows', async () => {
+    const [{ unindexed }] = await t.select<{ unindexed: number }>('SELECT COUNT(*) AS unindexed FROM vendor_parts vp WHERE NOT EXISTS (SELECT 1 FROM text_grams g WHERE g.kind = 1 AND g.entity_id = vp.id)');
+    expect(Number(unindexed)).toBe(0);
+    const sequelize = t.stack.app.get(Sequelize);
+    const houseParts = t.stack.app.get(HousePartsRepository);
+    const vendorParts = t.stack.app.get(VendorPartsRepository);
+    let housePartId = 0;
+    let vendorPartId = 0;
+    let insideTransaction = 0;
+    await expect(
+      sequelize.transaction(async (transaction) => {
+        const part = await houseParts.create({ partNumber: 'OHI-RB-7777', description: 'rolled back', status: 'draft', createdById: null }, transaction);
+        housePartId = part.id;
+        const maker = await vendorParts.findOrCreateManufacturer('Rollback Invented Devices', transaction);
+        const vp = await vendorParts.create({ manufacturer: maker, mpn: 'RBZ-7V7', package: null, lifecycleNote: null, createdById: null }, transaction);
+        vendorPartId = vp.id;
+        const [{ n }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM text_grams WHERE (kind = 2 AND entity_id = ?) OR (kind = 1 AND entity_id = ?)', {
+          replacements: [housePartId, vendorPartId],
+          type: QueryTypes.SELECT,
+          transaction,
+        });
+        insideTransaction = Number(n);
+        throw new Error('roll back');
+      }),
+    ).rejects.toThrow('roll back');
+    expect(insideTransaction).toBeGreaterThan(0);
+    expect(await gramsOf(2, housePartId)).toBe(0);
+    expect(await gramsOf(1, vendorPartId)).toBe(0);
+    expect(await t.select("SELECT id FROM manufacturers WHERE name = 'Rollback Invented Devices'")).toEqual([]);
+    expect((await get<HousePartPage>('/api/house-parts?q=RB-7777')).total).toBe(0);
+  });
+
+  it('finds house parts by any part of their number on House parts, Board and Sources', async () => {
+    const houseList = await get<HousePartPage>('/api/house-parts?q=1051');
+    expect(houseList.items.map((h) => h.partNumber)).toEqual(['OHI-ZD-1051']);
+    // other case and separators left out
+    expect((await get<HousePartPage>('/api/house-parts?q=zd1051')).items.map((h) => h.partNumber)).toEqual(['OHI-ZD-1051']);
+    const board = await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualifications/board?q=1051');
+    expect(board.items.map((r) => r.housePart.partNumber)).toEqual(['OHI-ZD-1051']);
+    const sources = await get<SourcesView>('/api/qualifications/sources?q=1051', buyer);
+    expect(sources.items.map((r) => r.housePart.partNumber)).toEqual(['OHI-ZD-1051']);
+  });
+
+  it('finds house parts whose sources carry the text in their part number (5V1), and vendor parts by any part of theirs', async () => {
+    const withSource = await t.select<{ partNumber: string }>(
+      `SELECT DISTINCT h.part_number AS partNumber FROM house_parts h JOIN house_part_sources s ON s.house_part_id = h.id JOIN vendor_parts vp ON vp.id = s.vendor_part_id
+       WHERE vp.mpn LIKE '%5V1%' OR h.part_number LIKE '%5V1%' OR h.description LIKE '%5V1%' OR REPLACE(h.description, '.', '') LIKE '%5V1%' ORDER BY h.part_number`,
+    );
+    expect(withSource.length).toBeGreaterThan(0);
+    const found = (await get<HousePartPage>('/api/house-parts?q=5V1&pageSize=100')).items.map((h) => h.partNumber);
+    for (const { partNumber } of withSource) expect(found).toContain(partNumber);
+    const board = (await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualifications/board?q=5v1&pageSize=100')).items.map((r) => r.housePart.partNumber);
+    expect(board.sort()).toEqual([...found].sort());
+
+    const expected = (await t.select<{ mpn: string }>("SELECT mpn FROM vendor_parts WHERE mpn LIKE '%5V1%' ORDER BY mpn")).map((r) => r.mpn);
+    expect(expected).toEqual(expect.arrayContaining(['BRZ05-5V1', 'QHZ5V1AF']));
+    const vendorList = (await get<VendorPartPage>('/api/vendor-parts?q=5V1&pageSize=100')).items.map((v) => v.mpn).sort();
+    expect(vendorList).toEqual(expected);
+  });
+
+  it('finds parts in the designers\' search by a middle part of their number or of a house part they serve', async () => {
+    const byHousePart = await get<SearchPage>('/api/search?q=1051', designer);
+    expect(byHousePart.text.mode).toBe('fuzzy');
+    const sources = await get<SourcesView>('/api/qualifications/sources?q=OHI-ZD-1051', buyer);
+    const usable = sources.items[0].sources
+      .filter((s) => s.standing === 'cleared' || s.standing === 'cleared-with-conditions' || (s.role === 'approved' && !['rejected', 'revoked'].includes(s.standing)))
+      .map((s) => s.vendorPart.mpn);
+    expect(usable.length).toBeGreaterThan(0);
+    expect(byHousePart.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(usable));
+    const middle = await get<SearchPage>('/api/search?q=5V1&includeNotCleared=true&pageSize=50', designer);
+    expect(middle.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(['BRZ05-5V1', 'QHZ5V1AF']));
+  });
+
+  it('moves a renamed part in the index: the old number no longer finds it, the new one does', async () => {
+    const id = await createVendorPart(t.http, engineer, { manufacturer: 'Index Invented Semis', mpn: 'IXZ-4242' });
+    expect((await get<VendorPartPage>('/api/vendor-parts?q=4242')).items.map((v) => v.id)).toEqual([id]);
+    expect((await t.http.patch(`/api/vendor-parts/${id}`).set(auth(engineer)).send({ mpn: 'IXZ-9393' })).status).toBe(200);
+    expect((await get<VendorPartPage>('/api/vendor-parts?q=4242')).total).toBe(0);
+    expect((await get<VendorPartPage>('/api/vendor-parts?q=9393')).items.map((v) => v.id)).toEqual([id]);
+    // the new manufacturer is indexed too
+    expect((await get<VendorPartPage>('/api/vendor-parts?q=invented semis')).items.map((v) => v.id)).toEqual([id]);
+  });
+});
