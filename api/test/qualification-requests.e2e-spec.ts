@@ -230,7 +230,7 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     const message = await mailed(`Your request #${req.body.id} was taken up: case #${caseId} (${pair})`);
     expect(message.recipients).toEqual(['designer@demo.test']);
     expect(message.body).toContain(`Priya Raman opened case #${caseId} to qualify Fennick Semiconductor FR-`);
-    expect(message.body).toContain(`Case: /qualifications/${caseId}`);
+    expect(message.body).toMatch(new RegExp(`Case: http://[^/\\s]+/qualifications/${caseId}\\b`)); // links are absolute
     expect(message.body).toContain('Your request: Reference for the 4-20 mA loop driver');
     const secondMail = await mailed(`Your request #${alsoAsked.body.id} was taken up: case #${caseId} (${pair})`);
     expect(secondMail.recipients).toEqual(['second.designer@demo.test']);

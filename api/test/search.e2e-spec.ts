@@ -223,7 +223,7 @@ describe('search (real MariaDB, demo seed)', () => {
       expect(res.body.correlationId).toEqual(expect.any(String));
       expect(res.body.errors).toEqual(expect.arrayContaining([expect.objectContaining({ path, message: expect.stringMatching(pattern) })]));
     };
-    await bad('vzFrom=6&vzTo=5', 'vzFrom', /above vzTo/);
+    await bad('vzFrom=6&vzTo=5', 'vzFrom', /above VZ to/);
     await bad('sort=zzt', 'sort', /cannot sort by "zzt"/);
     await bad('vzWindow=true', 'vzWindow', /needs vzFrom or vzTo/);
     await bad('housePartId=3&includeNotCleared=true', 'includeNotCleared', /cannot be combined/);

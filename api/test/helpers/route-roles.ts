@@ -24,11 +24,15 @@ export const ROUTE_ROLES: Readonly<Record<string, Access>> = {
   'GET /api/auth/invitations/:token': 'public',
   'POST /api/auth/invitations/accept': 'public',
   'GET /api/health': 'public',
+  'GET /api/health/ready': 'public',
+  'GET /api/health/live': 'public',
 
   // administration
   'GET /api/users': ['admin'],
   'GET /api/users/invitations': ['admin'],
   'POST /api/users/invitations': ['admin'],
+  'POST /api/users/invitations/:id/resend': ['admin'],
+  'POST /api/users/invitations/:id/revoke': ['admin'],
   'PATCH /api/users/:id': ['admin'],
   'GET /api/outbox': ['admin'],
 
