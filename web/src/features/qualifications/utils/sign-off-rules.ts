@@ -13,7 +13,7 @@ export interface Viewer {
 }
 
 /** The order the panel offers actions in: the decision first, then the way out. */
-const ORDER: readonly QualificationAction[] = ['submit', 'evaluate', 'approve', 'clear', 'clear-with-conditions', 'reject', 'send-back', 'withdraw', 'revoke', 'recheck'];
+const ORDER: readonly QualificationAction[] = ['submit', 'evaluate', 'approve', 'clear', 'clear-with-conditions', 'clear-with-waiver', 'reject', 'send-back', 'withdraw', 'revoke', 'recheck'];
 
 /** True when the evaluation is on the spec and card the catalogue holds now, and nothing flagged it. */
 export function isEvaluationCurrent(q: Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>): boolean {
@@ -28,15 +28,18 @@ type OfferFacts = Pick<Qualification, 'state' | 'preparedBy' | 'overall' | 'next
  * their own case, stale evaluations and verdicts rule out what they rule out. The server's
  * list is applied too; this keeps a button from being offered at all.
  */
-export function mayOffer(action: QualificationAction, q: OfferFacts, viewer: Viewer): boolean {
+export function mayOffer(action: QualificationAction, q: OfferFacts, viewer: Viewer, waivers?: { gaps: readonly never[]; inForce: number }): boolean {
   const fresh = q.current && q.specVersion !== undefined && q.cardVersion !== undefined ? isEvaluationFresh({ needsRecheck: q.needsRecheck ?? false, specVersion: q.specVersion, cardVersion: q.cardVersion }, q.current) : true;
   // The state of a newer revision is the server's to know: its list decides revoke.
-  return actionBlock(action, { state: q.state, preparedById: q.preparedBy.id, overall: q.overall, fresh, nextId: q.nextId, nextState: undefined }, viewer) === null;
+  return actionBlock(action, { state: q.state, preparedById: q.preparedBy.id, overall: q.overall, fresh, nextId: q.nextId, nextState: undefined, waivers }, viewer) === null;
 }
 
 /** The actions to show as buttons: what the server allows now, within the same rule, in a fixed order. */
 export function offeredActions(q: OfferFacts & Pick<Qualification, 'allowedActions'>, viewer: Viewer): QualificationAction[] {
-  return ORDER.filter((a) => q.allowedActions.includes(a) && mayOffer(a, q, viewer));
+  // Which waivers are in force is the server's to know (it keeps them and the date): when it lists
+  // clear-with-waiver, every failing check is covered; the rest of the rule still applies here.
+  const waivers = q.allowedActions.includes('clear-with-waiver') ? { gaps: [] as never[], inForce: 1 } : undefined;
+  return ORDER.filter((a) => q.allowedActions.includes(a) && mayOffer(a, q, viewer, waivers));
 }
 
 /**
