@@ -168,13 +168,14 @@ describe('faults (own MariaDB, loopback)', () => {
     const list = await t.http.get('/api/qualifications?state=in-review').set({ Authorization: `Bearer ${reviewer}` });
     expect(list.status).toBe(200);
     const id = list.body.items[0].id as number;
+    const version = (await t.http.get(`/api/qualifications/${id}`).set({ Authorization: `Bearer ${reviewer}` })).body.version as number;
 
     await t.stack.stopSmtp();
     const [{ decidedAt }] = await t.select<{ decidedAt: Date }>('SELECT NOW() AS decidedAt');
     let decided;
     let waiting;
     try {
-      decided = await t.http.post(`/api/qualifications/${id}/clear`).set({ Authorization: `Bearer ${reviewer}` }).send({ note: 'Cleared while the mail server was away.' });
+      decided = await t.http.post(`/api/qualifications/${id}/clear`).set({ Authorization: `Bearer ${reviewer}` }).send({ version, note: 'Cleared while the mail server was away.' });
       expect(decided.status).toBe(200);
       // the outbox keeps the message and has tried the mail server (and failed) since the decision
       waiting = await eventually(async () => {

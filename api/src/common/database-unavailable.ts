@@ -56,3 +56,13 @@ export function isTransactionConflict(error: unknown): boolean {
   const e = driver as { code?: unknown; errno?: unknown } | null;
   return e?.code === 'ER_LOCK_DEADLOCK' || e?.errno === 1213;
 }
+
+/**
+ * True for a bare network error (a Node socket's `syscall` with a reset, broken pipe, refusal
+ * or time-out) that reached the error filter unwrapped: the driver lost its socket between
+ * Sequelize's handling and ours. Nothing about the request was wrong; a retry may work.
+ */
+export function isDroppedConnection(error: unknown): boolean {
+  const e = error as { code?: unknown; syscall?: unknown } | null;
+  return typeof e?.syscall === 'string' && typeof e.code === 'string' && ['ECONNRESET', 'EPIPE', 'ECONNREFUSED', 'ETIMEDOUT'].includes(e.code);
+}

@@ -6,7 +6,7 @@ import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError }
 import { ZodError } from 'zod';
 import { EngineeringInputError } from '../../engineering/engineering-input.error';
 import type { RequestWithCorrelation } from '../correlation-id.middleware';
-import { isDatabaseUnavailable, isTransactionConflict } from '../database-unavailable';
+import { isDatabaseUnavailable, isDroppedConnection, isTransactionConflict } from '../database-unavailable';
 
 /** Seconds a client should wait before retrying while the database is away. */
 export const DATABASE_RETRY_AFTER_SECONDS = 5;
@@ -29,7 +29,7 @@ export class AllExceptionsFilter implements ExceptionFilter {
     if (status === HttpStatus.SERVICE_UNAVAILABLE) {
       // Expected while a service is away: one line, no stack trace per request.
       this.logger.warn(`${req.method} ${req.originalUrl} [${correlationId}] unavailable: ${(exception as Error).message}`);
-      if ((isDatabaseUnavailable(exception) || isTransactionConflict(exception)) && !res.headersSent) res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+      if ((isDatabaseUnavailable(exception) || isDroppedConnection(exception) || isTransactionConflict(exception)) && !res.headersSent) res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
     } else if (status >= 500) {
       this.logger.error(`${req.method} ${req.originalUrl} [${correlationId}] ${exception instanceof Error ? exception.stack : String(exception)}`);
     }
@@ -42,6 +42,13 @@ export class AllExceptionsFilter implements ExceptionFilter {
       return {
         status: HttpStatus.SERVICE_UNAVAILABLE,
         body: { message: 'The database is unavailable; try again in a few seconds. If this was a change, check whether it was saved before repeating it.' },
+      };
+    }
+    if (isDroppedConnection(exception)) {
+      // A socket that a backing service (most often the database mid-restart) closed under a request.
+      return {
+        status: HttpStatus.SERVICE_UNAVAILABLE,
+        body: { message: 'A connection dropped under this request; most likely the database is unavailable or restarting. Try again in a few seconds; if this was a change, check whether it was saved before repeating it.' },
       };
     }
     if (isTransactionConflict(exception)) {
