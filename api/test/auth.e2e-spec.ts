@@ -17,7 +17,7 @@ describe('sign-in and roles (real MariaDB)', () => {
     const undeclared = routes.filter((r) => !r.isPublic && !(r.roles && r.roles.length));
     expect(undeclared).toEqual([]);
     const publicRoutes = routes.filter((r) => r.isPublic).map((r) => `${r.method} ${r.path}`).sort();
-    expect(publicRoutes).toEqual(['GET /api/auth/invitations/:token', 'GET /api/health', 'POST /api/auth/invitations/accept', 'POST /api/auth/login']);
+    expect(publicRoutes).toEqual(['GET /api/auth/invitations/:token', 'GET /api/health', 'GET /api/health/live', 'GET /api/health/ready', 'POST /api/auth/invitations/accept', 'POST /api/auth/login']);
   });
 
   it('signs in with the right password and returns the user', async () => {

@@ -52,6 +52,8 @@ describe('role × route table (real MariaDB)', () => {
         'POST /api/engineering/regulator',
         'POST /api/house-parts/:id/buyers',
         'POST /api/users/invitations',
+        'POST /api/users/invitations/:id/resend',
+        'POST /api/users/invitations/:id/revoke',
       ].sort(),
     );
   });

@@ -2,7 +2,6 @@ import type { IncomingMessage, RequestListener, Server, ServerResponse } from 'n
 
 /** Where a load balancer or orchestrator asks whether this process answers at all. */
 export const LIVENESS_PATH = '/api/health/live';
-const BODY = '{"status":"ok"}';
 
 /**
  * Answers GET/HEAD /api/health/live on the HTTP server itself, before Express and Nest: it
@@ -15,6 +14,8 @@ export function answerLivenessFirst(server: Server): void {
   server.removeAllListeners('request');
   server.on('request', (req: IncomingMessage, res: ServerResponse) => {
     if (req.url === LIVENESS_PATH && (req.method === 'GET' || req.method === 'HEAD')) {
+      // The same answer as the health controller's liveness route, without Express in the way.
+      const body = `{"status":"up","uptimeSeconds":${Math.round(process.uptime())}}`;
       // The headers every response carries (common/security), fixed here: a JSON answer needs no policy beyond 'none'.
       res.writeHead(200, {
         'content-type': 'application/json; charset=utf-8',
@@ -23,9 +24,9 @@ export function answerLivenessFirst(server: Server): void {
         'content-security-policy': "default-src 'none'; frame-ancestors 'none'",
         'x-frame-options': 'DENY',
         'referrer-policy': 'no-referrer',
-        'content-length': BODY.length,
+        'content-length': Buffer.byteLength(body),
       });
-      res.end(req.method === 'HEAD' ? undefined : BODY);
+      res.end(req.method === 'HEAD' ? undefined : body);
       return;
     }
     for (const handler of handlers) handler(req, res);
