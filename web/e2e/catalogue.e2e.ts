@@ -102,7 +102,7 @@ describe('catalogue journey in Chromium', () => {
   });
 
   it('uploads the datasheet on the part: stored, read, shown beside the card', async () => {
-    await page.locator('input[type="file"]').setInputFiles({ name: 'brackenford-brz05-series.pdf', mimeType: 'application/pdf', buffer: freshCopy() });
+    await page.locator('input[type="file"][accept="application/pdf"]').setInputFiles({ name: 'brackenford-brz05-series.pdf', mimeType: 'application/pdf', buffer: freshCopy() });
     const item = page.getByRole('listitem', { name: 'Upload of brackenford-brz05-series.pdf' });
     await expect.poll(() => item.getAttribute('data-status'), { timeout: 30_000 }).toBe('done');
     await expect.poll(() => item.getByTestId('extraction-summary').textContent(), POLL).toMatch(/^3 pages · 25 parts found/);
@@ -169,7 +169,7 @@ describe('catalogue journey in Chromium', () => {
     await expect.poll(() => page.getByTestId('card-version').textContent(), POLL).toBe('v1');
     expect(await (await fieldInput(page, 'ZZT')).inputValue()).toBe('25 Ω');
     expect(await page.getByTestId('provenance-zzt').textContent()).toMatch(/Entered.*Priya Raman/);
-    expect(await page.getByTestId('provenance-vzNom').textContent()).toMatch(/Extracted\s*p\. 2\s*Priya Raman/);
+    expect(await page.getByTestId('provenance-vzNom').textContent()).toMatch(/Extracted\s*page 2\s*Priya Raman/);
     await page.getByTestId('normalised-values').waitFor();
     await screenshot(page, 'catalogue-06-card-saved-normalised');
   });
@@ -227,7 +227,7 @@ describe('series datasheet and CSV import in Chromium', () => {
     await page.goto('/vendor-parts/upload');
     const lumenvale = readFileSync(join(FIXTURE, '..', 'lumenvale-lvd1-series.pdf'));
     const notPdf = readFileSync(join(FIXTURE, '..', '..', 'bad-uploads', 'not-a-pdf.pdf'));
-    await page.locator('input[type="file"]').setInputFiles([
+    await page.locator('input[type="file"][accept="application/pdf"]').setInputFiles([
       { name: 'lumenvale-lvd1-series.pdf', mimeType: 'application/pdf', buffer: lumenvale },
       { name: 'not-a-pdf.pdf', mimeType: 'application/pdf', buffer: notPdf },
     ]);

@@ -15,7 +15,7 @@ export const VERDICT_COLOR: Record<QualificationVerdict, string> = {
 export const VERDICT_TEXT_COLOR: Record<QualificationVerdict, string> = {
   pass: 'verdigris.7',
   marginal: 'yellow.8',
-  fail: 'red.7',
+  fail: 'red.9',
   'no-data': 'dimmed',
 };
 

@@ -32,7 +32,7 @@ describe('Compare screen', () => {
     expect(cells[1]).toHaveTextContent('≤ 130 mW');
     expect(cells[2]).toHaveAttribute('data-verdict', 'pass');
     expect(cells[3]).toHaveAttribute('data-verdict', 'fail');
-    expect(within(cells[3]).getByText('−13.1 %')).toHaveStyle({ color: 'var(--mantine-color-red-7)' });
+    expect(within(cells[3]).getByText('−13.1 %')).toHaveStyle({ color: 'var(--mantine-color-red-9)' });
     expect(cells[4]).toHaveTextContent('no rating card with vzNom and izt yet');
     expect(screen.getByText(/NMZ-10: not drawn/)).toBeInTheDocument();
   });

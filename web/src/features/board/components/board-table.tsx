@@ -329,7 +329,7 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
           <Text fz="xs" c="dimmed">
             {board.data.total} house parts
           </Text>
-          <Pagination size="sm" total={pages} value={page + 1} onChange={(p) => set({ page: p > 1 ? String(p - 1) : null })} />
+          <Pagination size="sm" total={pages} value={page + 1} onChange={(p) => set({ page: p > 1 ? String(p - 1) : null })} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
         </Group>
       )}
     </Stack>

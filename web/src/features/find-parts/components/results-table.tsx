@@ -280,7 +280,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
         </Text>
         <Group gap="sm">
           <Select size="xs" w={90} aria-label="Rows per page" data={PAGE_SIZES} value={String(pageSize)} onChange={(v) => v && onPage(0, Number(v))} allowDeselect={false} />
-          <Pagination size="sm" total={pages} value={pageIndex + 1} onChange={(p) => onPage(p - 1, pageSize)} getControlProps={(control) => ({ 'aria-label': `${control} page` })} />
+          <Pagination size="sm" total={pages} value={pageIndex + 1} onChange={(p) => onPage(p - 1, pageSize)} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
         </Group>
       </Group>
     </Paper>

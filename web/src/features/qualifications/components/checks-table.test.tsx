@@ -30,9 +30,9 @@ describe('checks table', () => {
     const colour = (id: string) => within(screen.getByTestId(`margin-${id}`)).getByText(/%|–/);
     expect(colour('zd')).toHaveAttribute('data-verdict', 'pass');
     expect(colour('zd')).toHaveStyle({ color: 'var(--mantine-color-verdigris-7)' });
-    expect(colour('zd')).not.toHaveStyle({ color: 'var(--mantine-color-red-7)' });
+    expect(colour('zd')).not.toHaveStyle({ color: 'var(--mantine-color-red-9)' });
     expect(colour('leakage')).toHaveStyle({ color: 'var(--mantine-color-yellow-8)' });
-    expect(colour('power-dissipation')).toHaveStyle({ color: 'var(--mantine-color-red-7)' });
+    expect(colour('power-dissipation')).toHaveStyle({ color: 'var(--mantine-color-red-9)' });
     expect(colour('knee-ratio')).toHaveStyle({ color: 'var(--mantine-color-dimmed)' });
     // The verdict is also written out, so the table reads without colour.
     expect(within(row('power-dissipation')).getByText('fail')).toBeInTheDocument();
