@@ -139,13 +139,21 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
   });
 
   it('deletes the object again when the commit fails after the put', async () => {
-    const commit = jest.spyOn(Transaction.prototype, 'commit').mockImplementationOnce(async function (this: Transaction) {
-      await this.rollback();
-      throw new Error('the database went away during commit');
+    // Only the upload's own commit fails: background work (the outbox, the waiver lapse pass) commits too.
+    const original = Transaction.prototype.commit;
+    let failed = false;
+    const commit = jest.spyOn(Transaction.prototype, 'commit').mockImplementation(async function (this: Transaction) {
+      if (!failed && /DatasheetsService\.upload/.test(new Error().stack ?? '')) {
+        failed = true;
+        await this.rollback();
+        throw new Error('the database went away during commit');
+      }
+      return original.call(this);
     });
     const before = { rows: await rows(), objects: await objects() };
     const res = await upload(sheet('ostrander').pdfPath, 'odw.pdf');
     commit.mockRestore();
+    expect(failed).toBe(true);
     expect(res.status).toBe(500);
     expect({ rows: await rows(), objects: await objects() }).toEqual(before);
   });
