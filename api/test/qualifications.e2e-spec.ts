@@ -129,13 +129,18 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const seenByReviewer = await t.http.get(`/api/qualifications/${c.id}`).set(auth(reviewer));
     expect(seenByReviewer.body.allowedActions).toEqual(expect.arrayContaining(['clear', 'clear-with-conditions', 'reject', 'send-back', 'withdraw']));
 
+    const [{ now: before }] = await t.select<{ now: Date }>('SELECT NOW(3) AS now');
     const cleared = await act(c.id, 'clear', { note: 'equivalent on every check' }, reviewer);
+    const [{ now: after }] = await t.select<{ now: Date }>('SELECT NOW(3) AS now');
     expect(cleared.status).toBe(200);
     expect(cleared.body).toMatchObject({
       state: 'cleared',
       decision: { state: 'cleared', by: { name: 'Tomas Eklund' }, specVersion: 1, cardVersion: 1, text: 'equivalent on every check' },
     });
-    expect(Date.now() - Date.parse(cleared.body.decision.at)).toBeLessThan(60_000);
+    // "When" is the database's time of the decision: between two readings of that clock taken around it (an order, not a duration).
+    const at = Date.parse(cleared.body.decision.at);
+    expect(at).toBeGreaterThanOrEqual(new Date(before).getTime() - 1000); // stored to the second
+    expect(at).toBeLessThanOrEqual(new Date(after).getTime());
   });
 
   it('keeps a decided case as it was: edits and further decisions are 409; comments may still be added', async () => {
