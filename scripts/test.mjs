@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // `npm test`: the same set-up as `npm start` (packages, builds) in throw-away data folders
-// on free ports — the demo data in .data is never touched — then every suite: lint,
+// on free ports — the demo data in .data is never touched — then every suite: format, lint,
 // type-check, contracts (vitest), api (jest, unit + integration against a real MariaDB),
 // web (vitest), the sign-in page's bundle budget, end-to-end journeys (playwright-core
 // driving Debian's Chromium).
@@ -126,6 +126,9 @@ async function main() {
   });
   if (results.length && !results[0].ok) return;
   const npx = (bin) => join(root, 'node_modules/.bin', bin);
+  await step('format (prettier --check)', (out, ok) => (ok ? 'every file formatted' : `${(out.match(/^\[warn\] (?!Code style)/gm) ?? []).length} files not formatted (npm run format)`), () =>
+    run(npx('prettier'), ['--check', '.']),
+  );
   await step('lint (eslint)', summaryOf.eslint, () => run(npx('eslint'), ['--max-warnings=0', '.']));
   await step('type-check (tsc)', summaryOf.tsc, () => run('npm', ['run', 'typecheck', '--silent']));
   await step('contracts (vitest)', summaryOf.vitest, () => run(npx('vitest'), ['run'], { cwd: join(root, 'contracts') }));
