@@ -29,7 +29,15 @@ describe('Compare screen', () => {
     const dissipation = table.querySelector('tr[data-check="power-dissipation"]')!;
     const cells = within(dissipation as HTMLElement).getAllByRole('cell');
     // check, limit, then one cell per source in the payload's order
-    expect(cells[1]).toHaveTextContent('≤ 130 mW');
+    // Each part is held to its own derated limit, not the first source's for all.
+    expect(cells[1]).toHaveTextContent("each part's own");
+    expect(cells[1]).not.toHaveTextContent('130 mW');
+    expect(within(cells[2]).getByTestId('own-limit-power-dissipation')).toHaveTextContent('limit ≤ 130 mW: 50 % of 260 mW derated to 85.0 °C (PD max, linear to TJ max)');
+    expect(within(cells[3]).getByTestId('own-limit-power-dissipation')).toHaveTextContent('limit ≤ 77.9 mW: 50 % of 156 mW derated to 85.0 °C ((TJ max − Ta)/RthJA)');
+    // A spec limit is the same for every part and stays in the limit column.
+    const rating = within(table.querySelector('tr[data-check="power-rating"]') as HTMLElement).getAllByRole('cell');
+    expect(rating[1]).toHaveTextContent('≥ 300 mW');
+    expect(within(rating[2]).queryByTestId('own-limit-power-rating')).toBeNull();
     expect(cells[2]).toHaveAttribute('data-verdict', 'pass');
     expect(cells[3]).toHaveAttribute('data-verdict', 'fail');
     expect(within(cells[3]).getByText('−13.1 %')).toHaveStyle({ color: 'var(--mantine-color-red-9)' });
