@@ -46,6 +46,12 @@ describe('Compare screen', () => {
     const rating = within(table.querySelector('tr[data-check="power-rating"]') as HTMLElement).getAllByRole('cell');
     expect(rating[1]).toHaveTextContent('≥ 300 mW');
     expect(within(rating[2]).queryByTestId('own-limit-power-rating')).toBeNull();
+    // A window check's limit is the spec's window, the same for every part (its nearer end differs by part).
+    for (const id of ['tc', 'vz-window']) {
+      const cellsOf = within(table.querySelector(`tr[data-check="${id}"]`) as HTMLElement).getAllByRole('cell');
+      expect([id, cellsOf[1].textContent]).not.toEqual([id, expect.stringContaining("each part's own")]);
+      expect(cellsOf[1].textContent).toMatch(/…/);
+    }
     expect(cells[2]).toHaveAttribute('data-verdict', 'pass');
     expect(cells[3]).toHaveAttribute('data-verdict', 'fail');
     expect(within(cells[3]).getByText('−13.1 %')).toHaveStyle({ color: 'var(--mantine-color-red-9)' });

@@ -8,10 +8,17 @@ import { QualificationStateBadge } from '@/components/qualification-state-badge'
 import { VerdictBadge, VerdictMark } from '@/components/verdict-badge';
 import { SOURCE_COLORS } from '../utils/series';
 
-/** Whether every source's check in a row is measured against the same limit (a spec limit), or each has its own (a derated rating). */
+/**
+ * Whether every source's check in a row is measured against the same limit (a spec limit),
+ * or each has its own (a derated rating). A window check compares its whole window: its
+ * `limit` is only the end nearer to that part's value.
+ */
 export function sharedLimit(checks: ReadonlyArray<QualificationCheck | undefined>): boolean {
-  const limits = checks.filter((c): c is QualificationCheck => c !== undefined).map((c) => c.limit);
-  return limits.every((l) => (l === null ? limits[0] === null : limits[0] !== null && Math.abs(l - limits[0]) <= 1e-9 * Math.max(Math.abs(l), Math.abs(limits[0]))));
+  const bounds = checks
+    .filter((c): c is QualificationCheck => c !== undefined)
+    .map((c) => (c.limitKind === 'window' && c.window ? [c.window.min, c.window.max] : c.limitKind === 'member' ? [] : [c.limit]));
+  const same = (a: number | null, b: number | null) => (a === null || b === null ? a === b : Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b)));
+  return bounds.every((b) => b.length === bounds[0].length && b.every((x, k) => same(x, bounds[0][k])));
 }
 
 /** How a source's own dissipation limit came about: "50 % of 260 mW derated to 85 °C". */
