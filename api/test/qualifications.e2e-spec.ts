@@ -639,6 +639,14 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     // 25 °C curve at the test current: self-heating Tj = Ta + RthJA·V·I (250 K/W · 5.1 V · 5 mA ≈ 6.4 K; common practice, no source)
     const p = source.curves[1].points.find((x: { current: number }) => x.current === 0.005);
     expect(p.tjC).toBeCloseTo(25 + 250 * p.vzNom * 0.005, 6);
+    // Its own derated dissipation limit at the hottest ambient: 500 mW derated linearly from 25 °C to zero at
+    // TJ max 150 °C gives 0.5 × (150 − 85)/(150 − 25) = 0.26 W (hand calculation; common practice, no source),
+    // and the dissipation check measures against the same share of it.
+    expect(source.powerLimit).toMatchObject({ ambientC: 85, reason: expect.any(String) });
+    expect(source.powerLimit.derated).toBeCloseTo(0.26, 9);
+    const dissipation = source.evaluation.checks.find((c: { id: string }) => c.id === 'power-dissipation');
+    expect(source.powerLimit.allowed).toBeCloseTo(dissipation.limit, 12);
+    expect(source.powerLimit.allowed).toBeCloseTo(0.26 * source.powerLimit.policyFraction, 12);
     expect((await t.http.get('/api/qualifications/compare/999999').set(auth(engineer))).status).toBe(404);
   });
 });

@@ -36,4 +36,5 @@ export * from './units/bounds';
 export * from './units/field-labels';
 export * from './units/format';
 export * from './units/parse';
+export * from './units/plausibility';
 export * from './units/quantity';

@@ -25,7 +25,7 @@ import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
-import { compareCurves, compareTemperatures, currentGrid } from './evaluation/compare-curves';
+import { compareCurves, comparePowerLimit, compareTemperatures, currentGrid } from './evaluation/compare-curves';
 import { evaluateCard } from './evaluation/evaluate';
 import { QualificationsRepository, type PairCaseRow } from './qualifications.repository';
 import { WaiversService } from './waivers.service';
@@ -163,17 +163,18 @@ export class QualificationViewsService {
         cardVersion: stored?.version ?? null,
         latestCase: latest ? { id: latest.id, revision: latest.revision, state: latest.state, overall: latest.overall } : null,
       };
-      if (!card) return { ...head, evaluation: null, curves: [], reason: 'no rating card with vzNom and izt yet' };
+      if (!card) return { ...head, evaluation: null, curves: [], powerLimit: null, reason: 'no rating card with vzNom and izt yet' };
       try {
         return {
           ...head,
           evaluation: evaluateCard({ spec, specVersion: specRow.version, card, cardVersion: stored!.version, vendorPackage: s.package }),
           curves: compareCurves(card, currents, temperaturesC),
+          powerLimit: comparePowerLimit(card, spec),
           reason: null,
         };
       } catch (error) {
         if (!(error instanceof EngineeringInputError)) throw error;
-        return { ...head, evaluation: null, curves: [], reason: error.message };
+        return { ...head, evaluation: null, curves: [], powerLimit: null, reason: error.message };
       }
     });
 

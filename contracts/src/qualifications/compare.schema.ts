@@ -15,6 +15,26 @@ export const compareCurveSchema = z.object({
 });
 export type CompareCurve = z.infer<typeof compareCurveSchema>;
 
+/**
+ * A source's own dissipation limit at the spec's hottest ambient: its card's rating derated
+ * there (the engineering core's `deratedPowerLimit`), then the spec's derating fraction.
+ * Each part has its own, so Compare shows one per source.
+ */
+export const comparePowerLimitSchema = z.object({
+  /** The ambient it is taken at (°C): the envelope's highest, where the derated rating is lowest. */
+  ambientC: z.number(),
+  /** The card's rating derated to that ambient (W); null when the card cannot say (see `reason`). */
+  derated: z.number().nullable(),
+  /** What set it: PD max derated linearly, (TJ max − Ta)/RthJA, or nothing. */
+  basis: z.enum(['pdMax', 'rthJA', 'none']),
+  reason: z.string(),
+  /** The spec's fraction of the derated rating a part may use; null when the spec sets no power requirement. */
+  policyFraction: z.number().nullable(),
+  /** derated × policyFraction (W); null without either. */
+  allowed: z.number().nullable(),
+});
+export type ComparePowerLimit = z.infer<typeof comparePowerLimitSchema>;
+
 export const compareSourceSchema = z.object({
   vendorPart: vendorPartRefSchema,
   role: sourceRoleSchema,
@@ -26,6 +46,8 @@ export const compareSourceSchema = z.object({
   evaluation: evaluationSchema.nullable(),
   /** One curve per temperature of `temperaturesC`, same order; empty without a readable card. */
   curves: z.array(compareCurveSchema),
+  /** The source's own derated dissipation limit; null without a readable card. */
+  powerLimit: comparePowerLimitSchema.nullable(),
   reason: z.string().nullable(),
 });
 export type CompareSource = z.infer<typeof compareSourceSchema>;

@@ -1,7 +1,8 @@
-import type { CompareCurve, EngineeringCardInput, NormalizedPoint, Spec } from '@shuntwise/contracts';
+import type { CompareCurve, ComparePowerLimit, EngineeringCardInput, NormalizedPoint, Spec } from '@shuntwise/contracts';
 import { fitBreakdownModel } from '../../engineering/breakdown-model';
 import { normalizePoints } from '../../engineering/normalize';
 import { T_REF_C } from '../../engineering/physics';
+import { deratedPowerLimit } from '../../engineering/power';
 
 const GRID_POINTS = 41;
 
@@ -39,4 +40,15 @@ export function compareCurves(card: EngineeringCardInput, currents: readonly num
 function clean(p: { current: number; tempC: number; tjC: number; vzMin: number | null; vzNom: number; vzMax: number | null; zd: number | null }): NormalizedPoint {
   const c = (x: number | null) => (x === null || Number.isNaN(x) ? null : x);
   return { current: p.current, tempC: p.tempC, tjC: c(p.tjC), vzMin: c(p.vzMin), vzNom: c(p.vzNom), vzMax: c(p.vzMax), zd: c(p.zd) };
+}
+
+/**
+ * A source's own dissipation limit at the envelope's hottest ambient (where a derated rating
+ * is lowest): the core's derating of its card, times the spec's fraction when it sets one.
+ */
+export function comparePowerLimit(card: EngineeringCardInput, spec: Spec): ComparePowerLimit {
+  const ambientC = spec.envelope.taMax;
+  const { limit, basis, reason } = deratedPowerLimit(card, ambientC);
+  const policyFraction = spec.power?.deratingFraction ?? null;
+  return { ambientC, derated: limit, basis, reason, policyFraction, allowed: limit !== null && policyFraction !== null ? limit * policyFraction : null };
 }

@@ -1,16 +1,43 @@
 import type { ReactNode } from 'react';
 import { Anchor, Group, Paper, Stack, Table, Text, Title, getThemeColor, useMantineTheme, ColorSwatch } from '@mantine/core';
-import { CHECK_IDS, CHECK_LABELS, type CheckId, type ComparePayload, type QualificationCheck } from '@shuntwise/contracts';
+import { CHECK_IDS, CHECK_LABELS, type CheckId, type ComparePayload, type ComparePowerLimit, type QualificationCheck } from '@shuntwise/contracts';
 import { Link } from 'react-router';
 import { CheckLimit, CheckValue, MarginText } from '@/components/check-cells';
+import { Quantity } from '@/components/quantity';
 import { QualificationStateBadge } from '@/components/qualification-state-badge';
 import { VerdictBadge, VerdictMark } from '@/components/verdict-badge';
 import { SOURCE_COLORS } from '../utils/series';
 
 /**
+ * Whether every source's check in a row is measured against the same limit (a spec limit),
+ * or each has its own (a derated rating). A window check compares its whole window: its
+ * `limit` is only the end nearer to that part's value.
+ */
+export function sharedLimit(checks: ReadonlyArray<QualificationCheck | undefined>): boolean {
+  const bounds = checks
+    .filter((c): c is QualificationCheck => c !== undefined)
+    .map((c) => (c.limitKind === 'window' && c.window ? [c.window.min, c.window.max] : c.limitKind === 'member' ? [] : [c.limit]));
+  const same = (a: number | null, b: number | null) => (a === null || b === null ? a === b : Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b)));
+  return bounds.every((b) => b.length === bounds[0].length && b.every((x, k) => same(x, bounds[0][k])));
+}
+
+/** How a source's own dissipation limit came about: "50 % of 260 mW derated to 85 °C". */
+function PowerLimitNote({ limit }: { limit: ComparePowerLimit }) {
+  if (limit.derated === null) return <>no derated rating: {limit.reason}</>;
+  return (
+    <>
+      {limit.policyFraction !== null && `${Math.round(limit.policyFraction * 1000) / 10} % of `}
+      <Quantity value={limit.derated} kind="power" /> derated to <Quantity value={limit.ambientC} kind="temperature" digits={3} /> (
+      {limit.basis === 'rthJA' ? '(TJ max − Ta)/RthJA' : 'PD max, linear to TJ max'})
+    </>
+  );
+}
+
+/**
  * The checks side by side: one row per check, one column per source, each cell the
  * source's normalised value with its margin coloured by the verdict. Every source is
- * evaluated now on the current spec, so the limits are the same across a row.
+ * evaluated now on the current spec; where a limit is the part's own (the dissipation
+ * limit comes from each card's derated rating) it is shown in that part's cell.
  */
 export function ChecksMatrix({ payload, renderSourceAction }: { payload: ComparePayload; renderSourceAction?: (index: number) => ReactNode }) {
   const theme = useMantineTheme();
@@ -62,30 +89,50 @@ export function ChecksMatrix({ payload, renderSourceAction }: { payload: Compare
             <Table.Tbody>
               {ids.map((id) => {
                 const first = limitOf(id)!;
+                const shared = sharedLimit(byId.map((m) => m.get(id)));
                 return (
                   <Table.Tr key={id} data-check={id}>
                     <Table.Td>
                       <Text fz="sm">{CHECK_LABELS[id]}</Text>
                     </Table.Td>
                     <Table.Td>
-                      <Text fz="sm" component="div">
-                        <CheckLimit check={first} />
-                      </Text>
+                      {shared ? (
+                        <Text fz="sm" component="div">
+                          <CheckLimit check={first} />
+                        </Text>
+                      ) : (
+                        <Text fz="xs" c="dimmed" component="div">
+                          each part&apos;s own, in its column
+                        </Text>
+                      )}
                     </Table.Td>
                     {payload.sources.map((s, i) => {
                       const c = byId[i].get(id);
                       return (
                         <Table.Td key={s.vendorPart.id} title={c?.detail} data-verdict={c?.verdict}>
                           {c ? (
-                            <Group gap={6} wrap="nowrap" justify="space-between">
-                              <Text fz="sm" component="div">
-                                <CheckValue check={c} />
-                              </Text>
-                              <Group gap={4} wrap="nowrap">
-                                {c.margin !== null && <MarginText margin={c.margin} verdict={c.verdict} fz="xs" />}
-                                <VerdictMark verdict={c.verdict} />
+                            <>
+                              <Group gap={6} wrap="nowrap" justify="space-between">
+                                <Text fz="sm" component="div">
+                                  <CheckValue check={c} />
+                                </Text>
+                                <Group gap={4} wrap="nowrap">
+                                  {c.margin !== null && <MarginText margin={c.margin} verdict={c.verdict} fz="xs" />}
+                                  <VerdictMark verdict={c.verdict} />
+                                </Group>
                               </Group>
-                            </Group>
+                              {!shared && (
+                                <Text fz="xs" c="dimmed" component="div" data-testid={`own-limit-${id}`}>
+                                  limit <CheckLimit check={c} />
+                                  {id === 'power-dissipation' && s.powerLimit && (
+                                    <>
+                                      {': '}
+                                      <PowerLimitNote limit={s.powerLimit} />
+                                    </>
+                                  )}
+                                </Text>
+                              )}
+                            </>
                           ) : (
                             <Text fz="xs" c="dimmed">
                               {s.evaluation ? 'not checked' : (s.reason ?? 'no evaluation')}

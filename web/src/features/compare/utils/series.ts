@@ -15,17 +15,26 @@ export function seriesKey(sourceIndex: number, tempIndex: number, corner: Corner
   return `s${sourceIndex}t${tempIndex}${corner}`;
 }
 
+/** The key of a source's tolerance band at one ambient: [low end, high end] (V) per current. */
+export function bandKey(sourceIndex: number, tempIndex: number): string {
+  return `s${sourceIndex}t${tempIndex}band`;
+}
+
+export type CurveRow = Record<string, number | null | [number, number]>;
+
 /**
  * One row per current of the grid with every source's voltage at every ambient and
- * tolerance end, the shape a recharts line chart reads (all curves share the grid).
+ * tolerance end, and each tolerance band as a [low, high] pair (what a recharts range
+ * area reads); all curves share the grid. A band is null where either end is unknown.
  */
-export function curveRows(payload: ComparePayload): Array<Record<string, number | null>> {
+export function curveRows(payload: ComparePayload): CurveRow[] {
   return payload.currents.map((current, i) => {
-    const row: Record<string, number | null> = { current };
+    const row: CurveRow = { current };
     payload.sources.forEach((source, s) => {
       source.curves.forEach((curve, t) => {
         const point = curve.points[i];
         for (const corner of ['vzMin', 'vzNom', 'vzMax'] as const) row[seriesKey(s, t, corner)] = point ? point[corner] : null;
+        row[bandKey(s, t)] = point && point.vzMin !== null && point.vzMax !== null ? [point.vzMin, point.vzMax] : null;
       });
     });
     return row;

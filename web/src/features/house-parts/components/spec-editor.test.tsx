@@ -184,4 +184,63 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
     await waitFor(() => expect(shown).toHaveBeenCalledWith(expect.objectContaining({ title: 'Nothing to save' })));
     expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(1);
   });
+
+  it('warns, without blocking, on a Zener voltage, test current or power rating outside the usual range of regulator diodes', async () => {
+    signInAs('engineer');
+    const api = mockApi({ 'PUT /api/house-parts/:id/spec': (call) => ({ body: saved(2, (call.body as Put).spec) }) });
+    const { user } = render(<SpecEditor housePartId={5} partNumber="OHI-ZD-9051" current={v1} />);
+    const vzMax = screen.getByLabelText(/^VZ max/);
+    expect(document.querySelectorAll('[data-warning]')).toHaveLength(0);
+    // Usual range 1.8 V … 400 V (common practice, no source; contracts/src/units/plausibility.ts).
+    await user.clear(vzMax);
+    await user.paste('5.4 kV');
+    expect(await screen.findByText(/5.40 kV is outside the usual range of regulator diodes \(1.80 V … 400 V\): did you mean 5.40 V\?/)).toBeInTheDocument();
+    expect(vzMax).toHaveAccessibleDescription(/outside the usual range of regulator diodes/);
+    await user.clear(vzMax);
+    await user.paste('5.4 V');
+    expect(document.querySelectorAll('[data-warning]')).toHaveLength(0);
+    const pd = screen.getByLabelText('Smallest PD rating');
+    await user.clear(pd);
+    await user.paste('300');
+    await user.tab();
+    // A bare number is read in mW here; 300 W would be typed with its unit.
+    expect(document.querySelectorAll('[data-warning]')).toHaveLength(0);
+    await user.clear(pd);
+    await user.paste('300 W');
+    expect(screen.getByText(/300 W is outside the usual range of regulator-diode power ratings .*did you mean 300 mW\?/)).toBeInTheDocument();
+    await user.clear(pd);
+    await user.paste('0.3 W');
+    const iRef = screen.getByLabelText(/^Reference current/);
+    await user.clear(iRef);
+    await user.paste('5 A');
+    expect(screen.getByText(/5.00 A is outside the usual range of regulator-diode test currents .*did you mean 5.00 mA\?/)).toBeInTheDocument();
+    // A warning, not a block: the value is saved as typed.
+    await user.click(screen.getAllByRole('button', { name: 'Save as v2' })[0]);
+    await waitFor(() => expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(1));
+    expect((api.callsTo('PUT', '/api/house-parts/5/spec')[0].body as Put).spec).toMatchObject({ iRef: 5 });
+  });
+
+  it('says beside "Use at most" what it will store, and offers the percentage when a fraction was typed', async () => {
+    signInAs('engineer');
+    const api = mockApi({ 'PUT /api/house-parts/:id/spec': (call) => ({ body: saved(2, (call.body as Put).spec) }) });
+    const { user } = render(<SpecEditor housePartId={5} partNumber="OHI-ZD-9051" current={v1} />);
+    const share = screen.getByLabelText('Use at most');
+    expect(screen.getByTestId('derating-reading')).toHaveTextContent('stores 50 % of the derated rating (fraction 0.5)');
+    await user.clear(share);
+    await user.paste('0.5');
+    await user.tab();
+    // Not silently clamped or scaled: 0.5 stays 0.5 %, and the line says so and asks.
+    expect(share).toHaveValue('0.5 %');
+    expect(screen.getByTestId('derating-reading')).toHaveTextContent('stores 0.5 % of the derated rating (fraction 0.005) — did you mean the fraction 0.5, that is 50 %?');
+    await user.click(screen.getByRole('button', { name: 'Use 50 %' }));
+    expect(share).toHaveValue('50 %');
+    expect(screen.getByTestId('derating-reading')).toHaveTextContent('stores 50 % of the derated rating (fraction 0.5)');
+    expect(screen.queryByRole('button', { name: /^Use \d/ })).toBeNull();
+    // Kept as typed when that was meant: 0.5 % is sent as the fraction 0.005.
+    await user.clear(share);
+    await user.paste('0.5');
+    await user.click(screen.getAllByRole('button', { name: 'Save as v2' })[0]);
+    await waitFor(() => expect(api.callsTo('PUT', '/api/house-parts/5/spec')).toHaveLength(1));
+    expect((api.callsTo('PUT', '/api/house-parts/5/spec')[0].body as Put).spec).toMatchObject({ power: { pdMin: 0.3, deratingFraction: 0.005 } });
+  });
 });

@@ -10,7 +10,17 @@ import { ApiError, describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
 import { useLeaveGuard } from '@/lib/leave-guard';
 import { usePutSpec } from '../api/spec';
-import { emptySpecForm, formPath, formToSpec, specToForm, validateSpecForm, type SpecFormValues } from '../utils/spec-form';
+import { deratingReading, emptySpecForm, formPath, formToSpec, specToForm, specWarnings, validateSpecForm, type SpecFormValues } from '../utils/spec-form';
+
+/** A plausibility warning under an input: shown, never blocking (the usual ranges live in contracts). */
+function Warning({ text }: { text: string | undefined }) {
+  if (!text) return null;
+  return (
+    <Text span fz="xs" c="orange.9" data-warning>
+      ⚠ {text}
+    </Text>
+  );
+}
 
 function Section({ title, hint, children }: { title: string; hint?: string; children: ReactNode }) {
   return (
@@ -121,16 +131,27 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
     );
   };
 
-  const submit = form.onSubmit((values) => save(values), () => {
-    notifications.show({ color: 'red', title: 'Spec not saved', message: 'Some fields need attention (marked in red); what you typed is kept.' });
-  });
+  const submit = form.onSubmit(
+    (values) => save(values),
+    () => {
+      notifications.show({ color: 'red', title: 'Spec not saved', message: 'Some fields need attention (marked in red); what you typed is kept.' });
+    },
+  );
 
   const ip = (path: string) => form.getInputProps(path);
-  // QuantityInput takes the SI value (null when empty) and hands one back.
+  const warnings = specWarnings(form.getValues());
+  // QuantityInput takes the SI value (null when empty) and hands one back; a value outside its usual range is warned about below it.
   const q = (path: string) => {
     const props = form.getInputProps(path);
-    return { ...props, value: (props.value ?? null) as number | null, onChange: props.onChange as (value: number | null) => void };
+    return {
+      ...props,
+      value: (props.value ?? null) as number | null,
+      onChange: props.onChange as (value: number | null) => void,
+      description: <Warning text={warnings[path]} />,
+      inputWrapperOrder: ['label', 'input', 'description', 'error'] as Array<'label' | 'input' | 'description' | 'error'>,
+    };
   };
+  const derating = deratingReading(form.getValues().power.deratingPercent);
   return (
     <Paper component="form" onSubmit={submit} noValidate aria-label={`Spec of ${partNumber}`} onKeyDown={getHotkeyHandler([['mod+S', () => submit()]])}>
       <Stack gap="md">
@@ -223,7 +244,36 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
           <Section title="Power" hint="rating and the share of the derated power allowed">
             <SimpleGrid cols={2} spacing="xs">
               <QuantityInput label="Smallest PD rating" kind="power" unit="mW" {...q('power.pdMin')} />
-              <NumberInput label="Use at most" suffix=" %" min={1} max={100} decimalScale={2} hideControls {...ip('power.deratingPercent')} />
+              <NumberInput
+                label="Use at most"
+                suffix=" %"
+                min={0}
+                max={100}
+                // No silent clamping: what is typed is what is stored, and the line below says what that is.
+                clampBehavior="none"
+                decimalScale={4}
+                hideControls
+                inputWrapperOrder={['label', 'input', 'description', 'error']}
+                description={
+                  derating && (
+                    <Text span fz="xs" c="dimmed" data-testid="derating-reading">
+                      {derating.stores}
+                      {derating.fractionMeant !== null && (
+                        <>
+                          {' '}
+                          <Text span fz="xs" c="orange.9">
+                            — did you mean the fraction {String(form.getValues().power.deratingPercent)}, that is {derating.fractionMeant} %?
+                          </Text>{' '}
+                          <Button size="compact-xs" variant="light" onClick={() => form.setFieldValue('power.deratingPercent', derating.fractionMeant!)}>
+                            Use {derating.fractionMeant} %
+                          </Button>
+                        </>
+                      )}
+                    </Text>
+                  )
+                }
+                {...ip('power.deratingPercent')}
+              />
             </SimpleGrid>
           </Section>
         </SimpleGrid>

@@ -1,4 +1,15 @@
-import { fieldName, isGenericIssueMessage, issueMessage, specSchema, type LabelledIssue, type QuantityKind, type Spec, type SpecInput } from '@shuntwise/contracts';
+import {
+  fieldName,
+  isGenericIssueMessage,
+  issueMessage,
+  plausibilityWarning,
+  specSchema,
+  type LabelledIssue,
+  type QuantityKind,
+  type Spec,
+  type SpecInput,
+  type UsualRange,
+} from '@shuntwise/contracts';
 
 /**
  * The spec editor's values: the spec's own shape, so the API's error paths
@@ -41,6 +52,41 @@ export const SPEC_FIELD_KINDS: Record<string, QuantityKind> = {
   'outputWindow.vMin': 'voltage',
   'outputWindow.vMax': 'voltage',
 };
+
+/** The fields checked against the usual ranges of regulator diodes (contracts' USUAL_RANGES): a warning, never a block. */
+const PLAUSIBLE: Record<string, UsualRange> = {
+  iRef: 'testCurrent',
+  'vz.min': 'zenerVoltage',
+  'vz.nom': 'zenerVoltage',
+  'vz.max': 'zenerVoltage',
+  'power.pdMin': 'powerRating',
+};
+
+/** The warning of each field whose value lies outside its usual range (path → sentence). */
+export function specWarnings(values: SpecFormValues): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [path, range] of Object.entries(PLAUSIBLE)) {
+    const value = at(values, path);
+    const warning = typeof value === 'number' ? plausibilityWarning(range, value) : null;
+    if (warning) out[path] = warning;
+  }
+  return out;
+}
+
+/**
+ * What "Use at most" will store, said beside the input: the number is a percentage, so
+ * 0.5 stores 0.5 %, not 50 %; a value below 1 % may be a fraction typed by habit, and
+ * the sentence offers the percentage it would be. Null while empty or unreadable.
+ */
+export function deratingReading(input: number | string): { stores: string; fractionMeant: number | null } | null {
+  const value = typeof input === 'number' ? input : input.trim() === '' ? NaN : Number(input);
+  if (!Number.isFinite(value)) return null;
+  const pct = (x: number) => `${Number(x.toPrecision(6))} %`;
+  return {
+    stores: `stores ${pct(value)} of the derated rating (fraction ${Number((value / 100).toPrecision(6))})`,
+    fractionMeant: value > 0 && value < 1 ? Number((value * 100).toPrecision(6)) : null,
+  };
+}
 
 export function emptySpecForm(): SpecFormValues {
   return {
