@@ -1,6 +1,7 @@
 import {
   engineeringCardContradictions,
   formatQuantity,
+  type BreakdownModelSummary,
   type EngineeringCardInput,
   type ModelBasis,
   type TempCo,
@@ -202,4 +203,18 @@ export function currentAtVoltage(model: BreakdownModel, v: number, tjC: number, 
 
 function ohm(value: number): string {
   return formatQuantity(value, 'resistance');
+}
+
+/** The fitted model as the API reports it (normalisation, `.model` route, evaluation). */
+export function modelSummary(model: BreakdownModel): BreakdownModelSummary {
+  return {
+    bv: model.bv,
+    ibv: model.ibv,
+    nbv: model.nbv,
+    rs: model.rs,
+    nbvVt: model.nbvVt,
+    alphaVz: model.hasAlpha ? model.alphaVz : null,
+    basis: model.basis,
+    assumptions: model.assumptions,
+  };
 }

@@ -23,7 +23,7 @@ import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
-import { fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { fitBreakdownModel, modelSummary, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
 import { checkCard } from '../engineering/card-checks';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
@@ -137,16 +137,7 @@ export class RatingCardsService {
         min: fitted.hasVzMin ? spiceModelLine(fitted, { name: `${name}_MIN`, corner: 'min' }) : null,
         max: fitted.hasVzMax ? spiceModelLine(fitted, { name: `${name}_MAX`, corner: 'max' }) : null,
       },
-      model: {
-        bv: fitted.bv,
-        ibv: fitted.ibv,
-        nbv: fitted.nbv,
-        rs: fitted.rs,
-        nbvVt: fitted.nbvVt,
-        alphaVz: fitted.hasAlpha ? fitted.alphaVz : null,
-        basis: fitted.basis,
-        assumptions: fitted.assumptions,
-      },
+      model: modelSummary(fitted),
       warnings: fitted.warnings,
       caution: DESIGN_CAUTION,
     };
