@@ -12,7 +12,7 @@ import {
   type Spec,
   type VoltageWindow,
 } from '@shuntwise/contracts';
-import { diodeVoltage, dynamicImpedance, fitBreakdownModel, modelSummary, tcToVoltsPerKelvin, type BreakdownModel } from '../../engineering/breakdown-model';
+import { diodeVoltage, dynamicImpedance, fitBreakdownModel, modelSummary, type BreakdownModel } from '../../engineering/breakdown-model';
 import { checkCard } from '../../engineering/card-checks';
 import { DESIGN_CAUTION } from '../../engineering/caution';
 import { EngineeringInputError } from '../../engineering/engineering-input.error';
@@ -304,14 +304,13 @@ function tcCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'tc' as const, quantity: 'tempCoVoltage' as const, limitKind: 'window' as const, window: { min, max } };
   if (!card) return noData(base, ctx.noCard!);
   if (card.tc == null) return noData(base, 'the card gives no temperature coefficient');
-  const alpha = tcToVoltsPerKelvin(card.tc, card.vzNom);
+  const alpha = card.tc;
   const mechanism = mechanismOf(card.vzNom);
   const sign = mechanismSignWarning(card.vzNom, alpha);
   // Coefficient windows often straddle zero: measure against the larger end, not the nearer one.
   const reference = Math.max(Math.abs(min), Math.abs(max));
   const lowBinds = alpha - min <= max - alpha;
   const margin = reference > 0 ? percent(Math.min(alpha - min, max - alpha), reference) : alpha === 0 ? 0 : -100;
-  const assumptions = card.tc.unit === '%/K' ? [`${card.tc.value} %/K converted to V/K with VZ nom (${volts(card.vzNom)})`] : [];
   return {
     ...base,
     label: CHECK_LABELS.tc,
@@ -322,7 +321,7 @@ function tcCheck(ctx: CheckContext): CheckResult {
     text: null,
     margin,
     detail: `αVz ${tempCo(alpha)} (${mechanism} breakdown expected at ${volts(card.vzNom)}) against the window ${tempCo(min)} … ${tempCo(max)}`,
-    assumptions: [...assumptions, 'margin in % of the window end farther from zero'],
+    assumptions: ['margin in % of the window end farther from zero'],
     warnings: sign ? [sign] : [],
   };
 }
