@@ -31,7 +31,7 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     const alpha = card.tc;
     const percentPerK = (alpha / vzNom) * 100;
     if (Math.abs(percentPerK) > 0.2) {
-      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${percentPerK.toFixed(3)} %/K of VZ, beyond the usual ±0.1 %/K: check the printed unit (mV/K or %/K)`);
+      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${percentPerK.toFixed(3)} %/K of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
     }
     const sign = mechanismSignWarning(vzNom, alpha);
     if (sign !== null) warn('tc', sign);

@@ -75,8 +75,10 @@ describe('the request schema rejects bad input naming the field', () => {
     expect(result.error!.issues.map((i) => i.path.join('.'))).toEqual(['card.vzMin', 'card.izk']);
   });
 
-  it('names a tc with a unit it does not know', () => {
-    const result = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: { value: 2, unit: 'mV/°C' } }, currents: [0.01] });
-    expect(result.error!.issues[0].path.join('.')).toBe('card.tc.unit');
+  it('names a tc given as printed rather than in V/K (the card mapping converts it before the core)', () => {
+    const result = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: { value: 2, unit: 'mV/K' } }, currents: [0.01] });
+    expect(result.error!.issues[0].path.join('.')).toBe('card.tc');
+    const tooLarge = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: 2 }, currents: [0.01] });
+    expect(tooLarge.error!.issues[0].path.join('.')).toBe('card.tc');
   });
 });
