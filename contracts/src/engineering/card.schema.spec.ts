@@ -1,3 +1,4 @@
+import { describe, expect, it } from 'vitest';
 import { toEngineeringCard } from '../parts/rating-card.schema';
 import { tcVoltsPerKelvin } from './card.schema';
 
