@@ -44,8 +44,8 @@ export default tseslint.config(
     },
   },
   {
+    // Every file of the core, no exemptions: its HTTP face lives in api/src/engineering-routes.
     files: ['api/src/engineering/**/*.ts'],
-    ignores: ['api/src/engineering/*.module.ts', 'api/src/engineering/*.controller.ts', 'api/src/engineering/*.dto.ts'],
     rules: {
       'no-restricted-imports': ['error', { patterns: [{ group: ['@nestjs/*', 'sequelize*', 'nestjs-zod', '../*'], message: 'the engineering core stays pure: no Nest, no database, nothing from other api folders' }] }],
     },

@@ -31,7 +31,7 @@ function generateCards(n: number): EngineeringCard[] {
       zzt,
       izk: null,
       zzk: null,
-      tc: i % 2 === 0 ? { value: tcPercent, unit: '%/K' } : { value: (tcPercent / 100) * vzNom * 1e3, unit: 'mV/K' },
+      tc: (tcPercent / 100) * vzNom,
       pdMax: 0.5,
       tjMax: 175,
       rthJA: logU(60, 450),
@@ -81,8 +81,7 @@ function runBare(cards: readonly EngineeringCard[]): number {
       }
     }
     const nbv = a / VT_REF;
-    const tc = c.tc!;
-    const alpha = tc.unit === 'mV/K' ? tc.value * 1e-3 : (tc.value / 100) * vzNom;
+    const alpha = c.tc!;
     const rth = c.rthJA!;
     const vzLow = c.vzMin!;
     const vzHigh = c.vzMax!;

@@ -13,7 +13,7 @@ import { ConfigModule } from './config/config.module';
 import type { Env } from './config/env';
 import { DatabaseModule } from './database/database.module';
 import { DatasheetsModule } from './datasheets/datasheets.module';
-import { EngineeringModule } from './engineering/engineering.module';
+import { EngineeringModule } from './engineering-routes/engineering.module';
 import { HealthModule } from './health/health.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';

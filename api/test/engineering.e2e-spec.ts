@@ -10,7 +10,7 @@ const card = {
   zzt: 17,
   izk: 0.001,
   zzk: 550,
-  tc: { value: 0.03, unit: '%/K' },
+  tc: (0.03 / 100) * 5.1, // 0.03 %/K of 5.1 V, in V/K as the engineering routes take it
   pdMax: 0.5,
   tjMax: 175,
   rthJA: 300,

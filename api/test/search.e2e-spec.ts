@@ -105,8 +105,7 @@ describe('search (real MariaDB, demo seed)', () => {
       izt: f.izt.value,
       zzt: f.zzt.value,
       pdMax: f.pdMax.value,
-      tc: { value: f.tc.value, unit: f.tc.unit },
-      tcVoltsPerKelvin: f.tc.voltsPerKelvin,
+      tc: f.tc.voltsPerKelvin,
     });
     // Tolerance as the half-width of the Vz window over nominal (common practice, no source), the
     // printed ends taken back by at most half their last digit (they are rounded when printed).
@@ -263,7 +262,7 @@ describe('search (real MariaDB, demo seed)', () => {
 
   it("hands the engineering core a card it accepts: the designer's circuit check on a found part", async () => {
     const item = (await search('q=QHZ5V6A')).items[0];
-    const { version: _v, tolerance: _t, tcVoltsPerKelvin: _tc, ...card } = item.card!;
+    const { version: _v, tolerance: _t, ...card } = item.card!;
     const res = await t.http
       .post('/api/engineering/regulator')
       .set(auth(designer))

@@ -1,9 +1,9 @@
 import {
   engineeringCardContradictions,
   formatQuantity,
+  type BreakdownModelSummary,
   type EngineeringCardInput,
   type ModelBasis,
-  type TempCo,
   type ToleranceCorner,
 } from '@shuntwise/contracts';
 import { EngineeringInputError } from './engineering-input.error';
@@ -45,11 +45,6 @@ export interface BreakdownModel {
 }
 
 const VT_REF = thermalVoltage(T_REF_C);
-
-/** Temperature coefficient as printed (mV/K or %/K of vzNom) in V/K. */
-export function tcToVoltsPerKelvin(tc: TempCo, vzNom: number): number {
-  return tc.unit === 'mV/K' ? tc.value * 1e-3 : (tc.value / 100) * vzNom;
-}
 
 /**
  * Fits the breakdown model to a card (SI). Two impedance points (izt, zzt) and (izk, zzk)
@@ -117,7 +112,7 @@ export function fitBreakdownModel(card: EngineeringCardInput): BreakdownModel {
   let alphaVz = 0;
   const hasAlpha = card.tc != null;
   if (card.tc != null) {
-    alphaVz = tcToVoltsPerKelvin(card.tc, vzNom);
+    alphaVz = card.tc;
     assumptions.push('Vz(Tj) = Vz(25 °C) + αVz·(Tj − 25 °C) at IZT; the log term follows Vt = kT/q as in SPICE');
   } else {
     assumptions.push('no temperature coefficient on the card: Vz at IZT taken as constant with temperature');
@@ -202,4 +197,18 @@ export function currentAtVoltage(model: BreakdownModel, v: number, tjC: number, 
 
 function ohm(value: number): string {
   return formatQuantity(value, 'resistance');
+}
+
+/** The fitted model as the API reports it (normalisation, `.model` route, evaluation). */
+export function modelSummary(model: BreakdownModel): BreakdownModelSummary {
+  return {
+    bv: model.bv,
+    ibv: model.ibv,
+    nbv: model.nbv,
+    rs: model.rs,
+    nbvVt: model.nbvVt,
+    alphaVz: model.hasAlpha ? model.alphaVz : null,
+    basis: model.basis,
+    assumptions: model.assumptions,
+  };
 }

@@ -3,7 +3,7 @@ import { checkCard } from './card-checks';
 
 const good: EngineeringCard = {
   vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, irMax: 2e-6, vr: 2,
-  tc: { value: 0.03, unit: '%/K' }, pdMax: 0.5, tjMax: 175, rthJA: 300, izm: 0.089,
+  tc: (0.03 / 100) * 5.1, pdMax: 0.5, tjMax: 175, rthJA: 300, izm: 0.089,
 };
 
 function fields(issues: CardIssue[], severity: CardIssue['severity']): string[] {
@@ -30,12 +30,12 @@ describe('card sanity checks name their field', () => {
   });
 
   it('a tc sign that disagrees with the mechanism is a warning on tc (common practice: negative below ~5 V, positive above ~6 V)', () => {
-    const issues = checkCard({ ...good, vzNom: 3.3, vzMin: 3.1, vzMax: 3.5, vr: 1, tc: { value: 2, unit: 'mV/K' } });
+    const issues = checkCard({ ...good, vzNom: 3.3, vzMin: 3.1, vzMax: 3.5, vr: 1, tc: 2e-3 });
     expect(fields(issues, 'warning')).toEqual(['tc']);
   });
 
   it('implausible values and missing data are warnings on their fields', () => {
-    const issues = checkCard({ vzNom: 250, izt: 0.02, tc: { value: 0.5, unit: '%/K' }, irMax: 1e-6 });
+    const issues = checkCard({ vzNom: 250, izt: 0.02, tc: (0.5 / 100) * 250, irMax: 1e-6 });
     expect(fields(issues, 'error')).toEqual([]);
     expect(fields(issues, 'warning')).toEqual(['vzNom', 'vzMin', 'zzt', 'tc', 'vr', 'pdMax', 'rthJA']);
     expect(issues.find((i) => i.field === 'tc')!.message).toMatch(/check the unit/);

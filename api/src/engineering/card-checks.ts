@@ -1,5 +1,4 @@
 import { engineeringCardContradictions, formatQuantity, type CardIssue, type EngineeringCardInput } from '@shuntwise/contracts';
-import { tcToVoltsPerKelvin } from './breakdown-model';
 import { mechanismSignWarning } from './mechanism';
 
 /**
@@ -29,10 +28,10 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
 
   if (card.tc == null) warn('tc', 'no temperature coefficient: Vz is taken as constant with temperature');
   else {
-    const alpha = tcToVoltsPerKelvin(card.tc, vzNom);
+    const alpha = card.tc;
     const percentPerK = (alpha / vzNom) * 100;
     if (Math.abs(percentPerK) > 0.2) {
-      warn('tc', `tc ${card.tc.value} ${card.tc.unit} is ${percentPerK.toFixed(3)} %/K of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
+      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${percentPerK.toFixed(3)} %/K of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
     }
     const sign = mechanismSignWarning(vzNom, alpha);
     if (sign !== null) warn('tc', sign);

@@ -6,7 +6,7 @@ import { cardArbitrary, logUniform } from './testing/card-arbitraries';
 
 describe('worst-case voltage window over an envelope', () => {
   it('a positive-tc part reaches its lowest at iMin, cold, vzMin and its highest at iMax, hot, vzMax', () => {
-    const model = fitBreakdownModel({ vzNom: 12, vzMin: 11.4, vzMax: 12.6, izt: 0.02, zzt: 9, tc: { value: 8.5, unit: 'mV/K' }, rthJA: 300 });
+    const model = fitBreakdownModel({ vzNom: 12, vzMin: 11.4, vzMax: 12.6, izt: 0.02, zzt: 9, tc: 8.5e-3, rthJA: 300 });
     const w = worstCaseWindow(model, { iMin: 0.005, iMax: 0.03, taMin: -40, taMax: 85 });
     expect(w.atMin).toMatchObject({ current: 0.005, taC: -40, corner: 'min' });
     expect(w.atMax).toMatchObject({ current: 0.03, taC: 85, corner: 'max' });

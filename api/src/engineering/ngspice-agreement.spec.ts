@@ -48,11 +48,11 @@ afterAll(() => {
 });
 
 const EDGE_CARDS: Record<string, EngineeringCard> = {
-  'two-point fit, 12 V avalanche part': { vzNom: 12, vzMin: 11.4, vzMax: 12.6, izt: 0.02, zzt: 9, izk: 0.001, zzk: 120, tc: { value: 8.5, unit: 'mV/K' } },
-  'clamped fit (RS < 0), 5.1 V part': { vzNom: 5.1, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: { value: 0.03, unit: '%/K' } },
-  'one impedance point, 3.3 V tunnelling part': { vzNom: 3.3, izt: 0.005, zzt: 28, tc: { value: -2.2, unit: 'mV/K' } },
-  'knee point only, 24 V part': { vzNom: 24, izt: 0.01, izk: 0.00025, zzk: 600, tc: { value: 0.085, unit: '%/K' } },
-  'stiff 75 V part at 50 mA': { vzNom: 75, izt: 0.05, zzt: 2, izk: 0.005, zzk: 30, tc: { value: 0.09, unit: '%/K' } },
+  'two-point fit, 12 V avalanche part': { vzNom: 12, vzMin: 11.4, vzMax: 12.6, izt: 0.02, zzt: 9, izk: 0.001, zzk: 120, tc: 8.5e-3 },
+  'clamped fit (RS < 0), 5.1 V part': { vzNom: 5.1, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: (0.03 / 100) * 5.1 },
+  'one impedance point, 3.3 V tunnelling part': { vzNom: 3.3, izt: 0.005, zzt: 28, tc: -2.2e-3 },
+  'knee point only, 24 V part': { vzNom: 24, izt: 0.01, izk: 0.00025, zzk: 600, tc: (0.085 / 100) * 24 },
+  'stiff 75 V part at 50 mA': { vzNom: 75, izt: 0.05, zzt: 2, izk: 0.005, zzk: 30, tc: (0.09 / 100) * 75 },
   'no temperature coefficient': { vzNom: 6.8, izt: 0.02, zzt: 3.5, izk: 0.001, zzk: 60 },
 };
 
@@ -151,7 +151,7 @@ describe("the exported model's temperature shift agrees with αVz within 1 % (ng
 
 describe('self-heating against ngspice’s self-heating diode (RTH0, thermal node)', () => {
   it('junction temperature and voltage of a diode fed from 50 V through 1.5 kΩ (ngspice)', async () => {
-    const card: EngineeringCard = { vzNom: 3.9, vzMin: 3.7, vzMax: 4.1, izt: 0.02, zzt: 13, izk: 0.001, zzk: 200, tc: { value: -2.5, unit: 'mV/K' }, rthJA: 400 };
+    const card: EngineeringCard = { vzNom: 3.9, vzMin: 3.7, vzMax: 4.1, izt: 0.02, zzt: 13, izk: 0.001, zzk: 200, tc: -2.5e-3, rthJA: 400 };
     const model = fitBreakdownModel(card);
     const spice = await regulatorAt(spiceModelLine(model, { thermal: true }), 50, 1500, 0, 40, true);
     const op = solveShuntRegulator(model, 50, 1500, 0, 40);
@@ -188,7 +188,7 @@ describe("the regulator's operating points agree with ngspice within 1 mV", () =
 
   it('a 5.1 V design over supply, load, ambient, tolerance and resistor corners, with self-heating (ngspice)', async () => {
     const compared = await expectCornersAgree({
-      card: { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: { value: 0.03, unit: '%/K' }, pdMax: 0.5, tjMax: 175, rthJA: 300 },
+      card: { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: (0.03 / 100) * 5.1, pdMax: 0.5, tjMax: 175, rthJA: 300 },
       supply: { min: 10.8, nom: 12, max: 13.2 },
       load: { min: 0, max: 0.01 },
       ambient: { min: -20, max: 70 },
@@ -222,7 +222,7 @@ describe("the regulator's operating points agree with ngspice within 1 mV", () =
   });
 
   it('line regulation Zd/(R + Zd) matches ngspice’s response to a supply step within 1 % (Sedra & Smith, from memory; ngspice)', async () => {
-    const card: EngineeringCard = { vzNom: 9.1, izt: 0.014, zzt: 10, izk: 0.0005, zzk: 150, tc: { value: 0.06, unit: '%/K' } };
+    const card: EngineeringCard = { vzNom: 9.1, izt: 0.014, zzt: 10, izk: 0.0005, zzk: 150, tc: (0.06 / 100) * 9.1 };
     const model = fitBreakdownModel(card);
     const line = spiceModelLine(model);
     const r = 470;

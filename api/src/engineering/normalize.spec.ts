@@ -26,7 +26,7 @@ describe('normalising a card to other currents and temperatures', () => {
   });
 
   it('answers in the published response shape, ambient-major, with the .model line and the caution', () => {
-    const card: EngineeringCard = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: { value: 0.03, unit: '%/K' }, rthJA: 300 };
+    const card: EngineeringCard = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: (0.03 / 100) * 5.1, rthJA: 300 };
     const response = normalize({ card, currents: [0.001, 0.005, 0.02], temperaturesC: [25, 85] });
     expect(normalizeResponseSchema.parse(response)).toEqual(response);
     expect(response.points.map((p) => [p.tempC, p.current])).toEqual([
@@ -50,7 +50,7 @@ describe('normalising a card to other currents and temperatures', () => {
 
 describe('thermal runaway', () => {
   it('gives null values and says why when RthJA·I·dV/dT ≥ 1 (100 V, +0.1 %/K, 0.5 A, 100 K/W: loop gain 5)', () => {
-    const response = normalize({ card: { vzNom: 100, izt: 0.5, zzt: 10, tc: { value: 0.1, unit: '%/K' }, rthJA: 100 }, currents: [0.5, 0.001] });
+    const response = normalize({ card: { vzNom: 100, izt: 0.5, zzt: 10, tc: (0.1 / 100) * 100, rthJA: 100 }, currents: [0.5, 0.001] });
     expect(normalizeResponseSchema.parse(response)).toEqual(response);
     expect(response.points[0]).toMatchObject({ current: 0.5, tjC: null, vzNom: null });
     expect(response.points[1].vzNom).toEqual(expect.any(Number));
@@ -75,8 +75,10 @@ describe('the request schema rejects bad input naming the field', () => {
     expect(result.error!.issues.map((i) => i.path.join('.'))).toEqual(['card.vzMin', 'card.izk']);
   });
 
-  it('names a tc with a unit it does not know', () => {
-    const result = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: { value: 2, unit: 'mV/°C' } }, currents: [0.01] });
-    expect(result.error!.issues[0].path.join('.')).toBe('card.tc.unit');
+  it('names a tc given as printed rather than in V/K (the card mapping converts it before the core)', () => {
+    const result = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: { value: 2, unit: 'mV/K' } }, currents: [0.01] });
+    expect(result.error!.issues[0].path.join('.')).toBe('card.tc');
+    const tooLarge = normalizeRequestSchema.safeParse({ card: { vzNom: 5.1, izt: 0.02, tc: 2 }, currents: [0.01] });
+    expect(tooLarge.error!.issues[0].path.join('.')).toBe('card.tc');
   });
 });

@@ -1,5 +1,5 @@
 import { formatQuantity, type NormalizedPoint, type NormalizeRequest, type NormalizeResponse } from '@shuntwise/contracts';
-import { diodeVoltage, dynamicImpedance, fitBreakdownModel, type BreakdownModel } from './breakdown-model';
+import { diodeVoltage, dynamicImpedance, fitBreakdownModel, modelSummary, type BreakdownModel } from './breakdown-model';
 import { checkCard } from './card-checks';
 import { DESIGN_CAUTION } from './caution';
 import { mechanismOf } from './mechanism';
@@ -92,16 +92,7 @@ export function normalize(request: NormalizeRequest): NormalizeResponse {
   }
 
   return {
-    model: {
-      bv: model.bv,
-      ibv: model.ibv,
-      nbv: model.nbv,
-      rs: model.rs,
-      nbvVt: model.nbvVt,
-      alphaVz: model.hasAlpha ? model.alphaVz : null,
-      basis: model.basis,
-      assumptions: model.assumptions,
-    },
+    model: modelSummary(model),
     points: runaway ? points.map(withoutNaN) : points,
     mechanism: mechanismOf(card.vzNom),
     warnings,

@@ -79,7 +79,7 @@ describe('bench facts (common practice, no source)', () => {
 });
 
 describe('verdicts say why', () => {
-  const card: EngineeringCard = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: { value: 0.03, unit: '%/K' }, pdMax: 0.5, tjMax: 175, rthJA: 300 };
+  const card: EngineeringCard = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: (0.03 / 100) * 5.1, pdMax: 0.5, tjMax: 175, rthJA: 300 };
   const request: RegulatorRequest = { card, supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.01 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } };
 
   it('designs a working regulator in the published shape, with its assumptions and the caution', () => {

@@ -28,15 +28,15 @@ describe('self-heating Tj = Ta + RthJA·Vz·I', () => {
   });
 
   it('is Ta without rthJA, and when self-heating is off', () => {
-    const model = fitBreakdownModel({ vzNom: 5.1, izt: 0.02, zzt: 17, tc: { value: 0.03, unit: '%/K' } });
+    const model = fitBreakdownModel({ vzNom: 5.1, izt: 0.02, zzt: 17, tc: (0.03 / 100) * 5.1 });
     expect(junctionTemperatureC(model, 0.02, 60)).toBe(60);
-    const heated = fitBreakdownModel({ vzNom: 5.1, izt: 0.02, zzt: 17, tc: { value: 0.03, unit: '%/K' }, rthJA: 300 });
+    const heated = fitBreakdownModel({ vzNom: 5.1, izt: 0.02, zzt: 17, tc: (0.03 / 100) * 5.1, rthJA: 300 });
     expect(voltageAtAmbient(heated, 0.02, 60, 'nom', false)).toBe(diodeVoltage(heated, 0.02, 60));
   });
 
   it('reports thermal runaway as NaN when RthJA·I·dV/dT reaches 1', () => {
     // 100 V part with +0.1 %/K (0.1 V/K) at 0.5 A and 100 K/W: RthJA·I·αVz = 5.
-    const model = fitBreakdownModel({ vzNom: 100, izt: 0.5, zzt: 10, tc: { value: 0.1, unit: '%/K' }, rthJA: 100 });
+    const model = fitBreakdownModel({ vzNom: 100, izt: 0.5, zzt: 10, tc: (0.1 / 100) * 100, rthJA: 100 });
     expect(junctionTemperatureC(model, 0.5, 25)).toBeNaN();
   });
 });

@@ -2,7 +2,7 @@ import { fitBreakdownModel } from './breakdown-model';
 import { spiceModelLine } from './spice-model';
 
 describe('the SPICE .model line', () => {
-  const model = fitBreakdownModel({ vzNom: 6.8, vzMin: 6.46, vzMax: 7.14, izt: 0.02, zzt: 5, izk: 0.004, zzk: 20, tc: { value: 3.4, unit: 'mV/K' }, rthJA: 250 });
+  const model = fitBreakdownModel({ vzNom: 6.8, vzMin: 6.46, vzMax: 7.14, izt: 0.02, zzt: 5, izk: 0.004, zzk: 20, tc: 3.4e-3, rthJA: 250 });
 
   it('carries BV, IBV, NBV, RS and the coefficient as ngspice reads it (TCV = −αVz with TLEV=0, TNOM=25)', () => {
     // BV = 6.8 − 1.25 Ω × 20 mA = 6.775 V; NBV = 0.075 V / 25.6926 mV (hand calculation).

@@ -1,5 +1,5 @@
 import type { ExtractedFields, ExtractedValue, ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
-import { EXTRACTION_FIELDS } from '@shuntwise/contracts';
+import { EXTRACTION_FIELDS, tcVoltsPerKelvin } from '@shuntwise/contracts';
 import { readBlocks } from './block-reader';
 import { covers, DeviceValues, readDeviceValues, specificity } from './device-values';
 import { applyDecimalSeparator, DecimalSeparator, detectDecimalSeparator, printedNumber } from './number-style';
@@ -131,7 +131,7 @@ function tcValue(draft: VariantDraft, c: Candidate, sep: DecimalSeparator, warni
   const vzValue = printedNumber(vz.value, sep);
   return {
     ...plain(c, sep),
-    si: tidy((c.si / 100) * vz.si),
+    si: tidy(tcVoltsPerKelvin({ value: c.si, unit: '%/K' }, vz.si)),
     note: `converted from ${value} ${c.unit} with VZnom = ${vzValue} ${vz.unit}: ${value} % of ${vzValue} V per kelvin`,
     derived: 'converted',
   };

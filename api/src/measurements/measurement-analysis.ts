@@ -10,7 +10,7 @@ import {
   type SampleResult,
   type Spec,
 } from '@shuntwise/contracts';
-import { diodeVoltage, dynamicImpedance, fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { diodeVoltage, dynamicImpedance, fitBreakdownModel } from '../engineering/breakdown-model';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { fitMeasuredSample, MeasuredFitError, spreadOf } from '../engineering/measured-fit';
@@ -41,7 +41,7 @@ export function analyseMeasurements(input: MeasurementAnalysisInput): Measuremen
   const iRef = card?.izt ?? spec?.spec.iRef ?? null;
   const kneeCurrent = card?.izk ?? spec?.spec.knee?.iKnee ?? null;
   if (iRef === null) warnings.push('no card and no spec: the samples are fitted, but there is no test current to read them at');
-  const alphaFallback = card?.tc ? tcToVoltsPerKelvin(card.tc, card.vzNom) : null;
+  const alphaFallback = card?.tc ?? null;
 
   const samples: SampleResult[] = input.samples.map((sample) => {
     const temperatures = [...new Set(sample.points.map((p) => p.tempC))];

@@ -121,7 +121,7 @@ describe('search card and order', () => {
       cardVersion: 3,
       fields: JSON.stringify({ vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), izt: v(0.005), tc: { ...v(0.5), unit: 'mV/K', voltsPerKelvin: 0.0005 } }),
     });
-    expect(card).toMatchObject({ version: 3, vzNom: 5.1, izt: 0.005, zzt: null, tc: { value: 0.5, unit: 'mV/K' }, tcVoltsPerKelvin: 0.0005 });
+    expect(card).toMatchObject({ version: 3, vzNom: 5.1, izt: 0.005, zzt: null, tc: 0.0005 }); // tc as the card stores it in V/K, not converted again
     // 4.85 / 5.36 V are a ±5 % window (4.845…5.355 V) printed to two decimals: 5.355 − 5.1 = 0.255 V = 5 % of 5.1 V.
     expect(card!.tolerance).toBeCloseTo(0.255 / 5.1, 6);
     expect(toSearchCard({ cardVersion: null, fields: null })).toBeNull();

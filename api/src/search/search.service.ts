@@ -2,6 +2,7 @@ import { Injectable, Optional } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
   isUsableState,
+  toEngineeringCard,
   vzTolerance,
   type Clearance,
   type RatingCardFields,
@@ -147,33 +148,30 @@ export function toClearance(pair: PairRow, waivers: ReadonlyMap<number, WaiverBr
   };
 }
 
+/** The search result's card: the engineering card as the one mapping (contracts' toEngineeringCard) reads it, its version and VZ tolerance. */
 export function toSearchCard(part: Pick<PartRow, 'cardVersion' | 'fields'>): SearchCard | null {
   if (part.cardVersion === null || part.fields === null) return null;
   const fields: RatingCardFields = typeof part.fields === 'string' ? (JSON.parse(part.fields) as RatingCardFields) : part.fields;
-  const v = (f: Exclude<keyof RatingCardFields, 'tc'>) => fields[f]?.value ?? null;
-  const vzNom = v('vzNom');
-  const izt = v('izt');
-  if (vzNom === null || izt === null) return null;
-  const vzMin = v('vzMin');
-  const vzMax = v('vzMax');
+  const card = toEngineeringCard(fields);
+  if (!card) return null;
+  const n = (x: number | null | undefined) => x ?? null;
   return {
     version: part.cardVersion,
-    vzMin,
-    vzNom,
-    vzMax,
-    izt,
-    zzt: v('zzt'),
-    izk: v('izk'),
-    zzk: v('zzk'),
-    irMax: v('irMax'),
-    vr: v('vr'),
-    tc: fields.tc ? { value: fields.tc.value, unit: fields.tc.unit } : null,
-    tcVoltsPerKelvin: fields.tc?.voltsPerKelvin ?? null,
-    pdMax: v('pdMax'),
-    pdRefC: v('pdRefC'),
-    tjMax: v('tjMax'),
-    rthJA: v('rthJA'),
-    izm: v('izm'),
+    vzMin: n(card.vzMin),
+    vzNom: card.vzNom,
+    vzMax: n(card.vzMax),
+    izt: card.izt,
+    zzt: n(card.zzt),
+    izk: n(card.izk),
+    zzk: n(card.zzk),
+    irMax: n(card.irMax),
+    vr: n(card.vr),
+    tc: n(card.tc),
+    pdMax: n(card.pdMax),
+    pdRefC: n(card.pdRefC),
+    tjMax: n(card.tjMax),
+    rthJA: n(card.rthJA),
+    izm: n(card.izm),
     tolerance: vzTolerance(fields),
   };
 }

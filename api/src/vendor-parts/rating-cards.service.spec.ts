@@ -51,7 +51,7 @@ describe('storedFields', () => {
 });
 
 describe('normalizeAt', () => {
-  const card = { vzNom: 5.1, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500, tc: { value: 0.3, unit: 'mV/K' as const } };
+  const card = { vzNom: 5.1, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500, tc: 0.3e-3 };
   it("uses the spec's reference, knee and envelope currents at 25 °C and the envelope's ambients", () => {
     const spec = specSchema.parse({
       iRef: 2e-3,

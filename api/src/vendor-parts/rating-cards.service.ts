@@ -4,6 +4,7 @@ import {
   CARD_FIELDS,
   normalizeBasis,
   normalizeRequestFor,
+  tcVoltsPerKelvin,
   toEngineeringCard,
   type Actor,
   type CardField,
@@ -23,7 +24,7 @@ import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
-import { fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
+import { fitBreakdownModel, modelSummary } from '../engineering/breakdown-model';
 import { checkCard } from '../engineering/card-checks';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
@@ -137,16 +138,7 @@ export class RatingCardsService {
         min: fitted.hasVzMin ? spiceModelLine(fitted, { name: `${name}_MIN`, corner: 'min' }) : null,
         max: fitted.hasVzMax ? spiceModelLine(fitted, { name: `${name}_MAX`, corner: 'max' }) : null,
       },
-      model: {
-        bv: fitted.bv,
-        ibv: fitted.ibv,
-        nbv: fitted.nbv,
-        rs: fitted.rs,
-        nbvVt: fitted.nbvVt,
-        alphaVz: fitted.hasAlpha ? fitted.alphaVz : null,
-        basis: fitted.basis,
-        assumptions: fitted.assumptions,
-      },
+      model: modelSummary(fitted),
       warnings: fitted.warnings,
       caution: DESIGN_CAUTION,
     };
@@ -267,7 +259,7 @@ export function storedFields(input: RatingCardFieldsParsed, previous: RatingCard
     };
     const stored: StoredValue =
       field === 'tc' && 'unit' in value
-        ? { ...base, unit: value.unit, voltsPerKelvin: tcToVoltsPerKelvin({ value: value.value, unit: value.unit }, vzNom) }
+        ? { ...base, unit: value.unit, voltsPerKelvin: tcVoltsPerKelvin({ value: value.value, unit: value.unit }, vzNom) }
         : base;
     const before = previous?.[field];
     if (before && before.provenance.confirmedBy && stored.provenance.confirmedBy && fingerprint(before) === fingerprint(stored)) {

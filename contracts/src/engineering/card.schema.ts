@@ -3,9 +3,9 @@ import { leakageCurrent, physical, PHYSICAL_BOUNDS } from '../units/bounds';
 import { fieldWithValue as fw } from '../units/field-labels';
 
 /**
- * The ratings the engineering core computes from, in SI (V, A, Ω, W, °C, K/W). The
- * temperature coefficient stays in the unit the datasheet printed it in (mV/K or %/K);
- * the core turns it into V/K. Missing values may be absent or null.
+ * The ratings the engineering core computes from, all SI (V, A, Ω, W, °C, K/W, and the
+ * temperature coefficient in V/K). The card keeps the coefficient as printed (mV/K or %/K)
+ * for provenance; `tcVoltsPerKelvin` is the one conversion. Missing values may be absent or null.
  */
 export const TEMP_CO_UNITS = ['mV/K', '%/K'] as const;
 export const tempCoUnitSchema = z.enum(TEMP_CO_UNITS);
@@ -23,6 +23,15 @@ export const tempCoSchema = z
     }
   });
 export type TempCo = z.infer<typeof tempCoSchema>;
+
+/**
+ * A coefficient as printed in V/K: mV/K scaled, %/K taken of the nominal Zener voltage
+ * (a relative coefficient is a fraction of VZ per kelvin). The only place the printed
+ * form becomes the SI value: the card write, the card mapping and extraction call it.
+ */
+export function tcVoltsPerKelvin(tc: TempCo, vzNom: number): number {
+  return tc.unit === 'mV/K' ? tc.value * 1e-3 : (tc.value / 100) * vzNom;
+}
 
 // Ranges from the one table of plausible values (units/bounds.ts).
 const zenerVolts = physical('zenerVoltage');
@@ -46,7 +55,8 @@ export const engineeringCardShape = {
   /** Maximum reverse leakage (A) at reverse voltage vr (V). */
   irMax: leakageCurrent().nullish(),
   vr: physical('voltage').nullish(),
-  tc: tempCoSchema.nullish(),
+  /** Temperature coefficient of VZ at izt (V/K). */
+  tc: physical('tempCoVoltsPerK').nullish(),
   /** Power rating (W) at the reference temperature pdRefC (°C, 25 °C when absent). */
   pdMax: physical('power').nullish(),
   pdRefC: celsius.nullish(),

@@ -3,7 +3,9 @@ import {
   cardIssueSchema,
   engineeringCardContradictions,
   engineeringCardShape,
+  tempCoSchema,
   tempCoUnitSchema,
+  tcVoltsPerKelvin,
   type EngineeringCardInput,
 } from '../engineering/card.schema';
 import { breakdownModelSchema, normalizeResponseSchema } from '../engineering/normalize.schema';
@@ -83,8 +85,11 @@ export const cardValueInputSchema = z.strictObject({
 });
 export type CardValueInput = z.input<typeof cardValueInputSchema>;
 
-/** tc as the datasheet gives it: mV/K or %/K; the API adds V/K. */
-export const tcValueInputSchema = cardValueInputSchema.extend({ unit: tempCoUnitSchema });
+/** tc as the datasheet gives it: mV/K or %/K (within that unit's plausible range); the API stores its V/K beside it. */
+export const tcValueInputSchema = cardValueInputSchema.extend({ unit: tempCoUnitSchema }).superRefine((tc, ctx) => {
+  const printed = tempCoSchema.safeParse({ value: tc.value, unit: tc.unit });
+  if (!printed.success) for (const issue of printed.error.issues) ctx.addIssue({ code: 'custom', path: ['value'], message: `tc: ${issue.message}` });
+});
 export type TcValueInput = z.input<typeof tcValueInputSchema>;
 
 const fieldsInputShape = {
@@ -105,12 +110,19 @@ const fieldsInputShape = {
   izm: cardValueInputSchema.nullish(),
 };
 
-/** Anything with card fields holding `value` (and tc's `unit`): the input, the stored card. */
-type ValuedFields = Partial<Record<PlainCardField, { value: number } | null | undefined>> & {
-  tc?: { value: number; unit: 'mV/K' | '%/K' } | null;
+/**
+ * Anything with card fields holding `value`: the stored card (tc with its `voltsPerKelvin`),
+ * the input and the editor's draft (tc as printed, converted here with the card's vzNom).
+ */
+export type ValuedFields = Partial<Record<PlainCardField, { value: number } | null | undefined>> & {
+  tc?: { value: number; unit: 'mV/K' | '%/K'; voltsPerKelvin?: number } | null;
 };
 
-/** The card as the engineering core reads it (SI, tc as printed); null without vzNom or izt. */
+/**
+ * THE mapping from a card to the engineering core's input (all SI, tc in V/K); null without
+ * vzNom or izt. The evaluation, the card read, search (and so the circuit check) and the
+ * card editor all read a card through it, so the numbers shown and the numbers judged agree.
+ */
 export function toEngineeringCard(fields: ValuedFields): EngineeringCardInput | null {
   const v = (f: PlainCardField) => fields[f]?.value ?? null;
   const vzNom = v('vzNom');
@@ -126,7 +138,7 @@ export function toEngineeringCard(fields: ValuedFields): EngineeringCardInput | 
     zzk: v('zzk'),
     irMax: v('irMax'),
     vr: v('vr'),
-    tc: fields.tc ? { value: fields.tc.value, unit: fields.tc.unit } : null,
+    tc: fields.tc ? (fields.tc.voltsPerKelvin ?? tcVoltsPerKelvin(fields.tc, vzNom)) : null,
     pdMax: v('pdMax'),
     pdRefC: v('pdRefC'),
     tjMax: v('tjMax'),

@@ -1,6 +1,5 @@
 import { z } from 'zod';
 import { fieldWithValue as fw } from '../units/field-labels';
-import { tempCoSchema } from '../engineering/card.schema';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
 import { USABLE_STATES } from '../qualifications/source-standing';
@@ -105,9 +104,9 @@ export const clearanceSchema = z.object({
 export type Clearance = z.infer<typeof clearanceSchema>;
 
 /**
- * The card as a designer chooses by it (SI). The fields `POST /engineering/regulator`
- * takes as `card` are the engineering card's; `tcVoltsPerKelvin`, `tolerance` and
- * `version` are for display.
+ * The card as a designer chooses by it (SI): the engineering card as `toEngineeringCard`
+ * reads the stored card (what `POST /engineering/regulator` takes as `card`), plus
+ * `version` and `tolerance` for display.
  */
 export const searchCardSchema = z.object({
   version: z.number().int(),
@@ -120,8 +119,8 @@ export const searchCardSchema = z.object({
   zzk: z.number().nullable(),
   irMax: z.number().nullable(),
   vr: z.number().nullable(),
-  tc: tempCoSchema.nullable(),
-  tcVoltsPerKelvin: z.number().nullable(),
+  /** Temperature coefficient (V/K). */
+  tc: z.number().nullable(),
   pdMax: z.number().nullable(),
   pdRefC: z.number().nullable(),
   tjMax: z.number().nullable(),

@@ -1,6 +1,6 @@
 // Test-only: fast-check generators of plausible, invented rating cards for the engineering specs.
 import fc from 'fast-check';
-import type { EngineeringCard } from '@shuntwise/contracts';
+import { tcVoltsPerKelvin, type EngineeringCard } from '@shuntwise/contracts';
 
 /** Log-uniform double in [min, max]. */
 export function logUniform(min: number, max: number): fc.Arbitrary<number> {
@@ -36,7 +36,8 @@ export const cardArbitrary: fc.Arbitrary<EngineeringCard> = fc
       vzMax: vzNom * (1 + tolerance),
       izt,
       zzt,
-      tc: tcUnit === 'mV/K' ? { value: alpha * 1e3, unit: 'mV/K' } : { value: sign * tcPercent, unit: '%/K' },
+      // As the card mapping hands it over: V/K, whichever unit the datasheet printed.
+      tc: tcUnit === 'mV/K' ? tcVoltsPerKelvin({ value: alpha * 1e3, unit: 'mV/K' }, vzNom) : tcVoltsPerKelvin({ value: sign * tcPercent, unit: '%/K' }, vzNom),
       pdMax: 0.5,
       tjMax: 175,
       rthJA: rthJA ?? null,

@@ -19,7 +19,7 @@ describe('Compare chart data', () => {
   });
 
   it('draws each ambient’s curve; without rthJA Tj = Ta, so at izt V = vz + αVz·(Ta − 25 °C) (DESIGN.md temperature law, common practice, no source)', () => {
-    const card = { vzNom: 5.1, vzMin: 4.9, vzMax: 5.3, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500, tc: { value: 0.3, unit: 'mV/K' as const } };
+    const card = { vzNom: 5.1, vzMin: 4.9, vzMax: 5.3, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500, tc: 0.3e-3 };
     const curves = compareCurves(card, [1e-3, 5e-3, 20e-3], [-40, 25, 85]);
     expect(curves.map((c) => c.tempC)).toEqual([-40, 25, 85]);
     const atIzt = (t: number) => curves.find((c) => c.tempC === t)!.points[1];

@@ -1,4 +1,4 @@
-import { specSchema, type EngineeringCardInput, type Evaluation, type QualificationCheck, type SpecInput } from '@shuntwise/contracts';
+import { specSchema, tcVoltsPerKelvin, type EngineeringCardInput, type Evaluation, type QualificationCheck, type SpecInput } from '@shuntwise/contracts';
 import { evaluateCard, overallVerdict, verdictOfMargin } from './evaluate';
 
 /**
@@ -41,7 +41,7 @@ const CARD: EngineeringCardInput = {
   zzk: 500,
   irMax: 1e-6,
   vr: 2,
-  tc: { value: 0.3, unit: 'mV/K' },
+  tc: 0.3e-3,
   pdMax: 0.5,
   pdRefC: 25,
   tjMax: 150,
@@ -202,14 +202,14 @@ describe('temperature coefficient and mechanism', () => {
   });
 
   it('0.06 %/K of 5.1 V is 3.06 mV/K: 2 % beyond the window’s +3 mV/K', () => {
-    const c = check(run(undefined, { ...CARD, tc: { value: 0.06, unit: '%/K' } }), 'tc');
+    const c = check(run(undefined, { ...CARD, tc: tcVoltsPerKelvin({ value: 0.06, unit: '%/K' }, CARD.vzNom) }), 'tc');
     expect(c.value).toBeCloseTo(3.06e-3, 12);
     expect(c.margin).toBeCloseTo(-2, 9);
     expect(c.verdict).toBe('fail');
   });
 
   it('warns when the sign disagrees with the mechanism: a 3.3 V (tunnelling) part drifting up with heat (common practice, no source)', () => {
-    const card = { ...CARD, vzMin: 3.1, vzNom: 3.3, vzMax: 3.5, vr: 1, zzt: 80, zzk: 1200, tc: { value: 0.5, unit: 'mV/K' as const } };
+    const card = { ...CARD, vzMin: 3.1, vzNom: 3.3, vzMax: 3.5, vr: 1, zzt: 80, zzk: 1200, tc: 0.5e-3 };
     const e = run(spec({ vz: { min: 3.0, nom: 3.3, max: 3.6 }, zdMax: 100, leakage: { irMax: 5e-6, vr: 1 }, knee: null }), card);
     expect(e.mechanism).toBe('tunnelling');
     expect(check(e, 'tc').warnings[0]).toMatch(/tc is positive but a 3\.3 V part breaks down mainly by tunnelling/);
@@ -245,7 +245,7 @@ describe('output window over the envelope', () => {
     const s = spec({ envelope: single, outputWindow: { vMin: 4.5, vMax: 5.8 } });
     expect(check(run(s, { ...CARD, rthJA: null }), 'output-window')).toMatchObject({ verdict: 'no-data' });
     // loop gain Rth·I·α = 1000 K/W · 5 mA · 0.25 V/K ≥ 1: no steady state at any corner
-    const runaway = check(run(s, { ...CARD, rthJA: 1000, tc: { value: 250, unit: 'mV/K' } }), 'output-window');
+    const runaway = check(run(s, { ...CARD, rthJA: 1000, tc: 250e-3 }), 'output-window');
     expect(runaway.verdict).toBe('fail');
     expect(runaway.detail).toMatch(/thermal runaway/);
   });

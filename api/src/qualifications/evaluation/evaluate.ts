@@ -3,7 +3,6 @@ import {
   CHECK_LABELS,
   formatQuantity,
   QUALIFICATION_VERDICT_LABELS,
-  type BreakdownModelSummary,
   type CheckId,
   type EngineeringCardInput,
   type Evaluation,
@@ -13,10 +12,11 @@ import {
   type Spec,
   type VoltageWindow,
 } from '@shuntwise/contracts';
-import { diodeVoltage, dynamicImpedance, fitBreakdownModel, tcToVoltsPerKelvin, voltageSpan, type BreakdownModel } from '../../engineering/breakdown-model';
+import { diodeVoltage, dynamicImpedance, fitBreakdownModel, modelSummary, type BreakdownModel } from '../../engineering/breakdown-model';
 import { checkCard } from '../../engineering/card-checks';
 import { DESIGN_CAUTION } from '../../engineering/caution';
 import { EngineeringInputError } from '../../engineering/engineering-input.error';
+import { kneeReading } from '../../engineering/knee';
 import { worstCaseWindow } from '../../engineering/envelope';
 import { mechanismOf, mechanismSignWarning } from '../../engineering/mechanism';
 import { T_REF_C } from '../../engineering/physics';
@@ -263,40 +263,6 @@ function kneeSpanCheck(ctx: CheckContext): CheckResult {
   };
 }
 
-interface KneeReading {
-  zd(current: number): number;
-  span(iLow: number, iHigh: number): number;
-  assumption: string;
-}
-
-/**
- * How the knee is read from a card: the two-point fit when it is physical. When the two
- * points need RS < 0 (Zd falling faster than 1/I, usually printed values rounded), the
- * clamped model would understate the knee, so the card's points are joined by a power law
- * Zd = zzt·(izt/I)^p instead, which passes through both. Without a knee point there is no
- * vendor data for the knee at all.
- */
-export function kneeReading(model: BreakdownModel, card: EngineeringCardInput): KneeReading | { missing: string } {
-  if (model.basis === 'two-point') {
-    return {
-      zd: (i) => dynamicImpedance(model, i, T_REF_C),
-      span: (a, b) => voltageSpan(model, a, b, T_REF_C),
-      assumption: 'Zd(I) = NBV·Vt/I + RS through both impedance points of the card',
-    };
-  }
-  if (model.basis === 'clamped' && card.zzt != null && card.zzk != null && card.izk != null && card.zzk > card.zzt) {
-    const { zzt, izt } = { zzt: card.zzt, izt: card.izt };
-    const p = Math.log(card.zzk / zzt) / Math.log(izt / card.izk);
-    return {
-      zd: (i) => zzt * (izt / i) ** p,
-      span: (a, b) => (Math.abs(p - 1) < 1e-12 ? zzt * izt * Math.log(b / a) : (zzt * izt ** p * (b ** (1 - p) - a ** (1 - p))) / (1 - p)),
-      assumption: `the card's impedance points need RS < 0, which no junction has: Zd joined through both points as ZZT·(IZT/I)^p with p = ${fixed(p)}, which does not understate the knee as the clamped fit would`,
-    };
-  }
-  if (model.basis === 'clamped') return { missing: 'the card’s ZZK is not above its ZZT, so its knee point contradicts itself: the knee is not known' };
-  return { missing: 'the card gives no knee point (IZK with ZZK): the curve below IZT would be an assumption, not vendor data' };
-}
-
 function leakageCheck(ctx: CheckContext): CheckResult {
   const { spec, card } = ctx;
   if (!spec.leakage) return { skip: 'the spec sets no leakage limit' };
@@ -338,14 +304,13 @@ function tcCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'tc' as const, quantity: 'tempCoVoltage' as const, limitKind: 'window' as const, window: { min, max } };
   if (!card) return noData(base, ctx.noCard!);
   if (card.tc == null) return noData(base, 'the card gives no temperature coefficient');
-  const alpha = tcToVoltsPerKelvin(card.tc, card.vzNom);
+  const alpha = card.tc;
   const mechanism = mechanismOf(card.vzNom);
   const sign = mechanismSignWarning(card.vzNom, alpha);
   // Coefficient windows often straddle zero: measure against the larger end, not the nearer one.
   const reference = Math.max(Math.abs(min), Math.abs(max));
   const lowBinds = alpha - min <= max - alpha;
   const margin = reference > 0 ? percent(Math.min(alpha - min, max - alpha), reference) : alpha === 0 ? 0 : -100;
-  const assumptions = card.tc.unit === '%/K' ? [`${card.tc.value} %/K converted to V/K with VZ nom (${volts(card.vzNom)})`] : [];
   return {
     ...base,
     label: CHECK_LABELS.tc,
@@ -356,7 +321,7 @@ function tcCheck(ctx: CheckContext): CheckResult {
     text: null,
     margin,
     detail: `αVz ${tempCo(alpha)} (${mechanism} breakdown expected at ${volts(card.vzNom)}) against the window ${tempCo(min)} … ${tempCo(max)}`,
-    assumptions: [...assumptions, 'margin in % of the window end farther from zero'],
+    assumptions: ['margin in % of the window end farther from zero'],
     warnings: sign ? [sign] : [],
   };
 }
@@ -539,19 +504,6 @@ function summarise(overall: QualificationVerdict, checks: QualificationCheck[], 
   }
 }
 
-function modelSummary(model: BreakdownModel): BreakdownModelSummary {
-  return {
-    bv: model.bv,
-    ibv: model.ibv,
-    nbv: model.nbv,
-    rs: model.rs,
-    nbvVt: model.nbvVt,
-    alphaVz: model.hasAlpha ? model.alphaVz : null,
-    basis: model.basis,
-    assumptions: model.assumptions,
-  };
-}
-
 /** difference / |reference| in percent, with float noise on a limit read as exactly 0. */
 function percent(difference: number, reference: number): number {
   const p = (difference / Math.abs(reference)) * 100;
@@ -575,7 +527,7 @@ const volts = (x: number) => formatQuantity(x, 'voltage');
 const amps = (x: number) => formatQuantity(x, 'current');
 const ohms = (x: number) => formatQuantity(x, 'resistance');
 const watts = (x: number) => formatQuantity(x, 'power');
-const tempCo = (x: number) => `${fixed(x * 1e3)} mV/K`;
+const tempCo = (x: number) => formatQuantity(x, 'tempCoVoltage');
 function fixed(x: number): string {
   return Number(x.toPrecision(4)).toString();
 }

@@ -245,7 +245,7 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     it('exports the results as CSV with headers in words and units, and the circuit check columns once it ran', async () => {
       recordDownloads();
       signInAs('designer');
-      const noisy = searchItem(5, 'BRZ05-5V1', { card: { ...APPROVED.card!, tcVoltsPerKelvin: 0.0012 - 0.003 } });
+      const noisy = searchItem(5, 'BRZ05-5V1', { card: { ...APPROVED.card!, tc: 0.0012 - 0.003 } });
       mockApi({
         'GET /api/auth/me': { body: DEMO_USERS.designer },
         'GET /api/search/facets': { body: FACETS },

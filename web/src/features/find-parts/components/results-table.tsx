@@ -223,7 +223,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                     <Quantity value={item.card?.pdMax} kind="power" />
                   </Table.Td>
                   <Table.Td ta="right" fz="sm">
-                    <span style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}>{formatTempCo(item.card?.tcVoltsPerKelvin)}</span>
+                    <span style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}>{formatTempCo(item.card?.tc)}</span>
                   </Table.Td>
                   <Table.Td maw={360}>
                     <ClearanceList item={item} linkHouseParts={linkCatalogue} />

@@ -128,25 +128,13 @@ export function validateCircuit(v: CircuitValues): Partial<Record<keyof CircuitV
 }
 
 
-/** The card fields the engineering core reads, from a search result's card. */
+/**
+ * The engineering card of a search result. The API built it with the one card mapping
+ * (contracts' toEngineeringCard); here only the display figures are set aside, nothing is read anew.
+ */
 export function engineeringCard(card: SearchCard): EngineeringCardInput {
-  return {
-    vzNom: card.vzNom,
-    vzMin: card.vzMin,
-    vzMax: card.vzMax,
-    izt: card.izt,
-    zzt: card.zzt,
-    izk: card.izk,
-    zzk: card.zzk,
-    irMax: card.irMax,
-    vr: card.vr,
-    tc: card.tc,
-    pdMax: card.pdMax,
-    pdRefC: card.pdRefC,
-    tjMax: card.tjMax,
-    rthJA: card.rthJA,
-    izm: card.izm,
-  };
+  const { version: _version, tolerance: _tolerance, ...engineering } = card;
+  return engineering;
 }
 
 export function regulatorRequest(circuit: CircuitRequest, card: SearchCard): RegulatorRequest {
@@ -201,7 +189,7 @@ export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): stri
     `the smallest load (${formatQuantity(circuit.load.min, 'current')}), where all the current flows through the diode`,
   ];
   if (card.tolerance !== null) out.push(`the diode's tolerance of ±${(card.tolerance * 100).toPrecision(2)} % on VZ`);
-  if (card.tcVoltsPerKelvin !== null) out.push(`the drift of VZ with temperature (${formatTempCo(card.tcVoltsPerKelvin)}) over ${circuit.ambient.min} … ${circuit.ambient.max} °C and self-heating`);
+  if (card.tc !== null) out.push(`the drift of VZ with temperature (${formatTempCo(card.tc)}) over ${circuit.ambient.min} … ${circuit.ambient.max} °C and self-heating`);
   out.push(`the resistor's own tolerance (±${Number((circuit.resistor.tolerance * 100).toPrecision(3))} %) and its standard values`);
   out.push(`the knee: the diode needs a minimum current to regulate`);
   out.push(`the diode's power rating, derated at the highest ambient`);

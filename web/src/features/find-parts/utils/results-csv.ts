@@ -76,7 +76,7 @@ export function resultsCsv(items: readonly SearchItem[], checks?: ReadonlyMap<nu
       card?.tolerance != null ? roundToDigits(card.tolerance * 100, 2) : null,
       r3(card?.zzt),
       r3(card?.pdMax),
-      r3(card?.tcVoltsPerKelvin),
+      r3(card?.tc),
       clearances(item),
     ];
     if (withChecks) row.push(...checkCells(checks.get(item.vendorPart.id)));

@@ -2,8 +2,8 @@ import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { AnyRole } from '../common/decorators/roles.decorator';
 import { NormalizeRequestDto, NormalizeResponseDto, RegulatorRequestDto, RegulatorResponseDto } from './engineering.dto';
-import { normalize } from './normalize';
-import { designRegulator } from './regulator';
+import { normalize } from '../engineering/normalize';
+import { designRegulator } from '../engineering/regulator';
 
 /** Computations only: nothing is stored, so both answer 200 rather than 201. */
 @ApiTags('engineering')
