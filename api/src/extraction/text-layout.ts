@@ -33,19 +33,7 @@ export function pageLines(page: PdfPageText): Line[] {
   const items = page.items
     .map((i) => ({ str: i.str, x0: i.x, x1: i.x + i.width, y: i.y, size: i.height || 1 }))
     .sort((a, b) => b.y - a.y || a.x0 - b.x0);
-  const groups: Array<typeof items> = [];
-  for (const item of items) {
-    const current = groups[groups.length - 1];
-    if (current) {
-      const ref = current[0];
-      // Subscripts sit a little lower than their line; other lines are a full line away.
-      if (Math.abs(ref.y - item.y) <= 0.45 * Math.max(ref.size, item.size)) {
-        current.push(item);
-        continue;
-      }
-    }
-    groups.push([item]);
-  }
+  const groups = inReadingOrder(groupByBaseline(items));
   return groups.map((group, index) => {
     group.sort((a, b) => a.x0 - b.x0);
     const cells: Cell[] = [];
@@ -67,6 +55,106 @@ export function pageLines(page: PdfPageText): Line[] {
     const text = cells.map((c) => c.text).join(' ');
     return { page: page.page, index, y, size, cells, text, printed: text };
   });
+}
+
+interface Placed {
+  str: string;
+  x0: number;
+  x1: number;
+  y: number;
+  size: number;
+}
+
+function groupByBaseline(items: Placed[]): Placed[][] {
+  const groups: Placed[][] = [];
+  for (const item of items) {
+    const current = groups[groups.length - 1];
+    if (current) {
+      const ref = current[0];
+      // Subscripts sit a little lower than their line; other lines are a full line away.
+      if (Math.abs(ref.y - item.y) <= 0.45 * Math.max(ref.size, item.size)) {
+        current.push(item);
+        continue;
+      }
+    }
+    groups.push([item]);
+  }
+  return groups;
+}
+
+/** No text within this many points of a gutter's line. */
+const GUTTER_CLEAR = 6;
+
+/**
+ * Two-column pages: the vertical line in the middle of the text with the most baselines
+ * that hold text on its left only AND the most that hold text on its right only (two columns
+ * keep baselines of their own), less the baselines whose text runs across it.
+ */
+function findGutter(groups: Placed[][]): number | undefined {
+  const all = groups.flat();
+  if (all.length < 20) return undefined;
+  const left = Math.min(...all.map((i) => i.x0));
+  const right = Math.max(...all.map((i) => i.x1));
+  const span = right - left;
+  let best: number[] = [];
+  let bestScore = 0;
+  for (let x = Math.round(left + 0.3 * span); x <= left + 0.7 * span; x += 1) {
+    let onlyLeft = 0;
+    let onlyRight = 0;
+    let crossing = 0;
+    for (const g of groups) {
+      if (g.every((i) => i.x1 + GUTTER_CLEAR <= x)) onlyLeft++;
+      else if (g.every((i) => i.x0 - GUTTER_CLEAR >= x)) onlyRight++;
+      else if (g.some((i) => i.x0 < x && i.x1 > x)) crossing++;
+    }
+    const score = Math.min(onlyLeft, onlyRight) - crossing;
+    if (score > bestScore) {
+      bestScore = score;
+      best = [x];
+    } else if (score === bestScore && best.length && best[best.length - 1] === x - 1) best.push(x);
+  }
+  return bestScore >= 3 ? best[Math.floor(best.length / 2)] : undefined;
+}
+
+/**
+ * Reading order on a page that may hold two columns: between baselines that run across the
+ * gutter, the left column is read first, then the right one. Rows that hold text on both
+ * sides on one exact baseline, two or more in a row, are a table across the page and stay
+ * whole (two columns keep baselines of their own; they meet only by chance).
+ */
+function inReadingOrder(groups: Placed[][]): Placed[][] {
+  const x = findGutter(groups);
+  if (x === undefined) return groups;
+  const crosses = (g: Placed[]) => g.some((i) => i.x0 < x && i.x1 > x);
+  const meanY = (g: Placed[]) => g.reduce((a, i) => a + i.y, 0) / g.length;
+  const shared = (g: Placed[]) => {
+    const l = g.filter((i) => i.x1 <= x);
+    const r = g.filter((i) => i.x0 >= x);
+    return l.length > 0 && r.length > 0 && Math.abs(meanY(l) - meanY(r)) < 0.5;
+  };
+  const out: Placed[][] = [];
+  let part: Placed[][] = [];
+  const splitPart = () => {
+    for (const g of part) {
+      const l = g.filter((i) => i.x1 <= x);
+      if (l.length) out.push(l);
+    }
+    for (const g of part) {
+      const r = g.filter((i) => i.x1 > x);
+      if (r.length) out.push(r);
+    }
+    part = [];
+  };
+  for (let k = 0; k < groups.length; k++) {
+    const g = groups[k];
+    const tableRow = shared(g) && ((k > 0 && shared(groups[k - 1])) || (k + 1 < groups.length && shared(groups[k + 1])));
+    if (crosses(g) || tableRow) {
+      splitPart();
+      out.push(g);
+    } else part.push(g);
+  }
+  splitPart();
+  return out;
 }
 
 export function cellBox(c: Cell): { x: number; y: number; width: number; height: number } {

@@ -283,6 +283,16 @@ export class Flow {
     this.topOfColumn = this.y;
   }
 
+  /**
+   * Below a block drawn across the whole frame (a series table): the columns start again
+   * under it, so that nothing is later drawn over it in the right-hand column.
+   */
+  belowFullWidth(y: number): void {
+    this.col = 0;
+    this.y = y;
+    this.topOfColumn = y;
+  }
+
   /** Moves to the right-hand column (two-column pages), else stays. */
   nextColumn(): void {
     if (this.columns === 2 && this.col === 0) {
