@@ -91,27 +91,70 @@ const GUTTER_CLEAR = 6;
  * keep baselines of their own), less the baselines whose text runs across it.
  */
 function findGutter(groups: Placed[][]): number | undefined {
-  const all = groups.flat();
-  if (all.length < 20) return undefined;
-  const left = Math.min(...all.map((i) => i.x0));
-  const right = Math.max(...all.map((i) => i.x1));
-  const span = right - left;
+  let count = 0;
+  let left = Infinity;
+  let right = -Infinity;
+  for (const g of groups) {
+    for (const i of g) {
+      count++;
+      left = Math.min(left, i.x0);
+      right = Math.max(right, i.x1);
+    }
+  }
+  if (count < 20) return undefined;
+  const from = Math.round(left + 0.3 * (right - left));
+  const to = Math.floor(left + 0.7 * (right - left));
+  if (to <= from) return undefined;
+  // Per candidate x (whole points from `from`): baselines wholly left, wholly right, and crossing it, by difference arrays.
+  const n = to - from + 2;
+  const leftStarts = new Int32Array(n);
+  const rightEnds = new Int32Array(n);
+  const cross = new Int32Array(n);
+  const at = (x: number) => Math.min(n - 1, Math.max(0, x - from));
+  for (const g of groups) {
+    let maxX1 = -Infinity;
+    let minX0 = Infinity;
+    for (const i of g) {
+      maxX1 = Math.max(maxX1, i.x1);
+      minX0 = Math.min(minX0, i.x0);
+    }
+    // Wholly left of x from maxX1 + clear on; wholly right of it up to minX0 − clear.
+    if (Math.ceil(maxX1 + GUTTER_CLEAR) <= to) leftStarts[at(Math.ceil(maxX1 + GUTTER_CLEAR))]++;
+    if (Math.floor(minX0 - GUTTER_CLEAR) >= from) rightEnds[at(Math.floor(minX0 - GUTTER_CLEAR))]++;
+    {
+      // Crossing where one of its runs spans x (x0 < x < x1), counted once per baseline.
+      const spans = g.map((i) => [Math.floor(i.x0) + 1, Math.ceil(i.x1) - 1] as const).sort((a, b) => a[0] - b[0]);
+      let [a, b] = [Infinity, -Infinity];
+      const flush = () => {
+        if (b >= a && b >= from && a <= to) {
+          cross[at(a)]++;
+          cross[at(b) + 1 < n ? at(b) + 1 : n - 1]--;
+        }
+      };
+      for (const [s0, s1] of spans) {
+        if (s0 > b + 1) {
+          flush();
+          [a, b] = [s0, s1];
+        } else b = Math.max(b, s1);
+      }
+      flush();
+    }
+  }
   let best: number[] = [];
   let bestScore = 0;
-  for (let x = Math.round(left + 0.3 * span); x <= left + 0.7 * span; x += 1) {
-    let onlyLeft = 0;
-    let onlyRight = 0;
-    let crossing = 0;
-    for (const g of groups) {
-      if (g.every((i) => i.x1 + GUTTER_CLEAR <= x)) onlyLeft++;
-      else if (g.every((i) => i.x0 - GUTTER_CLEAR >= x)) onlyRight++;
-      else if (g.some((i) => i.x0 < x && i.x1 > x)) crossing++;
-    }
+  let onlyLeft = 0;
+  let onlyRight = rightEnds.reduce((acc, v) => acc + v, 0);
+  let crossing = 0;
+  for (let k = 0; k + from <= to; k++) {
+    onlyLeft += leftStarts[k];
+    crossing += cross[k];
+    const x = from + k;
     const score = Math.min(onlyLeft, onlyRight) - crossing;
     if (score > bestScore) {
       bestScore = score;
       best = [x];
     } else if (score === bestScore && best.length && best[best.length - 1] === x - 1) best.push(x);
+    onlyRight -= rightEnds[k];
   }
   return bestScore >= 3 ? best[Math.floor(best.length / 2)] : undefined;
 }
