@@ -162,8 +162,9 @@ function findGutter(groups: Placed[][]): number | undefined {
 /**
  * Reading order on a page that may hold two columns: between baselines that run across the
  * gutter, the left column is read first, then the right one. Rows that hold text on both
- * sides on one exact baseline, two or more in a row, are a table across the page and stay
- * whole (two columns keep baselines of their own; they meet only by chance).
+ * sides on one exact baseline, two or more in a row, mostly going on past the gutter with a
+ * value, are a table across the page and stay whole (two columns keep baselines of their own
+ * and meet only by chance, or start a label of their own on the right).
  */
 function inReadingOrder(groups: Placed[][]): Placed[][] {
   const x = findGutter(groups);
@@ -188,10 +189,25 @@ function inReadingOrder(groups: Placed[][]): Placed[][] {
     }
     part = [];
   };
+  // A row of a table across the page goes on past the gutter with a value ("5.1", "−0.94 %/K");
+  // two columns side by side start a label of their own there ("Zener voltage …", "A 0.95 1.35").
+  const valueAfterGutter = (g: Placed[]) => {
+    const r = g.filter((i) => i.x0 >= x).sort((a, b) => a.x0 - b.x0);
+    return r.length > 0 && /^\s*[<≤>≥±+\-−–]?\s*\.?\d/u.test(r[0].str);
+  };
+  const tableRows = new Set<number>();
+  for (let k = 0; k < groups.length; ) {
+    let e = k;
+    while (e < groups.length && shared(groups[e])) e++;
+    if (e - k >= 2) {
+      const run = groups.slice(k, e);
+      if (run.filter(valueAfterGutter).length * 2 > run.length) for (let j = k; j < e; j++) tableRows.add(j);
+    }
+    k = Math.max(e, k + 1);
+  }
   for (let k = 0; k < groups.length; k++) {
     const g = groups[k];
-    const tableRow = shared(g) && ((k > 0 && shared(groups[k - 1])) || (k + 1 < groups.length && shared(groups[k + 1])));
-    if (crosses(g) || tableRow) {
+    if (crosses(g) || tableRows.has(k)) {
       splitPart();
       out.push(g);
     } else part.push(g);
