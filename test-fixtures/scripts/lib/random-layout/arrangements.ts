@@ -289,7 +289,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     if (s.iztConst) pen.record(row, 'izt', page);
     if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
   }
-  y = pen.heading(title, x, y, 9.5);
+  y = pen.heading(title, x, y, 9.5, w);
   pen.sheet.text(`Package: ${p.pkg.name}`, x, y - 4, { size: 7.5 });
   pen.recordPackage(row, page);
   y += 8;
