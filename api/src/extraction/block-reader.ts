@@ -67,8 +67,20 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
     let mpn: string | undefined;
     let order = 0;
     let qualifiers: QualifierColumn[] | undefined;
-    for (const line of lines) {
-      if (used.has(line)) continue;
+    let skip: Line | undefined;
+    for (const [k, original] of lines.entries()) {
+      if (used.has(original) || original === skip) continue;
+      let line = original;
+      // "XY5V1 (TA = 25 °C, IT = 1 mA, IZK = 0.5 / mA, VR = 8.4 V)": a heading whose conditions wrap onto the next line.
+      const next = lines[k + 1];
+      if (line.cells.length === 1 && /^\S+\s*\([^)]*$/.test(line.text) && next && next.cells.length === 1 && /^[^(]*\)$/.test(next.text)) {
+        const text = `${line.text} ${next.text}`;
+        const joined: Line = { ...line, text, printed: `${line.printed} ${next.printed}`, cells: [{ ...line.cells[0], text, printed: `${line.cells[0].printed} ${next.cells[0].printed}` }] };
+        if (headingOf(joined)) {
+          line = joined;
+          skip = next;
+        }
+      }
       const heading = headingOf(line);
       if (heading) {
         mpn = heading;
