@@ -1,7 +1,7 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
 import { headingPartNumber, isPartNumber } from './part-numbers';
-import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
+import { findQuantities, headerUnit, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
 
@@ -13,6 +13,8 @@ import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-dra
  */
 
 const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
+
+const LEADER = /(?:\.\s?){4,}|…{2,}/;
 
 interface QualifierColumn {
   qualifier: Qualifier;
@@ -65,8 +67,20 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
     let mpn: string | undefined;
     let order = 0;
     let qualifiers: QualifierColumn[] | undefined;
-    for (const line of lines) {
-      if (used.has(line)) continue;
+    let skip: Line | undefined;
+    for (const [k, original] of lines.entries()) {
+      if (used.has(original) || original === skip) continue;
+      let line = original;
+      // "XY5V1 (TA = 25 °C, IT = 1 mA, IZK = 0.5 / mA, VR = 8.4 V)": a heading whose conditions wrap onto the next line.
+      const next = lines[k + 1];
+      if (line.cells.length === 1 && /^\S+\s*\([^)]*$/.test(line.text) && next && next.cells.length === 1 && /^[^(]*\)$/.test(next.text)) {
+        const text = `${line.text} ${next.text}`;
+        const joined: Line = { ...line, text, printed: `${line.printed} ${next.printed}`, cells: [{ ...line.cells[0], text, printed: `${line.cells[0].printed} ${next.cells[0].printed}` }] };
+        if (headingOf(joined)) {
+          line = joined;
+          skip = next;
+        }
+      }
       const heading = headingOf(line);
       if (heading) {
         mpn = heading;
@@ -92,7 +106,8 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         continue;
       }
       // A line of prose (a legend, a note, an example) is not a key–value line: "the 4.3 V type" is no rating of this part.
-      if (line.cells.length === 1 && line.text.split(/\s+/).length >= 9) continue;
+      // A dot leader ("Knee impedance, rzk (Ω) ....... 73 @ 1 mA") makes it a key–value line however long.
+      if (line.cells.length === 1 && line.text.split(/\s+/).length >= 9 && !LEADER.test(line.text)) continue;
       const current = mpn;
       readLine(line, qualifiers, () => drafts.get(current, order));
     }
@@ -116,6 +131,8 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   }
   if (values.length === 0) return;
   const label = labelParts.join(' ');
+  // "Regulation voltage, UZ (V) ...... 7.50": the unit stands in the key, in brackets.
+  unitCell ??= headerUnit(label);
   const unitFor = (v: ValueToken) => v.token.unit || unitCell || '';
   const kind = (() => {
     for (const v of values) {

@@ -112,6 +112,8 @@ function readable(text: string, rule: DeviceRule): string {
   let rest = text;
   if (rule.kind === 'temperature') {
     rest = rest.replace(/\(\s*T\s?[jJ]\s*=[^)]*\)|T\s?[jJ]\s*=\s*\+?25\s?°C/g, (m) => ' '.repeat(m.length));
+    // "may operate up to 150 °C" states the rating; "up to" qualifies other temperatures only.
+    rest = rest.replace(/\bup\s+to\b/gi, (m) => ' '.repeat(m.length));
     // Hide "Tj =" from the condition reader so that "Tj = 150 °C" is kept as the rating.
     const hidden = rest.replace(/(T\s?[jJ](?:\s?max)?)(\s*)=/g, (_m, s: string, sp: string) => s + sp + ' ');
     const cut = findConditions(hidden).rest;
@@ -126,9 +128,10 @@ interface Value {
   cell: Cell;
 }
 
-function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: DeviceRule): DeviceCandidate[] {
+/** `own` is the line itself when `line` is it joined with its continuation: what excludes a rating is looked for there. */
+function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: DeviceRule, own: Line = line): DeviceCandidate[] {
   const text = line.text;
-  if (rule.exclude.test(text)) return [];
+  if (rule.exclude.test(own.text)) return [];
   const symbol = rule.symbol.exec(text);
   const words = rule.words.exec(text);
   if (!symbol && !words) return [];
@@ -166,7 +169,12 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
     const limit = values[0].token.end + clauseEnd.index;
     values = values.filter((v) => v.token.index < limit);
   }
-  if (rule.upperOfRange) values = collapseRanges(rest, tokens, values);
+  if (rule.upperOfRange) {
+    values = joinRanges(rest, collapseRanges(rest, tokens, values));
+    // "… between −65 °C" at the end of the text: the range goes on past it, its upper end unseen.
+    values = values.filter((v) => !(/\b(?:between|from)\s*$/i.test(rest.slice(0, v.token.index)) && rest.slice(v.token.end).trim() === ''));
+    if (values.length === 0) return [];
+  }
   const method: Candidate['method'] = line.cells.some((c) => c.text.length > 50) ? 'sentence' : line.cells.length >= 3 ? 'table' : 'list';
   const score = (symbol ? 2 : 0) + (words ? 1 : 0);
   const make = (v: Value, scope: Scope): DeviceCandidate | undefined => {
@@ -175,9 +183,9 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
     const box: ExtractionBox = method === 'sentence' ? lineBox(line) : cellBox(v.cell);
     return { field, score, scope, candidate: { value: v.token.value, unit: v.unit, kind: rule.kind, si, page: line.page, text: line.printed, box, rank: 0, method } };
   };
-  const own = lineScope(ctx, line, text.slice(0, start) + ' ' + text.slice(start, values[0].token.index));
+  const scope = lineScope(ctx, line, text.slice(0, start) + ' ' + text.slice(start, values[0].token.index));
   if (values.length === 1) {
-    const c = make(values[0], own);
+    const c = make(values[0], scope);
     return c ? [c] : [];
   }
   // Several values on one line: one per package, series or min/typ/max column.
@@ -196,12 +204,12 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
       }
       if (!best || distance > 30) continue;
       if (best.qualifier && best.qualifier !== 'max') continue;
-      const c = make(v, best.qualifier ? own : { ...own, ...best.scope });
+      const c = make(v, best.qualifier ? scope : { ...scope, ...best.scope });
       if (c) out.push(c);
     }
     if (out.length) return out;
   }
-  const first = make(values[0], own);
+  const first = make(values[0], scope);
   if (first && values.every((v) => toSi(v.token.value, v.unit, rule.kind) === first.candidate.si)) return [first];
   ctx.warnings.push(`Page ${line.page}: "${line.printed}" gives several values for ${field} and no package or series heading tells them apart; left empty.`);
   return [];
@@ -213,6 +221,20 @@ function lineScope(ctx: ReadContext, line: Line, label: string): Scope {
   const pkg = findPackage(label)?.value;
   if (series || pkg) return { ...(series ? { series } : {}), ...(pkg ? { package: pkg } : {}) };
   return headingScope(ctx, line);
+}
+
+/** "between −55 °C and +150 °C", "−55 °C to +150 °C": both ends carry the unit; keep the upper one. */
+function joinRanges(text: string, values: Value[]): Value[] {
+  const out: Value[] = [];
+  for (const v of values) {
+    const prev = out[out.length - 1];
+    if (prev && /^\s*(?:°C|℃)?\s*(?:to|and|…|\.\.\.|–|-)\s*$/.test(text.slice(prev.token.end, v.token.index))) {
+      if (Number(v.token.value.replace('−', '-')) > Number(prev.token.value.replace('−', '-'))) out[out.length - 1] = v;
+      continue;
+    }
+    out.push(v);
+  }
+  return out;
 }
 
 /** "−55 to +150 °C": the unitless numbers just before the unit belong to the range; keep its upper end. */
@@ -233,9 +255,13 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
   const packages: DevicePackage[] = [];
   for (const lines of pages) {
     const ctx: ReadContext = { mpns, lines, warnings };
-    for (const line of lines) {
+    for (const [k, line] of lines.entries()) {
       if (used.has(line)) continue;
-      for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, line, field, rule));
+      // A sentence wrapped onto the next line ("… may operate between −55 °C / and +150 °C.") is read with it; a line that starts with a capital starts a statement of its own.
+      const next = lines[k + 1];
+      const wrapped = line.cells.length === 1 && next && !used.has(next) && next.cells.length === 1 && next.y < line.y && line.text.length > 40 && !/[.;:]$/.test(line.text) && /^[a-z\d+−-]/u.test(next.text);
+      const read = wrapped ? joinLines(line, next) : line;
+      for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, read, field, rule, line));
       const p = findPackage(line.text);
       // "Packages: SOT-23 / SMA" names no package for any one part.
       const after = p ? line.text.slice(p.index + p.value.length) : '';
@@ -250,6 +276,14 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
     }
   }
   return { values, packages };
+}
+
+/** A line of prose with its continuation: one cell, the first line's place and index. */
+function joinLines(line: Line, next: Line): Line {
+  const text = `${line.text} ${next.text}`;
+  const printed = `${line.printed} ${next.printed}`;
+  const cell = { ...line.cells[0], text, printed, x1: Math.max(line.cells[0].x1, next.cells[0].x1) };
+  return { ...line, cells: [cell], text, printed };
 }
 
 /** Does a scope cover this part (its part number and package)? */

@@ -104,3 +104,33 @@ describe('reading series tables from positioned text', () => {
     expect(result.warnings).toEqual([expect.stringMatching(/No part numbers with ratings were recognised/)]);
   });
 });
+
+describe('two-column pages', () => {
+  it('reads the left column before the right one where their lines sit side by side, and keeps a table across the page whole', () => {
+    // Left column: prose and a key–value block; right column: the same kind of block for
+    // another part, its baselines 6 pt off the left ones. Below, a table across the page.
+    const left: PdfTextItem[] = [];
+    const right: PdfTextItem[] = [];
+    const leftLines = ['XA5V1', 'Zener voltage, nom. VZ (V) .......... 5.1', 'Test current IZT (mA) .............. 5', 'Dynamic impedance, max. ZZT (Ω) .... 60', 'Notes on use of the part', 'more prose here', 'and a little more', 'and the end'];
+    const rightLines = ['XA6V2', 'Zener voltage, nom. VZ (V) .......... 6.2', 'Test current IZT (mA) .............. 4', 'Dynamic impedance, max. ZZT (Ω) .... 10', 'Notes on the other part', 'more prose there', 'and the end'];
+    leftLines.forEach((t, i) => left.push(item(t, 50, 700 - 14 * i)));
+    rightLines.forEach((t, i) => right.push(item(t, 310, 694 - 12 * i)));
+    const table = [
+      item('Maximum ratings', 50, 574),
+      ...row(560, [50, 200, 330], ['Parameter', 'Symbol', 'Value']),
+      ...row(548, [50, 200, 330], ['Power dissipation', 'Ptot', '500 mW']),
+      ...row(536, [50, 200, 330], ['Junction temperature', 'Tj', '150 °C']),
+    ];
+    const result = extractRatings(pdf([...left, ...right, ...table]));
+    const byMpn = new Map(result.variants.map((v) => [v.mpn, v.fields]));
+    // Invented values; a mix of the two columns would give XA5V1 the 6.2 V of its neighbour.
+    expect(byMpn.get('XA5V1')?.vzNom?.si).toBe(5.1);
+    expect(byMpn.get('XA5V1')?.zzt?.si).toBe(60);
+    expect(byMpn.get('XA6V2')?.vzNom?.si).toBe(6.2);
+    expect(byMpn.get('XA6V2')?.izt?.si).toBeCloseTo(0.004, 12);
+    expect(byMpn.get('XA6V2')?.zzt?.si).toBe(10);
+    // The table across the page below is read as one row per rating (the part read last, in the right column, takes it).
+    expect(byMpn.get('XA6V2')?.pdMax?.si).toBe(0.5);
+    expect(byMpn.get('XA6V2')?.tjMax?.si).toBe(150);
+  });
+});

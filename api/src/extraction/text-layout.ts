@@ -33,19 +33,7 @@ export function pageLines(page: PdfPageText): Line[] {
   const items = page.items
     .map((i) => ({ str: i.str, x0: i.x, x1: i.x + i.width, y: i.y, size: i.height || 1 }))
     .sort((a, b) => b.y - a.y || a.x0 - b.x0);
-  const groups: Array<typeof items> = [];
-  for (const item of items) {
-    const current = groups[groups.length - 1];
-    if (current) {
-      const ref = current[0];
-      // Subscripts sit a little lower than their line; other lines are a full line away.
-      if (Math.abs(ref.y - item.y) <= 0.45 * Math.max(ref.size, item.size)) {
-        current.push(item);
-        continue;
-      }
-    }
-    groups.push([item]);
-  }
+  const groups = inReadingOrder(groupByBaseline(items));
   return groups.map((group, index) => {
     group.sort((a, b) => a.x0 - b.x0);
     const cells: Cell[] = [];
@@ -67,6 +55,165 @@ export function pageLines(page: PdfPageText): Line[] {
     const text = cells.map((c) => c.text).join(' ');
     return { page: page.page, index, y, size, cells, text, printed: text };
   });
+}
+
+interface Placed {
+  str: string;
+  x0: number;
+  x1: number;
+  y: number;
+  size: number;
+}
+
+function groupByBaseline(items: Placed[]): Placed[][] {
+  const groups: Placed[][] = [];
+  for (const item of items) {
+    const current = groups[groups.length - 1];
+    if (current) {
+      const ref = current[0];
+      // Subscripts sit a little lower than their line; other lines are a full line away.
+      if (Math.abs(ref.y - item.y) <= 0.45 * Math.max(ref.size, item.size)) {
+        current.push(item);
+        continue;
+      }
+    }
+    groups.push([item]);
+  }
+  return groups;
+}
+
+/** No text within this many points of a gutter's line. */
+const GUTTER_CLEAR = 6;
+
+/**
+ * Two-column pages: the vertical line in the middle of the text with the most baselines
+ * that hold text on its left only AND the most that hold text on its right only (two columns
+ * keep baselines of their own), less the baselines whose text runs across it.
+ */
+function findGutter(groups: Placed[][]): number | undefined {
+  let count = 0;
+  let left = Infinity;
+  let right = -Infinity;
+  for (const g of groups) {
+    for (const i of g) {
+      count++;
+      left = Math.min(left, i.x0);
+      right = Math.max(right, i.x1);
+    }
+  }
+  if (count < 20) return undefined;
+  const from = Math.round(left + 0.3 * (right - left));
+  const to = Math.floor(left + 0.7 * (right - left));
+  if (to <= from) return undefined;
+  // Per candidate x (whole points from `from`): baselines wholly left, wholly right, and crossing it, by difference arrays.
+  const n = to - from + 2;
+  const leftStarts = new Int32Array(n);
+  const rightEnds = new Int32Array(n);
+  const cross = new Int32Array(n);
+  const at = (x: number) => Math.min(n - 1, Math.max(0, x - from));
+  for (const g of groups) {
+    let maxX1 = -Infinity;
+    let minX0 = Infinity;
+    for (const i of g) {
+      maxX1 = Math.max(maxX1, i.x1);
+      minX0 = Math.min(minX0, i.x0);
+    }
+    // Wholly left of x from maxX1 + clear on; wholly right of it up to minX0 − clear.
+    if (Math.ceil(maxX1 + GUTTER_CLEAR) <= to) leftStarts[at(Math.ceil(maxX1 + GUTTER_CLEAR))]++;
+    if (Math.floor(minX0 - GUTTER_CLEAR) >= from) rightEnds[at(Math.floor(minX0 - GUTTER_CLEAR))]++;
+    {
+      // Crossing where one of its runs spans x (x0 < x < x1), counted once per baseline.
+      const spans = g.map((i) => [Math.floor(i.x0) + 1, Math.ceil(i.x1) - 1] as const).sort((a, b) => a[0] - b[0]);
+      let [a, b] = [Infinity, -Infinity];
+      const flush = () => {
+        if (b >= a && b >= from && a <= to) {
+          cross[at(a)]++;
+          cross[at(b) + 1 < n ? at(b) + 1 : n - 1]--;
+        }
+      };
+      for (const [s0, s1] of spans) {
+        if (s0 > b + 1) {
+          flush();
+          [a, b] = [s0, s1];
+        } else b = Math.max(b, s1);
+      }
+      flush();
+    }
+  }
+  let best: number[] = [];
+  let bestScore = 0;
+  let onlyLeft = 0;
+  let onlyRight = rightEnds.reduce((acc, v) => acc + v, 0);
+  let crossing = 0;
+  for (let k = 0; k + from <= to; k++) {
+    onlyLeft += leftStarts[k];
+    crossing += cross[k];
+    const x = from + k;
+    const score = Math.min(onlyLeft, onlyRight) - crossing;
+    if (score > bestScore) {
+      bestScore = score;
+      best = [x];
+    } else if (score === bestScore && best.length && best[best.length - 1] === x - 1) best.push(x);
+    onlyRight -= rightEnds[k];
+  }
+  return bestScore >= 3 ? best[Math.floor(best.length / 2)] : undefined;
+}
+
+/**
+ * Reading order on a page that may hold two columns: between baselines that run across the
+ * gutter, the left column is read first, then the right one. Rows that hold text on both
+ * sides on one exact baseline, two or more in a row, mostly going on past the gutter with a
+ * value, are a table across the page and stay whole (two columns keep baselines of their own
+ * and meet only by chance, or start a label of their own on the right).
+ */
+function inReadingOrder(groups: Placed[][]): Placed[][] {
+  const x = findGutter(groups);
+  if (x === undefined) return groups;
+  const crosses = (g: Placed[]) => g.some((i) => i.x0 < x && i.x1 > x);
+  const meanY = (g: Placed[]) => g.reduce((a, i) => a + i.y, 0) / g.length;
+  const shared = (g: Placed[]) => {
+    const l = g.filter((i) => i.x1 <= x);
+    const r = g.filter((i) => i.x0 >= x);
+    return l.length > 0 && r.length > 0 && Math.abs(meanY(l) - meanY(r)) < 0.5;
+  };
+  const out: Placed[][] = [];
+  let part: Placed[][] = [];
+  const splitPart = () => {
+    for (const g of part) {
+      const l = g.filter((i) => i.x1 <= x);
+      if (l.length) out.push(l);
+    }
+    for (const g of part) {
+      const r = g.filter((i) => i.x1 > x);
+      if (r.length) out.push(r);
+    }
+    part = [];
+  };
+  // A row of a table across the page goes on past the gutter with a value ("5.1", "−0.94 %/K");
+  // two columns side by side start a label of their own there ("Zener voltage …", "A 0.95 1.35").
+  const valueAfterGutter = (g: Placed[]) => {
+    const r = g.filter((i) => i.x0 >= x).sort((a, b) => a.x0 - b.x0);
+    return r.length > 0 && /^\s*[<≤>≥±+\-−–]?\s*\.?\d/u.test(r[0].str);
+  };
+  const tableRows = new Set<number>();
+  for (let k = 0; k < groups.length; ) {
+    let e = k;
+    while (e < groups.length && shared(groups[e])) e++;
+    if (e - k >= 2) {
+      const run = groups.slice(k, e);
+      if (run.filter(valueAfterGutter).length * 2 > run.length) for (let j = k; j < e; j++) tableRows.add(j);
+    }
+    k = Math.max(e, k + 1);
+  }
+  for (let k = 0; k < groups.length; k++) {
+    const g = groups[k];
+    if (crosses(g) || tableRows.has(k)) {
+      splitPart();
+      out.push(g);
+    } else part.push(g);
+  }
+  splitPart();
+  return out;
 }
 
 export function cellBox(c: Cell): { x: number; y: number; width: number; height: number } {

@@ -25,9 +25,9 @@ const centre = (c: { x0: number; x1: number }) => (c.x0 + c.x1) / 2;
 export function partColumns(line: Line): PartColumn[] | undefined {
   const parts = line.cells.filter((c) => isPartNumber(c.text));
   if (parts.length < 2) return undefined;
-  // Most of the line must be part numbers: a sentence naming two parts is no table header.
+  // Part numbers after at most a few column titles (Parameter, Symbol, Conditions, Unit): a sentence naming two parts is no table header.
   const others = line.cells.filter((c) => !isPartNumber(c.text));
-  if (others.length > 3 || others.some((c) => c.x0 > parts[0].x0)) return undefined;
+  if (others.length > 5 || others.some((c) => c.x0 > parts[0].x0)) return undefined;
   return parts.map((c, i) => ({ mpn: c.text, x0: c.x0, x1: c.x1, order: orderOf(line.page, line.index) + i / 100 }));
 }
 
@@ -100,7 +100,7 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
   const unit = unitCell ?? headerUnit(rest) ?? findQuantities([...values.values()][0]?.text ?? '')[0]?.unit;
   const kind = unit ? unitKind(unit) : undefined;
   const match = fieldFor(rest, kind);
-  if (!match || (match.field === 'tc' && match.rank === 0) || match.qualifier === 'typ' && match.field !== 'tc') return true;
+  if (!match || (match.field === 'tc' && match.rank === 0) || (match.qualifier === 'typ' && match.field !== 'tc' && match.field !== 'vzNom')) return true;
   const field: ExtractionField = match.field;
   const conditions = findConditions(labelText, field).conditions;
   for (const col of cols) {

@@ -92,7 +92,7 @@ export const DEVICE_RULES: Record<'pdMax' | 'tjMax' | 'rthJA', DeviceRule> = {
   },
   tjMax: {
     symbol: /\bT\s?v?[jJ](?:\s?max)?\b/,
-    words: /\bjunction\s+temp|\boperating\s+(?:junction\s+)?temp/i,
+    words: /\bjunction\s+temp|\boperating\s+(?:junction\s+)?temp|\bjunction\b[^.;]{0,20}\boperat/i,
     exclude: /^(?!.*junction).*(?:storage|solder|reflow|lead\s+temp|wave)|solder|reflow|\bT\s?stg\b/i,
     kind: 'temperature',
     upperOfRange: true,

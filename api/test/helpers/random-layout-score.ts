@@ -16,12 +16,13 @@ export const RANDOM_LAYOUT_FIELDS: RatingField[] = ['vzMin', 'vzNom', 'vzMax', '
 /** The goal the extractor is measured against (issue 8): precision before recall. */
 export const GOAL = { recall: 0.97, precision: 0.995 };
 /**
- * What the extractor holds today on layouts it has never seen (measured 2026-12-04: recall
- * 64–71 %, precision 99.6–99.9 %, about 10 % of part numbers missed, a few invented per hundred
- * documents). The test fails below these floors; the goal above is reported beside them until
- * the extractor reaches it (issue 8 stays open until then). Raise the floors as it improves.
+ * What the extractor holds today on layouts it has never seen (measured 2026-12-04 on six
+ * fresh seeds of 150 documents: recall 78.0–80.2 %, precision 99.4–99.9 %, 72–95 part
+ * numbers missed per 150 documents, none invented). The test fails below these floors; the
+ * goal above is reported beside them until the extractor reaches it (issue 8 stays open until
+ * then). Raise the floors as it improves, keeping a margin that fresh seeds do not cross.
  */
-export const FLOOR = { recall: 0.55, precision: 0.99, partsFound: 0.8, partsInvented: 0.02 };
+export const FLOOR = { recall: 0.72, precision: 0.99, partsFound: 0.8, partsInvented: 0.02 };
 
 export interface Tally {
   tp: number;

@@ -187,7 +187,7 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     const hdr = k === 0 || c.pageBreak === 'repeat-header' ? header : [];
     y = grid(pen, pen.frame.left, y + 4, columns, hdr, rows, { size, rowHeight: size + 4.5 });
   });
-  flow.y = y + 4;
+  flow.belowFullWidth(y + 4);
 }
 
 /** Series table with parts as columns (parameters as rows), a block of parts at a time. */
@@ -262,7 +262,7 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     }
     y = grid(pen, pen.frame.left, y + 4, columns, b === 0 || c.pageBreak !== 'no-repeat' ? header : [], rows, { size: 7 });
   });
-  flow.y = y + 4;
+  flow.belowFullWidth(y + 4);
 }
 
 /** Parameter table for one part: Symbol | Parameter | Conditions | Min | Typ | Max | Unit. */
@@ -289,7 +289,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     if (s.iztConst) pen.record(row, 'izt', page);
     if (s.hasIzk && s.izkConst) pen.record(row, 'izk', page);
   }
-  y = pen.heading(title, x, y, 9.5);
+  y = pen.heading(title, x, y, 9.5, w);
   pen.sheet.text(`Package: ${p.pkg.name}`, x, y - 4, { size: 7.5 });
   pen.recordPackage(row, page);
   y += 8;
@@ -350,12 +350,11 @@ export function partPerPage(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const { pen } = ctx;
   const rotated = pen.c.orientation === 'rotated';
   s.rows.forEach((row, i) => {
-    pen.newPage(rotated);
-    flow.y = pen.frame.top;
+    flow.newPage(rotated);
     pen.sheet.text(`${row[0].printedMpn}`, pen.frame.left, flow.y, { size: 15, bold: true });
     flow.y += 26;
     flow.y = pen.prose(`${name(ctx, 'vz')} regulator diode of the ${s.name} series. All values at TA = 25 °C.`, pen.frame.left, flow.y, pen.frame.right - pen.frame.left) + 6;
-    flow.y = partTable(ctx, flow, s, row, i === 0, pen.frame.left, pen.frame.right - pen.frame.left) + 6;
+    flow.belowFullWidth(partTable(ctx, flow, s, row, i === 0, pen.frame.left, pen.frame.right - pen.frame.left) + 6);
   });
 }
 

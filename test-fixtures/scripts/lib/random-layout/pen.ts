@@ -114,7 +114,9 @@ export class Pen {
   }
 
   /** A bold heading at x (the current column); returns the y below it. */
-  heading(str: string, x: number, y: number, size = 10): number {
+  /** A bold heading; wrapped within `width` when given and it would run past it (off the column or page). */
+  heading(str: string, x: number, y: number, size = 10, width?: number): number {
+    if (width !== undefined && this.width(str, { size, bold: true }) > width) return this.sheet.paragraph(str, x, y, width, { size, bold: true }) + 4;
     this.sheet.text(str, x, y, { size, bold: true });
     return y + size + 8;
   }
@@ -281,6 +283,16 @@ export class Flow {
 
   startColumns(): void {
     this.topOfColumn = this.y;
+  }
+
+  /**
+   * Below a block drawn across the whole frame (a series table): the columns start again
+   * under it, so that nothing is later drawn over it in the right-hand column.
+   */
+  belowFullWidth(y: number): void {
+    this.col = 0;
+    this.y = y;
+    this.topOfColumn = y;
   }
 
   /** Moves to the right-hand column (two-column pages), else stays. */
