@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { measurementCsvReadingSchema, measurementSetSchema, type MeasurementCsvReading, type MeasurementSet } from '@shuntwise/contracts';
-import { uploadFile } from '@/lib/upload';
+import { uploadFile } from '@/lib/api-client';
 import { measurementKeys } from './measurement-keys';
 
 export interface MeasurementUpload {

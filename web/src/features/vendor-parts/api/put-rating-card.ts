@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { ratingCardConflictSchema, ratingCardViewSchema, type PutRatingCardRequest, type RatingCardView } from '@shuntwise/contracts';
+import { ratingCardViewSchema, type PutRatingCardRequest, type RatingCardView } from '@shuntwise/contracts';
 import { apiRequest, ApiError } from '@/lib/api-client';
 import { vendorPartKeys } from './vendor-part-keys';
 
@@ -15,8 +15,8 @@ export function putRatingCard({ vendorPartId, request }: PutRatingCardVariables)
 /** The card someone else saved meanwhile, when a save failed with 409; else null. */
 export function conflictingCard(error: unknown): RatingCardView | null {
   if (!(error instanceof ApiError) || error.status !== 409) return null;
-  const parsed = ratingCardConflictSchema.safeParse(error.body);
-  return parsed.success ? parsed.data.current : null;
+  const parsed = ratingCardViewSchema.safeParse(error.current);
+  return parsed.success ? parsed.data : null;
 }
 
 export function usePutRatingCard() {
