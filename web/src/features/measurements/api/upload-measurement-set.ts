@@ -29,6 +29,6 @@ export function useUploadMeasurementSet() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: uploadMeasurementSet,
-    onSuccess: (_set, variables) => queryClient.invalidateQueries({ queryKey: [...measurementKeys.all, 'vendor-part', variables.vendorPartId] }),
+    onSuccess: (_set, variables) => queryClient.invalidateQueries({ queryKey: measurementKeys.vendorPart(variables.vendorPartId) }),
   });
 }

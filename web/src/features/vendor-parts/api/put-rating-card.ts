@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { ratingCardViewSchema, type PutRatingCardRequest, type RatingCardView } from '@shuntwise/contracts';
 import { apiRequest, ApiError } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { vendorPartKeys } from './vendor-part-keys';
 
 export interface PutRatingCardVariables {
@@ -29,6 +30,8 @@ export function usePutRatingCard() {
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.cardVersions(card.vendorPartId) }),
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.detail(card.vendorPartId), exact: true }),
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.lists() }),
+        // Compare, the Board, the flagged cases and search results show the card's values.
+        invalidateKeys(queryClient, staleAfter.cardSaved()),
       ]);
     },
   });
