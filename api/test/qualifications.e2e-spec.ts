@@ -604,6 +604,14 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
 
     const none = await t.http.get(`/api/qualifications/board?q=${q}&state=none`).set(auth(engineer));
     expect(none.body.items[0].sources.map((s: { state: string }) => s.state)).toEqual(['none']);
+    // The tallies ignore the state filter (the web needs no second request for them) but keep the others.
+    expect(none.body.counts).toMatchObject({ none: 1, 'in-review': 1 });
+    expect((await t.http.get(`/api/qualifications/board?q=${q}&state=none&engineerId=${reviewerId}`).set(auth(engineer))).body.counts).toMatchObject({ none: 0, 'in-review': 0 });
+    // The engineer filter's choices: every engineer, whether or not on this page.
+    const names = (all.body.engineers as { id: number; name: string }[]).map((e) => e.name);
+    expect(names).toEqual(expect.arrayContaining(['Priya Raman']));
+    expect(all.body.engineers).toEqual(expect.arrayContaining([expect.objectContaining({ id: reviewerId })]));
+    expect([...names].sort((x, y) => x.localeCompare(y))).toEqual(names);
     const byOther = await t.http.get(`/api/qualifications/board?q=${q}&engineerId=${reviewerId}`).set(auth(engineer));
     expect(byOther.body.items).toEqual([]);
     expect((await t.http.get(`/api/qualifications/board?q=${q}&minAgeDays=7`).set(auth(engineer))).body.items).toEqual([]);

@@ -45,7 +45,7 @@ export class QualificationViewsService {
 
   async board(query: BoardQuery): Promise<BoardPage> {
     const now = new Date();
-    const { heads, sources, total, counts } = await this.cases.board(query, now);
+    const { heads, sources, total, counts, engineers } = await this.cases.board(query, now);
     const byPart = new Map<number, BoardPage['items'][number]['sources']>();
     for (const s of sources) {
       const list = byPart.get(s.housePartId) ?? [];
@@ -79,6 +79,7 @@ export class QualificationViewsService {
       pageIndex: query.pageIndex,
       pageSize: query.pageSize,
       counts: tally,
+      engineers,
     };
   }
 

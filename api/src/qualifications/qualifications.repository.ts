@@ -325,7 +325,10 @@ export class QualificationsRepository {
   }
 
   /** House parts for the Board, one page, with the sources that match the filters. */
-  async board(query: BoardQuery, now: Date): Promise<{ heads: HousePartHead[]; sources: BoardSourceRow[]; total: number; counts: Array<{ state: string; n: number | bigint }> }> {
+  async board(
+    query: BoardQuery,
+    now: Date,
+  ): Promise<{ heads: HousePartHead[]; sources: BoardSourceRow[]; total: number; counts: Array<{ state: string; n: number | bigint }>; engineers: Array<{ id: number; name: string }> }> {
     const where: string[] = [];
     const params: unknown[] = [];
     if (query.q) {
@@ -333,29 +336,35 @@ export class QualificationsRepository {
       where.push(text.sql);
       params.push(...text.params);
     }
-    const sourceWhere: string[] = [];
-    const sourceParams: unknown[] = [];
+    // The state tallies ignore the state filter (a state left out still shows how many it
+    // has), so the other source filters are kept apart from it.
+    const otherWhere: string[] = [];
+    const otherParams: unknown[] = [];
+    const stateWhere: string[] = [];
+    const stateParams: unknown[] = [];
     if (query.state) {
       const states = query.state.filter((s) => s !== 'none');
       const parts: string[] = [];
       if (states.length) {
         parts.push(`q.state IN (${states.map(() => '?').join(', ')})`);
-        sourceParams.push(...states);
+        stateParams.push(...states);
       }
       if (query.state.includes('none')) parts.push('(s.id IS NOT NULL AND q.id IS NULL)');
-      sourceWhere.push(`(${parts.join(' OR ')})`);
+      stateWhere.push(`(${parts.join(' OR ')})`);
     }
     if (query.engineerId !== undefined) {
-      sourceWhere.push('(q.prepared_by_id = ? OR q.decided_by_id = ?)');
-      sourceParams.push(query.engineerId, query.engineerId);
+      otherWhere.push('(q.prepared_by_id = ? OR q.decided_by_id = ?)');
+      otherParams.push(query.engineerId, query.engineerId);
     }
     if (query.minAgeDays !== undefined) {
-      sourceWhere.push('q.updated_at <= ?');
-      sourceParams.push(new Date(now.getTime() - query.minAgeDays * 86_400_000));
+      otherWhere.push('q.updated_at <= ?');
+      otherParams.push(new Date(now.getTime() - query.minAgeDays * 86_400_000));
     }
     if (query.needsRecheck !== undefined) {
-      sourceWhere.push(query.needsRecheck ? 'q.needs_recheck = 1' : '(s.id IS NOT NULL AND (q.id IS NULL OR q.needs_recheck = 0))');
+      otherWhere.push(query.needsRecheck ? 'q.needs_recheck = 1' : '(s.id IS NOT NULL AND (q.id IS NULL OR q.needs_recheck = 0))');
     }
+    const sourceWhere = [...stateWhere, ...otherWhere];
+    const sourceParams = [...stateParams, ...otherParams];
     const filtered = sourceWhere.length > 0;
     const from = `FROM house_parts h
       LEFT JOIN house_part_sources s ON s.house_part_id = h.id
@@ -371,11 +380,21 @@ export class QualificationsRepository {
       [...allParams, query.pageSize, query.pageIndex * query.pageSize],
     );
     const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(DISTINCT h.id) AS total ${from} ${whereSql}`, allParams);
+    const countWhere = [...where, ...otherWhere, 's.id IS NOT NULL'];
     const counts = await this.select<{ state: string; n: number | bigint }>(
-      `SELECT COALESCE(q.state, 'none') AS state, COUNT(*) AS n ${from} ${whereSql ? `${whereSql} AND` : 'WHERE'} s.id IS NOT NULL GROUP BY COALESCE(q.state, 'none')`,
-      allParams,
+      `SELECT COALESCE(q.state, 'none') AS state, COUNT(*) AS n ${from} WHERE ${countWhere.join(' AND ')} GROUP BY COALESCE(q.state, 'none')`,
+      [...params, ...otherParams],
     );
-    if (heads.length === 0) return { heads, sources: [], total: Number(total), counts };
+    // Everyone the engineer filter can name: every engineer, and whoever prepared or decided a case.
+    const engineers = await this.select<{ id: number; name: string }>(
+      `SELECT u.id, u.name FROM users u
+       WHERE u.role = 'engineer'
+          OR u.id IN (SELECT prepared_by_id FROM qualifications)
+          OR u.id IN (SELECT decided_by_id FROM qualifications WHERE decided_by_id IS NOT NULL)
+       ORDER BY u.name, u.id`,
+      [],
+    );
+    if (heads.length === 0) return { heads, sources: [], total: Number(total), counts, engineers };
     const ids = heads.map((h) => h.id);
     const sources = await this.select<BoardSourceRow>(
       `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
@@ -390,7 +409,7 @@ export class QualificationsRepository {
        ORDER BY h.part_number, ${sourceRoleSql('s')} = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
       [...ids, ...sourceParams],
     );
-    return { heads, sources, total: Number(total), counts };
+    return { heads, sources, total: Number(total), counts, engineers };
   }
 
   /** House parts for the Sources view, with every source (one query for the parts, one for the sources). */

@@ -72,8 +72,14 @@ export const boardRowSchema = z.object({
 });
 export type BoardRow = z.infer<typeof boardRowSchema>;
 
-/** `GET /api/qualifications/board`: a page of house parts; `counts` tallies every matching source by state. */
+/**
+ * `GET /api/qualifications/board`: a page of house parts; `counts` tallies the sources that
+ * match every filter but the state filter, by state (so a state left out still shows its
+ * count); `engineers` are everyone the engineer filter can name (every engineer, and whoever
+ * prepared or decided a case), not only those on this page.
+ */
 export const boardPageSchema = pageSchema(boardRowSchema).extend({
   counts: z.record(boardStateSchema, z.number().int()),
+  engineers: z.array(z.object({ id: z.number().int(), name: z.string() })),
 });
 export type BoardPage = z.infer<typeof boardPageSchema>;

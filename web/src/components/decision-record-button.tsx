@@ -3,8 +3,7 @@ import { Button } from '@mantine/core';
 import { notifications } from '@mantine/notifications';
 import { IconFileTypePdf } from '@tabler/icons-react';
 import { isDecidedState, type QualificationState } from '@shuntwise/contracts';
-import { describeError } from '@/lib/api-client';
-import { downloadFile } from '@/lib/download';
+import { describeError, downloadFile } from '@/lib/api-client';
 
 /**
  * Downloads the PDF record written when the case was decided (the server keeps it exactly

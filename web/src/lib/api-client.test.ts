@@ -1,8 +1,9 @@
 import { describe, expect, it, vi } from 'vitest';
 import { loginResponseSchema, userSchema } from '@shuntwise/contracts';
 import { errorBody, mockApi } from '@/testing/mock-api';
+import { mockXhr } from '@/testing/mock-xhr';
 import { signInAs } from '@/testing/render';
-import { ApiError, apiRequest, describeError } from './api-client';
+import { ApiError, apiRequest, describeError, downloadFile, fetchBytes, fileNameFromDisposition, uploadFile } from './api-client';
 import { getSession, getSessionEndReason, SESSION_STORAGE_KEY } from './session';
 
 const user = {
@@ -95,5 +96,82 @@ describe('apiRequest', () => {
     mockApi({ 'GET /api/users': { status: 403, body: errorBody('Forbidden') } });
     await expect(apiRequest('/users')).rejects.toMatchObject({ status: 403 });
     expect(getSession()?.user.role).toBe('buyer');
+  });
+});
+
+describe('conflicts', () => {
+  it('reads a 409 as the usual error body and keeps the fields a conflict adds (code, current)', async () => {
+    signInAs('engineer');
+    const body = { ...errorBody('Saved meanwhile by someone else'), code: 'stale', current: { version: 4, vzNom: 5.1 } };
+    mockApi({ 'PUT /api/vendor-parts/:id/rating-card': { status: 409, body } });
+    const error = (await apiRequest('/vendor-parts/3/rating-card', { method: 'PUT', body: {} }).catch((e: unknown) => e)) as ApiError;
+    expect(error.status).toBe(409);
+    expect(error.message).toBe('Saved meanwhile by someone else');
+    expect(error.correlationId).toBe('c0ffee00-test');
+    expect(error.code).toBe('stale');
+    expect(error.current).toEqual({ version: 4, vzNom: 5.1 });
+  });
+});
+
+describe('fileNameFromDisposition (the content-disposition package, RFC 6266)', () => {
+  it('prefers the UTF-8 filename* over the ASCII fallback', async () => {
+    // The header the datasheet route sends (api/test/datasheets.e2e-spec.ts).
+    const header = `inline; filename="BRZ05 Datenblatt _.pdf"; filename*=UTF-8''BRZ05%20Datenblatt%20%C2%B5.pdf`;
+    await expect(fileNameFromDisposition(header)).resolves.toBe('BRZ05 Datenblatt \u00b5.pdf');
+  });
+
+  it('reads a plain quoted name and gives nothing for a missing or malformed header', async () => {
+    await expect(fileNameFromDisposition('attachment; filename="sources-2026-12-04.csv"')).resolves.toBe('sources-2026-12-04.csv');
+    await expect(fileNameFromDisposition('attachment')).resolves.toBeUndefined();
+    await expect(fileNameFromDisposition(null)).resolves.toBeUndefined();
+    await expect(fileNameFromDisposition('attachment; filename=')).resolves.toBeUndefined();
+  });
+});
+
+describe('downloads and uploads share the token, the 401 rule and the error body', () => {
+  it('a download sends the token and uses the server\'s file name', async () => {
+    signInAs('engineer');
+    const fetchMock = vi.fn(
+      async () => new Response('a,b\n', { status: 200, headers: { 'Content-Disposition': 'attachment; filename="rating-cards-2026.csv"' } }),
+    );
+    vi.stubGlobal('fetch', fetchMock);
+    const created: string[] = [];
+    vi.stubGlobal('URL', Object.assign(Object.create(URL), { createObjectURL: () => (created.push('blob:x'), 'blob:x'), revokeObjectURL: () => undefined }));
+    const click = vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(() => undefined);
+    await expect(downloadFile('/exports/rating-cards', 'fallback.csv')).resolves.toBe('rating-cards-2026.csv');
+    const [url, init] = fetchMock.mock.calls[0] as unknown as [string, RequestInit];
+    expect(url).toBe('/api/exports/rating-cards');
+    expect((init.headers as Record<string, string>).Authorization).toBe('Bearer test-token-engineer');
+    expect(click).toHaveBeenCalledOnce();
+    expect(created).toHaveLength(1);
+    click.mockRestore();
+  });
+
+  it('a download that gets 401 ends the session and throws the server\'s message', async () => {
+    signInAs('engineer');
+    mockApi({ 'GET /api/qualifications/9/record': { status: 401, body: errorBody('Token no longer valid') } });
+    await expect(downloadFile('/qualifications/9/record', 'r.pdf')).rejects.toMatchObject({ status: 401, message: 'Token no longer valid' });
+    expect(getSessionEndReason()).toBe('expired');
+  });
+
+  it('reading bytes reports the error body like any call', async () => {
+    signInAs('designer');
+    mockApi({ 'GET /api/datasheets/4/file': { status: 404, body: errorBody('Datasheet 4 not found') } });
+    await expect(fetchBytes('/datasheets/4/file')).rejects.toMatchObject({ status: 404, correlationId: 'c0ffee00-test' });
+    expect(getSession()?.user.role).toBe('designer');
+  });
+
+  it('an upload reports progress, sends the token and reads a 401 the same way', async () => {
+    signInAs('engineer');
+    const xhr = mockXhr(() => ({ status: 401, body: errorBody('Token no longer valid'), progress: [0.5] }));
+    const progress: number[] = [];
+    const schema = { parse: (x: unknown) => x };
+    const file = new File(['x'], 'a.csv');
+    const error = (await uploadFile('/measurement-sets', file, { schema, onProgress: (f) => progress.push(f) }).catch((e: unknown) => e)) as ApiError;
+    expect(xhr.calls[0].headers.Authorization).toBe('Bearer test-token-engineer');
+    expect(progress).toEqual([0.5]);
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error.message).toBe('Token no longer valid');
+    expect(getSessionEndReason()).toBe('expired');
   });
 });

@@ -11,6 +11,7 @@ const EMPTY_BOARD: BoardPage = {
   pageIndex: 0,
   pageSize: 25,
   counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 0, 'cleared-with-conditions': 0, 'cleared-with-waiver': 0, rejected: 0, withdrawn: 0, revoked: 0, 'waiver-lapsed': 0, none: 0 },
+  engineers: [],
 };
 
 // Invented requests: one naming its house part, one leaving the choice to the engineer.

@@ -36,6 +36,12 @@ const PAGE: BoardPage = {
   pageIndex: 0,
   pageSize: 25,
   counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 1, 'cleared-with-conditions': 0, 'cleared-with-waiver': 0, rejected: 0, withdrawn: 0, revoked: 0, 'waiver-lapsed': 0, none: 2 },
+  // Every engineer the server knows, including one with no case on this page.
+  engineers: [
+    { id: 5, name: 'Aino Varga' },
+    { id: DEMO_USERS.engineer.id, name: DEMO_USERS.engineer.name },
+    { id: 3, name: 'Tomas Eklund' },
+  ],
 };
 
 // The Board also lists open qualification requests; these tests are about the table.
@@ -69,11 +75,25 @@ describe('Board screen', () => {
     await user.click(await screen.findByRole('button', { name: 'Cleared: 1' }));
     await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared'));
     expect(currentLocation()).toBe('/board?state=cleared');
-    // The tallies are asked for without the state filter, so the other states keep their numbers.
-    expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=1');
+    // One request per view: the server's tallies already ignore the state filter.
+    expect(boardUrls(api.fetch).filter((u) => u.includes('pageSize=1&') || u.endsWith('pageSize=1'))).toEqual([]);
+    expect(new Set(boardUrls(api.fetch))).toEqual(new Set(['/api/qualifications/board?pageIndex=0&pageSize=25', '/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared']));
     expect(screen.getByRole('button', { name: 'Cleared: 1' })).toHaveAttribute('aria-pressed', 'true');
     await user.type(screen.getByLabelText('Unchanged for at least'), '30');
     await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?minAgeDays=30&pageIndex=0&pageSize=25&state=cleared'));
+  });
+
+  it('offers every engineer the server names in the engineer filter, the viewer marked, and filters by one', async () => {
+    signInAs('engineer');
+    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
+    const { user } = renderApp('/board');
+    await screen.findByRole('link', { name: 'QHZ4V7A' });
+    await user.click(screen.getByRole('textbox', { name: 'Engineer' }));
+    const options = (await screen.findAllByRole('option')).map((o) => o.textContent);
+    expect(options).toEqual(['Aino Varga', `${DEMO_USERS.engineer.name} (me)`, 'Tomas Eklund']);
+    await user.click(screen.getByRole('option', { name: 'Aino Varga' }));
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?engineerId=5&pageIndex=0&pageSize=25'));
+    expect(currentLocation()).toBe('/board?engineer=5');
   });
 
   it('opens a case for a source and goes to it', async () => {

@@ -1,5 +1,7 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export const authKeys = {
-  all: ['auth'] as const,
+  all: queryRoots.auth,
   me: () => [...authKeys.all, 'me'] as const,
   invitation: (token: string) => [...authKeys.all, 'invitation', token] as const,
 };

@@ -1,3 +1,5 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export interface BoardParams {
   pageIndex: number;
   pageSize: number;
@@ -10,6 +12,6 @@ export interface BoardParams {
 }
 
 export const boardKeys = {
-  all: ['board'] as const,
+  all: queryRoots.board,
   page: (params: BoardParams) => [...boardKeys.all, params] as const,
 };

@@ -1,4 +1,4 @@
-import { Fragment, useCallback, useEffect, useState, type ReactNode } from 'react';
+import { Fragment, useEffect, useMemo, useState, type ReactNode } from 'react';
 import {
   Alert,
   Anchor,
@@ -23,14 +23,16 @@ import {
 import { useDebouncedValue } from '@mantine/hooks';
 import { IconChartLine, IconSearch } from '@tabler/icons-react';
 import { BOARD_STATES, type BoardRow, type BoardSource, type BoardState } from '@shuntwise/contracts';
-import { Link, useSearchParams } from 'react-router';
+import { Link } from 'react-router';
 import { QualificationStateBadge, stateColor, stateLabel } from '@/components/qualification-state-badge';
 import { VerdictBadge } from '@/components/verdict-badge';
 import { describeError } from '@/lib/api-client';
+import { useListState } from '@/lib/list-state';
 import { useSession } from '@/lib/session';
 import { useBoard } from '../api/get-board';
 
 const PAGE_SIZE = 25;
+const NO_SORT: ReadonlySet<string> = new Set();
 const STATE_OPTIONS = BOARD_STATES.map((s) => ({ value: s, label: stateLabel(s) }));
 
 export interface BoardTableProps {
@@ -50,78 +52,47 @@ function age(days: number): string {
  */
 export function BoardTable({ renderSourceAction }: BoardTableProps) {
   const session = useSession();
-  const [search, setSearch] = useSearchParams();
+  const list = useListState({ defaultSort: '', sortable: NO_SORT, defaultPageSize: PAGE_SIZE });
+  const { search, set } = list;
   const [qText, setQText] = useState(search.get('q') ?? '');
   const [q] = useDebouncedValue(qText.trim(), 250);
   const states = (search.get('state') ?? '').split(',').filter(Boolean) as BoardState[];
   const engineer = search.get('engineer');
   const minAge = search.get('minAge');
   const recheck = search.get('recheck') === '1';
-  const page = Number(search.get('page') ?? 0) || 0;
-
-  const set = useCallback(
-    (changes: Record<string, string | null>) =>
-      setSearch(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          for (const [k, v] of Object.entries(changes)) {
-            if (v === null || v === '') next.delete(k);
-            else next.set(k, v);
-          }
-          if (!('page' in changes)) next.delete('page');
-          return next;
-        },
-        { replace: true },
-      ),
-    [setSearch],
-  );
+  const page = list.pagination.pageIndex;
 
   useEffect(() => {
     if ((search.get('q') ?? '') !== q) set({ q });
   }, [q, search, set]);
 
-  const common = {
+  // One request: its counts ignore the state filter on the server, so a state left out still shows how many it has.
+  const board = useBoard({
     q: search.get('q') || undefined,
     engineerId: engineer ? Number(engineer) : undefined,
     minAgeDays: minAge ? Number(minAge) : undefined,
     needsRecheck: recheck ? true : undefined,
-  };
-  const board = useBoard({ ...common, pageIndex: page, pageSize: PAGE_SIZE, state: states.join(',') || undefined });
-  // The tallies ignore the state filter, so a state left out still shows how many it has.
-  const tallies = useBoard({ ...common, pageIndex: 0, pageSize: 1 });
+    pageIndex: page,
+    pageSize: PAGE_SIZE,
+    state: states.join(',') || undefined,
+  });
 
-  // Engineers to filter by: everyone seen preparing or deciding a case so far, and the viewer.
-  const [engineers, setEngineers] = useState<ReadonlyMap<number, string>>(new Map());
-  useEffect(() => {
-    const seen = new Map<number, string>();
-    if (session?.user.role === 'engineer') seen.set(session.user.id, `${session.user.name} (me)`);
-    for (const row of board.data?.items ?? []) {
-      for (const s of row.sources) {
-        if (s.latestCase) {
-          seen.set(s.latestCase.preparedBy.id, s.latestCase.preparedBy.name);
-          if (s.latestCase.decidedBy) seen.set(s.latestCase.decidedBy.id, s.latestCase.decidedBy.name);
-        }
-      }
-    }
-    setEngineers((prev) => {
-      const merged = new Map(prev);
-      let changed = false;
-      for (const [id, name] of seen) {
-        if (!merged.has(id) || (name.endsWith('(me)') && merged.get(id) !== name)) {
-          merged.set(id, name);
-          changed = true;
-        }
-      }
-      return changed ? merged : prev;
-    });
-  }, [board.data, session]);
+  // Engineers to filter by, from the server (everyone, not only those on pages seen); the viewer marked.
+  const engineerOptions = useMemo(
+    () =>
+      (board.data?.engineers ?? []).map((e) => ({
+        value: String(e.id),
+        label: session?.user.id === e.id ? `${e.name} (me)` : e.name,
+      })),
+    [board.data?.engineers, session?.user.id],
+  );
 
   const toggleState = (state: BoardState) => {
     const next = states.includes(state) ? states.filter((s) => s !== state) : [...states, state];
     set({ state: next.join(',') });
   };
 
-  const counts = (states.length > 0 ? tallies.data : board.data)?.counts;
+  const counts = board.data?.counts;
   const filtered = states.length > 0 || engineer || minAge || recheck || q;
   const pages = board.data ? Math.max(1, Math.ceil(board.data.total / PAGE_SIZE)) : 1;
 
@@ -137,7 +108,7 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
               w={200}
               label="Engineer"
               placeholder="anyone"
-              data={[...engineers].map(([id, name]) => ({ value: String(id), label: name }))}
+              data={engineerOptions}
               value={engineer}
               onChange={(v) => set({ engineer: v })}
               clearable
@@ -329,7 +300,7 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
           <Text fz="xs" c="dimmed">
             {board.data.total} house parts
           </Text>
-          <Pagination size="sm" total={pages} value={page + 1} onChange={(p) => set({ page: p > 1 ? String(p - 1) : null })} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
+          <Pagination size="sm" total={pages} value={page + 1} onChange={(p) => list.onPaginationChange({ pageIndex: p - 1, pageSize: PAGE_SIZE })} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
         </Group>
       )}
     </Stack>

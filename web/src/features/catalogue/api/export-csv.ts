@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { downloadFile } from '@/lib/download';
+import { downloadFile } from '@/lib/api-client';
 
 /** The cards as CSV, optionally one manufacturer's. */
 export function exportRatingCards(manufacturer?: string): Promise<string> {

@@ -7,6 +7,7 @@ import {
   type CsvImportResult,
 } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 
 /** Reads the CSV and says, row by row, what an import would do. Writes nothing. */
 export function previewVendorSeries(request: CsvImportRequest): Promise<CsvImportPreview> {
@@ -27,6 +28,6 @@ export function useImportVendorSeries() {
   return useMutation({
     mutationFn: importVendorSeries,
     // New vendor parts and cards: the vendor-part lists are stale.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['vendor-parts'] }),
+    onSuccess: () => invalidateKeys(queryClient, staleAfter.vendorPartsAdded()),
   });
 }

@@ -1,4 +1,6 @@
+import { queryRoots, sharedKeys } from '@/lib/query-keys';
+
 export const compareKeys = {
-  all: ['compare'] as const,
-  housePart: (housePartId: number) => [...compareKeys.all, housePartId] as const,
+  all: queryRoots.compare,
+  housePart: sharedKeys.compare,
 };

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { createVariantsResponseSchema, type CreateVariantsRequest, type CreateVariantsResponse } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { datasheetKeys } from './datasheet-keys';
 
 export interface CreateVariantsVariables {
@@ -20,7 +21,7 @@ export function useCreateVariants() {
     onSuccess: (_result, { datasheetId }) =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: datasheetKeys.detail(datasheetId) }),
-        queryClient.invalidateQueries({ queryKey: ['vendor-parts'] }),
+        invalidateKeys(queryClient, staleAfter.vendorPartsAdded()),
       ]),
   });
 }

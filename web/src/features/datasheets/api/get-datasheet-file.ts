@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { fetchBytes } from '@/lib/download';
+import { fetchBytes } from '@/lib/api-client';
 import { datasheetKeys } from './datasheet-keys';
 
 /** The PDF's bytes (stored files never change, so they are read once per session). */

@@ -1,5 +1,5 @@
 import { uploadDatasheetResponseSchema, type UploadDatasheetResponse } from '@shuntwise/contracts';
-import { uploadFile } from '@/lib/upload';
+import { uploadFile } from '@/lib/api-client';
 
 export interface UploadDatasheetOptions {
   vendorPartId?: number;

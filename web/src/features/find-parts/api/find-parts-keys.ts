@@ -1,4 +1,5 @@
 import type { RegulatorRequest } from '@shuntwise/contracts';
+import { queryRoots } from '@/lib/query-keys';
 
 /** What the search sends, as the address keeps it (SI numbers, comma lists). */
 export interface SearchParams {
@@ -19,7 +20,7 @@ export interface SearchParams {
 
 /** Query keys of the Find parts feature; every variable of a query is in its key. */
 export const findPartsKeys = {
-  all: ['find-parts'] as const,
+  all: queryRoots.findParts,
   searches: () => [...findPartsKeys.all, 'search'] as const,
   search: (params: SearchParams) => [...findPartsKeys.searches(), params] as const,
   facets: () => [...findPartsKeys.all, 'facets'] as const,

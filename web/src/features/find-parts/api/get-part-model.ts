@@ -1,6 +1,5 @@
 import { vendorPartModelSchema, type VendorPartModel } from '@shuntwise/contracts';
-import { apiRequest } from '@/lib/api-client';
-import { saveBlob } from '@/lib/download';
+import { apiRequest, saveBlob } from '@/lib/api-client';
 
 export function getPartModel(vendorPartId: number): Promise<VendorPartModel> {
   return apiRequest(`/vendor-parts/${vendorPartId}/model`, { schema: vendorPartModelSchema });

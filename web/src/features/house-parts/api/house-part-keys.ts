@@ -1,3 +1,5 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export interface HousePartListParams {
   pageIndex: number;
   pageSize: number;
@@ -7,7 +9,7 @@ export interface HousePartListParams {
 }
 
 export const housePartKeys = {
-  all: ['house-parts'] as const,
+  all: queryRoots.houseParts,
   lists: () => [...housePartKeys.all, 'list'] as const,
   list: (params: HousePartListParams) => [...housePartKeys.lists(), params] as const,
   detail: (id: number) => [...housePartKeys.all, 'detail', id] as const,

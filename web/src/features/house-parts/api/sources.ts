@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { sourceSchema, vendorPartPageSchema, type AddSourceRequest, type Source, type UpdateSourceRequest, type VendorPartPage } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { housePartKeys } from './house-part-keys';
 
 const sourcesSchema = sourceSchema.array();
@@ -20,8 +21,7 @@ function useInvalidateSources() {
       queryClient.invalidateQueries({ queryKey: housePartKeys.sources(housePartId) }),
       queryClient.invalidateQueries({ queryKey: housePartKeys.detail(housePartId), exact: true }),
       queryClient.invalidateQueries({ queryKey: housePartKeys.lists() }),
-      // The vendor part's page lists what it is a source of.
-      queryClient.invalidateQueries({ queryKey: ['vendor-parts'] }),
+      invalidateKeys(queryClient, staleAfter.sourcesChanged()),
     ]);
 }
 

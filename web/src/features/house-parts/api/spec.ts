@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { specVersionSchema, specVersionSummarySchema, type PutSpecRequest, type SpecVersion, type SpecVersionSummary } from '@shuntwise/contracts';
 import { apiRequest, ApiError } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { housePartKeys } from './house-part-keys';
 
 /** The current spec (or `version`); null when the house part has none yet. */
@@ -52,6 +53,8 @@ export function usePutSpec() {
         queryClient.invalidateQueries({ queryKey: housePartKeys.specVersions(saved.housePartId) }),
         queryClient.invalidateQueries({ queryKey: housePartKeys.detail(saved.housePartId), exact: true }),
         queryClient.invalidateQueries({ queryKey: housePartKeys.lists() }),
+        // The vendor parts' spec basis, Compare, the Board and the flagged cases.
+        invalidateKeys(queryClient, staleAfter.specSaved(saved.housePartId)),
       ]);
     },
     // A stale base: read the version that is there now, so the editor can offer it.

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { measurementCsvReadingSchema, measurementSetSchema, type MeasurementCsvReading, type MeasurementSet } from '@shuntwise/contracts';
-import { uploadFile } from '@/lib/upload';
+import { uploadFile } from '@/lib/api-client';
 import { measurementKeys } from './measurement-keys';
 
 export interface MeasurementUpload {
@@ -29,6 +29,6 @@ export function useUploadMeasurementSet() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: uploadMeasurementSet,
-    onSuccess: (_set, variables) => queryClient.invalidateQueries({ queryKey: [...measurementKeys.all, 'vendor-part', variables.vendorPartId] }),
+    onSuccess: (_set, variables) => queryClient.invalidateQueries({ queryKey: measurementKeys.vendorPart(variables.vendorPartId) }),
   });
 }

@@ -1,4 +1,6 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export const outboxKeys = {
-  all: ['outbox'] as const,
+  all: queryRoots.outbox,
   list: () => [...outboxKeys.all, 'list'] as const,
 };

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { qualificationRequestSchema, type OpenCaseFromRequest, type QualificationRequest } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { qualificationRequestKeys } from './qualification-request-keys';
 
 export interface OpenCaseInput {
@@ -17,12 +18,7 @@ export function useOpenCaseFromRequest() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: openCaseFromRequest,
-    // A new case: the lists and read models that show cases are stale too (named by their roots; their features own them).
-    onSuccess: () =>
-      Promise.all(
-        [qualificationRequestKeys.all, ['qualifications'], ['board'], ['compare'], ['sources-view'], ['house-parts'], ['vendor-parts'], ['find-parts']].map((queryKey) =>
-          queryClient.invalidateQueries({ queryKey }),
-        ),
-      ),
+    // A new case: the lists and read models that show cases are stale too.
+    onSuccess: () => invalidateKeys(queryClient, [qualificationRequestKeys.all, ...staleAfter.caseOpened()]),
   });
 }

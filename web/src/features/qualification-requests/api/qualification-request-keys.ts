@@ -1,3 +1,5 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export interface QualificationRequestListParams {
   /** open: waiting for an engineer; all: every state. */
   status: 'open' | 'all';
@@ -9,7 +11,7 @@ export interface QualificationRequestListParams {
 
 /** Query keys of the qualification-request feature; every variable of a query is in its key. */
 export const qualificationRequestKeys = {
-  all: ['qualification-requests'] as const,
+  all: queryRoots.qualificationRequests,
   lists: () => [...qualificationRequestKeys.all, 'list'] as const,
   list: (params: QualificationRequestListParams) => [...qualificationRequestKeys.lists(), params] as const,
   housePartChoices: (q: string) => [...qualificationRequestKeys.all, 'house-part-choices', q] as const,

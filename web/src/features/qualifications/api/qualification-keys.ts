@@ -1,3 +1,5 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export interface QualificationListParams {
   pageIndex: number;
   pageSize: number;
@@ -12,7 +14,7 @@ export interface QualificationListParams {
 }
 
 export const qualificationKeys = {
-  all: ['qualifications'] as const,
+  all: queryRoots.qualifications,
   lists: () => [...qualificationKeys.all, 'list'] as const,
   list: (params: QualificationListParams) => [...qualificationKeys.lists(), params] as const,
   detail: (id: number) => [...qualificationKeys.all, 'detail', id] as const,

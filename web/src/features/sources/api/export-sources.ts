@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { downloadFile } from '@/lib/download';
+import { downloadFile } from '@/lib/api-client';
 import { sourcesSearch } from './get-sources';
 import type { SourcesParams } from './sources-keys';
 

@@ -1,3 +1,5 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export interface SourcesParams {
   q?: string;
   /** Only the house parts the signed-in buyer follows. */
@@ -7,7 +9,7 @@ export interface SourcesParams {
 }
 
 export const sourcesKeys = {
-  all: ['sources-view'] as const,
+  all: queryRoots.sources,
   view: (params: SourcesParams) => [...sourcesKeys.all, 'view', params] as const,
   followed: () => [...sourcesKeys.all, 'followed'] as const,
 };

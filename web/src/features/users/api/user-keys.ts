@@ -1,5 +1,7 @@
+import { queryRoots } from '@/lib/query-keys';
+
 export const userKeys = {
-  all: ['users'] as const,
+  all: queryRoots.users,
   lists: () => [...userKeys.all, 'list'] as const,
   invitations: () => [...userKeys.all, 'invitations'] as const,
 };

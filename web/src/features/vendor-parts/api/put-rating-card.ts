@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { ratingCardConflictSchema, ratingCardViewSchema, type PutRatingCardRequest, type RatingCardView } from '@shuntwise/contracts';
+import { ratingCardViewSchema, type PutRatingCardRequest, type RatingCardView } from '@shuntwise/contracts';
 import { apiRequest, ApiError } from '@/lib/api-client';
+import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { vendorPartKeys } from './vendor-part-keys';
 
 export interface PutRatingCardVariables {
@@ -15,8 +16,8 @@ export function putRatingCard({ vendorPartId, request }: PutRatingCardVariables)
 /** The card someone else saved meanwhile, when a save failed with 409; else null. */
 export function conflictingCard(error: unknown): RatingCardView | null {
   if (!(error instanceof ApiError) || error.status !== 409) return null;
-  const parsed = ratingCardConflictSchema.safeParse(error.body);
-  return parsed.success ? parsed.data.current : null;
+  const parsed = ratingCardViewSchema.safeParse(error.current);
+  return parsed.success ? parsed.data : null;
 }
 
 export function usePutRatingCard() {
@@ -29,6 +30,8 @@ export function usePutRatingCard() {
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.cardVersions(card.vendorPartId) }),
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.detail(card.vendorPartId), exact: true }),
         queryClient.invalidateQueries({ queryKey: vendorPartKeys.lists() }),
+        // Compare, the Board, the flagged cases and search results show the card's values.
+        invalidateKeys(queryClient, staleAfter.cardSaved()),
       ]);
     },
   });

@@ -1,4 +1,5 @@
 import type { NormalizeRequest } from '@shuntwise/contracts';
+import { queryRoots, sharedKeys } from '@/lib/query-keys';
 
 /** Query keys of the vendor-parts feature; every variable of a query is in its key. */
 export interface VendorPartListParams {
@@ -14,7 +15,7 @@ export interface VendorPartListParams {
 }
 
 export const vendorPartKeys = {
-  all: ['vendor-parts'] as const,
+  all: queryRoots.vendorParts,
   lists: () => [...vendorPartKeys.all, 'list'] as const,
   list: (params: VendorPartListParams) => [...vendorPartKeys.lists(), params] as const,
   manufacturers: () => [...vendorPartKeys.all, 'manufacturers'] as const,
@@ -22,6 +23,6 @@ export const vendorPartKeys = {
   card: (id: number) => [...vendorPartKeys.detail(id), 'card'] as const,
   cardVersions: (id: number) => [...vendorPartKeys.detail(id), 'card-versions'] as const,
   cardVersion: (id: number, version: number) => [...vendorPartKeys.detail(id), 'card-version', version] as const,
-  spec: (housePartId: number) => [...vendorPartKeys.all, 'spec-basis', housePartId] as const,
+  spec: sharedKeys.specBasis,
   normalize: (request: NormalizeRequest | null) => [...vendorPartKeys.all, 'normalize', request] as const,
 };

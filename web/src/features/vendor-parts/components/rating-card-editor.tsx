@@ -1,25 +1,20 @@
-import { useCallback, useMemo, useState } from 'react';
-import { Alert, Badge, Button, Group, Paper, Select, Stack, Table, Text, TextInput, Title } from '@mantine/core';
+import { useCallback, useEffect, useMemo, useReducer, useState } from 'react';
+import { Alert, Button, Paper, Stack } from '@mantine/core';
 import { getHotkeyHandler, useDebouncedValue, useDisclosure } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
-import { IconDeviceFloppy, IconHistory, IconListCheck } from '@tabler/icons-react';
 import type { CardField, ExtractedVariant, RatingCardView, TempCoUnit, VendorPartDetail } from '@shuntwise/contracts';
-import { Quantity } from '@/components/quantity';
 import { ApiError, describeError } from '@/lib/api-client';
 import { useLeaveGuard } from '@/lib/leave-guard';
-import { CARD_FIELD_GROUPS, CARD_FIELD_META } from '@/lib/card-fields';
-import { formatDateTime } from '@/lib/format-date';
+import { CARD_FIELD_META } from '@/lib/card-fields';
 import { useSpecBasis } from '../api/get-spec-basis';
 import { useNormalizedCard } from '../api/normalize-card';
 import { conflictingCard, usePutRatingCard } from '../api/put-rating-card';
 import { useUpdateVendorPart } from '../api/update-vendor-part';
 import {
-  acceptSuggestion,
   changedFields,
   draftFromCard,
   draftProblems,
   engineeringCardOf,
-  enterValue,
   hasUnreadable,
   matchVariant,
   pendingSuggestions,
@@ -29,12 +24,13 @@ import {
   type CardDraft,
   type Suggestion,
 } from '../utils/card-draft';
+import { cardEditorReducer, initialCardEditorState } from '../utils/card-editor-state';
 import { basisFromSpec, normalizeRequestFor, standardBasis } from '../utils/normalize-request';
 import { CardConflictModal } from './card-conflict-modal';
-import { CardEngineeringPanel, MECHANISM_LABEL } from './card-engineering-panel';
-import { CardFieldRow, type SourceLocation } from './card-field-row';
-import { CheckFirstNote } from './suggestion-origin';
+import { CardEngineeringPanel } from './card-engineering-panel';
+import type { SourceLocation } from './card-field-row';
 import { CardVersionsModal } from './card-versions-modal';
+import { CardEditorHeader, CardFieldsTable, CardLiveSummary, CardNoteBar, CardSuggestionBar } from './rating-card-parts';
 
 export interface CardExtraction {
   datasheetId: number;
@@ -66,16 +62,8 @@ function fieldOfPath(path: string): CardField | null {
  * saved against the version it was loaded at.
  */
 export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, readOnly = false }: RatingCardEditorProps) {
-  const [loaded, setLoaded] = useState(card);
-  const [baseVersion, setBaseVersion] = useState(card.version);
-  const [base, setBase] = useState<CardDraft>(() => draftFromCard(card));
-  const [draft, setDraft] = useState<CardDraft>(base);
-  const [typed, setTyped] = useState<ReadonlySet<CardField>>(new Set());
-  const [note, setNote] = useState('');
-  const [serverErrors, setServerErrors] = useState<Partial<Record<CardField, string>>>({});
-  const [saveError, setSaveError] = useState<unknown>(null);
-  const [showRequired, setShowRequired] = useState(false);
-  const [conflict, setConflict] = useState<RatingCardView | null>(null);
+  const [state, dispatch] = useReducer(cardEditorReducer, card, initialCardEditorState);
+  const { loaded, baseVersion, base, draft, typed, note, serverErrors, saveError, showRequired, conflict } = state;
   const [conflictOpen, conflictModal] = useDisclosure(false);
   const [historyOpen, historyModal] = useDisclosure(false);
   const put = usePutRatingCard();
@@ -84,22 +72,12 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
   const changed = useMemo(() => new Set(changedFields(base, draft)), [base, draft]);
   const dirty = changed.size > 0 || note.trim() !== '';
 
-  const resetTo = (view: RatingCardView) => {
-    const next = draftFromCard(view);
-    setLoaded(view);
-    setBaseVersion(view.version);
-    setBase(next);
-    setDraft(next);
-    setTyped(new Set());
-    setNote('');
-    setServerErrors({});
-    setSaveError(null);
-    setShowRequired(false);
-  };
-
   // A newer card from the server (another tab, a series import) replaces an untouched
   // editor; with unsaved changes it waits, and the save's 409 brings the merge.
-  if (card !== loaded && card.version > loaded.version && !dirty && !conflict) resetTo(card);
+  const newerCard = card !== loaded && card.version > loaded.version && !dirty && !conflict;
+  useEffect(() => {
+    if (newerCard) dispatch({ type: 'load', view: card });
+  }, [newerCard, card]);
 
   // Unsaved edits are not dropped silently: leaving asks first (links and closing the tab).
   useLeaveGuard(dirty, 'The rating card has unsaved changes. Leave this page and lose them?');
@@ -121,37 +99,12 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
   const suggestions = useMemo(() => suggestionsFrom(variant, extraction?.datasheetId ?? null), [variant, extraction?.datasheetId]);
   const pending = useMemo(() => pendingSuggestions(draft, suggestions, typed), [draft, suggestions, typed]);
 
-  const clearServerError = (field: CardField) =>
-    setServerErrors((errors) => {
-      if (!errors[field]) return errors;
-      const next = { ...errors };
-      delete next[field];
-      return next;
-    });
-
-  const onEnter = useCallback((field: CardField, value: number | null, printed: string | null, unit?: TempCoUnit) => {
-    setDraft((d) => enterValue(d, field, value, printed, unit));
-    setTyped((t) => (t.has(field) ? t : new Set(t).add(field)));
-    clearServerError(field);
-  }, []);
-
-  const onAccept = useCallback((suggestion: Suggestion) => {
-    setDraft((d) => acceptSuggestion(d, suggestion));
-    setTyped((t) => {
-      if (!t.has(suggestion.field)) return t;
-      const next = new Set(t);
-      next.delete(suggestion.field);
-      return next;
-    });
-    clearServerError(suggestion.field);
-  }, []);
-
-  const acceptAll = () => {
-    let next = draft;
-    for (const s of pending) next = acceptSuggestion(next, s);
-    setDraft(next);
-    for (const s of pending) clearServerError(s.field);
-  };
+  const onEnter = useCallback(
+    (field: CardField, value: number | null, printed: string | null, unit?: TempCoUnit) => dispatch({ type: 'enter', field, value, printed, unit }),
+    [],
+  );
+  const onAccept = useCallback((suggestion: Suggestion) => dispatch({ type: 'accept', suggestions: [suggestion] }), []);
+  const acceptAll = () => dispatch({ type: 'accept', suggestions: pending });
 
   // The engineering core, live: only a card that reads and has no contradictions goes to it.
   const problems = useMemo(() => draftProblems(draft), [draft]);
@@ -190,32 +143,24 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
 
   const save = (fields: CardDraft = draft, version: number = baseVersion) => {
     if (readOnly || put.isPending) return;
-    setShowRequired(true);
-    if (hasUnreadable(fields) || Object.keys(draftProblems(fields)).length > 0) {
+    const valid = !hasUnreadable(fields) && Object.keys(draftProblems(fields)).length === 0;
+    dispatch({ type: 'save-attempt', valid });
+    if (!valid) {
       notifications.show({ color: 'red', title: 'Card not saved', message: 'Fix the fields marked in red first; what you typed is kept.' });
       return;
     }
-    setSaveError(null);
     put.mutate(
       { vendorPartId: vendorPart.id, request: { version, fields: toFieldsInput(fields), note: note.trim() || null } },
       {
         onSuccess: (saved) => {
           // Anything typed while the save was on its way stays in the editor, on top of the saved card.
-          const savedDraft = draftFromCard(saved);
-          setLoaded(saved);
-          setBaseVersion(saved.version);
-          setBase(savedDraft);
-          setDraft((current) => (current === fields ? savedDraft : current));
-          setTyped(new Set());
-          setNote('');
-          setServerErrors({});
-          setShowRequired(false);
+          dispatch({ type: 'load', view: saved, submitted: fields });
           notifications.show({ color: 'verdigris', title: 'Card saved', message: `${vendorPart.mpn}: version ${saved.version}.` });
         },
         onError: (error) => {
           const current = conflictingCard(error);
           if (current) {
-            setConflict(current);
+            dispatch({ type: 'conflict', current });
             conflictModal.open();
             return;
           }
@@ -226,8 +171,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
               if (field) byField[field] ??= e.message;
             }
           }
-          setServerErrors(byField);
-          setSaveError(error);
+          dispatch({ type: 'save-failed', error, serverErrors: byField });
         },
       },
     );
@@ -235,12 +179,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
 
   const onMerge = (merged: CardDraft, andSave: boolean) => {
     if (!conflict) return;
-    const theirs = draftFromCard(conflict);
-    setLoaded(conflict);
-    setBase(theirs);
-    setBaseVersion(conflict.version);
-    setDraft(merged);
-    setConflict(null);
+    dispatch({ type: 'merge', merged });
     conflictModal.close();
     if (andSave) save(merged, conflict.version);
   };
@@ -252,99 +191,38 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
     <Stack gap="md">
       <Paper component="section" aria-labelledby="card-title" onKeyDown={getHotkeyHandler([['mod+S', () => save()]])}>
         <Stack gap="sm">
-          <Group justify="space-between" wrap="wrap" gap="xs">
-            <Group gap="xs">
-              <Title order={3} fz="h5" id="card-title">
-                Rating card
-              </Title>
-              <Badge color={baseVersion === 0 ? 'gray' : 'copper'} variant="outline" data-testid="card-version">
-                {baseVersion === 0 ? 'no card yet' : `v${baseVersion}`}
-              </Badge>
-              {dirty && (
-                <Badge color="yellow" data-testid="unsaved">
-                  {changed.size} unsaved change{changed.size === 1 ? '' : 's'}
-                </Badge>
-              )}
-              {loaded.updatedAt && (
-                <Text fz="xs" c="dimmed">
-                  saved by {loaded.updatedBy?.name ?? 'the import'}, {formatDateTime(loaded.updatedAt)}
-                </Text>
-              )}
-            </Group>
-            <Group gap="xs">
-              <Button size="xs" variant="subtle" leftSection={<IconHistory size={14} />} onClick={historyModal.open} disabled={baseVersion === 0}>
-                History
-              </Button>
-              {!readOnly && (
-                <Button size="xs" leftSection={<IconDeviceFloppy size={14} />} onClick={() => save()} loading={put.isPending} disabled={!dirty} title="Save (Ctrl+S)">
-                  Save card
-                </Button>
-              )}
-            </Group>
-          </Group>
+          <CardEditorHeader
+            baseVersion={baseVersion}
+            changedCount={changed.size}
+            dirty={dirty}
+            loaded={loaded}
+            readOnly={readOnly}
+            saving={put.isPending}
+            onHistory={historyModal.open}
+            onSave={() => save()}
+          />
 
-          {result && (
-            <Group gap="md" fz="xs" c="dimmed" data-testid="live-summary" style={{ opacity: waitingFor ? 0.55 : 1 }}>
-              <Text fz="xs">
-                BV <Quantity value={result.model.bv} kind="voltage" digits={4} />
-              </Text>
-              <Text fz="xs">
-                RS <Quantity value={result.model.rs} kind="resistance" />
-              </Text>
-              <Text fz="xs">NBV {result.model.nbv.toPrecision(3)}</Text>
-              <Text fz="xs">{MECHANISM_LABEL[result.mechanism]}</Text>
-              {result.warnings.length > 0 && (
-                <Badge size="xs" color="yellow">
-                  {result.warnings.length} warning{result.warnings.length === 1 ? '' : 's'}
-                </Badge>
-              )}
-            </Group>
-          )}
+          {result && <CardLiveSummary result={result} dimmed={waitingFor !== null} />}
 
           {extraction && (
-            <Group gap="xs" wrap="wrap" p={6} bg="var(--mantine-color-default-hover)" style={{ borderRadius: 'var(--mantine-radius-sm)' }} data-testid="suggestion-bar">
-              <Text fz="xs">
-                Suggestions from <b>{extraction.fileName}</b>
-              </Text>
-              {variants.length === 0 ? (
-                <Text fz="xs" c="dimmed">
-                  The datasheet offers no values for a part.
-                </Text>
-              ) : (
-                <Select
-                  size="xs"
-                  w={170}
-                  aria-label="Variant on the datasheet"
-                  placeholder="Choose the variant"
-                  data={variants.map((v) => v.mpn)}
-                  value={variant?.mpn ?? null}
-                  searchable
-                  allowDeselect={false}
-                  onChange={(mpn) => mpn && setVariantChoice({ datasheetId: extraction.datasheetId, mpn })}
-                />
-              )}
-              {!readOnly && variant && (
-                <Button size="compact-xs" leftSection={<IconListCheck size={14} />} disabled={pending.length === 0} onClick={acceptAll}>
-                  Accept all suggestions ({pending.length})
-                </Button>
-              )}
-              <CheckFirstNote suggestions={Object.values(suggestions)} />
-              {packageSuggestion && packageSuggestion.value !== vendorPart.package && !readOnly && (
-                <Button
-                  size="compact-xs"
-                  variant="light"
-                  loading={updatePart.isPending}
-                  onClick={() =>
-                    updatePart.mutate(
-                      { id: vendorPart.id, changes: { package: packageSuggestion.value } },
-                      { onError: (e) => notifications.show({ color: 'red', title: 'Package not changed', message: describeError(e) }) },
-                    )
-                  }
-                >
-                  Package: {packageSuggestion.value} (p. {packageSuggestion.page})
-                </Button>
-              )}
-            </Group>
+            <CardSuggestionBar
+              fileName={extraction.fileName}
+              variants={variants}
+              variant={variant}
+              suggestions={suggestions}
+              pendingCount={pending.length}
+              readOnly={readOnly}
+              packageSuggestion={packageSuggestion && packageSuggestion.value !== vendorPart.package ? packageSuggestion : null}
+              packageSaving={updatePart.isPending}
+              onVariant={(mpn) => setVariantChoice({ datasheetId: extraction.datasheetId, mpn })}
+              onAcceptAll={acceptAll}
+              onPackage={(value) =>
+                updatePart.mutate(
+                  { id: vendorPart.id, changes: { package: value } },
+                  { onError: (e) => notifications.show({ color: 'red', title: 'Package not changed', message: describeError(e) }) },
+                )
+              }
+            />
           )}
 
           {saveError != null && (
@@ -361,46 +239,18 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
             </Alert>
           )}
 
-          <Table aria-label="Rating card fields" verticalSpacing={3}>
-            {CARD_FIELD_GROUPS.map((group) => (
-              <Table.Tbody key={group.title}>
-                <Table.Tr>
-                  <Table.Th colSpan={4} fz={11} tt="uppercase" c="dimmed" py={2} style={{ letterSpacing: '0.06em' }}>
-                    {group.title}
-                  </Table.Th>
-                </Table.Tr>
-                {group.fields.map((field) => (
-                  <CardFieldRow
-                    key={field}
-                    field={field}
-                    value={draft[field]}
-                    suggestion={suggestions[field]}
-                    changed={changed.has(field)}
-                    error={serverErrors[field] ?? (showRequired || draft[field] ? problems[field] : undefined)}
-                    readOnly={readOnly}
-                    onEnter={onEnter}
-                    onAccept={onAccept}
-                    onShowSource={onShowSource}
-                  />
-                ))}
-              </Table.Tbody>
-            ))}
-          </Table>
+          <CardFieldsTable
+            draft={draft}
+            suggestions={suggestions}
+            changed={changed}
+            errorOf={(field) => serverErrors[field] ?? (showRequired || draft[field] ? problems[field] : undefined)}
+            readOnly={readOnly}
+            onEnter={onEnter}
+            onAccept={onAccept}
+            onShowSource={onShowSource}
+          />
           {!readOnly && (
-            <Group align="flex-end" gap="xs">
-              <TextInput
-                size="xs"
-                style={{ flex: 1 }}
-                label="Note for this version"
-                placeholder="e.g. ZZT corrected from the revision B table"
-                value={note}
-                maxLength={500}
-                onChange={(e) => setNote(e.currentTarget.value)}
-              />
-              <Button size="xs" onClick={() => save()} loading={put.isPending} disabled={!dirty}>
-                Save card
-              </Button>
-            </Group>
+            <CardNoteBar note={note} saving={put.isPending} dirty={dirty} onNote={(text) => dispatch({ type: 'note', note: text })} onSave={() => save()} />
           )}
         </Stack>
       </Paper>
