@@ -245,6 +245,15 @@ describe('search (real MariaDB, demo seed)', () => {
     );
   });
 
+  it('offers no draft house part in the house-part facet (contracts DESIGNER_HOUSE_PART_STATUSES)', async () => {
+    const created = await t.http.post('/api/house-parts').set(auth(engineer)).send({ partNumber: 'OHI-ZD-DRAFT-1', description: 'Being specified' });
+    expect(created.body.status).toBe('draft');
+    const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as { houseParts: Array<{ partNumber: string; status: string }> };
+    expect(facets.houseParts.length).toBeGreaterThan(0);
+    expect(facets.houseParts.map((h) => h.partNumber)).not.toContain('OHI-ZD-DRAFT-1');
+    expect(facets.houseParts.filter((h) => h.status === 'draft')).toEqual([]);
+  });
+
   it('offers facets with usable and catalogue counts', async () => {
     const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as {
       packages: Array<{ value: string; cleared: number; total: number }>;

@@ -27,8 +27,8 @@ export class HousePartsController {
   @Get()
   @AnyRole()
   @ApiOkResponse({ type: HousePartPageDto })
-  list(@Query() query: HousePartListQueryDto) {
-    return this.houseParts.list(query);
+  list(@Query() query: HousePartListQueryDto, @CurrentUser() user: AuthUser) {
+    return this.houseParts.list(query, user);
   }
 
   @Post()

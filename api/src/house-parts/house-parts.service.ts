@@ -1,6 +1,7 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
+  DESIGNER_HOUSE_PART_STATUSES,
   QUALIFICATION_STATE_LABELS,
   isUsableState,
   type AddSourceRequest,
@@ -36,8 +37,9 @@ export class HousePartsService {
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
-  async list(query: HousePartListQuery): Promise<Page<HousePartDto>> {
-    const { rows, total } = await this.houseParts.list(query);
+  /** Designers are offered no drafts (contracts DESIGNER_HOUSE_PART_STATUSES); the other roles see every house part. */
+  async list(query: HousePartListQuery, user: AuthUser): Promise<Page<HousePartDto>> {
+    const { rows, total } = await this.houseParts.list(query, user.role === 'designer' ? DESIGNER_HOUSE_PART_STATUSES : undefined);
     return { items: rows.map(toHousePartDto), total, pageIndex: query.pageIndex, pageSize: query.pageSize };
   }
 

@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { QualificationRequestState, QualificationState } from '@shuntwise/contracts';
+import type { HousePartStatus, QualificationRequestState, QualificationState } from '@shuntwise/contracts';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { QualificationRequest } from './qualification-request.model';
@@ -140,8 +140,12 @@ export class QualificationRequestsRepository {
     return row ?? null;
   }
 
-  async housePart(id: number, transaction?: Transaction): Promise<{ id: number; partNumber: string; description: string } | null> {
-    const [row] = await this.select<{ id: number; partNumber: string; description: string }>('SELECT id, part_number AS partNumber, description FROM house_parts WHERE id = ?', [id], transaction);
+  async housePart(id: number, transaction?: Transaction): Promise<{ id: number; partNumber: string; description: string; status: HousePartStatus } | null> {
+    const [row] = await this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
+      'SELECT id, part_number AS partNumber, description, status FROM house_parts WHERE id = ?',
+      [id],
+      transaction,
+    );
     return row ?? null;
   }
 

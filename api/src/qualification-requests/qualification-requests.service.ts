@@ -4,12 +4,14 @@ import {
   ForbiddenException,
   Injectable,
   NotFoundException,
+  UnprocessableEntityException,
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
+  isOfferedToDesigners,
   isUsableState,
   sourceStanding,
   isOpenState,
@@ -80,6 +82,12 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
         if (!vp) throw new NotFoundException({ message: `No vendor part with id ${request.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
         const hp = housePartId !== null ? await this.requests.housePart(housePartId, transaction) : null;
         if (housePartId !== null && !hp) throw new NotFoundException({ message: `No house part with id ${housePartId}`, errors: [{ path: 'housePartId', message: 'no such house part' }] });
+        if (hp && user.role === 'designer' && !isOfferedToDesigners(hp.status)) {
+          throw new UnprocessableEntityException({
+            message: `House part ${hp.partNumber} is a draft still being specified: ask for the part without a house part, or choose one in use`,
+            errors: [{ path: 'housePartId', message: 'a draft house part' }],
+          });
+        }
         checkNeededBy(request.neededBy ?? null);
         const part = `${vp.manufacturer} ${vp.mpn}`;
         if (hp) await this.refuseAnswered(hp, part, vp.id, transaction);

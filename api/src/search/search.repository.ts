@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type { HousePartStatus, QualificationState, RatingCardFields, SearchQuery, SearchSort } from '@shuntwise/contracts';
+import { DESIGNER_HOUSE_PART_STATUSES, type HousePartStatus, type QualificationState, type RatingCardFields, type SearchQuery, type SearchSort } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
@@ -60,6 +60,8 @@ export interface TextNarrowing {
 
 // The state lists come from the standing rule in contracts (approved is decided and usable).
 const DECIDED = DECIDED_SQL;
+/** The house parts Find parts offers to choose from (contracts: no drafts); the contracts' own literals. */
+const DESIGNER_STATUS_SQL = DESIGNER_HOUSE_PART_STATUSES.map((s) => `'${s}'`).join(', ');
 const USABLE = USABLE_SQL;
 
 /**
@@ -315,7 +317,7 @@ export class SearchRepository {
       this.select<{ value: string; n: number }>(`SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL GROUP BY vp.package ORDER BY vp.package`),
       this.select<{ value: string; n: number }>(`SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp GROUP BY vp.manufacturer_name ORDER BY vp.manufacturer_name`),
       this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
-        `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h ORDER BY h.part_number`,
+        `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h WHERE h.status IN (${DESIGNER_STATUS_SQL}) ORDER BY h.part_number`,
       ),
       this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM vendor_parts`),
     ]);
