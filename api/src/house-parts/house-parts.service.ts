@@ -87,6 +87,13 @@ export class HousePartsService {
     return toSpecDto(row);
   }
 
+  /** The current spec, or null while the house part has none yet (404 only for a house part that does not exist). */
+  async currentSpec(housePartId: number): Promise<SpecVersion | null> {
+    const part = await this.houseParts.findById(housePartId);
+    if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
+    return part.specVersion === null ? null : this.spec(housePartId, part.specVersion);
+  }
+
   async specVersions(housePartId: number): Promise<SpecVersionSummary[]> {
     if (!(await this.houseParts.findById(housePartId))) throw new NotFoundException(`No house part with id ${housePartId}`);
     return (await this.houseParts.listSpecVersions(housePartId)).map((row) => {
