@@ -309,6 +309,11 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect((await t.http.post(`/api/qualifications/${c.body.id}/reject`).set(auth(reviewer)).send({ version: submitted.body.version, reason: 'leakage above the limit on samples' })).status).toBe(200);
     const again = await ask({ vendorPartId: vp, housePartId: otherHp, note: 'the vendor says the new lot is better; please look again' });
     expect(again.status).toBe(201);
+    // The queue shows the engineer that this pair was rejected, and why; a request for a pair never decided shows nothing.
+    const ruledOut = { caseId: c.body.id, state: 'rejected', reason: 'leakage above the limit on samples', at: expect.any(String) };
+    expect(again.body.ruledOut).toEqual(ruledOut);
+    expect((await list('?status=open', engineer)).body.items.find((r: { id: number }) => r.id === again.body.id).ruledOut).toEqual(ruledOut);
+    expect((await state(forPair.body.id)).ruledOut).toBeNull();
     // opening from the request says how to continue a decided pair
     const decided = await t.http.post(`/api/qualification-requests/${again.body.id}/open-case`).set(auth(engineer)).send({});
     expect(decided.status).toBe(409);

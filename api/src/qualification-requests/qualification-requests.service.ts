@@ -12,6 +12,7 @@ import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
   isOfferedToDesigners,
+  isRuledOutState,
   isUsableState,
   sourceStanding,
   isOpenState,
@@ -292,6 +293,15 @@ export function toDto(row: RequestRow): QualificationRequestDto {
             revision: row.caseRevision ?? 1,
             state: row.caseState!,
             housePart: { id: row.caseHousePartId, partNumber: row.casePartNumber ?? '', description: row.caseHousePartDescription ?? '' },
+          }
+        : null,
+    ruledOut:
+      row.decidedCaseId !== null && isRuledOutState(row.decidedState)
+        ? {
+            caseId: row.decidedCaseId,
+            state: row.decidedState,
+            reason: row.decidedState === 'revoked' ? row.revokeReason : row.decisionText,
+            at: iso(row.decidedState === 'revoked' ? row.revokedAt : row.decidedAt),
           }
         : null,
   };

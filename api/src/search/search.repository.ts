@@ -45,6 +45,10 @@ export interface PairRow {
   decidedById: number | null;
   decidedByName: string | null;
   needsRecheck: number | boolean | null;
+  revokeReason: string | null;
+  revokedAt: Date | null;
+  revokedById: number | null;
+  revokedByName: string | null;
   openCaseId: number | null;
 }
 
@@ -69,7 +73,7 @@ const USABLE = USABLE_SQL;
  * decided again): where the pair stands, as the Sources view has it. The pair index
  * (house_part_id, vendor_part_id, revision) answers the NOT EXISTS.
  */
-const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revision, d.state, d.decision_text, d.decided_at, d.decided_by_id, d.needs_recheck
+const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revision, d.state, d.decision_text, d.decided_at, d.decided_by_id, d.needs_recheck, d.revoke_reason, d.revoked_at, d.revoked_by_id
   FROM qualifications d
   WHERE d.state IN ${DECIDED} AND NOT EXISTS (
     SELECT 1 FROM qualifications n
@@ -290,11 +294,13 @@ export class SearchRepository {
       `SELECT s.vendor_part_id AS vendorPartId, s.house_part_id AS housePartId, h.part_number AS partNumber, h.description, h.status,
          d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
          d.decided_by_id AS decidedById, du.name AS decidedByName, d.needs_recheck AS needsRecheck,
+         d.revoke_reason AS revokeReason, d.revoked_at AS revokedAt, d.revoked_by_id AS revokedById, rvu.name AS revokedByName,
          (SELECT MAX(o.id) FROM qualifications o WHERE o.house_part_id = s.house_part_id AND o.vendor_part_id = s.vendor_part_id AND o.state IN ${OPEN_SQL}) AS openCaseId
        FROM house_part_sources s
        JOIN house_parts h ON h.id = s.house_part_id
        LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${list})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
        LEFT JOIN users du ON du.id = d.decided_by_id
+       LEFT JOIN users rvu ON rvu.id = d.revoked_by_id
        WHERE s.vendor_part_id IN (${list})
        ORDER BY h.part_number`,
       [...ids, ...ids],

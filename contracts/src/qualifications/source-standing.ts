@@ -30,6 +30,18 @@ export function isUsableState(state: QualificationState | null | undefined): sta
   return state != null && (USABLE_STATES as readonly string[]).includes(state);
 }
 
+/**
+ * Decided states that rule a part out for that house part: a second engineer rejected it, or
+ * a decision that let it be used was revoked. Designers are told (Find parts), and engineers
+ * see it beside a request to qualify the same pair again.
+ */
+export const RULED_OUT_STATES = ['rejected', 'revoked'] as const satisfies readonly QualificationState[];
+export type RuledOutState = (typeof RULED_OUT_STATES)[number];
+
+export function isRuledOutState(state: QualificationState | null | undefined): state is RuledOutState {
+  return state != null && (RULED_OUT_STATES as readonly string[]).includes(state);
+}
+
 /** Where a source stands: the state its cases give it, or `not-qualified` before any case. */
 export const SOURCE_STANDINGS = [...QUALIFICATION_STATES, 'not-qualified'] as const;
 export type SourceStandingValue = (typeof SOURCE_STANDINGS)[number];
