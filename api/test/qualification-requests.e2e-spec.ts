@@ -27,7 +27,8 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
 
   async function housePart(): Promise<number> {
     n++;
-    const id = await createHousePart(t.http, engineer, `HPR-${n}`, `Regulator diode for request ${n}`);
+    // In use: designers are not offered draft house parts.
+    const id = await createHousePart(t.http, engineer, `HPR-${n}`, `Regulator diode for request ${n}`, 'active');
     expect((await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: passingSpec() })).status).toBe(200);
     return id;
   }
@@ -111,6 +112,26 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(noHouse.body.errors).toEqual([{ path: 'housePartId', message: 'no such house part' }]);
     // nothing was recorded by the refused requests
     expect((await list(`?status=all&vendorPartId=${vp}`, engineer)).body.total).toBe(0);
+  });
+
+  it('offers designers no draft house part: the picker lists none and a request naming one is refused (422)', async () => {
+    const vp = await vendorPart();
+    const draft = await createHousePart(t.http, engineer, `HPR-DRAFT-${++n}`, 'Still being specified');
+    const active = await housePart();
+    const picker = (token: string) => t.http.get('/api/house-parts?q=HPR&pageSize=100').set(auth(token));
+    const offered = (await picker(designer)).body.items.map((h: { id: number }) => h.id);
+    expect(offered).toContain(active);
+    expect(offered).not.toContain(draft);
+    expect((await picker(engineer)).body.items.map((h: { id: number }) => h.id)).toContain(draft);
+    // Asking for the draft by status gives a designer nothing either.
+    expect((await t.http.get('/api/house-parts?status=draft&pageSize=100').set(auth(designer))).body.total).toBe(0);
+
+    const res = await ask({ vendorPartId: vp, housePartId: draft, note: 'For the sensor board' });
+    expect(res.status).toBe(422);
+    expect(res.body.message).toMatch(/^House part HPR-DRAFT-\d+ is a draft still being specified/);
+    expect(res.body.errors).toEqual([{ path: 'housePartId', message: 'a draft house part' }]);
+    expect((await list('?vendorPartId=' + vp, engineer)).body.total).toBe(0);
+    expect((await ask({ vendorPartId: vp, housePartId: active, note: 'For the sensor board' })).status).toBe(201);
   });
 
   it('refuses a duplicate open request of the same person for the same part and house part (409); others may ask too', async () => {
@@ -288,6 +309,11 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect((await t.http.post(`/api/qualifications/${c.body.id}/reject`).set(auth(reviewer)).send({ version: submitted.body.version, reason: 'leakage above the limit on samples' })).status).toBe(200);
     const again = await ask({ vendorPartId: vp, housePartId: otherHp, note: 'the vendor says the new lot is better; please look again' });
     expect(again.status).toBe(201);
+    // The queue shows the engineer that this pair was rejected, and why; a request for a pair never decided shows nothing.
+    const ruledOut = { caseId: c.body.id, state: 'rejected', reason: 'leakage above the limit on samples', at: expect.any(String) };
+    expect(again.body.ruledOut).toEqual(ruledOut);
+    expect((await list('?status=open', engineer)).body.items.find((r: { id: number }) => r.id === again.body.id).ruledOut).toEqual(ruledOut);
+    expect((await state(forPair.body.id)).ruledOut).toBeNull();
     // opening from the request says how to continue a decided pair
     const decided = await t.http.post(`/api/qualification-requests/${again.body.id}/open-case`).set(auth(engineer)).send({});
     expect(decided.status).toBe(409);

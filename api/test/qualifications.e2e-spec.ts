@@ -127,7 +127,13 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const seenByPreparer = await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer));
     expect(seenByPreparer.body.allowedActions).not.toContain('clear');
     const seenByReviewer = await t.http.get(`/api/qualifications/${c.id}`).set(auth(reviewer));
-    expect(seenByReviewer.body.allowedActions).toEqual(expect.arrayContaining(['clear', 'clear-with-conditions', 'reject', 'send-back', 'withdraw']));
+    expect(seenByReviewer.body.allowedActions).toEqual(expect.arrayContaining(['clear', 'clear-with-conditions', 'reject', 'send-back']));
+    // Withdrawing is the preparer's (contracts actionBlock): the reviewer is not offered it and is refused.
+    expect(seenByReviewer.body.allowedActions).not.toContain('withdraw');
+    expect(seenByPreparer.body.allowedActions).toContain('withdraw');
+    const reviewerWithdraws = await act(c.id, 'withdraw', {}, reviewer);
+    expect(reviewerWithdraws.status).toBe(403);
+    expect(reviewerWithdraws.body.message).toMatch(/Only the engineer who prepared case #\d+ can withdraw it/);
 
     const [{ now: before }] = await t.select<{ now: Date }>('SELECT NOW(3) AS now');
     const cleared = await act(c.id, 'clear', { note: 'equivalent on every check' }, reviewer);

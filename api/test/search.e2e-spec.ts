@@ -64,6 +64,25 @@ describe('search (real MariaDB, demo seed)', () => {
     expect(mpns(items)).toEqual(expect.arrayContaining(['QHZ4V7A', 'QHZ5V6A', 'TPZ15-11', 'BRZ05-12', 'BRZ05-5V1']));
   });
 
+  it('tells the designer which house part a part was ruled out for, why, by whom and when (demo: one rejected, one revoked)', async () => {
+    const rejected = (await search('q=TPZ15-8V2&includeNotCleared=true')).items.find((i) => i.vendorPart.mpn === 'TPZ15-8V2')!;
+    expect(rejected.cleared).toBe(false);
+    expect(rejected.ruledOut).toEqual([
+      {
+        housePart: expect.objectContaining({ partNumber: 'OHI-ZD-2082' }),
+        state: 'rejected',
+        caseId: expect.any(Number),
+        reason: 'Reverse leakage is 25 % above the spec limit at 5.7 V.',
+        at: expect.any(String),
+        by: { id: expect.any(Number), name: 'Tomas Eklund' },
+      },
+    ]);
+    const revoked = (await search('q=QHZ24AF&includeNotCleared=true')).items.find((i) => i.vendorPart.mpn === 'QHZ24AF')!;
+    expect(revoked.ruledOut).toEqual([expect.objectContaining({ housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1240' }), state: 'revoked', reason: expect.stringMatching(/move of assembly/) })]);
+    // A cleared part carries no ruling out.
+    expect((await search('q=TPZ15-11')).items.find((i) => i.vendorPart.mpn === 'TPZ15-11')!.ruledOut).toEqual([]);
+  });
+
   it('says for which house part, on what conditions and since when a part is cleared', async () => {
     const { items } = await search('q=TPZ15-11');
     const part = items.find((i) => i.vendorPart.mpn === 'TPZ15-11')!;
@@ -242,6 +261,15 @@ describe('search (real MariaDB, demo seed)', () => {
     expect(docs.paths['/api/search'].get.parameters.map((p: { name: string }) => p.name)).toEqual(
       expect.arrayContaining(['q', 'vzFrom', 'vzTo', 'vzWindow', 'package', 'pdMin', 'toleranceMax', 'manufacturer', 'housePartId', 'includeNotCleared', 'sort', 'pageIndex', 'pageSize']),
     );
+  });
+
+  it('offers no draft house part in the house-part facet (contracts DESIGNER_HOUSE_PART_STATUSES)', async () => {
+    const created = await t.http.post('/api/house-parts').set(auth(engineer)).send({ partNumber: 'OHI-ZD-DRAFT-1', description: 'Being specified' });
+    expect(created.body.status).toBe('draft');
+    const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as { houseParts: Array<{ partNumber: string; status: string }> };
+    expect(facets.houseParts.length).toBeGreaterThan(0);
+    expect(facets.houseParts.map((h) => h.partNumber)).not.toContain('OHI-ZD-DRAFT-1');
+    expect(facets.houseParts.filter((h) => h.status === 'draft')).toEqual([]);
   });
 
   it('offers facets with usable and catalogue counts', async () => {

@@ -147,7 +147,7 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     await page.getByRole('link', { name: `#${caseUrl.split('/').pop()}`, exact: true }).click();
     await page.waitForURL(new RegExp(`${caseUrl}$`));
     const actions = page.getByRole('group', { name: 'Actions on this case' });
-    await expect.poll(() => actions.getByRole('button').allTextContents()).toEqual(['Approve as approved source', 'Clear', 'Clear with conditions', 'Reject', 'Send back to draft', 'Withdraw']);
+    await expect.poll(() => actions.getByRole('button').allTextContents()).toEqual(['Approve as approved source', 'Clear', 'Clear with conditions', 'Reject', 'Send back to draft']);
     await screenshot(page, 'qualification-7-in-review-reviewer');
 
     await actions.getByRole('button', { name: 'Clear', exact: true }).click();

@@ -1,5 +1,6 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Put, Query } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Put, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
 import {
@@ -27,8 +28,8 @@ export class HousePartsController {
   @Get()
   @AnyRole()
   @ApiOkResponse({ type: HousePartPageDto })
-  list(@Query() query: HousePartListQueryDto) {
-    return this.houseParts.list(query);
+  list(@Query() query: HousePartListQueryDto, @CurrentUser() user: AuthUser) {
+    return this.houseParts.list(query, user);
   }
 
   @Post()
@@ -54,9 +55,10 @@ export class HousePartsController {
 
   @Get(':id/spec')
   @AnyRole()
-  @ApiOkResponse({ type: SpecVersionDto })
-  spec(@Param('id', ParseIntPipe) id: number, @Query() query: SpecQueryDto) {
-    return this.houseParts.spec(id, query.version);
+  @ApiOkResponse({ type: SpecVersionDto, description: 'The current spec, or `version`. Without `version`, `null` while the house part has no spec yet (a state, not a missing resource); a `version` it does not have is a 404.' })
+  async spec(@Param('id', ParseIntPipe) id: number, @Query() query: SpecQueryDto, @Res() res: Response): Promise<void> {
+    // Express sends an empty body for a returned null; the answer is the JSON null.
+    res.json(query.version === undefined ? await this.houseParts.currentSpec(id) : await this.houseParts.spec(id, query.version));
   }
 
   @Put(':id/spec')

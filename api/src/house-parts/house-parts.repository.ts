@@ -72,9 +72,14 @@ export class HousePartsRepository {
     private readonly textIndex: TextIndexRepository,
   ) {}
 
-  async list(query: HousePartListQuery): Promise<{ rows: HousePartRow[]; total: number }> {
+  /** `statuses`: only house parts in these (designers are not offered drafts). */
+  async list(query: HousePartListQuery, statuses?: readonly HousePartStatus[]): Promise<{ rows: HousePartRow[]; total: number }> {
     const where: string[] = [];
     const params: unknown[] = [];
+    if (statuses) {
+      where.push(`h.status IN (${statuses.map(() => '?').join(', ')})`);
+      params.push(...statuses);
+    }
     if (query.q) {
       const text = this.textIndex.housePartCondition('h', query.q);
       where.push(text.sql);

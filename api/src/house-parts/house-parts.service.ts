@@ -1,6 +1,7 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
+  DESIGNER_HOUSE_PART_STATUSES,
   QUALIFICATION_STATE_LABELS,
   isUsableState,
   type AddSourceRequest,
@@ -36,8 +37,9 @@ export class HousePartsService {
     @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
-  async list(query: HousePartListQuery): Promise<Page<HousePartDto>> {
-    const { rows, total } = await this.houseParts.list(query);
+  /** Designers are offered no drafts (contracts DESIGNER_HOUSE_PART_STATUSES); the other roles see every house part. */
+  async list(query: HousePartListQuery, user: AuthUser): Promise<Page<HousePartDto>> {
+    const { rows, total } = await this.houseParts.list(query, user.role === 'designer' ? DESIGNER_HOUSE_PART_STATUSES : undefined);
     return { items: rows.map(toHousePartDto), total, pageIndex: query.pageIndex, pageSize: query.pageSize };
   }
 
@@ -83,6 +85,13 @@ export class HousePartsService {
     const row = await this.houseParts.findSpec(housePartId, wanted);
     if (!row) throw new NotFoundException(`House part ${part.partNumber} has no spec version ${wanted}`);
     return toSpecDto(row);
+  }
+
+  /** The current spec, or null while the house part has none yet (404 only for a house part that does not exist). */
+  async currentSpec(housePartId: number): Promise<SpecVersion | null> {
+    const part = await this.houseParts.findById(housePartId);
+    if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
+    return part.specVersion === null ? null : this.spec(housePartId, part.specVersion);
   }
 
   async specVersions(housePartId: number): Promise<SpecVersionSummary[]> {

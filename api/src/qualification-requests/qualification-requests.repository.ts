@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { QualificationRequestState, QualificationState } from '@shuntwise/contracts';
+import type { HousePartStatus, QualificationRequestState, QualificationState } from '@shuntwise/contracts';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { DECIDED_SQL } from '../common/source-standing.sql';
 import { QualificationRequest } from './qualification-request.model';
 
 /** A request as lists and the detail read it: the row with the names it refers to and its case. */
@@ -31,6 +32,13 @@ export interface RequestRow {
   caseHousePartId: number | null;
   casePartNumber: string | null;
   caseHousePartDescription: string | null;
+  /** The latest decided case of the named pair (vendor part, house part), if any. */
+  decidedCaseId: number | null;
+  decidedState: QualificationState | null;
+  decisionText: string | null;
+  decidedAt: Date | null;
+  revokeReason: string | null;
+  revokedAt: Date | null;
 }
 
 export interface RequestFilter {
@@ -44,7 +52,8 @@ const REQUEST_SELECT = `SELECT r.id, r.vendor_part_id AS vendorPartId, vp.manufa
   r.note, DATE_FORMAT(r.needed_by, '%Y-%m-%d') AS neededBy, r.state, r.requested_by_id AS requestedById, ru.name AS requestedByName,
   r.created_at AS createdAt, r.closed_by_id AS closedById, cu.name AS closedByName, r.closed_at AS closedAt, r.reply,
   q.id AS caseId, q.revision AS caseRevision, q.state AS caseState, q.house_part_id AS caseHousePartId,
-  qh.part_number AS casePartNumber, qh.description AS caseHousePartDescription`;
+  qh.part_number AS casePartNumber, qh.description AS caseHousePartDescription,
+  ld.id AS decidedCaseId, ld.state AS decidedState, ld.decision_text AS decisionText, ld.decided_at AS decidedAt, ld.revoke_reason AS revokeReason, ld.revoked_at AS revokedAt`;
 
 const REQUEST_FROM = `FROM qualification_requests r
 JOIN vendor_parts vp ON vp.id = r.vendor_part_id
@@ -52,7 +61,9 @@ LEFT JOIN house_parts h ON h.id = r.house_part_id
 JOIN users ru ON ru.id = r.requested_by_id
 LEFT JOIN users cu ON cu.id = r.closed_by_id
 LEFT JOIN qualifications q ON q.id = r.qualification_id
-LEFT JOIN house_parts qh ON qh.id = q.house_part_id`;
+LEFT JOIN house_parts qh ON qh.id = q.house_part_id
+LEFT JOIN qualifications ld ON ld.house_part_id = r.house_part_id AND ld.vendor_part_id = r.vendor_part_id AND ld.state IN ${DECIDED_SQL}
+  AND NOT EXISTS (SELECT 1 FROM qualifications n WHERE n.house_part_id = ld.house_part_id AND n.vendor_part_id = ld.vendor_part_id AND n.revision > ld.revision AND n.state IN ${DECIDED_SQL})`;
 
 /** The only place that queries qualification requests (and reads what they refer to). */
 @Injectable()
@@ -140,8 +151,12 @@ export class QualificationRequestsRepository {
     return row ?? null;
   }
 
-  async housePart(id: number, transaction?: Transaction): Promise<{ id: number; partNumber: string; description: string } | null> {
-    const [row] = await this.select<{ id: number; partNumber: string; description: string }>('SELECT id, part_number AS partNumber, description FROM house_parts WHERE id = ?', [id], transaction);
+  async housePart(id: number, transaction?: Transaction): Promise<{ id: number; partNumber: string; description: string; status: HousePartStatus } | null> {
+    const [row] = await this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
+      'SELECT id, part_number AS partNumber, description, status FROM house_parts WHERE id = ?',
+      [id],
+      transaction,
+    );
     return row ?? null;
   }
 

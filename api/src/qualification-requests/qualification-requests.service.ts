@@ -4,12 +4,15 @@ import {
   ForbiddenException,
   Injectable,
   NotFoundException,
+  UnprocessableEntityException,
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
+  isOfferedToDesigners,
+  isRuledOutState,
   isUsableState,
   sourceStanding,
   isOpenState,
@@ -80,6 +83,12 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
         if (!vp) throw new NotFoundException({ message: `No vendor part with id ${request.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
         const hp = housePartId !== null ? await this.requests.housePart(housePartId, transaction) : null;
         if (housePartId !== null && !hp) throw new NotFoundException({ message: `No house part with id ${housePartId}`, errors: [{ path: 'housePartId', message: 'no such house part' }] });
+        if (hp && user.role === 'designer' && !isOfferedToDesigners(hp.status)) {
+          throw new UnprocessableEntityException({
+            message: `House part ${hp.partNumber} is a draft still being specified: ask for the part without a house part, or choose one in use`,
+            errors: [{ path: 'housePartId', message: 'a draft house part' }],
+          });
+        }
         checkNeededBy(request.neededBy ?? null);
         const part = `${vp.manufacturer} ${vp.mpn}`;
         if (hp) await this.refuseAnswered(hp, part, vp.id, transaction);
@@ -284,6 +293,15 @@ export function toDto(row: RequestRow): QualificationRequestDto {
             revision: row.caseRevision ?? 1,
             state: row.caseState!,
             housePart: { id: row.caseHousePartId, partNumber: row.casePartNumber ?? '', description: row.caseHousePartDescription ?? '' },
+          }
+        : null,
+    ruledOut:
+      row.decidedCaseId !== null && isRuledOutState(row.decidedState)
+        ? {
+            caseId: row.decidedCaseId,
+            state: row.decidedState,
+            reason: row.decidedState === 'revoked' ? row.revokeReason : row.decisionText,
+            at: iso(row.decidedState === 'revoked' ? row.revokedAt : row.decidedAt),
           }
         : null,
   };

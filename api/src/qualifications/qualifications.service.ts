@@ -620,6 +620,8 @@ function refusal(block: ActionBlock, action: QualificationAction, row: Qualifica
     }
     case 'two-person':
       return new ForbiddenException(`You prepared case #${row.id}; another engineer must decide it (two-person rule)`);
+    case 'preparer-only':
+      return new ForbiddenException(`Only the engineer who prepared case #${row.id} can withdraw it; send it back or reject it instead`);
     case 'stale':
       return new ConflictException(
         `Case #${row.id} was evaluated on spec version ${row.specVersion} and card version ${row.cardVersion}; the catalogue is now at spec ${basis.housePart.specVersion ?? '—'} and card ${basis.vendorPart.cardVersion}. ` +

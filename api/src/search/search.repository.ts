@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type { HousePartStatus, QualificationState, RatingCardFields, SearchQuery, SearchSort } from '@shuntwise/contracts';
+import { DESIGNER_HOUSE_PART_STATUSES, type HousePartStatus, type QualificationState, type RatingCardFields, type SearchQuery, type SearchSort } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
@@ -45,6 +45,10 @@ export interface PairRow {
   decidedById: number | null;
   decidedByName: string | null;
   needsRecheck: number | boolean | null;
+  revokeReason: string | null;
+  revokedAt: Date | null;
+  revokedById: number | null;
+  revokedByName: string | null;
   openCaseId: number | null;
 }
 
@@ -60,6 +64,8 @@ export interface TextNarrowing {
 
 // The state lists come from the standing rule in contracts (approved is decided and usable).
 const DECIDED = DECIDED_SQL;
+/** The house parts Find parts offers to choose from (contracts: no drafts); the contracts' own literals. */
+const DESIGNER_STATUS_SQL = DESIGNER_HOUSE_PART_STATUSES.map((s) => `'${s}'`).join(', ');
 const USABLE = USABLE_SQL;
 
 /**
@@ -67,7 +73,7 @@ const USABLE = USABLE_SQL;
  * decided again): where the pair stands, as the Sources view has it. The pair index
  * (house_part_id, vendor_part_id, revision) answers the NOT EXISTS.
  */
-const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revision, d.state, d.decision_text, d.decided_at, d.decided_by_id, d.needs_recheck
+const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revision, d.state, d.decision_text, d.decided_at, d.decided_by_id, d.needs_recheck, d.revoke_reason, d.revoked_at, d.revoked_by_id
   FROM qualifications d
   WHERE d.state IN ${DECIDED} AND NOT EXISTS (
     SELECT 1 FROM qualifications n
@@ -288,11 +294,13 @@ export class SearchRepository {
       `SELECT s.vendor_part_id AS vendorPartId, s.house_part_id AS housePartId, h.part_number AS partNumber, h.description, h.status,
          d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
          d.decided_by_id AS decidedById, du.name AS decidedByName, d.needs_recheck AS needsRecheck,
+         d.revoke_reason AS revokeReason, d.revoked_at AS revokedAt, d.revoked_by_id AS revokedById, rvu.name AS revokedByName,
          (SELECT MAX(o.id) FROM qualifications o WHERE o.house_part_id = s.house_part_id AND o.vendor_part_id = s.vendor_part_id AND o.state IN ${OPEN_SQL}) AS openCaseId
        FROM house_part_sources s
        JOIN house_parts h ON h.id = s.house_part_id
        LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${list})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
        LEFT JOIN users du ON du.id = d.decided_by_id
+       LEFT JOIN users rvu ON rvu.id = d.revoked_by_id
        WHERE s.vendor_part_id IN (${list})
        ORDER BY h.part_number`,
       [...ids, ...ids],
@@ -315,7 +323,7 @@ export class SearchRepository {
       this.select<{ value: string; n: number }>(`SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL GROUP BY vp.package ORDER BY vp.package`),
       this.select<{ value: string; n: number }>(`SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp GROUP BY vp.manufacturer_name ORDER BY vp.manufacturer_name`),
       this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
-        `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h ORDER BY h.part_number`,
+        `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h WHERE h.status IN (${DESIGNER_STATUS_SQL}) ORDER BY h.part_number`,
       ),
       this.select<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM vendor_parts`),
     ]);

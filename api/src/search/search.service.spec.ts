@@ -72,6 +72,10 @@ const pair = (over: Partial<PairRow>): PairRow => ({
   decidedById: null,
   decidedByName: null,
   needsRecheck: 0,
+  revokeReason: null,
+  revokedAt: null,
+  revokedById: null,
+  revokedByName: null,
   openCaseId: null,
   ...over,
 });

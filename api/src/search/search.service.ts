@@ -1,11 +1,13 @@
 import { Injectable, Optional } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
+  isRuledOutState,
   isUsableState,
   toEngineeringCard,
   vzTolerance,
   type Clearance,
   type RatingCardFields,
+  type RuledOut,
   type SearchCard,
   type SearchFacets,
   type SearchItem,
@@ -124,8 +126,25 @@ function toItem(part: PartRow, pairs: PairRow[], score: number | null, waivers: 
     datasheetId: part.datasheetId,
     cleared: clearances.length > 0,
     clearances,
+    ruledOut: pairs.map(toRuledOut).filter((r): r is RuledOut => r !== null),
     qualificationOpen: clearances.length === 0 && pairs.some((p) => p.openCaseId !== null),
     score: score === null ? null : Number(score.toPrecision(4)),
+  };
+}
+
+/** A pair its latest decision ruled out (isRuledOutState in contracts): the reason, who and when; else null. */
+export function toRuledOut(pair: PairRow): RuledOut | null {
+  if (pair.caseId === null || !isRuledOutState(pair.state)) return null;
+  const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
+  const revoked = pair.state === 'revoked';
+  const byId = revoked ? pair.revokedById : pair.decidedById;
+  return {
+    housePart: { id: pair.housePartId, partNumber: pair.partNumber, description: pair.description, status: pair.status },
+    state: pair.state,
+    caseId: pair.caseId,
+    reason: revoked ? pair.revokeReason : pair.decisionText,
+    at: iso(revoked ? pair.revokedAt : pair.decidedAt),
+    by: byId !== null ? { id: byId, name: (revoked ? pair.revokedByName : pair.decidedByName) ?? '' } : null,
   };
 }
 

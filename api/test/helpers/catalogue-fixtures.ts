@@ -1,4 +1,4 @@
-import type { PutRatingCardRequest, SpecInput } from '@shuntwise/contracts';
+import type { HousePartStatus, PutRatingCardRequest, SpecInput } from '@shuntwise/contracts';
 import type TestAgent from 'supertest/lib/agent';
 
 /** Invented values of the usual size for a 5.1 V, 500 mW small-signal regulator diode (common practice, no source). */
@@ -49,8 +49,8 @@ export async function createVendorPart(http: TestAgent, token: string, body: { m
   return res.body.id as number;
 }
 
-export async function createHousePart(http: TestAgent, token: string, partNumber: string, description = ''): Promise<number> {
-  const res = await http.post('/api/house-parts').set('Authorization', `Bearer ${token}`).send({ partNumber, description });
+export async function createHousePart(http: TestAgent, token: string, partNumber: string, description = '', status?: HousePartStatus): Promise<number> {
+  const res = await http.post('/api/house-parts').set('Authorization', `Bearer ${token}`).send({ partNumber, description, ...(status ? { status } : {}) });
   if (res.status !== 201) throw new Error(`create house part failed: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.id as number;
 }

@@ -6,6 +6,16 @@ export const HOUSE_PART_STATUSES = ['draft', 'active', 'not-for-new-designs', 'e
 export const housePartStatusSchema = z.enum(HOUSE_PART_STATUSES);
 export type HousePartStatus = z.infer<typeof housePartStatusSchema>;
 
+/**
+ * The house parts designers are offered (Find parts' picker, the house part of a request): a
+ * draft is still being specified by engineers, so it is neither chosen nor asked for.
+ */
+export const DESIGNER_HOUSE_PART_STATUSES = ['active', 'not-for-new-designs', 'end-of-life'] as const satisfies readonly HousePartStatus[];
+
+export function isOfferedToDesigners(status: HousePartStatus): boolean {
+  return (DESIGNER_HOUSE_PART_STATUSES as readonly string[]).includes(status);
+}
+
 /** Internal part numbers: letters, digits and - . / _ (no spaces), as the parts list writes them. */
 export const partNumberSchema = z
   .string()

@@ -16,6 +16,7 @@ import { z } from 'zod';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema } from '../parts/page.schema';
 import { housePartRefSchema, vendorPartRefSchema } from './qualification.schema';
 import { qualificationStateSchema } from './qualification-state.schema';
+import { RULED_OUT_STATES } from './source-standing';
 
 export const QUALIFICATION_REQUEST_STATES = ['open', 'taken-up', 'declined'] as const;
 export const qualificationRequestStateSchema = z.enum(QUALIFICATION_REQUEST_STATES);
@@ -44,6 +45,13 @@ export const qualificationRequestSchema = z.object({
   closedAt: z.string().nullable(),
   /** The engineer's reply when declined. */
   reply: z.string().nullable(),
+  /**
+   * When the latest decision on this vendor part for the named house part ruled it out
+   * (rejected, or revoked): that case, so the engineer sees it before taking the request up.
+   */
+  ruledOut: z
+    .object({ caseId: z.number().int(), state: z.enum(RULED_OUT_STATES), reason: z.string().nullable(), at: z.string().nullable() })
+    .nullable(),
   /** The case that took it up, as it stands now. */
   case: z
     .object({

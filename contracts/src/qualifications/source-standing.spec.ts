@@ -34,6 +34,17 @@ describe('source standing', () => {
     expect(actionBlock('approve', { ...facts, fresh: false }, { id: 2, role: 'engineer' })).toBe('stale');
   });
 
+  it('lets only the preparer withdraw a case; a reviewer sends it back or rejects it', () => {
+    for (const state of ['draft', 'in-review'] as const) {
+      const facts = { state, preparedById: 1, overall: 'pass' as const, fresh: true, nextId: null };
+      expect(actionBlock('withdraw', facts, { id: 1, role: 'engineer' })).toBeNull();
+      expect(actionBlock('withdraw', facts, { id: 2, role: 'engineer' })).toBe('preparer-only');
+    }
+    const review = { state: 'in-review' as const, preparedById: 1, overall: 'pass' as const, fresh: true, nextId: null };
+    expect(actionBlock('send-back', review, { id: 2, role: 'engineer' })).toBeNull();
+    expect(actionBlock('reject', review, { id: 2, role: 'engineer' })).toBeNull();
+  });
+
   it('writes SQL state lists from the lists, and refuses anything that is not a state', () => {
     expect(sqlStateList(USABLE_STATES)).toBe("('approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver')");
     expect(() => sqlStateList(["cleared') OR ('1" as never])).toThrow(/not a state/);

@@ -30,6 +30,18 @@ export function isUsableState(state: QualificationState | null | undefined): sta
   return state != null && (USABLE_STATES as readonly string[]).includes(state);
 }
 
+/**
+ * Decided states that rule a part out for that house part: a second engineer rejected it, or
+ * a decision that let it be used was revoked. Designers are told (Find parts), and engineers
+ * see it beside a request to qualify the same pair again.
+ */
+export const RULED_OUT_STATES = ['rejected', 'revoked'] as const satisfies readonly QualificationState[];
+export type RuledOutState = (typeof RULED_OUT_STATES)[number];
+
+export function isRuledOutState(state: QualificationState | null | undefined): state is RuledOutState {
+  return state != null && (RULED_OUT_STATES as readonly string[]).includes(state);
+}
+
 /** Where a source stands: the state its cases give it, or `not-qualified` before any case. */
 export const SOURCE_STANDINGS = [...QUALIFICATION_STATES, 'not-qualified'] as const;
 export type SourceStandingValue = (typeof SOURCE_STANDINGS)[number];
@@ -75,6 +87,9 @@ export function sourceRoleOf(standing: SourceStandingValue | null | undefined): 
 /** The roles that prepare and decide cases. */
 export const CASE_ROLES = ['engineer'] as const satisfies readonly Role[];
 
+/** Actions only the case's preparer takes: abandoning the work is theirs; a reviewer sends back or rejects. */
+export const PREPARER_ACTIONS: readonly QualificationAction[] = ['withdraw'];
+
 /** What a rule needs to know of a case to say whether an action is open to someone. */
 export interface CaseFacts {
   state: QualificationState;
@@ -98,6 +113,8 @@ export interface CaseFacts {
  * - `role`: only engineers act on cases;
  * - `state`: the action does not start from the case's state;
  * - `two-person`: the preparer never decides their own case;
+ * - `preparer-only`: only the engineer who prepared a case withdraws it (a reviewer sends it
+ *   back with a reason, or rejects it);
  * - `stale`: the evaluation is behind the catalogue (submit, approve, clear);
  * - `verdict`: clear needs a pass; approve and clear with conditions anything but a fail
  *   (an approval short of a pass must say in its note how the margin is covered);
@@ -106,12 +123,13 @@ export interface CaseFacts {
  * - `waiver`: clear with waiver needs every failing or marginal check covered by an approved,
  *   unexpired waiver (and at least one such waiver; a clean pass is simply cleared).
  */
-export type ActionBlock = 'role' | 'state' | 'two-person' | 'stale' | 'verdict' | 'superseded' | 'recheck-exists' | 'waiver';
+export type ActionBlock = 'role' | 'state' | 'two-person' | 'preparer-only' | 'stale' | 'verdict' | 'superseded' | 'recheck-exists' | 'waiver';
 
 export function actionBlock(action: QualificationAction, facts: CaseFacts, actor: { id: number; role: Role }): ActionBlock | null {
   if (!(CASE_ROLES as readonly string[]).includes(actor.role)) return 'role';
   if (!QUALIFICATION_TRANSITIONS[action].from.includes(facts.state)) return 'state';
   if (isDecisionAction(action) && facts.preparedById === actor.id) return 'two-person';
+  if (PREPARER_ACTIONS.includes(action) && facts.preparedById !== actor.id) return 'preparer-only';
   switch (action) {
     case 'submit':
       return facts.fresh ? null : 'stale';

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { fieldWithValue as fw } from '../units/field-labels';
 import { housePartStatusSchema } from '../parts/house-part.schema';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
-import { USABLE_STATES } from '../qualifications/source-standing';
+import { RULED_OUT_STATES, USABLE_STATES } from '../qualifications/source-standing';
 import { waiverBriefSchema } from '../qualifications/waiver.schema';
 
 /**
@@ -104,6 +104,22 @@ export const clearanceSchema = z.object({
 export type Clearance = z.infer<typeof clearanceSchema>;
 
 /**
+ * A house part this part was ruled out for by its latest decision (RULED_OUT_STATES in
+ * qualifications/source-standing.ts): rejected, or a clearance revoked. Not a standing to
+ * design by: the reason, who decided and when, so a designer does not ask again blindly.
+ */
+export const ruledOutSchema = z.object({
+  housePart: z.object({ id: z.number().int(), partNumber: z.string(), description: z.string(), status: housePartStatusSchema }),
+  state: z.enum(RULED_OUT_STATES),
+  caseId: z.number().int(),
+  /** The rejection's reason, or the revocation's. */
+  reason: z.string().nullable(),
+  at: z.string().nullable(),
+  by: actorSchema.nullable(),
+});
+export type RuledOut = z.infer<typeof ruledOutSchema>;
+
+/**
  * The card as a designer chooses by it (SI): the engineering card as `toEngineeringCard`
  * reads the stored card (what `POST /engineering/regulator` takes as `card`), plus
  * `version` and `tolerance` for display.
@@ -146,6 +162,8 @@ export const searchItemSchema = z.object({
   /** Usable for at least one house part. */
   cleared: z.boolean(),
   clearances: z.array(clearanceSchema),
+  /** The house parts its latest decision ruled it out for (rejected or revoked). */
+  ruledOut: z.array(ruledOutSchema),
   /** Not usable yet, but a qualification case is open for it. */
   qualificationOpen: z.boolean(),
   /** Text match quality, 0 (exact) to 1; null without text. */

@@ -1,4 +1,4 @@
-import { useCallback } from 'react';
+import { Fragment, createElement, useCallback, type ReactNode } from 'react';
 import type { MRT_PaginationState, MRT_RowData, MRT_SortingState, MRT_TableOptions, MRT_Updater } from 'mantine-react-table';
 import { useSearchParams } from 'react-router';
 import { describeError } from './api-client';
@@ -77,9 +77,15 @@ interface PageQuery<T> {
   error: unknown;
 }
 
-/** The mantine-react-table options of a list paged, sorted and filtered by the server. */
-export function serverTableOptions<T extends MRT_RowData>(list: PageQuery<T>, state: ListState): Partial<MRT_TableOptions<T>> & { data: T[] } {
+/**
+ * The mantine-react-table options of a list paged, sorted and filtered by the server.
+ * `empty` is what an empty list says; while the list failed to load the error banner says
+ * it all, and the body stays blank rather than claiming there is nothing.
+ */
+export function serverTableOptions<T extends MRT_RowData>(list: PageQuery<T>, state: ListState, empty: () => ReactNode): Partial<MRT_TableOptions<T>> & { data: T[] } {
   return {
+    // An empty fragment, not null: the table shows its own "no records" text for null.
+    renderEmptyRowsFallback: () => (list.isError ? createElement(Fragment) : empty()),
     data: list.data?.items ?? [],
     rowCount: list.data?.total ?? 0,
     manualPagination: true,

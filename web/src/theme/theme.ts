@@ -68,6 +68,9 @@ const components: MantineThemeComponents = {
   Paper: { defaultProps: { withBorder: true, radius: 'md', p: 'md' } },
   Alert: { defaultProps: { variant: 'light', radius: 'md' } },
   NavLink: { defaultProps: { fz: 'sm' } },
+  // The close button of every dialog is an icon: give it a name (axe button-name, screen readers).
+  Modal: { defaultProps: { closeButtonProps: { 'aria-label': 'Close' } } },
+  Drawer: { defaultProps: { closeButtonProps: { 'aria-label': 'Close' } } },
 };
 
 const fontFamily = 'Lexend, "Segoe UI", system-ui, -apple-system, sans-serif';

@@ -1,5 +1,5 @@
 import { Anchor, Badge, Group, Stack, Text, Tooltip } from '@mantine/core';
-import { CLEARANCE_STANDING_LABELS, type Clearance, type ClearanceStanding, type SearchItem } from '@shuntwise/contracts';
+import { CLEARANCE_STANDING_LABELS, QUALIFICATION_STATE_LABELS, type Clearance, type ClearanceStanding, type RuledOut, type SearchItem } from '@shuntwise/contracts';
 import { Link } from 'react-router';
 import { WaiverBadges } from '@/components/waiver-badges';
 import { formatDate } from '../utils/format';
@@ -11,7 +11,7 @@ export const STANDING_COLOR: Record<ClearanceStanding, string> = {
   'cleared-with-waiver': 'orange',
 };
 
-function HousePartName({ clearance, linkHouseParts }: { clearance: Clearance; linkHouseParts: boolean }) {
+function HousePartName({ clearance, linkHouseParts }: { clearance: Pick<Clearance, 'housePart'>; linkHouseParts: boolean }) {
   const { housePart } = clearance;
   const name = linkHouseParts ? (
     <Anchor component={Link} to={`/house-parts/${housePart.id}`} fz="xs" fw={500}>
@@ -47,6 +47,7 @@ export function ClearanceList({ item, linkHouseParts }: { item: SearchItem; link
         <Text fz="xs" c="dimmed">
           Not for new designs until a component engineer clears it.
         </Text>
+        <RuledOutList ruledOut={item.ruledOut} linkHouseParts={linkHouseParts} />
       </Stack>
     );
   }
@@ -87,6 +88,38 @@ export function ClearanceList({ item, linkHouseParts }: { item: SearchItem; link
           {c.standing === 'cleared-with-conditions' && c.conditions && (
             <Text fz="xs" c="yellow.8" lineClamp={3} title={c.conditions}>
               Conditions: {c.conditions}
+            </Text>
+          )}
+        </Stack>
+      ))}
+      <RuledOutList ruledOut={item.ruledOut} linkHouseParts={linkHouseParts} />
+    </Stack>
+  );
+}
+
+/** The house parts a decision ruled the part out for (rejected, or a clearance revoked), with the reason. */
+function RuledOutList({ ruledOut, linkHouseParts }: { ruledOut: readonly RuledOut[]; linkHouseParts: boolean }) {
+  if (ruledOut.length === 0) return null;
+  return (
+    <Stack gap={2} aria-label="Ruled out">
+      {ruledOut.map((r) => (
+        <Stack key={r.housePart.id} gap={0}>
+          <Group gap={4} wrap="wrap">
+            <Badge color="red" size="sm" variant="light">
+              {QUALIFICATION_STATE_LABELS[r.state]}
+            </Badge>
+            <Text span fz="xs" c="dimmed">
+              for
+            </Text>
+            <HousePartName clearance={r} linkHouseParts={linkHouseParts} />
+            <Text span fz="xs" c="dimmed">
+              {formatDate(r.at)}
+              {r.by ? ` by ${r.by.name}` : ''}
+            </Text>
+          </Group>
+          {r.reason && (
+            <Text fz="xs" c="red.9" lineClamp={3} title={r.reason}>
+              {r.state === 'revoked' ? 'Revoked' : 'Rejected'}: {r.reason}
             </Text>
           )}
         </Stack>

@@ -165,7 +165,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                 </Table.Td>
               </Table.Tr>
             )}
-            {!loading && items.length === 0 && (
+            {!loading && !error && items.length === 0 && (
               <Table.Tr>
                 <Table.Td colSpan={10}>
                   <Text c="dimmed" ta="center" py="lg" fz="sm">

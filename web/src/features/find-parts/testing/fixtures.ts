@@ -39,6 +39,7 @@ export function searchItem(id: number, mpn: string, over: Partial<SearchItem> = 
         waivers: [],
       },
     ],
+    ruledOut: [],
     qualificationOpen: false,
     score: null,
     ...over,

@@ -4,15 +4,12 @@ import { apiRequest, ApiError } from '@/lib/api-client';
 import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 import { housePartKeys } from './house-part-keys';
 
-/** The current spec (or `version`); null when the house part has none yet. */
-export async function getSpec(housePartId: number, version?: number, signal?: AbortSignal): Promise<SpecVersion | null> {
-  try {
-    return await apiRequest(`/house-parts/${housePartId}/spec${version ? `?version=${version}` : ''}`, { schema: specVersionSchema, signal });
-  } catch (error) {
-    // 404 "has no spec yet" is a normal state of a new house part.
-    if (error instanceof ApiError && error.status === 404 && version === undefined) return null;
-    throw error;
-  }
+const currentSpecSchema = specVersionSchema.nullable();
+
+/** The current spec (the API answers null while the house part has none yet: a state, not an error), or `version`. */
+export function getSpec(housePartId: number, version?: number, signal?: AbortSignal): Promise<SpecVersion | null> {
+  if (version !== undefined) return apiRequest(`/house-parts/${housePartId}/spec?version=${version}`, { schema: specVersionSchema, signal });
+  return apiRequest(`/house-parts/${housePartId}/spec`, { schema: currentSpecSchema, signal });
 }
 
 export function useSpec(housePartId: number) {

@@ -66,13 +66,12 @@ export function HousePartsTable() {
   const table = useMantineReactTable({
     ...denseTableOptions<HousePart>(),
     columns,
-    ...serverTableOptions(list, listState),
-    getRowId: (p) => String(p.id),
-    renderEmptyRowsFallback: () => (
+    ...serverTableOptions(list, listState, () => (
       <Text c="dimmed" ta="center" py="lg" fz="sm">
         {q || status ? 'No house part matches.' : 'No house parts yet: create the first one.'}
       </Text>
-    ),
+    )),
+    getRowId: (p) => String(p.id),
     renderTopToolbarCustomActions: () => (
       <Group gap="xs" align="flex-end" role="search" aria-label="Filter house parts">
         <TextInput size="xs" w={240} label="Number or description" leftSection={<IconSearch size={14} />} value={qText} onChange={(e) => setQText(e.currentTarget.value)} />

@@ -12,6 +12,23 @@ import { useOpenCaseFromRequest } from '../api/open-case-from-request';
 import { age, formatDay } from '../utils/format';
 import { HousePartSelect } from './house-part-select';
 
+/** The pair's latest decision ruled the part out (rejected, or revoked): said beside the request, with the case. */
+function RuledOutNote({ request, full = false }: { request: QualificationRequest; full?: boolean }) {
+  const r = request.ruledOut;
+  if (!r) return null;
+  const what = r.state === 'revoked' ? 'Revoked' : 'Rejected';
+  return (
+    <Text fz="xs" c="red.9" style={{ whiteSpace: 'normal' }}>
+      {what} before:{' '}
+      <Anchor component={Link} to={`/qualifications/${r.caseId}`} fz="xs" c="red.9" td="underline">
+        case #{r.caseId}
+      </Anchor>
+      {r.at ? `, ${formatDateTime(r.at)}` : ''}
+      {full && r.reason ? `: ${r.reason}` : ''}
+    </Text>
+  );
+}
+
 /** Rows shown before "show all". */
 const FIRST_ROWS = 5;
 
@@ -79,7 +96,9 @@ function OpenCaseDialog({ request, onClose }: { request: QualificationRequest; o
           <Text fz="sm">
             For house part <b>{request.housePart.partNumber}</b> ({request.housePart.description}), as the request names.
           </Text>
-        ) : (
+        ) : null}
+        {request.housePart && request.ruledOut ? <RuledOutNote request={request} full /> : null}
+        {request.housePart ? null : (
           <HousePartSelect
             label="For house part"
             description="The request names none: choose the house part whose spec the part is checked against"
@@ -257,6 +276,7 @@ export function OpenRequestsPanel({ canAct, linkParts }: { canAct: boolean; link
                         not named
                       </Text>
                     )}
+                    <RuledOutNote request={r} />
                   </Table.Td>
                   <Table.Td style={{ whiteSpace: 'nowrap' }}>
                     <Text fz="sm" span>

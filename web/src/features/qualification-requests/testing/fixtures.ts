@@ -15,6 +15,7 @@ export function request(id: number, over: Partial<QualificationRequest> = {}): Q
     closedAt: null,
     reply: null,
     case: null,
+    ruledOut: null,
     ...over,
   };
 }

@@ -104,13 +104,12 @@ export function QualificationsTable() {
   const table = useMantineReactTable({
     ...denseTableOptions<QualificationSummary>(),
     columns,
-    ...serverTableOptions(list, listState),
-    getRowId: (q) => String(q.id),
-    renderEmptyRowsFallback: () => (
+    ...serverTableOptions(list, listState, () => (
       <Text c="dimmed" ta="center" py="lg" fz="sm">
         {filtered ? 'No case matches these filters.' : 'No qualification case yet: open one from the Board for a source of a house part.'}
       </Text>
-    ),
+    )),
+    getRowId: (q) => String(q.id),
     renderTopToolbarCustomActions: () => (
       <Group gap="sm" align="flex-end" role="search" aria-label="Filter cases">
         <MultiSelect size="xs" w={300} label="State" placeholder={states.length ? undefined : 'any'} data={STATE_OPTIONS} value={states} onChange={(v) => set({ state: v.join(',') })} clearable />

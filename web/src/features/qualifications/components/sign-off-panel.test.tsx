@@ -29,11 +29,13 @@ const inReview = (over: Partial<Qualification> = {}) =>
   caseFixture({ state: 'in-review', allowedActions: ['send-back', 'clear', 'clear-with-conditions', 'reject', 'withdraw'], ...over });
 
 describe('sign-off panel', () => {
-  it('offers a second engineer the decisions on a case in review', async () => {
+  it('offers a second engineer the decisions on a case in review, and no Withdraw: that is the preparer\'s (contracts actionBlock)', async () => {
     signIn(REVIEWER);
+    // Even if a server answer listed withdraw, the reviewer gets no button for it.
     serve(REVIEWER, inReview());
     renderApp('/qualifications/7');
-    expect(await actions()).toEqual(['Clear', 'Clear with conditions', 'Reject', 'Send back to draft', 'Withdraw']);
+    expect(await actions()).toEqual(['Clear', 'Clear with conditions', 'Reject', 'Send back to draft']);
+    expect(screen.queryByRole('button', { name: 'Withdraw' })).not.toBeInTheDocument();
   });
 
   it('never offers the preparer a decision on their own case, and says why before they try', async () => {
@@ -68,7 +70,7 @@ describe('sign-off panel', () => {
     signIn(REVIEWER);
     serve(REVIEWER, inReview({ overall: 'marginal', allowedActions: ['send-back', 'clear-with-conditions', 'reject', 'withdraw'] }));
     renderApp('/qualifications/7');
-    expect(await actions()).toEqual(['Clear with conditions', 'Reject', 'Send back to draft', 'Withdraw']);
+    expect(await actions()).toEqual(['Clear with conditions', 'Reject', 'Send back to draft']);
     expect(screen.getByText(/it can be cleared only with written conditions/)).toBeInTheDocument();
   });
 

@@ -146,16 +146,15 @@ export function VendorPartsTable() {
   const table = useMantineReactTable({
     ...denseTableOptions<VendorPart>(),
     columns,
-    ...serverTableOptions(list, listState),
+    ...serverTableOptions(list, listState, () => (
+      <Text c="dimmed" ta="center" py="lg" fz="sm">
+        {anyFilter ? 'No vendor part matches these filters.' : 'No vendor parts yet: upload a datasheet or import a CSV.'}
+      </Text>
+    )),
     getRowId: (p) => String(p.id),
     enableMultiSort: true,
     isMultiSortEvent: (e) => (e as MouseEvent).shiftKey,
     mantinePaginationProps: { rowsPerPageOptions: PAGE_SIZES },
-    renderEmptyRowsFallback: () => (
-      <Text c="dimmed" ta="center" py="lg" fz="sm">
-        {anyFilter ? 'No vendor part matches these filters.' : 'No vendor parts yet: upload a datasheet or import a CSV.'}
-      </Text>
-    ),
     renderTopToolbarCustomActions: () => (
       <Group gap="xs" align="flex-end" wrap="wrap" role="search" aria-label="Filter vendor parts">
         <TextInput

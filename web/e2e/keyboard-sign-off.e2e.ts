@@ -1,0 +1,192 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, DEMO_PASSWORD, launchBrowser, newContext, screenshot, seriousAxeViolations, watchErrors } from './support/browser';
+
+/**
+ * The sign-off (two-engineer clearance) by keyboard alone: Tab, Shift+Tab, Enter, Space and
+ * typing; no mouse click anywhere. Each stop checks that focus is visible and lands where a
+ * keyboard user expects it (into a dialog when it opens, back to the page when it closes),
+ * and the skip link takes focus past the navigation. axe runs on every screen.
+ */
+
+async function token(email: string): Promise<string> {
+  const response = await fetch(`${BASE_URL}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
+  if (!response.ok) throw new Error(`sign-in of ${email} failed: ${response.status}`);
+  return ((await response.json()) as { accessToken: string }).accessToken;
+}
+
+async function api<T>(method: string, path: string, bearer: string, body?: unknown): Promise<T> {
+  const response = await fetch(`${BASE_URL}/api${path}`, {
+    method,
+    headers: { Authorization: `Bearer ${bearer}`, ...(body ? { 'Content-Type': 'application/json' } : {}) },
+    body: body ? JSON.stringify(body) : undefined,
+  });
+  if (!response.ok) throw new Error(`${method} ${path}: ${response.status} ${await response.text()}`);
+  return (await response.json()) as T;
+}
+
+/** A draft case for a demo alternate without a case that evaluates as a pass (opened through the API: the journey is the sign-off). */
+async function openDraftCase(): Promise<{ id: number; mpn: string }> {
+  const bearer = await token('engineer@demo.test');
+  const board = await api<{ items: Array<{ housePart: { id: number; specVersion: number | null }; sources: Array<{ role: string; state: string }> }> }>('GET', '/qualifications/board?pageSize=200&state=none', bearer);
+  for (const row of board.items) {
+    if (row.housePart.specVersion === null || !row.sources.some((s) => s.role === 'alternate' && s.state === 'none')) continue;
+    const compare = await api<{ sources: Array<{ role: string; latestCase: unknown; evaluation: { overall: string } | null; vendorPart: { id: number; mpn: string } }> }>('GET', `/qualifications/compare/${row.housePart.id}`, bearer);
+    const source = compare.sources.find((s) => s.role === 'alternate' && s.latestCase === null && s.evaluation?.overall === 'pass');
+    if (!source) continue;
+    const opened = await api<{ id: number }>('POST', '/qualifications', bearer, { housePartId: row.housePart.id, vendorPartId: source.vendorPart.id, summary: 'Second source, prepared for a keyboard-only sign-off.' });
+    return { id: opened.id, mpn: source.vendorPart.mpn };
+  }
+  throw new Error('the demo catalogue has no alternate left without a case that evaluates as a pass: start from a fresh demo seed');
+}
+
+/** What has focus: its tag, role, accessible name as the page shows it, and whether a focus ring is drawn. */
+async function focused(page: Page): Promise<{ tag: string; name: string; id: string; visible: boolean; inDialog: boolean }> {
+  return page.evaluate(() => {
+    const el = document.activeElement as HTMLElement | null;
+    if (!el || el === document.body) return { tag: 'body', name: '', id: '', visible: false, inDialog: false };
+    const style = getComputedStyle(el);
+    const ring = (style.outlineStyle !== 'none' && parseFloat(style.outlineWidth) > 0) || (style.boxShadow !== 'none' && style.boxShadow !== '');
+    const name = (el.getAttribute('aria-label') ?? (el as HTMLInputElement).labels?.[0]?.textContent ?? el.textContent ?? '').trim().replace(/\s+/g, ' ');
+    return { tag: el.tagName.toLowerCase(), name, id: el.id, visible: ring, inDialog: Boolean(el.closest('[role="dialog"]')) };
+  });
+}
+
+/** Presses Tab (or Shift+Tab) until the focused element's name matches, checking each stop on the way has a visible focus ring. */
+async function tabTo(page: Page, name: RegExp, { back = false, max = 80 } = {}): Promise<void> {
+  const unseen: string[] = [];
+  for (let i = 0; i < max; i++) {
+    await page.keyboard.press(back ? 'Shift+Tab' : 'Tab');
+    const f = await focused(page);
+    if (f.tag !== 'body' && !f.visible) unseen.push(`${f.tag} "${f.name.slice(0, 40)}"`);
+    if (name.test(f.name)) {
+      expect(unseen, 'every focus stop shows a visible focus ring').toEqual([]);
+      return;
+    }
+  }
+  throw new Error(`focus never reached ${name} in ${max} ${back ? 'Shift+Tab' : 'Tab'} presses`);
+}
+
+async function axeClean(page: Page): Promise<void> {
+  expect(await seriousAxeViolations(page)).toEqual([]);
+}
+
+/** Signs in with the keyboard only: the e-mail field has focus first (or is reached by Tab), Enter sends the form. */
+async function keyboardSignIn(page: Page, email: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel(/e-?mail/i).waitFor();
+  if (!/e-?mail/i.test((await focused(page)).name)) await tabTo(page, /e-?mail/i);
+  await page.keyboard.type(email);
+  await page.keyboard.press('Tab');
+  expect((await focused(page)).name).toMatch(/password/i);
+  await page.keyboard.type(DEMO_PASSWORD);
+  await page.keyboard.press('Enter');
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+/** From the top of a page: the first Tab reaches the skip link, Enter moves focus to the main content. */
+async function skipToMain(page: Page): Promise<void> {
+  await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+  await page.keyboard.press('Tab');
+  const skip = await focused(page);
+  expect(skip.name).toBe('Skip to main content');
+  expect(skip.visible).toBe(true);
+  await page.keyboard.press('Enter');
+  await expect.poll(async () => (await focused(page)).id).toBe('main-content');
+}
+
+function signOffState(page: Page) {
+  return page.getByRole('region', { name: 'Sign-off' }).locator('[data-state]').first();
+}
+
+describe('sign-off by keyboard alone: engineer A sends the case for review, engineer B clears it', () => {
+  let browser: Browser;
+  let close: () => Promise<void>;
+  let target: { id: number; mpn: string };
+
+  beforeAll(async () => {
+    ({ browser, close } = await launchBrowser());
+    target = await openDraftCase();
+  });
+  afterAll(async () => close?.());
+
+  it('engineer A: skip link, then Send for review through its dialog, by keyboard', async () => {
+    const page = await (await newContext(browser)).newPage();
+    const errors = watchErrors(page);
+    await keyboardSignIn(page, 'engineer@demo.test');
+    await page.goto(`/qualifications/${target.id}`);
+    await expect.poll(() => signOffState(page).getAttribute('data-state')).toBe('draft');
+    await page.getByRole('table', { name: 'Checks' }).waitFor();
+    await axeClean(page);
+    await skipToMain(page);
+
+    await tabTo(page, /^Send for review$/);
+    await screenshot(page, 'keyboard-sign-off-1-focus-on-send');
+    await page.keyboard.press('Enter');
+    const dialog = page.getByRole('dialog');
+    await dialog.waitFor();
+    // Focus moved into the dialog.
+    await expect.poll(async () => (await focused(page)).inDialog).toBe(true);
+    await axeClean(page);
+    if (!/Note for the reviewer/.test((await focused(page)).name)) await tabTo(page, /Note for the reviewer/);
+    await page.keyboard.type('Every check passes; please review.');
+    await screenshot(page, 'keyboard-sign-off-2-send-dialog');
+    await tabTo(page, /^Send for review$/);
+    expect((await focused(page)).inDialog).toBe(true);
+    await page.keyboard.press('Enter');
+    await expect.poll(() => signOffState(page).getAttribute('data-state')).toBe('in-review');
+    await dialog.waitFor({ state: 'hidden' });
+    // Focus came back to the page, not lost on the body.
+    const after = await focused(page);
+    expect(after.tag).not.toBe('body');
+    expect(after.inDialog).toBe(false);
+    await screenshot(page, 'keyboard-sign-off-3-in-review');
+    await axeClean(page);
+    expect(errors).toEqual([]);
+  });
+
+  it('engineer B: Shift+Tab and Space, a dialog closed by Escape returns focus; then Clear by keyboard', async () => {
+    const page = await (await newContext(browser)).newPage();
+    const errors = watchErrors(page);
+    await keyboardSignIn(page, 'reviewer@demo.test');
+    await page.goto(`/qualifications/${target.id}`);
+    const actions = page.getByRole('group', { name: 'Actions on this case' });
+    await expect.poll(() => actions.getByRole('button').allTextContents()).toContain('Clear');
+    // No Withdraw for the reviewer: that is the preparer's.
+    expect(await actions.getByRole('button').allTextContents()).not.toContain('Withdraw');
+    await skipToMain(page);
+
+    await tabTo(page, /^Send back to draft$/);
+    await tabTo(page, /^Clear$/, { back: true });
+    // Space opens it; Escape closes it and focus returns to the button that opened it.
+    await page.keyboard.press('Space');
+    const dialog = page.getByRole('dialog');
+    await dialog.waitFor();
+    await expect.poll(async () => (await focused(page)).inDialog).toBe(true);
+    await page.keyboard.press('Escape');
+    await dialog.waitFor({ state: 'hidden' });
+    await expect.poll(async () => (await focused(page)).name).toBe('Clear');
+
+    await page.keyboard.press('Enter');
+    await dialog.waitFor();
+    await expect.poll(async () => (await focused(page)).inDialog).toBe(true);
+    if (!/^Note/.test((await focused(page)).name)) await tabTo(page, /^Note/);
+    await page.keyboard.type('Equivalent on every check; cleared by keyboard.');
+    await axeClean(page);
+    await screenshot(page, 'keyboard-sign-off-4-clear-dialog');
+    await tabTo(page, /^Clear$/);
+    expect((await focused(page)).inDialog).toBe(true);
+    await page.keyboard.press('Enter');
+    await expect.poll(() => signOffState(page).getAttribute('data-state')).toBe('cleared');
+    await dialog.waitFor({ state: 'hidden' });
+    const after = await focused(page);
+    expect(after.tag).not.toBe('body');
+    await screenshot(page, 'keyboard-sign-off-5-cleared');
+    await axeClean(page);
+    expect(errors).toEqual([]);
+  });
+});
