@@ -1,4 +1,4 @@
-import { formatQuantity } from './format';
+import { formatNumber, formatPercent, formatQuantity } from './format';
 import type { QuantityKind } from './quantity';
 
 /**
@@ -112,9 +112,9 @@ export function fieldName(path: string | ReadonlyArray<PropertyKey>): string {
 /** A value of the field as a person reads it: "5.10 mV", "50 %", or the number when the kind is unknown. */
 export function fieldValue(path: string | ReadonlyArray<PropertyKey>, value: number): string {
   const meta = fieldLabelOf(path);
-  if (meta?.percent) return `${Number((value * 100).toPrecision(4))} %`;
-  if (meta?.kind) return formatQuantity(value, meta.kind, { digits: 4 }).replace(/(\.\d*?)0+ /, '$1 ').replace(/\. /, ' ');
-  return String(value).replace('-', '\u2212');
+  if (meta?.percent) return formatPercent(value, { digits: 4 });
+  if (meta?.kind) return formatQuantity(value, meta.kind, { digits: 4, trim: true });
+  return formatNumber(value, 4, { trim: true });
 }
 
 /** "VZ min (5.30 V)": a field and its value, for messages about two fields. */
