@@ -48,7 +48,7 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
         .flatMap(({ tempC, t }) =>
           corners.map((corner) => ({
             key: seriesKey(d.index, t, corner),
-            name: `${d.source.vendorPart.mpn} ${tempC} °C${corner === 'vzNom' ? '' : corner === 'vzMin' ? ' (low end)' : ' (high end)'}`,
+            name: `${d.source.vendorPart.mpn} ${formatQuantity(tempC, 'temperature', { trim: true })}${corner === 'vzNom' ? '' : corner === 'vzMin' ? ' (low end)' : ' (high end)'}`,
             color: getThemeColor(SOURCE_COLORS[d.index % SOURCE_COLORS.length], theme),
             dash: dashFor(tempC),
             width: corner === 'vzNom' ? 2 : 1,

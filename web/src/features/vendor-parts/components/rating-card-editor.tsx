@@ -3,7 +3,7 @@ import { Alert, Badge, Button, Group, Paper, Select, Stack, Table, Text, TextInp
 import { getHotkeyHandler, useDebouncedValue, useDisclosure } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { IconDeviceFloppy, IconHistory, IconListCheck } from '@tabler/icons-react';
-import type { CardField, ExtractedVariant, RatingCardView, TempCoUnit, VendorPartDetail } from '@shuntwise/contracts';
+import { formatNumber, type CardField, type ExtractedVariant, type RatingCardView, type TempCoUnit, type VendorPartDetail } from '@shuntwise/contracts';
 import { Quantity } from '@/components/quantity';
 import { ApiError, describeError } from '@/lib/api-client';
 import { useLeaveGuard } from '@/lib/leave-guard';
@@ -291,7 +291,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
               <Text fz="xs">
                 RS <Quantity value={result.model.rs} kind="resistance" />
               </Text>
-              <Text fz="xs">NBV {result.model.nbv.toPrecision(3)}</Text>
+              <Text fz="xs">NBV {formatNumber(result.model.nbv)}</Text>
               <Text fz="xs">{MECHANISM_LABEL[result.mechanism]}</Text>
               {result.warnings.length > 0 && (
                 <Badge size="xs" color="yellow">
