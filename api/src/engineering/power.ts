@@ -9,6 +9,8 @@ import {
 import { diodeVoltage, type BreakdownModel } from './breakdown-model';
 import { junctionTemperatureC } from './self-heating';
 
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
+
 export interface PowerLimit {
   /** Largest dissipation (W) at the ambient, or null when the card cannot say. */
   limit: number | null;
@@ -30,11 +32,11 @@ export function deratedPowerLimit(card: EngineeringCardInput, taC: number): Powe
   }
   const fromRth = card.rthJA != null && card.tjMax != null ? Math.max(0, (card.tjMax - taC) / card.rthJA) : null;
   if (fromPd !== null && (fromRth === null || fromPd <= fromRth)) {
-    return { limit: fromPd, basis: 'pdMax', reason: `PD max derated linearly from ${pdRefC} °C to zero at TJ max` };
+    return { limit: fromPd, basis: 'pdMax', reason: `PD max derated linearly from ${celsius(pdRefC)} to zero at TJ max` };
   }
   if (fromRth !== null) return { limit: fromRth, basis: 'rthJA', reason: '(TJ max − Ta)/RthJA' };
   if (card.pdMax != null) {
-    return { limit: null, basis: 'none', reason: `PD max applies up to ${pdRefC} °C and the card has no TJ max to derate it above` };
+    return { limit: null, basis: 'none', reason: `PD max applies up to ${celsius(pdRefC)} and the card has no TJ max to derate it above` };
   }
   return { limit: null, basis: 'none', reason: 'the card gives neither PD max nor TJ max with RthJA' };
 }
@@ -78,7 +80,7 @@ export function powerCheck(
         policyFraction,
         allowed: null,
         margin: null,
-        reason: `thermal runaway at ${amps(current)} and ${taC} °C: the self-heating iteration does not settle`,
+        reason: `thermal runaway at ${amps(current)} and ${celsius(taC)}: the self-heating iteration does not settle`,
         assumptions,
         warnings,
       };
@@ -120,7 +122,7 @@ export function powerCheck(
       policyFraction,
       allowed: null,
       margin: null,
-      reason: `no power limit at ${worst.at.taC} °C: ${noDataReason}`,
+      reason: `no power limit at ${celsius(worst.at.taC)}: ${noDataReason}`,
       assumptions,
       warnings,
     };
@@ -134,7 +136,7 @@ export function powerCheck(
     policyFraction,
     allowed: worst.allowed,
     margin: worst.margin,
-    reason: `${watts(worst.power)} at ${amps(current)} and ${worst.at.taC} °C ${pass ? 'within' : 'above'} the allowed ${watts(worst.allowed)}`,
+    reason: `${watts(worst.power)} at ${amps(current)} and ${celsius(worst.at.taC)} ${pass ? 'within' : 'above'} the allowed ${watts(worst.allowed)}`,
     assumptions,
     warnings,
   };

@@ -63,8 +63,10 @@ describe('a temperature coefficient keeps the one prefix datasheets use', () => 
     [0.0125, '12.5 mV/K'],
     [0.0851, '85.1 mV/K'],
     [0, '0 mV/K'],
-    // below 0.01 mV/K two decimals would print 0.00: the significant digits stay
-    [3e-6, '0.00300 mV/K'],
+    [7.5e-5, '0.075 mV/K'],
+    [3e-6, '0.0030 mV/K'],
+    [0.000999, '0.999 mV/K'],
+    [0.0009996, '1.00 mV/K'],
   ] as const)('%d V/K → %s', (value, text) => {
     expect(formatQuantity(value, 'tempCoVoltage')).toBe(text);
   });

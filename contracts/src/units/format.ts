@@ -17,12 +17,12 @@ const NO_PREFIX: ReadonlySet<QuantityKind> = new Set(['temperature', 'tempCoPerc
 
 /**
  * Kinds shown with one fixed prefix, as datasheets print them, so a column of them lines up
- * and reads alike: a Zener's temperature coefficient is "−0.60 mV/K" or "+2.30 mV/K", never
- * "−600 µV/K". `decimals` caps the places after the point (10 µV/K is finer than any
- * datasheet states); a value too small to show within them keeps its significant digits.
+ * and reads alike: a Zener's temperature coefficient is "−0.60 mV/K" or "2.30 mV/K", never
+ * "−600 µV/K". Below 1 of the unit one significant figure fewer is printed (at least two):
+ * a datasheet states −0.6 mV/K, not −0.600 mV/K.
  */
-const FIXED_PREFIX: Partial<Record<QuantityKind, { factor: number; prefix: string; decimals: number }>> = {
-  tempCoVoltage: { factor: 1e-3, prefix: 'm', decimals: 2 },
+const FIXED_PREFIX: Partial<Record<QuantityKind, { factor: number; prefix: string }>> = {
+  tempCoVoltage: { factor: 1e-3, prefix: 'm' },
 };
 
 /** The true minus sign (U+2212) every displayed negative number carries, never a hyphen. */
@@ -54,9 +54,9 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
   if (NO_PREFIX.has(kind)) return `${sign}${trim(toDigits(abs, digits))} ${unit}`;
   if (fixed) {
     const scaled = abs / fixed.factor;
-    const text = toDigits(scaled, digits);
-    const capped = scaled >= 10 ** -fixed.decimals && (text.split('.')[1]?.length ?? 0) > fixed.decimals ? scaled.toFixed(fixed.decimals) : text;
-    return `${sign}${trim(capped)} ${fixed.prefix}${unit}`;
+    const fewer = Math.max(2, digits - 1);
+    const text = toDigits(scaled, Number(scaled.toPrecision(fewer)) < 1 ? fewer : digits);
+    return `${sign}${trim(text)} ${fixed.prefix}${unit}`;
   }
   let [factor, prefix] = PREFIXES[PREFIXES.length - 1];
   for (const [f, p] of PREFIXES) {

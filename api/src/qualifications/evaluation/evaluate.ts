@@ -1,7 +1,10 @@
 import {
   CHECK_IDS,
   CHECK_LABELS,
+  formatNumber,
+  formatPercent,
   formatQuantity,
+  formatTc,
   QUALIFICATION_VERDICT_LABELS,
   type BreakdownModelSummary,
   type CheckId,
@@ -21,6 +24,8 @@ import { worstCaseWindow } from '../../engineering/envelope';
 import { mechanismOf, mechanismSignWarning } from '../../engineering/mechanism';
 import { T_REF_C } from '../../engineering/physics';
 import { deratedPowerLimit, powerCheck } from '../../engineering/power';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 export interface EvaluationInput {
   spec: Spec;
@@ -345,7 +350,7 @@ function tcCheck(ctx: CheckContext): CheckResult {
   const reference = Math.max(Math.abs(min), Math.abs(max));
   const lowBinds = alpha - min <= max - alpha;
   const margin = reference > 0 ? percent(Math.min(alpha - min, max - alpha), reference) : alpha === 0 ? 0 : -100;
-  const assumptions = card.tc.unit === '%/K' ? [`${card.tc.value} %/K converted to V/K with VZ nom (${volts(card.vzNom)})`] : [];
+  const assumptions = card.tc.unit === '%/K' ? [`${formatTc(card.tc)} converted to V/K with VZ nom (${volts(card.vzNom)})`] : [];
   return {
     ...base,
     label: CHECK_LABELS.tc,
@@ -374,7 +379,7 @@ function outputWindowCheck(ctx: CheckContext): CheckResult {
   const { iMin, iMax } = spec.envelope;
   if (model.basis === 'none' && !(sameCurrent(iMin, card.izt) && sameCurrent(iMax, card.izt))) missing.push('an impedance to move Vz away from IZT');
   if (missing.length) return noData(base, `the worst case over the envelope needs ${missing.join(', ')}, which the card does not give`);
-  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${spec.envelope.taMin} … ${spec.envelope.taMax} °C`;
+  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${spec.envelope.taMin} … ${celsius(spec.envelope.taMax)}`;
   if (!ctx.window) {
     return failed(base, ctx.windowFailure ?? 'no steady state in the envelope');
   }
@@ -409,7 +414,7 @@ function powerDissipationCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'power-dissipation' as const, quantity: 'power' as const, limitKind: 'max' as const };
   if (!card || !model) return noData({ ...base, limit: null }, ctx.noCard!);
   const pc = powerCheck(model, card, spec.envelope, { policyFraction: deratingFraction, selfHeating: true });
-  const at = pc.at ? ` at ${amps(pc.at.current)}, ${pc.at.taC} °C ambient (Tj ${pc.at.tjC.toFixed(1)} °C)` : '';
+  const at = pc.at ? ` at ${amps(pc.at.current)}, ${celsius(pc.at.taC)} ambient (Tj ${formatQuantity(pc.at.tjC, 'temperature', { digits: 4, trim: true })})` : '';
   const common = {
     ...base,
     label: CHECK_LABELS['power-dissipation'],
@@ -428,7 +433,7 @@ function powerDissipationCheck(ctx: CheckContext): CheckResult {
     ...common,
     verdict: verdictOfMargin(margin ?? -1, ctx.band),
     margin,
-    detail: `${watts(pc.power!)}${at} against ${fixed(deratingFraction * 100)} % of the derated ${watts(pc.deratedLimit!)} = ${watts(pc.allowed!)}`,
+    detail: `${watts(pc.power!)}${at} against ${formatPercent(deratingFraction, { digits: 4 })} of the derated ${watts(pc.deratedLimit!)} = ${watts(pc.allowed!)}`,
   };
 }
 
@@ -446,7 +451,7 @@ function powerRatingCheck(ctx: CheckContext): CheckResult {
     const derived = deratedPowerLimit(card, refC);
     if (derived.limit === null) return noData(base, `the card gives no power rating: ${derived.reason}`);
     rating = derived.limit;
-    assumptions.push(`no PD max on the card: rating taken as (TJ max − ${refC} °C)/RthJA`);
+    assumptions.push(`no PD max on the card: rating taken as (TJ max − ${celsius(refC)})/RthJA`);
   }
   const margin = percent(rating - pdMin, pdMin);
   // A rating is a category the vendor states (300 mW, 500 mW): meeting it exactly meets it;
@@ -461,7 +466,7 @@ function powerRatingCheck(ctx: CheckContext): CheckResult {
     window: null,
     text: null,
     margin,
-    detail: `rated ${watts(rating)} at ${refC} °C against at least ${watts(pdMin)}`,
+    detail: `rated ${watts(rating)} at ${celsius(refC)} against at least ${watts(pdMin)}`,
     assumptions,
     warnings: [],
   };
@@ -575,7 +580,8 @@ const volts = (x: number) => formatQuantity(x, 'voltage');
 const amps = (x: number) => formatQuantity(x, 'current');
 const ohms = (x: number) => formatQuantity(x, 'resistance');
 const watts = (x: number) => formatQuantity(x, 'power');
-const tempCo = (x: number) => `${fixed(x * 1e3)} mV/K`;
+const tempCo = (x: number) => formatQuantity(x, 'tempCoVoltage');
+/** A ratio or exponent in a sentence: four figures, trailing zeros dropped, a true minus. */
 function fixed(x: number): string {
-  return Number(x.toPrecision(4)).toString();
+  return formatNumber(x, 4, { trim: true });
 }
