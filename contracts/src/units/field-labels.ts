@@ -37,6 +37,29 @@ export const CARD_FIELD_LABELS = {
   izm: a('IZM'),
 } as const satisfies Record<string, FieldLabel>;
 
+/**
+ * A rating card's fields in words, for CSV headers a person reads without a glossary
+ * ("Zener voltage nominal (V)", not vzNom). The card import reads these back as well as the
+ * short names, so files written before and after either spelling import alike.
+ */
+export const CARD_FIELD_WORDS: Record<keyof typeof CARD_FIELD_LABELS, string> = {
+  vzMin: 'Zener voltage min',
+  vzNom: 'Zener voltage nominal',
+  vzMax: 'Zener voltage max',
+  izt: 'Test current',
+  zzt: 'Dynamic impedance at test current',
+  izk: 'Knee current',
+  zzk: 'Dynamic impedance at knee current',
+  irMax: 'Reverse leakage max',
+  vr: 'Reverse voltage of the leakage',
+  tc: 'Temperature coefficient',
+  pdMax: 'Power rating',
+  pdRefC: 'Power rating reference temperature',
+  tjMax: 'Junction temperature max',
+  rthJA: 'Thermal resistance junction to ambient',
+  izm: 'Zener current max',
+};
+
 /** A house part's spec, as the spec editor labels it. */
 export const SPEC_FIELD_LABELS: Record<string, FieldLabel> = {
   iRef: a('Reference current'),

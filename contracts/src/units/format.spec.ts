@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatMargin, formatNumber, formatPercent, formatQuantity, formatTc, roundToDigits } from './format';
+import { formatMargin, formatNumber, formatPercent, formatQuantity, formatTc, roundToDigits, roundToStated, statedDigits } from './format';
 import { parseQuantity } from './parse';
 
 // Engineering notation with SI prefixes (BIPM SI Brochure, 9th edition): the mantissa stays
@@ -50,6 +50,32 @@ describe('roundToDigits keeps exported numbers to the printed precision', () => 
     expect(roundToDigits(5.1234, 4)).toBe(5.123);
     expect(roundToDigits(null)).toBeNull();
     expect(roundToDigits(Number.NaN)).toBeNull();
+  });
+
+  it('rounds a stored value to the figures its datasheet text states, and only the noise when the text states another number', () => {
+    expect(statedDigits('4.70 V')).toBe(3);
+    expect(statedDigits('0.25 mA')).toBe(2);
+    expect(statedDigits('500 ohm')).toBe(3);
+    expect(statedDigits('-1.4 mV/°C')).toBe(2);
+    expect(statedDigits('none')).toBeNull();
+    expect(String(roundToStated(0.25 * 0.001 + 1e-20, '0.25 mA'))).toBe('0.00025');
+    expect(String(roundToStated(0.0012 - 0.003, '-1.8 mV/K'))).toBe('-0.0018');
+    // a coefficient converted from %/K: the printed 0.05 does not state 2.55 mV/K
+    expect(roundToStated(0.05 * 5.1 * 10, '0.05 %/K')).toBe(2.55);
+    expect(roundToStated(2.5523456789, '0.05 %/K')).toBe(2.5523456789);
+  });
+
+  it('never moves a value by more than the import calls the same (1e-9 relative), on values drawn afresh', () => {
+    const seed = Date.now() % 100000;
+    console.log(`roundToStated seed ${seed}`);
+    let state = seed;
+    const next = () => ((state = (state * 1103515245 + 12345) % 2147483648) / 2147483648);
+    for (let i = 0; i < 500; i++) {
+      const value = (next() < 0.5 ? -1 : 1) * 10 ** (next() * 12 - 9) * (1 + next());
+      const printed = `${value.toPrecision(1 + Math.floor(next() * 5))} X`;
+      const out = roundToStated(value, printed)!;
+      expect(Math.abs(out - value), `${value} printed ${printed}`).toBeLessThanOrEqual(1e-9 * Math.abs(value));
+    }
   });
 });
 

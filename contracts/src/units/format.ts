@@ -127,6 +127,26 @@ function toDigits(x: number, digits: number): string {
   return String(Number(text));
 }
 
+/** Significant figures of the first number in a datasheet text: "4.70 V" → 3, "0.25 mA" → 2, "500" → 3; null without a number. */
+export function statedDigits(printed: string | null | undefined): number | null {
+  const match = /(\d*\.?\d+)/.exec(printed ?? '');
+  if (!match) return null;
+  const figures = match[1].replace('.', '').replace(/^0+/, '');
+  return figures.length === 0 ? 1 : figures.length;
+}
+
+/**
+ * A stored value for an export: rounded to the precision its datasheet text states (at least
+ * the screen's three figures), so binary noise such as 0.00025000000000000006 leaves as
+ * 0.00025. When the text does not state this value (a converted coefficient), only the noise
+ * goes: twelve figures, far inside the import's 1e-9 sameness test.
+ */
+export function roundToStated(value: number | null | undefined, printed: string | null | undefined): number | null {
+  if (value === null || value === undefined || !Number.isFinite(value)) return null;
+  const stated = roundToDigits(value, Math.min(15, Math.max(3, statedDigits(printed) ?? 3)))!;
+  return Math.abs(stated - value) <= 1e-12 * Math.abs(value) ? stated : roundToDigits(value, 12);
+}
+
 /**
  * A number for a file a machine reads next (CSV): rounded to the significant digits the
  * screen prints, so -0.0018000000000000002 leaves as -0.0018. Plain ASCII, no prefix;
