@@ -2,6 +2,7 @@ import { Injectable, Optional } from '@nestjs/common';
 import {
   SEARCH_TEXT_CANDIDATES,
   isUsableState,
+  standingConditions,
   vzTolerance,
   type Clearance,
   type RatingCardFields,
@@ -136,7 +137,7 @@ export function toClearance(pair: PairRow, waivers: ReadonlyMap<number, WaiverBr
   return {
     housePart,
     standing: pair.state,
-    conditions: pair.decisionText,
+    conditions: standingConditions(pair.state, pair.decisionText),
     since: iso(pair.decidedAt),
     decidedBy: pair.decidedById !== null ? { id: pair.decidedById, name: pair.decidedByName ?? '' } : null,
     caseId: pair.caseId,
