@@ -1,4 +1,5 @@
 import {
+  formatPercent,
   formatQuantity,
   type EngineeringCardInput,
   type Envelope,
@@ -60,7 +61,7 @@ export function powerCheck(
 ): PowerCheck {
   const policyFraction = options.policyFraction ?? 1;
   const selfHeating = options.selfHeating ?? true;
-  const assumptions = [`the diode may dissipate ${policyFraction * 100} % of its derated rating`];
+  const assumptions = [`the diode may dissipate ${formatPercent(policyFraction)} of its derated rating`];
   const warnings: string[] = [];
   if (selfHeating && model.rthJA === null) warnings.push('no RthJA on the card: dissipation computed at Tj = Ta');
   const corner: ToleranceCorner = model.hasVzMax ? 'max' : 'nom';

@@ -103,7 +103,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
   const assumptions = [...model.assumptions];
   if (supply.nom === undefined) assumptions.push(`no nominal supply given: ${volts(vsNom)}, the middle of the range`);
   if (request.diodeCurrent === undefined) assumptions.push('the simple formula aims for the diode current IZT');
-  assumptions.push(`the diode may dissipate ${powerFraction * 100} % of its derated power rating`);
+  assumptions.push(`the diode may dissipate ${formatPercent(powerFraction)} of its derated power rating`);
   if (heat) assumptions.push('self-heating: Tj = Ta + RthJA·Vz·I, iterated to convergence');
   else if (selfHeating) warnings.push('no RthJA on the card: self-heating left out (Tj = Ta)');
   assumptions.push('the load draws a constant current; the resistor fitted may be anywhere within its tolerance');

@@ -379,7 +379,7 @@ function outputWindowCheck(ctx: CheckContext): CheckResult {
   const { iMin, iMax } = spec.envelope;
   if (model.basis === 'none' && !(sameCurrent(iMin, card.izt) && sameCurrent(iMax, card.izt))) missing.push('an impedance to move Vz away from IZT');
   if (missing.length) return noData(base, `the worst case over the envelope needs ${missing.join(', ')}, which the card does not give`);
-  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${spec.envelope.taMin} … ${celsius(spec.envelope.taMax)}`;
+  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${celsius(spec.envelope.taMin)} … ${celsius(spec.envelope.taMax)}`;
   if (!ctx.window) {
     return failed(base, ctx.windowFailure ?? 'no steady state in the envelope');
   }
