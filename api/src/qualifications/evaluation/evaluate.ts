@@ -414,7 +414,7 @@ function powerDissipationCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'power-dissipation' as const, quantity: 'power' as const, limitKind: 'max' as const };
   if (!card || !model) return noData({ ...base, limit: null }, ctx.noCard!);
   const pc = powerCheck(model, card, spec.envelope, { policyFraction: deratingFraction, selfHeating: true });
-  const at = pc.at ? ` at ${amps(pc.at.current)}, ${celsius(pc.at.taC)} ambient (Tj ${formatQuantity(pc.at.tjC, 'temperature', { digits: 4, trim: true })})` : '';
+  const at = pc.at ? ` at ${amps(pc.at.current)}, ${celsius(pc.at.taC)} ambient (Tj ${celsius(pc.at.tjC)})` : '';
   const common = {
     ...base,
     label: CHECK_LABELS['power-dissipation'],
