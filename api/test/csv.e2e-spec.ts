@@ -125,13 +125,47 @@ describe('CSV import and export (real MariaDB)', () => {
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="shuntwise-rating-cards-\d{4}-\d{2}-\d{2}\.csv"$/);
     expect(res.text.charCodeAt(0)).toBe(0xfeff);
     const records = parse(res.text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(records.map((r) => r.mpn)).toEqual(['ODW-4V7', 'ODW-5V1', 'ODW-6V2']);
-    expect(records[0]).toMatchObject({ manufacturer: 'Ostrander Components', 'izt (A)': '0.005', 'zzk (ohm)': '500', tc: '-1.4 mV/K', 'tcVoltsPerKelvin (V/K)': '-0.0014', cardVersion: '1' });
+    expect(records.map((r) => r['Manufacturer part number'])).toEqual(['ODW-4V7', 'ODW-5V1', 'ODW-6V2']);
+    // headers in words with their units; SI values
+    expect(records[0]).toMatchObject({
+      Manufacturer: 'Ostrander Components',
+      'Zener voltage nominal (V)': '4.7',
+      'Test current (A)': '0.005',
+      'Dynamic impedance at knee current (ohm)': '500',
+      'Temperature coefficient': '-1.4 mV/K',
+      'Temperature coefficient converted (V/K)': '-0.0014',
+      'Card version': '1',
+    });
+    expect(Object.keys(records[0])).not.toContain('vzNom (V)');
 
     const back = await preview({ csv: res.text });
     expect(back.body.warnings).toEqual([]);
     expect(back.body.summary).toEqual({ rows: 3, withErrors: 0, create: 0, addCard: 0, unchanged: 3, conflict: 0 });
     expect((await t.http.get('/api/exports/rating-cards').set(auth(buyer))).status).toBe(403);
+  });
+
+  it('exports values to the figures their datasheet text states, without binary noise, and reads them back unchanged', async () => {
+    // 0.07 mA × 10⁻³ is 0.00007000000000000001 in IEEE 754 doubles (common practice, no source);
+    // 0.05 %/K of 5.1 V is 2.55 mV/K by definition of the relative coefficient.
+    const csv = 'mpn,vzNom (V),izt (mA),izk (mA),irMax (µA),tc\nODW-NZ1,5.1,5,0.07,0.11,0.05 %/K\n';
+    await confirm({ csv, manufacturer: 'Noisefree Devices' });
+    const text = (await t.http.get('/api/exports/rating-cards?manufacturer=Noisefree%20Devices').set(auth(designer))).text;
+    expect(text).not.toMatch(/\d{10}/);
+    const [row] = parse(text, { bom: true, columns: true }) as Array<Record<string, string>>;
+    expect(row).toMatchObject({ 'Knee current (A)': '0.00007', 'Reverse leakage max (A)': '1.1e-7', 'Temperature coefficient': '0.05 %/K', 'Temperature coefficient converted (V/K)': '0.00255' });
+    const back = await preview({ csv: text });
+    expect(back.body.warnings).toEqual([]);
+    expect(back.body.summary).toMatchObject({ rows: 1, withErrors: 0, unchanged: 1 });
+  });
+
+  it('still imports a card export written with the short headers of earlier versions', async () => {
+    const old = [
+      'manufacturer,mpn,package,lifecycleNote,cardVersion,vzMin (V),vzNom (V),vzMax (V),izt (A),zzt (ohm),izk (A),zzk (ohm),irMax (A),vr (V),tc,pdMax (W),pdRefC (°C),tjMax (°C),rthJA (K/W),izm (A),tcVoltsPerKelvin (V/K),unconfirmedFields',
+      'Ostrander Components,ODW-4V7,SOD-123,,1,4.44,4.7,4.94,0.005,80,0.00025,500,0.000003,2,-1.4 mV/K,0.5,,150,250,0.098,-0.0014,',
+    ].join('\n');
+    const res = await preview({ csv: old });
+    expect(res.body.warnings).toEqual([]);
+    expect(res.body.summary).toMatchObject({ rows: 1, withErrors: 0, unchanged: 1 });
   });
 
   it('exports house parts with their sources for buyers', async () => {
@@ -145,8 +179,14 @@ describe('CSV import and export (real MariaDB)', () => {
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/filename="shuntwise-house-parts-and-sources-\d{4}-\d{2}-\d{2}\.csv"/);
     const records = parse(res.text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(records.find((r) => r.partNumber === 'OHI-ZD-EXP')).toMatchObject({ sourceRole: 'alternate', manufacturer: 'Ostrander Components', mpn: 'ODW-5V1', cardVersion: '1', sourceNote: 'reference' });
-    expect(records.find((r) => r.partNumber === 'OHI-ZD-NOSRC')).toMatchObject({ sourceRole: '', mpn: '' });
+    expect(records.find((r) => r['House part'] === 'OHI-ZD-EXP')).toMatchObject({
+      'Source role': 'alternate',
+      Manufacturer: 'Ostrander Components',
+      'Manufacturer part number': 'ODW-5V1',
+      'Card version': '1',
+      'Source note': 'reference',
+    });
+    expect(records.find((r) => r['House part'] === 'OHI-ZD-NOSRC')).toMatchObject({ 'Source role': '', 'Manufacturer part number': '' });
   });
 
   it('neutralises text cells a spreadsheet would run as formulas, and keeps negative numbers numbers', async () => {
@@ -155,10 +195,10 @@ describe('CSV import and export (real MariaDB)', () => {
     const vp = (await t.http.get('/api/vendor-parts?mpn=ODW-4V7').set(auth(engineer))).body.items[0].id;
     await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, role: 'alternate', note: '@SUM(A1:A9)' });
     const parts = parse((await t.http.get('/api/exports/house-parts').set(auth(buyer))).text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(parts.find((r) => r.partNumber === 'OHI-ZD-CSVX')).toMatchObject({ description: `'=HYPERLINK("http://x.invalid","open")`, sourceNote: "'@SUM(A1:A9)" });
+    expect(parts.find((r) => r['House part'] === 'OHI-ZD-CSVX')).toMatchObject({ Description: `'=HYPERLINK("http://x.invalid","open")`, 'Source note': "'@SUM(A1:A9)" });
     const cards = parse((await t.http.get('/api/exports/rating-cards?manufacturer=Ostrander%20Components').set(auth(designer))).text, { bom: true, columns: true }) as Array<
       Record<string, string>
     >;
-    expect(cards[0]['tcVoltsPerKelvin (V/K)']).toBe('-0.0014');
+    expect(cards[0]['Temperature coefficient converted (V/K)']).toBe('-0.0014');
   });
 });

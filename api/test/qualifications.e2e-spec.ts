@@ -236,7 +236,8 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename="sources-\d{4}-\d{2}-\d{2}\.csv"/);
     const lines = csv.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/);
-    expect(lines[0]).toBe('house_part,description,house_part_status,manufacturer,mpn,package,role,standing,conditions,since,decided_by,case_id,revision,open_case,needs_recheck');
+    // headers in words, as a person reads them in a spreadsheet
+    expect(lines[0]).toBe('House part,Description,House part status,Manufacturer,Manufacturer part number,Package,Role,Standing,Conditions,Since,Decided by,Case,Revision,Open case,Needs re-check');
     expect(lines).toHaveLength(2);
     expect(lines[1]).toMatch(new RegExp(`^HPQ-\\d+,Regulator diode case \\d+,draft,Fennick Semiconductor,FZ-\\d+,SOD-123,alternate,Cleared,,\\d{4}-.+Z,Tomas Eklund,${c.id},1,,no$`));
     expect((await t.http.get('/api/qualifications/sources.csv').set(auth(designer))).status).toBe(200);

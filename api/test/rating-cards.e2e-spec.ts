@@ -142,6 +142,12 @@ describe('rating cards (real MariaDB)', () => {
       [2, ['zzt', 'irMax']],
       [1, ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'pdRefC', 'tjMax', 'rthJA', 'izm']],
     ]);
+    // the history says old → new for each changed field (SI; tc in its own unit)
+    expect(versions.body[0].changes).toEqual([
+      { field: 'zzt', from: { value: 40 }, to: { value: 38 } },
+      { field: 'irMax', from: { value: 1e-6 }, to: { value: 2e-6 } },
+    ]);
+    expect(versions.body[1].changes.find((c: { field: string }) => c.field === 'tc')).toEqual({ field: 'tc', from: null, to: { value: 0.3, unit: 'mV/K' } });
     const old = await t.http.get(`/api/vendor-parts/${id}/rating-card?version=1`).set(auth(designer));
     expect(old.body).toMatchObject({ version: 1, fields: { zzt: { value: 40 } }, updatedBy: { name: 'Priya Raman' } });
     expect((await t.http.get(`/api/vendor-parts/${id}/rating-card?version=9`).set(auth(designer))).status).toBe(404);

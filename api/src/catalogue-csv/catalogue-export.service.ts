@@ -1,6 +1,6 @@
 import { Readable } from 'node:stream';
 import { Injectable } from '@nestjs/common';
-import { CARD_FIELD_KINDS, CARD_FIELDS, SI_UNIT, type PlainCardField, type RatingCardFields, type TcValue } from '@shuntwise/contracts';
+import { CARD_FIELD_KINDS, CARD_FIELD_WORDS, CARD_FIELDS, roundToStated, SI_UNIT, type PlainCardField, type RatingCardFields, type TcValue } from '@shuntwise/contracts';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { RatingCardsRepository, type CardExportRow } from '../vendor-parts/rating-cards.repository';
 import { csvExportStringifier } from '../common/csv/csv-export';
@@ -11,15 +11,36 @@ const BATCH = 1000;
 const HEADER_UNIT: Record<string, string> = { resistance: 'ohm' };
 const unitOf = (field: PlainCardField) => HEADER_UNIT[CARD_FIELD_KINDS[field]] ?? SI_UNIT[CARD_FIELD_KINDS[field]];
 
+/**
+ * The card export's columns, in words with their units ("Zener voltage nominal (V)"); the
+ * coefficient keeps its own unit in each cell, as the card holds it. The series import reads
+ * these headers back (and the short names older exports wrote).
+ */
 export const CARD_EXPORT_HEADER = [
-  'manufacturer',
-  'mpn',
-  'package',
-  'lifecycleNote',
-  'cardVersion',
-  ...CARD_FIELDS.map((f) => (f === 'tc' ? 'tc' : `${f} (${unitOf(f)})`)),
-  'tcVoltsPerKelvin (V/K)',
-  'unconfirmedFields',
+  'Manufacturer',
+  'Manufacturer part number',
+  'Package',
+  'Lifecycle note',
+  'Card version',
+  ...CARD_FIELDS.map((f) => (f === 'tc' ? CARD_FIELD_WORDS.tc : `${CARD_FIELD_WORDS[f]} (${unitOf(f)})`)),
+  `${CARD_FIELD_WORDS.tc} converted (V/K)`,
+  'Unconfirmed fields',
+];
+
+/** The house-part export's columns, in words (nothing imports this file). */
+export const HOUSE_PART_EXPORT_HEADER = [
+  'House part',
+  'Description',
+  'Status',
+  'Spec version',
+  'Source role',
+  'Manufacturer',
+  'Manufacturer part number',
+  'Package',
+  'Lifecycle note',
+  'Card version',
+  'Source note',
+  'Source since',
 ];
 
 /** CSV exports, `text/csv` with a BOM so spreadsheets read the UTF-8 (µ, °, Ω) right. */
@@ -51,8 +72,8 @@ export class CatalogueExportService {
     const [parts, sources] = await Promise.all([this.parts.listAll(), this.parts.listAllSources()]);
     const byPart = new Map<number, typeof sources>();
     for (const s of sources) byPart.set(s.housePartId, [...(byPart.get(s.housePartId) ?? []), s]);
-    const header = ['partNumber', 'description', 'status', 'specVersion', 'sourceRole', 'manufacturer', 'mpn', 'package', 'lifecycleNote', 'cardVersion', 'sourceNote', 'sourceSince'];
-    const rows: unknown[][] = [header];
+    const header = HOUSE_PART_EXPORT_HEADER;
+    const rows: unknown[][] = [[...header]];
     for (const p of parts) {
       const own = [p.partNumber, p.description, p.status, p.specVersion ?? ''];
       const list = byPart.get(p.id) ?? [];
@@ -77,11 +98,14 @@ function cardRow(row: CardExportRow): unknown[] {
     ...CARD_FIELDS.map((field) => {
       const v = f[field];
       if (!v) return '';
-      if (field === 'tc') return `${(v as TcValue).value} ${(v as TcValue).unit}`;
-      return v.value;
+      // Rounded to the figures the datasheet text states: no binary noise such as 0.00025000000000000006.
+      if (field === 'tc') return `${roundToStated((v as TcValue).value, v.printed)} ${(v as TcValue).unit}`;
+      return roundToStated(v.value, v.printed);
     }),
-    tc ? tc.voltsPerKelvin : '',
-    CARD_FIELDS.filter((field) => f[field] && !f[field]!.provenance.confirmedBy).join(' '),
+    tc ? roundToStated(tc.voltsPerKelvin, tc.printed) : '',
+    CARD_FIELDS.filter((field) => f[field] && !f[field]!.provenance.confirmedBy)
+      .map((field) => CARD_FIELD_WORDS[field])
+      .join('; '),
   ];
 }
 

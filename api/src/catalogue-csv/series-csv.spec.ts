@@ -65,6 +65,17 @@ describe('parseSeriesCsv', () => {
     expect(() => parseSeriesCsv('mpn,"vzNom\nX', { manufacturer: 'M' })).toThrow(/cannot be read near line/);
   });
 
+  it('reads the headers in words the card export writes exactly as the short names', () => {
+    const words = 'Manufacturer part number,Zener voltage nominal (V),Test current (mA),Dynamic impedance at test current (ohm),Temperature coefficient,Temperature coefficient converted (V/K),Unconfirmed fields\nW-1,5.1,5,40,-1.4 mV/K,-0.0014,Test current';
+    const short = 'mpn,vzNom (V),izt (mA),zzt (ohm),tc,tcVoltsPerKelvin (V/K),unconfirmedFields\nW-1,5.1,5,40,-1.4 mV/K,-0.0014,izt';
+    const a = parseSeriesCsv(words, { manufacturer: 'M' });
+    const b = parseSeriesCsv(short, { manufacturer: 'M' });
+    expect(a.warnings).toEqual([]);
+    expect(a.columns.map((c) => c.field)).toEqual(['mpn', 'vzNom', 'izt', 'zzt', 'tc', null, null]);
+    expect(a.rows[0].errors).toEqual([]);
+    expect(a.rows[0].values).toEqual(b.rows[0].values);
+  });
+
   it('reads our own export columns quietly and warns about others', () => {
     const { warnings } = parseSeriesCsv('mpn,cardVersion,tcVoltsPerKelvin (V/K),colour\nX,1,0.001,red', { manufacturer: 'M' });
     expect(warnings).toEqual(['column "colour" is not a card field or part column and is not read']);

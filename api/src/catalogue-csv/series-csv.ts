@@ -1,5 +1,6 @@
 import {
   CARD_FIELD_KINDS,
+  CARD_FIELD_WORDS,
   CARD_FIELDS,
   kindOfUnit,
   manufacturerNameSchema,
@@ -33,9 +34,11 @@ const ALIASES: Record<string, ColumnField> = {
   lifecycle: 'lifecycleNote',
   tempco: 'tc',
   alphavz: 'tc',
+  // the card export's headers in words (CARD_FIELD_WORDS, "Zener voltage nominal (V)")
+  manufacturerpartnumber: 'mpn',
 };
-/** Columns our own card export writes that an import reads past without a warning. */
-const EXPORT_ONLY = new Set(['cardversion', 'tcvoltsperkelvin', 'unconfirmedfields']);
+/** Columns our own card export writes that an import reads past without a warning (short names of older files, words of newer ones). */
+const EXPORT_ONLY = new Set(['cardversion', 'tcvoltsperkelvin', 'unconfirmedfields', 'temperaturecoefficientconverted']);
 
 export interface SeriesColumn {
   index: number;
@@ -72,6 +75,7 @@ const canonical = (s: string) => s.toLowerCase().replace(/[\s_\-.]/g, '');
 const FIELD_BY_NAME = new Map<string, ColumnField>([
   ...[...CARD_FIELDS, ...IDENTITY, 'page' as const].map((f) => [canonical(f), f] as [string, ColumnField]),
   ...Object.entries(ALIASES),
+  ...Object.entries(CARD_FIELD_WORDS).map(([f, words]) => [canonical(words), f as ColumnField] as [string, ColumnField]),
 ]);
 
 /** "izt (mA)", "izt [mA]", "IZT mA"? — only () and [] carry a unit; the rest is the name. */

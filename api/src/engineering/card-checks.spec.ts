@@ -29,6 +29,13 @@ describe('card sanity checks name their field', () => {
     expect(fields(checkCard({ ...good, zzk: 10 }), 'warning')).toEqual(['zzk']);
   });
 
+  it('names an implausible tc in mV/K and %/K with true minus signs (U+2212; common practice, no source)', () => {
+    const issues = checkCard({ ...good, tc: -12e-3 }) // −12 mV/K;
+    const message = issues.find((i) => i.field === 'tc' && /beyond the usual/.test(i.message))!.message;
+    expect(message).toMatch(/^tc \u221212\.0 mV\/K is \u22120\.\d{3} %\/K of VZ/);
+    expect(message).not.toMatch(/-\d/);
+  });
+
   it('a tc sign that disagrees with the mechanism is a warning on tc (common practice: negative below ~5 V, positive above ~6 V)', () => {
     const issues = checkCard({ ...good, vzNom: 3.3, vzMin: 3.1, vzMax: 3.5, vr: 1, tc: 2e-3 });
     expect(fields(issues, 'warning')).toEqual(['tc']);

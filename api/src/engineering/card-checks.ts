@@ -1,6 +1,8 @@
 import { engineeringCardContradictions, formatQuantity, type CardIssue, type EngineeringCardInput } from '@shuntwise/contracts';
 import { mechanismSignWarning } from './mechanism';
 
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
+
 /**
  * Sanity checks on a card for the card editor and the core: contradictions are errors
  * (the core refuses the card), implausible or missing values are warnings. Each names its
@@ -31,7 +33,7 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     const alpha = card.tc;
     const percentPerK = (alpha / vzNom) * 100;
     if (Math.abs(percentPerK) > 0.2) {
-      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${percentPerK.toFixed(3)} %/K of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
+      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${formatQuantity(percentPerK, 'tempCoPercent')} of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
     }
     const sign = mechanismSignWarning(vzNom, alpha);
     if (sign !== null) warn('tc', sign);
@@ -42,8 +44,8 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     warn('irMax', `IR max (${amps(card.irMax)}) is not below IZK (${amps(card.izk)}): leakage that large is implausible`);
   }
 
-  if (card.tjMax != null && (card.tjMax < 100 || card.tjMax > 200)) warn('tjMax', `TJ max ${card.tjMax} °C lies outside the usual 100…200 °C`);
-  if (card.rthJA != null && (card.rthJA < 1 || card.rthJA > 1000)) warn('rthJA', `RthJA ${card.rthJA} K/W lies outside the usual 1…1000 K/W`);
+  if (card.tjMax != null && (card.tjMax < 100 || card.tjMax > 200)) warn('tjMax', `TJ max ${celsius(card.tjMax)} lies outside the usual 100…200 °C`);
+  if (card.rthJA != null && (card.rthJA < 1 || card.rthJA > 1000)) warn('rthJA', `RthJA ${formatQuantity(card.rthJA, 'thermalResistance', { trim: true })} lies outside the usual 1…1000 K/W`);
   if (card.pdMax != null) {
     if (card.tjMax == null) warn('tjMax', 'PD max given without TJ max: the rating cannot be derated above its reference temperature');
     if (card.izm != null && card.izm * vzNom > 1.25 * card.pdMax) {
@@ -53,7 +55,7 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     if (card.rthJA != null && card.tjMax != null) {
       const fromRth = (card.tjMax - (card.pdRefC ?? 25)) / card.rthJA;
       if (Math.abs(fromRth - card.pdMax) > 0.25 * card.pdMax) {
-        warn('rthJA', `(TJ max − ${card.pdRefC ?? 25} °C)/RthJA = ${watts(fromRth)} disagrees with PD max (${watts(card.pdMax)}) by more than 25 %: derating uses the lower`);
+        warn('rthJA', `(TJ max − ${celsius(card.pdRefC ?? 25)})/RthJA = ${watts(fromRth)} disagrees with PD max (${watts(card.pdMax)}) by more than 25 %: derating uses the lower`);
       }
     }
   } else if (card.rthJA == null || card.tjMax == null) {

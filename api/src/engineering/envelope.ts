@@ -1,6 +1,8 @@
-import type { Envelope, EnvelopeCorner, ToleranceCorner, VoltageWindow } from '@shuntwise/contracts';
+import { formatQuantity, type Envelope, type EnvelopeCorner, type ToleranceCorner, type VoltageWindow } from '@shuntwise/contracts';
 import { diodeVoltage, type BreakdownModel } from './breakdown-model';
 import { junctionTemperatureC } from './self-heating';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 export interface WindowOptions {
   /** Self-heating from the card's rthJA (default true). */
@@ -44,7 +46,7 @@ export function worstCaseWindow(model: BreakdownModel, envelope: Envelope, optio
       for (const corner of tolCorners) {
         const tjC = heating ? junctionTemperatureC(model, current, taC, corner) : taC;
         if (Number.isNaN(tjC)) {
-          warnings.push(`thermal runaway at ${current} A and ${taC} °C: that corner has no steady state`);
+          warnings.push(`thermal runaway at ${formatQuantity(current, 'current')} and ${celsius(taC)}: that corner has no steady state`);
           continue;
         }
         const voltage = diodeVoltage(model, current, tjC, corner);

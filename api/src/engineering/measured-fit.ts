@@ -1,6 +1,9 @@
+import { formatQuantity } from '@shuntwise/contracts';
 import { Matrix, QrDecomposition } from 'ml-matrix';
 import type { BreakdownModel } from './breakdown-model';
 import { K_OVER_Q, T_REF_C, ZERO_CELSIUS_K, thermalVoltage } from './physics';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 /** One bench point of a sample in breakdown: reverse current (A, positive), voltage (V), temperature (°C). */
 export interface MeasuredPoint {
@@ -71,9 +74,9 @@ export function fitMeasuredSample(points: readonly MeasuredPoint[], options: Mea
     if (Math.abs(t - T_REF_C) > SAME_TEMPERATURE_K) {
       if (options.alphaVzFallback != null) {
         alpha = options.alphaVzFallback;
-        assumptions.push(`points at ${t.toFixed(0)} °C only: moved to 25 °C with the card's temperature coefficient`);
+        assumptions.push(`points at ${celsius(t)} only: moved to 25 °C with the card's temperature coefficient`);
       } else {
-        warnings.push(`points at ${t.toFixed(0)} °C only and no temperature coefficient: Vz is stated at ${t.toFixed(0)} °C, not 25 °C`);
+        warnings.push(`points at ${celsius(t)} only and no temperature coefficient: Vz is stated at ${celsius(t)}, not 25 °C`);
       }
     } else {
       assumptions.push('points at one temperature near 25 °C: αVz not fitted');

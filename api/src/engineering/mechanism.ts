@@ -1,4 +1,4 @@
-import type { Mechanism } from '@shuntwise/contracts';
+import { formatQuantity, type Mechanism } from '@shuntwise/contracts';
 
 /** Below this Zener voltage (V) breakdown is mainly tunnelling (common practice: about 5 V). */
 export const TUNNELLING_BELOW_V = 5;
@@ -19,10 +19,10 @@ export function mechanismOf(vz: number): Mechanism {
 export function mechanismSignWarning(vz: number, alphaVz: number): string | null {
   const mechanism = mechanismOf(vz);
   if (mechanism === 'tunnelling' && alphaVz > 0) {
-    return `tc is positive but a ${vz} V part breaks down mainly by tunnelling, whose voltage falls with temperature: check the sign on the datasheet`;
+    return `tc is positive but a ${formatQuantity(vz, 'voltage', { trim: true })} part breaks down mainly by tunnelling, whose voltage falls with temperature: check the sign on the datasheet`;
   }
   if (mechanism === 'avalanche' && alphaVz < 0) {
-    return `tc is negative but a ${vz} V part breaks down mainly by avalanche, whose voltage rises with temperature: check the sign on the datasheet`;
+    return `tc is negative but a ${formatQuantity(vz, 'voltage', { trim: true })} part breaks down mainly by avalanche, whose voltage rises with temperature: check the sign on the datasheet`;
   }
   return null;
 }

@@ -48,6 +48,12 @@ describe('worst-case power check over an envelope', () => {
     expect(cool.allowed).toBeCloseTo(0.8 * 0.5 * (175 - 40) / 150, 12);
   });
 
+  it('states its policy as a percentage without float noise (0.07 × 100 is 7.000000000000001 in IEEE 754; common practice, no source)', () => {
+    const check = powerCheck(fitBreakdownModel(card), card, envelope, { policyFraction: 0.07 });
+    expect(check.assumptions[0]).toBe('the diode may dissipate 7 % of its derated rating');
+    expect(check.reason).not.toMatch(/-\d/);
+  });
+
   it('is no data, never a pass, when the card cannot be derated', () => {
     const bare = { vzNom: 5.1, izt: 0.02, zzt: 17, pdMax: 0.5 };
     const check = powerCheck(fitBreakdownModel(bare), bare, { iMin: 0.001, iMax: 0.002, taMin: 0, taMax: 70 });

@@ -1,4 +1,5 @@
 import {
+  formatPercent,
   formatQuantity,
   type EngineeringCardInput,
   type Envelope,
@@ -8,6 +9,8 @@ import {
 } from '@shuntwise/contracts';
 import { diodeVoltage, type BreakdownModel } from './breakdown-model';
 import { junctionTemperatureC } from './self-heating';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 export interface PowerLimit {
   /** Largest dissipation (W) at the ambient, or null when the card cannot say. */
@@ -30,11 +33,11 @@ export function deratedPowerLimit(card: EngineeringCardInput, taC: number): Powe
   }
   const fromRth = card.rthJA != null && card.tjMax != null ? Math.max(0, (card.tjMax - taC) / card.rthJA) : null;
   if (fromPd !== null && (fromRth === null || fromPd <= fromRth)) {
-    return { limit: fromPd, basis: 'pdMax', reason: `PD max derated linearly from ${pdRefC} °C to zero at TJ max` };
+    return { limit: fromPd, basis: 'pdMax', reason: `PD max derated linearly from ${celsius(pdRefC)} to zero at TJ max` };
   }
   if (fromRth !== null) return { limit: fromRth, basis: 'rthJA', reason: '(TJ max − Ta)/RthJA' };
   if (card.pdMax != null) {
-    return { limit: null, basis: 'none', reason: `PD max applies up to ${pdRefC} °C and the card has no TJ max to derate it above` };
+    return { limit: null, basis: 'none', reason: `PD max applies up to ${celsius(pdRefC)} and the card has no TJ max to derate it above` };
   }
   return { limit: null, basis: 'none', reason: 'the card gives neither PD max nor TJ max with RthJA' };
 }
@@ -58,7 +61,7 @@ export function powerCheck(
 ): PowerCheck {
   const policyFraction = options.policyFraction ?? 1;
   const selfHeating = options.selfHeating ?? true;
-  const assumptions = [`the diode may dissipate ${policyFraction * 100} % of its derated rating`];
+  const assumptions = [`the diode may dissipate ${formatPercent(policyFraction)} of its derated rating`];
   const warnings: string[] = [];
   if (selfHeating && model.rthJA === null) warnings.push('no RthJA on the card: dissipation computed at Tj = Ta');
   const corner: ToleranceCorner = model.hasVzMax ? 'max' : 'nom';
@@ -78,7 +81,7 @@ export function powerCheck(
         policyFraction,
         allowed: null,
         margin: null,
-        reason: `thermal runaway at ${amps(current)} and ${taC} °C: the self-heating iteration does not settle`,
+        reason: `thermal runaway at ${amps(current)} and ${celsius(taC)}: the self-heating iteration does not settle`,
         assumptions,
         warnings,
       };
@@ -120,7 +123,7 @@ export function powerCheck(
       policyFraction,
       allowed: null,
       margin: null,
-      reason: `no power limit at ${worst.at.taC} °C: ${noDataReason}`,
+      reason: `no power limit at ${celsius(worst.at.taC)}: ${noDataReason}`,
       assumptions,
       warnings,
     };
@@ -134,7 +137,7 @@ export function powerCheck(
     policyFraction,
     allowed: worst.allowed,
     margin: worst.margin,
-    reason: `${watts(worst.power)} at ${amps(current)} and ${worst.at.taC} °C ${pass ? 'within' : 'above'} the allowed ${watts(worst.allowed)}`,
+    reason: `${watts(worst.power)} at ${amps(current)} and ${celsius(worst.at.taC)} ${pass ? 'within' : 'above'} the allowed ${watts(worst.allowed)}`,
     assumptions,
     warnings,
   };

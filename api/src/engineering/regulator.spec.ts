@@ -93,6 +93,15 @@ describe('verdicts say why', () => {
     expect(design.caution).toMatch(/Safety-relevant circuits/);
   });
 
+  it('writes its reasons with the shared formatter: a cold corner as −40 °C with a true minus (U+2212, ISO 80000-1, from memory)', () => {
+    // A falling coefficient puts the highest knee voltage at the cold end, so the reason names it.
+    const design = designRegulator({ ...request, card: { ...card, tc: (-0.05 / 100) * card.vzNom } /* −0.05 %/K */, ambient: { min: -40, max: 85 } });
+    expect(design.range.maxReason).toMatch(/\(\u221240 °C, max part\)/);
+    const text = [design.range.minReason, design.range.maxReason, ...design.reasons, ...design.warnings, ...design.assumptions].join('\n');
+    expect(text).not.toMatch(/-\d/);
+    expect(text).toMatch(/resistor at \+5 %/);
+  });
+
   it('no resistor when the minimum supply does not clear the diode', () => {
     const design = designRegulator({ ...request, supply: { min: 4.5, max: 13.2 } });
     expect(design.verdict).toBe('no-solution');

@@ -1,4 +1,5 @@
 import {
+  formatPercent,
   formatQuantity,
   type RegulatorCorner,
   type RegulatorRequest,
@@ -10,6 +11,8 @@ import { DESIGN_CAUTION } from './caution';
 import { nearestByRatio, seriesValuesBetween } from './e-series';
 import { deratedPowerLimit } from './power';
 import { junctionTemperatureC, voltageAtAmbient } from './self-heating';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 /** Default lowest diode current as a multiple of izk (common practice, no source). */
 export const DEFAULT_KNEE_FACTOR = 5;
@@ -100,7 +103,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
   const assumptions = [...model.assumptions];
   if (supply.nom === undefined) assumptions.push(`no nominal supply given: ${volts(vsNom)}, the middle of the range`);
   if (request.diodeCurrent === undefined) assumptions.push('the simple formula aims for the diode current IZT');
-  assumptions.push(`the diode may dissipate ${powerFraction * 100} % of its derated power rating`);
+  assumptions.push(`the diode may dissipate ${formatPercent(powerFraction)} of its derated power rating`);
   if (heat) assumptions.push('self-heating: Tj = Ta + RthJA·Vz·I, iterated to convergence');
   else if (selfHeating) warnings.push('no RthJA on the card: self-heating left out (Tj = Ta)');
   assumptions.push('the load draws a constant current; the resistor fitted may be anywhere within its tolerance');
@@ -139,7 +142,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
   let maxReason: string;
   if (rMaxActual > 0) {
     rangeMax = rMaxActual / (1 + tol);
-    maxReason = `at ${volts(supply.min)} supply and ${amps(load.max)} load the diode keeps ${amps(kneeCurrent)} at up to ${volts(vKnee)} (${vKneeAt} °C, ${highCorner} part), with the resistor at +${pct(tol)}`;
+    maxReason = `at ${volts(supply.min)} supply and ${amps(load.max)} load the diode keeps ${amps(kneeCurrent)} at up to ${volts(vKnee)} (${celsius(vKneeAt)}, ${highCorner} part), with the resistor at +${pct(tol)}`;
   } else {
     maxReason = `the minimum supply ${volts(supply.min)} is not above the diode's ${volts(vKnee)} at the knee current`;
     reasons.push(`no resistor works: ${maxReason}`);
@@ -166,7 +169,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
     }
     for (const corner of tolCorners) {
       let iAllow = allowedPower === null ? Number.POSITIVE_INFINITY : currentForPower(model, allowedPower, taC, corner, selfHeating);
-      let limitedBy = allowedPower === null ? '' : `${watts(allowedPower)} allowed at ${taC} °C`;
+      let limitedBy = allowedPower === null ? '' : `${watts(allowedPower)} allowed at ${celsius(taC)}`;
       if (card.izm != null && card.izm < iAllow) {
         iAllow = card.izm;
         limitedBy = `IZM = ${amps(card.izm)}`;
@@ -177,13 +180,13 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
       if (allowedDiodeCurrent === null || iAllow < allowedDiodeCurrent) allowedDiodeCurrent = iAllow;
       if (r > rMinActual) {
         rMinActual = r;
-        minReason = `at ${volts(supply.max)} supply and ${amps(load.min)} load the diode may carry ${amps(iAllow)} (${limitedBy}, ${corner} part, ${taC} °C), with the resistor at −${pct(tol)}`;
+        minReason = `at ${volts(supply.max)} supply and ${amps(load.min)} load the diode may carry ${amps(iAllow)} (${limitedBy}, ${corner} part, ${celsius(taC)}), with the resistor at −${pct(tol)}`;
       }
     }
   }
   let rangeMin: number | null = null;
   if (unlimitedAt !== null) {
-    minReason = `no power limit at ${unlimitedAt} °C: ${deratedPowerLimit(card, unlimitedAt).reason}, and no IZM`;
+    minReason = `no power limit at ${celsius(unlimitedAt)}: ${deratedPowerLimit(card, unlimitedAt).reason}, and no IZM`;
     reasons.push(`no data: ${minReason}`);
   } else if (allowedDiodeCurrent !== null) {
     if (!powerKnown) warnings.push('the power rating cannot be derated over the whole ambient range: only IZM limits the current there');
@@ -287,7 +290,7 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
       const atMinLoad = solveShuntRegulator(model, vsNom, bandResistance, load.min, taMid, 'nom', selfHeating);
       const atMaxLoad = solveShuntRegulator(model, vsNom, bandResistance, load.max, taMid, 'nom', selfHeating);
       loadRegulation = atMinLoad.vOut - atMaxLoad.vOut;
-      assumptions.push(`line and load regulation at ${volts(vsNom)} supply, ${amps(ilMid)} load, ${taMid} °C; electrical only (no thermal drift)`);
+      assumptions.push(`line and load regulation at ${volts(vsNom)} supply, ${amps(ilMid)} load, ${celsius(taMid)}; electrical only (no thermal drift)`);
     } else if (model.basis === 'none') {
       warnings.push('no impedance on the card: line and load regulation are no data');
     }
@@ -332,5 +335,5 @@ function watts(x: number): string {
   return formatQuantity(x, 'power');
 }
 function pct(x: number): string {
-  return `${Number((x * 100).toPrecision(3))} %`;
+  return formatPercent(x);
 }

@@ -7,6 +7,7 @@ import {
   isUsableStanding,
   sourceRoleOf,
   sourceStanding,
+  standingConditions,
   toEngineeringCard,
   type BoardPage,
   type BoardQuery,
@@ -208,7 +209,7 @@ export function standing(cases: readonly PairCaseRow[], waiversOf: ReadonlyMap<n
     standing: value as SourceStanding,
     caseId: basis.id,
     revision: basis.revision,
-    conditions: revoked ? basis.revokeReason : basis.decisionText,
+    conditions: standingConditions(value, basis.decisionText, basis.revokeReason),
     since: revoked ? iso(basis.revokedAt) : iso(basis.decidedAt),
     decidedBy: revoked
       ? basis.revokedById !== null

@@ -22,6 +22,7 @@ import {
   waiverGaps,
   type CheckId,
   type CheckQuantity,
+  formatNumber,
   formatQuantity,
   allowedActionsFor,
   isDecidedState,
@@ -685,7 +686,7 @@ export function toSummary(row: CaseRow): QualificationSummary {
 
 /** A check's value in its unit (SI prefixes), as the evaluation shows it. */
 function formatCheckValue(value: number, quantity: CheckQuantity): string {
-  if (quantity === 'ratio') return String(Number(value.toPrecision(4)));
+  if (quantity === 'ratio') return formatNumber(value, 4, { trim: true });
   if (quantity === 'text') return String(value);
   return formatQuantity(value, quantity);
 }

@@ -39,6 +39,14 @@ describe('source standing', () => {
     expect(s).toMatchObject({ standing: 'approved', caseId: 5, openCase: { id: 7, state: 'in-review' } });
   });
 
+  it('shows conditions only for a clearance with conditions (and the reason of a rejection); an approval note is no condition', () => {
+    const note = 'Reviewed against rev. C of the datasheet';
+    expect(standing([row({ id: 5, state: 'approved', decisionText: note, decidedAt: new Date() })]).conditions).toBeNull();
+    expect(standing([row({ id: 5, state: 'cleared', decisionText: note, decidedAt: new Date() })]).conditions).toBeNull();
+    expect(standing([row({ id: 5, state: 'cleared-with-conditions', decisionText: 'sample 5 per lot', decidedAt: new Date() })]).conditions).toBe('sample 5 per lot');
+    expect(standing([row({ id: 5, state: 'rejected', decisionText: 'leakage too high', decidedAt: new Date() })]).conditions).toBe('leakage too high');
+  });
+
   it('a revocation ends an approval', () => {
     const at = new Date('2026-11-20T10:00:00Z');
     const s = standing([row({ id: 3, state: 'revoked', revokedAt: at, revokeReason: 'process change', revokedById: 4, revokedByName: 'Reviewer' })]);

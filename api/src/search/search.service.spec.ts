@@ -97,6 +97,12 @@ describe('where a pair stands for a designer', () => {
     });
   });
 
+  it('a plain clearance or an approval carries no conditions, whatever note its decision had', () => {
+    for (const state of ['cleared', 'approved'] as const) {
+      expect(toClearance(pair({ caseId: 9, revision: 1, state, decisionText: 'checked on rev. C', decidedAt: new Date('2026-11-02T10:00:00Z') }))!.conditions).toBeNull();
+    }
+  });
+
   it('carries the waivers a clearance with waiver rests on, with their expiry', () => {
     const brief = { id: 4, checkId: 'zd' as const, quantity: 'resistance' as const, acceptedLimit: 45, expiresOn: '2027-06-30', state: 'approved' as const };
     const c = toClearance(pair({ caseId: 9, revision: 1, state: 'cleared-with-waiver', decidedAt: new Date('2026-11-02T10:00:00Z') }), new Map([[9, [brief]]]));

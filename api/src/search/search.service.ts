@@ -4,6 +4,7 @@ import {
   isRuledOutState,
   isUsableState,
   toEngineeringCard,
+  standingConditions,
   vzTolerance,
   type Clearance,
   type RatingCardFields,
@@ -156,7 +157,7 @@ export function toClearance(pair: PairRow, waivers: ReadonlyMap<number, WaiverBr
   return {
     housePart,
     standing: pair.state,
-    conditions: pair.decisionText,
+    conditions: standingConditions(pair.state, pair.decisionText),
     since: iso(pair.decidedAt),
     decidedBy: pair.decidedById !== null ? { id: pair.decidedById, name: pair.decidedByName ?? '' } : null,
     caseId: pair.caseId,

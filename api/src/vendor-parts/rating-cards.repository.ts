@@ -60,7 +60,7 @@ export class RatingCardsRepository {
   listVersions(vendorPartId: number): Promise<RatingCardVersion[]> {
     return this.versions.findAll({
       where: { vendorPartId },
-      attributes: ['id', 'vendorPartId', 'version', 'changedFields', 'note', 'changedById', 'createdAt'],
+      attributes: ['id', 'vendorPartId', 'version', 'fields', 'changedFields', 'note', 'changedById', 'createdAt'],
       include: [{ model: User, attributes: ['id', 'name'] }],
       order: [['version', 'DESC']],
     });

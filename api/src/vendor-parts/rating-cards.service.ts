@@ -12,6 +12,7 @@ import {
   type EngineeringCardInput,
   type NormalizeResponse,
   type RatingCard as RatingCardDto,
+  type CardFieldChange,
   type RatingCardFields,
   type RatingCardFieldsParsed,
   type RatingCardQuery,
@@ -146,9 +147,12 @@ export class RatingCardsService {
 
   async versions(vendorPartId: number): Promise<RatingCardVersionSummary[]> {
     if (!(await this.vendorParts.findById(vendorPartId))) throw new NotFoundException(`No vendor part with id ${vendorPartId}`);
-    return (await this.cards.listVersions(vendorPartId)).map((v) => ({
+    const list = await this.cards.listVersions(vendorPartId);
+    return list.map((v, i) => ({
       version: v.version,
       changedFields: v.changedFields,
+      // newest first: the version before this one is the next in the list
+      changes: fieldChanges(list[i + 1]?.fields ?? null, v.fields, v.changedFields),
       note: v.note,
       changedBy: actor(v.changedBy),
       createdAt: v.createdAt.toISOString(),
@@ -272,6 +276,16 @@ export function storedFields(input: RatingCardFieldsParsed, previous: RatingCard
 }
 
 /** Fields whose value, unit, provenance or confirmation differ (tc also when its V/K moved with vzNom). */
+/** Old → new of each changed field, for the card history. */
+export function fieldChanges(before: RatingCardFields | null, after: RatingCardFields, changed: readonly string[]): CardFieldChange[] {
+  const side = (fields: RatingCardFields | null, field: string): CardFieldChange['from'] => {
+    const v = fields?.[field as keyof RatingCardFields];
+    if (!v) return null;
+    return field === 'tc' ? { value: v.value, unit: (v as TcValue).unit } : { value: v.value };
+  };
+  return changed.map((field) => ({ field, from: side(before, field), to: side(after, field) }));
+}
+
 export function diffFields(before: RatingCardFields | null, after: RatingCardFields): string[] {
   return CARD_FIELDS.filter((f) => {
     const a = before?.[f];

@@ -273,9 +273,17 @@ export const ratingCardConflictSchema = z.object({
 });
 export type RatingCardConflict = z.infer<typeof ratingCardConflictSchema>;
 
+/** A field's value on one side of a change: the number (SI; tc in its own unit) or null when absent. */
+const cardChangeSideSchema = z.object({ value: z.number(), unit: z.enum(['mV/K', '%/K']).optional() }).nullable();
+
+/** One changed field of a version against the one before: old → new (same numbers when only its provenance changed). */
+export const cardFieldChangeSchema = z.object({ field: z.string(), from: cardChangeSideSchema, to: cardChangeSideSchema });
+export type CardFieldChange = z.infer<typeof cardFieldChangeSchema>;
+
 export const ratingCardVersionSummarySchema = z.object({
   version: z.number().int(),
   changedFields: z.array(z.string()),
+  changes: z.array(cardFieldChangeSchema),
   note: z.string().nullable(),
   changedBy: actorSchema.nullable(),
   createdAt: z.string(),

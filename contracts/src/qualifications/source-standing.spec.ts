@@ -1,11 +1,21 @@
 import { describe, expect, it } from 'vitest';
 import { DECIDED_STATES, OPEN_STATES, QUALIFICATION_TRANSITIONS } from './qualification-state.schema';
-import { USABLE_STATES, actionBlock, sourceRoleOf, sourceStanding, sqlStateList } from './source-standing';
+import { USABLE_STATES, actionBlock, sourceRoleOf, sourceStanding, sqlStateList, standingConditions } from './source-standing';
 import { addSourceRequestSchema, updateSourceRequestSchema } from '../parts/source.schema';
 
 // The standing rule (common practice, no source): only decisions give a standing, the
 // latest decision counts, and the one who prepared a case never decides it.
 describe('source standing', () => {
+  it('lists show conditions only for a clearance with conditions, and the reason of a rejection or revocation', () => {
+    expect(standingConditions('cleared-with-conditions', 'sample 5 per lot')).toBe('sample 5 per lot');
+    expect(standingConditions('approved', 'note')).toBeNull();
+    expect(standingConditions('cleared', 'note')).toBeNull();
+    expect(standingConditions('cleared-with-waiver', 'note')).toBeNull();
+    expect(standingConditions('rejected', 'too leaky')).toBe('too leaky');
+    expect(standingConditions('revoked', 'old text', 'process change')).toBe('process change');
+    expect(standingConditions('not-qualified', null)).toBeNull();
+  });
+
   it('usable states are decided ones, and only the approved state makes the approved source', () => {
     for (const s of USABLE_STATES) expect(DECIDED_STATES).toContain(s);
     expect(USABLE_STATES.filter((s) => (OPEN_STATES as readonly string[]).includes(s))).toEqual([]);

@@ -68,6 +68,17 @@ export function sourceStanding<T extends StandingCase>(cases: readonly T[]): { s
   return { standing: basis ? basis.state : 'not-qualified', basis, openCase };
 }
 
+/**
+ * The text a list shows beside a standing: the conditions of a clearance with conditions,
+ * the reason of a rejection or a revocation; nothing for an approval or a plain clearance,
+ * whose decision note is no condition (the case page keeps it).
+ */
+export function standingConditions(standing: SourceStandingValue, decisionText: string | null, revokeReason: string | null = null): string | null {
+  if (standing === 'revoked') return revokeReason;
+  if (standing === 'cleared-with-conditions' || standing === 'rejected') return decisionText;
+  return null;
+}
+
 /** Whether a source with this standing may be used (designed in, ordered). */
 export function isUsableStanding(standing: SourceStandingValue): boolean {
   return standing !== 'not-qualified' && isUsableState(standing);

@@ -68,21 +68,21 @@ export const sourcesQuerySchema = z.object({
 });
 export type SourcesQuery = z.infer<typeof sourcesQuerySchema>;
 
-/** Columns of `GET /api/qualifications/sources.csv`, in order (dates ISO 8601, UTC). */
+/** Columns of `GET /api/qualifications/sources.csv`, in order, in words (dates ISO 8601, UTC). */
 export const SOURCES_CSV_COLUMNS = [
-  'house_part',
-  'description',
-  'house_part_status',
-  'manufacturer',
-  'mpn',
-  'package',
-  'role',
-  'standing',
-  'conditions',
-  'since',
-  'decided_by',
-  'case_id',
-  'revision',
-  'open_case',
-  'needs_recheck',
+  'House part',
+  'Description',
+  'House part status',
+  'Manufacturer',
+  'Manufacturer part number',
+  'Package',
+  'Role',
+  'Standing',
+  'Conditions',
+  'Since',
+  'Decided by',
+  'Case',
+  'Revision',
+  'Open case',
+  'Needs re-check',
 ] as const;

@@ -1,4 +1,4 @@
-import { formatQuantity } from './format';
+import { formatNumber, formatPercent, formatQuantity } from './format';
 import type { QuantityKind } from './quantity';
 
 /**
@@ -36,6 +36,29 @@ export const CARD_FIELD_LABELS = {
   rthJA: { label: 'RthJA', kind: 'thermalResistance' },
   izm: a('IZM'),
 } as const satisfies Record<string, FieldLabel>;
+
+/**
+ * A rating card's fields in words, for CSV headers a person reads without a glossary
+ * ("Zener voltage nominal (V)", not vzNom). The card import reads these back as well as the
+ * short names, so files written before and after either spelling import alike.
+ */
+export const CARD_FIELD_WORDS: Record<keyof typeof CARD_FIELD_LABELS, string> = {
+  vzMin: 'Zener voltage min',
+  vzNom: 'Zener voltage nominal',
+  vzMax: 'Zener voltage max',
+  izt: 'Test current',
+  zzt: 'Dynamic impedance at test current',
+  izk: 'Knee current',
+  zzk: 'Dynamic impedance at knee current',
+  irMax: 'Reverse leakage max',
+  vr: 'Reverse voltage of the leakage',
+  tc: 'Temperature coefficient',
+  pdMax: 'Power rating',
+  pdRefC: 'Power rating reference temperature',
+  tjMax: 'Junction temperature max',
+  rthJA: 'Thermal resistance junction to ambient',
+  izm: 'Zener current max',
+};
 
 /** A house part's spec, as the spec editor labels it. */
 export const SPEC_FIELD_LABELS: Record<string, FieldLabel> = {
@@ -112,9 +135,9 @@ export function fieldName(path: string | ReadonlyArray<PropertyKey>): string {
 /** A value of the field as a person reads it: "5.10 mV", "50 %", or the number when the kind is unknown. */
 export function fieldValue(path: string | ReadonlyArray<PropertyKey>, value: number): string {
   const meta = fieldLabelOf(path);
-  if (meta?.percent) return `${Number((value * 100).toPrecision(4))} %`;
-  if (meta?.kind) return formatQuantity(value, meta.kind, { digits: 4 }).replace(/(\.\d*?)0+ /, '$1 ').replace(/\. /, ' ');
-  return String(value).replace('-', '\u2212');
+  if (meta?.percent) return formatPercent(value, { digits: 4 });
+  if (meta?.kind) return formatQuantity(value, meta.kind, { digits: 4, trim: true });
+  return formatNumber(value, 4, { trim: true });
 }
 
 /** "VZ min (5.30 V)": a field and its value, for messages about two fields. */

@@ -1,17 +1,10 @@
 import { Text } from '@mantine/core';
-import type { QualificationCheck, QualificationVerdict } from '@shuntwise/contracts';
+import { formatMargin, formatNumber, type QualificationCheck, type QualificationVerdict } from '@shuntwise/contracts';
 import { Quantity } from './quantity';
 import { VERDICT_TEXT_COLOR } from './verdict-badge';
 
-const MINUS = '\u2212';
-
-/** A margin in percent of the limit with its sign: "+2.1 %", "−25.0 %"; an en dash without one. */
-export function formatMargin(margin: number | null): string {
-  if (margin === null || !Number.isFinite(margin)) return '–';
-  const rounded = Math.round(margin * 10) / 10;
-  const sign = rounded > 0 ? '+' : rounded < 0 ? MINUS : '±';
-  return `${sign}${Math.abs(rounded).toFixed(1)} %`;
-}
+/** A margin in percent of the limit with its sign ("+2.1 %", "−25.0 %"): the shared formatter's. */
+export { formatMargin };
 
 /** The margin coloured by the check's verdict (the server decided the verdict; the colour only shows it). */
 export function MarginText({ margin, verdict, fz = 'sm' }: { margin: number | null; verdict: QualificationVerdict; fz?: string }) {
@@ -25,7 +18,7 @@ export function MarginText({ margin, verdict, fz = 'sm' }: { margin: number | nu
 function Num({ value, check }: { value: number | null; check: Pick<QualificationCheck, 'quantity'> }) {
   if (check.quantity === 'text') return <>–</>;
   if (check.quantity === 'ratio') {
-    return <span style={{ fontVariantNumeric: 'tabular-nums' }}>{value === null ? '–' : value.toPrecision(3)}</span>;
+    return <span style={{ fontVariantNumeric: 'tabular-nums' }}>{formatNumber(value)}</span>;
   }
   return <Quantity value={value} kind={check.quantity} />;
 }

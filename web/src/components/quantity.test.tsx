@@ -16,6 +16,9 @@ describe('Quantity', () => {
     [0.00025, 'current', '250 µA'],
     [33, 'resistance', '33.0 Ω'],
     [-0.0019, 'tempCoVoltage', '−1.90 mV/K'],
+    // a small coefficient stays in mV/K as datasheets state it, never −600 µV/K
+    [-0.0006, 'tempCoVoltage', '−0.60 mV/K'],
+    [-40, 'temperature', '−40.0 °C'],
     [0.5, 'power', '500 mW'],
     [1200, 'resistance', '1.20 kΩ'],
     [150, 'temperature', '150 °C'],

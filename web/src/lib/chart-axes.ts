@@ -16,9 +16,7 @@ export function logTicks(low: number, high: number): number[] {
 
 /** A tick label without trailing zeros: "2 mA", "250 µA", "10 mA" (the shared formatter, trimmed). */
 export function shortQuantity(value: number, kind: 'current' | 'voltage'): string {
-  return formatQuantity(value, kind, { digits: 3 })
-    .replace(/(\.\d*?)0+(?=\s)/, '$1')
-    .replace(/\.(?=\s)/, '');
+  return formatQuantity(value, kind, { digits: 3, trim: true });
 }
 
 /** Round ticks (steps of 1, 2 or 5 × 10ⁿ) covering [low, high], about `count` of them, and the domain they span. */

@@ -1,6 +1,8 @@
 import {
   CHECK_IDS,
   CHECK_LABELS,
+  formatNumber,
+  formatPercent,
   formatQuantity,
   QUALIFICATION_VERDICT_LABELS,
   type CheckId,
@@ -21,6 +23,8 @@ import { worstCaseWindow } from '../../engineering/envelope';
 import { mechanismOf, mechanismSignWarning } from '../../engineering/mechanism';
 import { T_REF_C } from '../../engineering/physics';
 import { deratedPowerLimit, powerCheck } from '../../engineering/power';
+
+const celsius = (x: number) => formatQuantity(x, 'temperature', { trim: true });
 
 export interface EvaluationInput {
   spec: Spec;
@@ -339,7 +343,7 @@ function outputWindowCheck(ctx: CheckContext): CheckResult {
   const { iMin, iMax } = spec.envelope;
   if (model.basis === 'none' && !(sameCurrent(iMin, card.izt) && sameCurrent(iMax, card.izt))) missing.push('an impedance to move Vz away from IZT');
   if (missing.length) return noData(base, `the worst case over the envelope needs ${missing.join(', ')}, which the card does not give`);
-  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${spec.envelope.taMin} … ${spec.envelope.taMax} °C`;
+  const envelopeText = `${amps(iMin)} … ${amps(iMax)}, ${celsius(spec.envelope.taMin)} … ${celsius(spec.envelope.taMax)}`;
   if (!ctx.window) {
     return failed(base, ctx.windowFailure ?? 'no steady state in the envelope');
   }
@@ -374,7 +378,7 @@ function powerDissipationCheck(ctx: CheckContext): CheckResult {
   const base = { id: 'power-dissipation' as const, quantity: 'power' as const, limitKind: 'max' as const };
   if (!card || !model) return noData({ ...base, limit: null }, ctx.noCard!);
   const pc = powerCheck(model, card, spec.envelope, { policyFraction: deratingFraction, selfHeating: true });
-  const at = pc.at ? ` at ${amps(pc.at.current)}, ${pc.at.taC} °C ambient (Tj ${pc.at.tjC.toFixed(1)} °C)` : '';
+  const at = pc.at ? ` at ${amps(pc.at.current)}, ${celsius(pc.at.taC)} ambient (Tj ${celsius(pc.at.tjC)})` : '';
   const common = {
     ...base,
     label: CHECK_LABELS['power-dissipation'],
@@ -393,7 +397,7 @@ function powerDissipationCheck(ctx: CheckContext): CheckResult {
     ...common,
     verdict: verdictOfMargin(margin ?? -1, ctx.band),
     margin,
-    detail: `${watts(pc.power!)}${at} against ${fixed(deratingFraction * 100)} % of the derated ${watts(pc.deratedLimit!)} = ${watts(pc.allowed!)}`,
+    detail: `${watts(pc.power!)}${at} against ${formatPercent(deratingFraction, { digits: 4 })} of the derated ${watts(pc.deratedLimit!)} = ${watts(pc.allowed!)}`,
   };
 }
 
@@ -411,7 +415,7 @@ function powerRatingCheck(ctx: CheckContext): CheckResult {
     const derived = deratedPowerLimit(card, refC);
     if (derived.limit === null) return noData(base, `the card gives no power rating: ${derived.reason}`);
     rating = derived.limit;
-    assumptions.push(`no PD max on the card: rating taken as (TJ max − ${refC} °C)/RthJA`);
+    assumptions.push(`no PD max on the card: rating taken as (TJ max − ${celsius(refC)})/RthJA`);
   }
   const margin = percent(rating - pdMin, pdMin);
   // A rating is a category the vendor states (300 mW, 500 mW): meeting it exactly meets it;
@@ -426,7 +430,7 @@ function powerRatingCheck(ctx: CheckContext): CheckResult {
     window: null,
     text: null,
     margin,
-    detail: `rated ${watts(rating)} at ${refC} °C against at least ${watts(pdMin)}`,
+    detail: `rated ${watts(rating)} at ${celsius(refC)} against at least ${watts(pdMin)}`,
     assumptions,
     warnings: [],
   };
@@ -528,6 +532,7 @@ const amps = (x: number) => formatQuantity(x, 'current');
 const ohms = (x: number) => formatQuantity(x, 'resistance');
 const watts = (x: number) => formatQuantity(x, 'power');
 const tempCo = (x: number) => formatQuantity(x, 'tempCoVoltage');
+/** A ratio or exponent in a sentence: four figures, trailing zeros dropped, a true minus. */
 function fixed(x: number): string {
-  return Number(x.toPrecision(4)).toString();
+  return formatNumber(x, 4, { trim: true });
 }

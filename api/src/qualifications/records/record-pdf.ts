@@ -4,7 +4,10 @@ import {
   CARD_FIELD_KINDS,
   CARD_FIELDS,
   QUALIFICATION_VERDICT_LABELS,
+  formatMargin,
+  formatNumber,
   formatQuantity,
+  formatTc,
   type CardValue,
   type CheckQuantity,
   type QualificationVerdict,
@@ -117,7 +120,7 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
   for (const field of CARD_FIELDS) {
     const value = vp.card?.[field] as CardValue | TcValue | undefined;
     if (!value) continue;
-    const shown = field === 'tc' ? `${(value as TcValue).value} ${(value as TcValue).unit}` : formatQuantity(value.value, CARD_FIELD_KINDS[field]);
+    const shown = field === 'tc' ? formatTc(value as TcValue) : formatQuantity(value.value, CARD_FIELD_KINDS[field]);
     const p = value.provenance;
     const sheet = p.datasheetId !== null ? sheets.get(p.datasheetId) : undefined;
     const where = [
@@ -157,7 +160,7 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
         : check.window
           ? `${fmt(check.window.min, check.quantity)} … ${fmt(check.window.max, check.quantity)}`
           : `${check.limitKind === 'max' ? '≤ ' : check.limitKind === 'min' ? '≥ ' : ''}${fmt(check.limit, check.quantity)}`;
-    checkRows.push([check.label, value, limit, check.margin === null ? '–' : `${check.margin.toFixed(1)} %`, QUALIFICATION_VERDICT_LABELS[check.verdict]]);
+    checkRows.push([check.label, value, limit, formatMargin(check.margin), QUALIFICATION_VERDICT_LABELS[check.verdict]]);
   }
   pen.table(checkRows, [165, 110, 110, 50, 60], true, (row) => (row === 0 ? null : VERDICT_COLOURS[inputs.evaluation.checks[row - 1].verdict]));
   for (const check of inputs.evaluation.checks) pen.text(`${check.label}: ${check.detail}`, { size: 8 });
@@ -185,7 +188,7 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
         m.label,
         fmt(m.value, m.quantity),
         m.window ? `${fmt(m.window.min, m.quantity)} … ${fmt(m.window.max, m.quantity)}` : fmt(m.limit, m.quantity),
-        m.margin === null ? '–' : `${m.margin.toFixed(1)} %`,
+        formatMargin(m.margin),
         QUALIFICATION_VERDICT_LABELS[m.verdict],
       ]);
     }
@@ -218,7 +221,7 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
 
 function fmt(value: number | null, quantity: CheckQuantity): string {
   if (value === null) return '–';
-  if (quantity === 'ratio') return value.toPrecision(3);
+  if (quantity === 'ratio') return formatNumber(value);
   if (quantity === 'text') return String(value);
   return formatQuantity(value, quantity);
 }

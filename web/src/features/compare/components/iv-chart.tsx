@@ -55,11 +55,11 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
   // One line per source and ambient (the nominal part); the tolerance ends as one shaded band each, not two more lines.
   const lines = shown.map(({ d, tempC, t, color }) => ({
     key: seriesKey(d.index, t, 'vzNom'),
-    name: `${d.source.vendorPart.mpn} ${tempC} °C`,
+    name: `${d.source.vendorPart.mpn} ${formatQuantity(tempC, 'temperature', { trim: true })}`,
     color,
     dash: dashFor(tempC),
   }));
-  const bands = tolerance ? shown.map(({ d, tempC, t, color }) => ({ key: bandKey(d.index, t), name: `${d.source.vendorPart.mpn} ${tempC} °C tolerance band`, color })) : [];
+  const bands = tolerance ? shown.map(({ d, tempC, t, color }) => ({ key: bandKey(d.index, t), name: `${d.source.vendorPart.mpn} ${formatQuantity(tempC, 'temperature', { trim: true })} tolerance band`, color })) : [];
   const names = Object.fromEntries(lines.map((l) => [l.key, l.name]));
 
   const iLow = payload.currents[0];

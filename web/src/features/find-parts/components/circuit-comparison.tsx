@@ -1,9 +1,8 @@
 import { Table, Text } from '@mantine/core';
-import { formatQuantity, type RegulatorResponse, type SearchItem } from '@shuntwise/contracts';
+import { formatPercent, formatQuantity, type RegulatorResponse, type SearchItem } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { Quantity } from '@/components/quantity';
 import { describeRange, simpleFinding } from '../utils/circuit';
-import { formatPercent } from '../utils/format';
 import { formatLineRegulation, VerdictBadge } from './circuit-result';
 
 export interface ComparedPart {

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Anchor, Button, Collapse, Group, NumberInput, SegmentedControl, Select, SimpleGrid, Stack, Switch, Text, Title } from '@mantine/core';
 import { useForm } from '@mantine/form';
 import { IconChevronDown, IconChevronRight, IconPlugConnected } from '@tabler/icons-react';
+import { formatPercent } from '@shuntwise/contracts';
 import { QuantityInput } from '@/components/quantity-input';
 import { EMPTY_CIRCUIT, RESISTOR_TOLERANCES, supplyAround, toCircuit, validateCircuit, type CircuitRequest, type CircuitValues } from '../utils/circuit';
 
@@ -68,7 +69,7 @@ export function CircuitForm({ initialValues = EMPTY_CIRCUIT, onSubmit, busy, par
             From the nominal:
           </Text>
           {[0.05, 0.1, 0.2].map((f) => (
-            <Button key={f} size="compact-xs" variant="default" onClick={() => applyTolerance(f)} aria-label={`Supply ±${f * 100} % around the nominal`}>
+            <Button key={f} size="compact-xs" variant="default" onClick={() => applyTolerance(f)} aria-label={`Supply ±${formatPercent(f)} around the nominal`}>
               ±{f * 100} %
             </Button>
           ))}

@@ -1,12 +1,11 @@
 import { useState } from 'react';
 import { Alert, Anchor, Badge, Collapse, Group, Paper, Progress, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import { IconAlertTriangle, IconCircleCheck, IconCircleX, IconHelpCircle } from '@tabler/icons-react';
-import { formatQuantity, type RegulatorResponse, type RegulatorVerdict, type SearchCard } from '@shuntwise/contracts';
+import { formatNumber, formatPercent, formatQuantity, type RegulatorResponse, type RegulatorVerdict, type SearchCard } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
 import { describeRange, simpleFinding, simpleOmissions, VERDICT_TITLE, type CircuitRequest } from '../utils/circuit';
-import { formatPercent } from '../utils/format';
 import { Notes } from './notes';
 
 export const VERDICT_TEXT: Record<RegulatorVerdict, { title: string; color: string }> = {
@@ -30,7 +29,7 @@ export function VerdictBadge({ verdict }: { verdict: RegulatorVerdict }) {
 
 /** Small-signal ΔVout/ΔVs as millivolts per volt. */
 export function formatLineRegulation(x: number | null): string {
-  return x === null ? '–' : `${Number((x * 1000).toPrecision(3))} mV/V`;
+  return x === null ? '–' : `${formatNumber(x * 1000, 3, { trim: true })} mV/V`;
 }
 
 function Figure({ label, children, hint }: { label: string; children: ReactNode; hint?: ReactNode }) {
@@ -234,7 +233,7 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
                     <Table.Tr key={i} c={c.belowKnee || c.overPower ? 'red.7' : undefined}>
                       <Table.Td ta="right"><Quantity value={c.supply} kind="voltage" /></Table.Td>
                       <Table.Td ta="right"><Quantity value={c.load} kind="current" /></Table.Td>
-                      <Table.Td ta="right">{c.ambientC} °C</Table.Td>
+                      <Table.Td ta="right">{formatQuantity(c.ambientC, 'temperature', { trim: true })}</Table.Td>
                       <Table.Td>{c.corner} VZ</Table.Td>
                       <Table.Td ta="right"><Quantity value={c.resistance} kind="resistance" /></Table.Td>
                       <Table.Td ta="right"><Quantity value={c.vOut} kind="voltage" digits={4} /></Table.Td>

@@ -1,13 +1,12 @@
 import { ActionIcon, Alert, Anchor, Button, Center, Checkbox, Group, Loader, Pagination, Paper, Select, Stack, Table, Text, Tooltip, UnstyledButton, VisuallyHidden } from '@mantine/core';
 import { notifications } from '@mantine/notifications';
 import { IconArrowDown, IconArrowUp, IconArrowsSort, IconDownload, IconFileCode, IconFileTypePdf, IconInfoCircle, IconPlugConnected } from '@tabler/icons-react';
-import type { SearchItem, SearchPage } from '@shuntwise/contracts';
+import { formatPercent, formatQuantity, type SearchItem, type SearchPage } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
 import { Quantity } from '@/components/quantity';
 import { describeError, downloadFile } from '@/lib/api-client';
 import { downloadPartModel } from '../api/get-part-model';
-import { formatPercent, formatTempCo } from '../utils/format';
 import { PAGE_SIZES, SORT_CHOICES } from '../utils/search-state';
 import { ClearanceList } from './clearance-list';
 
@@ -213,7 +212,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                     <VzCell item={item} />
                   </Table.Td>
                   <Table.Td ta="right" fz="sm" style={{ whiteSpace: 'nowrap' }}>
-                    {item.card?.tolerance != null ? `±${formatPercent(item.card.tolerance, 2)}` : '–'}
+                    {item.card?.tolerance != null ? `±${formatPercent(item.card.tolerance, { digits: 2 })}` : '–'}
                   </Table.Td>
                   <Table.Td ta="right" fz="sm">
                     <Quantity value={item.card?.zzt} kind="resistance" />
@@ -222,7 +221,7 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                     <Quantity value={item.card?.pdMax} kind="power" />
                   </Table.Td>
                   <Table.Td ta="right" fz="sm">
-                    <span style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}>{formatTempCo(item.card?.tc)}</span>
+                    <span style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}>{formatQuantity(item.card?.tc, 'tempCoVoltage')}</span>
                   </Table.Td>
                   <Table.Td maw={360}>
                     <ClearanceList item={item} linkHouseParts={linkCatalogue} />

@@ -1,7 +1,7 @@
 import { regulatorRequestSchema } from '@shuntwise/contracts';
 import { describe, expect, it } from 'vitest';
 import { regulatorAnswer, searchItem } from '../testing/fixtures';
-import { describeRange, EMPTY_CIRCUIT, regulatorRequest, simpleFinding, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
+import { describeRange, EMPTY_CIRCUIT, regulatorRequest, simpleFinding, simpleOmissions, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
 
 const filled: CircuitValues = { ...EMPTY_CIRCUIT, supplyMin: 10.8, supplyNom: 12, supplyMax: 13.2, loadMin: 0, loadMax: 0.02 };
 
@@ -52,6 +52,27 @@ describe('the working range as text', () => {
   it('reads min … max, or says why there is none when the power needs more than the knee allows', () => {
     expect(describeRange(regulatorAnswer().range)).toBe('137 Ω … 244 Ω');
     expect(describeRange({ ...regulatorAnswer().range, min: 368, max: 93.3 })).toBe('none: power needs ≥ 368 Ω, the knee ≤ 93.3 Ω');
-    expect(describeRange({ ...regulatorAnswer().range, min: null })).toBe('? … 244 Ω');
+  });
+
+  it('reads as finished text when an end is missing, never a question mark', () => {
+    const upOnly = describeRange({ ...regulatorAnswer().range, min: null });
+    expect(upOnly).toBe('up to 244 Ω; no lower end, as the card gives no power limit');
+    const none = describeRange({ ...regulatorAnswer().range, max: null });
+    expect(none).toMatch(/^none: the lowest supply/);
+    const neither = describeRange({ ...regulatorAnswer().range, min: null, max: null });
+    for (const text of [upOnly, none, neither]) expect(text).not.toContain('?');
+  });
+});
+
+// Typography of the displayed numbers: true minus U+2212 (ISO 80000-1, from memory) and the
+// coefficient in mV/K as datasheets state it (common practice, no source).
+describe('what the simple formula leaves out, in the shared formatter’s words', () => {
+  it('writes negative ambients with a true minus, tc in mV/K and percentages alike', () => {
+    const card = { ...searchItem(1, 'BRZ05-5V1').card!, tolerance: 0.05, tcVoltsPerKelvin: -0.0006 };
+    const text = simpleOmissions(toCircuit(filled)!, card).join('\n');
+    expect(text).toContain('(−0.60 mV/K) over −20 °C … 70 °C');
+    expect(text).toContain('tolerance of ±5 % on VZ');
+    expect(text).toContain('(±5 %)');
+    expect(text).not.toMatch(/\d-|-\d/);
   });
 });

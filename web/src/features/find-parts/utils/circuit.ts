@@ -1,4 +1,5 @@
 import {
+  formatPercent,
   formatQuantity,
   issueMessage,
   regulatorRequestSchema,
@@ -10,7 +11,6 @@ import {
   type ResistorSeries,
   type SearchCard,
 } from '@shuntwise/contracts';
-import { formatTempCo } from './format';
 
 /** What the circuit check's verdict reads as, on screen and in the CSV. */
 export const VERDICT_TITLE: Record<RegulatorVerdict, string> = {
@@ -182,15 +182,17 @@ export function simpleFinding(result: RegulatorResponse): SimpleFinding {
   return { verdict: 'inside', message: `${ohms(r)} happens to lie inside the working range ${ohms(min)} … ${ohms(max)} here; the formula alone could not tell.` };
 }
 
+const celsius = (c: number) => formatQuantity(c, 'temperature', { trim: true });
+
 /** What the simple formula leaves out, for this circuit and part. */
 export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): string[] {
   const out = [
     `the supply range: it uses ${formatQuantity(circuit.supply.nom ?? (circuit.supply.min + circuit.supply.max) / 2, 'voltage')} only, not ${formatQuantity(circuit.supply.min, 'voltage')} … ${formatQuantity(circuit.supply.max, 'voltage')}`,
     `the smallest load (${formatQuantity(circuit.load.min, 'current')}), where all the current flows through the diode`,
   ];
-  if (card.tolerance !== null) out.push(`the diode's tolerance of ±${(card.tolerance * 100).toPrecision(2)} % on VZ`);
-  if (card.tc !== null) out.push(`the drift of VZ with temperature (${formatTempCo(card.tc)}) over ${circuit.ambient.min} … ${circuit.ambient.max} °C and self-heating`);
-  out.push(`the resistor's own tolerance (±${Number((circuit.resistor.tolerance * 100).toPrecision(3))} %) and its standard values`);
+  if (card.tolerance !== null) out.push(`the diode's tolerance of ±${formatPercent(card.tolerance, { digits: 2 })} on VZ`);
+  if (card.tc !== null) out.push(`the drift of VZ with temperature (${formatQuantity(card.tc, 'tempCoVoltage')}) over ${celsius(circuit.ambient.min)} … ${celsius(circuit.ambient.max)} and self-heating`);
+  out.push(`the resistor's own tolerance (±${formatPercent(circuit.resistor.tolerance)}) and its standard values`);
   out.push(`the knee: the diode needs a minimum current to regulate`);
   out.push(`the diode's power rating, derated at the highest ambient`);
   return out;
@@ -200,6 +202,10 @@ export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): stri
 export function describeRange(range: RegulatorResponse['range']): string {
   const ohms = (x: number) => formatQuantity(x, 'resistance');
   const { min, max } = range;
-  if (min !== null && max !== null && min > max) return `none: power needs ≥ ${ohms(min)}, the knee ≤ ${ohms(max)}`;
-  return `${min !== null ? ohms(min) : '?'} … ${max !== null ? ohms(max) : '?'}`;
+  // No largest value: the lowest supply does not lift the diode above its knee (regulator.ts, step 2).
+  if (max === null) return "none: the lowest supply does not reach the diode's voltage at the knee current";
+  if (min !== null && min > max) return `none: power needs ≥ ${ohms(min)}, the knee ≤ ${ohms(max)}`;
+  // No smallest value: the card gives no power limit at some ambient (regulator.ts, step 3).
+  if (min === null) return `up to ${ohms(max)}; no lower end, as the card gives no power limit`;
+  return `${ohms(min)} … ${ohms(max)}`;
 }

@@ -1,4 +1,4 @@
-import { CLEARANCE_STANDING_LABELS, roundToDigits, type RegulatorResponse, type SearchItem } from '@shuntwise/contracts';
+import { CARD_FIELD_WORDS, CLEARANCE_STANDING_LABELS, roundToDigits, type RegulatorResponse, type SearchItem } from '@shuntwise/contracts';
 import { toCsv, type CsvCell } from '@/lib/csv';
 import { VERDICT_TITLE } from './circuit';
 
@@ -7,14 +7,14 @@ export const RESULT_COLUMNS = [
   'Part number',
   'Manufacturer',
   'Package',
-  'Zener voltage min (V)',
-  'Zener voltage nominal (V)',
-  'Zener voltage max (V)',
-  'Test current (A)',
+  `${CARD_FIELD_WORDS.vzMin} (V)`,
+  `${CARD_FIELD_WORDS.vzNom} (V)`,
+  `${CARD_FIELD_WORDS.vzMax} (V)`,
+  `${CARD_FIELD_WORDS.izt} (A)`,
   'Tolerance (%)',
-  'Dynamic impedance at test current (Ω)',
-  'Power rating (W)',
-  'Temperature coefficient (V/K)',
+  `${CARD_FIELD_WORDS.zzt} (Ω)`,
+  `${CARD_FIELD_WORDS.pdMax} (W)`,
+  `${CARD_FIELD_WORDS.tc} (V/K)`,
   'May be designed in for',
 ] as const;
 

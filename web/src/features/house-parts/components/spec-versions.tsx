@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { Alert, Anchor, Button, Group, Loader, Modal, Paper, Stack, Table, Text, Title } from '@mantine/core';
-import type { Spec } from '@shuntwise/contracts';
+import { formatPercent, type Spec } from '@shuntwise/contracts';
 import { Quantity } from '@/components/quantity';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
@@ -76,7 +76,7 @@ export function SpecView({ spec }: { spec: Spec }) {
         <Row label="Power">
           {spec.power ? (
             <>
-              ≥ <Quantity value={spec.power.pdMin} kind="power" />, at most {Number((spec.power.deratingFraction * 100).toPrecision(4))} % of the derated rating
+              ≥ <Quantity value={spec.power.pdMin} kind="power" />, at most {formatPercent(spec.power.deratingFraction, { digits: 4 })} of the derated rating
             </>
           ) : (
             dash

@@ -1,6 +1,6 @@
 import { Alert, Group, List, Paper, Stack, Text, Title } from '@mantine/core';
 import { IconAlertTriangle } from '@tabler/icons-react';
-import type { Evaluation, Mechanism } from '@shuntwise/contracts';
+import { formatNumber, type Evaluation, type Mechanism } from '@shuntwise/contracts';
 import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
 import { VerdictBadge } from '@/components/verdict-badge';
@@ -72,7 +72,7 @@ export function EvaluationPanel({ evaluation, current }: { evaluation: Evaluatio
               </Text>
               <Text fz="sm">
                 BV <Quantity value={evaluation.model.bv} kind="voltage" /> at <Quantity value={evaluation.model.ibv} kind="current" />, NBV{' '}
-                {evaluation.model.nbv.toPrecision(3)}, RS <Quantity value={evaluation.model.rs} kind="resistance" /> ({evaluation.model.basis})
+                {formatNumber(evaluation.model.nbv)}, RS <Quantity value={evaluation.model.rs} kind="resistance" /> ({evaluation.model.basis})
               </Text>
             </Stack>
           )}

@@ -5,6 +5,7 @@ import {
   WAIVER_STATE_LABELS,
   WAIVABLE_VERDICTS,
   createWaiverRequestSchema,
+  formatNumber,
   formatQuantity,
   isOpenState,
   parseQuantity,
@@ -19,7 +20,7 @@ import type { Viewer } from '../utils/sign-off-rules';
 /** A check's value in its unit, as the evaluation shows it; a ratio plain. */
 export function formatWaiverLimit(value: number | null, quantity: CheckQuantity): string {
   if (value === null) return 'as stated';
-  if (quantity === 'ratio') return String(Number(value.toPrecision(4)));
+  if (quantity === 'ratio') return formatNumber(value, 4, { trim: true });
   if (quantity === 'text') return String(value);
   return formatQuantity(value, quantity);
 }

@@ -79,6 +79,31 @@ describe('Sources screen', () => {
     expect(screen.getByText('Not qualified')).toBeInTheDocument();
   });
 
+  it('shows an approved source since when and by whom, and the Conditions text only for a clearance with conditions', async () => {
+    signInAs('buyer');
+    const approved = {
+      ...VIEW.items[0].sources[1],
+      vendorPart: { id: 12, manufacturer: 'Brackenford Semiconductor', mpn: 'BRZ05-4V7B', package: 'SOD-123' },
+      role: 'approved' as const,
+      standing: 'approved' as const,
+      caseId: 8,
+      revision: 1,
+      // the API sends no conditions for an approval (standingConditions in contracts)
+      conditions: null,
+      since: '2026-10-14T09:00:00.000Z',
+      decidedBy: { id: 5, name: 'Ines Varga' },
+      needsRecheck: false,
+    };
+    api({ 'GET /api/qualifications/sources': { body: { items: [{ ...VIEW.items[0], sources: [approved, VIEW.items[0].sources[1]] }] } } });
+    renderApp('/sources');
+    const tr = (await screen.findByText('BRZ05-4V7B')).closest('tr')!;
+    expect(tr).toHaveTextContent('Approved');
+    expect(tr).toHaveTextContent('14 Oct 2026');
+    expect(tr).toHaveTextContent('Ines Varga');
+    expect(within(tr).queryByText(/Incoming inspection/)).toBeNull();
+    expect(screen.getByRole('columnheader', { name: 'Conditions or reason' })).toBeInTheDocument();
+  });
+
   it('exports the view as CSV with the session token and the same filter', async () => {
     signInAs('buyer');
     const calls = api({ 'GET /api/qualifications/sources.csv': { body: 'house_part,mpn\n' } });

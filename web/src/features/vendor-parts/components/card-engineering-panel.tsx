@@ -1,6 +1,6 @@
 import { ActionIcon, Alert, Badge, Code, CopyButton, Group, List, Loader, Paper, Select, Stack, Table, Text, Title, Tooltip } from '@mantine/core';
 import { IconCheck, IconCopy } from '@tabler/icons-react';
-import type { Mechanism, ModelBasis, NormalizeResponse } from '@shuntwise/contracts';
+import { formatNumber, type Mechanism, type ModelBasis, type NormalizeResponse } from '@shuntwise/contracts';
 import { DesignCaution } from '@/components/design-caution';
 import { Quantity } from '@/components/quantity';
 import { describeError } from '@/lib/api-client';
@@ -129,7 +129,7 @@ export function CardEngineeringPanel({ result, waitingFor, loading, error, basis
                 </Table.Tr>
                 <Table.Tr>
                   <Table.Th>NBV</Table.Th>
-                  <Table.Td style={{ fontVariantNumeric: 'tabular-nums' }}>{result.model.nbv.toPrecision(3)}</Table.Td>
+                  <Table.Td style={{ fontVariantNumeric: 'tabular-nums' }}>{formatNumber(result.model.nbv)}</Table.Td>
                   <Table.Th>RS</Table.Th>
                   <Table.Td>
                     <Quantity value={result.model.rs} kind="resistance" />

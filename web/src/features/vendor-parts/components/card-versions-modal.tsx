@@ -1,13 +1,24 @@
 import { useState } from 'react';
 import { Alert, Anchor, Badge, Center, Group, Loader, Modal, Stack, Table, Text } from '@mantine/core';
-import { CARD_FIELDS } from '@shuntwise/contracts';
-import { CARD_FIELD_META, formatCardValue } from '@/lib/card-fields';
+import { CARD_FIELDS, type CardField, type CardFieldChange } from '@shuntwise/contracts';
+import { CARD_FIELD_META, formatCardValue, sameNumber } from '@/lib/card-fields';
 import { describeError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
 import { useRatingCardVersion, useRatingCardVersions } from '../api/get-rating-card';
 import { SOURCE_COLOR, SOURCE_LABEL } from './card-field-row';
 
-/** Every saved version of a card, each readable as it was. */
+/** "VZ nom 5.100 V → 5.120 V"; "added", "removed", or "source or confirmation" when only the provenance changed. */
+export function describeChange(change: CardFieldChange): string {
+  const meta = CARD_FIELD_META[change.field as CardField];
+  if (!meta) return change.field;
+  const text = (side: CardFieldChange['from']) => (side ? formatCardValue(meta.field, side.value, side.unit, 4) : '–');
+  if (change.from && change.to && sameNumber(change.from.value, change.to.value) && change.from.unit === change.to.unit) {
+    return `${meta.symbol} ${text(change.to)}: source or confirmation`;
+  }
+  return `${meta.symbol} ${text(change.from)} → ${text(change.to)}`;
+}
+
+/** Every saved version of a card, each readable as it was, with what each changed (old → new). */
 export function CardVersionsModal({ vendorPartId, opened, onClose }: { vendorPartId: number; opened: boolean; onClose: () => void }) {
   const versions = useRatingCardVersions(vendorPartId);
   const [shown, setShown] = useState<number | null>(null);
@@ -49,7 +60,17 @@ export function CardVersionsModal({ vendorPartId, opened, onClose }: { vendorPar
                     {v.changedBy?.name ?? '–'}, {formatDateTime(v.createdAt)}
                   </Table.Td>
                   <Table.Td>
-                    <Text fz="xs">{v.changedFields.map((f) => CARD_FIELD_META[f as keyof typeof CARD_FIELD_META]?.symbol ?? f).join(', ')}</Text>
+                    {v.version === 1 || v.changes.every((c) => c.from === null) ? (
+                      <Text fz="xs">first version: {v.changes.map((c) => CARD_FIELD_META[c.field as CardField]?.symbol ?? c.field).join(', ')}</Text>
+                    ) : (
+                      <Stack gap={0}>
+                        {v.changes.map((c) => (
+                          <Text key={c.field} fz="xs" style={{ fontVariantNumeric: 'tabular-nums' }}>
+                            {describeChange(c)}
+                          </Text>
+                        ))}
+                      </Stack>
+                    )}
                   </Table.Td>
                   <Table.Td>{v.note ?? ''}</Table.Td>
                 </Table.Tr>

@@ -1,6 +1,6 @@
 import { Badge, Button, Group, Select, Table, Text, TextInput, Title } from '@mantine/core';
 import { IconDeviceFloppy, IconHistory, IconListCheck } from '@tabler/icons-react';
-import type { CardField, ExtractedVariant, NormalizeResponse, RatingCardView, TempCoUnit } from '@shuntwise/contracts';
+import { formatNumber, type CardField, type ExtractedVariant, type NormalizeResponse, type RatingCardView, type TempCoUnit } from '@shuntwise/contracts';
 import { Quantity } from '@/components/quantity';
 import { CARD_FIELD_GROUPS } from '@/lib/card-fields';
 import { formatDateTime } from '@/lib/format-date';
@@ -66,7 +66,7 @@ export function CardLiveSummary({ result, dimmed }: { result: NormalizeResponse;
       <Text fz="xs">
         RS <Quantity value={result.model.rs} kind="resistance" />
       </Text>
-      <Text fz="xs">NBV {result.model.nbv.toPrecision(3)}</Text>
+      <Text fz="xs">NBV {formatNumber(result.model.nbv)}</Text>
       <Text fz="xs">{MECHANISM_LABEL[result.mechanism]}</Text>
       {result.warnings.length > 0 && (
         <Badge size="xs" color="yellow">
