@@ -10,7 +10,7 @@
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import autocannon from 'autocannon';
 import { freePort } from '../src/dev/free-port';
 import { ensureLargeData, root } from './large-data';
@@ -40,7 +40,9 @@ async function main(): Promise<void> {
   const dir = await ensureLargeData(PARTS);
   const port = await freePort();
   const env = { ...process.env, DATA_DIR: dir, PORT: String(port), DB_PORT: String(await freePort()), S3_FAKE_PORT: String(await freePort()), SMTP_PORT: String(await freePort()), SEED: 'users', LOGIN_RATE_LIMIT: '1000' };
-  const api = spawn(process.execPath, [start], { env, stdio: 'ignore' });
+  // CPU_PROF=<dir>: the API runs under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling").
+  const nodeArgs = process.env.CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${resolve(process.env.CPU_PROF)}`] : [];
+  const api = spawn(process.execPath, [...nodeArgs, start], { env, stdio: 'ignore' });
   const base = `http://127.0.0.1:${port}`;
   try {
     for (let i = 0; ; i++) {

@@ -78,13 +78,14 @@ const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revisi
  * source list and approved or cleared by the latest decision (sourceStanding in contracts).
  */
 function usablePairs(housePartId: boolean): string {
-  const hp = housePartId ? ' AND qualifications.house_part_id = ?' : '';
+  // The usable cases no later decided revision overrode: both sides are read from the index
+  // (house_part_id, vendor_part_id, revision, state) without touching the cases' rows.
+  const hp = housePartId ? ' AND q.house_part_id = ?' : '';
   return `SELECT q.vendor_part_id, q.house_part_id FROM qualifications q
-    JOIN (SELECT house_part_id, vendor_part_id, MAX(revision) AS revision FROM qualifications WHERE state IN ${DECIDED}${hp}
-          GROUP BY house_part_id, vendor_part_id) m
-      ON m.house_part_id = q.house_part_id AND m.vendor_part_id = q.vendor_part_id AND m.revision = q.revision
     JOIN house_part_sources s ON s.house_part_id = q.house_part_id AND s.vendor_part_id = q.vendor_part_id
-    WHERE q.state IN ${USABLE}`;
+    WHERE q.state IN ${USABLE}${hp} AND NOT EXISTS (
+      SELECT 1 FROM qualifications n
+      WHERE n.house_part_id = q.house_part_id AND n.vendor_part_id = q.vendor_part_id AND n.revision > q.revision AND n.state IN ${DECIDED})`;
 }
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
