@@ -7,8 +7,8 @@
  *     node:http JSON answer.
  * The API is the built one (api/dist) in its own process with a throw-away MariaDB; the
  * floors run in a second process (bench/bare-server.ts). With CPU_PROF=<dir> the API runs
- * under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling
- * the request path"). Figures only; never a timed test.
+ * under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling").
+ * Figures only; never a timed test.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
