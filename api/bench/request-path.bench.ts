@@ -7,11 +7,11 @@
  *     node:http JSON answer.
  * The API is the built one (api/dist) in its own process with a throw-away MariaDB; the
  * floors run in a second process (bench/bare-server.ts). With CPU_PROF=<dir> the API runs
- * under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling
- * the request path"). Figures only; never a timed test.
+ * under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling").
+ * Figures only; never a timed test.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import autocannon from 'autocannon';
@@ -30,11 +30,33 @@ async function waitFor(url: string, child: ChildProcess, what: string): Promise<
   }
 }
 
-async function load(url: string, headers: Record<string, string> = {}): Promise<{ rps: number; p50: number; p99: number; bad: number }> {
+/** CPU time (user + system, ms) a process and its children have used so far, from /proc (10 ms ticks). */
+function cpuMsOf(pid: number): number {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    const children = readdirSync(`/proc/${pid}/task`).flatMap((t) => readFileSync(`/proc/${pid}/task/${t}/children`, 'utf8').split(' ').filter(Boolean).map(Number));
+    return (Number(fields[11]) + Number(fields[12])) * 10 + children.reduce((sum, child) => sum + cpuMsOf(child), 0);
+  } catch {
+    return 0;
+  }
+}
+
+interface Load {
+  rps: number;
+  p50: number;
+  p99: number;
+  bad: number;
+  /** CPU ms per request of the answering server and of MariaDB: unlike wall time, not skewed by other work on the machine. */
+  cpu?: { server: number; db: number };
+}
+
+async function load(url: string, headers: Record<string, string> = {}, pids?: { server: number; db: number }): Promise<Load> {
   // A short warm-up first, so the JIT and the pools are in their steady state.
   await autocannon({ url, connections: CONNECTIONS, duration: 2, headers });
+  const before = pids && { server: cpuMsOf(pids.server), db: cpuMsOf(pids.db) };
   const r = await autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers });
-  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts };
+  const cpu = pids && before && { server: (cpuMsOf(pids.server) - before.server) / r.requests.total, db: (cpuMsOf(pids.db) - before.db) / r.requests.total };
+  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, cpu };
 }
 
 async function main(): Promise<void> {
@@ -96,26 +118,33 @@ async function main(): Promise<void> {
     const liveUrl = (await fetch(`${base}/api/health/live`).then((r) => r.status)) === 200 ? '/api/health/live' : '/api/health';
     // ONLY=card,me (names below) runs a subset, e.g. to profile one route under CPU_PROF.
     const only = process.env.ONLY?.split(',');
-    const skipped = { rps: NaN, p50: NaN, p99: NaN, bad: 0 };
-    const run = (name: string, url: string, headers?: Record<string, string>) => (!only || only.includes(name) ? load(url, headers) : Promise.resolve(skipped));
-    const bareJson = await run('json', `${bareBase}/json`);
-    const live = await run('live', `${base}${liveUrl}`);
-    const bareCard = await run('bare-card', `${bareBase}/card/${part.id}`);
-    const card = await run('card', `${base}/api/vendor-parts/${part.id}/rating-card`, auth);
-    const me = await run('me', `${base}/api/auth/me`, auth);
+    const skipped: Load = { rps: NaN, p50: NaN, p99: NaN, bad: 0 };
+    const db = Number(readFileSync(join(dataDir, 'db', 'mariadb.pid'), 'utf8').trim());
+    const apiPids = { server: api.pid!, db };
+    const barePids = { server: bare.pid!, db };
+    const run = (name: string, url: string, headers: Record<string, string>, pids: { server: number; db: number }) =>
+      !only || only.includes(name) ? load(url, headers, pids) : Promise.resolve(skipped);
+    const bareJson = await run('json', `${bareBase}/json`, {}, barePids);
+    const live = await run('live', `${base}${liveUrl}`, {}, apiPids);
+    const bareCard = await run('bare-card', `${bareBase}/card/${part.id}`, {}, barePids);
+    const card = await run('card', `${base}/api/vendor-parts/${part.id}/rating-card`, auth, apiPids);
+    const me = await run('me', `${base}/api/auth/me`, auth, apiPids);
 
-    const row = (name: string, r: { rps: number; p50: number; p99: number; bad: number }, ratio?: { of: number; goal: number }) =>
+    const row = (name: string, r: Load, ratio?: { of: Load; goal: number }) =>
       console.log(
         `${name.padEnd(50)} ${r.rps.toFixed(0).padStart(7)} req/s   p50 ${String(r.p50).padStart(3)} ms   p99 ${String(r.p99).padStart(3)} ms` +
+          (r.cpu ? `   CPU/req ${r.cpu.server.toFixed(3)} ms + MariaDB ${r.cpu.db.toFixed(3)} ms` : '') +
           (r.bad ? `   (${r.bad} failed)` : '') +
-          (ratio ? `   ${(r.rps / ratio.of).toFixed(3)} of floor (goal ≥ ${ratio.goal})` : ''),
+          (ratio ? `   ${(r.rps / ratio.of.rps).toFixed(3)} of floor (goal ≥ ${ratio.goal})` : '') +
+          (ratio?.of.cpu && r.cpu ? `; by CPU ${((ratio.of.cpu.server + ratio.of.cpu.db) / (r.cpu.server + r.cpu.db)).toFixed(3)}` : ''),
       );
     console.log(`autocannon, ${CONNECTIONS} connections, ${SECONDS} s each, loopback, one run:`);
     row('bare node:http JSON (floor)', bareJson);
-    row(`API ${liveUrl}`, live, { of: bareJson.rps, goal: 0.8 });
+    row(`API ${liveUrl}`, live, { of: bareJson, goal: 0.8 });
     row('bare node:http + mariadb PK read of the card (floor)', bareCard);
-    row('API GET /vendor-parts/:id/rating-card', card, { of: bareCard.rps, goal: 0.33 });
-    row('API GET /auth/me', me, { of: bareCard.rps, goal: 0.5 });
+    row('API GET /vendor-parts/:id/rating-card', card, { of: bareCard, goal: 0.33 });
+    row('API GET /auth/me', me, { of: bareCard, goal: 0.5 });
+    console.log('"by CPU": the floor\'s CPU per request (server + MariaDB) over the route\'s, the throughput ratio on an otherwise idle machine.');
   } finally {
     if (bare) {
       bare.kill('SIGTERM');

@@ -29,6 +29,9 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
   // so a client cannot pick its own address to dodge the per-address limits.
   app.set('trust proxy', env.TRUST_PROXY);
   app.disable('x-powered-by');
+  // No ETag on API answers: Express hashed every JSON body (SHA-1) for it, and no client of the
+  // API sends If-None-Match. The web app's static files keep theirs (serve-static's own).
+  app.set('etag', false);
   app.use(securityHeaders(env));
   app.useBodyParser('json', { limit: '2mb' });
   app.use(correlationIdMiddleware);

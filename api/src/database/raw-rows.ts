@@ -16,7 +16,7 @@ interface PooledConnections {
  * Hot single-statement reads straight through the mariadb driver on a connection borrowed
  * from Sequelize's pool: no model instances, no query building, no result reshaping. A CPU
  * profile of the request path under load put most of the API's own time in Sequelize's
- * query path (see DEVELOPERS.md, "Profiling the request path"). For reads only, outside
+ * query path (see DEVELOPERS.md, "Profiling"). For reads only, outside
  * transactions; every write stays with the repositories' Sequelize calls.
  */
 @Injectable()

@@ -15,6 +15,15 @@ export interface SqlPart {
  * as a vendor's "ZX0"): the scored match skips it rather than read its whole posting list.
  */
 export const COMMON_PIECE = 5000;
+/**
+ * Nor does a piece held by more than this share of a kind's records (the "hp0" of every house
+ * part number "HP-0…", the "inv" of every description): matching it says nothing, and
+ * counting it for every record costs a read of most of the kind's postings per search.
+ * Kinds with few records keep every piece (COMMON_FLOOR).
+ */
+export const COMMON_SHARE = 0.25;
+const COMMON_FLOOR = 200;
+const KIND_TABLES: Record<TextKind, string> = { vendorPart: 'vendor_parts', housePart: 'house_parts', manufacturer: 'manufacturers' };
 /** How long a piece's (capped) record count is reused: it only decides which pieces narrow, never what matches. */
 const FREQUENCY_TTL_MS = 60_000;
 const FREQUENCY_CACHE_LIMIT = 20_000;
@@ -36,6 +45,7 @@ const list = (n: number) => Array.from({ length: n }, () => '?').join(', ');
 @Injectable()
 export class TextIndexRepository {
   private readonly frequencies = new Map<string, { n: number; at: number }>();
+  private readonly kindSizes = new Map<TextKind, { n: number; at: number }>();
 
   constructor(@InjectConnection() private readonly sequelize: Sequelize) {}
 
@@ -119,8 +129,8 @@ export class TextIndexRepository {
     const branches: string[] = [];
     const params: unknown[] = [];
     for (const kind of ['vendorPart', 'housePart', 'manufacturer'] as const) {
-      const counts = await this.pieceCounts(kind, pieces);
-      const usable = pieces.filter((p) => (counts.get(p) ?? 0) <= COMMON_PIECE);
+      const [counts, common] = await Promise.all([this.pieceCounts(kind, pieces), this.commonAbove(kind)]);
+      const usable = pieces.filter((p) => (counts.get(p) ?? 0) <= common);
       if (usable.length === 0) continue;
       // A third of the pieces: a typo costs up to three, two swapped letters four of a short part number's five.
       const required = Math.max(1, Math.ceil(usable.length / 3));
@@ -140,6 +150,22 @@ export class TextIndexRepository {
     }
     if (branches.length === 0) return null;
     return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id`, params };
+  }
+
+  /**
+   * Above how many records a piece of this kind is too common to narrow by: COMMON_PIECE, or
+   * COMMON_SHARE of the kind's records when that is fewer (never under COMMON_FLOOR). The
+   * record count is reused for a minute, like the piece counts: it only chooses pieces.
+   */
+  private async commonAbove(kind: TextKind): Promise<number> {
+    const now = Date.now();
+    let size = this.kindSizes.get(kind);
+    if (!size || now - size.at >= FREQUENCY_TTL_MS) {
+      const [row] = await this.sequelize.query<{ n: number | bigint }>(`SELECT COUNT(*) AS n FROM ${KIND_TABLES[kind]}`, { type: QueryTypes.SELECT });
+      size = { n: Number(row.n), at: now };
+      this.kindSizes.set(kind, size);
+    }
+    return Math.min(COMMON_PIECE, Math.max(COMMON_FLOOR, Math.floor(size.n * COMMON_SHARE)));
   }
 
   /** How many records of a kind hold each piece, capped just above COMMON_PIECE; reused for a minute. */

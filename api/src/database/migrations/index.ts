@@ -14,6 +14,7 @@ import { decisionRecords } from './2026-12-04-0800-decision-records';
 import { demoSeedSteps } from './2026-12-04-0300-demo-seed-steps';
 import { mailClaims } from './2026-12-04-0301-mail-claims';
 import { waivers } from './2026-12-04-0900-waivers';
+import { qualificationPairState } from './2026-12-04-1000-qualification-pair-state';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -35,4 +36,5 @@ export const MIGRATIONS: Migration[] = [
   demoSeedSteps,
   mailClaims,
   waivers,
+  qualificationPairState,
 ];
