@@ -71,6 +71,20 @@ async function tabTo(page: Page, name: RegExp, { back = false, max = 80 } = {}):
   throw new Error(`focus never reached ${name} in ${max} ${back ? 'Shift+Tab' : 'Tab'} presses`);
 }
 
+/** Waits until an opening dialog is fully drawn (its fade-in over): axe measures contrast on what it sees. */
+async function settled(page: Page): Promise<void> {
+  const dialog = page.getByRole('dialog');
+  await expect
+    .poll(() =>
+      dialog.evaluate((el) => {
+        let opacity = 1;
+        for (let node: Element | null = el; node; node = node.parentElement) opacity *= Number(getComputedStyle(node).opacity);
+        return opacity;
+      }),
+    )
+    .toBe(1);
+}
+
 async function axeClean(page: Page): Promise<void> {
   expect(await seriousAxeViolations(page)).toEqual([]);
 }
@@ -131,6 +145,7 @@ describe('sign-off by keyboard alone: engineer A sends the case for review, engi
     await dialog.waitFor();
     // Focus moved into the dialog.
     await expect.poll(async () => (await focused(page)).inDialog).toBe(true);
+    await settled(page);
     await axeClean(page);
     if (!/Note for the reviewer/.test((await focused(page)).name)) await tabTo(page, /Note for the reviewer/);
     await page.keyboard.type('Every check passes; please review.');
@@ -141,8 +156,8 @@ describe('sign-off by keyboard alone: engineer A sends the case for review, engi
     await expect.poll(() => signOffState(page).getAttribute('data-state')).toBe('in-review');
     await dialog.waitFor({ state: 'hidden' });
     // Focus came back to the page, not lost on the body.
+    await expect.poll(async () => (await focused(page)).tag).not.toBe('body');
     const after = await focused(page);
-    expect(after.tag).not.toBe('body');
     expect(after.inDialog).toBe(false);
     await screenshot(page, 'keyboard-sign-off-3-in-review');
     await axeClean(page);
@@ -176,6 +191,7 @@ describe('sign-off by keyboard alone: engineer A sends the case for review, engi
     await expect.poll(async () => (await focused(page)).inDialog).toBe(true);
     if (!/^Note/.test((await focused(page)).name)) await tabTo(page, /^Note/);
     await page.keyboard.type('Equivalent on every check; cleared by keyboard.');
+    await settled(page);
     await axeClean(page);
     await screenshot(page, 'keyboard-sign-off-4-clear-dialog');
     await tabTo(page, /^Clear$/);
@@ -183,8 +199,7 @@ describe('sign-off by keyboard alone: engineer A sends the case for review, engi
     await page.keyboard.press('Enter');
     await expect.poll(() => signOffState(page).getAttribute('data-state')).toBe('cleared');
     await dialog.waitFor({ state: 'hidden' });
-    const after = await focused(page);
-    expect(after.tag).not.toBe('body');
+    await expect.poll(async () => (await focused(page)).tag).not.toBe('body');
     await screenshot(page, 'keyboard-sign-off-5-cleared');
     await axeClean(page);
     expect(errors).toEqual([]);

@@ -37,7 +37,12 @@ export function MeasuredChart({ set }: { set: MeasurementSet }) {
   );
   const currents = [...samples.flatMap((s) => s.points.map((p) => p.current)), ...band.map((b) => b.current)];
   const voltages = [...samples.flatMap((s) => s.points.map((p) => p.voltage)), ...band.flatMap((b) => b.range)];
-  if (currents.length === 0) return <Text fz="sm" c="dimmed">No points at 25 °C to draw.</Text>;
+  if (currents.length === 0)
+    return (
+      <Text fz="sm" c="dimmed">
+        No points at 25 °C to draw.
+      </Text>
+    );
   const iLow = Math.min(...currents);
   const iHigh = Math.max(...currents);
   const axis = niceTicks(Math.min(...voltages), Math.max(...voltages), 6);
@@ -50,29 +55,36 @@ export function MeasuredChart({ set }: { set: MeasurementSet }) {
           shaded: datasheet band (tolerance ends) · dashed: nominal part · dots: measured at 25 °C
         </Text>
       </Group>
-      <ResponsiveContainer width="100%" height={280}>
-        <ComposedChart margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
-          <CartesianGrid strokeDasharray="3 3" />
-          <XAxis
-            dataKey="current"
-            type="number"
-            scale="log"
-            domain={[iLow, iHigh]}
-            ticks={logTicks(iLow, iHigh)}
-            tickFormatter={(v: number) => shortQuantity(v, 'current')}
-            allowDuplicatedCategory={false}
-            label={{ value: 'reverse current', position: 'insideBottom', offset: -8, fontSize: 11 }}
-            fontSize={11}
-          />
-          <YAxis type="number" domain={axis.domain} ticks={axis.ticks} tickFormatter={(v: number) => shortQuantity(v, 'voltage')} width={64} fontSize={11} />
-          <Tooltip content={<PointTooltip />} />
-          {band.length > 0 && <Area data={band} dataKey="range" stroke={bandColor} fill={bandColor} fillOpacity={0.25} isAnimationActive={false} name="datasheet band" />}
-          {band.length > 0 && <Line data={band} dataKey="nom" stroke={bandColor} strokeDasharray="6 4" dot={false} isAnimationActive={false} name="nominal" />}
-          {samples.map((s) => (
-            <Scatter key={s.name} name={s.name} data={s.points} dataKey="voltage" fill={s.color} isAnimationActive={false} />
-          ))}
-        </ComposedChart>
-      </ResponsiveContainer>
+      {/* The drawing itself is hidden from assistive technology: the figure's label above names it, and recharts marks each dot as an unnamed image. */}
+      <div aria-hidden="true">
+        <ResponsiveContainer width="100%" height={280}>
+          <ComposedChart margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
+            <CartesianGrid strokeDasharray="3 3" />
+            <XAxis
+              dataKey="current"
+              type="number"
+              scale="log"
+              domain={[iLow, iHigh]}
+              ticks={logTicks(iLow, iHigh)}
+              tickFormatter={(v: number) => shortQuantity(v, 'current')}
+              allowDuplicatedCategory={false}
+              label={{ value: 'reverse current', position: 'insideBottom', offset: -8, fontSize: 11 }}
+              fontSize={11}
+            />
+            <YAxis type="number" domain={axis.domain} ticks={axis.ticks} tickFormatter={(v: number) => shortQuantity(v, 'voltage')} width={64} fontSize={11} />
+            <Tooltip content={<PointTooltip />} />
+            {band.length > 0 && (
+              <Area data={band} dataKey="range" stroke={bandColor} fill={bandColor} fillOpacity={0.25} isAnimationActive={false} name="datasheet band" />
+            )}
+            {band.length > 0 && (
+              <Line data={band} dataKey="nom" stroke={bandColor} strokeDasharray="6 4" dot={false} isAnimationActive={false} name="nominal" />
+            )}
+            {samples.map((s) => (
+              <Scatter key={s.name} name={s.name} data={s.points} dataKey="voltage" fill={s.color} isAnimationActive={false} />
+            ))}
+          </ComposedChart>
+        </ResponsiveContainer>
+      </div>
       <Group gap="sm" wrap="wrap">
         {samples.map((s) => (
           <Group key={s.name} gap={4} wrap="nowrap">

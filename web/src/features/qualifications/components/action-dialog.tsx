@@ -2,12 +2,7 @@ import { useEffect } from 'react';
 import { Button, Group, Modal, Stack, Text, Textarea } from '@mantine/core';
 import { useForm } from '@mantine/form';
 import { notifications } from '@mantine/notifications';
-import {
-  QUALIFICATION_ACTION_REQUEST_SCHEMAS,
-  QUALIFICATION_TRANSITIONS,
-  type Qualification,
-  type QualificationAction,
-} from '@shuntwise/contracts';
+import { QUALIFICATION_ACTION_REQUEST_SCHEMAS, QUALIFICATION_TRANSITIONS, type Qualification, type QualificationAction } from '@shuntwise/contracts';
 import { schemaResolver } from '@/lib/form';
 import { useQualificationAction } from '../api/act-on-qualification';
 import { ChangeRefused } from './conflict-notice';
@@ -28,7 +23,8 @@ const source = (q: Qualification) => `${q.vendorPart.manufacturer} ${q.vendorPar
 export const ACTION_FORMS: Record<QualificationAction, ActionForm> = {
   evaluate: {
     field: null,
-    explain: (q) => `Evaluates ${source(q)} again on the spec and card the catalogue holds now (spec v${q.current.specVersion ?? '–'}, card v${q.current.cardVersion ?? '–'}).`,
+    explain: (q) =>
+      `Evaluates ${source(q)} again on the spec and card the catalogue holds now (spec v${q.current.specVersion ?? '–'}, card v${q.current.cardVersion ?? '–'}).`,
   },
   submit: {
     field: 'note',
@@ -133,12 +129,15 @@ export function ActionDialog({
   onClose,
   onReload,
   onDone,
+  onClosed,
 }: {
   q: Qualification;
   action: QualificationAction | null;
   onClose: () => void;
   onReload: () => Promise<unknown>;
   onDone?: (result: Qualification, action: QualificationAction) => void;
+  /** After the dialog has gone (its closing transition ended). */
+  onClosed?: () => void;
 }) {
   const mutation = useQualificationAction();
   const spec = action ? ACTION_FORMS[action] : null;
@@ -186,7 +185,7 @@ export function ActionDialog({
 
   const label = action ? QUALIFICATION_TRANSITIONS[action].label : '';
   return (
-    <Modal opened={action !== null} onClose={onClose} title={`${label} — case #${q.id}`} size="lg" centered>
+    <Modal opened={action !== null} onClose={onClose} onExitTransitionEnd={onClosed} title={`${label} — case #${q.id}`} size="lg" centered>
       {action && spec && (
         <form onSubmit={submit} aria-label={label} noValidate>
           <Stack gap="sm">

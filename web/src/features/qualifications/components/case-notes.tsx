@@ -9,11 +9,7 @@ export function CaseNotes({ q, canEdit, onReload }: { q: Qualification; canEdit:
   const [editing, setEditing] = useState(false);
   const [text, setText] = useState(q.summary);
   const mutation = useUpdateQualification();
-  const save = () =>
-    mutation.mutate(
-      { id: q.id, request: { version: q.version, summary: text.trim() } },
-      { onSuccess: () => setEditing(false) },
-    );
+  const save = () => mutation.mutate({ id: q.id, request: { version: q.version, summary: text.trim() } }, { onSuccess: () => setEditing(false) });
 
   return (
     <Paper component="section" aria-label="Notes">

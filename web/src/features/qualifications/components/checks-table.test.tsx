@@ -56,7 +56,12 @@ describe('checks table', () => {
   });
 
   it('opens a row to its sentence and assumptions, and all rows at once', async () => {
-    const { user } = render(<ChecksTable checks={CHECKS} notApplicable={[{ id: 'knee-span', label: 'Voltage span over the operating currents', reason: 'the spec sets no largest voltage span' }]} />);
+    const { user } = render(
+      <ChecksTable
+        checks={CHECKS}
+        notApplicable={[{ id: 'knee-span', label: 'Voltage span over the operating currents', reason: 'the spec sets no largest voltage span' }]}
+      />,
+    );
     expect(screen.queryByText('the diode may dissipate 50 % of its derated rating')).not.toBeInTheDocument();
     expect(row('power-dissipation')).toHaveAttribute('title', '88.1 mW at 7.90 mA and 85 °C above the allowed 77.9 mW');
     await user.click(screen.getByRole('button', { name: 'Show the assumptions of Worst-case dissipation' }));

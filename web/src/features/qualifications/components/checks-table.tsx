@@ -42,7 +42,15 @@ function CheckDetail({ check }: { check: QualificationCheck }) {
  * sentence the server wrote, its warnings and what it assumed (the detail is also the
  * row's hover text).
  */
-export function ChecksTable({ checks, notApplicable = [], caption }: { checks: readonly QualificationCheck[]; notApplicable?: readonly SkippedCheck[]; caption?: string }) {
+export function ChecksTable({
+  checks,
+  notApplicable = [],
+  caption,
+}: {
+  checks: readonly QualificationCheck[];
+  notApplicable?: readonly SkippedCheck[];
+  caption?: string;
+}) {
   const [open, setOpen] = useState<ReadonlySet<CheckId>>(new Set());
   const allOpen = checks.length > 0 && checks.every((c) => open.has(c.id));
   const toggle = (id: CheckId) =>

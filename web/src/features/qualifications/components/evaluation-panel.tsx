@@ -98,7 +98,9 @@ export function EvaluationPanel({ evaluation, current }: { evaluation: Evaluatio
         <ChecksTable checks={evaluation.checks} notApplicable={evaluation.notApplicable} />
         {evaluation.assumptions.length > 0 && (
           <details>
-            <summary style={{ cursor: 'pointer', fontSize: 'var(--mantine-font-size-sm)' }}>What the whole evaluation assumed ({evaluation.assumptions.length})</summary>
+            <summary style={{ cursor: 'pointer', fontSize: 'var(--mantine-font-size-sm)' }}>
+              What the whole evaluation assumed ({evaluation.assumptions.length})
+            </summary>
             <List size="xs" spacing={2} withPadding mt={4}>
               {evaluation.assumptions.map((a) => (
                 <List.Item key={a}>{a}</List.Item>

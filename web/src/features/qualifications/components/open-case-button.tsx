@@ -15,7 +15,11 @@ export interface OpenCaseTarget {
  * Opens a qualification case for one source of a house part (engineers). The server
  * evaluates it at once against the current spec and card; the new case opens in draft.
  */
-export function OpenCaseButton({ target, label = 'Open a case', ...buttonProps }: { target: OpenCaseTarget; label?: string } & Omit<ButtonProps, 'children' | 'onClick'>) {
+export function OpenCaseButton({
+  target,
+  label = 'Open a case',
+  ...buttonProps
+}: { target: OpenCaseTarget; label?: string } & Omit<ButtonProps, 'children' | 'onClick'>) {
   const [opened, setOpened] = useState(false);
   const [summary, setSummary] = useState('');
   const navigate = useNavigate();
@@ -27,7 +31,11 @@ export function OpenCaseButton({ target, label = 'Open a case', ...buttonProps }
       { housePartId: target.housePart.id, vendorPartId: target.vendorPart.id, summary: summary.trim() || undefined },
       {
         onSuccess: (created) => {
-          notifications.show({ color: 'verdigris', title: `Case #${created.id} opened`, message: `${what} for ${target.housePart.partNumber}: ${created.evaluation.summary}` });
+          notifications.show({
+            color: 'verdigris',
+            title: `Case #${created.id} opened`,
+            message: `${what} for ${target.housePart.partNumber}: ${created.evaluation.summary}`,
+          });
           setOpened(false);
           navigate(`/qualifications/${created.id}`);
         },
@@ -52,10 +60,18 @@ export function OpenCaseButton({ target, label = 'Open a case', ...buttonProps }
       <Modal opened={opened} onClose={() => setOpened(false)} title={`Qualify ${target.vendorPart.mpn} for ${target.housePart.partNumber}`} centered size="lg">
         <Stack gap="sm">
           <Text fz="sm">
-            Opens a case for {what} as a source of {target.housePart.partNumber}. Its rating card is checked now against the house part&apos;s current spec;
-            the case starts as a draft that you can send for review.
+            Opens a case for {what} as a source of {target.housePart.partNumber}. Its rating card is checked now against the house part&apos;s current spec; the
+            case starts as a draft that you can send for review.
           </Text>
-          <Textarea label="Notes" placeholder="optional: why this source, what to look at" autosize minRows={2} maxLength={4000} value={summary} onChange={(e) => setSummary(e.currentTarget.value)} />
+          <Textarea
+            label="Notes"
+            placeholder="optional: why this source, what to look at"
+            autosize
+            minRows={2}
+            maxLength={4000}
+            value={summary}
+            onChange={(e) => setSummary(e.currentTarget.value)}
+          />
           {create.isError && (
             <ChangeRefused
               error={create.error}

@@ -93,7 +93,10 @@ export function QualificationsTable() {
         id: 'decidedBy',
         header: 'Decided by',
         enableSorting: false,
-        Cell: ({ row }) => row.original.revocation?.by.name ?? row.original.decision?.by.name ?? (row.original.reviewer ? <Text fz="sm" c="dimmed">{`asked: ${row.original.reviewer.name}`}</Text> : '–'),
+        Cell: ({ row }) =>
+          row.original.revocation?.by.name ??
+          row.original.decision?.by.name ??
+          (row.original.reviewer ? <Text fz="sm" c="dimmed">{`asked: ${row.original.reviewer.name}`}</Text> : '–'),
       },
       { accessorKey: 'updatedAt', header: 'Changed', Cell: ({ row }) => formatDateTime(row.original.updatedAt) },
     ],
@@ -112,8 +115,19 @@ export function QualificationsTable() {
     getRowId: (q) => String(q.id),
     renderTopToolbarCustomActions: () => (
       <Group gap="sm" align="flex-end" role="search" aria-label="Filter cases">
-        <MultiSelect size="xs" w={300} label="State" placeholder={states.length ? undefined : 'any'} data={STATE_OPTIONS} value={states} onChange={(v) => set({ state: v.join(',') })} clearable />
-        {session?.user.role === 'engineer' && <Checkbox size="xs" label="Mine (prepared or decided)" checked={mine} onChange={(e) => set({ mine: e.currentTarget.checked ? '1' : null })} />}
+        <MultiSelect
+          size="xs"
+          w={300}
+          label="State"
+          placeholder={states.length ? undefined : 'any'}
+          data={STATE_OPTIONS}
+          value={states}
+          onChange={(v) => set({ state: v.join(',') })}
+          clearable
+        />
+        {session?.user.role === 'engineer' && (
+          <Checkbox size="xs" label="Mine (prepared or decided)" checked={mine} onChange={(e) => set({ mine: e.currentTarget.checked ? '1' : null })} />
+        )}
         <Checkbox size="xs" label="Needs re-check" checked={recheck} onChange={(e) => set({ recheck: e.currentTarget.checked ? '1' : null })} />
         <Checkbox size="xs" label="Every revision" checked={all} onChange={(e) => set({ revisions: e.currentTarget.checked ? 'all' : null })} />
       </Group>

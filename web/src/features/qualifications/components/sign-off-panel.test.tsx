@@ -29,7 +29,7 @@ const inReview = (over: Partial<Qualification> = {}) =>
   caseFixture({ state: 'in-review', allowedActions: ['send-back', 'clear', 'clear-with-conditions', 'reject', 'withdraw'], ...over });
 
 describe('sign-off panel', () => {
-  it('offers a second engineer the decisions on a case in review, and no Withdraw: that is the preparer\'s (contracts actionBlock)', async () => {
+  it("offers a second engineer the decisions on a case in review, and no Withdraw: that is the preparer's (contracts actionBlock)", async () => {
     signIn(REVIEWER);
     // Even if a server answer listed withdraw, the reviewer gets no button for it.
     serve(REVIEWER, inReview());
@@ -80,7 +80,14 @@ describe('sign-off panel', () => {
       PREPARER,
       caseFixture({
         state: 'cleared',
-        decision: { state: 'cleared', by: { id: 3, name: 'Tomas Eklund' }, at: '2026-11-21T10:00:00.000Z', specVersion: 1, cardVersion: 1, text: 'Equivalent on every check.' },
+        decision: {
+          state: 'cleared',
+          by: { id: 3, name: 'Tomas Eklund' },
+          at: '2026-11-21T10:00:00.000Z',
+          specVersion: 1,
+          cardVersion: 1,
+          text: 'Equivalent on every check.',
+        },
         allowedActions: ['revoke', 'recheck'],
       }),
     );
@@ -128,7 +135,15 @@ describe('sign-off panel', () => {
       current: { specVersion: 1, cardVersion: 2 },
       allowedActions: ['revoke', 'recheck'],
     });
-    const next = caseFixture({ id: 15, revision: 2, previousId: 7, state: 'draft', cardVersion: 2, current: { specVersion: 1, cardVersion: 2 }, allowedActions: ['evaluate', 'submit', 'withdraw'] });
+    const next = caseFixture({
+      id: 15,
+      revision: 2,
+      previousId: 7,
+      state: 'draft',
+      cardVersion: 2,
+      current: { specVersion: 1, cardVersion: 2 },
+      allowedActions: ['evaluate', 'submit', 'withdraw'],
+    });
     const api = mockApi({
       'GET /api/auth/me': { body: REVIEWER },
       'GET /api/qualifications/:id': (_call, { id }) => ({ body: id === '15' ? next : flagged }),
@@ -171,7 +186,10 @@ describe('sign-off panel', () => {
         gets += 1;
         return { body: gets === 1 ? inReview() : inReview({ state: 'rejected', version: 3, allowedActions: ['recheck'] }) };
       },
-      'POST /api/qualifications/:id/clear': { status: 409, body: errorBody('Case #7 changed after you loaded it (you saw version 2, it is now 3); reload and try again') },
+      'POST /api/qualifications/:id/clear': {
+        status: 409,
+        body: errorBody('Case #7 changed after you loaded it (you saw version 2, it is now 3); reload and try again'),
+      },
     });
     const { user } = renderApp('/qualifications/7');
     await user.click(await screen.findByRole('button', { name: 'Clear' }));

@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { useRef, useState, type ReactNode } from 'react';
 import { Alert, Button, Divider, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { IconInfoCircle } from '@tabler/icons-react';
 import { QUALIFICATION_TRANSITIONS, type Qualification, type QualificationAction } from '@shuntwise/contracts';
@@ -39,6 +39,10 @@ export function SignOffPanel({
   onDone?: (result: Qualification, action: QualificationAction) => void;
 }) {
   const [action, setAction] = useState<QualificationAction | null>(null);
+  // After an action the button that opened the dialog is usually gone (the state changed), so
+  // focus would fall to the page's body: it goes to the panel's heading, which reads the new state.
+  const heading = useRef<HTMLHeadingElement>(null);
+  const acted = useRef(false);
   const actions = offeredActions(q, viewer);
   const notes = signOffNotes(q, viewer);
   const decisionWord = q.decision?.state === 'rejected' ? 'Reason' : q.decision?.state === 'cleared-with-conditions' ? 'Conditions' : 'Note';
@@ -47,7 +51,7 @@ export function SignOffPanel({
     <Paper component="section" aria-label="Sign-off">
       <Stack gap="xs">
         <Group justify="space-between">
-          <Title order={3} fz="h5">
+          <Title order={3} fz="h5" ref={heading} tabIndex={-1}>
             Sign-off
           </Title>
           <QualificationStateBadge state={q.state} size="md" />
@@ -114,7 +118,21 @@ export function SignOffPanel({
           </Alert>
         ))}
       </Stack>
-      <ActionDialog q={q} action={action} onClose={() => setAction(null)} onReload={onReload} onDone={onDone} />
+      <ActionDialog
+        q={q}
+        action={action}
+        onClose={() => setAction(null)}
+        onReload={onReload}
+        onDone={(result, done) => {
+          acted.current = true;
+          onDone?.(result, done);
+        }}
+        onClosed={() => {
+          if (!acted.current) return;
+          acted.current = false;
+          heading.current?.focus();
+        }}
+      />
     </Paper>
   );
 }

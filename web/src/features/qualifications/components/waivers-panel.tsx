@@ -37,7 +37,15 @@ export function readAcceptedLimit(text: string, quantity: CheckQuantity): number
 }
 
 /** The form an engineer fills to waive one failing or marginal check of an open case. */
-export function WaiverForm({ q, onSubmit, busy }: { q: Qualification; onSubmit: (body: ReturnType<typeof createWaiverRequestSchema.parse>) => void; busy?: boolean }) {
+export function WaiverForm({
+  q,
+  onSubmit,
+  busy,
+}: {
+  q: Qualification;
+  onSubmit: (body: ReturnType<typeof createWaiverRequestSchema.parse>) => void;
+  busy?: boolean;
+}) {
   const waivable = q.evaluation.checks.filter((c) => (WAIVABLE_VERDICTS as readonly string[]).includes(c.verdict));
   const [checkId, setCheckId] = useState<string | null>(waivable[0]?.id ?? null);
   const [limit, setLimit] = useState('');
@@ -63,7 +71,13 @@ export function WaiverForm({ q, onSubmit, busy }: { q: Qualification; onSubmit: 
 
   return (
     <Stack gap="xs" component="form" aria-label="Prepare a waiver" onSubmit={(e) => (e.preventDefault(), submit())}>
-      <Select label="Check" data={waivable.map((c) => ({ value: c.id, label: `${CHECK_LABELS[c.id]} (${c.verdict})` }))} value={checkId} onChange={setCheckId} allowDeselect={false} />
+      <Select
+        label="Check"
+        data={waivable.map((c) => ({ value: c.id, label: `${CHECK_LABELS[c.id]} (${c.verdict})` }))}
+        value={checkId}
+        onChange={setCheckId}
+        allowDeselect={false}
+      />
       {check && check.quantity !== 'text' && (
         <TextInput
           label="Accepted limit"
@@ -73,7 +87,13 @@ export function WaiverForm({ q, onSubmit, busy }: { q: Qualification; onSubmit: 
         />
       )}
       <Textarea label="Reason" value={reason} onChange={(e) => setReason(e.currentTarget.value)} autosize minRows={2} />
-      <TextInput label="Expires on" type="date" description="Last day the waiver holds; the clearance lapses the day after" value={expiresOn} onChange={(e) => setExpiresOn(e.currentTarget.value)} />
+      <TextInput
+        label="Expires on"
+        type="date"
+        description="Last day the waiver holds; the clearance lapses the day after"
+        value={expiresOn}
+        onChange={(e) => setExpiresOn(e.currentTarget.value)}
+      />
       {error && (
         <Text c="red" fz="sm" role="alert">
           {error}
@@ -117,8 +137,20 @@ function WaiverRow({ w, q, viewer }: { w: Waiver; q: Qualification; viewer: View
           <Button size="xs" onClick={() => step.mutate({ kind: 'approve', waiverId: w.id, body: {} })} loading={step.isPending}>
             Approve waiver
           </Button>
-          <TextInput size="xs" placeholder="Reason for refusing" aria-label="Reason for refusing" value={reason} onChange={(e) => setReason(e.currentTarget.value)} />
-          <Button size="xs" color="red" variant="light" disabled={!reason.trim()} onClick={() => step.mutate({ kind: 'refuse', waiverId: w.id, body: { reason } })}>
+          <TextInput
+            size="xs"
+            placeholder="Reason for refusing"
+            aria-label="Reason for refusing"
+            value={reason}
+            onChange={(e) => setReason(e.currentTarget.value)}
+          />
+          <Button
+            size="xs"
+            color="red"
+            variant="light"
+            disabled={!reason.trim()}
+            onClick={() => step.mutate({ kind: 'refuse', waiverId: w.id, body: { reason } })}
+          >
             Refuse
           </Button>
         </Group>
@@ -152,7 +184,12 @@ export function WaiversPanel({ q, viewer }: { q: Qualification; viewer: Viewer }
           <WaiverRow key={w.id} w={w} q={q} viewer={viewer} />
         ))}
         {canPrepare && (
-          <WaiverForm key={formKey} q={q} busy={step.isPending} onSubmit={(body) => step.mutate({ kind: 'create', body }, { onSuccess: () => setFormKey((k) => k + 1) })} />
+          <WaiverForm
+            key={formKey}
+            q={q}
+            busy={step.isPending}
+            onSubmit={(body) => step.mutate({ kind: 'create', body }, { onSuccess: () => setFormKey((k) => k + 1) })}
+          />
         )}
         {step.error && (
           <Alert color="red" role="alert">
