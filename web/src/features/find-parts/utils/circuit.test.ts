@@ -68,7 +68,7 @@ describe('the working range as text', () => {
 // coefficient in mV/K as datasheets state it (common practice, no source).
 describe('what the simple formula leaves out, in the shared formatter’s words', () => {
   it('writes negative ambients with a true minus, tc in mV/K and percentages alike', () => {
-    const card = { ...searchItem(1, 'BRZ05-5V1').card!, tolerance: 0.05, tcVoltsPerKelvin: -0.0006 };
+    const card = { ...searchItem(1, 'BRZ05-5V1').card!, tolerance: 0.05, tc: -0.0006 };
     const text = simpleOmissions(toCircuit(filled)!, card).join('\n');
     expect(text).toContain('(−0.60 mV/K) over −20 °C … 70 °C');
     expect(text).toContain('tolerance of ±5 % on VZ');
