@@ -80,6 +80,7 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     const stale = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec({ zdMax: 30 }) });
     expect(stale.status).toBe(409);
     expect(stale.body.message).toMatch(/version 2/);
+    expect(stale.body).toMatchObject({ code: 'stale', current: { version: 2 }, errors: [{ path: 'baseVersion', message: 'current version is 2' }] }); // contracts: staleConflictBodySchema
 
     const old = await t.http.get(`/api/house-parts/${id}/spec?version=1`).set(auth(designer));
     expect(old.body.spec.zdMax).toBe(60);

@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, Injectable } from '@nestjs/common';
+import { BadRequestException, Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
@@ -13,6 +13,7 @@ import {
 } from '@shuntwise/contracts';
 import { Sequelize } from 'sequelize-typescript';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DatasheetsService } from '../datasheets/datasheets.service';
 import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
 import { RatingCardsService, StaleCardError } from '../vendor-parts/rating-cards.service';
@@ -98,7 +99,13 @@ export class CatalogueCsvService {
         }
       });
     } catch (error) {
-      if (error instanceof StaleCardError) throw new ConflictException('A card was added to one of these parts since the preview: preview again');
+      if (error instanceof StaleCardError) {
+        const row = rows.find((r) => r.vendorPartId === error.vendorPartId);
+        throw new StaleConflictException(`A card was added to ${row?.mpn ?? `vendor part ${error.vendorPartId}`} since the preview (now version ${error.currentVersion}): preview again. Nothing was imported.`, {
+          current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
+          errors: row ? [{ path: `row ${row.row}`, message: `card is now at version ${error.currentVersion}` }] : undefined,
+        });
+      }
       throw error;
     }
     return result;

@@ -2,7 +2,6 @@ import { createHash, randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import {
   BadRequestException,
-  ConflictException,
   HttpException,
   HttpStatus,
   Injectable,
@@ -27,6 +26,7 @@ import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { PdfReadError } from '../extraction';
 import { ExtractionLimitError } from '../extraction-worker/extraction-pool';
 import { StorageService } from '../storage/storage.service';
@@ -194,8 +194,8 @@ export class DatasheetsService {
             card = await this.cards.write(part.id, { baseVersion: 0, fields: variant.fields, note: `from datasheet ${datasheetId}` }, user, transaction, `variants.${i}.fields`);
           } catch (error) {
             if (error instanceof StaleCardError) {
-              throw new ConflictException({
-                message: `${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`,
+              throw new StaleConflictException(`${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`, {
+                current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
                 errors: [{ path: `variants.${i}.mpn`, message: `already has card version ${error.currentVersion}` }],
               });
             }

@@ -21,6 +21,7 @@ import { UniqueConstraintError } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { VendorPartsRepository } from '../vendor-parts/vendor-parts.repository';
 import type { HousePartSpec } from './house-part-spec.model';
 import { HousePartsRepository, type HousePartRow, type SourceRow } from './house-parts.repository';
@@ -104,8 +105,8 @@ export class HousePartsService {
       if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
       const current = part.specVersion ?? 0;
       if (request.baseVersion !== current) {
-        throw new ConflictException({
-          message: `The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`,
+        throw new StaleConflictException(`The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`, {
+          current: { version: current },
           errors: [{ path: 'baseVersion', message: `current version is ${current}` }],
         });
       }

@@ -47,6 +47,7 @@ import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents, type CatalogueChange } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
@@ -576,7 +577,10 @@ function auditChanges(action: QualificationAction, row: Qualification, basis: Ca
 
 function checkVersion(row: Qualification, version: number | undefined): void {
   if (version !== undefined && version !== row.version) {
-    throw new ConflictException(`Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`);
+    throw new StaleConflictException(`Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`, {
+      current: { version: row.version },
+      errors: [{ path: 'version', message: `current version is ${row.version}` }],
+    });
   }
 }
 

@@ -22,6 +22,7 @@ import {
 import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { fitBreakdownModel, tcToVoltsPerKelvin } from '../engineering/breakdown-model';
 import { checkCard } from '../engineering/card-checks';
@@ -31,17 +32,6 @@ import { normalize } from '../engineering/normalize';
 import { spiceModelLine } from '../engineering/spice-model';
 import { RatingCardsRepository, type SpecBasis } from './rating-cards.repository';
 import { VendorPartsRepository } from './vendor-parts.repository';
-
-/** A save based on a card version that is no longer current; the controller answers 409 with the current card. */
-export class RatingCardConflictError extends Error {
-  constructor(
-    message: string,
-    readonly current: RatingCardView,
-  ) {
-    super(message);
-    this.name = 'RatingCardConflictError';
-  }
-}
 
 /** Thrown inside a write when the base version is stale (callers turn it into a 409). */
 export class StaleCardError extends Error {
@@ -169,9 +159,10 @@ export class RatingCardsService {
       await this.sequelize.transaction((transaction) => this.write(vendorPartId, request, user, transaction));
     } catch (error) {
       if (error instanceof StaleCardError) {
-        throw new RatingCardConflictError(
+        // The stale-conflict body with the card as it is now, so the editor can merge (ratingCardConflictSchema).
+        throw new StaleConflictException(
           `Someone else saved this card (now version ${error.currentVersion}) after you loaded version ${error.baseVersion}: compare both and save again on version ${error.currentVersion}`,
-          await this.view(vendorPartId, read),
+          { current: await this.view(vendorPartId, read), errors: [{ path: 'version', message: `current version is ${error.currentVersion}` }] },
         );
       }
       throw error;
