@@ -195,7 +195,7 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect((await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: linked })).status).toBe(201);
     const snapshot = async () => ({
       sources: (await t.http.get(`/api/house-parts/${housePartId}/sources`).set(auth(buyer))).body,
-      view: (await t.http.get(`/api/qualifications/sources?housePartId=${housePartId}`).set(auth(buyer))).body,
+      view: (await t.http.get(`/api/qualification-views/sources?housePartId=${housePartId}`).set(auth(buyer))).body,
       cases: await t.select('SELECT id FROM qualifications WHERE house_part_id = ?', [housePartId]),
       mail: (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM outgoing_mail'))[0].n,
     });

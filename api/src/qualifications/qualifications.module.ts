@@ -9,12 +9,9 @@ import { HousePartBuyersController } from './house-part-buyers.controller';
 import { HousePartBuyersService } from './house-part-buyers.service';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
-import { QualificationViewsController } from './qualification-views.controller';
-import { QualificationViewsService } from './qualification-views.service';
 import { Qualification } from './qualification.model';
 import { QualificationsController } from './qualifications.controller';
 import { QualificationsRepository } from './qualifications.repository';
-import { QualificationsSeeder } from './qualifications-seeder.service';
 import { QualificationsService } from './qualifications.service';
 import { DecisionRecord } from './records/decision-record.model';
 import { DecisionRecordsController } from './records/decision-records.controller';
@@ -24,12 +21,11 @@ import { QualificationWaiver } from './waiver.model';
 import { WaiversController } from './waivers.controller';
 import { WaiversService } from './waivers.service';
 
-/** Qualification cases, their trail and comments, waivers, the buyers of each house part, and the Board, Compare and Sources read models. */
+/** Qualification cases, their trail and comments, waivers, decision records and the buyers of each house part. The screens' read models are in qualification-views/; the demo cases in seed/. */
 @Module({
   imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, DecisionRecord, QualificationWaiver]), HousePartsModule, VendorPartsModule, MeasurementsModule],
-  // The views controller first: its fixed paths (board, sources, compare) must match before `:id`.
-  controllers: [QualificationViewsController, QualificationsController, WaiversController, HousePartBuyersController, DecisionRecordsController],
-  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, QualificationViewsService, HousePartBuyersService, QualificationsSeeder, WaiversService],
-  exports: [QualificationsService, QualificationsRepository, QualificationsSeeder, DecisionRecordsService, WaiversService],
+  controllers: [QualificationsController, WaiversController, HousePartBuyersController, DecisionRecordsController],
+  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, HousePartBuyersService, WaiversService],
+  exports: [QualificationsService, QualificationsRepository, DecisionRecordsService, WaiversService],
 })
 export class QualificationsModule {}

@@ -72,7 +72,7 @@ export const boardRowSchema = z.object({
 });
 export type BoardRow = z.infer<typeof boardRowSchema>;
 
-/** `GET /api/qualifications/board`: a page of house parts; `counts` tallies every matching source by state. */
+/** `GET /api/qualification-views/board`: a page of house parts; `counts` tallies every matching source by state. */
 export const boardPageSchema = pageSchema(boardRowSchema).extend({
   counts: z.record(boardStateSchema, z.number().int()),
 });

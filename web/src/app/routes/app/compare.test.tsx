@@ -23,7 +23,7 @@ function renderCompare() {
 describe('Compare screen', () => {
   it('puts the checks of every source side by side with margins coloured by verdict', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     const table = await screen.findByRole('table', { name: 'Checks by source' });
     const dissipation = table.querySelector('tr[data-check="power-dissipation"]')!;
@@ -39,7 +39,7 @@ describe('Compare screen', () => {
 
   it('shows each worst-case window beside the spec windows, and the caution', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     expect(await screen.findByTestId('window-BRZ05-10')).toHaveTextContent('9.11 V … 11.0 V');
     expect(screen.getByTestId('window-CBX3-10')).toHaveTextContent('9.07 V … 11.2 V');
@@ -49,7 +49,7 @@ describe('Compare screen', () => {
 
   it('offers to open a case for an alternate without one, not for the approved source', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     expect(await screen.findByRole('button', { name: 'Open a case: CBX3-10 for OHI-ZD-1100' })).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Open a case: BRZ05-10 for OHI-ZD-1100' })).not.toBeInTheDocument();
@@ -61,7 +61,7 @@ describe('Compare screen', () => {
     signInAs('engineer');
     mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualifications/compare/:id': { status: 422, body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against') },
+      'GET /api/qualification-views/compare/:id': { status: 422, body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against') },
     });
     renderCompare();
     expect(await screen.findByRole('alert')).toHaveTextContent('has no spec yet: there is nothing to compare against');
