@@ -1,5 +1,4 @@
 import { BadRequestException, Injectable } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
   type CsvImportPreview,
@@ -11,7 +10,7 @@ import {
   type RatingCardFieldsParsed,
   type TcValue,
 } from '@shuntwise/contracts';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DatasheetsService } from '../datasheets/datasheets.service';
@@ -35,7 +34,7 @@ export class CatalogueCsvService {
     private readonly cards: RatingCardsRepository,
     private readonly cardsService: RatingCardsService,
     private readonly datasheets: DatasheetsService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   async preview(request: CsvImportRequest): Promise<CsvImportPreview> {
@@ -75,7 +74,7 @@ export class CatalogueCsvService {
     if (rows.length === 0) throw new BadRequestException('Nothing imported: the CSV has no rows');
     const result: CsvImportResult = { created: 0, cardsAdded: 0, unchanged: 0, conflicts: [], vendorPartIds: [] };
     try {
-      await this.sequelize.transaction(async (transaction) => {
+      await this.unitOfWork.run(async (transaction) => {
         for (const row of rows) {
           if (row.action === 'unchanged' || row.action === 'conflict') {
             if (row.action === 'unchanged') result.unchanged++;

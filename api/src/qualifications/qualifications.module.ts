@@ -2,7 +2,7 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { HousePartsModule } from '../house-parts/house-parts.module';
 import { MeasurementsModule } from '../measurements/measurements.module';
-import { User } from '../users/user.model';
+import { UsersModule } from '../users/users.module';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { HousePartBuyer } from './house-part-buyer.model';
 import { HousePartBuyersController } from './house-part-buyers.controller';
@@ -19,13 +19,14 @@ import { DecisionRecordsRepository } from './records/decision-records.repository
 import { DecisionRecordsService } from './records/decision-records.service';
 import { QualificationWaiver } from './waiver.model';
 import { WaiversController } from './waivers.controller';
+import { WaiversRepository } from './waivers.repository';
 import { WaiversService } from './waivers.service';
 
 /** Qualification cases, their trail and comments, waivers, decision records and the buyers of each house part. The screens' read models are in qualification-views/; the demo cases in seed/. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, User, DecisionRecord, QualificationWaiver]), HousePartsModule, VendorPartsModule, MeasurementsModule],
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, DecisionRecord, QualificationWaiver]), UsersModule, HousePartsModule, VendorPartsModule, MeasurementsModule],
   controllers: [QualificationsController, WaiversController, HousePartBuyersController, DecisionRecordsController],
-  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, HousePartBuyersService, WaiversService],
+  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, HousePartBuyersService, WaiversRepository, WaiversService],
   exports: [QualificationsService, QualificationsRepository, DecisionRecordsService, WaiversService],
 })
 export class QualificationsModule {}

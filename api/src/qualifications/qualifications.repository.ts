@@ -100,7 +100,6 @@ export class QualificationsRepository {
     @InjectModel(QualificationEvent) private readonly events: typeof QualificationEvent,
     @InjectModel(QualificationComment) private readonly comments: typeof QualificationComment,
     @InjectModel(HousePartBuyer) private readonly buyers: typeof HousePartBuyer,
-    @InjectModel(User) private readonly users: typeof User,
   ) {}
 
   private select<T extends object>(sql: string, replacements: unknown[], transaction?: Transaction): Promise<T[]> {
@@ -315,15 +314,7 @@ export class QualificationsRepository {
     return row ?? { specVersion: null, cardVersion: null };
   }
 
-  findUser(id: number, transaction?: Transaction): Promise<User | null> {
-    return this.users.findByPk(id, { transaction });
-  }
-
   /** Active engineers other than `exceptId` (who is told a case waits for review). */
-  async engineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
-    const rows = await this.select<{ email: string }>(`SELECT email FROM users WHERE role = 'engineer' AND active = 1 AND id <> ? ORDER BY email`, [exceptId], transaction);
-    return rows.map((r) => r.email);
-  }
 }
 
 function json<T>(value: T | string): T {

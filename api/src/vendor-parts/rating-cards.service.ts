@@ -1,5 +1,4 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
   normalizeBasis,
@@ -20,7 +19,7 @@ import {
   type VendorPartModel,
 } from '@shuntwise/contracts';
 import type { Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
@@ -64,7 +63,7 @@ export class RatingCardsService {
     private readonly cards: RatingCardsRepository,
     private readonly vendorParts: VendorPartsRepository,
     private readonly events: CatalogueEvents,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /** The card (current or an earlier version), with the engineering core's reading of it only when asked (`include=engineering`). */
@@ -156,7 +155,7 @@ export class RatingCardsService {
   /** `PUT …/rating-card`: saves a new version, or answers 409 with the current card when the base is stale. */
   async put(vendorPartId: number, request: CardWrite, user: AuthUser, read: Pick<RatingCardQuery, 'include' | 'housePartId'> = {}): Promise<RatingCardView> {
     try {
-      await this.sequelize.transaction((transaction) => this.write(vendorPartId, request, user, transaction));
+      await this.unitOfWork.run((transaction) => this.write(vendorPartId, request, user, transaction));
     } catch (error) {
       if (error instanceof StaleCardError) {
         // The stale-conflict body with the card as it is now, so the editor can merge (ratingCardConflictSchema).
