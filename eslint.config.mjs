@@ -44,6 +44,37 @@ export default tseslint.config(
     },
   },
   {
+    // Repositories are the only ORM callers: a model class, raw queries, query operators and the
+    // connection itself are imported only by repositories, models, modules (which register models),
+    // the database layer, migrations and the dev stack and seeders. Services, controllers and the
+    // rest take a repository (of their own module or another module's exported one) and, for a
+    // multi-step write, UnitOfWork. Type-only imports of models (a return type) are fine; so are
+    // sequelize's error classes and the Transaction type.
+    files: ['api/src/**/*.ts'],
+    ignores: [
+      'api/src/**/*.repository.ts',
+      'api/src/**/*.model.ts',
+      'api/src/**/*.module.ts',
+      'api/src/database/**',
+      'api/src/dev/**',
+      'api/src/seed/**',
+      'api/src/**/*.spec.ts',
+    ],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: 'sequelize', importNames: ['QueryTypes', 'Op', 'Sequelize', 'literal', 'fn', 'col', 'where'], message: 'queries live in repositories (*.repository.ts)' },
+            { name: 'sequelize-typescript', importNames: ['Sequelize'], allowTypeImports: true, message: 'services take repositories and UnitOfWork (api/src/database/unit-of-work.ts), not the connection' },
+            { name: '@nestjs/sequelize', importNames: ['InjectModel', 'InjectConnection'], message: 'only repositories inject models or the connection' },
+          ],
+          patterns: [{ group: ['**/*.model'], allowTypeImports: true, message: 'only repositories (and modules registering models) use model classes; import the type, ask the repository' }],
+        },
+      ],
+    },
+  },
+  {
     // Every file of the core, no exemptions: its HTTP face lives in api/src/engineering-routes.
     files: ['api/src/engineering/**/*.ts'],
     rules: {

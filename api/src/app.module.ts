@@ -19,6 +19,7 @@ import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
 import { QualificationRequestsModule } from './qualification-requests/qualification-requests.module';
+import { QualificationViewsModule } from './qualification-views/qualification-views.module';
 import { QualificationsModule } from './qualifications/qualifications.module';
 import { RateLimitsModule } from './rate-limits/rate-limits.module';
 import { StorageModule } from './storage/storage.module';
@@ -38,7 +39,7 @@ const FEATURES = [
   SeedModule,
   EngineeringModule,
   CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
-  QualificationsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
+  QualificationsModule, QualificationViewsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
 
 @Module({})
 export class AppModule {

@@ -1,5 +1,5 @@
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
-import { QUALIFICATION_SEED_CARD_REVISIONS } from '../src/qualifications/qualifications-seeder.service';
+import { QUALIFICATION_SEED_CARD_REVISIONS } from '../src/seed/qualifications-seeder.service';
 import { DemoSeedService } from '../src/seed/demo-seed.service';
 import { StorageService } from '../src/storage/storage.service';
 import { createTestApp, type TestApp } from './helpers/test-app';

@@ -1,6 +1,8 @@
 import { parse } from 'csv-parse/sync';
 import { demoCardFields } from './helpers/catalogue-fixtures';
 import { createHousePart, createVendorPart } from './helpers/catalogue-fixtures';
+import { staleConflictBodySchema } from '@shuntwise/contracts';
+import { CatalogueCsvService } from '../src/catalogue-csv/catalogue-csv.service';
 import { createTestApp, type TestApp } from './helpers/test-app';
 
 /** An invented vendor series as a vendor might send it: units in the header, and µ/Ω spelled both ways. */
@@ -111,6 +113,33 @@ describe('CSV import and export (real MariaDB)', () => {
     expect(done.body).toMatchObject({ created: 0, cardsAdded: 1, conflicts: [{ row: 2, mpn: 'AMZR-5V1', vendorPartId: id }] });
     expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 1, fields: { zzt: { value: 40 } } });
     expect((await t.http.get(`/api/vendor-parts/${bare}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 1, fields: { zzt: { value: 20 } } });
+  });
+
+  it('answers a card added between its reading and its writing with the one stale-conflict body, importing nothing', async () => {
+    const bare = await createVendorPart(t.http, engineer, { manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZR-6V2' });
+    const csv = 'mpn,vzNom (V),izt (mA),zzt (ohm)\nAMZR-NEW-9,9.1,5,10\nAMZR-6V2,6.2,5,10\n';
+    // Someone saves a card on the part after the import planned it as "add card" and before it writes:
+    // the plan is taken as the service made it, then the card is saved, then the write runs.
+    const service = t.stack.app.get(CatalogueCsvService) as unknown as { plan: (request: object) => Promise<unknown> };
+    const plan = service.plan.bind(service);
+    const spy = jest.spyOn(service, 'plan').mockImplementationOnce(async (request: object) => {
+      const planned = await plan(request);
+      expect((await t.http.put(`/api/vendor-parts/${bare}/rating-card`).set(auth(engineer)).send({ version: 0, fields: demoCardFields() })).status).toBe(200);
+      return planned;
+    });
+    const before = await partCount();
+    const res = await confirm({ csv, manufacturer: 'Aldmoor Semiconductor' });
+    spy.mockRestore();
+    expect(res.status).toBe(409);
+    // contracts: staleConflictBodySchema, the same body a stale card save and stale datasheet variants answer
+    expect(staleConflictBodySchema.parse(res.body)).toMatchObject({
+      code: 'stale',
+      current: { version: 1, vendorPartId: bare },
+      errors: [{ path: 'row 3', message: 'card is now at version 1' }],
+      correlationId: expect.any(String),
+    });
+    expect(res.body.message).toMatch(/preview again/);
+    expect(await partCount()).toBe(before); // the new part of row 2, written first, was rolled back with the rest
   });
 
   it('only engineers and admins import', async () => {

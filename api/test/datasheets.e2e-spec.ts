@@ -4,7 +4,7 @@ import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { Transaction } from 'sequelize';
 import { CatalogueEvents, type CatalogueChange } from '../src/catalogue-events/catalogue-events.service';
 import { StorageService } from '../src/storage/storage.service';
-import { cardDraftFromExtraction, type ExtractionResult } from '@shuntwise/contracts';
+import { cardDraftFromExtraction, staleConflictBodySchema, type ExtractionResult } from '@shuntwise/contracts';
 import { createVendorPart, demoCardFields } from './helpers/catalogue-fixtures';
 import { createTestApp, type TestApp } from './helpers/test-app';
 
@@ -227,6 +227,8 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
       const res = await t.http.post(`/api/datasheets/${datasheetId}/variants`).set(auth(engineer)).send({ manufacturer: 'Quarryhill Parts', variants });
       expect(res.status).toBe(409);
       expect(res.body.errors).toEqual([{ path: 'variants.1.mpn', message: 'already has card version 1' }]);
+      // the one stale-conflict body of the API (contracts: staleConflictBodySchema)
+      expect(staleConflictBodySchema.parse(res.body)).toMatchObject({ code: 'stale', current: { version: 1 }, correlationId: expect.any(String) });
       // the first variant's card was rolled back with the rest
       expect((await t.http.get(`/api/vendor-parts/${fresh}/rating-card`).set(auth(engineer))).body.version).toBe(0);
       expect((await t.http.post(`/api/datasheets/${datasheetId}/variants`).set(auth(buyer)).send({ manufacturer: 'Q', variants })).status).toBe(403);

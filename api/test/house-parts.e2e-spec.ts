@@ -84,6 +84,7 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     const stale = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec({ zdMax: 30 }) });
     expect(stale.status).toBe(409);
     expect(stale.body.message).toMatch(/version 2/);
+    expect(stale.body).toMatchObject({ code: 'stale', current: { version: 2 }, errors: [{ path: 'baseVersion', message: 'current version is 2' }] }); // contracts: staleConflictBodySchema
 
     const old = await t.http.get(`/api/house-parts/${id}/spec?version=1`).set(auth(designer));
     expect(old.body.spec.zdMax).toBe(60);
@@ -198,7 +199,7 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect((await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: linked })).status).toBe(201);
     const snapshot = async () => ({
       sources: (await t.http.get(`/api/house-parts/${housePartId}/sources`).set(auth(buyer))).body,
-      view: (await t.http.get(`/api/qualifications/sources?housePartId=${housePartId}`).set(auth(buyer))).body,
+      view: (await t.http.get(`/api/qualification-views/sources?housePartId=${housePartId}`).set(auth(buyer))).body,
       cases: await t.select('SELECT id FROM qualifications WHERE house_part_id = ?', [housePartId]),
       mail: (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM outgoing_mail'))[0].n,
     });

@@ -1,5 +1,5 @@
 import { loadDemoCatalogue } from '@shuntwise/test-fixtures';
-import { DEMO_CASES, QualificationsSeeder } from '../src/qualifications/qualifications-seeder.service';
+import { DEMO_CASES, QualificationsSeeder } from '../src/seed/qualifications-seeder.service';
 import { CatalogueSeeder } from '../src/seed/catalogue-seeder.service';
 import { DemoSeedService } from '../src/seed/demo-seed.service';
 import { MeasurementsSeeder } from '../src/seed/measurements-seeder.service';
@@ -58,7 +58,7 @@ describe('demo qualifications seed (real MariaDB)', () => {
     expect(detail.audit.map((a: { action: string }) => a.action)).toEqual(['opened', 'submitted', 'commented', 'commented', 'cleared-with-conditions']);
     expect(detail.decision.text).toMatch(/five pieces per lot/);
 
-    const stale = await t.http.get('/api/qualifications/board?state=in-review&minAgeDays=7').set(auth());
+    const stale = await t.http.get('/api/qualification-views/board?state=in-review&minAgeDays=7').set(auth());
     expect(stale.body.items.map((i: { housePart: { partNumber: string } }) => i.housePart.partNumber)).toEqual(['OHI-ZD-1068']);
     const [{ parts }] = await t.select<{ parts: number }>('SELECT COUNT(*) AS parts FROM house_parts');
     const [{ links }] = await t.select<{ links: number }>("SELECT COUNT(*) AS links FROM house_part_buyers b JOIN users u ON u.id = b.user_id WHERE u.email = 'buyer@demo.test'");

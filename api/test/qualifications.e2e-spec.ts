@@ -210,7 +210,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const designerEarly = await t.http.get(`/api/qualifications/${c.id}`).set(auth(designer));
     expect(designerEarly.status).toBe(403);
     expect(designerEarly.body.message).toMatch(/designers see cleared cases only/);
-    expect((await t.http.get('/api/qualifications/board').set(auth(buyer))).status).toBe(403);
+    expect((await t.http.get('/api/qualification-views/board').set(auth(buyer))).status).toBe(403);
 
     await act(c.id, 'clear', {}, reviewer);
     const designerCleared = await t.http.get(`/api/qualifications/${c.id}`).set(auth(designer));
@@ -219,7 +219,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const designerList = await t.http.get('/api/qualifications?pageSize=200').set(auth(designer));
     expect(designerList.body.items.every((i: { state: string }) => i.state === 'cleared' || i.state === 'cleared-with-conditions')).toBe(true);
 
-    const view = await t.http.get(`/api/qualifications/sources?housePartId=${ids.housePartId}`).set(auth(buyer));
+    const view = await t.http.get(`/api/qualification-views/sources?housePartId=${ids.housePartId}`).set(auth(buyer));
     expect(view.status).toBe(200);
     expect(view.body.items).toHaveLength(1);
     expect(view.body.items[0].sources[0]).toMatchObject({
@@ -231,7 +231,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
       since: expect.any(String),
     });
 
-    const csv = await t.http.get(`/api/qualifications/sources.csv?housePartId=${ids.housePartId}`).set(auth(buyer));
+    const csv = await t.http.get(`/api/qualification-views/sources.csv?housePartId=${ids.housePartId}`).set(auth(buyer));
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename="sources-\d{4}-\d{2}-\d{2}\.csv"/);
@@ -240,13 +240,13 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(lines[0]).toBe('House part,Description,House part status,Manufacturer,Manufacturer part number,Package,Role,Standing,Conditions,Since,Decided by,Case,Revision,Open case,Needs re-check');
     expect(lines).toHaveLength(2);
     expect(lines[1]).toMatch(new RegExp(`^HPQ-\\d+,Regulator diode case \\d+,draft,Fennick Semiconductor,FZ-\\d+,SOD-123,alternate,Cleared,,\\d{4}-.+Z,Tomas Eklund,${c.id},1,,no$`));
-    expect((await t.http.get('/api/qualifications/sources.csv').set(auth(designer))).status).toBe(200);
+    expect((await t.http.get('/api/qualification-views/sources.csv').set(auth(designer))).status).toBe(200);
     // designers see approved sources and cleared alternates only
     const rejected = await inReview();
     await act(rejected.id, 'reject', { reason: 'no' }, reviewer);
-    const forDesigner = await t.http.get(`/api/qualifications/sources?housePartId=${rejected.housePart.id}`).set(auth(designer));
+    const forDesigner = await t.http.get(`/api/qualification-views/sources?housePartId=${rejected.housePart.id}`).set(auth(designer));
     expect(forDesigner.body.items[0].sources).toEqual([]);
-    const forBuyer = await t.http.get(`/api/qualifications/sources?housePartId=${rejected.housePart.id}`).set(auth(buyer));
+    const forBuyer = await t.http.get(`/api/qualification-views/sources?housePartId=${rejected.housePart.id}`).set(auth(buyer));
     expect(forBuyer.body.items[0].sources.map((s: { standing: string }) => s.standing)).toEqual(['rejected']);
   });
 
@@ -268,7 +268,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(flagged.audit.at(-1)).toMatchObject({ action: 'flagged-for-recheck', by: { name: 'Priya Raman' }, note: 'rating card version 2 (changed: zzt)' });
     expect(flagged.allowedActions).toEqual(expect.arrayContaining(['recheck', 'revoke']));
     // the flag shows on the Board and in the Sources view
-    const board = await t.http.get(`/api/qualifications/board?q=${encodeURIComponent(`HPQ-${n}`)}&needsRecheck=true`).set(auth(engineer));
+    const board = await t.http.get(`/api/qualification-views/board?q=${encodeURIComponent(`HPQ-${n}`)}&needsRecheck=true`).set(auth(engineer));
     expect(board.body.items[0].sources[0]).toMatchObject({ state: 'cleared', latestCase: { id: c.id, needsRecheck: true } });
 
     const re = await act(c.id, 'recheck', { note: 'zzt corrected by the vendor' }, engineer);
@@ -282,7 +282,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(old.allowedActions).not.toContain('recheck');
     expect((await act(c.id, 'recheck', {}, engineer)).status).toBe(409);
     // buyers still see the clearance, with the re-check under way beside it
-    const view = await t.http.get(`/api/qualifications/sources?housePartId=${ids.housePartId}`).set(auth(buyer));
+    const view = await t.http.get(`/api/qualification-views/sources?housePartId=${ids.housePartId}`).set(auth(buyer));
     expect(view.body.items[0].sources[0]).toMatchObject({ standing: 'cleared', caseId: c.id, openCase: { id: re.body.id, state: 'draft' }, needsRecheck: true });
     // a new case for the pair is refused while the chain's latest is open
     expect((await open(ids)).status).toBe(409);
@@ -525,7 +525,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect((await t.http.post(`/api/house-parts/${housePartId}/buyers`).set(auth(buyer)).send({ userId: buyerId })).status).toBe(201);
     const list = await t.http.get(`/api/house-parts/${housePartId}/buyers`).set(auth(buyer));
     expect(list.body.map((b: { user: { email: string } }) => b.user.email)).toEqual(['second.buyer@demo.test', 'buyer@demo.test']);
-    const mine = await t.http.get('/api/qualifications/sources?mine=true').set(auth(buyer));
+    const mine = await t.http.get('/api/qualification-views/sources?mine=true').set(auth(buyer));
     expect(mine.body.items.map((i: { housePart: { id: number } }) => i.housePart.id)).toContain(housePartId);
     expect((await t.http.delete(`/api/house-parts/${housePartId}/buyers/${other.id}`).set(auth(buyer))).status).toBe(403);
     expect((await t.http.delete(`/api/house-parts/${housePartId}/buyers/${buyerId}`).set(auth(buyer))).status).toBe(204);
@@ -541,7 +541,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(self.status).toBe(403);
     expect(self.body.message).toMatch(/two-person rule/);
     for (const token of [admin, designer, buyer]) expect((await act(c.id, 'approve', {}, token)).status).toBe(403);
-    const view = async () => (await t.http.get(`/api/qualifications/sources?housePartId=${ids.housePartId}`).set(auth(buyer))).body.items[0].sources[0];
+    const view = async () => (await t.http.get(`/api/qualification-views/sources?housePartId=${ids.housePartId}`).set(auth(buyer))).body.items[0].sources[0];
     expect(await view()).toMatchObject({ role: 'alternate', standing: 'in-review' });
     expect((await t.http.get(`/api/qualifications/${c.id}`).set(auth(reviewer))).body.allowedActions).toEqual(expect.arrayContaining(['approve', 'clear']));
     expect((await t.http.get(`/api/qualifications/${c.id}`).set(auth(engineer))).body.allowedActions).not.toContain('approve');
@@ -597,7 +597,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     await t.http.post(`/api/house-parts/${b.housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: b.vendorPartId });
     const q = encodeURIComponent(`HPQ-${n}`);
 
-    const all = await t.http.get(`/api/qualifications/board?q=${q}`).set(auth(engineer));
+    const all = await t.http.get(`/api/qualification-views/board?q=${q}`).set(auth(engineer));
     expect(all.status).toBe(200);
     expect(all.body.items).toHaveLength(1);
     expect(all.body.items[0].housePart).toMatchObject({ id: a.housePartId, specVersion: 1 });
@@ -609,24 +609,24 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(all.body.items[0].sources[0].latestCase).toMatchObject({ id: c.id, state: 'in-review', preparedBy: { name: 'Priya Raman' }, ageDays: 0 });
     expect(all.body.counts).toMatchObject({ none: 1, 'in-review': 1, cleared: 0 });
 
-    const none = await t.http.get(`/api/qualifications/board?q=${q}&state=none`).set(auth(engineer));
+    const none = await t.http.get(`/api/qualification-views/board?q=${q}&state=none`).set(auth(engineer));
     expect(none.body.items[0].sources.map((s: { state: string }) => s.state)).toEqual(['none']);
     // The tallies ignore the state filter (the web needs no second request for them) but keep the others.
     expect(none.body.counts).toMatchObject({ none: 1, 'in-review': 1 });
-    expect((await t.http.get(`/api/qualifications/board?q=${q}&state=none&engineerId=${reviewerId}`).set(auth(engineer))).body.counts).toMatchObject({ none: 0, 'in-review': 0 });
+    expect((await t.http.get(`/api/qualification-views/board?q=${q}&state=none&engineerId=${reviewerId}`).set(auth(engineer))).body.counts).toMatchObject({ none: 0, 'in-review': 0 });
     // The engineer filter's choices: every engineer, whether or not on this page.
     const names = (all.body.engineers as { id: number; name: string }[]).map((e) => e.name);
     expect(names).toEqual(expect.arrayContaining(['Priya Raman']));
     expect(all.body.engineers).toEqual(expect.arrayContaining([expect.objectContaining({ id: reviewerId })]));
     expect([...names].sort((x, y) => x.localeCompare(y))).toEqual(names);
-    const byOther = await t.http.get(`/api/qualifications/board?q=${q}&engineerId=${reviewerId}`).set(auth(engineer));
+    const byOther = await t.http.get(`/api/qualification-views/board?q=${q}&engineerId=${reviewerId}`).set(auth(engineer));
     expect(byOther.body.items).toEqual([]);
-    expect((await t.http.get(`/api/qualifications/board?q=${q}&minAgeDays=7`).set(auth(engineer))).body.items).toEqual([]);
+    expect((await t.http.get(`/api/qualification-views/board?q=${q}&minAgeDays=7`).set(auth(engineer))).body.items).toEqual([]);
     await t.exec('UPDATE qualifications SET updated_at = DATE_SUB(NOW(), INTERVAL 10 DAY) WHERE id = ?', [c.id]);
-    const old = await t.http.get(`/api/qualifications/board?q=${q}&minAgeDays=7`).set(auth(admin));
+    const old = await t.http.get(`/api/qualification-views/board?q=${q}&minAgeDays=7`).set(auth(admin));
     expect(old.body.items[0].sources).toHaveLength(1);
     expect(old.body.items[0].sources[0].latestCase.ageDays).toBeGreaterThanOrEqual(9);
-    const bad = await t.http.get('/api/qualifications/board?state=granted').set(auth(engineer));
+    const bad = await t.http.get('/api/qualification-views/board?state=granted').set(auth(engineer));
     expect(bad.status).toBe(400);
     expect(bad.body.message).toMatch(/unknown state in "granted"/);
   });
@@ -634,7 +634,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   it('publishes its routes and schemas at /api/docs', async () => {
     const docs = (await t.http.get('/api/docs-json')).body;
     expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['QualificationDto', 'BoardPageDto', 'ComparePayloadDto', 'SourcesViewDto', 'ClearWithConditionsDto']));
-    for (const path of ['/api/qualifications', '/api/qualifications/{id}', '/api/qualifications/{id}/clear', '/api/qualifications/board', '/api/qualifications/sources.csv', '/api/house-parts/{id}/buyers']) {
+    for (const path of ['/api/qualifications', '/api/qualifications/{id}', '/api/qualifications/{id}/clear', '/api/qualification-views/board', '/api/qualification-views/sources.csv', '/api/house-parts/{id}/buyers']) {
       expect([path, docs.paths[path] !== undefined]).toEqual([path, true]);
     }
     expect(docs.components.schemas.ClearWithConditionsDto.required).toEqual(['version', 'conditions']);
@@ -643,7 +643,7 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   it('answers Compare with each source evaluated now, its curves at 25 °C and the envelope’s ambients, and the spec window', async () => {
     const a = await pair();
     await open(a);
-    const res = await t.http.get(`/api/qualifications/compare/${a.housePartId}`).set(auth(designer));
+    const res = await t.http.get(`/api/qualification-views/compare/${a.housePartId}`).set(auth(designer));
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ specVersion: 1, temperaturesC: [-40, 25, 85], specWindow: { current: 0.005, min: 4.6, max: 5.6 }, outputWindow: null });
     const [source] = res.body.sources;
@@ -662,6 +662,6 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const dissipation = source.evaluation.checks.find((c: { id: string }) => c.id === 'power-dissipation');
     expect(source.powerLimit.allowed).toBeCloseTo(dissipation.limit, 12);
     expect(source.powerLimit.allowed).toBeCloseTo(0.26 * source.powerLimit.policyFraction, 12);
-    expect((await t.http.get('/api/qualifications/compare/999999').set(auth(engineer))).status).toBe(404);
+    expect((await t.http.get('/api/qualification-views/compare/999999').set(auth(engineer))).status).toBe(404);
   });
 });

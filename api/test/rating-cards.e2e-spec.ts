@@ -1,4 +1,4 @@
-import { normalizeBasis, normalizeRequestFor, toEngineeringCard, type Spec } from '@shuntwise/contracts';
+import { normalizeBasis, normalizeRequestFor, ratingCardConflictSchema, staleConflictBodySchema, toEngineeringCard, type Spec } from '@shuntwise/contracts';
 import { CatalogueEvents, type CatalogueChange } from '../src/catalogue-events/catalogue-events.service';
 import { createHousePart, createVendorPart, demoCardFields, demoSpec } from './helpers/catalogue-fixtures';
 import { createTestApp, type TestApp } from './helpers/test-app';
@@ -82,6 +82,11 @@ describe('rating cards (real MariaDB)', () => {
     expect(late.body.correlationId).toEqual(expect.any(String));
     expect(late.body.current).toMatchObject({ vendorPartId: id, version: 2, fields: { zzt: { value: 35 } }, updatedBy: { name: 'Tomas Eklund' } });
     expect(late.body.current.engineering.result).not.toBeNull();
+    // the one stale-conflict body of the API, with the card view as `current` (contracts: staleConflictBodySchema, ratingCardConflictSchema)
+    expect(late.body.code).toBe('stale');
+    expect(staleConflictBodySchema.safeParse(late.body).success).toBe(true);
+    expect(ratingCardConflictSchema.safeParse(late.body).success).toBe(true);
+    expect(late.body.errors).toEqual([{ path: 'version', message: 'current version is 2' }]);
 
     const stored = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer));
     expect(stored.body.fields.zzt.value).toBe(35);

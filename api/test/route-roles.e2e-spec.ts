@@ -37,6 +37,19 @@ describe('role × route table (real MariaDB)', () => {
     }
   });
 
+  it('lets no request match two routes: none resolves by the order controllers are registered', () => {
+    // Two routes of one method overlap when, segment by segment, each pair is equal or one is a parameter.
+    const segments = (path: string) => path.split('/').filter(Boolean);
+    const overlap = (a: string[], b: string[]) => a.length === b.length && a.every((s, i) => s === b[i] || s.startsWith(':') || b[i].startsWith(':'));
+    const clashes: string[] = [];
+    for (const [i, a] of routes.entries()) {
+      for (const b of routes.slice(i + 1)) {
+        if (a.method === b.method && overlap(segments(a.path), segments(b.path))) clashes.push(`${key(a)} ~ ${b.path}`);
+      }
+    }
+    expect(clashes).toEqual([]);
+  });
+
   it('keeps admins to administration and reading: no catalogue, source or case write is open to them', () => {
     const adminWrites = Object.entries(ROUTE_ROLES)
       .filter(([k, access]) => !k.startsWith('GET ') && access !== 'public' && access.includes('admin'))

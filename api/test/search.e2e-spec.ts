@@ -38,7 +38,7 @@ describe('search (real MariaDB, demo seed)', () => {
     [designer, engineer] = await Promise.all([t.tokenFor('designer'), t.tokenFor('engineer@demo.test')]);
     // The engineers' Sources view, independently of the search's SQL: sources standing
     // approved (by a decision) or cleared.
-    const view = (await t.http.get('/api/qualifications/sources').set(auth(engineer))).body as SourcesView;
+    const view = (await t.http.get('/api/qualification-views/sources').set(auth(engineer))).body as SourcesView;
     usableFromSources = new Set(
       view.items.flatMap((h) =>
         h.sources

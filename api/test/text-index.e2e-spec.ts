@@ -67,9 +67,9 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(houseList.items.map((h) => h.partNumber)).toEqual(['OHI-ZD-1051']);
     // other case and separators left out
     expect((await get<HousePartPage>('/api/house-parts?q=zd1051')).items.map((h) => h.partNumber)).toEqual(['OHI-ZD-1051']);
-    const board = await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualifications/board?q=1051');
+    const board = await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualification-views/board?q=1051');
     expect(board.items.map((r) => r.housePart.partNumber)).toEqual(['OHI-ZD-1051']);
-    const sources = await get<SourcesView>('/api/qualifications/sources?q=1051', buyer);
+    const sources = await get<SourcesView>('/api/qualification-views/sources?q=1051', buyer);
     expect(sources.items.map((r) => r.housePart.partNumber)).toEqual(['OHI-ZD-1051']);
   });
 
@@ -81,7 +81,7 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(withSource.length).toBeGreaterThan(0);
     const found = (await get<HousePartPage>('/api/house-parts?q=5V1&pageSize=100')).items.map((h) => h.partNumber);
     for (const { partNumber } of withSource) expect(found).toContain(partNumber);
-    const board = (await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualifications/board?q=5v1&pageSize=100')).items.map((r) => r.housePart.partNumber);
+    const board = (await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualification-views/board?q=5v1&pageSize=100')).items.map((r) => r.housePart.partNumber);
     expect(board.sort()).toEqual([...found].sort());
 
     const expected = (await t.select<{ mpn: string }>("SELECT mpn FROM vendor_parts WHERE mpn LIKE '%5V1%' ORDER BY mpn")).map((r) => r.mpn);
@@ -93,7 +93,7 @@ describe('text index (real MariaDB, demo seed)', () => {
   it('finds parts in the designers\' search by a middle part of their number or of a house part they serve', async () => {
     const byHousePart = await get<SearchPage>('/api/search?q=1051', designer);
     expect(byHousePart.text.mode).toBe('fuzzy');
-    const sources = await get<SourcesView>('/api/qualifications/sources?q=OHI-ZD-1051', buyer);
+    const sources = await get<SourcesView>('/api/qualification-views/sources?q=OHI-ZD-1051', buyer);
     const usable = sources.items[0].sources
       .filter((s) => s.standing === 'cleared' || s.standing === 'cleared-with-conditions' || (s.role === 'approved' && !['rejected', 'revoked'].includes(s.standing)))
       .map((s) => s.vendorPart.mpn);

@@ -141,7 +141,7 @@ describe('waivers (real MariaDB)', () => {
     expect((await prepare(c.id, { ...zdWaiver, checkId: 'leakage' })).status).toBe(409);
 
     // Sources (a buyer) and search (a designer) show the standing with the waivers and their expiry
-    const sources = await t.http.get(`/api/qualifications/sources?housePartId=${c.housePartId}`).set(auth(buyer));
+    const sources = await t.http.get(`/api/qualification-views/sources?housePartId=${c.housePartId}`).set(auth(buyer));
     expect(sources.status).toBe(200);
     const row = sources.body.items[0].sources.find((s: { vendorPart: { id: number } }) => s.vendorPart.id === c.vendorPartId);
     expect(row.standing).toBe('cleared-with-waiver');
@@ -186,9 +186,9 @@ describe('waivers (real MariaDB)', () => {
     expect(mail.body).toMatch(new RegExp(`https?://[^\\s]+/qualifications/${c.id}`));
 
     // no longer usable: Sources shows the lapse, search no longer lists it for designers
-    const after = await t.http.get(`/api/qualifications/sources?housePartId=${c.housePartId}`).set(auth(buyer));
+    const after = await t.http.get(`/api/qualification-views/sources?housePartId=${c.housePartId}`).set(auth(buyer));
     expect(after.body.items[0].sources.find((s: { vendorPart: { id: number } }) => s.vendorPart.id === c.vendorPartId).standing).toBe('waiver-lapsed');
-    const designerSources = await t.http.get(`/api/qualifications/sources?housePartId=${c.housePartId}`).set(auth(designer));
+    const designerSources = await t.http.get(`/api/qualification-views/sources?housePartId=${c.housePartId}`).set(auth(designer));
     expect(designerSources.body.items[0].sources.find((s: { vendorPart: { id: number } }) => s.vendorPart.id === c.vendorPartId)).toBeUndefined();
     const foundAfter = await t.http.get(`/api/search?housePartId=${c.housePartId}`).set(auth(designer));
     expect(foundAfter.body.items.find((i: { vendorPart: { id: number } }) => i.vendorPart.id === c.vendorPartId)).toBeUndefined();

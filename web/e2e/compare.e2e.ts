@@ -26,10 +26,10 @@ async function get<T>(path: string, token: string): Promise<T> {
 /** A demo house part whose evaluated sources are held to different dissipation limits (read only: nothing is changed). */
 async function findPart(): Promise<CompareAnswer> {
   const token = await bearer();
-  const board = await get<{ items: Array<{ housePart: { id: number; specVersion: number | null } }> }>('/qualifications/board?pageSize=200', token);
+  const board = await get<{ items: Array<{ housePart: { id: number; specVersion: number | null } }> }>('/qualification-views/board?pageSize=200', token);
   for (const row of board.items) {
     if (row.housePart.specVersion === null) continue;
-    const answer = await get<CompareAnswer>(`/qualifications/compare/${row.housePart.id}`, token);
+    const answer = await get<CompareAnswer>(`/qualification-views/compare/${row.housePart.id}`, token);
     const limits = new Set(answer.sources.map((s) => s.powerLimit?.allowed).filter((x): x is number => typeof x === 'number').map((x) => x.toPrecision(3)));
     if (limits.size >= 2) return answer;
   }

@@ -40,7 +40,7 @@ async function get<T>(path: string, bearer: string): Promise<T> {
 async function findTargets(count: number): Promise<Array<{ part: Part; housePart: HousePartChoice }>> {
   const engineer = await token('engineer@demo.test');
   const designer = await token('designer@demo.test');
-  const board = await get<{ items: Array<{ sources: Array<{ vendorPart: { id: number } }> }> }>('/qualifications/board?pageSize=200', engineer);
+  const board = await get<{ items: Array<{ sources: Array<{ vendorPart: { id: number } }> }> }>('/qualification-views/board?pageSize=200', engineer);
   const sources = new Set(board.items.flatMap((row) => row.sources.map((s) => s.vendorPart.id)));
   const asked = await get<{ items: Array<{ vendorPart: { id: number } }> }>('/qualification-requests?status=all&pageSize=200', designer);
   const askedFor = new Set(asked.items.map((r) => r.vendorPart.id));

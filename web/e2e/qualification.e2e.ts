@@ -34,13 +34,13 @@ async function get<T>(path: string, bearer: string): Promise<T> {
 async function findTarget(): Promise<Target> {
   const bearer = await token('engineer@demo.test');
   const board = await get<{ items: Array<{ housePart: { id: number; partNumber: string; specVersion: number | null }; sources: Array<{ role: string; state: string; vendorPart: { id: number } }> }> }>(
-    '/qualifications/board?pageSize=200&state=none',
+    '/qualification-views/board?pageSize=200&state=none',
     bearer,
   );
   for (const row of board.items) {
     if (row.housePart.specVersion === null || !row.sources.some((s) => s.role === 'alternate' && s.state === 'none')) continue;
     const compare = await get<{ sources: Array<{ role: string; latestCase: unknown; evaluation: { overall: string } | null; vendorPart: { id: number; manufacturer: string; mpn: string } }> }>(
-      `/qualifications/compare/${row.housePart.id}`,
+      `/qualification-views/compare/${row.housePart.id}`,
       bearer,
     );
     const source = compare.sources.find((s) => s.role === 'alternate' && s.latestCase === null && s.evaluation?.overall === 'pass');

@@ -1,11 +1,10 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { Inject, Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
-import { InjectConnection } from '@nestjs/sequelize';
 import type { AcceptInvitationRequest, LoginRequest, LoginResponse, UserSummary } from '@shuntwise/contracts';
-import { Sequelize } from 'sequelize-typescript';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, type Env } from '../config/env';
+import { UnitOfWork } from '../database/unit-of-work';
 import type { User } from '../users/user.model';
 import { UsersRepository } from '../users/users.repository';
 import type { JwtPayload } from './jwt.strategy';
@@ -22,7 +21,7 @@ export class AuthService {
     @Inject(ENV) private readonly env: Env,
     private readonly users: UsersRepository,
     private readonly jwt: JwtService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /** Unknown e-mail, inactive user and wrong password all give the same 401 in the same time. */
@@ -30,14 +29,13 @@ export class AuthService {
     const user = await this.users.findByEmail(email);
     const ok = await verifyPassword(user?.passwordHash, password);
     if (!user || !ok || !user.active) throw new UnauthorizedException(BAD_CREDENTIALS);
-    await user.update({ lastLoginAt: new Date() });
+    await this.users.saveUser(user, { lastLoginAt: new Date() });
     return this.issue(user);
   }
 
   /** Ends every token the user holds (all devices). */
   async logout(userId: number): Promise<void> {
-    const user = await this.users.findById(userId);
-    if (user) await user.increment('tokenVersion');
+    await this.users.endTokens(userId);
   }
 
   /** The signed-in user as the token check read it from the users row in this very request: no second read. */
@@ -56,20 +54,20 @@ export class AuthService {
   /** Single use: the invitation row is locked, checked and marked accepted in one transaction. */
   async acceptInvitation(request: AcceptInvitationRequest): Promise<LoginResponse> {
     const passwordHash = await hashPassword(request.password);
-    const user = await this.sequelize.transaction(async (transaction) => {
+    const user = await this.unitOfWork.run(async (transaction) => {
       const invitation = await this.users.findInvitationByHash(hashToken(request.token), transaction);
       if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt.getTime() < Date.now()) {
         throw new NotFoundException('This invitation is unknown, already used or expired; ask an admin for a new one');
       }
-      await invitation.update({ acceptedAt: new Date() }, { transaction });
+      await this.users.saveInvitation(invitation, { acceptedAt: new Date() }, transaction);
       const existing = await this.users.findByEmail(invitation.email, transaction);
       if (existing) {
         // Re-invited person (e.g. never finished before): set the password, keep the id.
-        return existing.update({ name: request.name, passwordHash, role: invitation.role, active: true, tokenVersion: existing.tokenVersion + 1 }, { transaction });
+        return this.users.saveUser(existing, { name: request.name, passwordHash, role: invitation.role, active: true, tokenVersion: existing.tokenVersion + 1 }, transaction);
       }
       return this.users.create({ email: invitation.email, name: request.name, role: invitation.role, passwordHash }, transaction);
     });
-    await user.update({ lastLoginAt: new Date() });
+    await this.users.saveUser(user, { lastLoginAt: new Date() });
     return this.issue(user);
   }
 

@@ -1,5 +1,4 @@
-import { BadRequestException, ConflictException, Injectable } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
+import { BadRequestException, Injectable } from '@nestjs/common';
 import {
   CARD_FIELDS,
   type CsvImportPreview,
@@ -11,8 +10,9 @@ import {
   type RatingCardFieldsParsed,
   type TcValue,
 } from '@shuntwise/contracts';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DatasheetsService } from '../datasheets/datasheets.service';
 import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
 import { RatingCardsService, StaleCardError } from '../vendor-parts/rating-cards.service';
@@ -34,7 +34,7 @@ export class CatalogueCsvService {
     private readonly cards: RatingCardsRepository,
     private readonly cardsService: RatingCardsService,
     private readonly datasheets: DatasheetsService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   async preview(request: CsvImportRequest): Promise<CsvImportPreview> {
@@ -74,7 +74,7 @@ export class CatalogueCsvService {
     if (rows.length === 0) throw new BadRequestException('Nothing imported: the CSV has no rows');
     const result: CsvImportResult = { created: 0, cardsAdded: 0, unchanged: 0, conflicts: [], vendorPartIds: [] };
     try {
-      await this.sequelize.transaction(async (transaction) => {
+      await this.unitOfWork.run(async (transaction) => {
         for (const row of rows) {
           if (row.action === 'unchanged' || row.action === 'conflict') {
             if (row.action === 'unchanged') result.unchanged++;
@@ -98,7 +98,13 @@ export class CatalogueCsvService {
         }
       });
     } catch (error) {
-      if (error instanceof StaleCardError) throw new ConflictException('A card was added to one of these parts since the preview: preview again');
+      if (error instanceof StaleCardError) {
+        const row = rows.find((r) => r.vendorPartId === error.vendorPartId);
+        throw new StaleConflictException(`A card was added to ${row?.mpn ?? `vendor part ${error.vendorPartId}`} since the preview (now version ${error.currentVersion}): preview again. Nothing was imported.`, {
+          current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
+          errors: row ? [{ path: `row ${row.row}`, message: `card is now at version ${error.currentVersion}` }] : undefined,
+        });
+      }
       throw error;
     }
     return result;

@@ -2,7 +2,6 @@ import { createHash, randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import {
   BadRequestException,
-  ConflictException,
   HttpException,
   HttpStatus,
   Injectable,
@@ -11,7 +10,6 @@ import {
   ServiceUnavailableException,
   UnprocessableEntityException,
 } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   extractionResultSchema,
   type CreateVariantsRequest,
@@ -24,9 +22,10 @@ import {
   type UploadDatasheetResponse,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { PdfReadError } from '../extraction';
 import { ExtractionLimitError } from '../extraction-worker/extraction-pool';
 import { StorageService } from '../storage/storage.service';
@@ -64,7 +63,7 @@ export class DatasheetsService {
     private readonly vendorPartsService: VendorPartsService,
     private readonly cards: RatingCardsService,
     private readonly events: CatalogueEvents,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /**
@@ -84,7 +83,7 @@ export class DatasheetsService {
 
     const extraction = await this.read(file.buffer);
     const key = `datasheets/${randomUUID()}.pdf`;
-    const transaction = await this.sequelize.transaction();
+    const transaction = await this.unitOfWork.begin();
     let stored = false;
     try {
       const row = await this.datasheets.create(
@@ -180,7 +179,7 @@ export class DatasheetsService {
    */
   async createVariants(datasheetId: number, request: Omit<CreateVariantsRequest, 'variants'> & { variants: Array<Omit<DatasheetVariantInput, 'fields'> & { fields: RatingCardFieldsParsed }> }, user: AuthUser): Promise<CreateVariantsResponse> {
     if (!(await this.exists(datasheetId))) throw new NotFoundException(`No datasheet with id ${datasheetId}`);
-    return this.sequelize.transaction(async (transaction) => {
+    return this.unitOfWork.run(async (transaction) => {
         const vendorParts: CreateVariantsResponse['vendorParts'] = [];
         for (const [i, variant] of request.variants.entries()) {
           const { part, created } = await this.vendorPartsService.findOrCreateIn(
@@ -194,8 +193,8 @@ export class DatasheetsService {
             card = await this.cards.write(part.id, { baseVersion: 0, fields: variant.fields, note: `from datasheet ${datasheetId}` }, user, transaction, `variants.${i}.fields`);
           } catch (error) {
             if (error instanceof StaleCardError) {
-              throw new ConflictException({
-                message: `${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`,
+              throw new StaleConflictException(`${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`, {
+                current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
                 errors: [{ path: `variants.${i}.mpn`, message: `already has card version ${error.currentVersion}` }],
               });
             }
@@ -209,7 +208,7 @@ export class DatasheetsService {
 
   private async existing(row: Datasheet, fields: UploadDatasheetFields, user: AuthUser): Promise<UploadDatasheetResponse> {
     if (fields.vendorPartId !== undefined) {
-      await this.sequelize.transaction((transaction) => this.linkVendorPart(fields.vendorPartId!, row.id, user, transaction));
+      await this.unitOfWork.run((transaction) => this.linkVendorPart(fields.vendorPartId!, row.id, user, transaction));
     }
     return { ...summary(row), existing: true };
   }

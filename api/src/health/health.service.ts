@@ -1,9 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import type { Health } from '@shuntwise/contracts';
-import { QueryTypes } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
 import { ENV, type Env } from '../config/env';
+import { DatabaseProbe } from '../database/database-probe';
 import { MailService } from '../mail/mail.service';
 import { StorageService } from '../storage/storage.service';
 
@@ -34,7 +32,7 @@ export class HealthService {
 
   constructor(
     @Inject(ENV) private readonly env: Env,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly probe: DatabaseProbe,
     private readonly storage: StorageService,
     private readonly mail: MailService,
   ) {}
@@ -52,7 +50,7 @@ export class HealthService {
 
   private pingDatabase(): Promise<boolean> {
     this.database ??= withTimeout(
-      this.sequelize.query('SELECT 1', { type: QueryTypes.SELECT }).then(
+      this.probe.ping().then(
         () => true,
         () => false,
       ),

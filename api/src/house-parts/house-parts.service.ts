@@ -1,5 +1,4 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   DESIGNER_HOUSE_PART_STATUSES,
   QUALIFICATION_STATE_LABELS,
@@ -19,9 +18,10 @@ import {
 } from '@shuntwise/contracts';
 import { sameSpec } from '@shuntwise/contracts';
 import { UniqueConstraintError } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { VendorPartsRepository } from '../vendor-parts/vendor-parts.repository';
 import type { HousePartSpec } from './house-part-spec.model';
 import { HousePartsRepository, type HousePartRow, type SourceRow } from './house-parts.repository';
@@ -34,7 +34,7 @@ export class HousePartsService {
     private readonly houseParts: HousePartsRepository,
     private readonly vendorParts: VendorPartsRepository,
     private readonly events: CatalogueEvents,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /** Designers are offered no drafts (contracts DESIGNER_HOUSE_PART_STATUSES); the other roles see every house part. */
@@ -108,13 +108,13 @@ export class HousePartsService {
    * same transaction.
    */
   async putSpec(housePartId: number, request: ParsedSpecRequest, user: AuthUser): Promise<SpecVersion> {
-    const version = await this.sequelize.transaction(async (transaction) => {
+    const version = await this.unitOfWork.run(async (transaction) => {
       const part = await this.houseParts.findById(housePartId, transaction, true);
       if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
       const current = part.specVersion ?? 0;
       if (request.baseVersion !== current) {
-        throw new ConflictException({
-          message: `The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`,
+        throw new StaleConflictException(`The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`, {
+          current: { version: current },
           errors: [{ path: 'baseVersion', message: `current version is ${current}` }],
         });
       }
@@ -170,7 +170,7 @@ export class HousePartsService {
    * decisions read it, so a decision and an unlink cannot cross.
    */
   async removeSource(housePartId: number, vendorPartId: number): Promise<void> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const source = await this.houseParts.findSource(housePartId, vendorPartId, transaction, true);
       if (!source) throw new NotFoundException(`Vendor part ${vendorPartId} is not a source of house part ${housePartId}`);
       const decision = await this.houseParts.latestDecision(housePartId, vendorPartId, transaction);

@@ -1,13 +1,12 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
-import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { createTransport, type Transporter } from 'nodemailer';
-import { QueryTypes, Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import type { Transaction } from 'sequelize';
 import { ENV, publicUrl, type Env } from '../config/env';
 import { absoluteLinks } from './mail-links';
-import { OutgoingMail } from './outgoing-mail.model';
+import type { OutgoingMail } from './outgoing-mail.model';
+import { OutgoingMailRepository } from './outgoing-mail.repository';
 
 export interface MailMessage {
   to: string[];
@@ -52,8 +51,7 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
 
   constructor(
     @Inject(ENV) private readonly env: Env,
-    @InjectModel(OutgoingMail) private readonly outbox: typeof OutgoingMail,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly outbox: OutgoingMailRepository,
   ) {
     this.transport = createTransport({
       host: env.SMTP_HOST,
@@ -81,10 +79,7 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   async enqueue(message: MailMessage, transaction?: Transaction): Promise<OutgoingMail> {
     const recipients = [...new Set(message.to.map((t) => t.toLowerCase()))];
     const body = absoluteLinks(message.body, publicUrl(this.env));
-    const row = await this.outbox.create(
-      { recipients, subject: message.subject, body, kind: message.kind, nextAttemptAt: new Date() },
-      { transaction },
-    );
+    const row = await this.outbox.create({ recipients, subject: message.subject, body, kind: message.kind, nextAttemptAt: new Date() }, transaction);
     const kick = () => {
       setImmediate(() => void this.flush().catch(() => undefined));
     };
@@ -142,26 +137,8 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   /** Takes up to CLAIM_BATCH due rows for this replica; another replica's claim is skipped, never waited for. */
   private async claim(): Promise<OutgoingMail[]> {
     try {
-      // READ COMMITTED: InnoDB then locks only the rows it takes, no gaps, so a claim never blocks (or
-      // deadlocks with) a transaction that is inserting a new message.
-      return await this.sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
-        const now = new Date();
-        const rows = await this.sequelize.query<{ id: number }>(
-          // Rows this replica claimed earlier and could not settle (the database went away mid-batch) are its own
-          // again at once: only one dispatch runs per process, so nobody here is working on them.
-          `SELECT id FROM outgoing_mail WHERE state = 'pending' AND (next_attempt_at <= ? OR claimed_by = ?)
-           ORDER BY id LIMIT ${CLAIM_BATCH} FOR UPDATE SKIP LOCKED`,
-          { replacements: [now, this.replicaId], type: QueryTypes.SELECT, transaction },
-        );
-        if (!rows.length) return [];
-        const ids = rows.map((r) => r.id);
-        await this.sequelize.query('UPDATE outgoing_mail SET claimed_by = ?, next_attempt_at = ? WHERE id IN (?)', {
-          replacements: [this.replicaId, new Date(now.getTime() + this.env.MAIL_CLAIM_SECONDS * 1000), ids],
-          type: QueryTypes.UPDATE,
-          transaction,
-        });
-        return this.outbox.findAll({ where: { id: ids }, order: [['id', 'ASC']], transaction });
-      });
+      const now = new Date();
+      return await this.outbox.claim(this.replicaId, CLAIM_BATCH, now, new Date(now.getTime() + this.env.MAIL_CLAIM_SECONDS * 1000));
     } catch (error) {
       // A claim that lost to another replica (Galera certification: a deadlock error) takes nothing this round.
       this.logger.debug(`outbox claim not taken: ${(error as Error).message}`);
@@ -213,28 +190,13 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   }
 
   /** Extends this replica's claim on one message by a full lease; false when it no longer holds it. */
-  private async renew(id: number): Promise<boolean> {
-    await this.sequelize.query('UPDATE outgoing_mail SET next_attempt_at = ? WHERE id = ? AND claimed_by = ?', {
-      replacements: [new Date(Date.now() + this.env.MAIL_CLAIM_SECONDS * 1000), id, this.replicaId],
-      type: QueryTypes.UPDATE,
-    });
-    // Read back rather than count affected rows: the driver counts changed rows, and a lease renewed
-    // within the same second as the claim leaves the row unchanged.
-    const [row] = await this.sequelize.query<{ claimedBy: string | null }>("SELECT claimed_by AS claimedBy FROM outgoing_mail WHERE id = ? AND state = 'pending'", {
-      replacements: [id],
-      type: QueryTypes.SELECT,
-    });
-    return row?.claimedBy === this.replicaId;
+  private renew(id: number): Promise<boolean> {
+    return this.outbox.renew(id, this.replicaId, new Date(Date.now() + this.env.MAIL_CLAIM_SECONDS * 1000));
   }
 
   /** Writes a result and drops the claim, only while this replica still holds it; false when it no longer did. */
-  private async release(id: number, values: Record<string, unknown>): Promise<boolean> {
-    const columns = Object.keys(values);
-    const [, affected] = (await this.sequelize.query(
-      `UPDATE outgoing_mail SET ${columns.map((c) => `${c} = ?`).join(', ')}, claimed_by = NULL, updated_at = ? WHERE id = ? AND claimed_by = ?`,
-      { replacements: [...columns.map((c) => values[c]), new Date(), id, this.replicaId], type: QueryTypes.UPDATE },
-    )) as unknown as [unknown, number];
-    return affected > 0;
+  private release(id: number, values: Record<string, unknown>): Promise<boolean> {
+    return this.outbox.release(id, this.replicaId, values);
   }
 }
 

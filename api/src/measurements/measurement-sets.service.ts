@@ -1,7 +1,6 @@
 import { createHash, randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import { BadRequestException, ConflictException, Injectable, Logger, NotFoundException, ServiceUnavailableException, UnprocessableEntityException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   toEngineeringCard,
   type MeasuredSample,
@@ -9,7 +8,7 @@ import {
   type MeasurementSet,
   type MeasurementSetFields,
 } from '@shuntwise/contracts';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { safeFileName } from '../datasheets/datasheets.service';
@@ -38,7 +37,7 @@ export class MeasurementSetsService {
     private readonly houseParts: HousePartsService,
     private readonly storage: StorageService,
     private readonly events: CatalogueEvents,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /** What the file would give, with every row error: nothing is stored. */
@@ -71,7 +70,7 @@ export class MeasurementSetsService {
     if (known) throw new ConflictException({ message: `This file is already measurement set ${known.id} of this part; nothing was stored again.`, errors: [{ path: 'file', message: `same as measurement set ${known.id}` }] });
 
     const key = `measurements/${randomUUID()}.csv`;
-    const transaction = await this.sequelize.transaction();
+    const transaction = await this.unitOfWork.begin();
     let stored = false;
     try {
       const row = await this.sets.create(

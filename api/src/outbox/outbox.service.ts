@@ -1,14 +1,13 @@
 import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
 import type { CapturedMail as CapturedMailDto } from '@shuntwise/contracts';
-import { CapturedMail } from './captured-mail.model';
+import { CapturedMailRepository } from './captured-mail.repository';
 
 @Injectable()
 export class OutboxService {
-  constructor(@InjectModel(CapturedMail) private readonly mail: typeof CapturedMail) {}
+  constructor(private readonly mail: CapturedMailRepository) {}
 
   async list(): Promise<CapturedMailDto[]> {
-    const rows = await this.mail.findAll({ order: [['id', 'DESC']], limit: 500 });
+    const rows = await this.mail.latest(500);
     return rows.map((m) => ({
       id: m.id,
       from: m.sender,

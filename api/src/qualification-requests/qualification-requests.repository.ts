@@ -174,9 +174,4 @@ export class QualificationRequestsRepository {
     return row ? { ...row, active: Boolean(row.active) } : null;
   }
 
-  /** Active engineers other than `exceptId` (who hear of a new request). */
-  async engineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
-    const rows = await this.select<{ email: string }>(`SELECT email FROM users WHERE role = 'engineer' AND active = 1 AND id <> ? ORDER BY email`, [exceptId], transaction);
-    return rows.map((r) => r.email);
-  }
 }

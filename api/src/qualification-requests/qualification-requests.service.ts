@@ -8,7 +8,6 @@ import {
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
   isOfferedToDesigners,
@@ -24,8 +23,9 @@ import {
   type QualificationRequestListQuery,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { UsersRepository } from '../users/users.repository';
 import { MailService } from '../mail/mail.service';
 import { QualificationsService, type CaseOpened } from '../qualifications/qualifications.service';
 import type { QualificationRequest } from './qualification-request.model';
@@ -46,9 +46,10 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
 
   constructor(
     private readonly requests: QualificationRequestsRepository,
+    private readonly users: UsersRepository,
     private readonly cases: QualificationsService,
     private readonly mail: MailService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   onModuleInit(): void {
@@ -78,7 +79,7 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
     const housePartId = request.housePartId ?? null;
     let id: number;
     try {
-      id = await this.sequelize.transaction(async (transaction) => {
+      id = await this.unitOfWork.run(async (transaction) => {
         const vp = await this.requests.vendorPart(request.vendorPartId, transaction);
         if (!vp) throw new NotFoundException({ message: `No vendor part with id ${request.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
         const hp = housePartId !== null ? await this.requests.housePart(housePartId, transaction) : null;
@@ -141,7 +142,7 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
 
   /** `POST /qualification-requests/:id/decline`: closes the request with the engineer's reply, mailed to the requester. */
   async decline(id: number, body: DeclineQualificationRequest, user: AuthUser): Promise<QualificationRequestDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const row = await this.requests.findById(id, transaction, true);
       if (!row) throw new NotFoundException(`No qualification request with id ${id}`);
       if (row.state !== 'open') throw await this.closed(row);
@@ -220,7 +221,7 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
     user: AuthUser,
     transaction: Transaction,
   ): Promise<void> {
-    const to = await this.requests.engineerEmails(user.id, transaction);
+    const to = await this.users.activeEngineerEmails(user.id, transaction);
     if (to.length === 0) return;
     const part = `${vp.manufacturer} ${vp.mpn}`;
     await this.mail.enqueue(

@@ -2,6 +2,7 @@ import { ConflictException, ForbiddenException, Injectable, NotFoundException, U
 import type { HousePartBuyer as HousePartBuyerDto } from '@shuntwise/contracts';
 import { UniqueConstraintError } from 'sequelize';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { UsersRepository } from '../users/users.repository';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import type { HousePartBuyer } from './house-part-buyer.model';
 import { QualificationsRepository } from './qualifications.repository';
@@ -15,6 +16,7 @@ import { QualificationsRepository } from './qualifications.repository';
 export class HousePartBuyersService {
   constructor(
     private readonly cases: QualificationsRepository,
+    private readonly users: UsersRepository,
     private readonly houseParts: HousePartsRepository,
   ) {}
 
@@ -26,7 +28,7 @@ export class HousePartBuyersService {
   async add(housePartId: number, userId: number, user: AuthUser): Promise<HousePartBuyerDto> {
     onlySelf(userId, user, 'add');
     const part = await this.housePart(housePartId);
-    const buyer = await this.cases.findUser(userId);
+    const buyer = await this.users.findById(userId);
     if (!buyer || buyer.role !== 'buyer' || !buyer.active) {
       throw new UnprocessableEntityException({ message: `User ${userId} is not an active buyer`, errors: [{ path: 'userId', message: 'must be an active buyer' }] });
     }

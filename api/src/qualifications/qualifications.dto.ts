@@ -1,8 +1,5 @@
 import {
   addHousePartBuyerRequestSchema,
-  boardPageSchema,
-  boardQuerySchema,
-  comparePayloadSchema,
   createQualificationRequestSchema,
   housePartBuyerSchema,
   qualificationApproveRequestSchema,
@@ -20,8 +17,6 @@ import {
   qualificationSendBackRequestSchema,
   qualificationSubmitRequestSchema,
   qualificationWithdrawRequestSchema,
-  sourcesQuerySchema,
-  sourcesViewSchema,
   updateQualificationRequestSchema,
 } from '@shuntwise/contracts';
 import { createZodDto } from 'nestjs-zod';
@@ -43,10 +38,5 @@ export class WithdrawDto extends createZodDto(qualificationWithdrawRequestSchema
 export class RevokeDto extends createZodDto(qualificationRevokeRequestSchema) {}
 export class RecheckDto extends createZodDto(qualificationRecheckRequestSchema) {}
 export class CommentDto extends createZodDto(qualificationCommentRequestSchema) {}
-export class BoardQueryDto extends createZodDto(boardQuerySchema) {}
-export class BoardPageDto extends createZodDto(boardPageSchema) {}
-export class ComparePayloadDto extends createZodDto(comparePayloadSchema) {}
-export class SourcesQueryDto extends createZodDto(sourcesQuerySchema) {}
-export class SourcesViewDto extends createZodDto(sourcesViewSchema) {}
 export class HousePartBuyerDto extends createZodDto(housePartBuyerSchema) {}
 export class AddHousePartBuyerDto extends createZodDto(addHousePartBuyerRequestSchema) {}

@@ -2,7 +2,6 @@ import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import type {
   AuditEntry,
-  BoardQuery,
   Evaluation,
   HousePartStatus,
   QualificationListQuery,
@@ -19,7 +18,6 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
-import { TextIndexRepository } from '../text-index/text-index.repository';
 import { HousePartBuyer } from './house-part-buyer.model';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
@@ -72,53 +70,6 @@ export interface CatalogueBasis {
   sourceRole: SourceRole | null;
 }
 
-export interface BoardSourceRow {
-  housePartId: number;
-  vendorPartId: number;
-  manufacturer: string;
-  mpn: string;
-  package: string | null;
-  role: SourceRole;
-  cardVersion: number | null;
-  caseId: number | null;
-  revision: number | null;
-  state: QualificationState | null;
-  overall: QualificationVerdict | null;
-  preparedById: number | null;
-  preparedByName: string | null;
-  decidedById: number | null;
-  decidedByName: string | null;
-  needsRecheck: number | boolean | null;
-  updatedAt: Date | null;
-}
-
-export interface HousePartHead {
-  id: number;
-  partNumber: string;
-  description: string;
-  status: HousePartStatus;
-  specVersion: number | null;
-}
-
-/** A case without its evaluation, as the Sources view folds them per source. */
-export interface PairCaseRow {
-  id: number;
-  housePartId: number;
-  vendorPartId: number;
-  revision: number;
-  state: QualificationState;
-  overall: QualificationVerdict;
-  decisionText: string | null;
-  decidedAt: Date | null;
-  decidedById: number | null;
-  decidedByName: string | null;
-  revokedAt: Date | null;
-  revokedById: number | null;
-  revokedByName: string | null;
-  revokeReason: string | null;
-  needsRecheck: number | boolean;
-}
-
 const SORT_COLUMNS: Record<QualificationSort, string> = { updatedAt: 'q.updated_at', createdAt: 'q.created_at', state: 'q.state', id: 'q.id' };
 
 const CASE_SELECT = `SELECT q.id, q.house_part_id AS housePartId, h.part_number AS partNumber, h.description AS housePartDescription,
@@ -140,9 +91,6 @@ LEFT JOIN users du ON du.id = q.decided_by_id
 LEFT JOIN users vu ON vu.id = q.revoked_by_id
 LEFT JOIN qualifications nx ON nx.previous_id = q.id`;
 
-/** The latest case of each house part and vendor part: the one nobody revised. */
-const LATEST_CASES = `(SELECT l.* FROM qualifications l LEFT JOIN qualifications lx ON lx.previous_id = l.id WHERE lx.id IS NULL)`;
-
 /** The only place that queries qualification cases, their trail, comments and buyer links. */
 @Injectable()
 export class QualificationsRepository {
@@ -152,8 +100,6 @@ export class QualificationsRepository {
     @InjectModel(QualificationEvent) private readonly events: typeof QualificationEvent,
     @InjectModel(QualificationComment) private readonly comments: typeof QualificationComment,
     @InjectModel(HousePartBuyer) private readonly buyers: typeof HousePartBuyer,
-    @InjectModel(User) private readonly users: typeof User,
-    private readonly textIndex: TextIndexRepository,
   ) {}
 
   private select<T extends object>(sql: string, replacements: unknown[], transaction?: Transaction): Promise<T[]> {
@@ -324,145 +270,6 @@ export class QualificationsRepository {
     return flagged;
   }
 
-  /** House parts for the Board, one page, with the sources that match the filters. */
-  async board(
-    query: BoardQuery,
-    now: Date,
-  ): Promise<{ heads: HousePartHead[]; sources: BoardSourceRow[]; total: number; counts: Array<{ state: string; n: number | bigint }>; engineers: Array<{ id: number; name: string }> }> {
-    const where: string[] = [];
-    const params: unknown[] = [];
-    if (query.q) {
-      const text = this.textIndex.housePartCondition('h', query.q);
-      where.push(text.sql);
-      params.push(...text.params);
-    }
-    // The state tallies ignore the state filter (a state left out still shows how many it
-    // has), so the other source filters are kept apart from it.
-    const otherWhere: string[] = [];
-    const otherParams: unknown[] = [];
-    const stateWhere: string[] = [];
-    const stateParams: unknown[] = [];
-    if (query.state) {
-      const states = query.state.filter((s) => s !== 'none');
-      const parts: string[] = [];
-      if (states.length) {
-        parts.push(`q.state IN (${states.map(() => '?').join(', ')})`);
-        stateParams.push(...states);
-      }
-      if (query.state.includes('none')) parts.push('(s.id IS NOT NULL AND q.id IS NULL)');
-      stateWhere.push(`(${parts.join(' OR ')})`);
-    }
-    if (query.engineerId !== undefined) {
-      otherWhere.push('(q.prepared_by_id = ? OR q.decided_by_id = ?)');
-      otherParams.push(query.engineerId, query.engineerId);
-    }
-    if (query.minAgeDays !== undefined) {
-      otherWhere.push('q.updated_at <= ?');
-      otherParams.push(new Date(now.getTime() - query.minAgeDays * 86_400_000));
-    }
-    if (query.needsRecheck !== undefined) {
-      otherWhere.push(query.needsRecheck ? 'q.needs_recheck = 1' : '(s.id IS NOT NULL AND (q.id IS NULL OR q.needs_recheck = 0))');
-    }
-    const sourceWhere = [...stateWhere, ...otherWhere];
-    const sourceParams = [...stateParams, ...otherParams];
-    const filtered = sourceWhere.length > 0;
-    const from = `FROM house_parts h
-      LEFT JOIN house_part_sources s ON s.house_part_id = h.id
-      LEFT JOIN ${LATEST_CASES} q ON q.house_part_id = s.house_part_id AND q.vendor_part_id = s.vendor_part_id`;
-    const allWhere = [...where, ...sourceWhere];
-    const whereSql = allWhere.length ? `WHERE ${allWhere.join(' AND ')}` : '';
-    const allParams = [...params, ...sourceParams];
-
-    const heads = await this.select<HousePartHead>(
-      `SELECT h.id, h.part_number AS partNumber, h.description, h.status, h.spec_version AS specVersion
-       FROM house_parts h WHERE h.id IN (SELECT DISTINCT h.id ${from} ${whereSql})
-       ORDER BY h.part_number LIMIT ? OFFSET ?`,
-      [...allParams, query.pageSize, query.pageIndex * query.pageSize],
-    );
-    const [{ total }] = await this.select<{ total: number | bigint }>(`SELECT COUNT(DISTINCT h.id) AS total ${from} ${whereSql}`, allParams);
-    const countWhere = [...where, ...otherWhere, 's.id IS NOT NULL'];
-    const counts = await this.select<{ state: string; n: number | bigint }>(
-      `SELECT COALESCE(q.state, 'none') AS state, COUNT(*) AS n ${from} WHERE ${countWhere.join(' AND ')} GROUP BY COALESCE(q.state, 'none')`,
-      [...params, ...otherParams],
-    );
-    // Everyone the engineer filter can name: every engineer, and whoever prepared or decided a case.
-    const engineers = await this.select<{ id: number; name: string }>(
-      `SELECT u.id, u.name FROM users u
-       WHERE u.role = 'engineer'
-          OR u.id IN (SELECT prepared_by_id FROM qualifications)
-          OR u.id IN (SELECT decided_by_id FROM qualifications WHERE decided_by_id IS NOT NULL)
-       ORDER BY u.name, u.id`,
-      [],
-    );
-    if (heads.length === 0) return { heads, sources: [], total: Number(total), counts, engineers };
-    const ids = heads.map((h) => h.id);
-    const sources = await this.select<BoardSourceRow>(
-      `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
-         ${sourceRoleSql('s')} AS role, vp.card_version AS cardVersion, q.id AS caseId, q.revision, q.state, q.overall,
-         q.prepared_by_id AS preparedById, pu.name AS preparedByName, q.decided_by_id AS decidedById, du.name AS decidedByName,
-         q.needs_recheck AS needsRecheck, q.updated_at AS updatedAt
-       ${from}
-       JOIN vendor_parts vp ON vp.id = s.vendor_part_id
-       LEFT JOIN users pu ON pu.id = q.prepared_by_id
-       LEFT JOIN users du ON du.id = q.decided_by_id
-       WHERE h.id IN (${ids.map(() => '?').join(', ')}) ${filtered ? `AND ${sourceWhere.join(' AND ')}` : ''}
-       ORDER BY h.part_number, ${sourceRoleSql('s')} = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
-      [...ids, ...sourceParams],
-    );
-    return { heads, sources, total: Number(total), counts, engineers };
-  }
-
-  /** House parts for the Sources view, with every source (one query for the parts, one for the sources). */
-  async sourceHeads(filter: { housePartId?: number; q?: string; buyerId?: number }): Promise<HousePartHead[]> {
-    const where: string[] = [];
-    const params: unknown[] = [];
-    if (filter.housePartId !== undefined) {
-      where.push('h.id = ?');
-      params.push(filter.housePartId);
-    }
-    if (filter.q) {
-      const text = this.textIndex.housePartCondition('h', filter.q);
-      where.push(text.sql);
-      params.push(...text.params);
-    }
-    if (filter.buyerId !== undefined) {
-      where.push('EXISTS (SELECT 1 FROM house_part_buyers b WHERE b.house_part_id = h.id AND b.user_id = ?)');
-      params.push(filter.buyerId);
-    }
-    return this.select<HousePartHead>(
-      `SELECT h.id, h.part_number AS partNumber, h.description, h.status, h.spec_version AS specVersion FROM house_parts h
-       ${where.length ? `WHERE ${where.join(' AND ')}` : ''} ORDER BY h.part_number`,
-      params,
-    );
-  }
-
-  async sourcesOf(housePartIds: number[]): Promise<Array<Omit<BoardSourceRow, 'caseId' | 'revision' | 'state' | 'overall' | 'preparedById' | 'preparedByName' | 'decidedById' | 'decidedByName' | 'needsRecheck' | 'updatedAt'>>> {
-    if (housePartIds.length === 0) return [];
-    return this.select(
-      `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,
-         ${sourceRoleSql('s')} AS role, vp.card_version AS cardVersion
-       FROM house_part_sources s JOIN vendor_parts vp ON vp.id = s.vendor_part_id
-       WHERE s.house_part_id IN (${housePartIds.map(() => '?').join(', ')})
-       ORDER BY ${sourceRoleSql('s')} = 'approved' DESC, vp.manufacturer_name, vp.mpn`,
-      housePartIds,
-    );
-  }
-
-  /** Every case (without its evaluation) of the given house parts, oldest revision first. */
-  async casesOf(housePartIds: number[]): Promise<PairCaseRow[]> {
-    if (housePartIds.length === 0) return [];
-    return this.select<PairCaseRow>(
-      `SELECT q.id, q.house_part_id AS housePartId, q.vendor_part_id AS vendorPartId, q.revision, q.state, q.overall, q.decision_text AS decisionText,
-         q.decided_at AS decidedAt, q.decided_by_id AS decidedById, du.name AS decidedByName,
-         q.revoked_at AS revokedAt, q.revoked_by_id AS revokedById, vu.name AS revokedByName, q.revoke_reason AS revokeReason,
-         q.needs_recheck AS needsRecheck
-       FROM qualifications q LEFT JOIN users du ON du.id = q.decided_by_id LEFT JOIN users vu ON vu.id = q.revoked_by_id
-       WHERE q.house_part_id IN (${housePartIds.map(() => '?').join(', ')})
-       ORDER BY q.house_part_id, q.vendor_part_id, q.revision`,
-      housePartIds,
-    );
-  }
-
   // Buyers of a house part.
 
   listBuyers(housePartId: number): Promise<HousePartBuyer[]> {
@@ -507,15 +314,7 @@ export class QualificationsRepository {
     return row ?? { specVersion: null, cardVersion: null };
   }
 
-  findUser(id: number, transaction?: Transaction): Promise<User | null> {
-    return this.users.findByPk(id, { transaction });
-  }
-
   /** Active engineers other than `exceptId` (who is told a case waits for review). */
-  async engineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
-    const rows = await this.select<{ email: string }>(`SELECT email FROM users WHERE role = 'engineer' AND active = 1 AND id <> ? ORDER BY email`, [exceptId], transaction);
-    return rows.map((r) => r.email);
-  }
 }
 
 function json<T>(value: T | string): T {

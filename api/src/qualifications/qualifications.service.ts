@@ -9,7 +9,6 @@ import {
   type OnModuleDestroy,
   type OnModuleInit,
 } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   QUALIFICATION_STATE_LABELS,
   QUALIFICATION_TRANSITIONS,
@@ -45,9 +44,11 @@ import {
   type UpdateQualificationRequest,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents, type CatalogueChange } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
+import { UsersRepository } from '../users/users.repository';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DESIGN_CAUTION } from '../engineering/caution';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
@@ -94,12 +95,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   constructor(
     private readonly cases: QualificationsRepository,
+    private readonly users: UsersRepository,
     private readonly houseParts: HousePartsRepository,
     private readonly mail: MailService,
     private readonly events: CatalogueEvents,
     private readonly waivers: WaiversService,
     private readonly records: DecisionRecordsService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   onModuleInit(): void {
@@ -174,7 +176,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   async open(request: CreateQualificationRequest, user: AuthUser): Promise<number> {
     let id: number;
     try {
-      id = await this.sequelize.transaction(async (transaction) => {
+      id = await this.unitOfWork.run(async (transaction) => {
         const basis = await this.basis(request.housePartId, request.vendorPartId, transaction);
         const latest = await this.cases.latestForPair(request.housePartId, request.vendorPartId, transaction);
         const pair = `${basis.vendorPart.manufacturer} ${basis.vendorPart.mpn} for ${basis.housePart.partNumber}`;
@@ -204,7 +206,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** `PATCH /qualifications/:id`: the preparer's notes and the named reviewer, in draft only. */
   async update(id: number, request: UpdateQualificationRequest, user: AuthUser): Promise<QualificationDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const row = await this.lockCase(id, transaction);
       checkVersion(row, request.version);
       if (isDecidedState(row.state)) throw immutable(row, 'edited');
@@ -228,7 +230,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   async comment(id: number, text: string, user: AuthUser): Promise<QualificationDto> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const row = await this.cases.findById(id, transaction);
       if (!row) throw new NotFoundException(`No qualification case with id ${id}`);
       await this.cases.addComment({ qualificationId: id, userId: user.id, text }, transaction);
@@ -244,7 +246,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   /** The state change of `act`, answering the id of the case it leaves (a re-check's new one); the seed uses it directly. */
   async apply(id: number, action: QualificationAction, body: ActionBody, user: AuthUser): Promise<number> {
-    return this.sequelize.transaction(async (transaction) => {
+    return this.unitOfWork.run(async (transaction) => {
       const peek = await this.cases.findById(id, transaction);
       if (!peek) throw new NotFoundException(`No qualification case with id ${id}`);
       // Catalogue rows first (shared), then the case (exclusive): the order catalogue saves take.
@@ -320,7 +322,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   private async checkReviewer(reviewerId: number, row: Qualification, transaction: Transaction): Promise<void> {
-    const reviewer = await this.cases.findUser(reviewerId, transaction);
+    const reviewer = await this.users.findById(reviewerId, transaction);
     if (!reviewer || !reviewer.active || reviewer.role !== 'engineer') {
       throw new UnprocessableEntityException({ message: `User ${reviewerId} is not an active engineer and cannot review`, errors: [{ path: 'reviewerId', message: 'must be an active engineer' }] });
     }
@@ -446,7 +448,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     const hp = basis.housePart.partNumber;
     const link = `/qualifications/${row.id}`;
     if (action === 'submit') {
-      const to = row.reviewerId !== null ? [(await this.cases.findUser(row.reviewerId, transaction))!.email] : await this.cases.engineerEmails(row.preparedById, transaction);
+      const to = row.reviewerId !== null ? [(await this.users.findById(row.reviewerId, transaction))!.email] : await this.users.activeEngineerEmails(row.preparedById, transaction);
       if (to.length === 0) return;
       await this.mail.enqueue(
         {
@@ -498,7 +500,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   /** The engineer who prepared a case hears how it was decided (unless they decided it, or have left). */
   private async mailPreparer(row: Qualification, part: string, hp: string, link: string, user: AuthUser, transaction: Transaction): Promise<void> {
     if (row.preparedById === user.id) return;
-    const preparer = await this.cases.findUser(row.preparedById, transaction);
+    const preparer = await this.users.findById(row.preparedById, transaction);
     if (!preparer?.active) return;
     const outcome = QUALIFICATION_STATE_LABELS[row.state];
     await this.mail.enqueue(
@@ -521,7 +523,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   private async userName(id: number, transaction: Transaction): Promise<string> {
-    return (await this.cases.findUser(id, transaction))?.name ?? `user ${id}`;
+    return (await this.users.findById(id, transaction))?.name ?? `user ${id}`;
   }
 
   /** A catalogue change marks the latest cases it touches: decided ones need a re-check, open ones a new evaluation. */
@@ -577,7 +579,10 @@ function auditChanges(action: QualificationAction, row: Qualification, basis: Ca
 
 function checkVersion(row: Qualification, version: number | undefined): void {
   if (version !== undefined && version !== row.version) {
-    throw new ConflictException(`Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`);
+    throw new StaleConflictException(`Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`, {
+      current: { version: row.version },
+      errors: [{ path: 'version', message: `current version is ${row.version}` }],
+    });
   }
 }
 

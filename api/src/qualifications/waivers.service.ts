@@ -1,5 +1,4 @@
 import { ConflictException, ForbiddenException, Inject, Injectable, Logger, NotFoundException, UnprocessableEntityException, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
-import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   CHECK_LABELS,
   QUALIFICATION_STATE_LABELS,
@@ -18,15 +17,19 @@ import {
   type WaiverBlock,
   type WaiverBrief,
 } from '@shuntwise/contracts';
-import { QueryTypes, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import type { Transaction } from 'sequelize';
 import { Clock } from '../common/clock';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, publicUrl, type Env } from '../config/env';
+import { UnitOfWork } from '../database/unit-of-work';
+import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
+import { UsersRepository } from '../users/users.repository';
+import { VendorPartsRepository } from '../vendor-parts/vendor-parts.repository';
 import type { Qualification } from './qualification.model';
 import { QualificationsRepository } from './qualifications.repository';
-import { QualificationWaiver } from './waiver.model';
+import type { QualificationWaiver } from './waiver.model';
+import { WaiversRepository, type WaiverRow } from './waivers.repository';
 
 /** How often each process runs the lapse pass (every replica does; the case lock makes it happen once). */
 const LAPSE_EVERY_MS = 60_000;
@@ -44,12 +47,15 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   private timer?: NodeJS.Timeout;
 
   constructor(
-    @InjectModel(QualificationWaiver) private readonly waivers: typeof QualificationWaiver,
+    private readonly waivers: WaiversRepository,
     private readonly cases: QualificationsRepository,
+    private readonly users: UsersRepository,
+    private readonly houseParts: HousePartsRepository,
+    private readonly vendorParts: VendorPartsRepository,
     private readonly mail: MailService,
     private readonly clock: Clock,
     @Inject(ENV) private readonly env: Env,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   onModuleInit(): void {
@@ -67,7 +73,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
 
   /** A case's waivers, oldest first (the decision record lists them too). */
   async waiversOf(qualificationId: number, transaction?: Transaction): Promise<Waiver[]> {
-    const rows = await this.sequelize.query<WaiverRow>(`${WAIVER_SELECT} WHERE w.qualification_id = ? ORDER BY w.id`, { replacements: [qualificationId], type: QueryTypes.SELECT, transaction });
+    const rows = await this.waivers.rowsOf(qualificationId, transaction);
     return rows.map(toWaiver);
   }
 
@@ -80,11 +86,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   async briefsOf(caseIds: readonly number[]): Promise<Map<number, WaiverBrief[]>> {
     const out = new Map<number, WaiverBrief[]>();
     if (caseIds.length === 0) return out;
-    const rows = await this.sequelize.query<{ id: number; qualificationId: number; checkId: CheckId; quantity: WaiverBrief['quantity']; acceptedLimit: number | null; expiresOn: string | Date; state: WaiverBrief['state'] }>(
-      `SELECT id, qualification_id AS qualificationId, check_id AS checkId, quantity, accepted_limit AS acceptedLimit, expires_on AS expiresOn, state
-       FROM qualification_waivers WHERE qualification_id IN (?) AND state IN ('approved', 'lapsed') ORDER BY id`,
-      { replacements: [caseIds], type: QueryTypes.SELECT },
-    );
+    const rows = await this.waivers.briefRowsOf(caseIds);
     for (const r of rows) {
       const brief: WaiverBrief = { id: r.id, checkId: r.checkId, quantity: r.quantity, acceptedLimit: r.acceptedLimit, expiresOn: dateText(r.expiresOn), state: r.state };
       out.set(r.qualificationId, [...(out.get(r.qualificationId) ?? []), brief]);
@@ -94,16 +96,16 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
 
   /** What clear with waiver needs to know (read under the case's lock): checks left uncovered, waivers in force. */
   async factsFor(row: Qualification, transaction: Transaction): Promise<{ gaps: CheckId[]; inForce: number; waivers: QualificationWaiver[] }> {
-    const waivers = await this.waivers.findAll({ where: { qualificationId: row.id }, transaction });
+    const waivers = await this.waivers.findAllOf(row.id, transaction);
     const today = this.today();
     const facts = waivers.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) }));
     return { gaps: waiverGaps(row.evaluation.checks, facts, today), inForce: facts.filter((w) => isWaiverInForce(w, today)).length, waivers: waivers.filter((w) => isWaiverInForce({ state: w.state, expiresOn: dateText(w.expiresOn) }, today)) };
   }
 
   async create(qualificationId: number, request: CreateWaiverRequest, user: AuthUser): Promise<Waiver> {
-    const id = await this.sequelize.transaction(async (transaction) => {
+    const id = await this.unitOfWork.run(async (transaction) => {
       const row = await this.lockCase(qualificationId, transaction);
-      const existing = await this.waivers.findAll({ where: { qualificationId }, transaction });
+      const existing = await this.waivers.findAllOf(qualificationId, transaction);
       const today = this.today();
       const block = prepareWaiverBlock(
         { checkId: request.checkId, acceptedLimit: request.acceptedLimit, expiresOn: request.expiresOn },
@@ -129,7 +131,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
           state: 'proposed',
           preparedById: user.id,
         },
-        { transaction },
+        transaction,
       );
       await this.cases.addEvent(
         {
@@ -159,14 +161,14 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   }
 
   private async decide(qualificationId: number, waiverId: number, to: 'approved' | 'refused', note: string | null, user: AuthUser): Promise<Waiver> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const row = await this.lockCase(qualificationId, transaction);
-      const waiver = await this.waivers.findOne({ where: { id: waiverId, qualificationId }, transaction, lock: transaction.LOCK.UPDATE });
+      const waiver = await this.waivers.findOfCaseLocked(waiverId, qualificationId, transaction);
       if (!waiver) throw new NotFoundException(`Case #${qualificationId} has no waiver with id ${waiverId}`);
       const today = this.today();
       const block = decideWaiverBlock({ state: waiver.state, preparedById: waiver.preparedById, expiresOn: dateText(waiver.expiresOn) }, row.state, user, today);
       if (block) throw waiverRefusal(block, row, waiver.checkId, today, waiver);
-      await waiver.update({ state: to, decidedById: user.id, decidedAt: this.clock.now(), decisionNote: note }, { transaction });
+      await this.waivers.save(waiver, { state: to, decidedById: user.id, decidedAt: this.clock.now(), decisionNote: note }, transaction);
       await this.cases.addEvent(
         {
           qualificationId,
@@ -188,10 +190,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
    */
   async lapseDue(): Promise<number> {
     const today = this.today();
-    const due = await this.sequelize.query<{ id: number; qualificationId: number }>(
-      `SELECT id, qualification_id AS qualificationId FROM qualification_waivers WHERE state = 'approved' AND expires_on < ? ORDER BY id`,
-      { replacements: [today], type: QueryTypes.SELECT },
-    );
+    const due = await this.waivers.due(today);
     let lapsed = 0;
     for (const { id, qualificationId } of due) {
       if (await this.lapseOne(id, qualificationId, today)) lapsed += 1;
@@ -201,13 +200,13 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   }
 
   private async lapseOne(waiverId: number, qualificationId: number, today: string): Promise<boolean> {
-    return this.sequelize.transaction(async (transaction) => {
+    return this.unitOfWork.run(async (transaction) => {
       const row = await this.cases.findById(qualificationId, transaction, true);
-      const waiver = await this.waivers.findByPk(waiverId, { transaction, lock: transaction.LOCK.UPDATE });
+      const waiver = await this.waivers.findLocked(waiverId, transaction);
       if (!row || !waiver || !isWaiverDue({ state: waiver.state, expiresOn: dateText(waiver.expiresOn) }, today)) return false;
       const now = this.clock.now();
       const expiresOn = dateText(waiver.expiresOn);
-      await waiver.update({ state: 'lapsed', lapsedAt: now }, { transaction });
+      await this.waivers.save(waiver, { state: 'lapsed', lapsedAt: now }, transaction);
       const what = `${CHECK_LABELS[waiver.checkId]} waiver #${waiver.id} expired on ${expiresOn}`;
       const standingEnds = row.state === 'cleared-with-waiver';
       if (standingEnds) {
@@ -232,11 +231,10 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   }
 
   private async mailLapse(row: Qualification, waiver: QualificationWaiver, what: string, standingEnds: boolean, transaction: Transaction): Promise<void> {
-    const [pair] = await this.sequelize.query<{ partNumber: string; manufacturer: string; mpn: string }>(
-      `SELECT h.part_number AS partNumber, v.manufacturer_name AS manufacturer, v.mpn FROM house_parts h JOIN vendor_parts v ON v.id = ? WHERE h.id = ?`,
-      { replacements: [row.vendorPartId, row.housePartId], type: QueryTypes.SELECT, transaction },
-    );
-    const preparer = await this.cases.findUser(waiver.preparedById, transaction);
+    const housePart = await this.houseParts.findById(row.housePartId, transaction);
+    const vendorPart = await this.vendorParts.findById(row.vendorPartId, transaction);
+    const pair = { partNumber: housePart!.partNumber, manufacturer: vendorPart!.manufacturerName, mpn: vendorPart!.mpn };
+    const preparer = await this.users.findById(waiver.preparedById, transaction);
     const buyers = standingEnds ? await this.cases.buyerEmails(row.housePartId, transaction) : [];
     const to = [...buyers, ...(preparer?.active ? [preparer.email] : [])];
     if (to.length === 0) return;
@@ -271,23 +269,6 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
     return row;
   }
 }
-
-type WaiverRow = Omit<Waiver, 'preparedBy' | 'decidedBy' | 'checkLabel' | 'expiresOn' | 'decidedAt' | 'lapsedAt' | 'createdAt'> & {
-  expiresOn: string | Date;
-  preparedById: number;
-  preparedByName: string;
-  decidedById: number | null;
-  decidedByName: string | null;
-  decidedAt: Date | null;
-  lapsedAt: Date | null;
-  createdAt: Date;
-};
-
-const WAIVER_SELECT = `SELECT w.id, w.qualification_id AS qualificationId, w.house_part_id AS housePartId, w.vendor_part_id AS vendorPartId, w.check_id AS checkId,
-  w.quantity, w.limit_kind AS limitKind, w.spec_limit AS specLimit, w.accepted_limit AS acceptedLimit, w.value, w.reason, w.expires_on AS expiresOn, w.state,
-  w.prepared_by_id AS preparedById, pu.name AS preparedByName, w.decided_by_id AS decidedById, du.name AS decidedByName, w.decided_at AS decidedAt,
-  w.decision_note AS decisionNote, w.lapsed_at AS lapsedAt, w.created_at AS createdAt
-  FROM qualification_waivers w JOIN users pu ON pu.id = w.prepared_by_id LEFT JOIN users du ON du.id = w.decided_by_id`;
 
 function toWaiver(r: WaiverRow): Waiver {
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());

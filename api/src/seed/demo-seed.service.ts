@@ -4,7 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { hashPassword } from '../auth/passwords';
 import { ENV, type Env } from '../config/env';
-import { QualificationsSeeder } from '../qualifications/qualifications-seeder.service';
+import { QualificationsSeeder } from './qualifications-seeder.service';
 import { UsersRepository } from '../users/users.repository';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DEMO_USERS } from './demo-users';

@@ -8,10 +8,11 @@ import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
 import { CatalogueSeeder } from './catalogue-seeder.service';
 import { DemoSeedService } from './demo-seed.service';
 import { MeasurementsSeeder } from './measurements-seeder.service';
+import { QualificationsSeeder } from './qualifications-seeder.service';
 
 @Module({
   imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule, MeasurementsModule],
-  providers: [DemoSeedService, CatalogueSeeder, MeasurementsSeeder],
+  providers: [DemoSeedService, CatalogueSeeder, MeasurementsSeeder, QualificationsSeeder],
   exports: [DemoSeedService],
 })
 export class SeedModule {}

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Role } from '@shuntwise/contracts';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { RawRows } from '../database/raw-rows';
 import { Invitation } from './invitation.model';
 import { User } from './user.model';
@@ -48,6 +48,16 @@ export class UsersRepository {
     return this.users.create({ ...values, email: values.email.toLowerCase() }, { transaction });
   }
 
+  /** Writes the given columns of a user (the instance is updated too). */
+  async saveUser(user: User, values: Partial<Pick<User, 'name' | 'role' | 'active' | 'passwordHash' | 'tokenVersion' | 'lastLoginAt'>>, transaction?: Transaction): Promise<User> {
+    return user.update(values, { transaction });
+  }
+
+  /** Ends every token the user holds: the token version goes up by one in the row itself. */
+  async endTokens(id: number): Promise<void> {
+    await this.users.increment('tokenVersion', { where: { id } });
+  }
+
   listInvitations(): Promise<Invitation[]> {
     return this.invitations.findAll({ order: [['createdAt', 'DESC']] });
   }
@@ -58,6 +68,17 @@ export class UsersRepository {
 
   findInvitationByHash(tokenHash: string, transaction?: Transaction): Promise<Invitation | null> {
     return this.invitations.findOne({ where: { tokenHash }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  }
+
+  /** Writes the given columns of an invitation (the instance is updated too). */
+  async saveInvitation(invitation: Invitation, values: Partial<Pick<Invitation, 'tokenHash' | 'expiresAt' | 'acceptedAt' | 'revokedAt'>>, transaction?: Transaction): Promise<Invitation> {
+    return invitation.update(values, { transaction });
+  }
+
+  /** E-mails of the active engineers except one (who should hear of a case or request waiting for review). */
+  async activeEngineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
+    const rows = await this.users.findAll({ attributes: ['email'], where: { role: 'engineer', active: true, id: { [Op.ne]: exceptId } }, order: [['email', 'ASC']], transaction });
+    return rows.map((r) => r.email);
   }
 
   createInvitation(values: Pick<Invitation, 'email' | 'name' | 'role' | 'tokenHash' | 'invitedById' | 'expiresAt'>, transaction?: Transaction): Promise<Invitation> {

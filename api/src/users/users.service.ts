@@ -1,11 +1,10 @@
 import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import type { CreateInvitationRequest, Invitation as InvitationDto, UpdateUserRequest, User as UserDto } from '@shuntwise/contracts';
 import type { Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
 import { hashToken, newToken } from '../auth/auth.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, publicUrl, type Env } from '../config/env';
+import { UnitOfWork } from '../database/unit-of-work';
 import { MailService } from '../mail/mail.service';
 import type { Invitation } from './invitation.model';
 import type { User } from './user.model';
@@ -17,7 +16,7 @@ export class UsersService {
     @Inject(ENV) private readonly env: Env,
     private readonly users: UsersRepository,
     private readonly mail: MailService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   async list(): Promise<UserDto[]> {
@@ -34,7 +33,7 @@ export class UsersService {
     if (existing?.passwordHash) throw new ConflictException(`A user with the e-mail ${request.email} already exists`);
     const token = newToken();
     const expiresAt = new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000);
-    const invitation = await this.sequelize.transaction(async (transaction) => {
+    const invitation = await this.unitOfWork.run(async (transaction) => {
       const created = await this.users.createInvitation(
         { email: request.email, name: request.name, role: request.role, tokenHash: hashToken(token), invitedById: admin.id, expiresAt },
         transaction,
@@ -50,10 +49,10 @@ export class UsersService {
    * expiry; an accepted or revoked invitation cannot be resent.
    */
   async resendInvitation(id: number, admin: AuthUser): Promise<InvitationDto> {
-    const invitation = await this.sequelize.transaction(async (transaction) => {
+    const invitation = await this.unitOfWork.run(async (transaction) => {
       const row = await this.openInvitation(id, transaction, 'resent');
       const token = newToken();
-      await row.update({ tokenHash: hashToken(token), expiresAt: new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000) }, { transaction });
+      await this.users.saveInvitation(row, { tokenHash: hashToken(token), expiresAt: new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000) }, transaction);
       await this.mailInvitation(row, token, admin, transaction);
       return row;
     });
@@ -62,9 +61,9 @@ export class UsersService {
 
   /** Takes an open invitation back: its link stops working at once. */
   async revokeInvitation(id: number): Promise<InvitationDto> {
-    const invitation = await this.sequelize.transaction(async (transaction) => {
+    const invitation = await this.unitOfWork.run(async (transaction) => {
       const row = await this.openInvitation(id, transaction, 'revoked');
-      await row.update({ revokedAt: new Date() }, { transaction });
+      await this.users.saveInvitation(row, { revokedAt: new Date() }, transaction);
       return row;
     });
     return toInvitationDto(invitation);
@@ -106,7 +105,7 @@ export class UsersService {
       throw new ConflictException('You cannot deactivate yourself or take away your own admin role');
     }
     const endsTokens = (request.role !== undefined && request.role !== user.role) || (request.active === false && user.active);
-    await user.update({ ...request, tokenVersion: endsTokens ? user.tokenVersion + 1 : user.tokenVersion });
+    await this.users.saveUser(user, { ...request, tokenVersion: endsTokens ? user.tokenVersion + 1 : user.tokenVersion });
     return toUserDto(user);
   }
 }

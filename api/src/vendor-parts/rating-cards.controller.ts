@@ -1,14 +1,12 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Put, Query, UseFilters } from '@nestjs/common';
+import { Body, Controller, Get, Param, ParseIntPipe, Put, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiConflictResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
-import { RatingCardConflictFilter } from './rating-card-conflict.filter';
 import { RatingCardsService } from './rating-cards.service';
 import { PutRatingCardDto, RatingCardConflictDto, RatingCardQueryDto, RatingCardVersionSummaryDto, RatingCardViewDto, VendorPartModelDto } from './vendor-parts.dto';
 
 @ApiTags('rating cards')
 @ApiBearerAuth()
-@UseFilters(RatingCardConflictFilter)
 @Controller('vendor-parts/:id')
 export class RatingCardsController {
   constructor(private readonly cards: RatingCardsService) {}

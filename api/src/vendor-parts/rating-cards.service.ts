@@ -1,5 +1,4 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
   normalizeBasis,
@@ -22,8 +21,9 @@ import {
   type VendorPartModel,
 } from '@shuntwise/contracts';
 import type { Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
+import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { fitBreakdownModel, modelSummary } from '../engineering/breakdown-model';
 import { checkCard } from '../engineering/card-checks';
@@ -33,17 +33,6 @@ import { normalize } from '../engineering/normalize';
 import { spiceModelLine } from '../engineering/spice-model';
 import { RatingCardsRepository, type SpecBasis } from './rating-cards.repository';
 import { VendorPartsRepository } from './vendor-parts.repository';
-
-/** A save based on a card version that is no longer current; the controller answers 409 with the current card. */
-export class RatingCardConflictError extends Error {
-  constructor(
-    message: string,
-    readonly current: RatingCardView,
-  ) {
-    super(message);
-    this.name = 'RatingCardConflictError';
-  }
-}
 
 /** Thrown inside a write when the base version is stale (callers turn it into a 409). */
 export class StaleCardError extends Error {
@@ -76,7 +65,7 @@ export class RatingCardsService {
     private readonly cards: RatingCardsRepository,
     private readonly vendorParts: VendorPartsRepository,
     private readonly events: CatalogueEvents,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   /** The card (current or an earlier version), with the engineering core's reading of it only when asked (`include=engineering`). */
@@ -162,12 +151,13 @@ export class RatingCardsService {
   /** `PUT …/rating-card`: saves a new version, or answers 409 with the current card when the base is stale. */
   async put(vendorPartId: number, request: CardWrite, user: AuthUser, read: Pick<RatingCardQuery, 'include' | 'housePartId'> = {}): Promise<RatingCardView> {
     try {
-      await this.sequelize.transaction((transaction) => this.write(vendorPartId, request, user, transaction));
+      await this.unitOfWork.run((transaction) => this.write(vendorPartId, request, user, transaction));
     } catch (error) {
       if (error instanceof StaleCardError) {
-        throw new RatingCardConflictError(
+        // The stale-conflict body with the card as it is now, so the editor can merge (ratingCardConflictSchema).
+        throw new StaleConflictException(
           `Someone else saved this card (now version ${error.currentVersion}) after you loaded version ${error.baseVersion}: compare both and save again on version ${error.currentVersion}`,
-          await this.view(vendorPartId, read),
+          { current: await this.view(vendorPartId, read), errors: [{ path: 'version', message: `current version is ${error.currentVersion}` }] },
         );
       }
       throw error;

@@ -1,5 +1,4 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import type {
   CreateVendorPartRequest,
   Manufacturer,
@@ -10,7 +9,7 @@ import type {
   VendorPartListQuery,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../database/unit-of-work';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import type { VendorPart } from './vendor-part.model';
 import { VendorPartsRepository, type VendorPartRow } from './vendor-parts.repository';
@@ -19,7 +18,7 @@ import { VendorPartsRepository, type VendorPartRow } from './vendor-parts.reposi
 export class VendorPartsService {
   constructor(
     private readonly vendorParts: VendorPartsRepository,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   async list(query: VendorPartListQuery): Promise<Page<VendorPartDto>> {
@@ -44,7 +43,7 @@ export class VendorPartsService {
   }
 
   async create(request: CreateVendorPartRequest, user: AuthUser): Promise<VendorPartDetail> {
-    const id = await this.sequelize.transaction(async (transaction) => (await this.createIn(request, user, transaction)).id);
+    const id = await this.unitOfWork.run(async (transaction) => (await this.createIn(request, user, transaction)).id);
     return this.get(id);
   }
 
@@ -71,7 +70,7 @@ export class VendorPartsService {
   }
 
   async update(id: number, request: UpdateVendorPartRequest): Promise<VendorPartDetail> {
-    await this.sequelize.transaction(async (transaction) => {
+    await this.unitOfWork.run(async (transaction) => {
       const part = await this.vendorParts.findById(id, transaction, true);
       if (!part) throw new NotFoundException(`No vendor part with id ${id}`);
       const values: Parameters<VendorPartsRepository['update']>[1] = {};

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { STALE_CONFLICT_CODE } from '../common/error.schema';
 import {
   cardIssueSchema,
   engineeringCardContradictions,
@@ -265,9 +266,14 @@ export const ratingCardQuerySchema = z.object({
 });
 export type RatingCardQuery = z.infer<typeof ratingCardQuerySchema>;
 
-/** 409 body of a stale save: the error and the card as it is now, so the editor can show both. */
+/**
+ * 409 body of a stale card save: the one stale-conflict body (staleConflictBodySchema in
+ * common/error.schema.ts) whose `current` is the card as it is now, so the editor can show both.
+ */
 export const ratingCardConflictSchema = z.object({
   message: z.string(),
+  code: z.literal(STALE_CONFLICT_CODE),
+  errors: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
   correlationId: z.string(),
   current: ratingCardViewSchema,
 });

@@ -73,7 +73,7 @@ export const boardRowSchema = z.object({
 export type BoardRow = z.infer<typeof boardRowSchema>;
 
 /**
- * `GET /api/qualifications/board`: a page of house parts; `counts` tallies the sources that
+ * `GET /api/qualification-views/board`: a page of house parts; `counts` tallies the sources that
  * match every filter but the state filter, by state (so a state left out still shows its
  * count); `engineers` are everyone the engineer filter can name (every engineer, and whoever
  * prepared or decided a case), not only those on this page.

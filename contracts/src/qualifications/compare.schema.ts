@@ -53,7 +53,7 @@ export const compareSourceSchema = z.object({
 export type CompareSource = z.infer<typeof compareSourceSchema>;
 
 /**
- * `GET /api/qualifications/compare/:housePartId`: the approved source and the alternates
+ * `GET /api/qualification-views/compare/:housePartId`: the approved source and the alternates
  * side by side. Curves come from each card's fitted model with self-heating at each
  * ambient (the same law as the checks); the worst-case band is each evaluation's `window`.
  */

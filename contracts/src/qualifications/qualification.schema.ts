@@ -6,9 +6,9 @@
  *   PATCH qualifications/:id                 engineer (draft only)                       {version, summary?, reviewerId?}
  *   POST qualifications/:id/<action>         engineer                                    QUALIFICATION_ACTION_REQUEST_SCHEMAS[action]
  *   POST qualifications/:id/comments         engineer                                    {text}
- *   GET  qualifications/board                engineer, admin                             boardQuerySchema
- *   GET  qualifications/compare/:housePartId engineer, admin, designer
- *   GET  qualifications/sources(.csv)        buyer, engineer, admin, designer            sourcesQuerySchema
+ *   GET  qualification-views/board           engineer, admin                             boardQuerySchema
+ *   GET  qualification-views/compare/:housePartId  engineer, admin, designer
+ *   GET  qualification-views/sources(.csv)   buyer, engineer, admin, designer            sourcesQuerySchema
  *   GET/POST house-parts/:id/buyers, DELETE house-parts/:id/buyers/:userId   engineer, admin, buyer (themself)
  */
 import { z } from 'zod';

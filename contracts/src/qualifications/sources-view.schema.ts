@@ -55,7 +55,7 @@ export const sourcesViewItemSchema = z.object({
 });
 export type SourcesViewItem = z.infer<typeof sourcesViewItemSchema>;
 
-/** `GET /api/qualifications/sources`: buyers, engineers and admins see every source; designers the approved ones and cleared alternates. */
+/** `GET /api/qualification-views/sources`: buyers, engineers and admins see every source; designers the approved ones and cleared alternates. */
 export const sourcesViewSchema = z.object({ items: z.array(sourcesViewItemSchema) });
 export type SourcesView = z.infer<typeof sourcesViewSchema>;
 
@@ -68,7 +68,7 @@ export const sourcesQuerySchema = z.object({
 });
 export type SourcesQuery = z.infer<typeof sourcesQuerySchema>;
 
-/** Columns of `GET /api/qualifications/sources.csv`, in order, in words (dates ISO 8601, UTC). */
+/** Columns of `GET /api/qualification-views/sources.csv`, in order, in words (dates ISO 8601, UTC). */
 export const SOURCES_CSV_COLUMNS = [
   'House part',
   'Description',

@@ -66,7 +66,7 @@ describe('decision record button', () => {
     signInAs('buyer');
     const calls = mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.buyer },
-      'GET /api/qualifications/sources': { body: VIEW },
+      'GET /api/qualification-views/sources': { body: VIEW },
       'GET /api/qualifications/:id/record': { body: '%PDF-1.3 invented' },
     });
     const { user } = renderApp('/sources');
@@ -85,7 +85,7 @@ describe('decision record button', () => {
     signInAs('buyer');
     mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.buyer },
-      'GET /api/qualifications/sources': { body: VIEW },
+      'GET /api/qualification-views/sources': { body: VIEW },
       'GET /api/qualifications/:id/record': { status: 503, body: errorBody('The record of case #3 is waiting for the object store; try again in a moment') },
     });
     const { user } = renderApp('/sources');

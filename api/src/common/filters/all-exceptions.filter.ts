@@ -1,18 +1,23 @@
 import { ArgumentsHost, Catch, HttpException, HttpStatus, Logger, type ExceptionFilter } from '@nestjs/common';
-import { fieldName, issueMessage, type ErrorBody, type LabelledIssue } from '@shuntwise/contracts';
+import { fieldName, issueMessage, type ErrorBody, type LabelledIssue, type StaleConflictBody } from '@shuntwise/contracts';
 import type { Response } from 'express';
 import { ZodValidationException } from 'nestjs-zod';
 import { OptimisticLockError, UniqueConstraintError, ForeignKeyConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { EngineeringInputError } from '../../engineering/engineering-input.error';
 import type { RequestWithCorrelation } from '../correlation-id.middleware';
+import { StaleConflictException } from '../errors/stale-conflict.exception';
 import { isDatabaseUnavailable, isDroppedConnection, isTransactionConflict } from '../database-unavailable';
 
 /** Seconds a client should wait before retrying while the database is away. */
 export const DATABASE_RETRY_AFTER_SECONDS = 5;
 
+/** A body before the correlation id is added: the usual error body, or a stale-write conflict's. */
+type Described = { status: number; body: Omit<ErrorBody, 'correlationId'> | Omit<StaleConflictBody, 'correlationId'> };
+
 /**
- * One error body for the whole API: {message, errors?, correlationId}. Known errors keep
+ * One error body for the whole API: {message, errors?, correlationId}; a stale write's 409
+ * adds `code: 'stale'` and `current` (StaleConflictException, StaleConflictBody). Known errors keep
  * their status; a database that cannot be reached is a 503 with Retry-After (for every
  * route, here and nowhere else); anything else is logged and answered as a 500 without internals.
  */
@@ -34,10 +39,10 @@ export class AllExceptionsFilter implements ExceptionFilter {
       this.logger.error(`${req.method} ${req.originalUrl} [${correlationId}] ${exception instanceof Error ? exception.stack : String(exception)}`);
     }
     if (res.headersSent) return;
-    res.status(status).json({ ...body, correlationId } satisfies ErrorBody);
+    res.status(status).json({ ...body, correlationId } satisfies ErrorBody | StaleConflictBody);
   }
 
-  private describe(exception: unknown): { status: number; body: Omit<ErrorBody, 'correlationId'> } {
+  private describe(exception: unknown): Described {
     if (isDatabaseUnavailable(exception)) {
       return {
         status: HttpStatus.SERVICE_UNAVAILABLE,
@@ -59,6 +64,7 @@ export class AllExceptionsFilter implements ExceptionFilter {
     }
     if (exception instanceof ZodValidationException) return this.fromZod(exception.getZodError() as ZodError);
     if (exception instanceof ZodError) return this.fromZod(exception);
+    if (exception instanceof StaleConflictException) return { status: HttpStatus.CONFLICT, body: exception.body() };
     if (exception instanceof HttpException) {
       const status = exception.getStatus();
       const response = exception.getResponse();
@@ -82,7 +88,7 @@ export class AllExceptionsFilter implements ExceptionFilter {
       return { status: HttpStatus.CONFLICT, body: { message: 'A referenced record does not exist or is still in use' } };
     }
     if (exception instanceof OptimisticLockError) {
-      return { status: HttpStatus.CONFLICT, body: { message: 'Someone else changed this record; reload and merge' } };
+      return { status: HttpStatus.CONFLICT, body: new StaleConflictException('Someone else changed this record; reload and merge').body() };
     }
     const e = exception as { type?: string; status?: number; message?: string };
     // body-parser errors (malformed JSON, too large) carry a status of their own.

@@ -1,6 +1,5 @@
 import { randomUUID } from 'node:crypto';
 import { ConflictException, ForbiddenException, Injectable, InternalServerErrorException, Logger, NotFoundException, ServiceUnavailableException } from '@nestjs/common';
-import { InjectConnection } from '@nestjs/sequelize';
 import {
   CARD_FIELDS,
   QUALIFICATION_STATE_LABELS,
@@ -11,7 +10,7 @@ import {
   type RatingCardFields,
 } from '@shuntwise/contracts';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { Sequelize } from 'sequelize-typescript';
+import { UnitOfWork } from '../../database/unit-of-work';
 import type { AuthUser } from '../../common/decorators/current-user.decorator';
 import { DESIGN_CAUTION } from '../../engineering/caution';
 import { MeasurementSetsService } from '../../measurements/measurement-sets.service';
@@ -46,7 +45,7 @@ export class DecisionRecordsService {
     private readonly cases: QualificationsRepository,
     private readonly measurements: MeasurementSetsService,
     private readonly storage: StorageService,
-    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly unitOfWork: UnitOfWork,
   ) {}
 
   private deferring = 0;
@@ -140,7 +139,7 @@ export class DecisionRecordsService {
     let row = await this.records.find(qualificationId);
     if (!row) {
       try {
-        await this.sequelize.transaction((transaction) => this.capture(qualificationId, transaction, toSecond(new Date())));
+        await this.unitOfWork.run((transaction) => this.capture(qualificationId, transaction, toSecond(new Date())));
       } catch (error) {
         if (!(error instanceof UniqueConstraintError)) throw error; // another reader made it first
       }

@@ -21,7 +21,7 @@ const UNNAMED = request(22, { vendorPart: { id: 61, manufacturer: 'Nettlecombe D
 function api(role: 'engineer' | 'admin', open: QualificationRequest[] = [NAMED, UNNAMED], extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
     'GET /api/auth/me': { body: DEMO_USERS[role] },
-    'GET /api/qualifications/board': { body: EMPTY_BOARD },
+    'GET /api/qualification-views/board': { body: EMPTY_BOARD },
     'GET /api/qualification-requests': { body: requestPage(open) },
     'GET /api/house-parts': { body: HOUSE_PARTS },
     ...extra,

@@ -46,12 +46,12 @@ const PAGE: BoardPage = {
 
 // The Board also lists open qualification requests; these tests are about the table.
 const NO_REQUESTS = { 'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } } };
-const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) => fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualifications/board'));
+const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) => fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualification-views/board'));
 
 describe('Board screen', () => {
   it('shows each source with its state, verdict, case, engineers and age, and links to the case, the compare view and the parts', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/board': { body: PAGE }, ...NO_REQUESTS });
     renderApp('/board');
     const row = (await screen.findByRole('link', { name: 'QHZ4V7A' })).closest('tr')!;
     expect(within(row).getByText('Cleared').closest('[data-state]')).toHaveAttribute('data-state', 'cleared');
@@ -70,29 +70,29 @@ describe('Board screen', () => {
 
   it('filters by state from the tallies and by age, through the server and the address', async () => {
     signInAs('engineer');
-    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
+    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/board': { body: PAGE }, ...NO_REQUESTS });
     const { user } = renderApp('/board');
     await user.click(await screen.findByRole('button', { name: 'Cleared: 1' }));
-    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared'));
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualification-views/board?pageIndex=0&pageSize=25&state=cleared'));
     expect(currentLocation()).toBe('/board?state=cleared');
     // One request per view: the server's tallies already ignore the state filter.
     expect(boardUrls(api.fetch).filter((u) => u.includes('pageSize=1&') || u.endsWith('pageSize=1'))).toEqual([]);
-    expect(new Set(boardUrls(api.fetch))).toEqual(new Set(['/api/qualifications/board?pageIndex=0&pageSize=25', '/api/qualifications/board?pageIndex=0&pageSize=25&state=cleared']));
+    expect(new Set(boardUrls(api.fetch))).toEqual(new Set(['/api/qualification-views/board?pageIndex=0&pageSize=25', '/api/qualification-views/board?pageIndex=0&pageSize=25&state=cleared']));
     expect(screen.getByRole('button', { name: 'Cleared: 1' })).toHaveAttribute('aria-pressed', 'true');
     await user.type(screen.getByLabelText('Unchanged for at least'), '30');
-    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?minAgeDays=30&pageIndex=0&pageSize=25&state=cleared'));
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualification-views/board?minAgeDays=30&pageIndex=0&pageSize=25&state=cleared'));
   });
 
   it('offers every engineer the server names in the engineer filter, the viewer marked, and filters by one', async () => {
     signInAs('engineer');
-    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS });
+    const api = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/board': { body: PAGE }, ...NO_REQUESTS });
     const { user } = renderApp('/board');
     await screen.findByRole('link', { name: 'QHZ4V7A' });
     await user.click(screen.getByRole('textbox', { name: 'Engineer' }));
     const options = (await screen.findAllByRole('option')).map((o) => o.textContent);
     expect(options).toEqual(['Aino Varga', `${DEMO_USERS.engineer.name} (me)`, 'Tomas Eklund']);
     await user.click(screen.getByRole('option', { name: 'Aino Varga' }));
-    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualifications/board?engineerId=5&pageIndex=0&pageSize=25'));
+    await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualification-views/board?engineerId=5&pageIndex=0&pageSize=25'));
     expect(currentLocation()).toBe('/board?engineer=5');
   });
 
@@ -100,7 +100,7 @@ describe('Board screen', () => {
     signInAs('engineer');
     const api = mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualifications/board': { body: PAGE }, ...NO_REQUESTS,
+      'GET /api/qualification-views/board': { body: PAGE }, ...NO_REQUESTS,
       'POST /api/qualifications': { status: 409, body: { message: 'Case #12 (Corriebank Electronics CBX3-4.7 for OHI-ZD-1047) is still draft: continue that one', correlationId: 'c0ffee00-test' } },
     });
     const { user } = renderApp('/board');

@@ -31,7 +31,7 @@ function renderCompare() {
 describe('Compare screen', () => {
   it('puts the checks of every source side by side with margins coloured by verdict', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     const table = await screen.findByRole('table', { name: 'Checks by source' });
     const dissipation = table.querySelector('tr[data-check="power-dissipation"]')!;
@@ -61,7 +61,7 @@ describe('Compare screen', () => {
 
   it('shows each worst-case window beside the spec windows, and the caution', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     expect(await screen.findByTestId('window-BRZ05-10')).toHaveTextContent('9.11 V … 11.0 V');
     expect(screen.getByTestId('window-CBX3-10')).toHaveTextContent('9.07 V … 11.2 V');
@@ -71,7 +71,7 @@ describe('Compare screen', () => {
 
   it('offers to open a case for an alternate without one, not for the approved source', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     expect(await screen.findByRole('button', { name: 'Open a case: CBX3-10 for OHI-ZD-1100' })).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Open a case: BRZ05-10 for OHI-ZD-1100' })).not.toBeInTheDocument();
@@ -83,7 +83,7 @@ describe('Compare screen', () => {
     signInAs('engineer');
     mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualifications/compare/:id': { status: 422, body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against') },
+      'GET /api/qualification-views/compare/:id': { status: 422, body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against') },
     });
     renderCompare();
     expect(await screen.findByRole('alert')).toHaveTextContent('has no spec yet: there is nothing to compare against');
@@ -98,7 +98,7 @@ describe('Compare screen', () => {
 
   it('shades each tolerance band as one area per part and ambient instead of two more lines each', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     const chart = await screen.findByTestId('iv-chart');
     // Two drawable sources × three ambients: one nominal line each.
@@ -113,7 +113,7 @@ describe('Compare screen', () => {
 
   it('draws the I–V with voltage on x and the current linear in mA on y when asked, as engineers draw the knee', async () => {
     signInAs('engineer');
-    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/compare/:id': { body: PAYLOAD } });
+    mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/compare/:id': { body: PAYLOAD } });
     renderCompare();
     const chart = await screen.findByTestId('iv-chart');
     expect(chart).toHaveAttribute('data-scale', 'log');

@@ -6,7 +6,7 @@ import { boardKeys, type BoardParams } from './board-keys';
 export function getBoard(params: BoardParams, signal?: AbortSignal): Promise<BoardPage> {
   const search = new URLSearchParams();
   for (const [key, value] of Object.entries(params)) if (value !== undefined && value !== '') search.set(key, String(value));
-  return apiRequest(`/qualifications/board?${search}`, { schema: boardPageSchema, signal });
+  return apiRequest(`/qualification-views/board?${search}`, { schema: boardPageSchema, signal });
 }
 
 export function useBoard(params: BoardParams) {

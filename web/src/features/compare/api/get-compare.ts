@@ -5,7 +5,7 @@ import { compareKeys } from './compare-keys';
 
 /** The approved source and the alternates of a house part, each evaluated now, with their curves. */
 export function getCompare(housePartId: number, signal?: AbortSignal): Promise<ComparePayload> {
-  return apiRequest(`/qualifications/compare/${housePartId}`, { schema: comparePayloadSchema, signal });
+  return apiRequest(`/qualification-views/compare/${housePartId}`, { schema: comparePayloadSchema, signal });
 }
 
 export function useCompare(housePartId: number) {

@@ -5,7 +5,7 @@ import type { SourcesParams } from './sources-keys';
 
 /** The Sources view as CSV, with the same filters as the screen, downloaded with the session's token. */
 export function exportSources(params: SourcesParams): Promise<string> {
-  return downloadFile(`/qualifications/sources.csv${sourcesSearch(params)}`, 'sources.csv');
+  return downloadFile(`/qualification-views/sources.csv${sourcesSearch(params)}`, 'sources.csv');
 }
 
 export function useExportSources() {

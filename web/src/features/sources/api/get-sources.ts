@@ -14,7 +14,7 @@ export function sourcesSearch(params: SourcesParams): string {
 
 /** Per house part, every source with where it stands for procurement. */
 export function getSources(params: SourcesParams, signal?: AbortSignal): Promise<SourcesView> {
-  return apiRequest(`/qualifications/sources${sourcesSearch(params)}`, { schema: sourcesViewSchema, signal });
+  return apiRequest(`/qualification-views/sources${sourcesSearch(params)}`, { schema: sourcesViewSchema, signal });
 }
 
 export function useSourcesView(params: SourcesParams) {

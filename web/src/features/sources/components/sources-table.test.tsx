@@ -44,7 +44,7 @@ const VIEW: SourcesView = {
 function api(extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
     'GET /api/auth/me': { body: DEMO_USERS.buyer },
-    'GET /api/qualifications/sources': { body: VIEW },
+    'GET /api/qualification-views/sources': { body: VIEW },
     ...extra,
   });
 }
@@ -94,7 +94,7 @@ describe('Sources screen', () => {
       decidedBy: { id: 5, name: 'Ines Varga' },
       needsRecheck: false,
     };
-    api({ 'GET /api/qualifications/sources': { body: { items: [{ ...VIEW.items[0], sources: [approved, VIEW.items[0].sources[1]] }] } } });
+    api({ 'GET /api/qualification-views/sources': { body: { items: [{ ...VIEW.items[0], sources: [approved, VIEW.items[0].sources[1]] }] } } });
     renderApp('/sources');
     const tr = (await screen.findByText('BRZ05-4V7B')).closest('tr')!;
     expect(tr).toHaveTextContent('Approved');
@@ -106,15 +106,15 @@ describe('Sources screen', () => {
 
   it('exports the view as CSV with the session token and the same filter', async () => {
     signInAs('buyer');
-    const calls = api({ 'GET /api/qualifications/sources.csv': { body: 'house_part,mpn\n' } });
+    const calls = api({ 'GET /api/qualification-views/sources.csv': { body: 'house_part,mpn\n' } });
     const { user } = renderApp('/sources');
     await screen.findByText('QHZ4V7A');
     await user.click(screen.getByRole('button', { name: 'Export CSV' }));
-    await waitFor(() => expect(calls.callsTo('GET', '/api/qualifications/sources.csv')).toHaveLength(1));
-    expect(calls.callsTo('GET', '/api/qualifications/sources.csv')[0].headers.Authorization).toBe('Bearer test-token-buyer');
+    await waitFor(() => expect(calls.callsTo('GET', '/api/qualification-views/sources.csv')).toHaveLength(1));
+    expect(calls.callsTo('GET', '/api/qualification-views/sources.csv')[0].headers.Authorization).toBe('Bearer test-token-buyer');
     const url = String(calls.fetch.mock.calls.find(([input]) => String(input).includes('sources.csv'))![0]);
     // A buyer starts on the house parts they follow; the file holds what the screen shows.
-    expect(url).toBe('/api/qualifications/sources.csv?mine=true');
+    expect(url).toBe('/api/qualification-views/sources.csv?mine=true');
     await waitFor(() => expect(clicked).toHaveLength(1));
     expect(clicked[0].download).toBe('sources.csv');
     expect(await screen.findByText('sources.csv was downloaded.')).toBeInTheDocument();
@@ -122,7 +122,7 @@ describe('Sources screen', () => {
 
   it('says plainly when the export fails', async () => {
     signInAs('buyer');
-    api({ 'GET /api/qualifications/sources.csv': { status: 500, body: errorBody('Internal server error') } });
+    api({ 'GET /api/qualification-views/sources.csv': { status: 500, body: errorBody('Internal server error') } });
     const { user } = renderApp('/sources');
     await screen.findByText('QHZ4V7A');
     await user.click(screen.getByRole('button', { name: 'Export CSV' }));
@@ -147,21 +147,21 @@ describe('Sources screen', () => {
     const calls = api();
     const { user } = renderApp('/sources?housePartId=4');
     await screen.findByText('QHZ4V7A');
-    const urls = () => calls.fetch.mock.calls.map(([i]) => String(i)).filter((u) => u.startsWith('/api/qualifications/sources'));
-    expect(urls()).toContain('/api/qualifications/sources?housePartId=4');
+    const urls = () => calls.fetch.mock.calls.map(([i]) => String(i)).filter((u) => u.startsWith('/api/qualification-views/sources'));
+    expect(urls()).toContain('/api/qualification-views/sources?housePartId=4');
     await user.click(screen.getByRole('button', { name: 'Showing one house part — show all' }));
-    await waitFor(() => expect(urls().at(-1)).toBe('/api/qualifications/sources?mine=true'));
+    await waitFor(() => expect(urls().at(-1)).toBe('/api/qualification-views/sources?mine=true'));
     expect(screen.getByRole('radio', { name: 'House parts I follow' })).toBeChecked();
   });
 
   it('shows engineers every house part with links to the catalogue and the case', async () => {
     signInAs('engineer');
-    const calls = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualifications/sources': { body: VIEW } });
+    const calls = mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.engineer }, 'GET /api/qualification-views/sources': { body: VIEW } });
     renderApp('/sources');
     expect(await screen.findByRole('link', { name: 'QHZ4V7A' })).toHaveAttribute('href', '/vendor-parts/40');
     expect(screen.getByRole('link', { name: 'OHI-ZD-1047' })).toHaveAttribute('href', '/house-parts/4');
     expect(screen.getByRole('link', { name: '#3 rev. 2' })).toHaveAttribute('href', '/qualifications/3');
     expect(screen.queryByRole('button', { name: /follow/i })).not.toBeInTheDocument();
-    expect(String(calls.fetch.mock.calls.find(([i]) => String(i).includes('/qualifications/sources'))![0])).toBe('/api/qualifications/sources');
+    expect(String(calls.fetch.mock.calls.find(([i]) => String(i).includes('/qualification-views/sources'))![0])).toBe('/api/qualification-views/sources');
   });
 });

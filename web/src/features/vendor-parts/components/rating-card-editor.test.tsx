@@ -208,7 +208,7 @@ describe('RatingCardEditor', () => {
     const calls = api({
       'PUT /api/vendor-parts/:id/rating-card': () => {
         puts += 1;
-        if (puts === 1) return { status: 409, body: { message: 'The card is at version 2; you edited version 1', correlationId: 'c0ffee00-test', current: theirs } };
+        if (puts === 1) return { status: 409, body: { message: 'The card is at version 2; you edited version 1', code: 'stale', correlationId: 'c0ffee00-test', current: theirs } };
         return { body: { ...theirs, version: 3, fields: { ...theirs.fields, zzt: stored(8, '8 Ω', 'entered', null) } } };
       },
     });

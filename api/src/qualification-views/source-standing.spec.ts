@@ -1,4 +1,4 @@
-import type { PairCaseRow } from './qualifications.repository';
+import type { PairCaseRow } from './qualification-views.repository';
 import { standing } from './qualification-views.service';
 
 // How a source reads for procurement (common practice, no source): a decision counts

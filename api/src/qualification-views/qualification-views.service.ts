@@ -26,10 +26,10 @@ import { DESIGN_CAUTION } from '../engineering/caution';
 import { EngineeringInputError } from '../engineering/engineering-input.error';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { RatingCardsRepository } from '../vendor-parts/rating-cards.repository';
-import { compareCurves, comparePowerLimit, compareTemperatures, currentGrid } from './evaluation/compare-curves';
-import { evaluateCard } from './evaluation/evaluate';
-import { QualificationsRepository, type PairCaseRow } from './qualifications.repository';
-import { WaiversService } from './waivers.service';
+import { compareCurves, comparePowerLimit, compareTemperatures, currentGrid } from '../qualifications/evaluation/compare-curves';
+import { evaluateCard } from '../qualifications/evaluation/evaluate';
+import { WaiversService } from '../qualifications/waivers.service';
+import { QualificationViewsRepository, type PairCaseRow } from './qualification-views.repository';
 import { csvExportStringifier } from '../common/csv/csv-export';
 
 const DAY_MS = 86_400_000;
@@ -38,7 +38,7 @@ const DAY_MS = 86_400_000;
 @Injectable()
 export class QualificationViewsService {
   constructor(
-    private readonly cases: QualificationsRepository,
+    private readonly cases: QualificationViewsRepository,
     private readonly houseParts: HousePartsRepository,
     private readonly cards: RatingCardsRepository,
     private readonly waivers: WaiversService,

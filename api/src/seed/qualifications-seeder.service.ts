@@ -11,9 +11,9 @@ import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { RatingCardsService } from '../vendor-parts/rating-cards.service';
-import { QualificationsRepository } from './qualifications.repository';
-import { QualificationsService, type ActionBody } from './qualifications.service';
-import { DecisionRecordsService } from './records/decision-records.service';
+import { QualificationsRepository } from '../qualifications/qualifications.repository';
+import { QualificationsService, type ActionBody } from '../qualifications/qualifications.service';
+import { DecisionRecordsService } from '../qualifications/records/decision-records.service';
 
 /** Card versions the qualification seed adds to the demo catalogue (the re-check story's erratum). */
 export const QUALIFICATION_SEED_CARD_REVISIONS = 1;

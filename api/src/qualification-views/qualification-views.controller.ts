@@ -3,13 +3,13 @@ import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swag
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
-import { BoardPageDto, BoardQueryDto, ComparePayloadDto, SourcesQueryDto, SourcesViewDto } from './qualifications.dto';
+import { BoardPageDto, BoardQueryDto, ComparePayloadDto, SourcesQueryDto, SourcesViewDto } from './qualification-views.dto';
 import { QualificationViewsService } from './qualification-views.service';
 
-/** Read models for the screens. Registered before the case routes so `board` is never read as an id. */
+/** Read models for the screens, under their own prefix: no path here can be read as a case id. */
 @ApiTags('qualifications')
 @ApiBearerAuth()
-@Controller('qualifications')
+@Controller('qualification-views')
 export class QualificationViewsController {
   constructor(private readonly views: QualificationViewsService) {}
 
