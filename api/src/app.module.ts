@@ -15,6 +15,7 @@ import { DatabaseModule } from './database/database.module';
 import { DatasheetsModule } from './datasheets/datasheets.module';
 import { EngineeringModule } from './engineering-routes/engineering.module';
 import { HealthModule } from './health/health.module';
+import { HousePartBuyersModule } from './house-part-buyers/house-part-buyers.module';
 import { HousePartsModule } from './house-parts/house-parts.module';
 import { MailModule } from './mail/mail.module';
 import { OutboxModule } from './outbox/outbox.module';
@@ -38,7 +39,7 @@ const FEATURES = [
   OutboxModule,
   SeedModule,
   EngineeringModule,
-  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule,
+  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule, HousePartBuyersModule,
   QualificationsModule, QualificationViewsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
 
 @Module({})

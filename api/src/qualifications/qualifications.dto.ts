@@ -1,7 +1,5 @@
 import {
-  addHousePartBuyerRequestSchema,
   createQualificationRequestSchema,
-  housePartBuyerSchema,
   qualificationApproveRequestSchema,
   qualificationClearRequestSchema,
   qualificationClearWithConditionsRequestSchema,
@@ -38,5 +36,3 @@ export class WithdrawDto extends createZodDto(qualificationWithdrawRequestSchema
 export class RevokeDto extends createZodDto(qualificationRevokeRequestSchema) {}
 export class RecheckDto extends createZodDto(qualificationRecheckRequestSchema) {}
 export class CommentDto extends createZodDto(qualificationCommentRequestSchema) {}
-export class HousePartBuyerDto extends createZodDto(housePartBuyerSchema) {}
-export class AddHousePartBuyerDto extends createZodDto(addHousePartBuyerRequestSchema) {}

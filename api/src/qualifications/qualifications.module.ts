@@ -1,12 +1,10 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { HousePartBuyersModule } from '../house-part-buyers/house-part-buyers.module';
 import { HousePartsModule } from '../house-parts/house-parts.module';
 import { MeasurementsModule } from '../measurements/measurements.module';
 import { UsersModule } from '../users/users.module';
 import { VendorPartsModule } from '../vendor-parts/vendor-parts.module';
-import { HousePartBuyer } from './house-part-buyer.model';
-import { HousePartBuyersController } from './house-part-buyers.controller';
-import { HousePartBuyersService } from './house-part-buyers.service';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
 import { Qualification } from './qualification.model';
@@ -22,11 +20,11 @@ import { WaiversController } from './waivers.controller';
 import { WaiversRepository } from './waivers.repository';
 import { WaiversService } from './waivers.service';
 
-/** Qualification cases, their trail and comments, waivers, decision records and the buyers of each house part. The screens' read models are in qualification-views/; the demo cases in seed/. */
+/** Qualification cases, their trail and comments, waivers, and decision records (the buyers of each house part: house-part-buyers/). The screens' read models are in qualification-views/; the demo cases in seed/. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, HousePartBuyer, DecisionRecord, QualificationWaiver]), UsersModule, HousePartsModule, VendorPartsModule, MeasurementsModule],
-  controllers: [QualificationsController, WaiversController, HousePartBuyersController, DecisionRecordsController],
-  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, HousePartBuyersService, WaiversRepository, WaiversService],
+  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, DecisionRecord, QualificationWaiver]), UsersModule, HousePartBuyersModule, HousePartsModule, VendorPartsModule, MeasurementsModule],
+  controllers: [QualificationsController, WaiversController, DecisionRecordsController],
+  providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, WaiversRepository, WaiversService],
   exports: [QualificationsService, QualificationsRepository, DecisionRecordsService, WaiversService],
 })
 export class QualificationsModule {}

@@ -18,7 +18,6 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { sourceRoleSql } from '../common/source-standing.sql';
 import { User } from '../users/user.model';
-import { HousePartBuyer } from './house-part-buyer.model';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
 import { Qualification, type DecisionState } from './qualification.model';
@@ -99,7 +98,6 @@ export class QualificationsRepository {
     @InjectModel(Qualification) private readonly cases: typeof Qualification,
     @InjectModel(QualificationEvent) private readonly events: typeof QualificationEvent,
     @InjectModel(QualificationComment) private readonly comments: typeof QualificationComment,
-    @InjectModel(HousePartBuyer) private readonly buyers: typeof HousePartBuyer,
   ) {}
 
   private select<T extends object>(sql: string, replacements: unknown[], transaction?: Transaction): Promise<T[]> {
@@ -268,41 +266,6 @@ export class QualificationsRepository {
       flagged.push(caseId);
     }
     return flagged;
-  }
-
-  // Buyers of a house part.
-
-  listBuyers(housePartId: number): Promise<HousePartBuyer[]> {
-    return this.buyers.findAll({
-      where: { housePartId },
-      include: [
-        { model: User, as: 'user', attributes: ['id', 'name', 'email'] },
-        { model: User, as: 'addedBy', attributes: ['id', 'name'] },
-      ],
-      order: [['id', 'ASC']],
-    });
-  }
-
-  findBuyer(housePartId: number, userId: number): Promise<HousePartBuyer | null> {
-    return this.buyers.findOne({ where: { housePartId, userId } });
-  }
-
-  addBuyer(values: { housePartId: number; userId: number; addedById: number | null }, transaction?: Transaction): Promise<HousePartBuyer> {
-    return this.buyers.create(values, { transaction });
-  }
-
-  async removeBuyer(row: HousePartBuyer): Promise<void> {
-    await row.destroy();
-  }
-
-  /** E-mail addresses of the active buyers linked to a house part. */
-  async buyerEmails(housePartId: number, transaction?: Transaction): Promise<string[]> {
-    const rows = await this.select<{ email: string }>(
-      `SELECT u.email FROM house_part_buyers b JOIN users u ON u.id = b.user_id WHERE b.house_part_id = ? AND u.active = 1 AND u.role = 'buyer' ORDER BY u.email`,
-      [housePartId],
-      transaction,
-    );
-    return rows.map((r) => r.email);
   }
 
   /** The spec and card versions the catalogue holds now (null when there is none). */

@@ -50,6 +50,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { UsersRepository } from '../users/users.repository';
 import { StaleConflictException } from '../common/errors/stale-conflict.exception';
 import { DESIGN_CAUTION } from '../engineering/caution';
+import { HousePartBuyersRepository } from '../house-part-buyers/house-part-buyers.repository';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
 import { evaluateCard } from './evaluation/evaluate';
@@ -95,6 +96,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
 
   constructor(
     private readonly cases: QualificationsRepository,
+    private readonly buyerLinks: HousePartBuyersRepository,
     private readonly users: UsersRepository,
     private readonly houseParts: HousePartsRepository,
     private readonly mail: MailService,
@@ -469,7 +471,7 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     }
     if (isDecisionAction(action)) await this.mailPreparer(row, part, hp, link, user, transaction);
     if (action !== 'approve' && action !== 'clear' && action !== 'clear-with-conditions' && action !== 'clear-with-waiver' && action !== 'revoke') return;
-    const to = await this.cases.buyerEmails(row.housePartId, transaction);
+    const to = await this.buyerLinks.emailsOf(row.housePartId, transaction);
     if (to.length === 0) {
       this.logger.log(`case ${row.id}: no buyers linked to ${hp}, no mail`);
       return;

@@ -22,6 +22,7 @@ import { Clock } from '../common/clock';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, publicUrl, type Env } from '../config/env';
 import { UnitOfWork } from '../database/unit-of-work';
+import { HousePartBuyersRepository } from '../house-part-buyers/house-part-buyers.repository';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { MailService } from '../mail/mail.service';
 import { UsersRepository } from '../users/users.repository';
@@ -49,6 +50,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
   constructor(
     private readonly waivers: WaiversRepository,
     private readonly cases: QualificationsRepository,
+    private readonly buyerLinks: HousePartBuyersRepository,
     private readonly users: UsersRepository,
     private readonly houseParts: HousePartsRepository,
     private readonly vendorParts: VendorPartsRepository,
@@ -235,7 +237,7 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
     const vendorPart = await this.vendorParts.findById(row.vendorPartId, transaction);
     const pair = { partNumber: housePart!.partNumber, manufacturer: vendorPart!.manufacturerName, mpn: vendorPart!.mpn };
     const preparer = await this.users.findById(waiver.preparedById, transaction);
-    const buyers = standingEnds ? await this.cases.buyerEmails(row.housePartId, transaction) : [];
+    const buyers = standingEnds ? await this.buyerLinks.emailsOf(row.housePartId, transaction) : [];
     const to = [...buyers, ...(preparer?.active ? [preparer.email] : [])];
     if (to.length === 0) return;
     const base = publicUrl(this.env);

@@ -11,6 +11,7 @@ import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { RatingCardsService } from '../vendor-parts/rating-cards.service';
+import { HousePartBuyersRepository } from '../house-part-buyers/house-part-buyers.repository';
 import { QualificationsRepository } from '../qualifications/qualifications.repository';
 import { QualificationsService, type ActionBody } from '../qualifications/qualifications.service';
 import { DecisionRecordsService } from '../qualifications/records/decision-records.service';
@@ -143,6 +144,7 @@ export class QualificationsSeeder {
 
   constructor(
     private readonly cases: QualificationsRepository,
+    private readonly buyers: HousePartBuyersRepository,
     private readonly service: QualificationsService,
     private readonly cards: RatingCardsService,
     private readonly records: DecisionRecordsService,
@@ -166,8 +168,8 @@ export class QualificationsSeeder {
     // The demo buyer follows every house part, so decisions reach the demo outbox.
     const parts = await this.sequelize.query<{ id: number }>('SELECT id FROM house_parts ORDER BY id', { type: QueryTypes.SELECT });
     for (const { id } of parts) {
-      if (await this.cases.findBuyer(id, buyer.id)) continue;
-      await this.cases.addBuyer({ housePartId: id, userId: buyer.id, addedById: preparer.id });
+      if (await this.buyers.find(id, buyer.id)) continue;
+      await this.buyers.add({ housePartId: id, userId: buyer.id, addedById: preparer.id });
       created++;
     }
 

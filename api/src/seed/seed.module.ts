@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { DatasheetsModule } from '../datasheets/datasheets.module';
+import { HousePartBuyersModule } from '../house-part-buyers/house-part-buyers.module';
 import { HousePartsModule } from '../house-parts/house-parts.module';
 import { MeasurementsModule } from '../measurements/measurements.module';
 import { QualificationsModule } from '../qualifications/qualifications.module';
@@ -11,7 +12,7 @@ import { MeasurementsSeeder } from './measurements-seeder.service';
 import { QualificationsSeeder } from './qualifications-seeder.service';
 
 @Module({
-  imports: [UsersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule, MeasurementsModule],
+  imports: [UsersModule, HousePartBuyersModule, VendorPartsModule, HousePartsModule, DatasheetsModule, QualificationsModule, MeasurementsModule],
   providers: [DemoSeedService, CatalogueSeeder, MeasurementsSeeder, QualificationsSeeder],
   exports: [DemoSeedService],
 })

@@ -3,10 +3,10 @@ import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nest
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { HousePartBuyersService } from './house-part-buyers.service';
-import { AddHousePartBuyerDto, HousePartBuyerDto } from './qualifications.dto';
+import { AddHousePartBuyerDto, HousePartBuyerDto } from './house-part-buyers.dto';
 
 /** Buyers who follow a house part (and are mailed about its sources). */
-@ApiTags('qualifications')
+@ApiTags('house-part buyers')
 @ApiBearerAuth()
 @Controller('house-parts/:id/buyers')
 export class HousePartBuyersController {

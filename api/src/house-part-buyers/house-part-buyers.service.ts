@@ -5,7 +5,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { UsersRepository } from '../users/users.repository';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import type { HousePartBuyer } from './house-part-buyer.model';
-import { QualificationsRepository } from './qualifications.repository';
+import { HousePartBuyersRepository } from './house-part-buyers.repository';
 
 /**
  * Which buyers follow a house part: they are mailed when one of its sources is cleared,
@@ -15,14 +15,14 @@ import { QualificationsRepository } from './qualifications.repository';
 @Injectable()
 export class HousePartBuyersService {
   constructor(
-    private readonly cases: QualificationsRepository,
+    private readonly buyers: HousePartBuyersRepository,
     private readonly users: UsersRepository,
     private readonly houseParts: HousePartsRepository,
   ) {}
 
   async list(housePartId: number): Promise<HousePartBuyerDto[]> {
     await this.housePart(housePartId);
-    return (await this.cases.listBuyers(housePartId)).map(toDto);
+    return (await this.buyers.list(housePartId)).map(toDto);
   }
 
   async add(housePartId: number, userId: number, user: AuthUser): Promise<HousePartBuyerDto> {
@@ -33,7 +33,7 @@ export class HousePartBuyersService {
       throw new UnprocessableEntityException({ message: `User ${userId} is not an active buyer`, errors: [{ path: 'userId', message: 'must be an active buyer' }] });
     }
     try {
-      await this.cases.addBuyer({ housePartId, userId, addedById: user.id });
+      await this.buyers.add({ housePartId, userId, addedById: user.id });
     } catch (error) {
       if (error instanceof UniqueConstraintError) throw new ConflictException(`${buyer.name} already follows ${part.partNumber}`);
       throw error;
@@ -44,9 +44,9 @@ export class HousePartBuyersService {
   async remove(housePartId: number, userId: number, user: AuthUser): Promise<void> {
     onlySelf(userId, user, 'remove');
     const part = await this.housePart(housePartId);
-    const row = await this.cases.findBuyer(housePartId, userId);
+    const row = await this.buyers.find(housePartId, userId);
     if (!row) throw new NotFoundException(`User ${userId} does not follow ${part.partNumber}`);
-    await this.cases.removeBuyer(row);
+    await this.buyers.remove(row);
   }
 
   private async housePart(id: number) {
