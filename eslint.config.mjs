@@ -16,7 +16,17 @@ const webFeatures = readdirSync(new URL('./web/src/features', import.meta.url), 
 
 export default tseslint.config(
   {
-    ignores: ['**/dist/**', '**/node_modules/**', '**/coverage/**', '.data/**', '.data-test/**', 'artifacts/**', 'web/.scratch/**', '**/*.d.ts', 'test-fixtures/index.js'],
+    ignores: [
+      '**/dist/**',
+      '**/node_modules/**',
+      '**/coverage/**',
+      '.data/**',
+      '.data-test/**',
+      'artifacts/**',
+      'web/.scratch/**',
+      '**/*.d.ts',
+      'test-fixtures/index.js',
+    ],
   },
   js.configs.recommended,
   ...tseslint.configs.recommended,
@@ -40,7 +50,17 @@ export default tseslint.config(
   {
     files: ['contracts/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/api/**', '**/web/**', '@shuntwise/api', '@shuntwise/web', '@nestjs/*', 'react', 'sequelize*'], message: 'contracts is shared by web and api and depends on neither' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/api/**', '**/web/**', '@shuntwise/api', '@shuntwise/web', '@nestjs/*', 'react', 'sequelize*'],
+              message: 'contracts is shared by web and api and depends on neither',
+            },
+          ],
+        },
+      ],
     },
   },
   {
@@ -65,11 +85,26 @@ export default tseslint.config(
         'error',
         {
           paths: [
-            { name: 'sequelize', importNames: ['QueryTypes', 'Op', 'Sequelize', 'literal', 'fn', 'col', 'where'], message: 'queries live in repositories (*.repository.ts)' },
-            { name: 'sequelize-typescript', importNames: ['Sequelize'], allowTypeImports: true, message: 'services take repositories and UnitOfWork (api/src/database/unit-of-work.ts), not the connection' },
+            {
+              name: 'sequelize',
+              importNames: ['QueryTypes', 'Op', 'Sequelize', 'literal', 'fn', 'col', 'where'],
+              message: 'queries live in repositories (*.repository.ts)',
+            },
+            {
+              name: 'sequelize-typescript',
+              importNames: ['Sequelize'],
+              allowTypeImports: true,
+              message: 'services take repositories and UnitOfWork (api/src/database/unit-of-work.ts), not the connection',
+            },
             { name: '@nestjs/sequelize', importNames: ['InjectModel', 'InjectConnection'], message: 'only repositories inject models or the connection' },
           ],
-          patterns: [{ group: ['**/*.model'], allowTypeImports: true, message: 'only repositories (and modules registering models) use model classes; import the type, ask the repository' }],
+          patterns: [
+            {
+              group: ['**/*.model'],
+              allowTypeImports: true,
+              message: 'only repositories (and modules registering models) use model classes; import the type, ask the repository',
+            },
+          ],
         },
       ],
     },
@@ -78,7 +113,17 @@ export default tseslint.config(
     // Every file of the core, no exemptions: its HTTP face lives in api/src/engineering-routes.
     files: ['api/src/engineering/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['@nestjs/*', 'sequelize*', 'nestjs-zod', '../*'], message: 'the engineering core stays pure: no Nest, no database, nothing from other api folders' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['@nestjs/*', 'sequelize*', 'nestjs-zod', '../*'],
+              message: 'the engineering core stays pure: no Nest, no database, nothing from other api folders',
+            },
+          ],
+        },
+      ],
     },
   },
   {

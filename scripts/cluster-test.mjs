@@ -29,10 +29,20 @@ buildAll(root);
 const dir = join(root, '.data-test', `cluster-${process.pid}`);
 let cluster;
 try {
-  cluster = await startCluster({ root, dir, replicas: 3, seed: 'users', env: { MAIL_RETRY_SECONDS: '0.2', MAIL_CLAIM_SECONDS: '5', LOGIN_RATE_LIMIT: '1000' } });
+  cluster = await startCluster({
+    root,
+    dir,
+    replicas: 3,
+    seed: 'users',
+    env: { MAIL_RETRY_SECONDS: '0.2', MAIL_CLAIM_SECONDS: '5', LOGIN_RATE_LIMIT: '1000' },
+  });
   const startSeconds = (Date.now() - started) / 1000;
   const lb = cluster.url;
-  const login = await fetch(`${lb}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'admin@demo.test', password: process.env.DEMO_PASSWORD ?? 'shuntwise-demo' }) });
+  const login = await fetch(`${lb}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'admin@demo.test', password: process.env.DEMO_PASSWORD ?? 'shuntwise-demo' }),
+  });
   const { accessToken } = await login.json();
 
   // The burst: invitations (an invitation row and its outbox row in one transaction) from 8 workers,
@@ -82,7 +92,9 @@ try {
   const apiKilledAt = Date.now() - t0;
   await victimApi.kill('SIGKILL');
   // What the killed replica held at that moment (its id in claimed_by has its pid): the only mail that may go out twice.
-  const inFlight = sql(cluster.nodes[0].socket, `SELECT recipients FROM outgoing_mail WHERE state = 'pending' AND claimed_by LIKE '%:${victimApi.pid}:%'`, { database: 'shuntwise' }).map((r) => JSON.parse(r[0])[0]);
+  const inFlight = sql(cluster.nodes[0].socket, `SELECT recipients FROM outgoing_mail WHERE state = 'pending' AND claimed_by LIKE '%:${victimApi.pid}:%'`, {
+    database: 'shuntwise',
+  }).map((r) => JSON.parse(r[0])[0]);
   console.log(`[kill] API replica 2 (pid ${victimApi.pid}) at ${(apiKilledAt / 1000).toFixed(1)} s; it held ${inFlight.length} outbox message(s)`);
 
   const afterApi = acked().length;
@@ -108,15 +120,29 @@ try {
     return next.length ? (Math.min(...next) - t) / 1000 : NaN;
   };
   const lat = ok.map((w) => w.ms);
-  console.log(`\n[figures] cluster start ${startSeconds.toFixed(1)} s (nodes ${Object.values(cluster.timings).map((ms) => (ms / 1000).toFixed(1)).join(' / ')} s)`);
-  console.log(`[figures] ${writes.length} writes in ${burstSeconds.toFixed(1)} s through nginx, ${ok.length} acknowledged (${(ok.length / burstSeconds).toFixed(0)}/s); statuses ${JSON.stringify(statuses)}`);
+  console.log(
+    `\n[figures] cluster start ${startSeconds.toFixed(1)} s (nodes ${Object.values(cluster.timings)
+      .map((ms) => (ms / 1000).toFixed(1))
+      .join(' / ')} s)`,
+  );
+  console.log(
+    `[figures] ${writes.length} writes in ${burstSeconds.toFixed(1)} s through nginx, ${ok.length} acknowledged (${(ok.length / burstSeconds).toFixed(0)}/s); statuses ${JSON.stringify(statuses)}`,
+  );
   console.log(`[figures] write latency p50 ${quantile(lat, 0.5)} ms, p95 ${quantile(lat, 0.95)} ms, max ${Math.max(...lat)} ms`);
-  console.log(`[figures] first acknowledged write ${gapAfter(apiKilledAt).toFixed(2)} s after the API kill, ${gapAfter(nodeKilledAt).toFixed(2)} s after the node kill`);
+  console.log(
+    `[figures] first acknowledged write ${gapAfter(apiKilledAt).toFixed(2)} s after the API kill, ${gapAfter(nodeKilledAt).toFixed(2)} s after the node kill`,
+  );
   console.log(`[figures] liveness through nginx: ${JSON.stringify(pollStatuses)}\n`);
 
   // Checks
-  check(!writes.some((w) => w.status === 'no answer') && !polls.some((p) => p === 'no answer'), 'the balancer answered every request (no connection refused or time-out)');
-  check(writes.every((w) => [201, 502, 503].includes(w.status)), `writes answered 201, or 502/503 while a replica or node went away (${JSON.stringify(statuses)})`);
+  check(
+    !writes.some((w) => w.status === 'no answer') && !polls.some((p) => p === 'no answer'),
+    'the balancer answered every request (no connection refused or time-out)',
+  );
+  check(
+    writes.every((w) => [201, 502, 503].includes(w.status)),
+    `writes answered 201, or 502/503 while a replica or node went away (${JSON.stringify(statuses)})`,
+  );
   check(acked().filter((w) => w.at > nodeKilledAt).length >= 80, 'writes kept being acknowledged after both kills');
 
   const emails = new Set(ok.map((w) => w.email));
@@ -124,23 +150,36 @@ try {
     const invited = sql(node.socket, "SELECT email FROM invitations WHERE email LIKE 'cluster-%'", { database: 'shuntwise' }).map((r) => r[0]);
     const mails = sql(node.socket, "SELECT recipients FROM outgoing_mail WHERE kind = 'invitation'", { database: 'shuntwise' }).map((r) => JSON.parse(r[0])[0]);
     const missing = [...emails].filter((e) => !invited.includes(e));
-    check(missing.length === 0, `node ${node.index}: every acknowledged write is there (${emails.size} acknowledged, ${invited.length} rows${missing.length ? `, missing ${missing.slice(0, 5).join(' ')}` : ''})`);
+    check(
+      missing.length === 0,
+      `node ${node.index}: every acknowledged write is there (${emails.size} acknowledged, ${invited.length} rows${missing.length ? `, missing ${missing.slice(0, 5).join(' ')}` : ''})`,
+    );
     const halves = invited.filter((e) => mails.filter((m) => m === e).length !== 1);
-    check(new Set(invited).size === invited.length && halves.length === 0, `node ${node.index}: none half-written (each invitation has exactly one outbox message)`);
+    check(
+      new Set(invited).size === invited.length && halves.length === 0,
+      `node ${node.index}: none half-written (each invitation has exactly one outbox message)`,
+    );
   }
 
   // Mail: every message goes out (the killed replica's claims after their lease), once.
   const sentAll = await waitFor(
     'every outbox message sent',
-    () => Number(sql(cluster.nodes[0].socket, "SELECT COUNT(*) FROM outgoing_mail WHERE kind = 'invitation' AND state <> 'sent'", { database: 'shuntwise' })[0][0]) === 0,
+    () =>
+      Number(
+        sql(cluster.nodes[0].socket, "SELECT COUNT(*) FROM outgoing_mail WHERE kind = 'invitation' AND state <> 'sent'", { database: 'shuntwise' })[0][0],
+      ) === 0,
     90_000,
   ).catch(() => false);
   check(sentAll, 'every outbox message was sent');
-  const captured = sql(cluster.nodes[1].socket, "SELECT recipients FROM captured_mail WHERE recipients LIKE '%cluster-%'", { database: 'shuntwise' }).map((r) => JSON.parse(r[0])[0]);
+  const captured = sql(cluster.nodes[1].socket, "SELECT recipients FROM captured_mail WHERE recipients LIKE '%cluster-%'", { database: 'shuntwise' }).map(
+    (r) => JSON.parse(r[0])[0],
+  );
   const counts = new Map();
   for (const r of captured) counts.set(r, (counts.get(r) ?? 0) + 1);
   const twice = [...counts].filter(([, c]) => c > 1).map(([r]) => r);
-  console.log(`[figures] ${captured.length} messages received by the SMTP fake for ${counts.size} recipients; sent twice: ${twice.length ? twice.join(' ') : 'none'}`);
+  console.log(
+    `[figures] ${captured.length} messages received by the SMTP fake for ${counts.size} recipients; sent twice: ${twice.length ? twice.join(' ') : 'none'}`,
+  );
   check(twice.every((r) => inFlight.includes(r)) && twice.length <= 1, 'no message sent twice (at most the one the killed replica was handing to SMTP)');
 } catch (error) {
   failures.push(error.message);

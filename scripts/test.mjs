@@ -20,10 +20,11 @@ function run(command, args, { env = {}, cwd = root } = {}) {
   return new Promise((resolve) => {
     const child = spawn(command, args, { cwd, env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
-    const take = (stream, sink) => stream.on('data', (chunk) => {
-      output += chunk;
-      sink.write(chunk);
-    });
+    const take = (stream, sink) =>
+      stream.on('data', (chunk) => {
+        output += chunk;
+        sink.write(chunk);
+      });
     take(child.stdout, process.stdout);
     take(child.stderr, process.stderr);
     // eslint-disable-next-line no-control-regex
@@ -34,8 +35,16 @@ function run(command, args, { env = {}, cwd = root } = {}) {
 const summaryOf = {
   eslint: (out, ok) => (ok ? 'no problems' : (out.match(/✖ .*/g) ?? ['failed']).pop()),
   tsc: (out, ok) => (ok ? 'no type errors' : `${(out.match(/error TS\d+/g) ?? []).length} type errors`),
-  jest: (out) => ['Test Suites:', 'Tests:'].map((k) => (out.match(new RegExp(`^${k}.*$`, 'm')) ?? [''])[0].trim()).filter(Boolean).join(' | ') || 'no summary',
-  vitest: (out) => ['Test Files', 'Tests'].map((k) => (out.match(new RegExp(`^\\s*${k}\\s.*$`, 'm')) ?? [''])[0].trim()).filter(Boolean).join(' | ') || 'no summary',
+  jest: (out) =>
+    ['Test Suites:', 'Tests:']
+      .map((k) => (out.match(new RegExp(`^${k}.*$`, 'm')) ?? [''])[0].trim())
+      .filter(Boolean)
+      .join(' | ') || 'no summary',
+  vitest: (out) =>
+    ['Test Files', 'Tests']
+      .map((k) => (out.match(new RegExp(`^\\s*${k}\\s.*$`, 'm')) ?? [''])[0].trim())
+      .filter(Boolean)
+      .join(' | ') || 'no summary',
 };
 
 async function step(name, summarise, fn) {
@@ -117,30 +126,42 @@ async function endToEnd() {
 }
 
 async function main() {
-  await step('set-up (Debian packages, npm ci, contracts build)', () => 'done', async () => {
-    ensureDebianPackages(['mariadb-server', 'mariadb-client'], ['mariadbd', 'mariadb-install-db']);
-    ensureDebianFiles(['fonts-dejavu-core'], RECORD_FONTS);
-    ensureDebianPackages(['chromium'], ['chromium']);
-    ensureNodeModules(root);
-    return run('npm', ['run', 'build', '-w', 'contracts']);
-  });
+  await step(
+    'set-up (Debian packages, npm ci, contracts build)',
+    () => 'done',
+    async () => {
+      ensureDebianPackages(['mariadb-server', 'mariadb-client'], ['mariadbd', 'mariadb-install-db']);
+      ensureDebianFiles(['fonts-dejavu-core'], RECORD_FONTS);
+      ensureDebianPackages(['chromium'], ['chromium']);
+      ensureNodeModules(root);
+      return run('npm', ['run', 'build', '-w', 'contracts']);
+    },
+  );
   if (results.length && !results[0].ok) return;
   const npx = (bin) => join(root, 'node_modules/.bin', bin);
-  await step('format (prettier --check)', (out, ok) => (ok ? 'every file formatted' : `${(out.match(/^\[warn\] (?!Code style)/gm) ?? []).length} files not formatted (npm run format)`), () =>
-    run(npx('prettier'), ['--check', '.']),
+  await step(
+    'format (prettier --check)',
+    (out, ok) => (ok ? 'every file formatted' : `${(out.match(/^\[warn\] (?!Code style)/gm) ?? []).length} files not formatted (npm run format)`),
+    () => run(npx('prettier'), ['--check', '.']),
   );
   await step('lint (eslint)', summaryOf.eslint, () => run(npx('eslint'), ['--max-warnings=0', '.']));
   await step('type-check (tsc)', summaryOf.tsc, () => run('npm', ['run', 'typecheck', '--silent']));
   await step('contracts (vitest)', summaryOf.vitest, () => run(npx('vitest'), ['run'], { cwd: join(root, 'contracts') }));
   await step('api (jest: unit + integration on MariaDB)', summaryOf.jest, () => run('npm', ['test', '--silent'], { cwd: join(root, 'api') }));
   await step('web (vitest)', summaryOf.vitest, () => run(npx('vitest'), ['run'], { cwd: join(root, 'web') }));
-  const built = await step('build (api, web)', () => 'built', async () => {
-    buildAll(root, true);
-    return { code: 0, output: '' };
-  });
+  const built = await step(
+    'build (api, web)',
+    () => 'built',
+    async () => {
+      buildAll(root, true);
+      return { code: 0, output: '' };
+    },
+  );
   // The sign-in page's JavaScript budget (150 kB gzip) and the data grid kept out of it.
-  await step('bundle budget (sign-in page)', (out) => (out.match(/sign-in page JavaScript: .*/) ?? ['no figure'])[0], () =>
-    run('node', ['scripts/measure-bundle.mjs'], { cwd: join(root, 'web') }),
+  await step(
+    'bundle budget (sign-in page)',
+    (out) => (out.match(/sign-in page JavaScript: .*/) ?? ['no figure'])[0],
+    () => run('node', ['scripts/measure-bundle.mjs'], { cwd: join(root, 'web') }),
   );
   if (built !== false) await step('end-to-end (Chromium)', summaryOf.vitest, endToEnd);
 }

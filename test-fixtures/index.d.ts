@@ -1,20 +1,6 @@
 /** Invented demo data for Shuntwise: datasheets with answer keys, bad uploads, the demo catalogue. */
 
-export type RatingField =
-  | 'vzMin'
-  | 'vzNom'
-  | 'vzMax'
-  | 'izt'
-  | 'zzt'
-  | 'izk'
-  | 'zzk'
-  | 'irMax'
-  | 'vr'
-  | 'tc'
-  | 'pdMax'
-  | 'tjMax'
-  | 'rthJA'
-  | 'izm';
+export type RatingField = 'vzMin' | 'vzNom' | 'vzMax' | 'izt' | 'zzt' | 'izk' | 'zzk' | 'irMax' | 'vr' | 'tc' | 'pdMax' | 'tjMax' | 'rthJA' | 'izm';
 
 /** A value as printed (value and unit text), its SI value (V, A, Ω, W, °C, K/W, V/K) and its page. */
 export interface AnswerValue {

@@ -150,8 +150,12 @@ const full = time(() => {
 });
 
 console.log(`cards: ${CARDS}, points per card: ${CURRENTS.length} currents × ${AMBIENTS_C.length} ambients × 3 tolerance ends, self-heating on`);
-console.log(`engine (fitBreakdownModel + normalizePoints): ${engineNs.toFixed(0)} ns/card (median of ${ROUNDS}: ${engineMs.map((m) => m.toFixed(0)).join(', ')} ms)`);
-console.log(`bare loop, same arithmetic:                    ${bareNs.toFixed(0)} ns/card (median of ${ROUNDS}: ${bareMs.map((m) => m.toFixed(0)).join(', ')} ms)`);
+console.log(
+  `engine (fitBreakdownModel + normalizePoints): ${engineNs.toFixed(0)} ns/card (median of ${ROUNDS}: ${engineMs.map((m) => m.toFixed(0)).join(', ')} ms)`,
+);
+console.log(
+  `bare loop, same arithmetic:                    ${bareNs.toFixed(0)} ns/card (median of ${ROUNDS}: ${bareMs.map((m) => m.toFixed(0)).join(', ')} ms)`,
+);
 console.log(`ratio engine/bare: ${(engineNs / bareNs).toFixed(2)}× (target ≤ 3×)${engineNs / bareNs <= 3 ? '' : '  ** above target **'}`);
 console.log(`checksums agree to ${relDiff.toExponential(1)} (same numbers from both paths)`);
 console.log(`full normalize() response incl. card checks and .model line: ${((full.ms * 1e6) / FULL).toFixed(0)} ns/card over ${FULL} cards`);

@@ -76,7 +76,10 @@ async function ocr(): Promise<void> {
     const s = (performance.now() - start) / 1000;
     const text = await readPdf(source);
     const fromText = extractRatings({ ...text, pages: text.pages.filter((p) => p.page === page) });
-    const renumbered = { ...result, variants: result.variants.map((v) => ({ ...v, fields: Object.fromEntries(Object.entries(v.fields).map(([k, x]) => [k, { ...x, page }])) })) };
+    const renumbered = {
+      ...result,
+      variants: result.variants.map((v) => ({ ...v, fields: Object.fromEntries(Object.entries(v.fields).map(([k, x]) => [k, { ...x, page }])) })),
+    };
     const score = scoreOcr(f.answers, [page], fromText, renumbered);
     for (const k of Object.keys(totals) as Array<keyof typeof totals>) totals[k] += score[k];
     console.log(`  ${f.name} p. ${page}: ${s.toFixed(1)} s, recall ${score.recalled}/${score.expected}, precision ${score.correct}/${score.returned}`);
@@ -86,7 +89,9 @@ async function ocr(): Promise<void> {
   await engine.stop();
   const pct = (a: number, b: number) => (b ? `${((100 * a) / b).toFixed(1)} %` : 'n/a');
   console.log(`  ${(seconds / pages).toFixed(1)} s per page (render + OCR + extraction, 300 dpi)`);
-  console.log(`  recall ${pct(totals.recalled, totals.expected)} (${totals.recalled}/${totals.expected}), precision ${pct(totals.correct, totals.returned)} (${totals.correct}/${totals.returned})`);
+  console.log(
+    `  recall ${pct(totals.recalled, totals.expected)} (${totals.recalled}/${totals.expected}), precision ${pct(totals.correct, totals.returned)} (${totals.correct}/${totals.returned})`,
+  );
 }
 
 async function main(): Promise<void> {

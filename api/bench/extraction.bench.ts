@@ -17,7 +17,6 @@ import { median, quantile } from './bench-support';
 const ROUNDS = 7;
 const TEN_PAGE_RUNS = 25;
 
-
 async function pdfjsText(pdfjs: Awaited<ReturnType<typeof loadPdfjs>>, bytes: Uint8Array): Promise<number> {
   const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), verbosity: 0, isEvalSupported: false, disableFontFace: true, useSystemFonts: false })
     .promise;

@@ -14,8 +14,11 @@ export const HOUSE_PARTS = 2_000;
 export const ALTERNATES = 4;
 export const PACKAGES = ['SOD-123', 'SOD-123F', 'SOD-323', 'SOD-523', 'DO-35', 'DO-41', 'SMA', 'SMB', 'SOT-23', 'MELF'];
 
-
-const value = (v: number) => ({ value: v, printed: null, provenance: { source: 'imported', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
+const value = (v: number) => ({
+  value: v,
+  printed: null,
+  provenance: { source: 'imported', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null },
+});
 
 export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, progress?: (done: number) => void): Promise<void> {
   const rnd = seededRandom(20261207);
@@ -23,11 +26,18 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
   const insert = (sql: string, replacements: unknown[]) => sequelize.query(sql, { replacements, type: QueryTypes.INSERT });
   // The cases need an engineer: the first user there is (the demo accounts when seeded), else an invented one.
   const [someone] = await sequelize.query<{ id: number }>('SELECT id FROM users ORDER BY id LIMIT 1', { type: QueryTypes.SELECT });
-  if (!someone) await insert(`INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`, []);
+  if (!someone)
+    await insert(
+      `INSERT INTO users (id, email, name, role, created_at, updated_at) VALUES (1, 'bench@example.invalid', 'Bench Engineer', 'engineer', NOW(), NOW())`,
+      [],
+    );
   const userId = someone?.id ?? 1;
   const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
   await insert(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, makers);
-  await textIndex.writeNew('manufacturer', makers.map((name, i) => ({ id: i + 1, texts: [name] })));
+  await textIndex.writeNew(
+    'manufacturer',
+    makers.map((name, i) => ({ id: i + 1, texts: [name] })),
+  );
   const CHUNK = 2000;
   for (let start = 0; start < PARTS; start += CHUNK) {
     const parts: unknown[] = [];
@@ -44,7 +54,18 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
       const vzMin = Number((vz * (1 - tol)).toFixed(3));
       const vzMax = Number((vz * (1 + tol)).toFixed(3));
       const tolerance = hasCard ? vzTolerance({ vzNom: { value: vz }, vzMin: { value: vzMin }, vzMax: { value: vzMax } }) : null;
-      parts.push(i + 1, maker + 1, makers[maker], mpn, PACKAGES[i % PACKAGES.length], hasCard ? 1 : null, hasCard ? vz : null, hasCard ? izt : null, hasCard ? pd : null, tolerance);
+      parts.push(
+        i + 1,
+        maker + 1,
+        makers[maker],
+        mpn,
+        PACKAGES[i % PACKAGES.length],
+        hasCard ? 1 : null,
+        hasCard ? vz : null,
+        hasCard ? izt : null,
+        hasCard ? pd : null,
+        tolerance,
+      );
       names.push({ id: i + 1, texts: [mpn] });
       if (hasCard) {
         const fields = {
@@ -68,19 +89,38 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
     );
     await textIndex.writeNew('vendorPart', names);
     progress?.(Math.min(PARTS, start + CHUNK));
-    await insert(`INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${Array.from({ length: cards.length / 2 }, () => '(?, 1, ?, NOW(), NOW())').join(', ')}`, cards);
+    await insert(
+      `INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${Array.from({ length: cards.length / 2 }, () => '(?, 1, ?, NOW(), NOW())').join(', ')}`,
+      cards,
+    );
   }
 
   // House parts, each with an approved source and four alternates; three of these carry cases.
   const houseParts: unknown[] = [];
-  for (let h = 1; h <= HOUSE_PARTS; h++) houseParts.push(h, `HP-${String(h).padStart(5, '0')}`, `Regulator diode, invented bench part ${h}, ${['clamp', 'reference', 'shunt regulator', 'gate protection'][h % 4]}`);
-  await insert(`INSERT INTO house_parts (id, part_number, description, status, created_at, updated_at) VALUES ${Array.from({ length: HOUSE_PARTS }, () => "(?, ?, ?, 'active', NOW(), NOW())").join(', ')}`, houseParts);
+  for (let h = 1; h <= HOUSE_PARTS; h++)
+    houseParts.push(
+      h,
+      `HP-${String(h).padStart(5, '0')}`,
+      `Regulator diode, invented bench part ${h}, ${['clamp', 'reference', 'shunt regulator', 'gate protection'][h % 4]}`,
+    );
+  await insert(
+    `INSERT INTO house_parts (id, part_number, description, status, created_at, updated_at) VALUES ${Array.from({ length: HOUSE_PARTS }, () => "(?, ?, ?, 'active', NOW(), NOW())").join(', ')}`,
+    houseParts,
+  );
   const houseTexts: Array<{ id: number; texts: string[] }> = [];
-  for (let i = 0; i < houseParts.length; i += 3) houseTexts.push({ id: houseParts[i] as number, texts: [houseParts[i + 1] as string, houseParts[i + 2] as string] });
+  for (let i = 0; i < houseParts.length; i += 3)
+    houseTexts.push({ id: houseParts[i] as number, texts: [houseParts[i + 1] as string, houseParts[i + 2] as string] });
   await textIndex.writeNew('housePart', houseTexts);
   const sources: unknown[] = [];
   const cases: unknown[] = [];
-  const STATES: Array<[string, number]> = [['cleared', 0.4], ['cleared-with-conditions', 0.1], ['rejected', 0.15], ['revoked', 0.05], ['in-review', 0.15], ['draft', 0.15]];
+  const STATES: Array<[string, number]> = [
+    ['cleared', 0.4],
+    ['cleared-with-conditions', 0.1],
+    ['rejected', 0.15],
+    ['revoked', 0.05],
+    ['in-review', 0.15],
+    ['draft', 0.15],
+  ];
   const pickState = () => {
     let x = rnd();
     for (const [state, share] of STATES) if ((x -= share) < 0) return state;
@@ -110,7 +150,16 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
       const state = pickState();
       const decided = ['cleared', 'cleared-with-conditions', 'rejected', 'revoked'].includes(state);
       caseId++;
-      cases.push(caseId, h, vp, 1, state, decided ? (state === 'cleared-with-conditions' ? 'sample five per lot' : null) : null, decided ? userId : null, userId);
+      cases.push(
+        caseId,
+        h,
+        vp,
+        1,
+        state,
+        decided ? (state === 'cleared-with-conditions' ? 'sample five per lot' : null) : null,
+        decided ? userId : null,
+        userId,
+      );
       // One decided case in twenty has a re-check open above it.
       if (decided && rnd() < 0.05) {
         caseId++;
@@ -120,7 +169,10 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
   }
   for (let i = 0; i < sources.length; i += 2000) {
     const chunk = sources.slice(i, i + 2000);
-    await insert(`INSERT INTO house_part_sources (house_part_id, vendor_part_id, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 2 }, () => '(?, ?, NOW(), NOW())').join(', ')}`, chunk);
+    await insert(
+      `INSERT INTO house_part_sources (house_part_id, vendor_part_id, created_at, updated_at) VALUES ${Array.from({ length: chunk.length / 2 }, () => '(?, ?, NOW(), NOW())').join(', ')}`,
+      chunk,
+    );
   }
   for (let i = 0; i < cases.length; i += 8 * 500) {
     const chunk = cases.slice(i, i + 8 * 500);
@@ -132,4 +184,3 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
   }
   await sequelize.query('ANALYZE TABLE vendor_parts, rating_cards, house_parts, house_part_sources, qualifications, text_grams', { type: QueryTypes.SELECT });
 }
-

@@ -30,7 +30,14 @@ export async function ensureLargeData(parts: number): Promise<string> {
     seed: 'users',
     listen: false,
     quiet: true,
-    source: { ...process.env, DATA_DIR: dir, PORT: String(await freePort()), DB_PORT: String(await freePort()), S3_FAKE_PORT: String(await freePort()), SMTP_PORT: String(await freePort()) },
+    source: {
+      ...process.env,
+      DATA_DIR: dir,
+      PORT: String(await freePort()),
+      DB_PORT: String(await freePort()),
+      S3_FAKE_PORT: String(await freePort()),
+      SMTP_PORT: String(await freePort()),
+    },
   });
   try {
     const t0 = performance.now();

@@ -24,7 +24,13 @@ const CONNECTIONS = 10;
 async function waitFor(url: string, child: ChildProcess, what: string): Promise<void> {
   for (let i = 0; ; i++) {
     if (child.exitCode !== null) throw new Error(`${what} exited`);
-    if (await fetch(url).then((r) => r.status < 500, () => false)) return;
+    if (
+      await fetch(url).then(
+        (r) => r.status < 500,
+        () => false,
+      )
+    )
+      return;
     if (i > 900) throw new Error(`${what} did not come up`);
     await new Promise((r) => setTimeout(r, 100));
   }
@@ -34,7 +40,9 @@ async function waitFor(url: string, child: ChildProcess, what: string): Promise<
 function cpuMsOf(pid: number): number {
   try {
     const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-    const children = readdirSync(`/proc/${pid}/task`).flatMap((t) => readFileSync(`/proc/${pid}/task/${t}/children`, 'utf8').split(' ').filter(Boolean).map(Number));
+    const children = readdirSync(`/proc/${pid}/task`).flatMap((t) =>
+      readFileSync(`/proc/${pid}/task/${t}/children`, 'utf8').split(' ').filter(Boolean).map(Number),
+    );
     return (Number(fields[11]) + Number(fields[12])) * 10 + children.reduce((sum, child) => sum + cpuMsOf(child), 0);
   } catch {
     return 0;
@@ -88,9 +96,11 @@ async function main(): Promise<void> {
     }).then((r) => r.json() as Promise<{ accessToken: string }>);
     const auth = { authorization: `Bearer ${login.accessToken}` };
     const json = { ...auth, 'content-type': 'application/json' };
-    const part = await fetch(`${base}/api/vendor-parts`, { method: 'POST', headers: json, body: JSON.stringify({ manufacturer: 'Bench Invented Devices', mpn: 'BNZ-5V1', package: 'SOD-123' }) }).then(
-      (r) => r.json() as Promise<{ id: number }>,
-    );
+    const part = await fetch(`${base}/api/vendor-parts`, {
+      method: 'POST',
+      headers: json,
+      body: JSON.stringify({ manufacturer: 'Bench Invented Devices', mpn: 'BNZ-5V1', package: 'SOD-123' }),
+    }).then((r) => r.json() as Promise<{ id: number }>);
     const entered = { source: 'entered' };
     const fields = {
       vzMin: { value: 4.85, printed: '4.85 V', provenance: entered },
@@ -109,7 +119,14 @@ async function main(): Promise<void> {
     const secrets = JSON.parse(readFileSync(join(dataDir, 'secrets.json'), 'utf8')) as { dbPassword: string };
     const barePort = await freePort();
     bare = spawn(join(root, 'node_modules', '.bin', 'tsx'), [join(__dirname, 'bare-server.ts')], {
-      env: { ...process.env, BARE_PORT: String(barePort), DB_PORT: String(dbPort), DB_USER: 'shuntwise', DB_PASSWORD: secrets.dbPassword, DB_NAME: 'shuntwise' },
+      env: {
+        ...process.env,
+        BARE_PORT: String(barePort),
+        DB_PORT: String(dbPort),
+        DB_USER: 'shuntwise',
+        DB_PASSWORD: secrets.dbPassword,
+        DB_NAME: 'shuntwise',
+      },
       stdio: 'ignore',
     });
     const bareBase = `http://127.0.0.1:${barePort}`;

@@ -44,7 +44,16 @@ async function main(): Promise<void> {
   if (!existsSync(start)) throw new Error('build the api first (npm run build -w api)');
   const dir = await ensureLargeData(PARTS);
   const port = await freePort();
-  const env = { ...process.env, DATA_DIR: dir, PORT: String(port), DB_PORT: String(await freePort()), S3_FAKE_PORT: String(await freePort()), SMTP_PORT: String(await freePort()), SEED: 'users', LOGIN_RATE_LIMIT: '1000' };
+  const env = {
+    ...process.env,
+    DATA_DIR: dir,
+    PORT: String(port),
+    DB_PORT: String(await freePort()),
+    S3_FAKE_PORT: String(await freePort()),
+    SMTP_PORT: String(await freePort()),
+    SEED: 'users',
+    LOGIN_RATE_LIMIT: '1000',
+  };
   // CPU_PROF=<dir>: the API runs under `node --cpu-prof` and writes its profile there on exit (DEVELOPERS.md, "Profiling").
   const nodeArgs = process.env.CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${resolve(process.env.CPU_PROF)}`] : [];
   const api = spawn(process.execPath, [...nodeArgs, start], { env, stdio: 'ignore' });
@@ -52,7 +61,13 @@ async function main(): Promise<void> {
   try {
     for (let i = 0; ; i++) {
       if (api.exitCode !== null) throw new Error('the api exited');
-      if (await fetch(`${base}/api/health/live`).then((r) => r.ok, () => false)) break;
+      if (
+        await fetch(`${base}/api/health/live`).then(
+          (r) => r.ok,
+          () => false,
+        )
+      )
+        break;
       if (i > 1800) throw new Error('the api did not come up');
       await new Promise((r) => setTimeout(r, 100));
     }
@@ -64,7 +79,9 @@ async function main(): Promise<void> {
     const headers = { authorization: `Bearer ${login.accessToken}` };
 
     const dbPid = Number(readFileSync(join(dir, 'db', 'mariadb.pid'), 'utf8').trim());
-    console.log(`${PARTS} vendor parts, ${CLIENTS} clients, ${SECONDS} s, autocannon over loopback; each search alone first (one client, median of 15; CPU time per request):`);
+    console.log(
+      `${PARTS} vendor parts, ${CLIENTS} clients, ${SECONDS} s, autocannon over loopback; each search alone first (one client, median of 15; CPU time per request):`,
+    );
     for (const [name, query] of SEARCHES) {
       const times: number[] = [];
       let info = '';
@@ -72,14 +89,19 @@ async function main(): Promise<void> {
       for (let i = 0; i < 16; i++) {
         if (i === 1) cpu0 = { api: cpuMsOf(api.pid!), db: cpuMsOf(dbPid) };
         const t0 = performance.now();
-        const page = (await fetch(`${base}/api/search?${query}`, { headers }).then((r) => r.json())) as { total: number; text: { mode: string; candidates: number } };
+        const page = (await fetch(`${base}/api/search?${query}`, { headers }).then((r) => r.json())) as {
+          total: number;
+          text: { mode: string; candidates: number };
+        };
         if (i > 0) times.push(performance.now() - t0);
         info = `${page.total} match, text ${page.text.mode}${page.text.mode !== 'none' ? ` over ${page.text.candidates}` : ''}`;
       }
       times.sort((a, b) => a - b);
       const apiCpu = (cpuMsOf(api.pid!) - cpu0.api) / 15;
       const dbCpu = (cpuMsOf(dbPid) - cpu0.db) / 15;
-      console.log(`  ${name.padEnd(40)} ${times[7].toFixed(1).padStart(6)} ms   CPU: API ${apiCpu.toFixed(1).padStart(5)} ms, MariaDB ${dbCpu.toFixed(1).padStart(5)} ms   (${info})`);
+      console.log(
+        `  ${name.padEnd(40)} ${times[7].toFixed(1).padStart(6)} ms   CPU: API ${apiCpu.toFixed(1).padStart(5)} ms, MariaDB ${dbCpu.toFixed(1).padStart(5)} ms   (${info})`,
+      );
     }
 
     await autocannon({ url: `${base}/api/health/live`, connections: CLIENTS, duration: 2 });
@@ -96,14 +118,22 @@ async function main(): Promise<void> {
     });
     const rssAfter = rssOf(api.pid!);
     const cpu = { api: cpuMsOf(api.pid!) - cpuBefore.api, db: cpuMsOf(dbPid) - cpuBefore.db };
-    const dbBytes = Number(execFileSync('du', ['-sb', join(dir, 'db')]).toString().split('\t')[0]);
+    const dbBytes = Number(
+      execFileSync('du', ['-sb', join(dir, 'db')])
+        .toString()
+        .split('\t')[0],
+    );
     const failed = mixed.non2xx + mixed.errors + mixed.timeouts;
-    console.log(`liveness                      ${live.requests.average.toFixed(0).padStart(6)} req/s   p50 ${live.latency.p50} ms   p99 ${live.latency.p99} ms`);
+    console.log(
+      `liveness                      ${live.requests.average.toFixed(0).padStart(6)} req/s   p50 ${live.latency.p50} ms   p99 ${live.latency.p99} ms`,
+    );
     console.log(
       `search mix, ${CLIENTS} clients ${SECONDS} s   ${mixed.requests.average.toFixed(0).padStart(6)} req/s   p50 ${mixed.latency.p50} ms   p99 ${mixed.latency.p99} ms (goal < 100 ms)` +
         `   ${(mixed.requests.average / live.requests.average).toFixed(3)} of liveness (goal ≥ 0.25)${failed ? `   ${failed} failed` : ''}`,
     );
-    console.log(`CPU per search (mix): API ${(cpu.api / mixed.requests.total).toFixed(2)} ms, MariaDB ${(cpu.db / mixed.requests.total).toFixed(2)} ms (${mixed.requests.total} requests)`);
+    console.log(
+      `CPU per search (mix): API ${(cpu.api / mixed.requests.total).toFixed(2)} ms, MariaDB ${(cpu.db / mixed.requests.total).toFixed(2)} ms (${mixed.requests.total} requests)`,
+    );
     console.log(`API memory (RSS) ${mib(rssBefore)} before, ${mib(rssAfter)} after the load; database on disk ${mib(dbBytes)} (${dir}/db)`);
   } finally {
     api.kill('SIGINT');

@@ -29,12 +29,24 @@ async function main() {
   const server = await startMariaDb({ dir, port: await freePort(), quiet: true });
   try {
     await ensureDatabase(server, 'bench', 'bench', 'bench-only-local');
-    const sequelize = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: server.port, database: 'bench', username: 'bench', password: 'bench-only-local', logging: false, define: { underscored: true }, timezone: '+00:00' });
+    const sequelize = new Sequelize({
+      dialect: 'mariadb',
+      host: '127.0.0.1',
+      port: server.port,
+      database: 'bench',
+      username: 'bench',
+      password: 'bench-only-local',
+      logging: false,
+      define: { underscored: true },
+      timezone: '+00:00',
+    });
     await migrateUp(sequelize);
     const t0 = performance.now();
     await loadLargeCatalogue(sequelize, PARTS);
     const [{ n: caseCount }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM qualifications', { type: QueryTypes.SELECT });
-    console.log(`loaded ${PARTS} vendor parts (90 % with cards), ${HOUSE_PARTS} house parts, ${HOUSE_PARTS * (1 + ALTERNATES)} sources, ${caseCount} cases in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `loaded ${PARTS} vendor parts (90 % with cards), ${HOUSE_PARTS} house parts, ${HOUSE_PARTS * (1 + ALTERNATES)} sources, ${caseCount} cases in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
 
     const service = new SearchService(new SearchRepository(sequelize as never), new TextIndexRepository(sequelize as never));
     const floor: number[] = [];
@@ -81,14 +93,23 @@ async function main() {
         times.push(performance.now() - s);
         info = `${page.total} match, text ${page.text.mode}${page.text.mode !== 'none' ? ` over ${page.text.candidates}` : ''}${page.text.truncated ? ', truncated' : ''}`;
       }
-      console.log(`${name.padEnd(52)} median ${median(times).toFixed(2).padStart(7)} ms   p90 ${p90(times).toFixed(2).padStart(7)} ms   ×${(median(times) / floorMs).toFixed(0).padStart(4)} floor   (${info})`);
+      console.log(
+        `${name.padEnd(52)} median ${median(times).toFixed(2).padStart(7)} ms   p90 ${p90(times).toFixed(2).padStart(7)} ms   ×${(median(times) / floorMs).toFixed(0).padStart(4)} floor   (${info})`,
+      );
     }
 
     // The ranking step alone, over candidates shaped like the SQL's.
     const rnd = seededRandom(7);
     const records: TextRecord[] = Array.from({ length: SEARCH_TEXT_CANDIDATES }, (_, i) => {
       const vz = (2.4 + rnd() * 70).toFixed(1).replace('.', 'V');
-      return { id: i + 1, mpn: `ZX${String(i % 40).padStart(2, '0')}-${vz}-${i}`, manufacturer: `Invented Maker ${String(i % 40).padStart(2, '0')}`, package: PACKAGES[i % PACKAGES.length], houseParts: [`HP-${String(i % 2000).padStart(5, '0')}`], descriptions: ['Regulator diode, invented bench part, clamp'] };
+      return {
+        id: i + 1,
+        mpn: `ZX${String(i % 40).padStart(2, '0')}-${vz}-${i}`,
+        manufacturer: `Invented Maker ${String(i % 40).padStart(2, '0')}`,
+        package: PACKAGES[i % PACKAGES.length],
+        houseParts: [`HP-${String(i % 2000).padStart(5, '0')}`],
+        descriptions: ['Regulator diode, invented bench part, clamp'],
+      };
     });
     for (const n of [500, 1000, SEARCH_TEXT_CANDIDATES]) {
       const slice = records.slice(0, n);

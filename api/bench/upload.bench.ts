@@ -54,7 +54,10 @@ async function main(): Promise<void> {
   try {
     for (let i = 0; ; i++) {
       if (api.exitCode !== null) throw new Error('the api exited');
-      const ok = await fetch(`${base}/api/health`).then((r) => r.ok, () => false);
+      const ok = await fetch(`${base}/api/health`).then(
+        (r) => r.ok,
+        () => false,
+      );
       if (ok) break;
       if (i > 600) throw new Error('the api did not come up');
       await new Promise((r) => setTimeout(r, 100));
@@ -76,7 +79,9 @@ async function main(): Promise<void> {
       const res = await fetch(`${base}/api/datasheets`, { method: 'POST', headers: auth, body: form });
       const body = (await res.json()) as { id?: number; message?: string };
       if (res.status !== 201) throw new Error(`upload ${i}: ${res.status} ${body.message}`);
-      const extraction = await fetch(`${base}/api/datasheets/${body.id}/extraction`, { headers: auth }).then((r) => r.json() as Promise<{ variants: unknown[] }>);
+      const extraction = await fetch(`${base}/api/datasheets/${body.id}/extraction`, { headers: auth }).then(
+        (r) => r.json() as Promise<{ variants: unknown[] }>,
+      );
       const ms = performance.now() - t0;
       if (!extraction.variants.length) throw new Error('extraction found no variants');
       return ms;

@@ -22,19 +22,31 @@ const PARTS = 100_000;
 const MAKERS = 40;
 const ROUNDS = 25;
 
-
 async function main() {
   const dir = resolve(__dirname, '..', '..', '.data-test', `bench-list-${process.pid}`);
   const server = await startMariaDb({ dir, port: await freePort(), quiet: true });
   try {
     await ensureDatabase(server, 'bench', 'bench', 'bench-only-local');
-    const sequelize = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: server.port, database: 'bench', username: 'bench', password: 'bench-only-local', logging: false, define: { underscored: true }, timezone: '+00:00' });
+    const sequelize = new Sequelize({
+      dialect: 'mariadb',
+      host: '127.0.0.1',
+      port: server.port,
+      database: 'bench',
+      username: 'bench',
+      password: 'bench-only-local',
+      logging: false,
+      define: { underscored: true },
+      timezone: '+00:00',
+    });
     await migrateUp(sequelize);
 
     const t0 = performance.now();
     const rnd = seededRandom(20261201);
     const makers = Array.from({ length: MAKERS }, (_, i) => `Invented Maker ${String(i).padStart(2, '0')}`);
-    await sequelize.query(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, { replacements: makers, type: QueryTypes.INSERT });
+    await sequelize.query(`INSERT INTO manufacturers (name, created_at, updated_at) VALUES ${makers.map(() => '(?, NOW(), NOW())').join(', ')}`, {
+      replacements: makers,
+      type: QueryTypes.INSERT,
+    });
     const packages = ['SOD-123', 'SOD-123F', 'SOD-323', 'SOD-523', 'DO-35', 'DO-41', 'SMA', 'SOT-23'];
     const CHUNK = 2000;
     for (let start = 0; start < PARTS; start += CHUNK) {
@@ -45,24 +57,43 @@ async function main() {
         const maker = Math.floor(rnd() * MAKERS);
         const hasCard = rnd() < 0.9;
         const mpn = `ZX${String(maker).padStart(2, '0')}-${vz.toFixed(1).replace('.', 'V')}-${i}`;
-        parts.push(i + 1, maker + 1, makers[maker], mpn, packages[i % packages.length], hasCard ? 1 : null, hasCard ? vz : null, hasCard ? 0.005 : null, hasCard ? (rnd() < 0.5 ? 0.5 : 1.3) : null);
+        parts.push(
+          i + 1,
+          maker + 1,
+          makers[maker],
+          mpn,
+          packages[i % packages.length],
+          hasCard ? 1 : null,
+          hasCard ? vz : null,
+          hasCard ? 0.005 : null,
+          hasCard ? (rnd() < 0.5 ? 0.5 : 1.3) : null,
+        );
         if (hasCard) cards.push(i + 1);
       }
       await sequelize.query(
         `INSERT INTO vendor_parts (id, manufacturer_id, manufacturer_name, mpn, package, card_version, vz_nom, izt, pd_max, created_at, updated_at) VALUES ${Array.from({ length: parts.length / 9 }, () => '(?, ?, ?, ?, ?, ?, ?, ?, ?, NOW(), NOW())').join(', ')}`,
         { replacements: parts, type: QueryTypes.INSERT },
       );
-      await sequelize.query(`INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${cards.map(() => "(?, 1, '{}', NOW(), NOW())").join(', ')}`, {
-        replacements: cards,
-        type: QueryTypes.INSERT,
-      });
+      await sequelize.query(
+        `INSERT INTO rating_cards (vendor_part_id, version, fields, created_at, updated_at) VALUES ${cards.map(() => "(?, 1, '{}', NOW(), NOW())").join(', ')}`,
+        {
+          replacements: cards,
+          type: QueryTypes.INSERT,
+        },
+      );
     }
     // The text index, as the repositories write it with each part (here in bulk).
     const textIndex = new TextIndexRepository(sequelize as never);
     const names = await sequelize.query<{ id: number; mpn: string }>('SELECT id, mpn FROM vendor_parts', { type: QueryTypes.SELECT });
-    await textIndex.writeNew('vendorPart', names.map((n) => ({ id: n.id, texts: [n.mpn] })));
+    await textIndex.writeNew(
+      'vendorPart',
+      names.map((n) => ({ id: n.id, texts: [n.mpn] })),
+    );
     const makerRows = await sequelize.query<{ id: number; name: string }>('SELECT id, name FROM manufacturers', { type: QueryTypes.SELECT });
-    await textIndex.writeNew('manufacturer', makerRows.map((m) => ({ id: m.id, texts: [m.name] })));
+    await textIndex.writeNew(
+      'manufacturer',
+      makerRows.map((m) => ({ id: m.id, texts: [m.name] })),
+    );
     await sequelize.query('ANALYZE TABLE vendor_parts, rating_cards, manufacturers, text_grams', { type: QueryTypes.SELECT });
     console.log(`loaded ${PARTS} vendor parts (${MAKERS} manufacturers, about 90 % with cards) in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
 
@@ -98,7 +129,9 @@ async function main() {
         total = (await repository.list(query)).total;
         times.push(performance.now() - s);
       }
-      console.log(`${name.padEnd(34)} median ${median(times).toFixed(2).padStart(7)} ms   p90 ${p90(times).toFixed(2).padStart(7)} ms   (${total} rows match, page + count)`);
+      console.log(
+        `${name.padEnd(34)} median ${median(times).toFixed(2).padStart(7)} ms   p90 ${p90(times).toFixed(2).padStart(7)} ms   (${total} rows match, page + count)`,
+      );
     }
     await sequelize.close();
   } finally {

@@ -10,7 +10,9 @@ import { readPdf } from '../src/extraction/pdf-text';
 import { pageLines } from '../src/extraction/text-layout';
 
 async function main(): Promise<void> {
-  const { values } = parseArgs({ options: { seed: { type: 'string' }, lines: { type: 'boolean', default: false }, set: { type: 'string', multiple: true, default: [] } } });
+  const { values } = parseArgs({
+    options: { seed: { type: 'string' }, lines: { type: 'boolean', default: false }, set: { type: 'string', multiple: true, default: [] } },
+  });
   const overrides: Record<string, unknown> = {};
   for (const s of values.set ?? []) {
     const [k, v] = s.split('=');

@@ -39,24 +39,25 @@ const FEATURES = [
   OutboxModule,
   SeedModule,
   EngineeringModule,
-  CatalogueEventsModule, VendorPartsModule, HousePartsModule, DatasheetsModule, CatalogueCsvModule, HousePartBuyersModule,
-  QualificationsModule, QualificationViewsModule, QualificationRequestsModule, SearchModule, MeasurementsModule];
+  CatalogueEventsModule,
+  VendorPartsModule,
+  HousePartsModule,
+  DatasheetsModule,
+  CatalogueCsvModule,
+  HousePartBuyersModule,
+  QualificationsModule,
+  QualificationViewsModule,
+  QualificationRequestsModule,
+  SearchModule,
+  MeasurementsModule,
+];
 
 @Module({})
 export class AppModule {
   static forRoot(env: Env): DynamicModule {
     return {
       module: AppModule,
-      imports: [
-        ConfigModule.forRoot(env),
-        DatabaseModule,
-        ClockModule,
-        TextIndexModule,
-        StorageModule,
-        MailModule,
-        RateLimitsModule,
-        ...FEATURES,
-      ],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, ClockModule, TextIndexModule, StorageModule, MailModule, RateLimitsModule, ...FEATURES],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

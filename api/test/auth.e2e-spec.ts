@@ -16,8 +16,18 @@ describe('sign-in and roles (real MariaDB)', () => {
     );
     const undeclared = routes.filter((r) => !r.isPublic && !(r.roles && r.roles.length));
     expect(undeclared).toEqual([]);
-    const publicRoutes = routes.filter((r) => r.isPublic).map((r) => `${r.method} ${r.path}`).sort();
-    expect(publicRoutes).toEqual(['GET /api/auth/invitations/:token', 'GET /api/health', 'GET /api/health/live', 'GET /api/health/ready', 'POST /api/auth/invitations/accept', 'POST /api/auth/login']);
+    const publicRoutes = routes
+      .filter((r) => r.isPublic)
+      .map((r) => `${r.method} ${r.path}`)
+      .sort();
+    expect(publicRoutes).toEqual([
+      'GET /api/auth/invitations/:token',
+      'GET /api/health',
+      'GET /api/health/live',
+      'GET /api/health/ready',
+      'POST /api/auth/invitations/accept',
+      'POST /api/auth/login',
+    ]);
   });
 
   it('signs in with the right password and returns the user', async () => {
@@ -92,7 +102,6 @@ describe('sign-in and roles (real MariaDB)', () => {
     const res = await t.http.patch(`/api/users/${me.id}`).set('Authorization', `Bearer ${admin}`).send({ active: false });
     expect(res.status).toBe(409);
   });
-
 });
 
 describe('sign-in rate limit', () => {

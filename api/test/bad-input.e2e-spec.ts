@@ -30,7 +30,9 @@ describe('bad input on every write route (property-based, real MariaDB and S3 fa
   afterAll(() => t?.close());
 
   async function snapshot(): Promise<Record<string, number>> {
-    const tables = await t.select<{ name: string }>("SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE'");
+    const tables = await t.select<{ name: string }>(
+      "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE'",
+    );
     const out: Record<string, number> = {};
     for (const { name } of tables) {
       if (COUNTERS.has(name)) continue;
@@ -53,7 +55,13 @@ describe('bad input on every write route (property-based, real MariaDB and S3 fa
     const routes = listWriteRoutes(t.stack.app);
     // The enumeration must see the write routes we know, or the suite proves nothing.
     expect(routes.map((r) => `${r.method} ${r.path}`)).toEqual(
-      expect.arrayContaining(['POST /api/auth/login', 'PUT /api/house-parts/:id/spec', 'PUT /api/vendor-parts/:id/rating-card', 'POST /api/qualifications/:id/clear', 'POST /api/imports/vendor-series']),
+      expect.arrayContaining([
+        'POST /api/auth/login',
+        'PUT /api/house-parts/:id/spec',
+        'PUT /api/vendor-parts/:id/rating-card',
+        'POST /api/qualifications/:id/clear',
+        'POST /api/imports/vendor-series',
+      ]),
     );
     const withoutBody = routes.filter((r) => !r.takesBody).map((r) => `${r.method} ${r.path}`);
     const fuzzed = routes.filter((r) => r.takesBody && r.bodySchema);
@@ -77,13 +85,16 @@ describe('bad input on every write route (property-based, real MariaDB and S3 fa
           if (!HONEST.includes(res.status)) throw new Error(`not an honest 4xx: ${what()}`);
           if (res.status === 400 || res.status === 422) {
             const errors = (res.body.errors ?? []) as Array<{ path: unknown; message: unknown }>;
-            if (!errors.length || !errors.every((e) => typeof e.path === 'string' && typeof e.message === 'string')) throw new Error(`no field named: ${what()}`);
-            if (!errors.some((e) => body.poisons.some((p) => namesPoison(e.path as string, p)))) throw new Error(`the errors do not name the bad field: ${what()}`);
+            if (!errors.length || !errors.every((e) => typeof e.path === 'string' && typeof e.message === 'string'))
+              throw new Error(`no field named: ${what()}`);
+            if (!errors.some((e) => body.poisons.some((p) => namesPoison(e.path as string, p))))
+              throw new Error(`the errors do not name the bad field: ${what()}`);
           }
         }),
         { seed: SEED, numRuns: RUNS, endOnFailure: true },
       );
-      if (outcome.failed) failures.push(`${(outcome.errorInstance as Error)?.message ?? String(outcome.errorInstance)} [seed ${SEED}, path ${outcome.counterexamplePath}]`);
+      if (outcome.failed)
+        failures.push(`${(outcome.errorInstance as Error)?.message ?? String(outcome.errorInstance)} [seed ${SEED}, path ${outcome.counterexamplePath}]`);
       const after = await snapshot();
       const changed = Object.keys(before).filter((k) => before[k] !== after[k]);
       if (changed.length) failures.push(`${route.method} ${route.path} stored something: ${changed.map((k) => `${k} ${before[k]} → ${after[k]}`).join(', ')}`);

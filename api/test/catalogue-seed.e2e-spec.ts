@@ -55,12 +55,20 @@ describe('demo catalogue seed (real MariaDB, S3 fake)', () => {
     const engineer = await t.tokenFor('engineer');
     const part = catalogue.vendorParts[0];
     const vendor = catalogue.vendors.find((v) => v.code === part.vendor)!.name;
-    const list = await t.http.get(`/api/vendor-parts?mpn=${encodeURIComponent(part.mpn)}&manufacturer=${encodeURIComponent(vendor)}`).set('Authorization', `Bearer ${engineer}`);
-    const card = (await t.http.get(`/api/vendor-parts/${list.body.items[0].id}/rating-card?include=engineering`).set('Authorization', `Bearer ${engineer}`)).body;
+    const list = await t.http
+      .get(`/api/vendor-parts?mpn=${encodeURIComponent(part.mpn)}&manufacturer=${encodeURIComponent(vendor)}`)
+      .set('Authorization', `Bearer ${engineer}`);
+    const card = (await t.http.get(`/api/vendor-parts/${list.body.items[0].id}/rating-card?include=engineering`).set('Authorization', `Bearer ${engineer}`))
+      .body;
     const [sheet] = await t.select<{ id: number }>('SELECT id FROM datasheets WHERE file_name = ?', [part.datasheet.file]);
     for (const [field, value] of Object.entries(part.ratingCard.fields)) {
       expect([field, card.fields[field].value]).toEqual([field, field === 'tc' ? value.valueInUnit : value.value]);
-      expect(card.fields[field].provenance).toMatchObject({ source: 'extracted', datasheetId: sheet.id, page: value.page, confirmedBy: { name: 'Priya Raman' } });
+      expect(card.fields[field].provenance).toMatchObject({
+        source: 'extracted',
+        datasheetId: sheet.id,
+        page: value.page,
+        confirmedBy: { name: 'Priya Raman' },
+      });
     }
     expect(card.engineering.basis).not.toBeNull(); // it is a source of a house part with a spec
     const extraction = await t.http.get(`/api/datasheets/${sheet.id}/extraction`).set('Authorization', `Bearer ${engineer}`);

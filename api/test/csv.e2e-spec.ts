@@ -181,7 +181,12 @@ describe('CSV import and export (real MariaDB)', () => {
     const text = (await t.http.get('/api/exports/rating-cards?manufacturer=Noisefree%20Devices').set(auth(designer))).text;
     expect(text).not.toMatch(/\d{10}/);
     const [row] = parse(text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(row).toMatchObject({ 'Knee current (A)': '0.00007', 'Reverse leakage max (A)': '1.1e-7', 'Temperature coefficient': '0.05 %/K', 'Temperature coefficient converted (V/K)': '0.00255' });
+    expect(row).toMatchObject({
+      'Knee current (A)': '0.00007',
+      'Reverse leakage max (A)': '1.1e-7',
+      'Temperature coefficient': '0.05 %/K',
+      'Temperature coefficient converted (V/K)': '0.00255',
+    });
     const back = await preview({ csv: text });
     expect(back.body.warnings).toEqual([]);
     expect(back.body.summary).toMatchObject({ rows: 1, withErrors: 0, unchanged: 1 });
@@ -224,10 +229,14 @@ describe('CSV import and export (real MariaDB)', () => {
     const vp = (await t.http.get('/api/vendor-parts?mpn=ODW-4V7').set(auth(engineer))).body.items[0].id;
     await t.http.post(`/api/house-parts/${hp}/sources`).set(auth(engineer)).send({ vendorPartId: vp, role: 'alternate', note: '@SUM(A1:A9)' });
     const parts = parse((await t.http.get('/api/exports/house-parts').set(auth(buyer))).text, { bom: true, columns: true }) as Array<Record<string, string>>;
-    expect(parts.find((r) => r['House part'] === 'OHI-ZD-CSVX')).toMatchObject({ Description: `'=HYPERLINK("http://x.invalid","open")`, 'Source note': "'@SUM(A1:A9)" });
-    const cards = parse((await t.http.get('/api/exports/rating-cards?manufacturer=Ostrander%20Components').set(auth(designer))).text, { bom: true, columns: true }) as Array<
-      Record<string, string>
-    >;
+    expect(parts.find((r) => r['House part'] === 'OHI-ZD-CSVX')).toMatchObject({
+      Description: `'=HYPERLINK("http://x.invalid","open")`,
+      'Source note': "'@SUM(A1:A9)",
+    });
+    const cards = parse((await t.http.get('/api/exports/rating-cards?manufacturer=Ostrander%20Components').set(auth(designer))).text, {
+      bom: true,
+      columns: true,
+    }) as Array<Record<string, string>>;
     expect(cards[0]['Temperature coefficient converted (V/K)']).toBe('-0.0014');
   });
 });

@@ -9,10 +9,25 @@ describe('migrations (real MariaDB)', () => {
   const name = `t_migr_${process.pid}`;
 
   beforeAll(async () => {
-    const admin = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: Number(process.env.TEST_DB_PORT), username: 'tester', password: 'tester-only-local', logging: false });
+    const admin = new Sequelize({
+      dialect: 'mariadb',
+      host: '127.0.0.1',
+      port: Number(process.env.TEST_DB_PORT),
+      username: 'tester',
+      password: 'tester-only-local',
+      logging: false,
+    });
     await admin.query(`CREATE DATABASE \`${name}\``, { type: QueryTypes.RAW }).catch(() => undefined);
     await admin.close();
-    sequelize = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: Number(process.env.TEST_DB_PORT), database: name, username: 'tester', password: 'tester-only-local', logging: false });
+    sequelize = new Sequelize({
+      dialect: 'mariadb',
+      host: '127.0.0.1',
+      port: Number(process.env.TEST_DB_PORT),
+      database: name,
+      username: 'tester',
+      password: 'tester-only-local',
+      logging: false,
+    });
   });
   afterAll(async () => {
     await sequelize.query(`DROP DATABASE \`${name}\``, { type: QueryTypes.RAW });
@@ -20,7 +35,12 @@ describe('migrations (real MariaDB)', () => {
   });
 
   const tables = async () =>
-    (await sequelize.query<{ t: string }>('SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ?', { replacements: [name], type: QueryTypes.SELECT }))
+    (
+      await sequelize.query<{ t: string }>('SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ?', {
+        replacements: [name],
+        type: QueryTypes.SELECT,
+      })
+    )
       .map((r) => r.t)
       .filter((t) => t !== 'schema_migrations')
       .sort();

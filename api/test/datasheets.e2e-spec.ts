@@ -29,7 +29,10 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
   const rows = async () => (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM datasheets'))[0].n;
   const extractionRows = async () => (await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM datasheet_extractions'))[0].n;
   const upload = (file: Buffer | string, name = 'datasheet.pdf', token = engineer) =>
-    t.http.post('/api/datasheets').set(auth(token)).attach('file', typeof file === 'string' ? readFileSync(file) : file, name);
+    t.http
+      .post('/api/datasheets')
+      .set(auth(token))
+      .attach('file', typeof file === 'string' ? readFileSync(file) : file, name);
 
   beforeAll(async () => {
     t = await createTestApp({ env: { UPLOAD_MAX_BYTES: String(LIMIT) } });
@@ -55,11 +58,15 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     expect(row.storage_key).toMatch(/^datasheets\/[0-9a-f-]{36}\.pdf$/);
     expect(await objects()).toEqual([row.storage_key]);
 
-    const file = await t.http.get(`/api/datasheets/${res.body.id}/file`).set(auth(buyer)).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const file = await t.http
+      .get(`/api/datasheets/${res.body.id}/file`)
+      .set(auth(buyer))
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(file.status).toBe(200);
     expect(file.headers['content-type']).toBe('application/pdf');
     expect(file.headers['content-disposition']).toBe(`inline; filename="BRZ05 Datenblatt _.pdf"; filename*=UTF-8''BRZ05%20Datenblatt%20%C2%B5.pdf`);
@@ -93,19 +100,68 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
 
   describe('every bad upload gets its own 4xx with a plain message and leaves no object and no row', () => {
     const cases: Array<[string, () => ReturnType<typeof upload>, number, RegExp]> = [
-      ['no file at all', () => t.http.post('/api/datasheets').set(auth(engineer)).field('revision', 'A'), 400, /No file: send the PDF in the multipart field "file"/],
-      ['a file in another field', () => t.http.post('/api/datasheets').set(auth(engineer)).attach('pdf', readFileSync(sheet('aldmoor').pdfPath), 'x.pdf'), 400, /field "file"/],
-      ['two files', () => t.http.post('/api/datasheets').set(auth(engineer)).attach('file', readFileSync(sheet('aldmoor').pdfPath), 'x.pdf').attach('file', readFileSync(sheet('ostrander').pdfPath), 'y.pdf'), 400, /one file per upload/],
+      [
+        'no file at all',
+        () => t.http.post('/api/datasheets').set(auth(engineer)).field('revision', 'A'),
+        400,
+        /No file: send the PDF in the multipart field "file"/,
+      ],
+      [
+        'a file in another field',
+        () =>
+          t.http
+            .post('/api/datasheets')
+            .set(auth(engineer))
+            .attach('pdf', readFileSync(sheet('aldmoor').pdfPath), 'x.pdf'),
+        400,
+        /field "file"/,
+      ],
+      [
+        'two files',
+        () =>
+          t.http
+            .post('/api/datasheets')
+            .set(auth(engineer))
+            .attach('file', readFileSync(sheet('aldmoor').pdfPath), 'x.pdf')
+            .attach('file', readFileSync(sheet('ostrander').pdfPath), 'y.pdf'),
+        400,
+        /one file per upload/,
+      ],
       ['an empty file', () => upload(fixtures.badUploads.empty, 'empty.pdf'), 400, /empty/],
-      ['a file over the limit', () => upload(Buffer.concat([readFileSync(sheet('tevorrow').pdfPath), Buffer.alloc(LIMIT)]), 'big.pdf'), 413, /larger than the upload limit of 98 kB/],
+      [
+        'a file over the limit',
+        () => upload(Buffer.concat([readFileSync(sheet('tevorrow').pdfPath), Buffer.alloc(LIMIT)]), 'big.pdf'),
+        413,
+        /larger than the upload limit of 98 kB/,
+      ],
       ['a PNG renamed .pdf', () => upload(fixtures.badUploads.notPdf, 'photo.pdf'), 415, /not a PDF.*PNG image/],
       ['a truncated PDF', () => upload(fixtures.badUploads.truncated, 'cut.pdf'), 422, /truncated/],
       ['a corrupt PDF', () => upload(fixtures.badUploads.corrupt, 'broken.pdf'), 422, /damaged/],
       ['an encrypted PDF', () => upload(fixtures.badUploads.encrypted, 'locked.pdf'), 422, /password/],
       ['a buyer uploading', () => upload(sheet('nettlecombe').pdfPath, 'n.pdf', buyer), 403, /role/],
       ['a designer uploading', () => upload(sheet('nettlecombe').pdfPath, 'n.pdf', designer), 403, /role/],
-      ['an unknown vendor part', () => t.http.post('/api/datasheets').set(auth(engineer)).field('vendorPartId', '987654').attach('file', readFileSync(sheet('nettlecombe').pdfPath), 'n.pdf'), 400, /No vendor part with id 987654/],
-      ['a bad revision label', () => t.http.post('/api/datasheets').set(auth(engineer)).field('revision', 'x'.repeat(41)).attach('file', readFileSync(sheet('nettlecombe').pdfPath), 'n.pdf'), 400, /revision/],
+      [
+        'an unknown vendor part',
+        () =>
+          t.http
+            .post('/api/datasheets')
+            .set(auth(engineer))
+            .field('vendorPartId', '987654')
+            .attach('file', readFileSync(sheet('nettlecombe').pdfPath), 'n.pdf'),
+        400,
+        /No vendor part with id 987654/,
+      ],
+      [
+        'a bad revision label',
+        () =>
+          t.http
+            .post('/api/datasheets')
+            .set(auth(engineer))
+            .field('revision', 'x'.repeat(41))
+            .attach('file', readFileSync(sheet('nettlecombe').pdfPath), 'n.pdf'),
+        400,
+        /revision/,
+      ],
     ];
     it.each(cases)('%s', async (_what, send, status, message) => {
       const before = { rows: await rows(), extractions: await extractionRows(), objects: await objects() };
@@ -124,7 +180,12 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     expect(res.body.pages).toBe(2);
     const extraction = await t.http.get(`/api/datasheets/${res.body.id}/extraction`).set(auth(engineer));
     expect(extraction.body).toMatchObject({ hasText: false, variants: [] });
-    expect(extraction.body.warnings).toEqual(expect.arrayContaining([expect.stringMatching(/^page 1: no text layer and OCR found no ratings/), expect.stringMatching(/^page 2: no text layer and OCR found no ratings/)]));
+    expect(extraction.body.warnings).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/^page 1: no text layer and OCR found no ratings/),
+        expect.stringMatching(/^page 2: no text layer and OCR found no ratings/),
+      ]),
+    );
   }, 180_000);
 
   it('leaves no row when the object store refuses the file', async () => {
@@ -162,16 +223,37 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     const vendorPartId = await createVendorPart(t.http, engineer, { manufacturer: 'Quarryhill Parts', mpn: 'QHZ-REV-1' });
     const seen: CatalogueChange[] = [];
     const off = t.stack.app.get(CatalogueEvents).subscribe((c) => void seen.push(c));
-    const first = await t.http.post('/api/datasheets').set(auth(engineer)).field('vendorPartId', String(vendorPartId)).field('revision', 'A').attach('file', readFileSync(sheet('quarryhill').pdfPath), 'qhz-a.pdf');
+    const first = await t.http
+      .post('/api/datasheets')
+      .set(auth(engineer))
+      .field('vendorPartId', String(vendorPartId))
+      .field('revision', 'A')
+      .attach('file', readFileSync(sheet('quarryhill').pdfPath), 'qhz-a.pdf');
     expect(first.status).toBe(201);
     // an existing datasheet can be linked by uploading it again with the vendor part
-    const second = await t.http.post('/api/datasheets').set(auth(engineer)).field('vendorPartId', String(vendorPartId)).attach('file', readFileSync(sheet('lumenvale').pdfPath), 'other.pdf');
+    const second = await t.http
+      .post('/api/datasheets')
+      .set(auth(engineer))
+      .field('vendorPartId', String(vendorPartId))
+      .attach('file', readFileSync(sheet('lumenvale').pdfPath), 'other.pdf');
     expect(second.body.existing).toBe(true);
     off();
-    expect(seen).toEqual([{ kind: 'datasheet-revised', vendorPartId, datasheetId: second.body.id, revision: null, previousDatasheetIds: [first.body.id], userId: expect.any(Number) }]);
+    expect(seen).toEqual([
+      {
+        kind: 'datasheet-revised',
+        vendorPartId,
+        datasheetId: second.body.id,
+        revision: null,
+        previousDatasheetIds: [first.body.id],
+        userId: expect.any(Number),
+      },
+    ]);
     const part = await t.http.get(`/api/vendor-parts/${vendorPartId}`).set(auth(buyer));
     expect(part.body.datasheets.map((d: { id: number; revision: string | null }) => [d.id, d.revision])).toEqual(
-      expect.arrayContaining([[first.body.id, 'A'], [second.body.id, null]]),
+      expect.arrayContaining([
+        [first.body.id, 'A'],
+        [second.body.id, null],
+      ]),
     );
     expect((await t.http.get(`/api/datasheets/${first.body.id}`).set(auth(buyer))).body.vendorPartIds).toEqual([vendorPartId]);
   });
@@ -180,7 +262,11 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     let datasheetId: number;
     let extraction: ExtractionResult;
     const reviewed = () =>
-      extraction.variants.map((v) => ({ mpn: v.mpn, package: v.package?.value ?? null, fields: { pdRefC: { value: 25, printed: '25 °C', provenance: { source: 'entered' } }, ...cardDraftFromExtraction(v, datasheetId) } }));
+      extraction.variants.map((v) => ({
+        mpn: v.mpn,
+        package: v.package?.value ?? null,
+        fields: { pdRefC: { value: 25, printed: '25 °C', provenance: { source: 'entered' } }, ...cardDraftFromExtraction(v, datasheetId) },
+      }));
     beforeAll(async () => {
       datasheetId = (await upload(sheet('quarryhill').pdfPath, 'qhz.pdf')).body.id;
       extraction = (await t.http.get(`/api/datasheets/${datasheetId}/extraction`).set(auth(engineer))).body;
@@ -201,7 +287,10 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
       const card = (await t.http.get(`/api/vendor-parts/${first}/rating-card`).set(auth(engineer))).body;
       const key = answers.variants.find((v) => v.mpn === res.body.vendorParts[0].mpn)!;
       // the answer key of the invented datasheet says where each value is printed
-      expect(card.fields.vzNom).toMatchObject({ value: key.fields.vzNom!.si, provenance: { source: 'extracted', datasheetId, page: key.fields.vzNom!.page, text: expect.any(String) } });
+      expect(card.fields.vzNom).toMatchObject({
+        value: key.fields.vzNom!.si,
+        provenance: { source: 'extracted', datasheetId, page: key.fields.vzNom!.page, text: expect.any(String) },
+      });
       expect(card.fields.zzt).toMatchObject({ value: 33, provenance: { source: 'entered', datasheetId: null } });
       const part = (await t.http.get(`/api/vendor-parts/${first}`).set(auth(buyer))).body;
       expect(part).toMatchObject({ manufacturer: 'Quarryhill Parts', package: key.package.value, datasheets: [{ id: datasheetId }] });
@@ -216,7 +305,10 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
       expect(res.body.errors.map((e: { path: string }) => e.path)).toContain('variants.2.fields.vzMin.value');
       expect(await t.select('SELECT COUNT(*) AS n FROM vendor_parts')).toEqual(before);
 
-      const twice = await t.http.post(`/api/datasheets/${datasheetId}/variants`).set(auth(engineer)).send({ manufacturer: 'Quarryhill Parts', variants: [reviewed()[0], reviewed()[0]] });
+      const twice = await t.http
+        .post(`/api/datasheets/${datasheetId}/variants`)
+        .set(auth(engineer))
+        .send({ manufacturer: 'Quarryhill Parts', variants: [reviewed()[0], reviewed()[0]] });
       expect(twice.status).toBe(400);
       expect(twice.body.errors[0].path).toBe('variants.1.mpn');
     });
@@ -232,7 +324,14 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
       // the first variant's card was rolled back with the rest
       expect((await t.http.get(`/api/vendor-parts/${fresh}/rating-card`).set(auth(engineer))).body.version).toBe(0);
       expect((await t.http.post(`/api/datasheets/${datasheetId}/variants`).set(auth(buyer)).send({ manufacturer: 'Q', variants })).status).toBe(403);
-      expect((await t.http.post('/api/datasheets/987654/variants').set(auth(engineer)).send({ manufacturer: 'Q', variants: [variants[0]] })).status).toBe(404);
+      expect(
+        (
+          await t.http
+            .post('/api/datasheets/987654/variants')
+            .set(auth(engineer))
+            .send({ manufacturer: 'Q', variants: [variants[0]] })
+        ).status,
+      ).toBe(404);
     });
   });
 

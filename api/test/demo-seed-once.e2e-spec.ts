@@ -27,7 +27,10 @@ describe('demo seed across restarts (real MariaDB)', () => {
     first = await createTestApp({ seed: 'demo' });
     const buyerToken = await first.tokenFor('buyer');
     const [buyer] = await first.select<{ id: number }>("SELECT id FROM users WHERE email = 'buyer@demo.test'");
-    const [followed] = await first.select<{ housePartId: number }>('SELECT house_part_id AS housePartId FROM house_part_buyers WHERE user_id = ? ORDER BY house_part_id LIMIT 1', [buyer.id]);
+    const [followed] = await first.select<{ housePartId: number }>(
+      'SELECT house_part_id AS housePartId FROM house_part_buyers WHERE user_id = ? ORDER BY house_part_id LIMIT 1',
+      [buyer.id],
+    );
     const stop = await first.http.delete(`/api/house-parts/${followed.housePartId}/buyers/${buyer.id}`).set({ Authorization: `Bearer ${buyerToken}` });
     expect(stop.status).toBeLessThan(300);
     const before = await tableCounts(first);

@@ -41,7 +41,10 @@ describe('engineering routes against the running app', () => {
       expect(res.status).toBe(200);
       expect(normalizeResponseSchema.parse(res.body)).toEqual(res.body);
     }
-    const res = await t.http.post('/api/engineering/normalize').set('Authorization', `Bearer ${tokens.designer}`).send({ card, currents: [0.02], selfHeating: false });
+    const res = await t.http
+      .post('/api/engineering/normalize')
+      .set('Authorization', `Bearer ${tokens.designer}`)
+      .send({ card, currents: [0.02], selfHeating: false });
     // At izt, 25 °C, no self-heating: the card's own values come back.
     expect(res.body.points[0]).toMatchObject({ current: 0.02, tempC: 25, vzNom: 5.1, vzMin: 4.85, vzMax: 5.36 });
     expect(res.body.points[0].zd).toBeCloseTo(17, 9);

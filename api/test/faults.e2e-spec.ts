@@ -87,7 +87,10 @@ describe('faults (own MariaDB, loopback)', () => {
   const send = async (kind: 'write' | 'read', email: string) => {
     const res =
       kind === 'write'
-        ? await t.http.post('/api/users/invitations').set({ Authorization: `Bearer ${admin}` }).send({ email, name: 'Fault Test', role: 'designer' })
+        ? await t.http
+            .post('/api/users/invitations')
+            .set({ Authorization: `Bearer ${admin}` })
+            .send({ email, name: 'Fault Test', role: 'designer' })
         : await t.http.get('/api/house-parts?pageSize=5').set({ Authorization: `Bearer ${engineer}` });
     return { status: res.status, retryAfter: res.headers['retry-after'] as string | undefined, message: res.body?.message as string | undefined };
   };
@@ -145,7 +148,11 @@ describe('faults (own MariaDB, loopback)', () => {
     const pdf = Buffer.concat([readFileSync(join(fixtures.paths.datasheets, sheet.file)), Buffer.from(`\n% fault test ${randomBytes(4).toString('hex')}\n`)]);
     const count = async () => Number((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM datasheets'))[0].n);
     const before = await count();
-    const upload = () => t.http.post('/api/datasheets').set({ Authorization: `Bearer ${engineer}` }).attach('file', pdf, { filename: 'fault-test.pdf', contentType: 'application/pdf' });
+    const upload = () =>
+      t.http
+        .post('/api/datasheets')
+        .set({ Authorization: `Bearer ${engineer}` })
+        .attach('file', pdf, { filename: 'fault-test.pdf', contentType: 'application/pdf' });
 
     await t.stack.stopS3();
     let refused;
@@ -175,14 +182,19 @@ describe('faults (own MariaDB, loopback)', () => {
     let decided;
     let waiting;
     try {
-      decided = await t.http.post(`/api/qualifications/${id}/clear`).set({ Authorization: `Bearer ${reviewer}` }).send({ version, note: 'Cleared while the mail server was away.' });
+      decided = await t.http
+        .post(`/api/qualifications/${id}/clear`)
+        .set({ Authorization: `Bearer ${reviewer}` })
+        .send({ version, note: 'Cleared while the mail server was away.' });
       expect(decided.status).toBe(200);
       // the outbox keeps the message and has tried the mail server (and failed) since the decision
       waiting = await eventually(async () => {
         const [row] = await t.select<{ id: number; subject: string; state: string }>(
           "SELECT id, subject, state FROM outgoing_mail WHERE kind = 'qualification.cleared' ORDER BY id DESC LIMIT 1",
         );
-        const [refused] = await t.select("SELECT id FROM outgoing_mail WHERE last_error IS NOT NULL AND state = 'pending' AND updated_at >= ? LIMIT 1", [decidedAt]);
+        const [refused] = await t.select("SELECT id FROM outgoing_mail WHERE last_error IS NOT NULL AND state = 'pending' AND updated_at >= ? LIMIT 1", [
+          decidedAt,
+        ]);
         return refused && row;
       }, 20_000);
     } finally {
@@ -254,17 +266,25 @@ describe('faults (own MariaDB, loopback)', () => {
       child = await start();
       const login = await api('/api/auth/login', { method: 'POST', body: JSON.stringify({ email: 'admin@demo.test', password: env.DEMO_PASSWORD }) });
       const token = login.body!.accessToken as string;
-      const load = burst(async (kind, email) => {
-        try {
-          const res =
-            kind === 'write'
-              ? await api('/api/users/invitations', { method: 'POST', headers: { authorization: `Bearer ${token}` }, body: JSON.stringify({ email, name: 'Kill Test', role: 'designer' }) })
-              : await api('/api/health/live');
-          return { status: res.status, message: res.status >= 300 ? String(res.body?.message) : undefined };
-        } catch {
-          return { status: 'network' as const };
-        }
-      }, 'kill', 6);
+      const load = burst(
+        async (kind, email) => {
+          try {
+            const res =
+              kind === 'write'
+                ? await api('/api/users/invitations', {
+                    method: 'POST',
+                    headers: { authorization: `Bearer ${token}` },
+                    body: JSON.stringify({ email, name: 'Kill Test', role: 'designer' }),
+                  })
+                : await api('/api/health/live');
+            return { status: res.status, message: res.status >= 300 ? String(res.body?.message) : undefined };
+          } catch {
+            return { status: 'network' as const };
+          }
+        },
+        'kill',
+        6,
+      );
       try {
         await eventually(async () => load.acked().length >= 30, 60_000);
         child.kill('SIGKILL');
@@ -283,14 +303,25 @@ describe('faults (own MariaDB, loopback)', () => {
       expect(odd).toEqual([]);
 
       const { Sequelize, QueryTypes } = await import('sequelize');
-      const sequelize = new Sequelize({ dialect: 'mariadb', host: '127.0.0.1', port: dbPort, database: env.DB_NAME, username: env.DB_USER, password: env.DB_PASSWORD, logging: false });
+      const sequelize = new Sequelize({
+        dialect: 'mariadb',
+        host: '127.0.0.1',
+        port: dbPort,
+        database: env.DB_NAME,
+        username: env.DB_USER,
+        password: env.DB_PASSWORD,
+        logging: false,
+      });
       try {
-        const select = <T>(sql: string, replacements: unknown[] = []) => sequelize.query(sql, { replacements, type: QueryTypes.SELECT }) as unknown as Promise<T[]>;
+        const select = <T>(sql: string, replacements: unknown[] = []) =>
+          sequelize.query(sql, { replacements, type: QueryTypes.SELECT }) as unknown as Promise<T[]>;
         const invited = await checkInvitations(select, 'kill', acked);
         expect(invited.length).toBeGreaterThanOrEqual(acked.length);
         // Every message goes out; only one the killed process had claimed may have been handed to SMTP twice.
         const rows = await eventually(async () => {
-          const r = await select<{ id: number; state: string; recipients: string | string[] }>("SELECT id, state, recipients FROM outgoing_mail WHERE kind = 'invitation'");
+          const r = await select<{ id: number; state: string; recipients: string | string[] }>(
+            "SELECT id, state, recipients FROM outgoing_mail WHERE kind = 'invitation'",
+          );
           return r.every((m) => m.state === 'sent') && r;
         }, 60_000);
         const captured = await select<{ recipients: string | string[] }>('SELECT recipients FROM captured_mail');

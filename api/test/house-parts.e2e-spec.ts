@@ -34,7 +34,10 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect(read.status).toBe(200);
     expect(read.body.partNumber).toBe('HP-100-001');
 
-    const patched = await t.http.patch(`/api/house-parts/${res.body.id}`).set(auth(engineer)).send({ status: 'active', description: 'Regulator diode 5.1 V, 500 mW' });
+    const patched = await t.http
+      .patch(`/api/house-parts/${res.body.id}`)
+      .set(auth(engineer))
+      .send({ status: 'active', description: 'Regulator diode 5.1 V, 500 mW' });
     expect(patched.status).toBe(200);
     expect(patched.body).toMatchObject({ status: 'active', description: 'Regulator diode 5.1 V, 500 mW' });
     expect((await t.http.get('/api/house-parts/999999').set(auth(designer))).status).toBe(404);
@@ -42,7 +45,10 @@ describe('house parts, specs and sources (real MariaDB)', () => {
 
   it('pages, sorts and filters the list in SQL', async () => {
     for (let i = 0; i < 12; i++) await createHousePart(t.http, engineer, `HPL-${String(i).padStart(2, '0')}`, i % 2 ? 'odd one' : 'even one', 'active'); // in use: designers are not offered drafts
-    await t.http.patch(`/api/house-parts/${(await t.http.get('/api/house-parts?q=HPL-03').set(auth(engineer))).body.items[0].id}`).set(auth(engineer)).send({ status: 'end-of-life' });
+    await t.http
+      .patch(`/api/house-parts/${(await t.http.get('/api/house-parts?q=HPL-03').set(auth(engineer))).body.items[0].id}`)
+      .set(auth(engineer))
+      .send({ status: 'end-of-life' });
 
     const page1 = await t.http.get('/api/house-parts?q=HPL-&pageSize=5&pageIndex=0&sort=-partNumber').set(auth(designer));
     expect(page1.status).toBe(200);
@@ -77,11 +83,17 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     const same = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec(), note: 'first issue' });
     expect(same.body.version).toBe(1);
 
-    const v2 = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec({ zdMax: 45 }) });
+    const v2 = await t.http
+      .put(`/api/house-parts/${id}/spec`)
+      .set(auth(engineer))
+      .send({ baseVersion: 1, spec: demoSpec({ zdMax: 45 }) });
     expect(v2.body.version).toBe(2);
     expect((await t.http.get(`/api/house-parts/${id}`).set(auth(buyer))).body.specVersion).toBe(2);
 
-    const stale = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec({ zdMax: 30 }) });
+    const stale = await t.http
+      .put(`/api/house-parts/${id}/spec`)
+      .set(auth(engineer))
+      .send({ baseVersion: 1, spec: demoSpec({ zdMax: 30 }) });
     expect(stale.status).toBe(409);
     expect(stale.body.message).toMatch(/version 2/);
     expect(stale.body).toMatchObject({ code: 'stale', current: { version: 2 }, errors: [{ path: 'baseVersion', message: 'current version is 2' }] }); // contracts: staleConflictBodySchema
@@ -144,7 +156,11 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     const off = events.subscribe(async (change, transaction) => {
       seen.push(change);
       // the new version is visible inside the writing transaction
-      const [row] = await t.stack.sequelize.query('SELECT spec_version AS v FROM house_parts WHERE id = ?', { replacements: [id], type: 'SELECT', transaction } as never) as unknown as Array<{ v: number }>;
+      const [row] = (await t.stack.sequelize.query('SELECT spec_version AS v FROM house_parts WHERE id = ?', {
+        replacements: [id],
+        type: 'SELECT',
+        transaction,
+      } as never)) as unknown as Array<{ v: number }>;
       expect(row.v).toBe((change as { version: number }).version);
     });
     await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec() });
@@ -154,7 +170,10 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     const offFailing = events.subscribe(() => {
       throw new Error('subscriber refused');
     });
-    const res = await t.http.put(`/api/house-parts/${id}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: demoSpec({ zdMax: 10 }) });
+    const res = await t.http
+      .put(`/api/house-parts/${id}/spec`)
+      .set(auth(engineer))
+      .send({ baseVersion: 1, spec: demoSpec({ zdMax: 10 }) });
     offFailing();
     expect(res.status).toBe(500);
     expect((await t.http.get(`/api/house-parts/${id}/spec`).set(auth(engineer))).body.version).toBe(1);
@@ -167,7 +186,14 @@ describe('house parts, specs and sources (real MariaDB)', () => {
 
     const a = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: first });
     expect(a.status).toBe(201);
-    expect(a.body).toMatchObject({ housePartId, vendorPartId: first, manufacturer: 'Aldmoor Semiconductor', mpn: 'AMZ5V1-T', role: 'alternate', cardVersion: null });
+    expect(a.body).toMatchObject({
+      housePartId,
+      vendorPartId: first,
+      manufacturer: 'Aldmoor Semiconductor',
+      mpn: 'AMZ5V1-T',
+      role: 'alternate',
+      cardVersion: null,
+    });
     await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: alternate, role: 'alternate', note: 'cheaper' });
     const dup = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: alternate });
     expect(dup.status).toBe(409);
@@ -182,7 +208,9 @@ describe('house parts, specs and sources (real MariaDB)', () => {
 
     const patched = await t.http.patch(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer)).send({ note: null });
     expect(patched.body).toMatchObject({ role: 'alternate', note: null });
-    expect((await t.http.get(`/api/vendor-parts/${alternate}`).set(auth(buyer))).body.sourceOf).toEqual([{ housePartId, partNumber: 'HP-SRC-1', role: 'alternate' }]);
+    expect((await t.http.get(`/api/vendor-parts/${alternate}`).set(auth(buyer))).body.sourceOf).toEqual([
+      { housePartId, partNumber: 'HP-SRC-1', role: 'alternate' },
+    ]);
 
     expect((await t.http.delete(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(buyer))).status).toBe(403);
     expect((await t.http.delete(`/api/house-parts/${housePartId}/sources/${alternate}`).set(auth(engineer))).status).toBe(204);
@@ -209,7 +237,9 @@ describe('house parts, specs and sources (real MariaDB)', () => {
       for (const role of ['approved', 'alternate', 'cleared']) {
         const patch = await t.http.patch(`/api/house-parts/${housePartId}/sources/${linked}`).set(auth(token)).send({ role });
         expect(patch.status).toBe(400);
-        expect(patch.body.errors).toEqual([expect.objectContaining({ path: 'role', message: expect.stringMatching(/only by a second engineer's decision on its qualification case/) })]);
+        expect(patch.body.errors).toEqual([
+          expect.objectContaining({ path: 'role', message: expect.stringMatching(/only by a second engineer's decision on its qualification case/) }),
+        ]);
       }
       const post = await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(token)).send({ vendorPartId: other, role: 'approved' });
       expect(post.status).toBe(400);
@@ -228,5 +258,4 @@ describe('house parts, specs and sources (real MariaDB)', () => {
     expect(found.status).toBe(200);
     expect(found.body.items).toEqual([]);
   });
-
 });

@@ -8,7 +8,9 @@ import { createTestApp, type TestApp } from './helpers/test-app';
 const VT = 0.025693;
 function csvOf(samples: Array<{ id: string; lot: string; v0: number }>, header = 'sample,lot,current (mA),voltage (V),temperature (°C)'): string {
   const lines = [header];
-  for (const s of samples) for (const mA of [0.2, 0.5, 1, 2, 5, 10, 20]) lines.push(`${s.id},${s.lot},${mA},${(s.v0 + 2 * VT * Math.log(mA / 5) + 5 * (mA - 5) * 1e-3).toFixed(5)},25`);
+  for (const s of samples)
+    for (const mA of [0.2, 0.5, 1, 2, 5, 10, 20])
+      lines.push(`${s.id},${s.lot},${mA},${(s.v0 + 2 * VT * Math.log(mA / 5) + 5 * (mA - 5) * 1e-3).toFixed(5)},25`);
   return lines.join('\n');
 }
 
@@ -47,7 +49,10 @@ describe('measurement sets (real MariaDB, S3 fake)', () => {
   it('previews a file with its row errors and stores nothing', async () => {
     const id = await partWithCard('FZ-M1');
     const before = { rows: await rows(), objects: await objects() };
-    const res = await t.http.post('/api/measurement-sets/preview').set(auth(engineer)).attach('file', Buffer.from('sample,current (mA),voltage (V)\nS1,1,5.0\nS1,x,5.1'), 'b.csv');
+    const res = await t.http
+      .post('/api/measurement-sets/preview')
+      .set(auth(engineer))
+      .attach('file', Buffer.from('sample,current (mA),voltage (V)\nS1,1,5.0\nS1,x,5.1'), 'b.csv');
     expect(res.status).toBe(200);
     expect(res.body.errors).toEqual([{ row: 3, column: 'current (mA)', message: expect.stringMatching(/current \(mA\)/) }]);
     expect(res.body.samples[0].points).toHaveLength(1);
@@ -110,12 +115,22 @@ describe('measurement sets (real MariaDB, S3 fake)', () => {
   it('flags the part’s decided case for a re-check, as a new datasheet does', async () => {
     const vendorPartId = await partWithCard('FZ-M4');
     const housePartId = await createHousePart(t.http, engineer, 'HPM-2', 'measured case');
-    expect((await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 } }) })).status).toBe(200);
+    expect(
+      (
+        await t.http
+          .put(`/api/house-parts/${housePartId}/spec`)
+          .set(auth(engineer))
+          .send({ baseVersion: 0, spec: demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 } }) })
+      ).status,
+    ).toBe(200);
     const opened = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId, vendorPartId });
     expect(opened.status).toBe(201);
     const submitted = await t.http.post(`/api/qualifications/${opened.body.id}/submit`).set(auth(engineer)).send({ reviewerId, version: opened.body.version });
     expect(submitted.status).toBe(200);
-    const decided = await t.http.post(`/api/qualifications/${opened.body.id}/clear-with-conditions`).set(auth(reviewer)).send({ version: submitted.body.version, conditions: 'bench samples to follow' });
+    const decided = await t.http
+      .post(`/api/qualifications/${opened.body.id}/clear-with-conditions`)
+      .set(auth(reviewer))
+      .send({ version: submitted.body.version, conditions: 'bench samples to follow' });
     expect(decided.status).toBe(200);
     expect((await upload(vendorPartId, csvOf([{ id: 'C1', lot: 'L9', v0: 5.1 }]))).status).toBe(201);
     const flagged = (await t.http.get(`/api/qualifications/${opened.body.id}`).set(auth(engineer))).body;

@@ -52,7 +52,12 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
   beforeAll(async () => {
     t = await createTestApp();
     const users = t.stack.app.get(UsersRepository);
-    await users.create({ email: 'second.designer@demo.test', name: 'Ravi Ostrand', role: 'designer', passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD) });
+    await users.create({
+      email: 'second.designer@demo.test',
+      name: 'Ravi Ostrand',
+      role: 'designer',
+      passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD),
+    });
     [engineer, reviewer, designer, second, buyer, admin] = await Promise.all([
       t.tokenFor('engineer@demo.test'),
       t.tokenFor('reviewer@demo.test'),
@@ -67,7 +72,11 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
 
   it('records a request with its note and tells every engineer, not the designer', async () => {
     const vp = await vendorPart();
-    const res = await ask({ vendorPartId: vp, note: 'Clamp on the new sensor board, rev B; the approved part is on allocation. Needed for the pilot run.', neededBy: '2099-03-31' });
+    const res = await ask({
+      vendorPartId: vp,
+      note: 'Clamp on the new sensor board, rev B; the approved part is on allocation. Needed for the pilot run.',
+      neededBy: '2099-03-31',
+    });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({
       vendorPart: { id: vp, manufacturer: 'Fennick Semiconductor', mpn: expect.stringMatching(/^FR-\d+$/), package: 'SOD-123' },
@@ -100,7 +109,10 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(date.body.errors).toEqual([{ path: 'neededBy', message: 'not a calendar date' }]);
     const past = await ask({ vendorPartId: vp, note: 'x', neededBy: '2020-01-15' });
     expect(past.status).toBe(400);
-    expect(past.body).toMatchObject({ message: expect.stringMatching(/neededBy \(2020-01-15\) is in the past/), errors: [{ path: 'neededBy', message: 'in the past' }] });
+    expect(past.body).toMatchObject({
+      message: expect.stringMatching(/neededBy \(2020-01-15\) is in the past/),
+      errors: [{ path: 'neededBy', message: 'in the past' }],
+    });
     const extra = await ask({ vendorPartId: vp, note: 'x', housePart: 'HPR-1' });
     expect(extra.status).toBe(400);
     expect(extra.body.message).toMatch(/housePart/);
@@ -141,7 +153,11 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(first.status).toBe(201);
     const again = await ask({ vendorPartId: vp, housePartId: hp, note: 'asking again' });
     expect(again.status).toBe(409);
-    expect(again.body.message).toMatch(new RegExp(`^You already asked for Fennick Semiconductor FR-\\d+ for HPR-\\d+ in request #${first.body.id} on \\d{4}-\\d{2}-\\d{2}; it is waiting for an engineer$`));
+    expect(again.body.message).toMatch(
+      new RegExp(
+        `^You already asked for Fennick Semiconductor FR-\\d+ for HPR-\\d+ in request #${first.body.id} on \\d{4}-\\d{2}-\\d{2}; it is waiting for an engineer$`,
+      ),
+    );
     // the same part without a house part, or by someone else, is another request
     expect((await ask({ vendorPartId: vp, note: 'any house part will do' })).status).toBe(201);
     expect((await ask({ vendorPartId: vp, note: 'any house part will do' })).status).toBe(409);
@@ -224,18 +240,35 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect((await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(designer)).send({})).status).toBe(403);
     expect((await t.http.post(`/api/qualification-requests/${req.body.id}/decline`).set(auth(buyer)).send({ reply: 'x' })).status).toBe(403);
     // the request names its house part: another one is refused, naming the field
-    const wrong = await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(engineer)).send({ housePartId: elsewhere.body.housePart.id });
+    const wrong = await t.http
+      .post(`/api/qualification-requests/${req.body.id}/open-case`)
+      .set(auth(engineer))
+      .send({ housePartId: elsewhere.body.housePart.id });
     expect(wrong.status).toBe(400);
     expect(wrong.body.errors).toEqual([{ path: 'housePartId', message: 'differs from the house part the request names' }]);
 
     const opened = await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(engineer)).send({});
     expect(opened.status).toBe(201);
-    expect(opened.body).toMatchObject({ id: req.body.id, state: 'taken-up', closedBy: { name: 'Priya Raman' }, case: { revision: 1, state: 'draft', housePart: { id: hp } } });
+    expect(opened.body).toMatchObject({
+      id: req.body.id,
+      state: 'taken-up',
+      closedBy: { name: 'Priya Raman' },
+      case: { revision: 1, state: 'draft', housePart: { id: hp } },
+    });
     const caseId = opened.body.case.id as number;
     // the case was opened by the qualification service itself: evaluated, with the request quoted
     const theCase = (await t.http.get(`/api/qualifications/${caseId}`).set(auth(engineer))).body;
-    expect(theCase).toMatchObject({ state: 'draft', housePart: { id: hp }, vendorPart: { id: vp }, preparedBy: { name: 'Priya Raman' }, sourceRole: 'alternate', overall: 'pass' });
-    expect(theCase.summary).toBe(`Asked for by Lena Okafor in request #${req.body.id}, needed by 2099-06-30: Reference for the 4-20 mA loop driver on the new transmitter`);
+    expect(theCase).toMatchObject({
+      state: 'draft',
+      housePart: { id: hp },
+      vendorPart: { id: vp },
+      preparedBy: { name: 'Priya Raman' },
+      sourceRole: 'alternate',
+      overall: 'pass',
+    });
+    expect(theCase.summary).toBe(
+      `Asked for by Lena Okafor in request #${req.body.id}, needed by 2099-06-30: Reference for the 4-20 mA loop driver on the new transmitter`,
+    );
     expect(theCase.audit.map((e: { action: string }) => e.action)).toEqual(['opened']);
 
     // the other open request for the same pair is taken up by the same case; the one for another house part stays open
@@ -268,7 +301,10 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     const req = await ask({ vendorPartId: vp, note: 'Any 5.1 V clamp position; engineer to choose' });
     const none = await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(engineer)).send({});
     expect(none.status).toBe(400);
-    expect(none.body).toMatchObject({ message: `Request #${req.body.id} names no house part: choose the house part to qualify the part for`, errors: [{ path: 'housePartId' }] });
+    expect(none.body).toMatchObject({
+      message: `Request #${req.body.id} names no house part: choose the house part to qualify the part for`,
+      errors: [{ path: 'housePartId' }],
+    });
     const bad = await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(engineer)).send({ housePartId: 'HPR-1' });
     expect(bad.status).toBe(400);
     expect(bad.body.errors[0].path).toBe('housePartId');
@@ -280,7 +316,10 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect((await t.http.get(`/api/qualification-requests/${req.body.id}`).set(auth(engineer))).body.state).toBe('open');
 
     const hp = await housePart();
-    const opened = await t.http.post(`/api/qualification-requests/${req.body.id}/open-case`).set(auth(reviewer)).send({ housePartId: hp, summary: 'Chosen for HPR: same package and window.' });
+    const opened = await t.http
+      .post(`/api/qualification-requests/${req.body.id}/open-case`)
+      .set(auth(reviewer))
+      .send({ housePartId: hp, summary: 'Chosen for HPR: same package and window.' });
     expect(opened.status).toBe(201);
     expect(opened.body).toMatchObject({ state: 'taken-up', housePart: null, closedBy: { name: 'Tomas Eklund' }, case: { housePart: { id: hp } } });
     expect((await t.http.get(`/api/qualifications/${opened.body.case.id}`).set(auth(engineer))).body.summary).toBe('Chosen for HPR: same package and window.');
@@ -300,13 +339,22 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(await state(forPair.body.id)).toMatchObject({ state: 'taken-up', closedBy: { name: 'Tomas Eklund' }, case: { id: opened.body.id } });
     expect(await state(forAny.body.id)).toMatchObject({ state: 'taken-up', case: { id: opened.body.id, housePart: { id: hp } } });
     expect((await state(forOther.body.id)).state).toBe('open');
-    await mailed(`Your request #${forAny.body.id} was taken up: case #${opened.body.id} (${forPair.body.vendorPart.mpn} for ${forPair.body.housePart.partNumber})`);
+    await mailed(
+      `Your request #${forAny.body.id} was taken up: case #${opened.body.id} (${forPair.body.vendorPart.mpn} for ${forPair.body.housePart.partNumber})`,
+    );
 
     // rejected for otherHp, asked again, and re-checked: the re-check takes the new request up
     const c = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId: otherHp, vendorPartId: vp });
     expect((await state(forOther.body.id)).state).toBe('taken-up');
     const submitted = await t.http.post(`/api/qualifications/${c.body.id}/submit`).set(auth(engineer)).send({ version: c.body.version, reviewerId });
-    expect((await t.http.post(`/api/qualifications/${c.body.id}/reject`).set(auth(reviewer)).send({ version: submitted.body.version, reason: 'leakage above the limit on samples' })).status).toBe(200);
+    expect(
+      (
+        await t.http
+          .post(`/api/qualifications/${c.body.id}/reject`)
+          .set(auth(reviewer))
+          .send({ version: submitted.body.version, reason: 'leakage above the limit on samples' })
+      ).status,
+    ).toBe(200);
     const again = await ask({ vendorPartId: vp, housePartId: otherHp, note: 'the vendor says the new lot is better; please look again' });
     expect(again.status).toBe(201);
     // The queue shows the engineer that this pair was rejected, and why; a request for a pair never decided shows nothing.
@@ -321,7 +369,9 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     const recheck = await t.http.post(`/api/qualifications/${c.body.id}/recheck`).set(auth(engineer)).send({ note: 'new lot' });
     expect(recheck.status).toBe(201);
     expect(await state(again.body.id)).toMatchObject({ state: 'taken-up', case: { id: recheck.body.id, revision: 2 } });
-    const message = await mailed(`Your request #${again.body.id} was taken up: case #${recheck.body.id} (${again.body.vendorPart.mpn} for ${again.body.housePart.partNumber})`);
+    const message = await mailed(
+      `Your request #${again.body.id} was taken up: case #${recheck.body.id} (${again.body.vendorPart.mpn} for ${again.body.housePart.partNumber})`,
+    );
     expect(message.body).toContain(`opened case #${recheck.body.id} (revision 2)`);
   });
 
@@ -333,9 +383,17 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
     expect(noReply.body.errors).toEqual([{ path: 'reply', message: 'Write the reply to the requester: why not, or what to use instead' }]);
     expect((await t.http.post('/api/qualification-requests/999999/decline').set(auth(engineer)).send({ reply: 'x' })).status).toBe(404);
 
-    const declined = await t.http.post(`/api/qualification-requests/${req.body.id}/decline`).set(auth(engineer)).send({ reply: 'The vendor announced end of life for this series; use FR-1 instead, already cleared.' });
+    const declined = await t.http
+      .post(`/api/qualification-requests/${req.body.id}/decline`)
+      .set(auth(engineer))
+      .send({ reply: 'The vendor announced end of life for this series; use FR-1 instead, already cleared.' });
     expect(declined.status).toBe(200);
-    expect(declined.body).toMatchObject({ state: 'declined', closedBy: { name: 'Priya Raman' }, reply: 'The vendor announced end of life for this series; use FR-1 instead, already cleared.', case: null });
+    expect(declined.body).toMatchObject({
+      state: 'declined',
+      closedBy: { name: 'Priya Raman' },
+      reply: 'The vendor announced end of life for this series; use FR-1 instead, already cleared.',
+      case: null,
+    });
     const seen = (await t.http.get(`/api/qualification-requests/${req.body.id}`).set(auth(designer))).body;
     expect(seen).toMatchObject({ state: 'declined', reply: expect.stringContaining('end of life') });
     const message = await mailed(`Your request #${req.body.id} was declined: Fennick Semiconductor ${req.body.vendorPart.mpn}`);
@@ -351,9 +409,16 @@ describe('qualification requests (real MariaDB, SMTP fake)', () => {
 
   it('publishes its routes and answers at /api/docs', async () => {
     const docs = (await t.http.get('/api/docs-json')).body;
-    expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['QualificationRequestDto', 'QualificationRequestPageDto', 'CreateQualificationRequestDto']));
+    expect(Object.keys(docs.components.schemas)).toEqual(
+      expect.arrayContaining(['QualificationRequestDto', 'QualificationRequestPageDto', 'CreateQualificationRequestDto']),
+    );
     expect(Object.keys(docs.paths)).toEqual(
-      expect.arrayContaining(['/api/qualification-requests', '/api/qualification-requests/{id}', '/api/qualification-requests/{id}/open-case', '/api/qualification-requests/{id}/decline']),
+      expect.arrayContaining([
+        '/api/qualification-requests',
+        '/api/qualification-requests/{id}',
+        '/api/qualification-requests/{id}/open-case',
+        '/api/qualification-requests/{id}/decline',
+      ]),
     );
   });
 });

@@ -25,7 +25,14 @@ describe('demo qualifications seed (real MariaDB)', () => {
     console.log(`demo qualifications seed: ${DEMO_CASES.length} cases and the approved sources in ${seconds.toFixed(2)} s`);
     const list = await t.http.get('/api/qualifications?pageSize=100').set(auth());
     expect(list.status).toBe(200);
-    const all = list.body.items as Array<{ id: number; state: string; overall: string; preparedBy: { name: string }; decision: { by: { name: string } } | null; needsRecheck: boolean }>;
+    const all = list.body.items as Array<{
+      id: number;
+      state: string;
+      overall: string;
+      preparedBy: { name: string };
+      decision: { by: { name: string } } | null;
+      needsRecheck: boolean;
+    }>;
     // Every approved source became one by a decision of the second engineer on a case the first prepared.
     const approvedSources = loadDemoCatalogue().houseParts.flatMap((h) => h.sources.filter((s) => s.role === 'approved'));
     const approvals = all.filter((i) => i.state === 'approved');
@@ -33,7 +40,15 @@ describe('demo qualifications seed (real MariaDB)', () => {
     for (const a of approvals) expect(a).toMatchObject({ preparedBy: { name: 'Priya Raman' }, decision: { by: { name: 'Tomas Eklund' } } });
     const items = all.filter((i) => i.state !== 'approved');
     expect(items).toHaveLength(DEMO_CASES.length);
-    expect([...new Set(items.map((i) => i.state))].sort()).toEqual(['cleared', 'cleared-with-conditions', 'draft', 'in-review', 'rejected', 'revoked', 'withdrawn']);
+    expect([...new Set(items.map((i) => i.state))].sort()).toEqual([
+      'cleared',
+      'cleared-with-conditions',
+      'draft',
+      'in-review',
+      'rejected',
+      'revoked',
+      'withdrawn',
+    ]);
     for (const i of items) {
       expect(i.preparedBy.name).toBe('Priya Raman');
       if (i.decision) expect(i.decision.by.name).toBe('Tomas Eklund');
@@ -46,7 +61,11 @@ describe('demo qualifications seed (real MariaDB)', () => {
     const recheck = items.filter((i) => i.needsRecheck);
     expect(recheck).toHaveLength(1);
     const flagged = (await t.http.get(`/api/qualifications/${recheck[0].id}`).set(auth())).body;
-    expect(flagged).toMatchObject({ state: 'cleared', vendorPart: { mpn: 'BRZ05-12' }, recheckReasons: [{ cause: 'card-changed', detail: 'rating card version 2 (changed: zzk)' }] });
+    expect(flagged).toMatchObject({
+      state: 'cleared',
+      vendorPart: { mpn: 'BRZ05-12' },
+      recheckReasons: [{ cause: 'card-changed', detail: 'rating card version 2 (changed: zzk)' }],
+    });
     expect(flagged.audit.map((a: { action: string }) => a.action)).toEqual(['opened', 'submitted', 'cleared', 'flagged-for-recheck']);
   });
 
@@ -61,7 +80,9 @@ describe('demo qualifications seed (real MariaDB)', () => {
     const stale = await t.http.get('/api/qualification-views/board?state=in-review&minAgeDays=7').set(auth());
     expect(stale.body.items.map((i: { housePart: { partNumber: string } }) => i.housePart.partNumber)).toEqual(['OHI-ZD-1068']);
     const [{ parts }] = await t.select<{ parts: number }>('SELECT COUNT(*) AS parts FROM house_parts');
-    const [{ links }] = await t.select<{ links: number }>("SELECT COUNT(*) AS links FROM house_part_buyers b JOIN users u ON u.id = b.user_id WHERE u.email = 'buyer@demo.test'");
+    const [{ links }] = await t.select<{ links: number }>(
+      "SELECT COUNT(*) AS links FROM house_part_buyers b JOIN users u ON u.id = b.user_id WHERE u.email = 'buyer@demo.test'",
+    );
     expect(links).toBe(parts);
     // the buyers were told of the clearances and the revocation
     const kinds = await t.select<{ kind: string }>("SELECT kind FROM outgoing_mail WHERE kind LIKE 'qualification.%' ORDER BY id");
@@ -70,7 +91,12 @@ describe('demo qualifications seed (real MariaDB)', () => {
       "SELECT COUNT(*) AS decisions FROM qualification_events WHERE action IN ('approved', 'cleared', 'cleared-with-conditions', 'rejected')",
     );
     expect(kinds.filter((k) => k.kind === 'qualification.decided')).toHaveLength(Number(decisions));
-    expect(kinds.map((k) => k.kind).filter((k) => k !== 'qualification.decided').sort()).toEqual(
+    expect(
+      kinds
+        .map((k) => k.kind)
+        .filter((k) => k !== 'qualification.decided')
+        .sort(),
+    ).toEqual(
       [
         // the approvals were sent for review too; they were made before the buyer followed the parts (no buyer mail)
         ...Array(7 + approvedSources).fill('qualification.review'),
@@ -95,7 +121,12 @@ describe('demo qualifications seed (real MariaDB)', () => {
   });
 
   it('adds nothing when the whole demo seed runs again', async () => {
-    const count = async () => (await t.select<{ n: number }>('SELECT (SELECT COUNT(*) FROM qualifications) + (SELECT COUNT(*) FROM qualification_events) + (SELECT COUNT(*) FROM house_part_buyers) AS n'))[0].n;
+    const count = async () =>
+      (
+        await t.select<{ n: number }>(
+          'SELECT (SELECT COUNT(*) FROM qualifications) + (SELECT COUNT(*) FROM qualification_events) + (SELECT COUNT(*) FROM house_part_buyers) AS n',
+        )
+      )[0].n;
     const before = await count();
     expect((await t.stack.app.get(DemoSeedService).run('demo')).created).toBe(0);
     expect(await count()).toBe(before);

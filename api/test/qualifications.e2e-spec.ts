@@ -40,7 +40,8 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   const open = async (ids: { housePartId: number; vendorPartId: number }, token = engineer) => t.http.post('/api/qualifications').set(auth(token)).send(ids);
   /** An action on the case as it is now: the current version is sent unless the body names one (a re-check takes none). */
   const act = async (id: number, action: string, body: object = {}, token = engineer) => {
-    const withVersion = action === 'recheck' || 'version' in body ? body : { version: (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body.version, ...body };
+    const withVersion =
+      action === 'recheck' || 'version' in body ? body : { version: (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body.version, ...body };
     return t.http.post(`/api/qualifications/${id}/${action}`).set(auth(token)).send(withVersion);
   };
   /** A case opened by the engineer and sent for review. */
@@ -55,7 +56,12 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   beforeAll(async () => {
     t = await createTestApp();
     const users = t.stack.app.get(UsersRepository);
-    await users.create({ email: 'third.engineer@demo.test', name: 'Ines Marwick', role: 'engineer', passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD) });
+    await users.create({
+      email: 'third.engineer@demo.test',
+      name: 'Ines Marwick',
+      role: 'engineer',
+      passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD),
+    });
     [engineer, reviewer, third, designer, buyer, admin] = await Promise.all([
       t.tokenFor('engineer@demo.test'),
       t.tokenFor('reviewer@demo.test'),
@@ -74,7 +80,15 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const res = await open(ids);
     expect(res.status).toBe(201);
     const body = res.body;
-    expect(body).toMatchObject({ revision: 1, previousId: null, state: 'draft', specVersion: 1, cardVersion: 1, sourceRole: 'alternate', preparedBy: { name: 'Priya Raman' } });
+    expect(body).toMatchObject({
+      revision: 1,
+      previousId: null,
+      state: 'draft',
+      specVersion: 1,
+      cardVersion: 1,
+      sourceRole: 'alternate',
+      preparedBy: { name: 'Priya Raman' },
+    });
     const check = (id: string) => body.evaluation.checks.find((c: { id: string }) => c.id === id);
     // iRef = izt = 5 mA: the window is the card's 4.9…5.3 V; (4.9 − 4.6)/4.6 = 6.52 % and (5.6 − 5.3)/5.6 = 5.36 %
     expect(check('vz-window').range).toEqual({ low: 4.9, high: 5.3 });
@@ -235,11 +249,18 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename="sources-\d{4}-\d{2}-\d{2}\.csv"/);
-    const lines = csv.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/);
+    const lines = csv.text
+      .replace(/^\uFEFF/, '')
+      .trim()
+      .split(/\r?\n/);
     // headers in words, as a person reads them in a spreadsheet
-    expect(lines[0]).toBe('House part,Description,House part status,Manufacturer,Manufacturer part number,Package,Role,Standing,Conditions,Since,Decided by,Case,Revision,Open case,Needs re-check');
+    expect(lines[0]).toBe(
+      'House part,Description,House part status,Manufacturer,Manufacturer part number,Package,Role,Standing,Conditions,Since,Decided by,Case,Revision,Open case,Needs re-check',
+    );
     expect(lines).toHaveLength(2);
-    expect(lines[1]).toMatch(new RegExp(`^HPQ-\\d+,Regulator diode case \\d+,draft,Fennick Semiconductor,FZ-\\d+,SOD-123,alternate,Cleared,,\\d{4}-.+Z,Tomas Eklund,${c.id},1,,no$`));
+    expect(lines[1]).toMatch(
+      new RegExp(`^HPQ-\\d+,Regulator diode case \\d+,draft,Fennick Semiconductor,FZ-\\d+,SOD-123,alternate,Cleared,,\\d{4}-.+Z,Tomas Eklund,${c.id},1,,no$`),
+    );
     expect((await t.http.get('/api/qualification-views/sources.csv').set(auth(designer))).status).toBe(200);
     // designers see approved sources and cleared alternates only
     const rejected = await inReview();
@@ -283,7 +304,12 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect((await act(c.id, 'recheck', {}, engineer)).status).toBe(409);
     // buyers still see the clearance, with the re-check under way beside it
     const view = await t.http.get(`/api/qualification-views/sources?housePartId=${ids.housePartId}`).set(auth(buyer));
-    expect(view.body.items[0].sources[0]).toMatchObject({ standing: 'cleared', caseId: c.id, openCase: { id: re.body.id, state: 'draft' }, needsRecheck: true });
+    expect(view.body.items[0].sources[0]).toMatchObject({
+      standing: 'cleared',
+      caseId: c.id,
+      openCase: { id: re.body.id, state: 'draft' },
+      needsRecheck: true,
+    });
     // a new case for the pair is refused while the chain's latest is open
     expect((await open(ids)).status).toBe(409);
   });
@@ -292,11 +318,23 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const ids = await pair();
     const decided = await inReview(ids);
     await act(decided.id, 'reject', { reason: 'not needed' }, reviewer);
-    const ids2 = { housePartId: ids.housePartId, vendorPartId: await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: `FZ-${n}-B`, package: 'SOD-323' }) };
-    expect((await t.http.put(`/api/vendor-parts/${ids2.vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields: passingCard() })).status).toBe(200);
+    const ids2 = {
+      housePartId: ids.housePartId,
+      vendorPartId: await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: `FZ-${n}-B`, package: 'SOD-323' }),
+    };
+    expect(
+      (await t.http.put(`/api/vendor-parts/${ids2.vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields: passingCard() })).status,
+    ).toBe(200);
     const draft = (await open(ids2)).body;
 
-    expect((await t.http.put(`/api/house-parts/${ids.housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 1, spec: { ...passingSpec(), zdMax: 59 }, note: 'Zd limit tightened' })).status).toBe(200);
+    expect(
+      (
+        await t.http
+          .put(`/api/house-parts/${ids.housePartId}/spec`)
+          .set(auth(engineer))
+          .send({ baseVersion: 1, spec: { ...passingSpec(), zdMax: 59 }, note: 'Zd limit tightened' })
+      ).status,
+    ).toBe(200);
     const rejected = (await t.http.get(`/api/qualifications/${decided.id}`).set(auth(engineer))).body;
     expect(rejected).toMatchObject({ needsRecheck: true, recheckReasons: [{ cause: 'spec-changed', detail: 'spec version 2' }] });
     const stale = await act(draft.id, 'submit', {}, engineer);
@@ -314,7 +352,12 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     const sheet = (name: string) => fixtures.listDatasheetFixtures().find((f) => f.name.startsWith(name))!.pdfPath;
     const ids = await pair();
     const upload = (file: string, revision: string) =>
-      t.http.post('/api/datasheets').set(auth(engineer)).field('vendorPartId', String(ids.vendorPartId)).field('revision', revision).attach('file', readFileSync(sheet(file)), `${file}.pdf`);
+      t.http
+        .post('/api/datasheets')
+        .set(auth(engineer))
+        .field('vendorPartId', String(ids.vendorPartId))
+        .field('revision', revision)
+        .attach('file', readFileSync(sheet(file)), `${file}.pdf`);
     expect((await upload('quarryhill', 'A')).status).toBe(201); // the first datasheet is no revision of anything
     const c = await inReview(ids);
     await act(c.id, 'clear', {}, reviewer);
@@ -329,7 +372,10 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   it('records every state change and edit in the audit trail: who, when, what changed', async () => {
     const ids = await pair();
     const c = (await open(ids)).body;
-    const edited = await t.http.patch(`/api/qualifications/${c.id}`).set(auth(engineer)).send({ version: c.version, summary: 'second source for the 5.1 V rail' });
+    const edited = await t.http
+      .patch(`/api/qualifications/${c.id}`)
+      .set(auth(engineer))
+      .send({ version: c.version, summary: 'second source for the 5.1 V rail' });
     expect(edited.status).toBe(200);
     const stale = await t.http.patch(`/api/qualifications/${c.id}`).set(auth(engineer)).send({ version: c.version, summary: 'late edit' });
     expect(stale.status).toBe(409);
@@ -342,9 +388,21 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     await act(c.id, 'clear', {}, reviewer);
     const revoked = await act(c.id, 'revoke', { reason: 'vendor announced a fab move' }, third);
     expect(revoked.status).toBe(200);
-    expect(revoked.body).toMatchObject({ state: 'revoked', revocation: { by: { name: 'Ines Marwick' }, reason: 'vendor announced a fab move' }, decision: { state: 'cleared' } });
+    expect(revoked.body).toMatchObject({
+      state: 'revoked',
+      revocation: { by: { name: 'Ines Marwick' }, reason: 'vendor announced a fab move' },
+      decision: { state: 'cleared' },
+    });
 
-    const audit = revoked.body.audit as Array<{ action: string; by: { name: string } | null; at: string; fromState: string | null; toState: string | null; changes: unknown[]; note: string | null }>;
+    const audit = revoked.body.audit as Array<{
+      action: string;
+      by: { name: string } | null;
+      at: string;
+      fromState: string | null;
+      toState: string | null;
+      changes: unknown[];
+      note: string | null;
+    }>;
     expect(audit.map((a) => [a.action, a.by?.name, a.fromState, a.toState])).toEqual([
       ['opened', 'Priya Raman', null, 'draft'],
       ['edited', 'Priya Raman', null, null],
@@ -366,7 +424,9 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
       ]),
     );
     for (const a of audit) expect(Number.isNaN(Date.parse(a.at))).toBe(false);
-    expect(revoked.body.comments).toEqual([{ id: expect.any(Number), at: expect.any(String), by: { id: reviewerId, name: 'Tomas Eklund' }, text: 'please add the leakage plot' }]);
+    expect(revoked.body.comments).toEqual([
+      { id: expect.any(Number), at: expect.any(String), by: { id: reviewerId, name: 'Tomas Eklund' }, text: 'please add the leakage plot' },
+    ]);
     // nothing edits the trail: it is only ever appended to
     expect((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM qualification_events WHERE qualification_id = ?', [c.id]))[0].n).toBe(9);
   });
@@ -520,7 +580,11 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(notBuyer.body.errors).toEqual([{ path: 'userId', message: 'must be an active buyer' }]);
     const added = await t.http.post(`/api/house-parts/${housePartId}/buyers`).set(auth(engineer)).send({ userId: other.id });
     expect(added.status).toBe(201);
-    expect(added.body).toMatchObject({ housePartId, user: { id: other.id, name: 'Rafe Linden', email: 'second.buyer@demo.test' }, addedBy: { name: 'Priya Raman' } });
+    expect(added.body).toMatchObject({
+      housePartId,
+      user: { id: other.id, name: 'Rafe Linden', email: 'second.buyer@demo.test' },
+      addedBy: { name: 'Priya Raman' },
+    });
     expect((await t.http.post(`/api/house-parts/${housePartId}/buyers`).set(auth(engineer)).send({ userId: other.id })).status).toBe(409);
     expect((await t.http.post(`/api/house-parts/${housePartId}/buyers`).set(auth(buyer)).send({ userId: buyerId })).status).toBe(201);
     const list = await t.http.get(`/api/house-parts/${housePartId}/buyers`).set(auth(buyer));
@@ -548,10 +612,20 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
 
     const approved = await act(c.id, 'approve', { note: 'reference part of the spec' }, reviewer);
     expect(approved.status).toBe(200);
-    expect(approved.body).toMatchObject({ state: 'approved', sourceRole: 'approved', decision: { state: 'approved', by: { name: 'Tomas Eklund' }, text: 'reference part of the spec' } });
+    expect(approved.body).toMatchObject({
+      state: 'approved',
+      sourceRole: 'approved',
+      decision: { state: 'approved', by: { name: 'Tomas Eklund' }, text: 'reference part of the spec' },
+    });
     expect(approved.body.preparedBy.name).toBe('Priya Raman');
     expect(approved.body.audit.at(-1)).toMatchObject({ action: 'approved', by: { name: 'Tomas Eklund' }, fromState: 'in-review', toState: 'approved' });
-    expect(await view()).toMatchObject({ role: 'approved', standing: 'approved', caseId: c.id, decidedBy: { name: 'Tomas Eklund' }, since: expect.any(String) });
+    expect(await view()).toMatchObject({
+      role: 'approved',
+      standing: 'approved',
+      caseId: c.id,
+      decidedBy: { name: 'Tomas Eklund' },
+      since: expect.any(String),
+    });
     expect((await t.http.get(`/api/house-parts/${ids.housePartId}/sources`).set(auth(buyer))).body[0]).toMatchObject({ role: 'approved' });
     const mail = t.stack.app.get(MailService);
     const told = await eventually(async () => {
@@ -593,7 +667,10 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
   it('answers the Board with sources and latest states, filtered by state, engineer and age', async () => {
     const a = await pair();
     const c = await inReview(a);
-    const b = { housePartId: a.housePartId, vendorPartId: await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: `FZ-${n}-N`, package: 'SOD-123' }) };
+    const b = {
+      housePartId: a.housePartId,
+      vendorPartId: await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: `FZ-${n}-N`, package: 'SOD-123' }),
+    };
     await t.http.post(`/api/house-parts/${b.housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: b.vendorPartId });
     const q = encodeURIComponent(`HPQ-${n}`);
 
@@ -613,7 +690,10 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
     expect(none.body.items[0].sources.map((s: { state: string }) => s.state)).toEqual(['none']);
     // The tallies ignore the state filter (the web needs no second request for them) but keep the others.
     expect(none.body.counts).toMatchObject({ none: 1, 'in-review': 1 });
-    expect((await t.http.get(`/api/qualification-views/board?q=${q}&state=none&engineerId=${reviewerId}`).set(auth(engineer))).body.counts).toMatchObject({ none: 0, 'in-review': 0 });
+    expect((await t.http.get(`/api/qualification-views/board?q=${q}&state=none&engineerId=${reviewerId}`).set(auth(engineer))).body.counts).toMatchObject({
+      none: 0,
+      'in-review': 0,
+    });
     // The engineer filter's choices: every engineer, whether or not on this page.
     const names = (all.body.engineers as { id: number; name: string }[]).map((e) => e.name);
     expect(names).toEqual(expect.arrayContaining(['Priya Raman']));
@@ -633,8 +713,17 @@ describe('qualifications (real MariaDB, SMTP fake)', () => {
 
   it('publishes its routes and schemas at /api/docs', async () => {
     const docs = (await t.http.get('/api/docs-json')).body;
-    expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['QualificationDto', 'BoardPageDto', 'ComparePayloadDto', 'SourcesViewDto', 'ClearWithConditionsDto']));
-    for (const path of ['/api/qualifications', '/api/qualifications/{id}', '/api/qualifications/{id}/clear', '/api/qualification-views/board', '/api/qualification-views/sources.csv', '/api/house-parts/{id}/buyers']) {
+    expect(Object.keys(docs.components.schemas)).toEqual(
+      expect.arrayContaining(['QualificationDto', 'BoardPageDto', 'ComparePayloadDto', 'SourcesViewDto', 'ClearWithConditionsDto']),
+    );
+    for (const path of [
+      '/api/qualifications',
+      '/api/qualifications/{id}',
+      '/api/qualifications/{id}/clear',
+      '/api/qualification-views/board',
+      '/api/qualification-views/sources.csv',
+      '/api/house-parts/{id}/buyers',
+    ]) {
       expect([path, docs.paths[path] !== undefined]).toEqual([path, true]);
     }
     expect(docs.components.schemas.ClearWithConditionsDto.required).toEqual(['version', 'conditions']);

@@ -12,12 +12,18 @@ describe('rating cards (real MariaDB)', () => {
   let maker = 0;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
   const newPart = () => createVendorPart(t.http, engineer, { manufacturer: 'Nettlecombe Devices', mpn: `NMZ-${++maker}` });
-  const put = (id: number, version: number, fields: unknown, token = engineer) => t.http.put(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(token)).send({ version, fields });
+  const put = (id: number, version: number, fields: unknown, token = engineer) =>
+    t.http.put(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(token)).send({ version, fields });
   const errorPaths = (body: { errors?: Array<{ path: string }> }) => (body.errors ?? []).map((e) => e.path);
 
   beforeAll(async () => {
     t = await createTestApp();
-    [engineer, reviewer, designer, buyer] = await Promise.all([t.tokenFor('engineer'), t.tokenFor('reviewer@demo.test'), t.tokenFor('designer'), t.tokenFor('buyer')]);
+    [engineer, reviewer, designer, buyer] = await Promise.all([
+      t.tokenFor('engineer'),
+      t.tokenFor('reviewer@demo.test'),
+      t.tokenFor('designer'),
+      t.tokenFor('buyer'),
+    ]);
   });
   afterAll(() => t.close());
 
@@ -25,7 +31,13 @@ describe('rating cards (real MariaDB)', () => {
     const id = await newPart();
     const empty = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(engineer));
     expect(empty.status).toBe(200);
-    expect(empty.body).toMatchObject({ vendorPartId: id, version: 0, fields: {}, issues: [], engineering: { result: null, reason: expect.stringMatching(/vzNom and izt/) } });
+    expect(empty.body).toMatchObject({
+      vendorPartId: id,
+      version: 0,
+      fields: {},
+      issues: [],
+      engineering: { result: null, reason: expect.stringMatching(/vzNom and izt/) },
+    });
 
     const res = await put(id, 0, demoCardFields());
     expect(res.status).toBe(200);
@@ -33,7 +45,14 @@ describe('rating cards (real MariaDB)', () => {
     expect(res.body.fields.izt).toEqual({
       value: 0.005,
       printed: '5 mA',
-      provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: { id: expect.any(Number), name: 'Priya Raman' }, confirmedAt: expect.any(String) },
+      provenance: {
+        source: 'entered',
+        datasheetId: null,
+        page: null,
+        text: null,
+        confirmedBy: { id: expect.any(Number), name: 'Priya Raman' },
+        confirmedAt: expect.any(String),
+      },
     });
     // tc keeps the unit as given and adds V/K
     expect(res.body.fields.tc).toMatchObject({ value: 0.3, unit: 'mV/K', voltsPerKelvin: 0.0003 });
@@ -48,7 +67,9 @@ describe('rating cards (real MariaDB)', () => {
     expect(atIzt.tjC).toBeCloseTo(25 + 250 * atIzt.vzNom * 0.005, 6);
     expect(atIzt.vzNom).toBeCloseTo(5.1 + 0.0003 * (atIzt.tjC - 25), 6);
     expect(result.spiceModel).toMatch(/^\.model /);
-    expect(await t.select('SELECT card_version AS version, vz_nom AS vzNom, izt FROM vendor_parts WHERE id = ?', [id])).toEqual([{ version: 1, vzNom: 5.1, izt: 0.005 }]);
+    expect(await t.select('SELECT card_version AS version, vz_nom AS vzNom, izt FROM vendor_parts WHERE id = ?', [id])).toEqual([
+      { version: 1, vzNom: 5.1, izt: 0.005 },
+    ]);
   });
 
   it('converts a %/K coefficient to V/K with the card’s vzNom', async () => {
@@ -90,7 +111,10 @@ describe('rating cards (real MariaDB)', () => {
 
     const stored = await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer));
     expect(stored.body.fields.zzt.value).toBe(35);
-    expect(await t.select('SELECT version FROM rating_card_versions WHERE vendor_part_id = ? ORDER BY version', [id])).toEqual([{ version: 1 }, { version: 2 }]);
+    expect(await t.select('SELECT version FROM rating_card_versions WHERE vendor_part_id = ? ORDER BY version', [id])).toEqual([
+      { version: 1 },
+      { version: 2 },
+    ]);
   });
 
   it('lets exactly one of two simultaneous saves on the same version win', async () => {
@@ -102,7 +126,10 @@ describe('rating cards (real MariaDB)', () => {
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     const winner = a.status === 200 ? 450 : 550;
-    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer))).body).toMatchObject({ version: 2, fields: { zzk: { value: winner } } });
+    expect((await t.http.get(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer))).body).toMatchObject({
+      version: 2,
+      fields: { zzk: { value: winner } },
+    });
 
     // two first saves (version 0) race too
     const fresh = await newPart();
@@ -134,12 +161,22 @@ describe('rating cards (real MariaDB)', () => {
   it('keeps who confirmed an unchanged value; a changed value is confirmed by whoever saved it; a no-op save makes no version', async () => {
     const id = await newPart();
     await put(id, 0, demoCardFields());
-    const v2 = await put(id, 1, demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }), reviewer);
+    const v2 = await put(
+      id,
+      1,
+      demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }),
+      reviewer,
+    );
     expect(v2.body.fields.vzNom.provenance.confirmedBy.name).toBe('Priya Raman');
     expect(v2.body.fields.zzt.provenance.confirmedBy.name).toBe('Tomas Eklund');
     expect(v2.body.fields.irMax.provenance).toMatchObject({ confirmedBy: null, confirmedAt: null });
 
-    const again = await put(id, 2, demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }), reviewer);
+    const again = await put(
+      id,
+      2,
+      demoCardFields({ zzt: { value: 38, provenance: { source: 'entered' } }, irMax: { value: 2e-6, provenance: { source: 'entered' }, confirmed: false } }),
+      reviewer,
+    );
     expect(again.body.version).toBe(2);
 
     const versions = await t.http.get(`/api/vendor-parts/${id}/rating-card/versions`).set(auth(designer));
@@ -162,7 +199,10 @@ describe('rating cards (real MariaDB)', () => {
     const id = await newPart();
     await put(id, 0, demoCardFields());
     const housePartId = await createHousePart(t.http, engineer, 'HP-CARD-1');
-    await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ iRef: 2e-3 }) });
+    await t.http
+      .put(`/api/house-parts/${housePartId}/spec`)
+      .set(auth(engineer))
+      .send({ baseVersion: 0, spec: demoSpec({ iRef: 2e-3 }) });
     await t.http.post(`/api/house-parts/${housePartId}/sources`).set(auth(engineer)).send({ vendorPartId: id });
 
     const view = await t.http.get(`/api/vendor-parts/${id}/rating-card?include=engineering`).set(auth(designer));
@@ -185,7 +225,10 @@ describe('rating cards (real MariaDB)', () => {
     const lone = await newPart();
     const own = await put(lone, 0, demoCardFields());
     const ownCard = toEngineeringCard(own.body.fields)!;
-    const editorOwn = await t.http.post('/api/engineering/normalize').set(auth(engineer)).send(normalizeRequestFor(ownCard, normalizeBasis(ownCard, null)));
+    const editorOwn = await t.http
+      .post('/api/engineering/normalize')
+      .set(auth(engineer))
+      .send(normalizeRequestFor(ownCard, normalizeBasis(ownCard, null)));
     expect(editorOwn.body).toEqual(own.body.engineering.result);
     expect([...new Set((own.body.engineering.result.points as Array<{ current: number }>).map((p) => p.current))]).toEqual([0.25e-3, 1e-3, 5e-3, 10e-3, 20e-3]);
   });

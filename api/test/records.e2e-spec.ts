@@ -29,33 +29,74 @@ describe('decision records (real MariaDB, S3 fake)', () => {
   async function decided(action: 'clear' | 'reject' | 'clear-with-conditions', body: Record<string, unknown> = {}, measured = false) {
     n++;
     const housePartId = await createHousePart(t.http, engineer, `HPR-${n}`, `Record case ${n}`);
-    expect((await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec: demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 } }) })).status).toBe(200);
+    expect(
+      (
+        await t.http
+          .put(`/api/house-parts/${housePartId}/spec`)
+          .set(auth(engineer))
+          .send({ baseVersion: 0, spec: demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 } }) })
+      ).status,
+    ).toBe(200);
     const vendorPartId = await createVendorPart(t.http, engineer, { manufacturer: 'Orrin Devices', mpn: `OR-${n}`, package: 'SOD-123' });
-    const fields = demoCardFields({ vzMin: { value: 4.9, printed: '4.9 V', provenance: entered }, vzMax: { value: 5.3, printed: '5.3 V', provenance: entered } });
+    const fields = demoCardFields({
+      vzMin: { value: 4.9, printed: '4.9 V', provenance: entered },
+      vzMax: { value: 5.3, printed: '5.3 V', provenance: entered },
+    });
     expect((await t.http.put(`/api/vendor-parts/${vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields })).status).toBe(200);
-    await t.http.post('/api/house-parts/' + housePartId + '/buyers').set(auth(buyer)).send({ userId: buyerId });
+    await t.http
+      .post('/api/house-parts/' + housePartId + '/buyers')
+      .set(auth(buyer))
+      .send({ userId: buyerId });
     if (measured) {
       // Two invented samples on the card's own law, Zd = 2·Vt/I + 5 Ω around 5.1 V at 5 mA (SPICE reverse branch; common practice, no source).
       const VT = 0.025693;
       const lines = ['sample,lot,current (mA),voltage (V),temperature (°C)'];
-      for (const [id, v0] of [['S1', 5.08], ['S2', 5.12]] as const) for (const mA of [0.5, 1, 2, 5, 10, 20]) lines.push(`${id},L7,${mA},${(v0 + 2 * VT * Math.log(mA / 5) + 5 * (mA - 5) * 1e-3).toFixed(5)},25`);
-      const up = await t.http.post('/api/measurement-sets').set(auth(engineer)).field('vendorPartId', String(vendorPartId)).attach('file', Buffer.from(lines.join('\n')), 'bench-or.csv');
+      for (const [id, v0] of [
+        ['S1', 5.08],
+        ['S2', 5.12],
+      ] as const)
+        for (const mA of [0.5, 1, 2, 5, 10, 20]) lines.push(`${id},L7,${mA},${(v0 + 2 * VT * Math.log(mA / 5) + 5 * (mA - 5) * 1e-3).toFixed(5)},25`);
+      const up = await t.http
+        .post('/api/measurement-sets')
+        .set(auth(engineer))
+        .field('vendorPartId', String(vendorPartId))
+        .attach('file', Buffer.from(lines.join('\n')), 'bench-or.csv');
       expect(up.status).toBe(201);
     }
     const opened = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId, vendorPartId });
     expect(opened.status).toBe(201);
     const id = opened.body.id as number;
-    expect((await t.http.post(`/api/qualifications/${id}/comments`).set(auth(engineer)).send({ text: `Bench notes for case ${n}: leakage looks low.` })).status).toBe(201);
+    expect(
+      (
+        await t.http
+          .post(`/api/qualifications/${id}/comments`)
+          .set(auth(engineer))
+          .send({ text: `Bench notes for case ${n}: leakage looks low.` })
+      ).status,
+    ).toBe(201);
     const version = (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body.version;
     const submitted = await t.http.post(`/api/qualifications/${id}/submit`).set(auth(engineer)).send({ version, reviewerId });
     expect(submitted.status).toBe(200);
-    const res = await t.http.post(`/api/qualifications/${id}/${action}`).set(auth(reviewer)).send({ version: submitted.body.version, ...body });
+    const res = await t.http
+      .post(`/api/qualifications/${id}/${action}`)
+      .set(auth(reviewer))
+      .send({ version: submitted.body.version, ...body });
     expect(res.status).toBe(200);
-    return res.body as { id: number; state: string; version: number; evaluation: { checks: Array<{ id: keyof typeof CHECK_LABELS; label: string; verdict: keyof typeof QUALIFICATION_VERDICT_LABELS }> } };
+    return res.body as {
+      id: number;
+      state: string;
+      version: number;
+      evaluation: { checks: Array<{ id: keyof typeof CHECK_LABELS; label: string; verdict: keyof typeof QUALIFICATION_VERDICT_LABELS }> };
+    };
   }
 
   const recordRow = async (id: number) =>
-    (await t.select<{ state: string; storage_key: string; sha256: string | null; inputs_sha256: string; inputs: string; size: number | null }>(`SELECT * FROM decision_records WHERE qualification_id = ?`, [id]))[0];
+    (
+      await t.select<{ state: string; storage_key: string; sha256: string | null; inputs_sha256: string; inputs: string; size: number | null }>(
+        `SELECT * FROM decision_records WHERE qualification_id = ?`,
+        [id],
+      )
+    )[0];
 
   async function pdfText(bytes: Uint8Array): Promise<string> {
     const pdf = await readPdf(bytes);
@@ -65,7 +106,13 @@ describe('decision records (real MariaDB, S3 fake)', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    [engineer, reviewer, buyer, designer, admin] = await Promise.all([t.tokenFor('engineer@demo.test'), t.tokenFor('reviewer@demo.test'), t.tokenFor('buyer'), t.tokenFor('designer'), t.tokenFor('admin')]);
+    [engineer, reviewer, buyer, designer, admin] = await Promise.all([
+      t.tokenFor('engineer@demo.test'),
+      t.tokenFor('reviewer@demo.test'),
+      t.tokenFor('buyer'),
+      t.tokenFor('designer'),
+      t.tokenFor('admin'),
+    ]);
     const users = t.stack.app.get(UsersRepository);
     reviewerId = (await users.findByEmail('reviewer@demo.test'))!.id;
     buyerId = (await users.findByEmail('buyer@demo.test'))!.id;
@@ -81,11 +128,15 @@ describe('decision records (real MariaDB, S3 fake)', () => {
     expect(stored.byteLength).toBe(row.size);
     expect(createHash('sha256').update(row.inputs).digest('hex')).toBe(row.inputs_sha256);
 
-    const res = await t.http.get(`/api/qualifications/${c.id}/record`).set(auth(buyer)).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (d: Buffer) => chunks.push(d));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await t.http
+      .get(`/api/qualifications/${c.id}/record`)
+      .set(auth(buyer))
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (d: Buffer) => chunks.push(d));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toBe(`attachment; filename="decision-record-case-${c.id}.pdf"`);
@@ -106,7 +157,10 @@ describe('decision records (real MariaDB, S3 fake)', () => {
     expect(text).toContain(squash('I–V curve of the card at 25 °C'));
     expect(text).toContain(squash('Estimates from datasheet values'));
     // the measurement set with its file, hash and measured checks
-    const [set] = await t.select<{ sha256: string }>(`SELECT m.sha256 FROM measurement_sets m JOIN qualifications q ON q.vendor_part_id = m.vendor_part_id WHERE q.id = ?`, [c.id]);
+    const [set] = await t.select<{ sha256: string }>(
+      `SELECT m.sha256 FROM measurement_sets m JOIN qualifications q ON q.vendor_part_id = m.vendor_part_id WHERE q.id = ?`,
+      [c.id],
+    );
     expect(text).toContain(squash('bench-or.csv, 2 sample(s), 12 point(s)'));
     expect(text).toContain(set.sha256);
     expect(text).toContain(squash('Zener voltage at the card’s test current'));
@@ -116,7 +170,14 @@ describe('decision records (real MariaDB, S3 fake)', () => {
 
     const meta = await t.http.get(`/api/qualifications/${c.id}/record/meta`).set(auth(admin));
     expect(meta.status).toBe(200);
-    expect(meta.body).toMatchObject({ qualificationId: c.id, state: 'stored', sha256: row.sha256, inputsSha256: row.inputs_sha256, size: row.size, path: `/api/qualifications/${c.id}/record` });
+    expect(meta.body).toMatchObject({
+      qualificationId: c.id,
+      state: 'stored',
+      sha256: row.sha256,
+      inputsSha256: row.inputs_sha256,
+      size: row.size,
+      path: `/api/qualifications/${c.id}/record`,
+    });
 
     // the buyers' mail links the record
     const mail = await eventually(async () => (await t.capturedMail()).find((m) => m.body.includes(`/api/qualifications/${c.id}/record`)));

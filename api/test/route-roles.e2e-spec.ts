@@ -33,7 +33,10 @@ describe('role × route table (real MariaDB)', () => {
     expect(Object.keys(ROUTE_ROLES).filter((k) => !registered.includes(k))).toEqual([]); // no stale entries
     for (const r of routes) {
       const access = ROUTE_ROLES[key(r)];
-      expect({ route: key(r), access: r.isPublic ? 'public' : [...(r.roles ?? [])].sort() }).toEqual({ route: key(r), access: access === 'public' ? 'public' : [...access].sort() });
+      expect({ route: key(r), access: r.isPublic ? 'public' : [...(r.roles ?? [])].sort() }).toEqual({
+        route: key(r),
+        access: access === 'public' ? 'public' : [...access].sort(),
+      });
     }
   });
 

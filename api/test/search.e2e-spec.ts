@@ -41,9 +41,7 @@ describe('search (real MariaDB, demo seed)', () => {
     const view = (await t.http.get('/api/qualification-views/sources').set(auth(engineer))).body as SourcesView;
     usableFromSources = new Set(
       view.items.flatMap((h) =>
-        h.sources
-          .filter((s) => s.standing === 'approved' || s.standing === 'cleared' || s.standing === 'cleared-with-conditions')
-          .map((s) => s.vendorPart.mpn),
+        h.sources.filter((s) => s.standing === 'approved' || s.standing === 'cleared' || s.standing === 'cleared-with-conditions').map((s) => s.vendorPart.mpn),
       ),
     );
   }, 240_000);
@@ -78,7 +76,13 @@ describe('search (real MariaDB, demo seed)', () => {
       },
     ]);
     const revoked = (await search('q=QHZ24AF&includeNotCleared=true')).items.find((i) => i.vendorPart.mpn === 'QHZ24AF')!;
-    expect(revoked.ruledOut).toEqual([expect.objectContaining({ housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1240' }), state: 'revoked', reason: expect.stringMatching(/move of assembly/) })]);
+    expect(revoked.ruledOut).toEqual([
+      expect.objectContaining({
+        housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1240' }),
+        state: 'revoked',
+        reason: expect.stringMatching(/move of assembly/),
+      }),
+    ]);
     // A cleared part carries no ruling out.
     expect((await search('q=TPZ15-11')).items.find((i) => i.vendorPart.mpn === 'TPZ15-11')!.ruledOut).toEqual([]);
   });
@@ -101,12 +105,19 @@ describe('search (real MariaDB, demo seed)', () => {
     expect(days).toBeLessThan(27.1);
 
     const flagged = (await search('q=BRZ05-12')).items.find((i) => i.vendorPart.mpn === 'BRZ05-12')!;
-    expect(flagged.clearances).toEqual([expect.objectContaining({ standing: 'cleared', needsRecheck: true, housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1120' }) })]);
+    expect(flagged.clearances).toEqual([
+      expect.objectContaining({ standing: 'cleared', needsRecheck: true, housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1120' }) }),
+    ]);
 
     const approved = (await search('q=BRZ05-4V7')).items.find((i) => i.vendorPart.mpn === 'BRZ05-4V7')!;
     // approved by a decision: the case, who and since when
     expect(approved.clearances).toEqual([
-      expect.objectContaining({ standing: 'approved', caseId: expect.any(Number), decidedBy: expect.objectContaining({ name: 'Tomas Eklund' }), housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1047' }) }),
+      expect.objectContaining({
+        standing: 'approved',
+        caseId: expect.any(Number),
+        decidedBy: expect.objectContaining({ name: 'Tomas Eklund' }),
+        housePart: expect.objectContaining({ partNumber: 'OHI-ZD-1047' }),
+      }),
     ]);
     expect(approved.clearances[0].since).toEqual(expect.any(String));
   });
@@ -114,7 +125,10 @@ describe('search (real MariaDB, demo seed)', () => {
   it('carries the card figures a designer chooses by, equal to the rating card', async () => {
     const item = (await search('q=QHZ5V6A')).items[0];
     expect(item.vendorPart.mpn).toBe('QHZ5V6A');
-    const card = (await t.http.get(`/api/vendor-parts/${item.vendorPart.id}/rating-card`).set(auth(designer))).body as { version: number; fields: Record<string, { value: number; unit?: string; voltsPerKelvin?: number }> };
+    const card = (await t.http.get(`/api/vendor-parts/${item.vendorPart.id}/rating-card`).set(auth(designer))).body as {
+      version: number;
+      fields: Record<string, { value: number; unit?: string; voltsPerKelvin?: number }>;
+    };
     const f = card.fields;
     expect(item.card).toMatchObject({
       version: card.version,
@@ -159,7 +173,9 @@ describe('search (real MariaDB, demo seed)', () => {
     // A ±5 % 5.1 V part spans 4.845…5.355 V and is printed 4.85 / 5.1 / 5.36 V, which read back
     // as ±5.1 % (arithmetic; printing to the nearest digit is common practice, no source):
     // "±5 % or better" must still find it.
-    const [brz] = await t.select<{ fields: string | Record<string, { value: number }> }>("SELECT rc.fields FROM rating_cards rc JOIN vendor_parts vp ON vp.id = rc.vendor_part_id WHERE vp.mpn = 'BRZ05-5V1'");
+    const [brz] = await t.select<{ fields: string | Record<string, { value: number }> }>(
+      "SELECT rc.fields FROM rating_cards rc JOIN vendor_parts vp ON vp.id = rc.vendor_part_id WHERE vp.mpn = 'BRZ05-5V1'",
+    );
     const brzFields = (typeof brz.fields === 'string' ? JSON.parse(brz.fields) : brz.fields) as Record<string, { value: number }>;
     expect([brzFields.vzMin.value, brzFields.vzNom.value, brzFields.vzMax.value]).toEqual([4.85, 5.1, 5.36]);
     expect((5.36 - 5.1) / 5.1).toBeGreaterThan(0.05);
@@ -167,7 +183,9 @@ describe('search (real MariaDB, demo seed)', () => {
     expect(mpns((await allPages('toleranceMax=0.049&includeNotCleared=true', 50)).items)).not.toContain('BRZ05-5V1');
     await check(`manufacturer=${encodeURIComponent('Quarryhill Semitech')}`, (i) => i.vendorPart.manufacturer === 'Quarryhill Semitech');
 
-    const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as { houseParts: Array<{ id: number; partNumber: string; cleared: number }> };
+    const facets = (await t.http.get('/api/search/facets').set(auth(designer))).body as {
+      houseParts: Array<{ id: number; partNumber: string; cleared: number }>;
+    };
     const hp1047 = facets.houseParts.find((h) => h.partNumber === 'OHI-ZD-1047')!;
     expect(hp1047.cleared).toBe(2);
     const forHousePart = await allPages(`housePartId=${hp1047.id}`);
@@ -259,7 +277,21 @@ describe('search (real MariaDB, demo seed)', () => {
     const docs = (await t.http.get('/api/docs-json')).body;
     expect(Object.keys(docs.components.schemas)).toEqual(expect.arrayContaining(['SearchPageDto', 'SearchFacetsDto']));
     expect(docs.paths['/api/search'].get.parameters.map((p: { name: string }) => p.name)).toEqual(
-      expect.arrayContaining(['q', 'vzFrom', 'vzTo', 'vzWindow', 'package', 'pdMin', 'toleranceMax', 'manufacturer', 'housePartId', 'includeNotCleared', 'sort', 'pageIndex', 'pageSize']),
+      expect.arrayContaining([
+        'q',
+        'vzFrom',
+        'vzTo',
+        'vzWindow',
+        'package',
+        'pdMin',
+        'toleranceMax',
+        'manufacturer',
+        'housePartId',
+        'includeNotCleared',
+        'sort',
+        'pageIndex',
+        'pageSize',
+      ]),
     );
   });
 
@@ -294,7 +326,13 @@ describe('search (real MariaDB, demo seed)', () => {
     const res = await t.http
       .post('/api/engineering/regulator')
       .set(auth(designer))
-      .send({ card, supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.02 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } });
+      .send({
+        card,
+        supply: { min: 10.8, nom: 12, max: 13.2 },
+        load: { min: 0, max: 0.02 },
+        ambient: { min: -20, max: 70 },
+        resistor: { series: 'E24', tolerance: 0.05 },
+      });
     expect(res.status).toBe(200);
     // R = (Vs − Vz)/(Iz + IL,max) at the nominal supply (common practice, no source).
     expect(res.body.simple.resistance).toBeCloseTo((12 - card.vzNom) / (card.izt + 0.02), 6);

@@ -39,7 +39,14 @@ describe('security headers, tokens and bad text (real MariaDB)', () => {
 
   it('refuses a correctly signed token that has no expiry', async () => {
     const user = (await t.select<{ id: number; token_version: number }>("SELECT id, token_version FROM users WHERE email = 'engineer@demo.test'"))[0];
-    const claims = { sub: user.id, role: 'engineer', tv: user.token_version, iss: t.stack.env.JWT_ISSUER, aud: t.stack.env.JWT_AUDIENCE, iat: Math.floor(Date.now() / 1000) };
+    const claims = {
+      sub: user.id,
+      role: 'engineer',
+      tv: user.token_version,
+      iss: t.stack.env.JWT_ISSUER,
+      aud: t.stack.env.JWT_AUDIENCE,
+      iat: Math.floor(Date.now() / 1000),
+    };
     const withExp = await t.http.get('/api/auth/me').set(auth(signHs256({ ...claims, exp: claims.iat + 600 }, t.stack.env.JWT_SECRET)));
     expect(withExp.status).toBe(200); // the hand-made token is otherwise right
     const noExp = await t.http.get('/api/auth/me').set(auth(signHs256(claims, t.stack.env.JWT_SECRET)));
@@ -58,7 +65,8 @@ describe('security headers, tokens and bad text (real MariaDB)', () => {
     for (const [method, path, body, field] of cases) {
       // supertest would re-encode the string; send the JSON escape itself.
       const raw = JSON.stringify(body).replace(/[\ud800-\udfff]/g, (c) => `\\u${c.charCodeAt(0).toString(16)}`);
-      const res = await (t.http as unknown as Record<string, (p: string) => import('supertest').Test>)[method](path).set(auth(engineer)).set('Content-Type', 'application/json').send(raw);
+      const send = (t.http as unknown as Record<string, (p: string) => import('supertest').Test>)[method];
+      const res = await send.call(t.http, path).set(auth(engineer)).set('Content-Type', 'application/json').send(raw);
       expect({ path, status: res.status }).toEqual({ path, status: 400 });
       expect(res.body.errors).toEqual(expect.arrayContaining([expect.objectContaining({ path: field, message: expect.stringMatching(/surrogate/) })]));
     }
@@ -149,5 +157,8 @@ describe('sign-in and upload limits, counted in the database', () => {
 async function signedToken(t: TestApp, email: string): Promise<string> {
   const user = (await t.select<{ id: number; role: string; token_version: number }>('SELECT id, role, token_version FROM users WHERE email = ?', [email]))[0];
   const iat = Math.floor(Date.now() / 1000);
-  return signHs256({ sub: user.id, role: user.role, tv: user.token_version, iss: t.stack.env.JWT_ISSUER, aud: t.stack.env.JWT_AUDIENCE, iat, exp: iat + 600 }, t.stack.env.JWT_SECRET);
+  return signHs256(
+    { sub: user.id, role: user.role, tv: user.token_version, iss: t.stack.env.JWT_ISSUER, aud: t.stack.env.JWT_AUDIENCE, iat, exp: iat + 600 },
+    t.stack.env.JWT_SECRET,
+  );
 }

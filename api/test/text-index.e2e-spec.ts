@@ -22,7 +22,8 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(res.status).toBe(200);
     return res.body as T;
   };
-  const gramsOf = async (kind: number, id: number) => Number((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM text_grams WHERE kind = ? AND entity_id = ?', [kind, id]))[0].n);
+  const gramsOf = async (kind: number, id: number) =>
+    Number((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM text_grams WHERE kind = ? AND entity_id = ?', [kind, id]))[0].n);
 
   beforeAll(async () => {
     t = await createTestApp({ seed: 'demo' });
@@ -31,7 +32,9 @@ describe('text index (real MariaDB, demo seed)', () => {
   afterAll(() => t.close());
 
   it('indexes every seeded part, and a rolled-back write leaves no index rows', async () => {
-    const [{ unindexed }] = await t.select<{ unindexed: number }>('SELECT COUNT(*) AS unindexed FROM vendor_parts vp WHERE NOT EXISTS (SELECT 1 FROM text_grams g WHERE g.kind = 1 AND g.entity_id = vp.id)');
+    const [{ unindexed }] = await t.select<{ unindexed: number }>(
+      'SELECT COUNT(*) AS unindexed FROM vendor_parts vp WHERE NOT EXISTS (SELECT 1 FROM text_grams g WHERE g.kind = 1 AND g.entity_id = vp.id)',
+    );
     expect(Number(unindexed)).toBe(0);
     const sequelize = t.stack.app.get(Sequelize);
     const houseParts = t.stack.app.get(HousePartsRepository);
@@ -46,11 +49,14 @@ describe('text index (real MariaDB, demo seed)', () => {
         const maker = await vendorParts.findOrCreateManufacturer('Rollback Invented Devices', transaction);
         const vp = await vendorParts.create({ manufacturer: maker, mpn: 'RBZ-7V7', package: null, lifecycleNote: null, createdById: null }, transaction);
         vendorPartId = vp.id;
-        const [{ n }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM text_grams WHERE (kind = 2 AND entity_id = ?) OR (kind = 1 AND entity_id = ?)', {
-          replacements: [housePartId, vendorPartId],
-          type: QueryTypes.SELECT,
-          transaction,
-        });
+        const [{ n }] = await sequelize.query<{ n: number }>(
+          'SELECT COUNT(*) AS n FROM text_grams WHERE (kind = 2 AND entity_id = ?) OR (kind = 1 AND entity_id = ?)',
+          {
+            replacements: [housePartId, vendorPartId],
+            type: QueryTypes.SELECT,
+            transaction,
+          },
+        );
         insideTransaction = Number(n);
         throw new Error('roll back');
       }),
@@ -81,7 +87,9 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(withSource.length).toBeGreaterThan(0);
     const found = (await get<HousePartPage>('/api/house-parts?q=5V1&pageSize=100')).items.map((h) => h.partNumber);
     for (const { partNumber } of withSource) expect(found).toContain(partNumber);
-    const board = (await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualification-views/board?q=5v1&pageSize=100')).items.map((r) => r.housePart.partNumber);
+    const board = (await get<{ items: Array<{ housePart: { partNumber: string } }> }>('/api/qualification-views/board?q=5v1&pageSize=100')).items.map(
+      (r) => r.housePart.partNumber,
+    );
     expect(board.sort()).toEqual([...found].sort());
 
     const expected = (await t.select<{ mpn: string }>("SELECT mpn FROM vendor_parts WHERE mpn LIKE '%5V1%' ORDER BY mpn")).map((r) => r.mpn);
@@ -90,12 +98,14 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(vendorList).toEqual(expected);
   });
 
-  it('finds parts in the designers\' search by a middle part of their number or of a house part they serve', async () => {
+  it("finds parts in the designers' search by a middle part of their number or of a house part they serve", async () => {
     const byHousePart = await get<SearchPage>('/api/search?q=1051', designer);
     expect(byHousePart.text.mode).toBe('fuzzy');
     const sources = await get<SourcesView>('/api/qualification-views/sources?q=OHI-ZD-1051', buyer);
     const usable = sources.items[0].sources
-      .filter((s) => s.standing === 'cleared' || s.standing === 'cleared-with-conditions' || (s.role === 'approved' && !['rejected', 'revoked'].includes(s.standing)))
+      .filter(
+        (s) => s.standing === 'cleared' || s.standing === 'cleared-with-conditions' || (s.role === 'approved' && !['rejected', 'revoked'].includes(s.standing)),
+      )
       .map((s) => s.vendorPart.mpn);
     expect(usable.length).toBeGreaterThan(0);
     expect(byHousePart.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(usable));

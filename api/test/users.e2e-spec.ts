@@ -52,7 +52,9 @@ describe('invitations through the real SMTP fake', () => {
     await t.http.post('/api/users/invitations').set('Authorization', `Bearer ${admin}`).send({ email: 'late@demo.test', name: 'Late Person', role: 'buyer' });
     const mail = await eventually(async () => (await t.capturedMail()).find((m) => m.recipients.includes('late@demo.test')));
     await t.exec("UPDATE invitations SET expires_at = '2000-01-01' WHERE email = 'late@demo.test'");
-    const res = await t.http.post('/api/auth/invitations/accept').send({ token: linkToken(mail.body), name: 'Late Person', password: 'a-long-enough-password' });
+    const res = await t.http
+      .post('/api/auth/invitations/accept')
+      .send({ token: linkToken(mail.body), name: 'Late Person', password: 'a-long-enough-password' });
     expect(res.status).toBe(404);
     expect(res.body.message).toMatch(/expired/);
   });
@@ -86,20 +88,31 @@ describe('invitations through the real SMTP fake', () => {
   });
 
   it('refuses to invite an existing user (409) and a non-admin (403)', async () => {
-    const dup = await t.http.post('/api/users/invitations').set('Authorization', `Bearer ${admin}`).send({ email: 'buyer@demo.test', name: 'Dup', role: 'buyer' });
+    const dup = await t.http
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: 'buyer@demo.test', name: 'Dup', role: 'buyer' });
     expect(dup.status).toBe(409);
     const engineer = await t.tokenFor('engineer');
-    const forbidden = await t.http.post('/api/users/invitations').set('Authorization', `Bearer ${engineer}`).send({ email: 'x@demo.test', name: 'X', role: 'buyer' });
+    const forbidden = await t.http
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${engineer}`)
+      .send({ email: 'x@demo.test', name: 'X', role: 'buyer' });
     expect(forbidden.status).toBe(403);
   });
 
   it('keeps mail while the SMTP server is away and delivers it when it returns', async () => {
     await t.stack.stopSmtp();
-    const res = await t.http.post('/api/users/invitations').set('Authorization', `Bearer ${admin}`).send({ email: 'queued@demo.test', name: 'Queued Person', role: 'designer' });
+    const res = await t.http
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: 'queued@demo.test', name: 'Queued Person', role: 'designer' });
     expect(res.status).toBe(201); // the invitation does not wait for mail
     const mail = t.stack.app.get(MailService);
     await mail.flush();
-    const [pending] = await t.select<{ state: string; attempts: number }>("SELECT state, attempts FROM outgoing_mail WHERE JSON_CONTAINS(recipients, '\"queued@demo.test\"')");
+    const [pending] = await t.select<{ state: string; attempts: number }>(
+      'SELECT state, attempts FROM outgoing_mail WHERE JSON_CONTAINS(recipients, \'"queued@demo.test"\')',
+    );
     expect(pending.state).toBe('pending');
     expect(pending.attempts).toBeGreaterThanOrEqual(1);
     expect((await t.capturedMail()).some((m) => m.recipients.includes('queued@demo.test'))).toBe(false);
@@ -109,7 +122,7 @@ describe('invitations through the real SMTP fake', () => {
       await mail.flush();
       return (await t.capturedMail()).some((m) => m.recipients.includes('queued@demo.test'));
     });
-    const [sent] = await t.select<{ state: string }>("SELECT state FROM outgoing_mail WHERE JSON_CONTAINS(recipients, '\"queued@demo.test\"')");
+    const [sent] = await t.select<{ state: string }>('SELECT state FROM outgoing_mail WHERE JSON_CONTAINS(recipients, \'"queued@demo.test"\')');
     expect(sent.state).toBe('sent');
   });
 

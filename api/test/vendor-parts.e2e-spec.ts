@@ -15,9 +15,20 @@ describe('vendor parts (real MariaDB)', () => {
   afterAll(() => t.close());
 
   it('creates a vendor part; the mpn is unique per manufacturer (case-insensitive), not across them', async () => {
-    const res = await t.http.post('/api/vendor-parts').set(auth(engineer)).send({ manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4V7', package: 'SOD-123', lifecycleNote: 'active' });
+    const res = await t.http
+      .post('/api/vendor-parts')
+      .set(auth(engineer))
+      .send({ manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4V7', package: 'SOD-123', lifecycleNote: 'active' });
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4V7', package: 'SOD-123', lifecycleNote: 'active', card: null, datasheets: [], sourceOf: [] });
+    expect(res.body).toMatchObject({
+      manufacturer: 'Corriebank Electronics',
+      mpn: 'CBX3-4V7',
+      package: 'SOD-123',
+      lifecycleNote: 'active',
+      card: null,
+      datasheets: [],
+      sourceOf: [],
+    });
 
     const dup = await t.http.post('/api/vendor-parts').set(auth(engineer)).send({ manufacturer: 'Corriebank Electronics', mpn: 'cbx3-4v7' });
     expect(dup.status).toBe(409);
@@ -30,7 +41,10 @@ describe('vendor parts (real MariaDB)', () => {
     expect(missing.body.errors[0].path).toBe('manufacturer');
     expect((await t.http.post('/api/vendor-parts').set(auth(buyer)).send({ manufacturer: 'A', mpn: 'B' })).status).toBe(403);
 
-    const patched = await t.http.patch(`/api/vendor-parts/${res.body.id}`).set(auth(engineer)).send({ lifecycleNote: 'last-time buy announced', package: 'SOD-323' });
+    const patched = await t.http
+      .patch(`/api/vendor-parts/${res.body.id}`)
+      .set(auth(engineer))
+      .send({ lifecycleNote: 'last-time buy announced', package: 'SOD-323' });
     expect(patched.body).toMatchObject({ lifecycleNote: 'last-time buy announced', package: 'SOD-323' });
     const clash = await t.http.patch(`/api/vendor-parts/${other.body.id}`).set(auth(engineer)).send({ manufacturer: 'Corriebank Electronics' });
     expect(clash.status).toBe(409);
@@ -39,14 +53,27 @@ describe('vendor parts (real MariaDB)', () => {
 
     const manufacturers = await t.http.get('/api/manufacturers').set(auth(buyer));
     expect(manufacturers.body).toEqual(
-      expect.arrayContaining([{ id: expect.any(Number), name: 'Corriebank Electronics', vendorPartCount: 1 }, { id: expect.any(Number), name: 'Lumenvale Micro', vendorPartCount: 1 }]),
+      expect.arrayContaining([
+        { id: expect.any(Number), name: 'Corriebank Electronics', vendorPartCount: 1 },
+        { id: expect.any(Number), name: 'Lumenvale Micro', vendorPartCount: 1 },
+      ]),
     );
   });
 
   it('publishes the catalogue schemas at /api/docs (request and answer bodies, list parameters)', async () => {
     const docs = (await t.http.get('/api/docs-json')).body;
     expect(Object.keys(docs.components.schemas)).toEqual(
-      expect.arrayContaining(['VendorPartPageDto', 'PutRatingCardDto', 'RatingCardViewDto', 'RatingCardConflictDto', 'PutSpecDto', 'SpecVersionDto', 'SourceDto', 'UploadDatasheetResponseDto', 'CsvImportPreviewDto']),
+      expect.arrayContaining([
+        'VendorPartPageDto',
+        'PutRatingCardDto',
+        'RatingCardViewDto',
+        'RatingCardConflictDto',
+        'PutSpecDto',
+        'SpecVersionDto',
+        'SourceDto',
+        'UploadDatasheetResponseDto',
+        'CsvImportPreviewDto',
+      ]),
     );
     expect(docs.paths['/api/vendor-parts'].get.parameters.map((p: { name: string }) => p.name)).toEqual(
       expect.arrayContaining(['pageIndex', 'pageSize', 'sort', 'mpn', 'manufacturer', 'package', 'vzNomMin', 'vzNomMax', 'hasCard']),
@@ -61,7 +88,12 @@ describe('vendor parts (real MariaDB)', () => {
       for (const [v, vendor] of ['Quarryhill Parts', 'Tevorrow Semicon'].entries()) {
         for (const [i, vz] of voltages.entries()) {
           const mpn = `${v ? 'TPZ' : 'QHZ'}${String(vz).replace('.', 'V')}-L`;
-          const id = (await t.http.post('/api/vendor-parts').set(auth(engineer)).send({ manufacturer: vendor, mpn, package: i % 3 ? 'SOD-123' : 'DO-35' })).body.id;
+          const id = (
+            await t.http
+              .post('/api/vendor-parts')
+              .set(auth(engineer))
+              .send({ manufacturer: vendor, mpn, package: i % 3 ? 'SOD-123' : 'DO-35' })
+          ).body.id;
           if (v === 1 && i % 2) continue;
           const fields = demoCardFields({
             vzMin: { value: vz * 0.95, provenance: { source: 'entered' } },
@@ -83,7 +115,11 @@ describe('vendor parts (real MariaDB)', () => {
       expect(p0.body.items).toHaveLength(4);
       expect(p2.body.items).toHaveLength(2);
       const all = await t.http.get('/api/vendor-parts?mpn=QHZ&pageSize=10').set(auth(buyer));
-      expect([...mpns(p0.body), ...mpns((await t.http.get('/api/vendor-parts?mpn=QHZ&pageSize=4&pageIndex=1').set(auth(buyer))).body), ...mpns(p2.body)]).toEqual(mpns(all.body));
+      expect([
+        ...mpns(p0.body),
+        ...mpns((await t.http.get('/api/vendor-parts?mpn=QHZ&pageSize=4&pageIndex=1').set(auth(buyer))).body),
+        ...mpns(p2.body),
+      ]).toEqual(mpns(all.body));
       expect(mpns(all.body)).toEqual([...mpns(all.body)].sort((a, b) => a.localeCompare(b, 'en', { sensitivity: 'base' })));
     });
 
@@ -109,7 +145,11 @@ describe('vendor parts (real MariaDB)', () => {
       expect(pkg.body.total).toBe(8);
       const global = await t.http.get('/api/vendor-parts?q=tevorrow&pageSize=50').set(auth(buyer));
       expect(global.body.total).toBe(10);
-      expect((await t.http.get('/api/vendor-parts?q=QHZ1&pageSize=50').set(auth(buyer))).body.items.map((i: { mpn: string }) => i.mpn)).toEqual(['QHZ10-L', 'QHZ12-L', 'QHZ15-L']);
+      expect((await t.http.get('/api/vendor-parts?q=QHZ1&pageSize=50').set(auth(buyer))).body.items.map((i: { mpn: string }) => i.mpn)).toEqual([
+        'QHZ10-L',
+        'QHZ12-L',
+        'QHZ15-L',
+      ]);
       const wildcard = await t.http.get('/api/vendor-parts?mpn=%25').set(auth(buyer));
       expect(wildcard.body.total).toBe(0); // a typed % matches itself, not everything
 

@@ -25,7 +25,8 @@ describe('waivers (real MariaDB)', () => {
   let n = 0;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
   const entered = { source: 'entered' as const };
-  const card = () => demoCardFields({ vzMin: { value: 4.9, printed: '4.9 V', provenance: entered }, vzMax: { value: 5.3, printed: '5.3 V', provenance: entered } });
+  const card = () =>
+    demoCardFields({ vzMin: { value: 4.9, printed: '4.9 V', provenance: entered }, vzMax: { value: 5.3, printed: '5.3 V', provenance: entered } });
   const failingSpec = () => demoSpec({ vz: { min: 4.6, nom: 5.1, max: 5.6 }, zdMax: 30, leakage: { irMax: 0.5e-6, vr: 2 } });
   const day = (d: string) => new Date(`${d}T12:00:00Z`);
 
@@ -45,7 +46,10 @@ describe('waivers (real MariaDB)', () => {
   }
   const caseNow = async (id: number) => (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body;
   const act = async (id: number, action: string, body: object, token: string) =>
-    t.http.post(`/api/qualifications/${id}/${action}`).set(auth(token)).send({ version: (await caseNow(id)).version, ...body });
+    t.http
+      .post(`/api/qualifications/${id}/${action}`)
+      .set(auth(token))
+      .send({ version: (await caseNow(id)).version, ...body });
   const prepare = (id: number, body: object, token = engineer) => t.http.post(`/api/qualifications/${id}/waivers`).set(auth(token)).send(body);
   const zdWaiver = { checkId: 'zd', acceptedLimit: 45, reason: 'the regulator tolerates 45 Ω; bench data on three lots', expiresOn: '2027-06-30' };
   const leakageWaiver = { checkId: 'leakage', acceptedLimit: 1.5e-6, reason: 'the divider draws 1 mA; 1.5 µA is negligible', expiresOn: '2027-03-31' };
@@ -53,7 +57,12 @@ describe('waivers (real MariaDB)', () => {
   beforeAll(async () => {
     t = await createTestApp();
     const users = t.stack.app.get(UsersRepository);
-    await users.create({ email: 'third.engineer@demo.test', name: 'Ines Marwick', role: 'engineer', passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD) });
+    await users.create({
+      email: 'third.engineer@demo.test',
+      name: 'Ines Marwick',
+      role: 'engineer',
+      passwordHash: await hashPassword(t.stack.env.DEMO_PASSWORD),
+    });
     [engineer, reviewer, third, designer, buyer, admin] = await Promise.all([
       t.tokenFor('engineer@demo.test'),
       t.tokenFor('reviewer@demo.test'),
@@ -88,7 +97,17 @@ describe('waivers (real MariaDB)', () => {
     expect((await prepare(c.id, zdWaiver, designer)).status).toBe(403);
     const ok = await prepare(c.id, zdWaiver);
     expect(ok.status).toBe(201);
-    expect(ok.body).toMatchObject({ checkId: 'zd', quantity: 'resistance', limitKind: 'max', specLimit: 30, acceptedLimit: 45, value: 40, state: 'proposed', expiresOn: '2027-06-30', preparedBy: { name: 'Priya Raman' } });
+    expect(ok.body).toMatchObject({
+      checkId: 'zd',
+      quantity: 'resistance',
+      limitKind: 'max',
+      specLimit: 30,
+      acceptedLimit: 45,
+      value: 40,
+      state: 'proposed',
+      expiresOn: '2027-06-30',
+      preparedBy: { name: 'Priya Raman' },
+    });
     const twice = await prepare(c.id, zdWaiver);
     expect(twice.status).toBe(409);
   });
@@ -126,7 +145,9 @@ describe('waivers (real MariaDB)', () => {
     expect((await caseNow(c.id)).allowedActions).not.toContain('clear-with-waiver');
     // a refused waiver covers nothing
     const refused = (await prepare(c.id, leakageWaiver)).body;
-    expect((await t.http.post(`/api/qualifications/${c.id}/waivers/${refused.id}/refuse`).set(auth(reviewer)).send({ reason: 'no bench data' })).status).toBe(200);
+    expect((await t.http.post(`/api/qualifications/${c.id}/waivers/${refused.id}/refuse`).set(auth(reviewer)).send({ reason: 'no bench data' })).status).toBe(
+      200,
+    );
     expect((await act(c.id, 'clear-with-waiver', {}, reviewer)).status).toBe(422);
     const leak = (await prepare(c.id, leakageWaiver)).body;
     expect((await t.http.post(`/api/qualifications/${c.id}/waivers/${leak.id}/approve`).set(auth(third)).send({})).status).toBe(200);
@@ -176,7 +197,9 @@ describe('waivers (real MariaDB)', () => {
     expect(lapsed.recheckReasons.map((r: { cause: string }) => r.cause)).toEqual(['waiver-expired']);
     expect(lapsed.audit.filter((e: { action: string }) => e.action === 'waiver-lapsed')).toHaveLength(1);
     expect(lapsed.allowedActions).toContain('recheck');
-    const mails = await t.select<{ recipients: string | string[]; subject: string; body: string }>(`SELECT recipients, subject, body FROM outgoing_mail WHERE kind = 'qualification.waiver-lapsed' ORDER BY id`);
+    const mails = await t.select<{ recipients: string | string[]; subject: string; body: string }>(
+      `SELECT recipients, subject, body FROM outgoing_mail WHERE kind = 'qualification.waiver-lapsed' ORDER BY id`,
+    );
     expect(mails.length - Number(outboxBefore[0].n)).toBe(1);
     const mail = mails.at(-1)!;
     const to = typeof mail.recipients === 'string' ? JSON.parse(mail.recipients) : mail.recipients;
@@ -196,11 +219,20 @@ describe('waivers (real MariaDB)', () => {
     // the zd waiver lapses later without a second state change or a buyers' mail
     jest.spyOn(clock, 'now').mockReturnValue(day('2027-07-01'));
     expect(await waivers.lapseDue()).toBeGreaterThanOrEqual(1); // the earlier tests' approved waivers lapse with it
-    expect((await t.http.get(`/api/qualifications/${c.id}/waivers`).set(auth(engineer))).body.items.map((w: { state: string }) => w.state)).toEqual(['lapsed', 'refused', 'lapsed']);
+    expect((await t.http.get(`/api/qualifications/${c.id}/waivers`).set(auth(engineer))).body.items.map((w: { state: string }) => w.state)).toEqual([
+      'lapsed',
+      'refused',
+      'lapsed',
+    ]);
     const later = await caseNow(c.id);
     expect(later.state).toBe('waiver-lapsed');
     expect(later.recheckReasons).toHaveLength(1);
-    const lastMail = (await t.select<{ recipients: string | string[] }>(`SELECT recipients FROM outgoing_mail WHERE kind = 'qualification.waiver-lapsed' AND subject LIKE ? ORDER BY id DESC LIMIT 1`, [`%waiver expired (case #${c.id})`]))[0];
+    const lastMail = (
+      await t.select<{ recipients: string | string[] }>(
+        `SELECT recipients FROM outgoing_mail WHERE kind = 'qualification.waiver-lapsed' AND subject LIKE ? ORDER BY id DESC LIMIT 1`,
+        [`%waiver expired (case #${c.id})`],
+      )
+    )[0];
     expect(typeof lastMail.recipients === 'string' ? JSON.parse(lastMail.recipients) : lastMail.recipients).toEqual(['engineer@demo.test']);
     jest.spyOn(clock, 'now').mockReturnValue(day('2027-01-15'));
   });

@@ -80,7 +80,22 @@ export function buildIfStale(root, { name, inputs, output, force = false }) {
 
 /** The builds that `npm start` and the end-to-end tests need, in dependency order. */
 export function buildAll(root, force = false) {
-  const contracts = buildIfStale(root, { name: 'contracts', inputs: ['contracts/src', 'contracts/tsconfig.json', 'contracts/tsconfig.build.json'], output: 'contracts/dist/index.js', force });
-  buildIfStale(root, { name: 'api', inputs: ['api/src', 'api/tsconfig.json', 'api/tsconfig.build.json', 'contracts/src'], output: 'api/dist/dev/start.js', force: force || contracts });
-  buildIfStale(root, { name: 'web', inputs: ['web/src', 'web/index.html', 'web/vite.config.ts', 'web/public', 'contracts/src', 'package-lock.json'], output: 'web/dist/index.html', force });
+  const contracts = buildIfStale(root, {
+    name: 'contracts',
+    inputs: ['contracts/src', 'contracts/tsconfig.json', 'contracts/tsconfig.build.json'],
+    output: 'contracts/dist/index.js',
+    force,
+  });
+  buildIfStale(root, {
+    name: 'api',
+    inputs: ['api/src', 'api/tsconfig.json', 'api/tsconfig.build.json', 'contracts/src'],
+    output: 'api/dist/dev/start.js',
+    force: force || contracts,
+  });
+  buildIfStale(root, {
+    name: 'web',
+    inputs: ['web/src', 'web/index.html', 'web/vite.config.ts', 'web/public', 'contracts/src', 'package-lock.json'],
+    output: 'web/dist/index.html',
+    force,
+  });
 }

@@ -9,7 +9,11 @@ import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
 
 const GALERA = '/usr/lib/galera/libgalera_smm.so';
-export const CLUSTER_PACKAGES = { packages: ['mariadb-server', 'mariadb-client', 'galera-4', 'mariadb-backup', 'rsync', 'nginx-light'], commands: ['mariadbd', 'mariabackup', 'rsync', 'nginx'], files: [GALERA] };
+export const CLUSTER_PACKAGES = {
+  packages: ['mariadb-server', 'mariadb-client', 'galera-4', 'mariadb-backup', 'rsync', 'nginx-light'],
+  commands: ['mariadbd', 'mariabackup', 'rsync', 'nginx'],
+  files: [GALERA],
+};
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
@@ -27,7 +31,12 @@ export const freePort = () =>
 export function sql(socket, statement, { database } = {}) {
   const r = spawnSync('mariadb', ['--no-defaults', '-S', socket, '-uroot', '-N', '-B', ...(database ? [database] : []), '-e', statement], { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`mariadb -S ${socket}: ${r.stderr.trim()}`);
-  return r.stdout.trim() ? r.stdout.trim().split('\n').map((l) => l.split('\t')) : [];
+  return r.stdout.trim()
+    ? r.stdout
+        .trim()
+        .split('\n')
+        .map((l) => l.split('\t'))
+    : [];
 }
 
 function trySql(socket, statement) {
@@ -124,7 +133,11 @@ class GaleraNode {
   async start({ bootstrap = false, timeoutMs = 120_000 } = {}) {
     this.writeConfig();
     if (bootstrap && !existsSync(join(this.datadir, 'mysql'))) {
-      const init = spawnSync('mariadb-install-db', ['--no-defaults', `--datadir=${this.datadir}`, '--user=root', '--auth-root-authentication-method=normal', '--skip-test-db'], { encoding: 'utf8' });
+      const init = spawnSync(
+        'mariadb-install-db',
+        ['--no-defaults', `--datadir=${this.datadir}`, '--user=root', '--auth-root-authentication-method=normal', '--skip-test-db'],
+        { encoding: 'utf8' },
+      );
       if (init.status !== 0) throw new Error(`mariadb-install-db failed:\n${init.stderr || init.stdout}`);
     }
     mkdirSync(this.datadir, { recursive: true });
@@ -232,10 +245,12 @@ export async function startCluster({ root, dir, replicas = 3, seed = 'demo', por
       handles.nodes.push(node);
       const ms = await node.start({ bootstrap: i === 0 });
       timings[`node${i + 1}`] = ms;
-      log(`[galera] node ${i + 1} synced on 127.0.0.1:${node.port} (pid ${node.pid}) in ${(ms / 1000).toFixed(1)} s${i === 0 ? ' (bootstrap)' : ' (joined by SST)'}`);
+      log(
+        `[galera] node ${i + 1} synced on 127.0.0.1:${node.port} (pid ${node.pid}) in ${(ms / 1000).toFixed(1)} s${i === 0 ? ' (bootstrap)' : ' (joined by SST)'}`,
+      );
       if (i === 0) {
         const password = randomBytes(12).toString('hex');
-        sql(node.socket, "CREATE DATABASE IF NOT EXISTS shuntwise CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci");
+        sql(node.socket, 'CREATE DATABASE IF NOT EXISTS shuntwise CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci');
         sql(node.socket, `CREATE USER IF NOT EXISTS 'shuntwise'@'127.0.0.1' IDENTIFIED BY '${password}'`);
         sql(node.socket, "GRANT ALL PRIVILEGES ON shuntwise.* TO 'shuntwise'@'127.0.0.1'");
         handles.dbPassword = password;
@@ -270,7 +285,14 @@ export async function startCluster({ root, dir, replicas = 3, seed = 'demo', por
 
     for (let i = 0; i < replicas; i++) {
       const apiPort = await freePort();
-      const env = { ...baseEnv, PORT: String(apiPort), DB_PORT: String(nodePorts[i % 3].mysql), DB_HOSTS: hosts(i % 3), MIGRATE: i === 0 ? '1' : '0', SEED: i === 0 ? seed : 'none' };
+      const env = {
+        ...baseEnv,
+        PORT: String(apiPort),
+        DB_PORT: String(nodePorts[i % 3].mysql),
+        DB_HOSTS: hosts(i % 3),
+        MIGRATE: i === 0 ? '1' : '0',
+        SEED: i === 0 ? seed : 'none',
+      };
       const api = new Managed(`api${i + 1}`, process.execPath, [join(root, 'api/dist/dev/replica.js')], { env, log: join(dir, `api${i + 1}.log`) });
       api.port = apiPort;
       api.url = `http://127.0.0.1:${apiPort}`;
@@ -323,7 +345,10 @@ ${handles.apis.map((a) => `    server 127.0.0.1:${a.port} max_fails=1 fail_timeo
 }
 `,
     );
-    handles.nginx = new Managed('nginx', 'nginx', ['-e', join(nginxDir, 'error.log'), '-p', nginxDir, '-c', conf], { env: process.env, log: join(nginxDir, 'nginx.out') });
+    handles.nginx = new Managed('nginx', 'nginx', ['-e', join(nginxDir, 'error.log'), '-p', nginxDir, '-c', conf], {
+      env: process.env,
+      log: join(nginxDir, 'nginx.out'),
+    });
     handles.url = `http://127.0.0.1:${lbPort}`;
     await handles.nginx.start(() => httpOk(`${handles.url}/api/health`), 30_000);
     log(`[nginx] balancing ${handles.apis.length} replicas on ${handles.url} (pid ${handles.nginx.pid})`);

@@ -65,7 +65,11 @@ const PLANS: Plan[] = [
 const K_OVER_Q = 1.380649e-23 / 1.602176634e-19;
 const root = join(__dirname, '..');
 
-function cardOf(catalogue: { vendorParts: Array<{ vendor: string; mpn: string; ratingCard: { fields: Record<string, { value: number } | undefined> } }> }, vendor: string, mpn: string): Card {
+function cardOf(
+  catalogue: { vendorParts: Array<{ vendor: string; mpn: string; ratingCard: { fields: Record<string, { value: number } | undefined> } }> },
+  vendor: string,
+  mpn: string,
+): Card {
   const part = catalogue.vendorParts.find((p) => p.vendor === vendor && p.mpn === mpn);
   if (!part) throw new Error(`no demo part ${vendor} ${mpn}`);
   const f = part.ratingCard.fields;
@@ -102,7 +106,12 @@ function write(plan: Plan, card: Card, rng: Prng): string {
       for (const tempC of lot.temperaturesC) {
         for (let k = 0; k < 12; k++) {
           const current = (card.izk / 2) * ((card.izt * 4) / (card.izk / 2)) ** (k / 11);
-          const v = vz + card.tcVoltsPerK * (tempC - 25) + nbv * K_OVER_Q * (tempC + 273.15) * Math.log(current / card.izt) + rsSample * (current - card.izt) + 0.0003 * gaussian(rng);
+          const v =
+            vz +
+            card.tcVoltsPerK * (tempC - 25) +
+            nbv * K_OVER_Q * (tempC + 273.15) * Math.log(current / card.izt) +
+            rsSample * (current - card.izt) +
+            0.0003 * gaussian(rng);
           lines.push(`${id},${lot.lot},${Number((current * 1e3).toPrecision(4))},${v.toFixed(4)},${tempC}`);
         }
       }

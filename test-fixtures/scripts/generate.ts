@@ -76,9 +76,7 @@ async function main(): Promise<void> {
 
   const catalogue = buildCatalogue(series, keys);
   writeFileSync(join(catalogueDir, 'demo-catalogue.json'), json(catalogue));
-  console.log(
-    `catalogue: ${catalogue.houseParts.length} house parts, ${catalogue.vendors.length} vendors, ${catalogue.vendorParts.length} vendor parts`,
-  );
+  console.log(`catalogue: ${catalogue.houseParts.length} house parts, ${catalogue.vendors.length} vendors, ${catalogue.vendorParts.length} vendor parts`);
 }
 
 main().catch((err: unknown) => {

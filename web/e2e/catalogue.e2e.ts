@@ -83,8 +83,17 @@ describe('catalogue journey in Chromium', () => {
     await dialog.getByLabel('Lifecycle note').fill('tape and reel, 3000 per reel');
     await dialog.getByRole('button', { name: 'Create' }).click();
     const outcome = await Promise.race([
-      page.waitForURL(/\/vendor-parts\/\d+$/).then(() => 'created' as const, () => 'timeout' as const),
-      dialog.getByRole('alert').waitFor().then(() => 'refused' as const, () => 'timeout' as const),
+      page.waitForURL(/\/vendor-parts\/\d+$/).then(
+        () => 'created' as const,
+        () => 'timeout' as const,
+      ),
+      dialog
+        .getByRole('alert')
+        .waitFor()
+        .then(
+          () => 'refused' as const,
+          () => 'timeout' as const,
+        ),
     ]);
     if (outcome === 'refused') {
       // The part exists from an earlier run against the same stack: another ordering code.
@@ -102,7 +111,9 @@ describe('catalogue journey in Chromium', () => {
   });
 
   it('uploads the datasheet on the part: stored, read, shown beside the card', async () => {
-    await page.locator('input[type="file"][accept="application/pdf"]').setInputFiles({ name: 'brackenford-brz05-series.pdf', mimeType: 'application/pdf', buffer: freshCopy() });
+    await page
+      .locator('input[type="file"][accept="application/pdf"]')
+      .setInputFiles({ name: 'brackenford-brz05-series.pdf', mimeType: 'application/pdf', buffer: freshCopy() });
     const item = page.getByRole('listitem', { name: 'Upload of brackenford-brz05-series.pdf' });
     await expect.poll(() => item.getAttribute('data-status'), { timeout: 30_000 }).toBe('done');
     await expect.poll(() => item.getByTestId('extraction-summary').textContent(), POLL).toMatch(/^3 pages · 25 parts found/);

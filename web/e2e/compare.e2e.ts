@@ -4,7 +4,11 @@ import { BASE_URL, DEMO_PASSWORD, launchBrowser, newContext, screenshot, serious
 
 interface CompareAnswer {
   housePart: { id: number; partNumber: string };
-  sources: Array<{ vendorPart: { mpn: string }; evaluation: { checks: Array<{ id: string; limit: number | null }> } | null; powerLimit: { allowed: number | null } | null }>;
+  sources: Array<{
+    vendorPart: { mpn: string };
+    evaluation: { checks: Array<{ id: string; limit: number | null }> } | null;
+    powerLimit: { allowed: number | null } | null;
+  }>;
 }
 
 async function bearer(): Promise<string> {
@@ -30,7 +34,12 @@ async function findPart(): Promise<CompareAnswer> {
   for (const row of board.items) {
     if (row.housePart.specVersion === null) continue;
     const answer = await get<CompareAnswer>(`/qualification-views/compare/${row.housePart.id}`, token);
-    const limits = new Set(answer.sources.map((s) => s.powerLimit?.allowed).filter((x): x is number => typeof x === 'number').map((x) => x.toPrecision(3)));
+    const limits = new Set(
+      answer.sources
+        .map((s) => s.powerLimit?.allowed)
+        .filter((x): x is number => typeof x === 'number')
+        .map((x) => x.toPrecision(3)),
+    );
     if (limits.size >= 2) return answer;
   }
   throw new Error('no demo house part has two sources with different derated dissipation limits');
@@ -99,7 +108,9 @@ describe('Compare in Chromium: each part its own dissipation limit, tolerance ba
     const form = page.getByRole('form', { name: `Spec of ${part.housePart.partNumber}` });
     const vzMax = form.getByLabel(/^VZ max/);
     await vzMax.fill('5.4 kV');
-    await expect.poll(() => form.locator('[data-warning]').first().textContent()).toMatch(/5.40 kV is outside the usual range of regulator diodes \(1.80 V … 400 V\): did you mean 5.40 V\?/);
+    await expect
+      .poll(() => form.locator('[data-warning]').first().textContent())
+      .toMatch(/5.40 kV is outside the usual range of regulator diodes \(1.80 V … 400 V\): did you mean 5.40 V\?/);
     const share = form.getByLabel('Use at most');
     await share.fill('0.5');
     await share.blur();

@@ -35,7 +35,10 @@ describe('invitation in Chromium: admin invites, the mail arrives, the person se
       .poll(
         async () => {
           await admin.getByRole('button', { name: 'Refresh' }).click();
-          await mail.first().waitFor({ timeout: 2_000 }).catch(() => undefined);
+          await mail
+            .first()
+            .waitFor({ timeout: 2_000 })
+            .catch(() => undefined);
           return mail.count();
         },
         { timeout: 20_000 },

@@ -32,13 +32,23 @@ async function api<T>(method: string, path: string, bearer: string, body?: unkno
 /** A draft case for a demo alternate without a case that evaluates as a pass (opened through the API: the journey is the sign-off). */
 async function openDraftCase(): Promise<{ id: number; mpn: string }> {
   const bearer = await token('engineer@demo.test');
-  const board = await api<{ items: Array<{ housePart: { id: number; specVersion: number | null }; sources: Array<{ role: string; state: string }> }> }>('GET', '/qualification-views/board?pageSize=200&state=none', bearer);
+  const board = await api<{ items: Array<{ housePart: { id: number; specVersion: number | null }; sources: Array<{ role: string; state: string }> }> }>(
+    'GET',
+    '/qualification-views/board?pageSize=200&state=none',
+    bearer,
+  );
   for (const row of board.items) {
     if (row.housePart.specVersion === null || !row.sources.some((s) => s.role === 'alternate' && s.state === 'none')) continue;
-    const compare = await api<{ sources: Array<{ role: string; latestCase: unknown; evaluation: { overall: string } | null; vendorPart: { id: number; mpn: string } }> }>('GET', `/qualification-views/compare/${row.housePart.id}`, bearer);
+    const compare = await api<{
+      sources: Array<{ role: string; latestCase: unknown; evaluation: { overall: string } | null; vendorPart: { id: number; mpn: string } }>;
+    }>('GET', `/qualification-views/compare/${row.housePart.id}`, bearer);
     const source = compare.sources.find((s) => s.role === 'alternate' && s.latestCase === null && s.evaluation?.overall === 'pass');
     if (!source) continue;
-    const opened = await api<{ id: number }>('POST', '/qualifications', bearer, { housePartId: row.housePart.id, vendorPartId: source.vendorPart.id, summary: 'Second source, prepared for a keyboard-only sign-off.' });
+    const opened = await api<{ id: number }>('POST', '/qualifications', bearer, {
+      housePartId: row.housePart.id,
+      vendorPartId: source.vendorPart.id,
+      summary: 'Second source, prepared for a keyboard-only sign-off.',
+    });
     return { id: opened.id, mpn: source.vendorPart.mpn };
   }
   throw new Error('the demo catalogue has no alternate left without a case that evaluates as a pass: start from a fresh demo seed');

@@ -11,7 +11,11 @@ const FIXTURE = join(new URL('.', import.meta.url).pathname, '..', '..', 'test-f
 const POLL = { timeout: 15_000 };
 
 async function vendorPartId(mpn: string): Promise<number> {
-  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'engineer@demo.test', password: DEMO_PASSWORD }) });
+  const login = await fetch(`${BASE_URL}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email: 'engineer@demo.test', password: DEMO_PASSWORD }),
+  });
   const { accessToken } = (await login.json()) as { accessToken: string };
   const list = await fetch(`${BASE_URL}/api/vendor-parts?mpn=${encodeURIComponent(mpn)}`, { headers: { Authorization: `Bearer ${accessToken}` } });
   const body = (await list.json()) as { items: Array<{ id: number; mpn: string }> };

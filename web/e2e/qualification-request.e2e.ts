@@ -51,11 +51,13 @@ async function findTargets(count: number): Promise<Array<{ part: Part; housePart
     choices.push({ id: h.id, partNumber: h.partNumber, nom: spec.spec.vz.nom, packages: spec.spec.packages });
   }
   const search = await get<{
-    items: Array<{ vendorPart: { id: number; manufacturer: string; mpn: string; package: string | null }; card: { vzNom: number } | null; cleared: boolean; qualificationOpen: boolean }>;
-  }>(
-    '/search?includeNotCleared=true&pageSize=100&sort=vzNom',
-    designer,
-  );
+    items: Array<{
+      vendorPart: { id: number; manufacturer: string; mpn: string; package: string | null };
+      card: { vzNom: number } | null;
+      cleared: boolean;
+      qualificationOpen: boolean;
+    }>;
+  }>('/search?includeNotCleared=true&pageSize=100&sort=vzNom', designer);
   const found: Array<{ part: Part; housePart: HousePartChoice }> = [];
   for (const item of search.items) {
     if (item.cleared || item.qualificationOpen || !item.card || sources.has(item.vendorPart.id) || askedFor.has(item.vendorPart.id)) continue;
@@ -122,9 +124,11 @@ describe('asking for a qualification in Chromium: the designer asks, an engineer
     // the note is required: nothing is sent without it
     await dialog.getByRole('button', { name: 'Send the request' }).click();
     await dialog.getByText('Say what it is for: the design, why this part, by when').waitFor();
-    await dialog.getByRole('textbox', { name: /What it is for/ }).fill(
-      `Clamp for the new field transmitter, board rev C. The ${asked.part.mpn} is in stock at our distributor and costs less; 2 000 pieces a year from the pilot run on.`,
-    );
+    await dialog
+      .getByRole('textbox', { name: /What it is for/ })
+      .fill(
+        `Clamp for the new field transmitter, board rev C. The ${asked.part.mpn} is in stock at our distributor and costs less; 2 000 pieces a year from the pilot run on.`,
+      );
     await dialog.getByLabel('Needed by').fill('2099-03-31');
     await shot(page, 'qualification-request-2-ask-dialog');
     await dialog.getByRole('button', { name: 'Send the request' }).click();
@@ -170,7 +174,9 @@ describe('asking for a qualification in Chromium: the designer asks, an engineer
     caseId = Number(new URL(page.url()).pathname.split('/').pop());
     await page.getByRole('table', { name: 'Checks' }).waitFor();
     const notes = page.getByRole('region', { name: 'Notes' });
-    await expect.poll(() => notes.innerText()).toContain(`Asked for by Lena Okafor in request #${requestId}, needed by 2099-03-31: Clamp for the new field transmitter`);
+    await expect
+      .poll(() => notes.innerText())
+      .toContain(`Asked for by Lena Okafor in request #${requestId}, needed by 2099-03-31: Clamp for the new field transmitter`);
     expect(await page.getByRole('region', { name: 'Sign-off' }).locator('[data-state]').first().getAttribute('data-state')).toBe('draft');
     await shot(page, 'qualification-request-6-case-draft');
 
@@ -221,7 +227,9 @@ describe('asking for a qualification in Chromium: the designer asks, an engineer
     const requestId = Number((await pending.getAttribute('aria-label'))!.match(/#(\d+)/)![1]);
     await pending.getByRole('button', { name: `Decline request #${requestId}` }).click();
     const dialog = engineer.page.getByRole('dialog', { name: `Decline request #${requestId}` });
-    await dialog.getByRole('textbox', { name: /Reply to Lena Okafor/ }).fill(`The vendor has announced the end of life of this series; ask for an approved part of ${declined.housePart.partNumber} instead.`);
+    await dialog
+      .getByRole('textbox', { name: /Reply to Lena Okafor/ })
+      .fill(`The vendor has announced the end of life of this series; ask for an approved part of ${declined.housePart.partNumber} instead.`);
     await shot(engineer.page, 'qualification-request-8-decline-dialog');
     await dialog.getByRole('button', { name: 'Decline the request' }).click();
     await dialog.waitFor({ state: 'hidden' });
@@ -241,13 +249,20 @@ describe('asking for a qualification in Chromium: the designer asks, an engineer
     // the outbox captured what the designer was sent
     const admin = await signedIn(browser, 'admin@demo.test');
     await admin.page.getByRole('navigation').getByRole('link', { name: 'Outbox', exact: true }).click();
-    const takenUp = admin.page.getByRole('article', { name: new RegExp(`^Your request #\\d+ was taken up: case #${caseId} \\(${asked.part.mpn} for ${asked.housePart.partNumber}\\)$`) });
-    const refused = admin.page.getByRole('article', { name: `Your request #${requestId} was declined: ${declined.part.manufacturer} ${declined.part.mpn} for ${declined.housePart.partNumber}` });
+    const takenUp = admin.page.getByRole('article', {
+      name: new RegExp(`^Your request #\\d+ was taken up: case #${caseId} \\(${asked.part.mpn} for ${asked.housePart.partNumber}\\)$`),
+    });
+    const refused = admin.page.getByRole('article', {
+      name: `Your request #${requestId} was declined: ${declined.part.manufacturer} ${declined.part.mpn} for ${declined.housePart.partNumber}`,
+    });
     await expect
       .poll(
         async () => {
           await admin.page.getByRole('button', { name: 'Refresh' }).click();
-          await refused.first().waitFor({ timeout: 2_000 }).catch(() => undefined);
+          await refused
+            .first()
+            .waitFor({ timeout: 2_000 })
+            .catch(() => undefined);
           return (await takenUp.count()) + (await refused.count());
         },
         { timeout: 30_000 },

@@ -33,18 +33,31 @@ async function get<T>(path: string, bearer: string): Promise<T> {
  */
 async function findTarget(): Promise<Target> {
   const bearer = await token('engineer@demo.test');
-  const board = await get<{ items: Array<{ housePart: { id: number; partNumber: string; specVersion: number | null }; sources: Array<{ role: string; state: string; vendorPart: { id: number } }> }> }>(
-    '/qualification-views/board?pageSize=200&state=none',
-    bearer,
-  );
+  const board = await get<{
+    items: Array<{
+      housePart: { id: number; partNumber: string; specVersion: number | null };
+      sources: Array<{ role: string; state: string; vendorPart: { id: number } }>;
+    }>;
+  }>('/qualification-views/board?pageSize=200&state=none', bearer);
   for (const row of board.items) {
     if (row.housePart.specVersion === null || !row.sources.some((s) => s.role === 'alternate' && s.state === 'none')) continue;
-    const compare = await get<{ sources: Array<{ role: string; latestCase: unknown; evaluation: { overall: string } | null; vendorPart: { id: number; manufacturer: string; mpn: string } }> }>(
-      `/qualification-views/compare/${row.housePart.id}`,
-      bearer,
-    );
+    const compare = await get<{
+      sources: Array<{
+        role: string;
+        latestCase: unknown;
+        evaluation: { overall: string } | null;
+        vendorPart: { id: number; manufacturer: string; mpn: string };
+      }>;
+    }>(`/qualification-views/compare/${row.housePart.id}`, bearer);
     const source = compare.sources.find((s) => s.role === 'alternate' && s.latestCase === null && s.evaluation?.overall === 'pass');
-    if (source) return { housePartId: row.housePart.id, partNumber: row.housePart.partNumber, vendorPartId: source.vendorPart.id, manufacturer: source.vendorPart.manufacturer, mpn: source.vendorPart.mpn };
+    if (source)
+      return {
+        housePartId: row.housePart.id,
+        partNumber: row.housePart.partNumber,
+        vendorPartId: source.vendorPart.id,
+        manufacturer: source.vendorPart.manufacturer,
+        mpn: source.vendorPart.mpn,
+      };
   }
   throw new Error('the demo catalogue has no alternate left without a case that evaluates as a pass: start from a fresh demo seed');
 }
@@ -87,7 +100,9 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     await screenshot(page, 'qualification-1-board');
 
     await page.getByRole('button', { name: /^In review: / }).click();
-    await expect.poll(() => board.locator('tbody [data-state]').evaluateAll((els) => [...new Set(els.map((e) => e.getAttribute('data-state')))])).toEqual(['in-review']);
+    await expect
+      .poll(() => board.locator('tbody [data-state]').evaluateAll((els) => [...new Set(els.map((e) => e.getAttribute('data-state')))]))
+      .toEqual(['in-review']);
     await screenshot(page, 'qualification-2-board-in-review');
 
     await page.goto(`/compare/${target.housePartId}`);
@@ -130,7 +145,9 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     // The server refuses the preparer's own clearance too, in plain words.
     const bearer = await token('engineer@demo.test');
     const id = Number(caseUrl.split('/').pop());
-    const seen = (await (await fetch(`${BASE_URL}/api/qualifications/${id}`, { headers: { Authorization: `Bearer ${bearer}` } })).json()) as { version: number };
+    const seen = (await (await fetch(`${BASE_URL}/api/qualifications/${id}`, { headers: { Authorization: `Bearer ${bearer}` } })).json()) as {
+      version: number;
+    };
     const refused = await fetch(`${BASE_URL}/api/qualifications/${id}/clear`, {
       method: 'POST',
       headers: { Authorization: `Bearer ${bearer}`, 'Content-Type': 'application/json' },
@@ -147,7 +164,9 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     await page.getByRole('link', { name: `#${caseUrl.split('/').pop()}`, exact: true }).click();
     await page.waitForURL(new RegExp(`${caseUrl}$`));
     const actions = page.getByRole('group', { name: 'Actions on this case' });
-    await expect.poll(() => actions.getByRole('button').allTextContents()).toEqual(['Approve as approved source', 'Clear', 'Clear with conditions', 'Reject', 'Send back to draft']);
+    await expect
+      .poll(() => actions.getByRole('button').allTextContents())
+      .toEqual(['Approve as approved source', 'Clear', 'Clear with conditions', 'Reject', 'Send back to draft']);
     await screenshot(page, 'qualification-7-in-review-reviewer');
 
     await actions.getByRole('button', { name: 'Clear', exact: true }).click();
@@ -171,7 +190,9 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
     await page.getByRole('textbox', { name: 'House part' }).fill(target.partNumber);
     const row = page.locator(`tr[data-source="${target.partNumber}/${target.mpn}"]`);
     // The filter is the server's: wait until only that house part's sources are listed.
-    await expect.poll(() => page.locator('tr[data-source]').evaluateAll((rows) => [...new Set(rows.map((r) => r.getAttribute('data-source')!.split('/')[0]))])).toEqual([target.partNumber]);
+    await expect
+      .poll(() => page.locator('tr[data-source]').evaluateAll((rows) => [...new Set(rows.map((r) => r.getAttribute('data-source')!.split('/')[0]))]))
+      .toEqual([target.partNumber]);
     expect(await row.locator('[data-state]').getAttribute('data-state')).toBe('cleared');
     expect(await row.textContent()).toContain('Tomas Eklund');
     expect(await row.textContent()).toContain('Equivalent on every check');
@@ -179,7 +200,9 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
 
     // The mail's link opens Sources on that house part alone.
     await page.goto(`/sources?housePartId=${target.housePartId}`);
-    await expect.poll(() => page.locator('tr[data-source]').evaluateAll((rows) => [...new Set(rows.map((r) => r.getAttribute('data-source')!.split('/')[0]))])).toEqual([target.partNumber]);
+    await expect
+      .poll(() => page.locator('tr[data-source]').evaluateAll((rows) => [...new Set(rows.map((r) => r.getAttribute('data-source')!.split('/')[0]))]))
+      .toEqual([target.partNumber]);
     expect(errors).toEqual([]);
   });
 
@@ -192,7 +215,10 @@ describe('qualification in Chromium: engineer A prepares, engineer B clears, the
       .poll(
         async () => {
           await page.getByRole('button', { name: 'Refresh' }).click();
-          await mail.first().waitFor({ timeout: 2_000 }).catch(() => undefined);
+          await mail
+            .first()
+            .waitFor({ timeout: 2_000 })
+            .catch(() => undefined);
           return mail.count();
         },
         { timeout: 30_000 },

@@ -29,7 +29,16 @@ describe('app shell in Chromium', () => {
     await page.getByLabel(/e-?mail/i).fill('engineer@demo.test');
     await page.getByLabel(/password/i).fill('not-the-password');
     await page.getByRole('button', { name: /sign in/i }).click();
-    await expect.poll(() => page.getByRole('alert').filter({ hasText: /do not match/i }).count(), { timeout: 15_000 }).toBe(1);
+    await expect
+      .poll(
+        () =>
+          page
+            .getByRole('alert')
+            .filter({ hasText: /do not match/i })
+            .count(),
+        { timeout: 15_000 },
+      )
+      .toBe(1);
     expect(page.url()).toMatch(/\/sign-in/);
     await screenshot(page, 'shell-sign-in-refused');
     await context.close();
@@ -73,7 +82,14 @@ describe('app shell in Chromium', () => {
         }
       } else {
         // One screen: its page at full width, the account in the header, no sidebar.
-        await expect.poll(() => page.getByRole('heading', { name: expected[0], level: 1 }).or(page.getByRole('heading', { name: expected[0] })).count()).toBeGreaterThan(0);
+        await expect
+          .poll(() =>
+            page
+              .getByRole('heading', { name: expected[0], level: 1 })
+              .or(page.getByRole('heading', { name: expected[0] }))
+              .count(),
+          )
+          .toBeGreaterThan(0);
         expect(await page.getByRole('navigation', { name: 'Main navigation' }).count()).toBe(0);
         expect(await page.getByRole('group', { name: 'Account' }).count()).toBe(1);
       }
@@ -105,7 +121,10 @@ describe('app shell in Chromium', () => {
 
   async function settle(page: import('playwright-core').Page) {
     await page.waitForLoadState('networkidle').catch(() => undefined);
-    await expect.poll(() => page.locator('.mantine-Loader-root').count(), { timeout: 15_000 }).toBe(0).catch(() => undefined);
+    await expect
+      .poll(() => page.locator('.mantine-Loader-root').count(), { timeout: 15_000 })
+      .toBe(0)
+      .catch(() => undefined);
   }
 
   async function audit(page: import('playwright-core').Page, name: string, findings: string[]) {

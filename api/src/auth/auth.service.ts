@@ -63,7 +63,11 @@ export class AuthService {
       const existing = await this.users.findByEmail(invitation.email, transaction);
       if (existing) {
         // Re-invited person (e.g. never finished before): set the password, keep the id.
-        return this.users.saveUser(existing, { name: request.name, passwordHash, role: invitation.role, active: true, tokenVersion: existing.tokenVersion + 1 }, transaction);
+        return this.users.saveUser(
+          existing,
+          { name: request.name, passwordHash, role: invitation.role, active: true, tokenVersion: existing.tokenVersion + 1 },
+          transaction,
+        );
       }
       return this.users.create({ email: invitation.email, name: request.name, role: invitation.role, passwordHash }, transaction);
     });

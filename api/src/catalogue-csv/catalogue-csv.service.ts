@@ -100,10 +100,13 @@ export class CatalogueCsvService {
     } catch (error) {
       if (error instanceof StaleCardError) {
         const row = rows.find((r) => r.vendorPartId === error.vendorPartId);
-        throw new StaleConflictException(`A card was added to ${row?.mpn ?? `vendor part ${error.vendorPartId}`} since the preview (now version ${error.currentVersion}): preview again. Nothing was imported.`, {
-          current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
-          errors: row ? [{ path: `row ${row.row}`, message: `card is now at version ${error.currentVersion}` }] : undefined,
-        });
+        throw new StaleConflictException(
+          `A card was added to ${row?.mpn ?? `vendor part ${error.vendorPartId}`} since the preview (now version ${error.currentVersion}): preview again. Nothing was imported.`,
+          {
+            current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
+            errors: row ? [{ path: `row ${row.row}`, message: `card is now at version ${error.currentVersion}` }] : undefined,
+          },
+        );
       }
       throw error;
     }
@@ -119,7 +122,10 @@ export class CatalogueCsvService {
       throw error;
     }
     if (request.datasheetId && !(await this.datasheets.exists(request.datasheetId))) {
-      throw new BadRequestException({ message: `No datasheet with id ${request.datasheetId}`, errors: [{ path: 'datasheetId', message: 'no such datasheet' }] });
+      throw new BadRequestException({
+        message: `No datasheet with id ${request.datasheetId}`,
+        errors: [{ path: 'datasheetId', message: 'no such datasheet' }],
+      });
     }
     const keyed = series.rows.filter((r) => r.manufacturer && r.mpn);
     const existing = await this.vendorParts.findByNames(keyed.map((r) => ({ manufacturer: r.manufacturer!, mpn: r.mpn! })));

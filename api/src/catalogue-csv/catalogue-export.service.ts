@@ -1,6 +1,15 @@
 import { Readable } from 'node:stream';
 import { Injectable } from '@nestjs/common';
-import { CARD_FIELD_KINDS, CARD_FIELD_WORDS, CARD_FIELDS, roundToStated, SI_UNIT, type PlainCardField, type RatingCardFields, type TcValue } from '@shuntwise/contracts';
+import {
+  CARD_FIELD_KINDS,
+  CARD_FIELD_WORDS,
+  CARD_FIELDS,
+  roundToStated,
+  SI_UNIT,
+  type PlainCardField,
+  type RatingCardFields,
+  type TcValue,
+} from '@shuntwise/contracts';
 import { HousePartsRepository } from '../house-parts/house-parts.repository';
 import { RatingCardsRepository, type CardExportRow } from '../vendor-parts/rating-cards.repository';
 import { csvExportStringifier } from '../common/csv/csv-export';
@@ -79,7 +88,17 @@ export class CatalogueExportService {
       const list = byPart.get(p.id) ?? [];
       if (list.length === 0) rows.push([...own, '', '', '', '', '', '', '', '']);
       for (const s of list) {
-        rows.push([...own, s.role, s.manufacturer, s.mpn, s.package ?? '', s.lifecycleNote ?? '', s.cardVersion ?? '', s.note ?? '', new Date(s.createdAt).toISOString().slice(0, 10)]);
+        rows.push([
+          ...own,
+          s.role,
+          s.manufacturer,
+          s.mpn,
+          s.package ?? '',
+          s.lifecycleNote ?? '',
+          s.cardVersion ?? '',
+          s.note ?? '',
+          new Date(s.createdAt).toISOString().slice(0, 10),
+        ]);
       }
     }
     return Readable.from(rows).pipe(csvExportStringifier());

@@ -45,7 +45,13 @@ describe('parseSeriesCsv', () => {
   });
 
   it('names the row and column of every problem and never guesses a unit', () => {
-    const csv = ['mpn,vzNom,izt,zzt,lifecycleNote', 'D-1,5.1,5,40 ohm,', 'D-2,5.1 V,5 mA,40 V,', `D-3,5.1 V,5 mA,,${'x'.repeat(501)}`, 'D-4,5.1 V,5 mA,,,extra'].join('\n');
+    const csv = [
+      'mpn,vzNom,izt,zzt,lifecycleNote',
+      'D-1,5.1,5,40 ohm,',
+      'D-2,5.1 V,5 mA,40 V,',
+      `D-3,5.1 V,5 mA,,${'x'.repeat(501)}`,
+      'D-4,5.1 V,5 mA,,,extra',
+    ].join('\n');
     const { rows } = parseSeriesCsv(csv, { manufacturer: 'M' });
     expect(rows.flatMap((r) => r.errors.map((e) => `${e.row}:${e.column}`))).toEqual(['2:vzNom', '2:izt', '3:zzt', '4:lifecycleNote', '5:(row)']);
     expect(rows[0].errors[0].message).toBe('cannot read "5.1" as a voltage (e.g. 5.1 V, 500 mV) (no unit given)');
@@ -66,7 +72,8 @@ describe('parseSeriesCsv', () => {
   });
 
   it('reads the headers in words the card export writes exactly as the short names', () => {
-    const words = 'Manufacturer part number,Zener voltage nominal (V),Test current (mA),Dynamic impedance at test current (ohm),Temperature coefficient,Temperature coefficient converted (V/K),Unconfirmed fields\nW-1,5.1,5,40,-1.4 mV/K,-0.0014,Test current';
+    const words =
+      'Manufacturer part number,Zener voltage nominal (V),Test current (mA),Dynamic impedance at test current (ohm),Temperature coefficient,Temperature coefficient converted (V/K),Unconfirmed fields\nW-1,5.1,5,40,-1.4 mV/K,-0.0014,Test current';
     const short = 'mpn,vzNom (V),izt (mA),zzt (ohm),tc,tcVoltsPerKelvin (V/K),unconfirmedFields\nW-1,5.1,5,40,-1.4 mV/K,-0.0014,izt';
     const a = parseSeriesCsv(words, { manufacturer: 'M' });
     const b = parseSeriesCsv(short, { manufacturer: 'M' });

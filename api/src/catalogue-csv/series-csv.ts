@@ -93,7 +93,10 @@ export function parseSeriesCsv(text: string, defaults: { manufacturer?: string; 
   try {
     records = parse(text, { bom: true, delimiter: [',', ';', '\t'], relax_column_count: true, skip_empty_lines: true, trim: true, info: true }) as never;
   } catch (error) {
-    if (error instanceof CsvError) throw new SeriesCsvError(`The CSV cannot be read near line ${(error as CsvError & { lines?: number }).lines ?? '?'}: ${error.message.replace(/^Invalid [^:]*: /, '')}`);
+    if (error instanceof CsvError)
+      throw new SeriesCsvError(
+        `The CSV cannot be read near line ${(error as CsvError & { lines?: number }).lines ?? '?'}: ${error.message.replace(/^Invalid [^:]*: /, '')}`,
+      );
     throw error;
   }
   // A cell our export neutralised against formula injection reads back as written.
@@ -121,7 +124,8 @@ export function parseSeriesCsv(text: string, defaults: { manufacturer?: string; 
     }
   }
   if (!seen.has('mpn')) throw new SeriesCsvError('The CSV needs an mpn column (the manufacturer part number)');
-  if (!seen.has('manufacturer') && !defaults.manufacturer) throw new SeriesCsvError('Name the manufacturer: a manufacturer column, or the manufacturer for the whole file');
+  if (!seen.has('manufacturer') && !defaults.manufacturer)
+    throw new SeriesCsvError('Name the manufacturer: a manufacturer column, or the manufacturer for the whole file');
   const byField = new Map(columns.filter((c) => c.field).map((c) => [c.field!, c]));
 
   const rows: SeriesRow[] = [];
@@ -153,7 +157,8 @@ export function parseSeriesCsv(text: string, defaults: { manufacturer?: string; 
     const mpn = identity('mpn', mpnSchema, true);
     const pkg = identity('package', packageSchema, false);
     const lifecycleNote = cell('lifecycleNote') || null;
-    if (lifecycleNote && lifecycleNote.length > 500) errors.push({ row, column: columnOf('lifecycleNote'), message: `${lifecycleNote.length} characters; at most 500` });
+    if (lifecycleNote && lifecycleNote.length > 500)
+      errors.push({ row, column: columnOf('lifecycleNote'), message: `${lifecycleNote.length} characters; at most 500` });
     let page: number | null = null;
     if (cell('page')) {
       page = Number(cell('page'));
@@ -214,7 +219,8 @@ function readTc(text: string, column: SeriesColumn): { value: number; unit: 'mV/
   const unitInCell = text.replace(/^\s*[+\-−]?[\d.]+(?:[eE][+-]?\d+)?\s*/, '');
   const unit = unitInCell || column.unit;
   const kind = unit ? kindOfUnit(unit) : undefined;
-  if (kind === 'tempCoPercent') return { value: parseQuantity(text, 'tempCoPercent', { field: column.header, defaultUnit: column.unit ?? undefined }), unit: '%/K' };
+  if (kind === 'tempCoPercent')
+    return { value: parseQuantity(text, 'tempCoPercent', { field: column.header, defaultUnit: column.unit ?? undefined }), unit: '%/K' };
   const vPerK = parseQuantity(text, 'tempCoVoltage', { field: column.header, defaultUnit: column.unit ?? undefined });
   return { value: Number((vPerK * 1e3).toPrecision(12)), unit: 'mV/K' };
 }

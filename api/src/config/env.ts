@@ -27,14 +27,22 @@ export const envSchema = z.object({
     .string()
     .regex(/^[^\s,:]+:\d{1,5}(,[^\s,:]+:\d{1,5})*$/, 'host:port,host:port,…')
     .optional(),
-  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('shuntwise'),
+  DB_NAME: z
+    .string()
+    .regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only')
+    .default('shuntwise'),
   DB_USER: z.string().default('shuntwise'),
   DB_PASSWORD: z.string().min(1),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   DB_LOGGING: bool.default(false),
 
   JWT_SECRET: z.string().min(32, 'at least 32 characters'),
-  JWT_TTL_SECONDS: z.coerce.number().int().min(60).max(7 * 24 * 3600).default(8 * 3600),
+  JWT_TTL_SECONDS: z.coerce
+    .number()
+    .int()
+    .min(60)
+    .max(7 * 24 * 3600)
+    .default(8 * 3600),
   JWT_ISSUER: z.string().default('shuntwise'),
   JWT_AUDIENCE: z.string().default('shuntwise-web'),
 
@@ -57,12 +65,24 @@ export const envSchema = z.object({
     .transform((v): boolean | number | string => (v === 'false' || v === '' || v === '0' ? false : v === 'true' ? true : /^\d+$/.test(v) ? Number(v) : v)),
   /** Send Strict-Transport-Security (only when the site is served over TLS; off by default for loopback). */
   HSTS: bool.default(false),
-  HSTS_MAX_AGE_SECONDS: z.coerce.number().int().min(0).default(180 * 24 * 3600),
-  INVITATION_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
+  HSTS_MAX_AGE_SECONDS: z.coerce
+    .number()
+    .int()
+    .min(0)
+    .default(180 * 24 * 3600),
+  INVITATION_TTL_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 30)
+    .default(72),
 
   S3_ENDPOINT: z.url().optional(),
   S3_REGION: z.string().default('local'),
-  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{2,62}$/, 'an S3 bucket name').default('shuntwise-datasheets'),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{2,62}$/, 'an S3 bucket name')
+    .default('shuntwise-datasheets'),
   S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
   S3_FAKE_PORT: port.default(4569),
@@ -80,7 +100,11 @@ export const envSchema = z.object({
   /** Outbox claims: how long a replica holds the messages it took before another may take them (seconds). */
   MAIL_CLAIM_SECONDS: z.coerce.number().min(1).max(3600).default(120),
 
-  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
+  UPLOAD_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(20 * 1024 * 1024),
   // Datasheet reading runs in a child process, killed past these limits per file (api/src/extraction-worker).
   EXTRACTION_TIME_LIMIT_SECONDS: z.coerce.number().min(1).max(3600).default(20),
   EXTRACTION_MEMORY_LIMIT_MB: z.coerce.number().int().min(128).max(65536).default(1024),

@@ -62,7 +62,8 @@ export class DatasheetUploadInterceptor implements NestInterceptor {
           errors: [{ path: 'file', message: 'file name or part header contains characters a header cannot carry' }],
         });
       }
-      if (/multipart|boundary|unexpected end|malformed/i.test(message)) return new BadRequestException(`The upload is not a complete multipart form (${message}); send the ${this.fileWord} in the field "file"`);
+      if (/multipart|boundary|unexpected end|malformed/i.test(message))
+        return new BadRequestException(`The upload is not a complete multipart form (${message}); send the ${this.fileWord} in the field "file"`);
       return error;
     }
     switch (error.code) {

@@ -5,7 +5,14 @@ import { CurrentUser, type AuthUser } from '../common/decorators/current-user.de
 import { AnyRole, Roles } from '../common/decorators/roles.decorator';
 import { RateLimit } from '../rate-limits/rate-limit.decorator';
 import { DatasheetUploadInterceptor } from './datasheet-upload.interceptor';
-import { CreateVariantsDto, CreateVariantsResponseDto, DatasheetDto, ExtractionResultDto, UploadDatasheetFieldsDto, UploadDatasheetResponseDto } from './datasheets.dto';
+import {
+  CreateVariantsDto,
+  CreateVariantsResponseDto,
+  DatasheetDto,
+  ExtractionResultDto,
+  UploadDatasheetFieldsDto,
+  UploadDatasheetResponseDto,
+} from './datasheets.dto';
 import { DatasheetsService } from './datasheets.service';
 
 @ApiTags('datasheets')
@@ -27,7 +34,12 @@ export class DatasheetsController {
     },
   })
   @ApiCreatedResponse({ type: UploadDatasheetResponseDto, description: 'stored; 200 with existing: true when the same file was already stored' })
-  async upload(@UploadedFile() file: Express.Multer.File | undefined, @Body() fields: UploadDatasheetFieldsDto, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response) {
+  async upload(
+    @UploadedFile() file: Express.Multer.File | undefined,
+    @Body() fields: UploadDatasheetFieldsDto,
+    @CurrentUser() user: AuthUser,
+    @Res({ passthrough: true }) res: Response,
+  ) {
     const result = await this.datasheets.upload(file && { buffer: file.buffer, originalName: file.originalname }, fields, user);
     res.status(result.existing ? 200 : 201);
     return result;

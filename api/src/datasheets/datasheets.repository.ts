@@ -25,11 +25,17 @@ export class DatasheetsRepository {
     return this.datasheets.findOne({ where: { sha256 }, transaction });
   }
 
-  create(values: Pick<Datasheet, 'storageKey' | 'sha256' | 'fileName' | 'sizeBytes' | 'pages' | 'revision' | 'uploadedById'>, transaction: Transaction): Promise<Datasheet> {
+  create(
+    values: Pick<Datasheet, 'storageKey' | 'sha256' | 'fileName' | 'sizeBytes' | 'pages' | 'revision' | 'uploadedById'>,
+    transaction: Transaction,
+  ): Promise<Datasheet> {
     return this.datasheets.create(values, { transaction });
   }
 
-  async createExtraction(values: { datasheetId: number; result: unknown; variantCount: number; warningCount: number }, transaction: Transaction): Promise<void> {
+  async createExtraction(
+    values: { datasheetId: number; result: unknown; variantCount: number; warningCount: number },
+    transaction: Transaction,
+  ): Promise<void> {
     await this.extractions.create(values, { transaction });
   }
 

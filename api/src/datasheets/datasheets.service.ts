@@ -75,7 +75,10 @@ export class DatasheetsService {
   async upload(file: UploadedPdf | undefined, fields: UploadDatasheetFields, user: AuthUser): Promise<UploadDatasheetResponse> {
     if (!file) throw new BadRequestException('No file: send the PDF in the multipart field "file"');
     if (fields.vendorPartId !== undefined && !(await this.vendorParts.findById(fields.vendorPartId))) {
-      throw new BadRequestException({ message: `No vendor part with id ${fields.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
+      throw new BadRequestException({
+        message: `No vendor part with id ${fields.vendorPartId}`,
+        errors: [{ path: 'vendorPartId', message: 'no such vendor part' }],
+      });
     }
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const known = await this.datasheets.findBySha256(sha256);
@@ -87,7 +90,15 @@ export class DatasheetsService {
     let stored = false;
     try {
       const row = await this.datasheets.create(
-        { storageKey: key, sha256, fileName: safeFileName(file.originalName), sizeBytes: file.buffer.byteLength, pages: extraction.pages, revision: fields.revision ?? null, uploadedById: user.id },
+        {
+          storageKey: key,
+          sha256,
+          fileName: safeFileName(file.originalName),
+          sizeBytes: file.buffer.byteLength,
+          pages: extraction.pages,
+          revision: fields.revision ?? null,
+          uploadedById: user.id,
+        },
         transaction,
       );
       await this.datasheets.createExtraction(
@@ -177,33 +188,46 @@ export class DatasheetsService {
    * part (found by manufacturer and mpn, or created), linked to the datasheet, with its
    * first card. A part that already has a card is refused (409), never overwritten.
    */
-  async createVariants(datasheetId: number, request: Omit<CreateVariantsRequest, 'variants'> & { variants: Array<Omit<DatasheetVariantInput, 'fields'> & { fields: RatingCardFieldsParsed }> }, user: AuthUser): Promise<CreateVariantsResponse> {
+  async createVariants(
+    datasheetId: number,
+    request: Omit<CreateVariantsRequest, 'variants'> & { variants: Array<Omit<DatasheetVariantInput, 'fields'> & { fields: RatingCardFieldsParsed }> },
+    user: AuthUser,
+  ): Promise<CreateVariantsResponse> {
     if (!(await this.exists(datasheetId))) throw new NotFoundException(`No datasheet with id ${datasheetId}`);
     return this.unitOfWork.run(async (transaction) => {
-        const vendorParts: CreateVariantsResponse['vendorParts'] = [];
-        for (const [i, variant] of request.variants.entries()) {
-          const { part, created } = await this.vendorPartsService.findOrCreateIn(
-            { manufacturer: request.manufacturer, mpn: variant.mpn, package: variant.package, lifecycleNote: variant.lifecycleNote },
+      const vendorParts: CreateVariantsResponse['vendorParts'] = [];
+      for (const [i, variant] of request.variants.entries()) {
+        const { part, created } = await this.vendorPartsService.findOrCreateIn(
+          { manufacturer: request.manufacturer, mpn: variant.mpn, package: variant.package, lifecycleNote: variant.lifecycleNote },
+          user,
+          transaction,
+        );
+        await this.linkVendorPart(part.id, datasheetId, user, transaction);
+        let card;
+        try {
+          card = await this.cards.write(
+            part.id,
+            { baseVersion: 0, fields: variant.fields, note: `from datasheet ${datasheetId}` },
             user,
             transaction,
+            `variants.${i}.fields`,
           );
-          await this.linkVendorPart(part.id, datasheetId, user, transaction);
-          let card;
-          try {
-            card = await this.cards.write(part.id, { baseVersion: 0, fields: variant.fields, note: `from datasheet ${datasheetId}` }, user, transaction, `variants.${i}.fields`);
-          } catch (error) {
-            if (error instanceof StaleCardError) {
-              throw new StaleConflictException(`${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`, {
+        } catch (error) {
+          if (error instanceof StaleCardError) {
+            throw new StaleConflictException(
+              `${request.manufacturer} ${variant.mpn} already has a card (version ${error.currentVersion}): edit it on the vendor part instead. Nothing was saved.`,
+              {
                 current: { version: error.currentVersion, vendorPartId: error.vendorPartId },
                 errors: [{ path: `variants.${i}.mpn`, message: `already has card version ${error.currentVersion}` }],
-              });
-            }
-            throw error;
+              },
+            );
           }
-          vendorParts.push({ vendorPartId: part.id, mpn: part.mpn, created, cardVersion: card.version });
+          throw error;
         }
-        return { datasheetId, vendorParts };
-      });
+        vendorParts.push({ vendorPartId: part.id, mpn: part.mpn, created, cardVersion: card.version });
+      }
+      return { datasheetId, vendorParts };
+    });
   }
 
   private async existing(row: Datasheet, fields: UploadDatasheetFields, user: AuthUser): Promise<UploadDatasheetResponse> {
@@ -253,7 +277,10 @@ function summary(row: Datasheet): Omit<UploadDatasheetResponse, 'existing'> {
 export function safeFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
   // Control characters, quotes and the bidirectional controls (which can make "fdp.exe" read as "exe.pdf") go.
-  // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f-\u009f"\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, '').trim().slice(0, 255);
+  const clean = base
+    // eslint-disable-next-line no-control-regex
+    .replace(/[\u0000-\u001f\u007f-\u009f"\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, '')
+    .trim()
+    .slice(0, 255);
   return clean || 'datasheet.pdf';
 }

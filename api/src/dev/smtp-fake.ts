@@ -23,7 +23,7 @@ export async function startSmtpFake(options: { port: number; onMessage: (mail: R
         .then(async (parsed) => {
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address.toLowerCase());
           await options.onMessage({
-            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : addresses(parsed.from)[0] ?? '',
+            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : (addresses(parsed.from)[0] ?? ''),
             to: envelopeTo.length ? envelopeTo : addresses(parsed.to),
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',

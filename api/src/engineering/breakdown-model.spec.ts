@@ -1,13 +1,6 @@
 import fc from 'fast-check';
 import type { EngineeringCard } from '@shuntwise/contracts';
-import {
-  currentAtVoltage,
-  diodeVoltage,
-  dynamicImpedance,
-  fitBreakdownModel,
-  kneeRatio,
-  voltageSpan,
-} from './breakdown-model';
+import { currentAtVoltage, diodeVoltage, dynamicImpedance, fitBreakdownModel, kneeRatio, voltageSpan } from './breakdown-model';
 import { EngineeringInputError } from './engineering-input.error';
 import { cardArbitrary, logUniform } from './testing/card-arbitraries';
 
@@ -84,10 +77,17 @@ describe('fitting the SPICE reverse-breakdown law V = BV + NBV·Vt·ln(I/IBV) + 
 describe('properties of the fitted law (fast-check)', () => {
   it('V(I) is strictly increasing at any junction temperature and tolerance corner', () => {
     fc.assert(
-      fc.property(cardArbitrary, logUniform(1e-5, 0.5), logUniform(1.0001, 100), fc.double({ min: -55, max: 175, noNaN: true }), corners, (card, i, ratio, tj, corner) => {
-        const model = fitBreakdownModel(card);
-        expect(diodeVoltage(model, i * ratio, tj, corner)).toBeGreaterThan(diodeVoltage(model, i, tj, corner));
-      }),
+      fc.property(
+        cardArbitrary,
+        logUniform(1e-5, 0.5),
+        logUniform(1.0001, 100),
+        fc.double({ min: -55, max: 175, noNaN: true }),
+        corners,
+        (card, i, ratio, tj, corner) => {
+          const model = fitBreakdownModel(card);
+          expect(diodeVoltage(model, i * ratio, tj, corner)).toBeGreaterThan(diodeVoltage(model, i, tj, corner));
+        },
+      ),
     );
   });
 

@@ -92,7 +92,9 @@ export function fitBreakdownModel(card: EngineeringCardInput): BreakdownModel {
     basis = 'izt-only';
     nbvVt = zzt * izt;
     rs = 0;
-    assumptions.push('one impedance point (IZT, ZZT): RS assumed 0, so all of ZZT comes from the junction term (the steepest knee the model allows for this ZZT)');
+    assumptions.push(
+      'one impedance point (IZT, ZZT): RS assumed 0, so all of ZZT comes from the junction term (the steepest knee the model allows for this ZZT)',
+    );
   } else if (izk !== null && zzk !== null) {
     basis = 'izk-only';
     nbvVt = zzk * izk;
@@ -154,10 +156,7 @@ export function cornerVz(model: BreakdownModel, corner: ToleranceCorner): number
 export function diodeVoltage(model: BreakdownModel, current: number, tjC: number, corner: ToleranceCorner = 'nom'): number {
   const vz = corner === 'nom' ? model.vzNom : corner === 'min' ? model.vzLow : model.vzHigh;
   return (
-    vz +
-    model.alphaVz * (tjC - T_REF_C) +
-    model.nbv * K_OVER_Q * (tjC + ZERO_CELSIUS_K) * Math.log(current / model.izt) +
-    model.rs * (current - model.izt)
+    vz + model.alphaVz * (tjC - T_REF_C) + model.nbv * K_OVER_Q * (tjC + ZERO_CELSIUS_K) * Math.log(current / model.izt) + model.rs * (current - model.izt)
   );
 }
 

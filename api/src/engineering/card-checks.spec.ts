@@ -2,8 +2,20 @@ import type { CardIssue, EngineeringCard } from '@shuntwise/contracts';
 import { checkCard } from './card-checks';
 
 const good: EngineeringCard = {
-  vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, irMax: 2e-6, vr: 2,
-  tc: (0.03 / 100) * 5.1, pdMax: 0.5, tjMax: 175, rthJA: 300, izm: 0.089,
+  vzNom: 5.1,
+  vzMin: 4.85,
+  vzMax: 5.36,
+  izt: 0.02,
+  zzt: 17,
+  izk: 0.001,
+  zzk: 550,
+  irMax: 2e-6,
+  vr: 2,
+  tc: (0.03 / 100) * 5.1,
+  pdMax: 0.5,
+  tjMax: 175,
+  rthJA: 300,
+  izm: 0.089,
 };
 
 function fields(issues: CardIssue[], severity: CardIssue['severity']): string[] {
@@ -30,7 +42,7 @@ describe('card sanity checks name their field', () => {
   });
 
   it('names an implausible tc in mV/K and %/K with true minus signs (U+2212; common practice, no source)', () => {
-    const issues = checkCard({ ...good, tc: -12e-3 }) // −12 mV/K;
+    const issues = checkCard({ ...good, tc: -12e-3 }); // −12 mV/K;
     const message = issues.find((i) => i.field === 'tc' && /beyond the usual/.test(i.message))!.message;
     expect(message).toMatch(/^tc \u221212\.0 mV\/K is \u22120\.\d{3} %\/K of VZ/);
     expect(message).not.toMatch(/-\d/);

@@ -33,7 +33,10 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     const alpha = card.tc;
     const percentPerK = (alpha / vzNom) * 100;
     if (Math.abs(percentPerK) > 0.2) {
-      warn('tc', `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${formatQuantity(percentPerK, 'tempCoPercent')} of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`);
+      warn(
+        'tc',
+        `tc ${formatQuantity(alpha, 'tempCoVoltage')} is ${formatQuantity(percentPerK, 'tempCoPercent')} of VZ, beyond the usual ±0.1 %/K: check the unit (mV/K or %/K)`,
+      );
     }
     const sign = mechanismSignWarning(vzNom, alpha);
     if (sign !== null) warn('tc', sign);
@@ -45,7 +48,8 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
   }
 
   if (card.tjMax != null && (card.tjMax < 100 || card.tjMax > 200)) warn('tjMax', `TJ max ${celsius(card.tjMax)} lies outside the usual 100…200 °C`);
-  if (card.rthJA != null && (card.rthJA < 1 || card.rthJA > 1000)) warn('rthJA', `RthJA ${formatQuantity(card.rthJA, 'thermalResistance', { trim: true })} lies outside the usual 1…1000 K/W`);
+  if (card.rthJA != null && (card.rthJA < 1 || card.rthJA > 1000))
+    warn('rthJA', `RthJA ${formatQuantity(card.rthJA, 'thermalResistance', { trim: true })} lies outside the usual 1…1000 K/W`);
   if (card.pdMax != null) {
     if (card.tjMax == null) warn('tjMax', 'PD max given without TJ max: the rating cannot be derated above its reference temperature');
     if (card.izm != null && card.izm * vzNom > 1.25 * card.pdMax) {
@@ -55,7 +59,10 @@ export function checkCard(card: EngineeringCardInput): CardIssue[] {
     if (card.rthJA != null && card.tjMax != null) {
       const fromRth = (card.tjMax - (card.pdRefC ?? 25)) / card.rthJA;
       if (Math.abs(fromRth - card.pdMax) > 0.25 * card.pdMax) {
-        warn('rthJA', `(TJ max − ${celsius(card.pdRefC ?? 25)})/RthJA = ${watts(fromRth)} disagrees with PD max (${watts(card.pdMax)}) by more than 25 %: derating uses the lower`);
+        warn(
+          'rthJA',
+          `(TJ max − ${celsius(card.pdRefC ?? 25)})/RthJA = ${watts(fromRth)} disagrees with PD max (${watts(card.pdMax)}) by more than 25 %: derating uses the lower`,
+        );
       }
     }
   } else if (card.rthJA == null || card.tjMax == null) {

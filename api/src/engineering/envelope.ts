@@ -33,7 +33,8 @@ export function worstCaseWindow(model: BreakdownModel, envelope: Envelope, optio
   const heating = selfHeating && model.rthJA !== null;
   if (selfHeating && model.rthJA === null) warnings.push('no RthJA on the card: the window is computed at Tj = Ta');
   if (heating) assumptions.push('Tj = Ta + RthJA·Vz·I, iterated to convergence');
-  if (envelope.iMin < model.lowestTestCurrent) warnings.push('the lowest current lies below the lowest current the card was measured at: the low end is extrapolated');
+  if (envelope.iMin < model.lowestTestCurrent)
+    warnings.push('the lowest current lies below the lowest current the card was measured at: the low end is extrapolated');
 
   let atMin: EnvelopeCorner | null = null;
   let atMax: EnvelopeCorner | null = null;

@@ -13,7 +13,12 @@ export interface KneeReading {
  * Zd = zzt·(izt/I)^p through the card's two impedance points, and the voltage span it
  * gives between iLow and iHigh (the integral of Zd dI).
  */
-export function powerLawKnee(izt: number, zzt: number, izk: number, zzk: number): { p: number; zd(current: number): number; span(iLow: number, iHigh: number): number } {
+export function powerLawKnee(
+  izt: number,
+  zzt: number,
+  izk: number,
+  zzk: number,
+): { p: number; zd(current: number): number; span(iLow: number, iHigh: number): number } {
   const p = Math.log(zzk / zzt) / Math.log(izt / izk);
   return {
     p,

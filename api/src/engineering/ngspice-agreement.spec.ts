@@ -132,18 +132,22 @@ describe('V(I) against an ngspice DC sweep of the exported model, 0.1 mA…50 mA
 describe("the exported model's temperature shift agrees with αVz within 1 % (ngspice)", () => {
   it('generated cards between 25 °C and a second temperature, and V at every current there', async () => {
     await fc.assert(
-      fc.asyncProperty(cardArbitrary, fc.double({ min: -40, max: 150, noNaN: true }).filter((t) => Math.abs(t - 25) > 10), async (card, t2) => {
-        const model = fitBreakdownModel(card);
-        const line = spiceModelLine(model);
-        const shift = ((await voltageAt(line, card.izt, t2)) - (await voltageAt(line, card.izt, 25))) / (t2 - 25);
-        const error = Math.abs(shift - model.alphaVz) / Math.abs(model.alphaVz);
-        worstShiftError = Math.max(worstShiftError, error);
-        expect(error).toBeLessThan(0.01);
-        // Away from izt the log term moves with T too; the engine follows the same law.
-        for (const current of [card.izt / 10, card.izt * 2]) {
-          expect(Math.abs((await voltageAt(line, current, t2)) - diodeVoltage(model, current, t2))).toBeLessThan(0.5e-3);
-        }
-      }),
+      fc.asyncProperty(
+        cardArbitrary,
+        fc.double({ min: -40, max: 150, noNaN: true }).filter((t) => Math.abs(t - 25) > 10),
+        async (card, t2) => {
+          const model = fitBreakdownModel(card);
+          const line = spiceModelLine(model);
+          const shift = ((await voltageAt(line, card.izt, t2)) - (await voltageAt(line, card.izt, 25))) / (t2 - 25);
+          const error = Math.abs(shift - model.alphaVz) / Math.abs(model.alphaVz);
+          worstShiftError = Math.max(worstShiftError, error);
+          expect(error).toBeLessThan(0.01);
+          // Away from izt the log term moves with T too; the engine follows the same law.
+          for (const current of [card.izt / 10, card.izt * 2]) {
+            expect(Math.abs((await voltageAt(line, current, t2)) - diodeVoltage(model, current, t2))).toBeLessThan(0.5e-3);
+          }
+        },
+      ),
       { numRuns: 20, seed: 3004, endOnFailure: true },
     );
   });

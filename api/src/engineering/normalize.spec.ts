@@ -30,7 +30,12 @@ describe('normalising a card to other currents and temperatures', () => {
     const response = normalize({ card, currents: [0.001, 0.005, 0.02], temperaturesC: [25, 85] });
     expect(normalizeResponseSchema.parse(response)).toEqual(response);
     expect(response.points.map((p) => [p.tempC, p.current])).toEqual([
-      [25, 0.001], [25, 0.005], [25, 0.02], [85, 0.001], [85, 0.005], [85, 0.02],
+      [25, 0.001],
+      [25, 0.005],
+      [25, 0.02],
+      [85, 0.001],
+      [85, 0.005],
+      [85, 0.02],
     ]);
     expect(response.points[2].tjC).toBeGreaterThan(50);
     expect(response.mechanism).toBe('mixed');

@@ -45,7 +45,7 @@ describe('worst-case power check over an envelope', () => {
     expect(strict.power!).toBeLessThan(0.29);
     const cool = powerCheck(model, card, { ...envelope, taMax: 40 }, { policyFraction: 0.8 });
     expect(cool.verdict).toBe('pass');
-    expect(cool.allowed).toBeCloseTo(0.8 * 0.5 * (175 - 40) / 150, 12);
+    expect(cool.allowed).toBeCloseTo((0.8 * 0.5 * (175 - 40)) / 150, 12);
   });
 
   it('states its policy as a percentage without float noise (0.07 × 100 is 7.000000000000001 in IEEE 754; common practice, no source)', () => {

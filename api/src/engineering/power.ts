@@ -53,12 +53,7 @@ export interface PowerCheckOptions {
  * high tolerance part — against policyFraction × the derated rating at that ambient; also
  * fails a current above izm. Missing ratings give 'no-data', never a pass.
  */
-export function powerCheck(
-  model: BreakdownModel,
-  card: EngineeringCardInput,
-  envelope: Envelope,
-  options: PowerCheckOptions = {},
-): PowerCheck {
+export function powerCheck(model: BreakdownModel, card: EngineeringCardInput, envelope: Envelope, options: PowerCheckOptions = {}): PowerCheck {
   const policyFraction = options.policyFraction ?? 1;
   const selfHeating = options.selfHeating ?? true;
   const assumptions = [`the diode may dissipate ${formatPercent(policyFraction)} of its derated rating`];

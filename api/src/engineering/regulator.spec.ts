@@ -48,7 +48,7 @@ describe('shunt-regulator design rules (Sedra & Smith, from memory)', () => {
     });
     expect(design.verdict).toBe('ok');
     expect(design.selected?.resistance).toBe(220);
-    expect(design.diodePower).toBeCloseTo(5.1 * (15 - 5.1) / 220, 9);
+    expect(design.diodePower).toBeCloseTo((5.1 * (15 - 5.1)) / 220, 9);
     const worst = design.outputBand!.corners.find((c) => c.diodePower === design.diodePower)!;
     expect(worst).toMatchObject({ supply: 15, load: 0 });
     // The rule takes Vz constant; this stiff diode stays within 30 mV of it, so within 1 %.
@@ -57,7 +57,13 @@ describe('shunt-regulator design rules (Sedra & Smith, from memory)', () => {
 
   it('the simple formula R = (Vs − Vz)/(Iz + IL,max) uses the nominal supply and izt', () => {
     const card: EngineeringCard = { vzNom: 5.1, izt: 0.02, zzt: 17, pdMax: 0.5, tjMax: 175 };
-    const design = designRegulator({ ...base, card, supply: { min: 11, nom: 12, max: 13 }, load: { min: 0, max: 0.01 }, resistor: { series: 'E24', tolerance: 0.05 } });
+    const design = designRegulator({
+      ...base,
+      card,
+      supply: { min: 11, nom: 12, max: 13 },
+      load: { min: 0, max: 0.01 },
+      resistor: { series: 'E24', tolerance: 0.05 },
+    });
     expect(design.simple.resistance).toBeCloseTo((12 - 5.1) / (0.02 + 0.01), 9);
   });
 });
@@ -79,8 +85,26 @@ describe('bench facts (common practice, no source)', () => {
 });
 
 describe('verdicts say why', () => {
-  const card: EngineeringCard = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.02, zzt: 17, izk: 0.001, zzk: 550, tc: (0.03 / 100) * 5.1, pdMax: 0.5, tjMax: 175, rthJA: 300 };
-  const request: RegulatorRequest = { card, supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.01 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } };
+  const card: EngineeringCard = {
+    vzNom: 5.1,
+    vzMin: 4.85,
+    vzMax: 5.36,
+    izt: 0.02,
+    zzt: 17,
+    izk: 0.001,
+    zzk: 550,
+    tc: (0.03 / 100) * 5.1,
+    pdMax: 0.5,
+    tjMax: 175,
+    rthJA: 300,
+  };
+  const request: RegulatorRequest = {
+    card,
+    supply: { min: 10.8, nom: 12, max: 13.2 },
+    load: { min: 0, max: 0.01 },
+    ambient: { min: -20, max: 70 },
+    resistor: { series: 'E24', tolerance: 0.05 },
+  };
 
   it('designs a working regulator in the published shape, with its assumptions and the caution', () => {
     const design = designRegulator(request);

@@ -1,11 +1,4 @@
-import {
-  formatPercent,
-  formatQuantity,
-  type RegulatorCorner,
-  type RegulatorRequest,
-  type RegulatorResponse,
-  type ToleranceCorner,
-} from '@shuntwise/contracts';
+import { formatPercent, formatQuantity, type RegulatorCorner, type RegulatorRequest, type RegulatorResponse, type ToleranceCorner } from '@shuntwise/contracts';
 import { diodeVoltage, dynamicImpedance, fitBreakdownModel, type BreakdownModel } from './breakdown-model';
 import { DESIGN_CAUTION } from './caution';
 import { nearestByRatio, seriesValuesBetween } from './e-series';
@@ -206,7 +199,9 @@ export function designRegulator(request: RegulatorRequest): RegulatorResponse {
       const target = simpleResistance ?? Math.sqrt(Math.max(rangeMin, 1e-9) * rangeMax);
       const resistance = nearestByRatio(target, candidates);
       if (Number.isNaN(resistance)) {
-        reasons.push(`no ${resistor.series} value lies between ${ohms(rangeMin)} and ${ohms(rangeMax)}: try ${resistor.series === 'E24' ? 'E96 or ' : ''}a tighter tolerance`);
+        reasons.push(
+          `no ${resistor.series} value lies between ${ohms(rangeMin)} and ${ohms(rangeMax)}: try ${resistor.series === 'E24' ? 'E96 or ' : ''}a tighter tolerance`,
+        );
       } else {
         selected = { resistance, series: resistor.series, tolerance: tol, low: resistance * (1 - tol), high: resistance * (1 + tol) };
         if (simpleResistance !== null && (simpleResistance < rangeMin || simpleResistance > rangeMax)) {

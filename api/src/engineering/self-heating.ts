@@ -32,13 +32,7 @@ export function junctionTemperatureC(model: BreakdownModel, current: number, taC
 }
 
 /** Diode voltage (V) at a current (A) and ambient (°C) with self-heating when asked for and possible. */
-export function voltageAtAmbient(
-  model: BreakdownModel,
-  current: number,
-  taC: number,
-  corner: ToleranceCorner = 'nom',
-  selfHeating = true,
-): number {
+export function voltageAtAmbient(model: BreakdownModel, current: number, taC: number, corner: ToleranceCorner = 'nom', selfHeating = true): number {
   const tj = selfHeating ? junctionTemperatureC(model, current, taC, corner) : taC;
   return diodeVoltage(model, current, tj, corner);
 }

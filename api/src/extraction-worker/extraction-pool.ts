@@ -250,7 +250,9 @@ export class ExtractionPool {
 
 function timeMessage(limits: ExtractionLimits, ocrPages: number): string {
   const seconds = Math.round((limits.timeLimitMs + ocrPages * limits.ocrMsPerPage) / 1000);
-  const ocr = ocrPages ? ` (${Math.round(limits.timeLimitMs / 1000)} s plus ${Math.round(limits.ocrMsPerPage / 1000)} s for each of its ${ocrPages} scanned page${ocrPages === 1 ? '' : 's'})` : '';
+  const ocr = ocrPages
+    ? ` (${Math.round(limits.timeLimitMs / 1000)} s plus ${Math.round(limits.ocrMsPerPage / 1000)} s for each of its ${ocrPages} scanned page${ocrPages === 1 ? '' : 's'})`
+    : '';
   return `The PDF took longer than the ${seconds} s allowed for reading one file${ocr}, so reading was stopped. Nothing was saved. Enter the ratings by hand, or upload a smaller copy.`;
 }
 

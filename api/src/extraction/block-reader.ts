@@ -12,7 +12,8 @@ import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-dra
  * heading or the end of the page.
  */
 
-const SECTION_TITLE = /^(?:absolute\s+)?maximum\s+ratings|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
+const SECTION_TITLE =
+  /^(?:absolute\s+)?maximum\s+ratings|^ordering|^package\s+(?:outline|dimensions)|^design\s+example|^typical\s+characteristics|^features\b|^applications?\b|^notes?\b/i;
 
 const LEADER = /(?:\.\s?){4,}|…{2,}/;
 
@@ -75,7 +76,12 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       const next = lines[k + 1];
       if (line.cells.length === 1 && /^\S+\s*\([^)]*$/.test(line.text) && next && next.cells.length === 1 && /^[^(]*\)$/.test(next.text)) {
         const text = `${line.text} ${next.text}`;
-        const joined: Line = { ...line, text, printed: `${line.printed} ${next.printed}`, cells: [{ ...line.cells[0], text, printed: `${line.cells[0].printed} ${next.cells[0].printed}` }] };
+        const joined: Line = {
+          ...line,
+          text,
+          printed: `${line.printed} ${next.printed}`,
+          cells: [{ ...line.cells[0], text, printed: `${line.cells[0].printed} ${next.cells[0].printed}` }],
+        };
         if (headingOf(joined)) {
           line = joined;
           skip = next;
@@ -89,7 +95,17 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         for (const cond of findConditions(line.text).conditions) {
           const si = toSi(cond.value, cond.unit, cond.kind);
           if (si !== undefined) {
-            drafts.get(heading, order).offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(line.cells[0]), rank: 1, method: 'list' });
+            drafts.get(heading, order).offer(cond.field, {
+              value: cond.value,
+              unit: cond.unit,
+              kind: cond.kind,
+              si,
+              page: line.page,
+              text: line.printed,
+              box: cellBox(line.cells[0]),
+              rank: 1,
+              method: 'list',
+            });
           }
         }
         continue;
@@ -190,7 +206,17 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
       if (!usable) continue;
       const si = toSi(cond.value, cond.unit, cond.kind);
       if (si === undefined) continue;
-      draft().offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: line.page, text: line.printed, box: cellBox(cell), rank: 1, method });
+      draft().offer(cond.field, {
+        value: cond.value,
+        unit: cond.unit,
+        kind: cond.kind,
+        si,
+        page: line.page,
+        text: line.printed,
+        box: cellBox(cell),
+        rank: 1,
+        method,
+      });
     }
   }
 }

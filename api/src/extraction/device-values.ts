@@ -181,7 +181,12 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
     const si = toSi(v.token.value, v.unit, rule.kind);
     if (si === undefined) return undefined;
     const box: ExtractionBox = method === 'sentence' ? lineBox(line) : cellBox(v.cell);
-    return { field, score, scope, candidate: { value: v.token.value, unit: v.unit, kind: rule.kind, si, page: line.page, text: line.printed, box, rank: 0, method } };
+    return {
+      field,
+      score,
+      scope,
+      candidate: { value: v.token.value, unit: v.unit, kind: rule.kind, si, page: line.page, text: line.printed, box, rank: 0, method },
+    };
   };
   const scope = lineScope(ctx, line, text.slice(0, start) + ' ' + text.slice(start, values[0].token.index));
   if (values.length === 1) {
@@ -243,7 +248,8 @@ function collapseRanges(text: string, tokens: QuantityToken[], values: Value[]):
     let k = tokens.indexOf(v.token) - 1;
     let best = v;
     while (k >= 0 && !tokens[k].unit && /^\s*(?:to|…|\.\.\.|–|-|\s)\s*$/.test(text.slice(tokens[k].end, tokens[k + 1].index))) {
-      if (Number(tokens[k].value.replace('−', '-')) > Number(best.token.value.replace('−', '-'))) best = { ...v, token: { ...tokens[k], unit: v.unit, kind: v.token.kind } };
+      if (Number(tokens[k].value.replace('−', '-')) > Number(best.token.value.replace('−', '-')))
+        best = { ...v, token: { ...tokens[k], unit: v.unit, kind: v.token.kind } };
       k--;
     }
     return best;
@@ -259,7 +265,15 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
       if (used.has(line)) continue;
       // A sentence wrapped onto the next line ("… may operate between −55 °C / and +150 °C.") is read with it; a line that starts with a capital starts a statement of its own.
       const next = lines[k + 1];
-      const wrapped = line.cells.length === 1 && next && !used.has(next) && next.cells.length === 1 && next.y < line.y && line.text.length > 40 && !/[.;:]$/.test(line.text) && /^[a-z\d+−-]/u.test(next.text);
+      const wrapped =
+        line.cells.length === 1 &&
+        next &&
+        !used.has(next) &&
+        next.cells.length === 1 &&
+        next.y < line.y &&
+        line.text.length > 40 &&
+        !/[.;:]$/.test(line.text) &&
+        /^[a-z\d+−-]/u.test(next.text);
       const read = wrapped ? joinLines(line, next) : line;
       for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, read, field, rule, line));
       const p = findPackage(line.text);

@@ -47,7 +47,11 @@ describe('the decimal separator of a document', () => {
   it('returns the value as printed, with its comma, and the SI value', () => {
     const XS = [50, 130, 180, 230];
     const result = extractRatings(
-      pdf([...row(700, XS, ['Type', 'VZ nom (V)', 'IR max (µA)', 'VR (V)']), ...row(685, XS, ['QK-3V6', '3,6', '0,30', '1,5']), ...row(673, XS, ['QK-3V9', '3,9', '0,20', '1,5'])]),
+      pdf([
+        ...row(700, XS, ['Type', 'VZ nom (V)', 'IR max (µA)', 'VR (V)']),
+        ...row(685, XS, ['QK-3V6', '3,6', '0,30', '1,5']),
+        ...row(673, XS, ['QK-3V9', '3,9', '0,20', '1,5']),
+      ]),
     );
     expect(result.variants[0].fields.vzNom).toMatchObject({ value: '3,6', si: 3.6, method: 'table' });
     expect(result.variants[0].fields.irMax).toMatchObject({ value: '0,30', si: 3e-7 });
@@ -91,16 +95,14 @@ describe('conditions bound to the value they qualify', () => {
 
   it('never reads the 25 °C of a test condition as the junction temperature', () => {
     const result = extractRatings(
-      pdf(
-        [
-          ...row(760, [50, 130, 180, 230], ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
-          ...row(745, [50, 130, 180, 230], ['RX-5V1', '5.1', '5', '60']),
-          ...row(733, [50, 130, 180, 230], ['RX-5V6', '5.6', '5', '40']),
-          item('Maximum ratings (Tj = 25 °C unless otherwise noted)', 50, 700, 9, 260),
-          ...row(685, [50, 250, 330, 420, 460], ['Power dissipation', 'Ptot', 'TA = 25 °C', '500', 'mW']),
-          ...row(673, [50, 250, 420, 460], ['Junction temperature', 'Tj', '150', '°C']),
-        ],
-      ),
+      pdf([
+        ...row(760, [50, 130, 180, 230], ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+        ...row(745, [50, 130, 180, 230], ['RX-5V1', '5.1', '5', '60']),
+        ...row(733, [50, 130, 180, 230], ['RX-5V6', '5.6', '5', '40']),
+        item('Maximum ratings (Tj = 25 °C unless otherwise noted)', 50, 700, 9, 260),
+        ...row(685, [50, 250, 330, 420, 460], ['Power dissipation', 'Ptot', 'TA = 25 °C', '500', 'mW']),
+        ...row(673, [50, 250, 420, 460], ['Junction temperature', 'Tj', '150', '°C']),
+      ]),
     );
     expect(result.variants[0].fields.pdMax).toMatchObject({ value: '500', si: 0.5 });
     expect(result.variants[0].fields.tjMax).toMatchObject({ value: '150', si: 150 });
@@ -197,7 +199,9 @@ describe('ratings in prose', () => {
   });
 
   it('leaves a worked example full of numbers alone', () => {
-    const result = extractRatings(pdf([item('Design example: supply 24 V, load 5 mA, R = (24 V − 12 V) / 15 mA ≈ 800 Ω; the diode dissipates 180 mW.', 50, 700, 9, 420)]));
+    const result = extractRatings(
+      pdf([item('Design example: supply 24 V, load 5 mA, R = (24 V − 12 V) / 15 mA ≈ 800 Ω; the diode dissipates 180 mW.', 50, 700, 9, 420)]),
+    );
     expect(result.variants).toEqual([]);
   });
 });

@@ -146,7 +146,8 @@ export async function readPdf(buffer: Uint8Array): Promise<PdfText> {
         if (turnOf(r.a, r.b) !== turn) continue;
         const size = turn === 0 ? r.height || Math.hypot(r.a, r.b) : Math.hypot(r.a, r.b) || r.height;
         const width = turn === 0 ? r.width : r.width || r.height;
-        const [x, y] = turn === 90 ? [r.f - y0, w - (r.e - x0)] : turn === 270 ? [h - (r.f - y0), r.e - x0] : turn === 180 ? [w - (r.e - x0), h - (r.f - y0)] : [r.e, r.f];
+        const [x, y] =
+          turn === 90 ? [r.f - y0, w - (r.e - x0)] : turn === 270 ? [h - (r.f - y0), r.e - x0] : turn === 180 ? [w - (r.e - x0), h - (r.f - y0)] : [r.e, r.f];
         items.push({ str: r.str, x, y, width, height: size });
       }
       if (items.length) hasText = true;

@@ -1,6 +1,15 @@
 import { randomInt } from 'node:crypto';
 import { generateRandomDatasheet } from '@shuntwise/test-fixtures';
-import { FLOOR, formatReport, GOAL, matchesPrinted, precisionOf, recallOf, scoreRandomLayouts, type RandomLayoutReport } from '../../test/helpers/random-layout-score';
+import {
+  FLOOR,
+  formatReport,
+  GOAL,
+  matchesPrinted,
+  precisionOf,
+  recallOf,
+  scoreRandomLayouts,
+  type RandomLayoutReport,
+} from '../../test/helpers/random-layout-score';
 import { readPdf } from './pdf-text';
 import { extractDatasheet } from './rating-extractor';
 
@@ -40,12 +49,22 @@ describe('datasheet extraction on random layouts', () => {
     `${what} ${(100 * value).toFixed(1)} % is below its floor of ${(100 * floor).toFixed(1)} % (replay: LAYOUT_SEED=${seed})\n` +
     formatReport(report, { worstChoices: 20, failing: 20, misses: 2 });
   const goalNote = (what: string, value: number, goal: number) =>
-    console.log(`random layouts: ${what} ${(100 * value).toFixed(1)} % against the goal of ${(100 * goal).toFixed(1)} %${value >= goal ? ' (met)' : ' (not met yet)'}`);
+    console.log(
+      `random layouts: ${what} ${(100 * value).toFixed(1)} % against the goal of ${(100 * goal).toFixed(1)} %${value >= goal ? ' (met)' : ' (not met yet)'}`,
+    );
 
   it('draws every arrangement and both sides of each main choice in one run', () => {
     const drawn = new Set(report.perChoice.keys());
     for (const a of ['rows', 'transposed', 'part-per-page', 'leader-list', 'param-table', 'sentences']) expect(drawn).toContain(`arrangement=${a}`);
-    for (const label of ['decimal=comma', 'decimal=point', 'orientation=rotated', 'pageColumns=2', 'tolerance=suffix-legend', 'series=2', 'maxRatings=per-package']) {
+    for (const label of [
+      'decimal=comma',
+      'decimal=point',
+      'orientation=rotated',
+      'pageColumns=2',
+      'tolerance=suffix-legend',
+      'series=2',
+      'maxRatings=per-package',
+    ]) {
       expect(drawn).toContain(label);
     }
   });
@@ -55,7 +74,12 @@ describe('datasheet extraction on random layouts', () => {
       const { pdf, answers } = await generateRandomDatasheet(s);
       const text = await readPdf(new Uint8Array(pdf));
       expect(text.pageCount).toBe(answers.pages);
-      const pageText = text.pages.map((p) => p.items.map((i) => i.str).join('').replace(/\s/g, ''));
+      const pageText = text.pages.map((p) =>
+        p.items
+          .map((i) => i.str)
+          .join('')
+          .replace(/\s/g, ''),
+      );
       for (const v of answers.variants) {
         expect(v.package.page).toBeGreaterThan(0);
         expect(pageText[v.package.page - 1]).toContain(v.package.value);

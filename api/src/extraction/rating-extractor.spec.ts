@@ -51,7 +51,10 @@ describe('datasheet extraction on the invented fixture datasheets', () => {
         else {
           if (a) t.fn++;
           if (g) t.fp++;
-          if (a || g) misses.push(`${fx.name} ${want.mpn} ${f}: want ${a ? `${a.value} ${a.unit} p${a.page}` : '—'}, got ${g ? `${g.value} ${g.unit} (${g.si}) p${g.page}` : '—'}`);
+          if (a || g)
+            misses.push(
+              `${fx.name} ${want.mpn} ${f}: want ${a ? `${a.value} ${a.unit} p${a.page}` : '—'}, got ${g ? `${g.value} ${g.unit} (${g.si}) p${g.page}` : '—'}`,
+            );
         }
       }
       const t = tally.get('package')!;

@@ -85,7 +85,11 @@ export function readSentences(pages: Line[][], used: Set<Line>, drafts: VariantD
         if (si === undefined) return;
         const line = lineOf(p, t.index);
         const order = orderOf(p.lines[0].page, p.lines[0].index);
-        found.push(() => drafts.get(p.mpn, order).offer(field, { value: t.value, unit: t.unit, kind, si, page: line.page, text: p.text, box: lineBox(line), rank, method: 'sentence' }));
+        found.push(() =>
+          drafts
+            .get(p.mpn, order)
+            .offer(field, { value: t.value, unit: t.unit, kind, si, page: line.page, text: p.text, box: lineBox(line), rank, method: 'sentence' }),
+        );
       };
       for (const clause of clauses(p.text)) readClause(clause.text, clause.start, p.text, offer);
       // Prose that names no rating ("XY5V1 5.1 V regulator diode" as a heading) is left to the other readers.

@@ -43,7 +43,9 @@ describe('reading series tables from positioned text', () => {
       item('(mA)', 230, 690),
       item('(ohm)', 280, 690),
     ];
-    const result = extractRatings(pdf([...header, ...row(675, XS, ['XQ7-5V1', '4.85', '5.36', '5', '60']), ...row(663, XS, ['XQ7-6V2', '5.89', '6.51', '5', '10'])]));
+    const result = extractRatings(
+      pdf([...header, ...row(675, XS, ['XQ7-5V1', '4.85', '5.36', '5', '60']), ...row(663, XS, ['XQ7-6V2', '5.89', '6.51', '5', '10'])]),
+    );
     expect(result.variants.map((v) => v.mpn)).toEqual(['XQ7-5V1', 'XQ7-6V2']);
     const v = result.variants[0];
     expect(v.fields.vzMin).toMatchObject({ value: '4.85', unit: 'V', si: 4.85 });
@@ -74,10 +76,7 @@ describe('reading series tables from positioned text', () => {
   });
 
   it('leaves a %/K coefficient empty with a warning when the variant has no nominal voltage', () => {
-    const items = [
-      ...row(700, XS, ['Type', 'VZ min (V)', 'VZ max (V)', 'IZT (mA)', 'TC (%/K)']),
-      ...row(685, XS, ['PQR-12', '11.4', '12.6', '5', '+0.075']),
-    ];
+    const items = [...row(700, XS, ['Type', 'VZ min (V)', 'VZ max (V)', 'IZT (mA)', 'TC (%/K)']), ...row(685, XS, ['PQR-12', '11.4', '12.6', '5', '+0.075'])];
     const result = extractRatings(pdf(items));
     expect(result.variants[0].fields.tc).toBeUndefined();
     expect(result.variants[0].fields.vzMin).toMatchObject({ si: 11.4 });
@@ -111,8 +110,25 @@ describe('two-column pages', () => {
     // another part, its baselines 6 pt off the left ones. Below, a table across the page.
     const left: PdfTextItem[] = [];
     const right: PdfTextItem[] = [];
-    const leftLines = ['XA5V1', 'Zener voltage, nom. VZ (V) .......... 5.1', 'Test current IZT (mA) .............. 5', 'Dynamic impedance, max. ZZT (Ω) .... 60', 'Notes on use of the part', 'more prose here', 'and a little more', 'and the end'];
-    const rightLines = ['XA6V2', 'Zener voltage, nom. VZ (V) .......... 6.2', 'Test current IZT (mA) .............. 4', 'Dynamic impedance, max. ZZT (Ω) .... 10', 'Notes on the other part', 'more prose there', 'and the end'];
+    const leftLines = [
+      'XA5V1',
+      'Zener voltage, nom. VZ (V) .......... 5.1',
+      'Test current IZT (mA) .............. 5',
+      'Dynamic impedance, max. ZZT (Ω) .... 60',
+      'Notes on use of the part',
+      'more prose here',
+      'and a little more',
+      'and the end',
+    ];
+    const rightLines = [
+      'XA6V2',
+      'Zener voltage, nom. VZ (V) .......... 6.2',
+      'Test current IZT (mA) .............. 4',
+      'Dynamic impedance, max. ZZT (Ω) .... 10',
+      'Notes on the other part',
+      'more prose there',
+      'and the end',
+    ];
     leftLines.forEach((t, i) => left.push(item(t, 50, 700 - 14 * i)));
     rightLines.forEach((t, i) => right.push(item(t, 310, 694 - 12 * i)));
     const table = [

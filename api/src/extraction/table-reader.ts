@@ -287,6 +287,16 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts
   for (const cond of plan.conditions) {
     const si = toSi(cond.value, cond.unit, cond.kind);
     if (si === undefined) continue;
-    draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si, page: cond.page, text: cond.text, box: cellBox(cond.cell), rank: 1, method: 'table' });
+    draft.offer(cond.field, {
+      value: cond.value,
+      unit: cond.unit,
+      kind: cond.kind,
+      si,
+      page: cond.page,
+      text: cond.text,
+      box: cellBox(cond.cell),
+      rank: 1,
+      method: 'table',
+    });
   }
 }

@@ -30,9 +30,7 @@ export interface Line {
 const CELL_GAP = 0.55;
 
 export function pageLines(page: PdfPageText): Line[] {
-  const items = page.items
-    .map((i) => ({ str: i.str, x0: i.x, x1: i.x + i.width, y: i.y, size: i.height || 1 }))
-    .sort((a, b) => b.y - a.y || a.x0 - b.x0);
+  const items = page.items.map((i) => ({ str: i.str, x0: i.x, x1: i.x + i.width, y: i.y, size: i.height || 1 })).sort((a, b) => b.y - a.y || a.x0 - b.x0);
   const groups = inReadingOrder(groupByBaseline(items));
   return groups.map((group, index) => {
     group.sort((a, b) => a.x0 - b.x0);
@@ -196,7 +194,7 @@ function inReadingOrder(groups: Placed[][]): Placed[][] {
     return r.length > 0 && /^\s*[<≤>≥±+\-−–]?\s*\.?\d/u.test(r[0].str);
   };
   const tableRows = new Set<number>();
-  for (let k = 0; k < groups.length; ) {
+  for (let k = 0; k < groups.length;) {
     let e = k;
     while (e < groups.length && shared(groups[e])) e++;
     if (e - k >= 2) {

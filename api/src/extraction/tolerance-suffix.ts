@@ -32,7 +32,13 @@ export function findToleranceLegends(pages: Line[][]): ToleranceLegend[] {
       for (const m of text.matchAll(TOLERANCE_LEGEND)) if (m.index < lines[i].text.length) letters.push({ letter: m[1], pct: Number(m[2]) });
       if (letters.length < 2 || new Set(letters.map((l) => l.letter)).size !== letters.length) continue;
       const example = /\b(?:example|e\.g\.)[:,]?\s+([A-Z][A-Z0-9-]{2,})/i.exec(text);
-      out.push({ letters, page: lines[i].page, text: lines[i].printed, box: lineBox(lines[i]), prefix: example ? /^[A-Z]+/.exec(flat(example[1]))?.[0] : undefined });
+      out.push({
+        letters,
+        page: lines[i].page,
+        text: lines[i].printed,
+        box: lineBox(lines[i]),
+        prefix: example ? /^[A-Z]+/.exec(flat(example[1]))?.[0] : undefined,
+      });
     }
   }
   return out;

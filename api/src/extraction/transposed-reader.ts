@@ -121,7 +121,17 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
     for (const cond of conditions) {
       const cs = toSi(cond.value, cond.unit, cond.kind);
       if (cs !== undefined) {
-        draft.offer(cond.field, { value: cond.value, unit: cond.unit, kind: cond.kind, si: cs, page: line.page, text: line.printed, box: cellBox(label[0]), rank: 1, method: 'table' });
+        draft.offer(cond.field, {
+          value: cond.value,
+          unit: cond.unit,
+          kind: cond.kind,
+          si: cs,
+          page: line.page,
+          text: line.printed,
+          box: cellBox(label[0]),
+          rank: 1,
+          method: 'table',
+        });
       }
     }
   }

@@ -66,7 +66,11 @@ export class HealthService {
     const fresh = slot.last && Date.now() - slot.last.at < this.env.HEALTH_PROBE_SECONDS * 1000;
     if (!fresh && !slot.running) {
       const check = name === 'mail' ? () => this.mail.isUp() : () => this.storage.isUp();
-      slot.running = withTimeout(check().catch(() => false), PROBE_TIMEOUT_MS, false)
+      slot.running = withTimeout(
+        check().catch(() => false),
+        PROBE_TIMEOUT_MS,
+        false,
+      )
         .then((up) => (slot.last = { up, at: Date.now() }))
         .finally(() => (slot.running = undefined));
     }

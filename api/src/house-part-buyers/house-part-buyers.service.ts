@@ -30,7 +30,10 @@ export class HousePartBuyersService {
     const part = await this.housePart(housePartId);
     const buyer = await this.users.findById(userId);
     if (!buyer || buyer.role !== 'buyer' || !buyer.active) {
-      throw new UnprocessableEntityException({ message: `User ${userId} is not an active buyer`, errors: [{ path: 'userId', message: 'must be an active buyer' }] });
+      throw new UnprocessableEntityException({
+        message: `User ${userId} is not an active buyer`,
+        errors: [{ path: 'userId', message: 'must be an active buyer' }],
+      });
     }
     try {
       await this.buyers.add({ housePartId, userId, addedById: user.id });

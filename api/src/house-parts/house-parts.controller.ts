@@ -55,7 +55,11 @@ export class HousePartsController {
 
   @Get(':id/spec')
   @AnyRole()
-  @ApiOkResponse({ type: SpecVersionDto, description: 'The current spec, or `version`. Without `version`, `null` while the house part has no spec yet (a state, not a missing resource); a `version` it does not have is a 404.' })
+  @ApiOkResponse({
+    type: SpecVersionDto,
+    description:
+      'The current spec, or `version`. Without `version`, `null` while the house part has no spec yet (a state, not a missing resource); a `version` it does not have is a 404.',
+  })
   async spec(@Param('id', ParseIntPipe) id: number, @Query() query: SpecQueryDto, @Res() res: Response): Promise<void> {
     // Express sends an empty body for a returned null; the answer is the JSON null.
     res.json(query.version === undefined ? await this.houseParts.currentSpec(id) : await this.houseParts.spec(id, query.version));

@@ -121,7 +121,10 @@ export class HousePartsRepository {
   }
 
   /** Creates the house part and indexes its number and description in the same transaction (its own when none is given). */
-  create(values: { partNumber: string; description: string; status: HousePartStatus; createdById: number | null }, transaction?: Transaction): Promise<HousePart> {
+  create(
+    values: { partNumber: string; description: string; status: HousePartStatus; createdById: number | null },
+    transaction?: Transaction,
+  ): Promise<HousePart> {
     return this.within(transaction, async (t) => {
       const part = await this.houseParts.create(values, { transaction: t });
       await this.textIndex.write('housePart', part.id, [part.partNumber, part.description], t);
@@ -129,10 +132,15 @@ export class HousePartsRepository {
     });
   }
 
-  async update(part: HousePart, values: Partial<Pick<HousePart, 'partNumber' | 'description' | 'status' | 'specVersion'>>, transaction?: Transaction): Promise<void> {
+  async update(
+    part: HousePart,
+    values: Partial<Pick<HousePart, 'partNumber' | 'description' | 'status' | 'specVersion'>>,
+    transaction?: Transaction,
+  ): Promise<void> {
     await this.within(transaction, async (t) => {
       await part.update(values, { transaction: t });
-      if (values.partNumber !== undefined || values.description !== undefined) await this.textIndex.write('housePart', part.id, [part.partNumber, part.description], t);
+      if (values.partNumber !== undefined || values.description !== undefined)
+        await this.textIndex.write('housePart', part.id, [part.partNumber, part.description], t);
     });
   }
 
@@ -153,7 +161,10 @@ export class HousePartsRepository {
     });
   }
 
-  createSpec(values: { housePartId: number; version: number; spec: Spec; note: string | null; createdById: number | null }, transaction: Transaction): Promise<HousePartSpec> {
+  createSpec(
+    values: { housePartId: number; version: number; spec: Spec; note: string | null; createdById: number | null },
+    transaction: Transaction,
+  ): Promise<HousePartSpec> {
     return this.specs.create(values, { transaction });
   }
 
@@ -175,7 +186,9 @@ export class HousePartsRepository {
 
   /** Every source of every house part (exports), house-part-number order. */
   async listAllSources(): Promise<SourceRow[]> {
-    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} ORDER BY s.house_part_id, ${sourceRoleSql('s')} = 'approved' DESC, m.name, vp.mpn`, { type: QueryTypes.SELECT });
+    return this.sequelize.query<SourceRow>(`${SELECT_SOURCE} ORDER BY s.house_part_id, ${sourceRoleSql('s')} = 'approved' DESC, m.name, vp.mpn`, {
+      type: QueryTypes.SELECT,
+    });
   }
 
   findSource(housePartId: number, vendorPartId: number, transaction?: Transaction, lock = false): Promise<HousePartSource | null> {
@@ -191,7 +204,10 @@ export class HousePartsRepository {
     return row ?? null;
   }
 
-  createSource(values: { housePartId: number; vendorPartId: number; note: string | null; addedById: number | null }, transaction?: Transaction): Promise<HousePartSource> {
+  createSource(
+    values: { housePartId: number; vendorPartId: number; note: string | null; addedById: number | null },
+    transaction?: Transaction,
+  ): Promise<HousePartSource> {
     return this.sources.create(values, { transaction });
   }
 

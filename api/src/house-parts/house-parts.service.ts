@@ -113,10 +113,13 @@ export class HousePartsService {
       if (!part) throw new NotFoundException(`No house part with id ${housePartId}`);
       const current = part.specVersion ?? 0;
       if (request.baseVersion !== current) {
-        throw new StaleConflictException(`The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`, {
-          current: { version: current },
-          errors: [{ path: 'baseVersion', message: `current version is ${current}` }],
-        });
+        throw new StaleConflictException(
+          `The spec of ${part.partNumber} is now at version ${current}; you edited version ${request.baseVersion}. Reload, compare and save again.`,
+          {
+            current: { version: current },
+            errors: [{ path: 'baseVersion', message: `current version is ${current}` }],
+          },
+        );
       }
       if (current > 0) {
         // Nothing changed (a note alone is no change of the requirement): no version, no

@@ -9,7 +9,13 @@ describe('absoluteLinks', () => {
   it('prefixes app paths at the start of a line, after a space or a colon', () => {
     const body = ['Open it in Shuntwise: /qualifications/12', '', 'Sources of HP-1: /sources?housePartId=3', '/board', '(see /find).'].join('\n');
     expect(absoluteLinks(body, `${base}/`)).toBe(
-      ['Open it in Shuntwise: http://127.0.0.1:8080/qualifications/12', '', 'Sources of HP-1: http://127.0.0.1:8080/sources?housePartId=3', 'http://127.0.0.1:8080/board', '(see http://127.0.0.1:8080/find).'].join('\n'),
+      [
+        'Open it in Shuntwise: http://127.0.0.1:8080/qualifications/12',
+        '',
+        'Sources of HP-1: http://127.0.0.1:8080/sources?housePartId=3',
+        'http://127.0.0.1:8080/board',
+        '(see http://127.0.0.1:8080/find).',
+      ].join('\n'),
     );
   });
 
@@ -23,11 +29,15 @@ describe('absoluteLinks', () => {
     console.log(`absoluteLinks seed ${seed}`);
     const word = fc.stringMatching(/^[a-z][a-z0-9-]{0,10}$/);
     fc.assert(
-      fc.property(fc.array(word, { minLength: 1, maxLength: 3 }), fc.array(fc.stringMatching(/^[A-Za-z0-9 .,:]{0,12}$/), { maxLength: 4 }), (segments, words) => {
-        const path = `/${segments.join('/')}`;
-        const out = absoluteLinks([...words, path].join(' '), base);
-        return out.endsWith(`${base}${path}`) && !new RegExp(`(^|\\s)${path.replace(/[-/]/g, '\\$&')}$`).test(out);
-      }),
+      fc.property(
+        fc.array(word, { minLength: 1, maxLength: 3 }),
+        fc.array(fc.stringMatching(/^[A-Za-z0-9 .,:]{0,12}$/), { maxLength: 4 }),
+        (segments, words) => {
+          const path = `/${segments.join('/')}`;
+          const out = absoluteLinks([...words, path].join(' '), base);
+          return out.endsWith(`${base}${path}`) && !new RegExp(`(^|\\s)${path.replace(/[-/]/g, '\\$&')}$`).test(out);
+        },
+      ),
       { seed },
     );
   });

@@ -183,7 +183,10 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
         this.unsettled.set(mail.id, result);
         throw error;
       }
-      if (!kept) this.logger.warn(`mail ${mail.id} was sent after this replica's claim ran out (the send took longer than MAIL_CLAIM_SECONDS); another replica may send it again`);
+      if (!kept)
+        this.logger.warn(
+          `mail ${mail.id} was sent after this replica's claim ran out (the send took longer than MAIL_CLAIM_SECONDS); another replica may send it again`,
+        );
       delivered++;
     }
     return { delivered, refused: false };

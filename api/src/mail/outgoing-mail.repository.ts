@@ -51,10 +51,13 @@ export class OutgoingMailRepository {
     });
     // Read back rather than count affected rows: the driver counts changed rows, and a lease renewed
     // within the same second as the claim leaves the row unchanged.
-    const [row] = await this.sequelize.query<{ claimedBy: string | null }>("SELECT claimed_by AS claimedBy FROM outgoing_mail WHERE id = ? AND state = 'pending'", {
-      replacements: [id],
-      type: QueryTypes.SELECT,
-    });
+    const [row] = await this.sequelize.query<{ claimedBy: string | null }>(
+      "SELECT claimed_by AS claimedBy FROM outgoing_mail WHERE id = ? AND state = 'pending'",
+      {
+        replacements: [id],
+        type: QueryTypes.SELECT,
+      },
+    );
     return row?.claimedBy === replicaId;
   }
 

@@ -9,11 +9,20 @@ import { analyseMeasurements } from './measurement-analysis';
 const VT = 0.025693;
 function sample(sampleId: string, lot: string, v0: number, n = 2, rs = 5, iRef = 0.005): MeasuredSample {
   const currents = [0.0002, 0.0005, 0.001, 0.002, 0.005, 0.01, 0.02];
-  return { sampleId, lot, points: currents.map((current) => ({ current, voltage: v0 + n * VT * Math.log(current / iRef) + rs * (current - iRef), tempC: 25 })) };
+  return {
+    sampleId,
+    lot,
+    points: currents.map((current) => ({ current, voltage: v0 + n * VT * Math.log(current / iRef) + rs * (current - iRef), tempC: 25 })),
+  };
 }
 
 const card: EngineeringCardInput = { vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.005, zzt: 20, izk: 0.00025, zzk: 600 };
-const spec: Spec = specSchema.parse({ iRef: 0.01, vz: { min: 4.9, nom: 5.1, max: 5.3 }, zdMax: 25, envelope: { iMin: 0.001, iMax: 0.02, taMin: -20, taMax: 70 } });
+const spec: Spec = specSchema.parse({
+  iRef: 0.01,
+  vz: { min: 4.9, nom: 5.1, max: 5.3 },
+  zdMax: 25,
+  envelope: { iMin: 0.001, iMax: 0.02, taMin: -20, taMax: 70 },
+});
 
 describe('measured samples against the card and the spec', () => {
   it('a lot inside the datasheet window is not failed; the nearest sample sets the margin; the spread is per lot and over all', () => {
@@ -25,7 +34,11 @@ describe('measured samples against the card and the spec', () => {
     expect(vz.failingSamples).toEqual([]);
     expect(a.samples[0].vzAtIzt).toBeCloseTo(5.05, 6);
     expect(a.samples[0].zdAtIzt).toBeCloseTo((2 * VT) / 0.005 + 5, 3);
-    expect(a.lots.map((l) => [l.lot, l.samples])).toEqual([['L1', 2], ['L2', 1], [null, 3]]);
+    expect(a.lots.map((l) => [l.lot, l.samples])).toEqual([
+      ['L1', 2],
+      ['L2', 1],
+      [null, 3],
+    ]);
     expect(a.lots[0].vzAtIzt!.mean).toBeCloseTo(5.085, 6);
   });
 
@@ -61,7 +74,11 @@ describe('measured samples against the card and the spec', () => {
   });
 
   it('does not read a figure outside the measured currents', () => {
-    const narrow: MeasuredSample = { sampleId: 'N', lot: null, points: [0.005, 0.01, 0.02, 0.05].map((current) => ({ current, voltage: 5.1 + 0.05 * Math.log(current / 0.005), tempC: 25 })) };
+    const narrow: MeasuredSample = {
+      sampleId: 'N',
+      lot: null,
+      points: [0.005, 0.01, 0.02, 0.05].map((current) => ({ current, voltage: 5.1 + 0.05 * Math.log(current / 0.005), tempC: 25 })),
+    };
     const a = analyseMeasurements({ samples: [narrow], card, cardVersion: 1, spec: null });
     expect(a.samples[0].zdAtKnee).toBeNull();
     expect(a.samples[0].warnings.join(' ')).toMatch(/outside the measured currents/);

@@ -78,7 +78,16 @@ export function analyseMeasurements(input: MeasurementAnalysisInput): Measuremen
       };
       return {
         ...empty,
-        model: { bv: m.bv, ibv: m.ibv, nbv: m.nbv, rs: m.rs, nbvVt: m.nbvVt, alphaVz: fit.alphaFitted ? m.alphaVz : null, basis: 'measured', assumptions: fit.assumptions },
+        model: {
+          bv: m.bv,
+          ibv: m.ibv,
+          nbv: m.nbv,
+          rs: m.rs,
+          nbvVt: m.nbvVt,
+          alphaVz: fit.alphaFitted ? m.alphaVz : null,
+          basis: 'measured',
+          assumptions: fit.assumptions,
+        },
         residualRms: fit.residualRms,
         currentRange: { min: fit.currentMin, max: fit.currentMax },
         vzAtIzt: card ? at(card.izt, (i) => diodeVoltage(m, i, T_REF_C), 'the card’s izt') : null,
@@ -95,14 +104,16 @@ export function analyseMeasurements(input: MeasurementAnalysisInput): Measuremen
     }
   });
   const failedFits = samples.filter((s) => s.error !== null);
-  if (failedFits.length > 0) warnings.push(`${failedFits.length} of ${samples.length} sample(s) could not be fitted: ${failedFits.map((s) => `${s.sampleId} (${s.error})`).join('; ')}`);
+  if (failedFits.length > 0)
+    warnings.push(`${failedFits.length} of ${samples.length} sample(s) could not be fitted: ${failedFits.map((s) => `${s.sampleId} (${s.error})`).join('; ')}`);
   assumptions.push('each sample: V(I) = BV + NBV·Vt·ln(I/IBV) + RS·I fitted by least squares; figures read from the fit at 25 °C');
 
   const lots = lotsOf(samples);
   const band = spec?.spec.marginalBandPercent ?? DEFAULT_BAND_PERCENT;
   const checks: MeasuredCheck[] = [];
   if (card) {
-    if (card.vzMin != null && card.vzMax != null) checks.push(windowCheck('card-vz', 'card', samples, (s) => s.vzAtIzt, card.vzMin, card.vzMax, band, amps(card.izt)));
+    if (card.vzMin != null && card.vzMax != null)
+      checks.push(windowCheck('card-vz', 'card', samples, (s) => s.vzAtIzt, card.vzMin, card.vzMax, band, amps(card.izt)));
     if (card.zzt != null) checks.push(maxCheck('card-zzt', 'card', samples, (s) => s.zdAtIzt, card.zzt, band, amps(card.izt)));
     if (card.zzk != null && card.izk != null) checks.push(maxCheck('card-zzk', 'card', samples, (s) => s.zdAtKnee, card.zzk, band, amps(card.izk)));
   }
@@ -136,7 +147,12 @@ function datasheetBand(card: EngineeringCardInput, samples: SampleResult[], warn
     const model = fitBreakdownModel(card);
     return Array.from({ length: 40 }, (_, k) => {
       const current = lo * (hi / lo) ** (k / 39);
-      return { current, low: diodeVoltage(model, current, T_REF_C, 'min'), nom: diodeVoltage(model, current, T_REF_C, 'nom'), high: diodeVoltage(model, current, T_REF_C, 'max') };
+      return {
+        current,
+        low: diodeVoltage(model, current, T_REF_C, 'min'),
+        nom: diodeVoltage(model, current, T_REF_C, 'nom'),
+        high: diodeVoltage(model, current, T_REF_C, 'max'),
+      };
     });
   } catch (error) {
     if (!(error instanceof EngineeringInputError)) throw error;
@@ -150,7 +166,14 @@ function lotsOf(samples: SampleResult[]): LotResult[] {
   for (const s of samples) byLot.set(s.lot, [...(byLot.get(s.lot) ?? []), s]);
   const lotResult = (lot: string | null, list: SampleResult[]): LotResult => {
     const figures = (pick: (s: SampleResult) => number | null) => spreadOf(list.map(pick).filter((v): v is number => v !== null));
-    return { lot, samples: list.length, vzAtIzt: figures((s) => s.vzAtIzt), vzAtIRef: figures((s) => s.vzAtIRef), zdAtIzt: figures((s) => s.zdAtIzt), zdAtKnee: figures((s) => s.zdAtKnee) };
+    return {
+      lot,
+      samples: list.length,
+      vzAtIzt: figures((s) => s.vzAtIzt),
+      vzAtIRef: figures((s) => s.vzAtIRef),
+      zdAtIzt: figures((s) => s.zdAtIzt),
+      zdAtKnee: figures((s) => s.zdAtKnee),
+    };
   };
   const lots = [...byLot.entries()].map(([lot, list]) => lotResult(lot, list));
   if (byLot.size > 1) lots.push(lotResult(null, samples));
@@ -169,7 +192,8 @@ function windowCheck(
 ): MeasuredCheck {
   const base = { id, label: MEASURED_CHECK_LABELS[id], against, quantity: 'voltage' as const, limitKind: 'window' as const, window: { min, max } };
   const read = samples.map((s) => ({ s, v: pick(s) })).filter((x): x is { s: SampleResult; v: number } => x.v !== null);
-  if (read.length === 0) return { ...base, verdict: 'no-data', value: null, limit: null, margin: null, failingSamples: [], detail: `no sample could be read at ${at}` };
+  if (read.length === 0)
+    return { ...base, verdict: 'no-data', value: null, limit: null, margin: null, failingSamples: [], detail: `no sample could be read at ${at}` };
   let worst = { margin: Infinity, value: 0, limit: 0 };
   for (const { v } of read) {
     const low = percent(v - min, min);
@@ -190,7 +214,15 @@ function windowCheck(
   };
 }
 
-function maxCheck(id: MeasuredCheckId, against: 'card' | 'spec', samples: SampleResult[], pick: (s: SampleResult) => number | null, limit: number, band: number, at: string): MeasuredCheck {
+function maxCheck(
+  id: MeasuredCheckId,
+  against: 'card' | 'spec',
+  samples: SampleResult[],
+  pick: (s: SampleResult) => number | null,
+  limit: number,
+  band: number,
+  at: string,
+): MeasuredCheck {
   const base = { id, label: MEASURED_CHECK_LABELS[id], against, quantity: 'resistance' as const, limitKind: 'max' as const, window: null, limit };
   const read = samples.map((s) => ({ s, v: pick(s) })).filter((x): x is { s: SampleResult; v: number } => x.v !== null);
   if (read.length === 0) return { ...base, verdict: 'no-data', value: null, margin: null, failingSamples: [], detail: `no sample could be read at ${at}` };

@@ -3,11 +3,24 @@ import { readMeasurementCsv } from './measurement-csv';
 // Unit factors: SI prefixes (common practice, no source); 1 mA = 1e-3 A, 1 µA = 1e-6 A.
 describe('reading a measurement CSV', () => {
   it('reads samples with units in the headers, a temperature and a lot column', () => {
-    const csv = ['Sample,Lot,Current (mA),Voltage (V),Temperature (°C)', 'S1,L2301,1,5.02,25', 'S1,L2301,5,5.08,25', 'S2,L2301,0.5,4.99,75', 'S2,L2301,20,5.2,75'].join('\n');
+    const csv = [
+      'Sample,Lot,Current (mA),Voltage (V),Temperature (°C)',
+      'S1,L2301,1,5.02,25',
+      'S1,L2301,5,5.08,25',
+      'S2,L2301,0.5,4.99,75',
+      'S2,L2301,20,5.2,75',
+    ].join('\n');
     const reading = readMeasurementCsv(csv);
     expect(reading.errors).toEqual([]);
     expect(reading.samples).toHaveLength(2);
-    expect(reading.samples[0]).toEqual({ sampleId: 'S1', lot: 'L2301', points: [{ current: 0.001, voltage: 5.02, tempC: 25 }, { current: 0.005, voltage: 5.08, tempC: 25 }] });
+    expect(reading.samples[0]).toEqual({
+      sampleId: 'S1',
+      lot: 'L2301',
+      points: [
+        { current: 0.001, voltage: 5.02, tempC: 25 },
+        { current: 0.005, voltage: 5.08, tempC: 25 },
+      ],
+    });
     expect(reading.samples[1].points[1]).toEqual({ current: 0.02, voltage: 5.2, tempC: 75 });
   });
 

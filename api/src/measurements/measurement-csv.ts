@@ -64,7 +64,12 @@ export function readMeasurementCsv(text: string): MeasurementCsvReading {
   const columns = records[0].map((header) => readHeader(header));
   const index = (column: MeasurementColumn) => columns.findIndex((c) => c.column === column);
   for (const needed of ['current', 'voltage'] as const) {
-    if (index(needed) < 0) errors.push({ row: 1, column: needed, message: `no ${needed} column: name one "${needed}" with its unit, e.g. "${needed} (${needed === 'current' ? 'mA' : 'V'})"` });
+    if (index(needed) < 0)
+      errors.push({
+        row: 1,
+        column: needed,
+        message: `no ${needed} column: name one "${needed}" with its unit, e.g. "${needed} (${needed === 'current' ? 'mA' : 'V'})"`,
+      });
   }
   for (const c of columns) if (c.column === null) warnings.push(`column "${c.header}" is not a measurement column and was left out`);
   const seen = new Set<MeasurementColumn>();
@@ -114,7 +119,11 @@ export function readMeasurementCsv(text: string): MeasurementCsvReading {
       voltage = -voltage;
       flipped++;
     } else if (current <= 0 || voltage <= 0) {
-      errors.push({ row, column: columns[index('current')].header, message: 'current and voltage must both be reverse (both positive, or both negative as a source-measure unit writes them)' });
+      errors.push({
+        row,
+        column: columns[index('current')].header,
+        message: 'current and voltage must both be reverse (both positive, or both negative as a source-measure unit writes them)',
+      });
       continue;
     }
     const sampleId = cell('sample') || 'sample 1';

@@ -14,7 +14,14 @@ export class MeasurementSetsRepository {
   }
 
   findByVendorPart(vendorPartId: number): Promise<MeasurementSetRow[]> {
-    return this.sets.findAll({ where: { vendorPartId }, include: [{ model: User, attributes: ['id', 'name'] }], order: [['createdAt', 'DESC'], ['id', 'DESC']] });
+    return this.sets.findAll({
+      where: { vendorPartId },
+      include: [{ model: User, attributes: ['id', 'name'] }],
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
+    });
   }
 
   findBySha256(vendorPartId: number, sha256: string): Promise<MeasurementSetRow | null> {
@@ -22,7 +29,22 @@ export class MeasurementSetsRepository {
   }
 
   create(
-    values: Pick<MeasurementSetRow, 'vendorPartId' | 'storageKey' | 'sha256' | 'fileName' | 'sizeBytes' | 'lot' | 'instrument' | 'measuredOn' | 'note' | 'samples' | 'sampleCount' | 'pointCount' | 'uploadedById'>,
+    values: Pick<
+      MeasurementSetRow,
+      | 'vendorPartId'
+      | 'storageKey'
+      | 'sha256'
+      | 'fileName'
+      | 'sizeBytes'
+      | 'lot'
+      | 'instrument'
+      | 'measuredOn'
+      | 'note'
+      | 'samples'
+      | 'sampleCount'
+      | 'pointCount'
+      | 'uploadedById'
+    >,
     transaction: Transaction,
   ): Promise<MeasurementSetRow> {
     return this.sets.create(values, { transaction });

@@ -1,13 +1,15 @@
 import { createHash, randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
-import { BadRequestException, ConflictException, Injectable, Logger, NotFoundException, ServiceUnavailableException, UnprocessableEntityException } from '@nestjs/common';
 import {
-  toEngineeringCard,
-  type MeasuredSample,
-  type MeasurementCsvReading,
-  type MeasurementSet,
-  type MeasurementSetFields,
-} from '@shuntwise/contracts';
+  BadRequestException,
+  ConflictException,
+  Injectable,
+  Logger,
+  NotFoundException,
+  ServiceUnavailableException,
+  UnprocessableEntityException,
+} from '@nestjs/common';
+import { toEngineeringCard, type MeasuredSample, type MeasurementCsvReading, type MeasurementSet, type MeasurementSetFields } from '@shuntwise/contracts';
 import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
@@ -53,7 +55,10 @@ export class MeasurementSetsService {
   async upload(file: UploadedFile | undefined, fields: MeasurementSetFields, user: AuthUser): Promise<MeasurementSet> {
     const text = this.text(file);
     if (!(await this.vendorParts.findById(fields.vendorPartId))) {
-      throw new BadRequestException({ message: `No vendor part with id ${fields.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
+      throw new BadRequestException({
+        message: `No vendor part with id ${fields.vendorPartId}`,
+        errors: [{ path: 'vendorPartId', message: 'no such vendor part' }],
+      });
     }
     const reading = readMeasurementCsv(text);
     if (reading.errors.length > 0) {
@@ -67,7 +72,11 @@ export class MeasurementSetsService {
     const buffer = file!.buffer;
     const sha256 = createHash('sha256').update(buffer).digest('hex');
     const known = await this.sets.findBySha256(fields.vendorPartId, sha256);
-    if (known) throw new ConflictException({ message: `This file is already measurement set ${known.id} of this part; nothing was stored again.`, errors: [{ path: 'file', message: `same as measurement set ${known.id}` }] });
+    if (known)
+      throw new ConflictException({
+        message: `This file is already measurement set ${known.id} of this part; nothing was stored again.`,
+        errors: [{ path: 'file', message: `same as measurement set ${known.id}` }],
+      });
 
     const key = `measurements/${randomUUID()}.csv`;
     const transaction = await this.unitOfWork.begin();
@@ -91,7 +100,10 @@ export class MeasurementSetsService {
         },
         transaction,
       );
-      await this.events.publish({ kind: 'measurements-added', vendorPartId: fields.vendorPartId, measurementSetId: row.id, samples: samples.length, userId: user.id }, transaction);
+      await this.events.publish(
+        { kind: 'measurements-added', vendorPartId: fields.vendorPartId, measurementSetId: row.id, samples: samples.length, userId: user.id },
+        transaction,
+      );
       try {
         await this.storage.put(key, buffer, 'text/csv', sha256);
       } catch (error) {
@@ -166,9 +178,14 @@ export class MeasurementSetsService {
   }
 
   private text(file: UploadedFile | undefined): string {
-    if (!file) throw new BadRequestException({ message: 'No file: send the CSV in the multipart field "file"', errors: [{ path: 'file', message: 'missing' }] });
+    if (!file)
+      throw new BadRequestException({ message: 'No file: send the CSV in the multipart field "file"', errors: [{ path: 'file', message: 'missing' }] });
     const text = new TextDecoder('utf-8', { fatal: false }).decode(file.buffer);
-    if (text.includes('\u0000')) throw new UnprocessableEntityException({ message: 'The file is not text: send the measurements as CSV', errors: [{ path: 'file', message: 'binary content' }] });
+    if (text.includes('\u0000'))
+      throw new UnprocessableEntityException({
+        message: 'The file is not text: send the measurements as CSV',
+        errors: [{ path: 'file', message: 'binary content' }],
+      });
     return text;
   }
 }

@@ -123,7 +123,12 @@ export class QualificationRequestsRepository {
    * one choice). A plain read: two requests at the same moment both pass it, and the unique
    * open-request index refuses the second insert (a locking read here made them deadlock).
    */
-  async openDuplicate(requestedById: number, vendorPartId: number, housePartId: number | null, transaction: Transaction): Promise<{ id: number; createdAt: Date } | null> {
+  async openDuplicate(
+    requestedById: number,
+    vendorPartId: number,
+    housePartId: number | null,
+    transaction: Transaction,
+  ): Promise<{ id: number; createdAt: Date } | null> {
     const [row] = await this.select<{ id: number; createdAt: Date }>(
       `SELECT id, created_at AS createdAt FROM qualification_requests
        WHERE state = 'open' AND requested_by_id = ? AND vendor_part_id = ? AND ${housePartId === null ? 'house_part_id IS NULL' : 'house_part_id = ?'}`,
@@ -147,7 +152,11 @@ export class QualificationRequestsRepository {
   }
 
   async vendorPart(id: number, transaction?: Transaction): Promise<{ id: number; manufacturer: string; mpn: string } | null> {
-    const [row] = await this.select<{ id: number; manufacturer: string; mpn: string }>('SELECT id, manufacturer_name AS manufacturer, mpn FROM vendor_parts WHERE id = ?', [id], transaction);
+    const [row] = await this.select<{ id: number; manufacturer: string; mpn: string }>(
+      'SELECT id, manufacturer_name AS manufacturer, mpn FROM vendor_parts WHERE id = ?',
+      [id],
+      transaction,
+    );
     return row ?? null;
   }
 
@@ -170,8 +179,11 @@ export class QualificationRequestsRepository {
   }
 
   async user(id: number, transaction?: Transaction): Promise<{ id: number; name: string; email: string; active: boolean } | null> {
-    const [row] = await this.select<{ id: number; name: string; email: string; active: number | boolean }>('SELECT id, name, email, active FROM users WHERE id = ?', [id], transaction);
+    const [row] = await this.select<{ id: number; name: string; email: string; active: number | boolean }>(
+      'SELECT id, name, email, active FROM users WHERE id = ?',
+      [id],
+      transaction,
+    );
     return row ? { ...row, active: Boolean(row.active) } : null;
   }
-
 }

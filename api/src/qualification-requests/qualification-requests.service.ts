@@ -70,7 +70,8 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
   async get(id: number, user: AuthUser): Promise<QualificationRequestDto> {
     const row = await this.requests.findRow(id);
     if (!row) throw new NotFoundException(`No qualification request with id ${id}`);
-    if (user.role === 'designer' && row.requestedById !== user.id) throw new ForbiddenException(`Request #${id} is ${row.requestedByName}'s; designers see their own requests only`);
+    if (user.role === 'designer' && row.requestedById !== user.id)
+      throw new ForbiddenException(`Request #${id} is ${row.requestedByName}'s; designers see their own requests only`);
     return toDto(row);
   }
 
@@ -81,9 +82,14 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
     try {
       id = await this.unitOfWork.run(async (transaction) => {
         const vp = await this.requests.vendorPart(request.vendorPartId, transaction);
-        if (!vp) throw new NotFoundException({ message: `No vendor part with id ${request.vendorPartId}`, errors: [{ path: 'vendorPartId', message: 'no such vendor part' }] });
+        if (!vp)
+          throw new NotFoundException({
+            message: `No vendor part with id ${request.vendorPartId}`,
+            errors: [{ path: 'vendorPartId', message: 'no such vendor part' }],
+          });
         const hp = housePartId !== null ? await this.requests.housePart(housePartId, transaction) : null;
-        if (housePartId !== null && !hp) throw new NotFoundException({ message: `No house part with id ${housePartId}`, errors: [{ path: 'housePartId', message: 'no such house part' }] });
+        if (housePartId !== null && !hp)
+          throw new NotFoundException({ message: `No house part with id ${housePartId}`, errors: [{ path: 'housePartId', message: 'no such house part' }] });
         if (hp && user.role === 'designer' && !isOfferedToDesigners(hp.status)) {
           throw new UnprocessableEntityException({
             message: `House part ${hp.partNumber} is a draft still being specified: ask for the part without a house part, or choose one in use`,
@@ -198,11 +204,15 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
   private async refuseAnswered(hp: { id: number; partNumber: string }, part: string, vendorPartId: number, transaction: Transaction): Promise<void> {
     const { basis, openCase } = sourceStanding(await this.requests.pairCases(hp.id, vendorPartId, transaction));
     if (basis && isUsableState(basis.state)) {
-      throw new ConflictException(`${part} is already ${QUALIFICATION_STATE_LABELS[basis.state].toLowerCase()} for ${hp.partNumber} (case #${basis.id}): you may design it in; Find parts shows its conditions`);
+      throw new ConflictException(
+        `${part} is already ${QUALIFICATION_STATE_LABELS[basis.state].toLowerCase()} for ${hp.partNumber} (case #${basis.id}): you may design it in; Find parts shows its conditions`,
+      );
     }
     const underWay = openCase ?? (basis && isOpenState(basis.state) ? basis : null);
     if (underWay) {
-      throw new ConflictException(`A qualification of ${part} for ${hp.partNumber} is already under way (case #${underWay.id}); Find parts shows it once it is cleared`);
+      throw new ConflictException(
+        `A qualification of ${part} for ${hp.partNumber} is already under way (case #${underWay.id}); Find parts shows it once it is cleared`,
+      );
     }
   }
 
@@ -210,7 +220,9 @@ export class QualificationRequestsService implements OnModuleInit, OnModuleDestr
     const by = row.closedById !== null ? (await this.requests.user(row.closedById))?.name : undefined;
     const who = by ? ` by ${by}` : '';
     return new ConflictException(
-      row.state === 'taken-up' ? `Request #${row.id} was already taken up${who} (case #${row.qualificationId})` : `Request #${row.id} was already declined${who}`,
+      row.state === 'taken-up'
+        ? `Request #${row.id} was already taken up${who} (case #${row.qualificationId})`
+        : `Request #${row.id} was already declined${who}`,
     );
   }
 
@@ -256,7 +268,10 @@ export function checkNeededBy(neededBy: string | null, now = new Date()): void {
   if (neededBy === null) return;
   const earliest = new Date(now.getTime() - NEEDED_BY_GRACE_DAYS * 86_400_000).toISOString().slice(0, 10);
   if (neededBy < earliest) {
-    throw new BadRequestException({ message: `neededBy (${neededBy}) is in the past: give the date the design needs the part by, or leave it out`, errors: [{ path: 'neededBy', message: 'in the past' }] });
+    throw new BadRequestException({
+      message: `neededBy (${neededBy}) is in the past: give the date the design needs the part by, or leave it out`,
+      errors: [{ path: 'neededBy', message: 'in the past' }],
+    });
   }
 }
 

@@ -78,7 +78,13 @@ export class QualificationViewsRepository {
   async board(
     query: BoardQuery,
     now: Date,
-  ): Promise<{ heads: HousePartHead[]; sources: BoardSourceRow[]; total: number; counts: Array<{ state: string; n: number | bigint }>; engineers: Array<{ id: number; name: string }> }> {
+  ): Promise<{
+    heads: HousePartHead[];
+    sources: BoardSourceRow[];
+    total: number;
+    counts: Array<{ state: string; n: number | bigint }>;
+    engineers: Array<{ id: number; name: string }>;
+  }> {
     const where: string[] = [];
     const params: unknown[] = [];
     if (query.q) {
@@ -186,7 +192,16 @@ export class QualificationViewsRepository {
     );
   }
 
-  async sourcesOf(housePartIds: number[]): Promise<Array<Omit<BoardSourceRow, 'caseId' | 'revision' | 'state' | 'overall' | 'preparedById' | 'preparedByName' | 'decidedById' | 'decidedByName' | 'needsRecheck' | 'updatedAt'>>> {
+  async sourcesOf(
+    housePartIds: number[],
+  ): Promise<
+    Array<
+      Omit<
+        BoardSourceRow,
+        'caseId' | 'revision' | 'state' | 'overall' | 'preparedById' | 'preparedByName' | 'decidedById' | 'decidedByName' | 'needsRecheck' | 'updatedAt'
+      >
+    >
+  > {
     if (housePartIds.length === 0) return [];
     return this.select(
       `SELECT s.house_part_id AS housePartId, s.vendor_part_id AS vendorPartId, vp.manufacturer_name AS manufacturer, vp.mpn, vp.package,

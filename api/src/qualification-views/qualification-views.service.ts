@@ -89,7 +89,8 @@ export class QualificationViewsService {
     // Waivers past their day end before the standing is read (every replica may run it; it happens once).
     await this.waivers.lapseDue();
     const heads = await this.cases.sourceHeads({ housePartId: query.housePartId, q: query.q, buyerId: query.mine ? user.id : undefined });
-    if (query.housePartId !== undefined && heads.length === 0 && !query.mine && !query.q) throw new NotFoundException(`No house part with id ${query.housePartId}`);
+    if (query.housePartId !== undefined && heads.length === 0 && !query.mine && !query.q)
+      throw new NotFoundException(`No house part with id ${query.housePartId}`);
     const ids = heads.map((h) => h.id);
     const [sources, cases] = await Promise.all([this.cases.sourcesOf(ids), this.cases.casesOf(ids)]);
     const waivers = await this.waivers.briefsOf(cases.filter((c) => c.state === 'cleared-with-waiver' || c.state === 'waiver-lapsed').map((c) => c.id));
@@ -104,12 +105,10 @@ export class QualificationViewsService {
       housePart: { id: h.id, partNumber: h.partNumber, description: h.description, status: h.status },
       sources: sources
         .filter((s) => s.housePartId === h.id)
-        .map(
-          (s): SourceStandingRow => {
-            const row = standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? [], waivers);
-            return { vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package }, role: sourceRoleOf(row.standing), ...row };
-          },
-        )
+        .map((s): SourceStandingRow => {
+          const row = standing(casesByPair.get(`${h.id}/${s.vendorPartId}`) ?? [], waivers);
+          return { vendorPart: { id: s.vendorPartId, manufacturer: s.manufacturer, mpn: s.mpn, package: s.package }, role: sourceRoleOf(row.standing), ...row };
+        })
         .filter(visible),
     }));
     return { items };
@@ -200,9 +199,23 @@ export class QualificationViewsService {
  * contracts) reads from them, with the decision it comes from (who, when, on what
  * conditions) and any newer case still open beside it.
  */
-export function standing(cases: readonly PairCaseRow[], waiversOf: ReadonlyMap<number, WaiverBrief[]> = new Map()): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
+export function standing(
+  cases: readonly PairCaseRow[],
+  waiversOf: ReadonlyMap<number, WaiverBrief[]> = new Map(),
+): Omit<SourceStandingRow, 'vendorPart' | 'role'> {
   const { standing: value, basis, openCase } = sourceStanding(cases);
-  if (!basis) return { standing: 'not-qualified', caseId: null, revision: null, conditions: null, since: null, decidedBy: null, openCase: null, needsRecheck: false, waivers: [] };
+  if (!basis)
+    return {
+      standing: 'not-qualified',
+      caseId: null,
+      revision: null,
+      conditions: null,
+      since: null,
+      decidedBy: null,
+      openCase: null,
+      needsRecheck: false,
+      waivers: [],
+    };
   const iso = (d: Date | null) => (d === null ? null : new Date(d).toISOString());
   const revoked = basis.state === 'revoked';
   return {

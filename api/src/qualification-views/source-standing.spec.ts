@@ -43,7 +43,9 @@ describe('source standing', () => {
     const note = 'Reviewed against rev. C of the datasheet';
     expect(standing([row({ id: 5, state: 'approved', decisionText: note, decidedAt: new Date() })]).conditions).toBeNull();
     expect(standing([row({ id: 5, state: 'cleared', decisionText: note, decidedAt: new Date() })]).conditions).toBeNull();
-    expect(standing([row({ id: 5, state: 'cleared-with-conditions', decisionText: 'sample 5 per lot', decidedAt: new Date() })]).conditions).toBe('sample 5 per lot');
+    expect(standing([row({ id: 5, state: 'cleared-with-conditions', decisionText: 'sample 5 per lot', decidedAt: new Date() })]).conditions).toBe(
+      'sample 5 per lot',
+    );
     expect(standing([row({ id: 5, state: 'rejected', decisionText: 'leakage too high', decidedAt: new Date() })]).conditions).toBe('leakage too high');
   });
 
@@ -54,7 +56,10 @@ describe('source standing', () => {
   });
 
   it('an alternate reads its latest decided case, with a newer open one beside it', () => {
-    const s = standing([row({ id: 1, state: 'cleared', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 2, decidedByName: 'B' }), row({ id: 2, revision: 2, state: 'draft' })]);
+    const s = standing([
+      row({ id: 1, state: 'cleared', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 2, decidedByName: 'B' }),
+      row({ id: 2, revision: 2, state: 'draft' }),
+    ]);
     expect(s).toMatchObject({ standing: 'cleared', caseId: 1, openCase: { id: 2, state: 'draft' } });
   });
 });

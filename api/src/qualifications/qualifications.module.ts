@@ -22,7 +22,14 @@ import { WaiversService } from './waivers.service';
 
 /** Qualification cases, their trail and comments, waivers, and decision records (the buyers of each house part: house-part-buyers/). The screens' read models are in qualification-views/; the demo cases in seed/. */
 @Module({
-  imports: [SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, DecisionRecord, QualificationWaiver]), UsersModule, HousePartBuyersModule, HousePartsModule, VendorPartsModule, MeasurementsModule],
+  imports: [
+    SequelizeModule.forFeature([Qualification, QualificationEvent, QualificationComment, DecisionRecord, QualificationWaiver]),
+    UsersModule,
+    HousePartBuyersModule,
+    HousePartsModule,
+    VendorPartsModule,
+    MeasurementsModule,
+  ],
   controllers: [QualificationsController, WaiversController, DecisionRecordsController],
   providers: [QualificationsRepository, QualificationsService, DecisionRecordsRepository, DecisionRecordsService, WaiversRepository, WaiversService],
   exports: [QualificationsService, QualificationsRepository, DecisionRecordsService, WaiversService],

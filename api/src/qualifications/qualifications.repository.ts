@@ -111,7 +111,11 @@ export class QualificationsRepository {
    * Every read here is a locking read, so it sees the latest commit rather than the
    * transaction's snapshot.
    */
-  async catalogueBasis(housePartId: number, vendorPartId: number, transaction: Transaction): Promise<CatalogueBasis | { missing: 'house part' | 'vendor part' }> {
+  async catalogueBasis(
+    housePartId: number,
+    vendorPartId: number,
+    transaction: Transaction,
+  ): Promise<CatalogueBasis | { missing: 'house part' | 'vendor part' }> {
     const [hp] = await this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus; specVersion: number | null }>(
       `SELECT id, part_number AS partNumber, description, status, spec_version AS specVersion FROM house_parts WHERE id = ? LOCK IN SHARE MODE`,
       [housePartId],
@@ -126,10 +130,18 @@ export class QualificationsRepository {
     if (!vp) return { missing: 'vendor part' };
     let spec: Spec | null = null;
     if (hp.specVersion !== null) {
-      const [row] = await this.select<{ spec: Spec | string }>(`SELECT spec FROM house_part_specs WHERE house_part_id = ? AND version = ? LOCK IN SHARE MODE`, [housePartId, hp.specVersion], transaction);
+      const [row] = await this.select<{ spec: Spec | string }>(
+        `SELECT spec FROM house_part_specs WHERE house_part_id = ? AND version = ? LOCK IN SHARE MODE`,
+        [housePartId, hp.specVersion],
+        transaction,
+      );
       spec = row ? json<Spec>(row.spec) : null;
     }
-    const [card] = await this.select<{ version: number; fields: RatingCardFields | string }>(`SELECT version, fields FROM rating_cards WHERE vendor_part_id = ? LOCK IN SHARE MODE`, [vendorPartId], transaction);
+    const [card] = await this.select<{ version: number; fields: RatingCardFields | string }>(
+      `SELECT version, fields FROM rating_cards WHERE vendor_part_id = ? LOCK IN SHARE MODE`,
+      [vendorPartId],
+      transaction,
+    );
     const [source] = await this.select<{ role: SourceRole }>(
       `SELECT ${sourceRoleSql('s')} AS role FROM house_part_sources s WHERE s.house_part_id = ? AND s.vendor_part_id = ? LOCK IN SHARE MODE`,
       [housePartId, vendorPartId],
@@ -165,13 +177,18 @@ export class QualificationsRepository {
   }
 
   async addEvent(
-    values: { qualificationId: number; userId: number | null; action: AuditEntry['action']; fromState?: QualificationState | null; toState?: QualificationState | null; changes?: AuditEntry['changes']; note?: string | null },
+    values: {
+      qualificationId: number;
+      userId: number | null;
+      action: AuditEntry['action'];
+      fromState?: QualificationState | null;
+      toState?: QualificationState | null;
+      changes?: AuditEntry['changes'];
+      note?: string | null;
+    },
     transaction: Transaction,
   ): Promise<void> {
-    await this.events.create(
-      { fromState: null, toState: null, note: null, ...values, changes: values.changes ?? [] },
-      { transaction },
-    );
+    await this.events.create({ fromState: null, toState: null, note: null, ...values, changes: values.changes ?? [] }, { transaction });
   }
 
   listEvents(qualificationId: number): Promise<QualificationEvent[]> {
@@ -187,7 +204,11 @@ export class QualificationsRepository {
   }
 
   async findRow(id: number, transaction?: Transaction): Promise<(CaseRow & { evaluation: Evaluation }) | null> {
-    const [row] = await this.select<CaseRow & { evaluation: Evaluation | string }>(`${CASE_SELECT}, q.evaluation ${CASE_FROM} WHERE q.id = ?`, [id], transaction);
+    const [row] = await this.select<CaseRow & { evaluation: Evaluation | string }>(
+      `${CASE_SELECT}, q.evaluation ${CASE_FROM} WHERE q.id = ?`,
+      [id],
+      transaction,
+    );
     return row ? { ...caseRow(row), evaluation: json<Evaluation>(row.evaluation) } : null;
   }
 

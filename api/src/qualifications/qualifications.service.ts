@@ -149,18 +149,16 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       evaluation: row.evaluation,
       current,
       comments: comments.map((c) => ({ id: c.id, at: c.createdAt.toISOString(), by: { id: c.userId, name: c.user?.name ?? '' }, text: c.text })),
-      audit: audit.map(
-        (e): AuditEntry => ({
-          id: e.id,
-          at: e.createdAt.toISOString(),
-          by: e.user ? { id: e.user.id, name: e.user.name } : null,
-          action: e.action,
-          fromState: e.fromState,
-          toState: e.toState,
-          changes: e.changes,
-          note: e.note,
-        }),
-      ),
+      audit: audit.map((e): AuditEntry => ({
+        id: e.id,
+        at: e.createdAt.toISOString(),
+        by: e.user ? { id: e.user.id, name: e.user.name } : null,
+        action: e.action,
+        fromState: e.fromState,
+        toState: e.toState,
+        changes: e.changes,
+        note: e.note,
+      })),
       allowedActions: allowedActions(row, user, current, next?.state ?? null, {
         gaps: waiverGaps(row.evaluation.checks, waivers, today),
         inForce: waivers.filter((w) => isWaiverInForce(w, today)).length,
@@ -192,11 +190,20 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         }
         const notes: string[] = [];
         if (basis.sourceRole === null) {
-          await this.houseParts.createSource({ housePartId: request.housePartId, vendorPartId: request.vendorPartId, note: 'added when its qualification was opened', addedById: user.id }, transaction);
+          await this.houseParts.createSource(
+            { housePartId: request.housePartId, vendorPartId: request.vendorPartId, note: 'added when its qualification was opened', addedById: user.id },
+            transaction,
+          );
           notes.push(`${basis.vendorPart.manufacturer} ${basis.vendorPart.mpn} added to ${basis.housePart.partNumber} as an alternate source`);
         }
         if (latest) notes.push(`follows withdrawn case #${latest.id}`);
-        const row = await this.openCase(basis, { revision: (latest?.revision ?? 0) + 1, previousId: latest?.id ?? null, summary: request.summary ?? '' }, user, notes, transaction);
+        const row = await this.openCase(
+          basis,
+          { revision: (latest?.revision ?? 0) + 1, previousId: latest?.id ?? null, summary: request.summary ?? '' },
+          user,
+          notes,
+          transaction,
+        );
         return row.id;
       });
     } catch (error) {
@@ -212,7 +219,10 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       const row = await this.lockCase(id, transaction);
       checkVersion(row, request.version);
       if (isDecidedState(row.state)) throw immutable(row, 'edited');
-      if (row.state !== 'draft') throw new ConflictException(`Case #${id} is ${label(row.state).toLowerCase()}; only a draft can be edited${row.state === 'in-review' ? ' (send it back to draft first)' : ''}`);
+      if (row.state !== 'draft')
+        throw new ConflictException(
+          `Case #${id} is ${label(row.state).toLowerCase()}; only a draft can be edited${row.state === 'in-review' ? ' (send it back to draft first)' : ''}`,
+        );
       const changes: AuditEntry['changes'] = [];
       const values: Partial<Qualification> = {};
       if (request.summary !== undefined && request.summary !== row.summary) {
@@ -261,7 +271,15 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
       const waived = action === 'clear-with-waiver' ? await this.waivers.factsFor(row, transaction) : undefined;
       const block = actionBlock(
         action,
-        { state: row.state, preparedById: row.preparedById, overall: row.overall, fresh, nextId: next?.id ?? null, nextState: next?.state ?? null, waivers: waived },
+        {
+          state: row.state,
+          preparedById: row.preparedById,
+          overall: row.overall,
+          fresh,
+          nextId: next?.id ?? null,
+          nextState: next?.state ?? null,
+          waivers: waived,
+        },
         user,
       );
       if (block) throw refusal(block, action, row, basis, next, waived?.gaps);
@@ -303,7 +321,12 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         });
       }
       const state = QUALIFICATION_TRANSITIONS[action].to as 'approved' | 'cleared' | 'cleared-with-conditions' | 'cleared-with-waiver' | 'rejected';
-      const text = action === 'clear' || action === 'approve' || action === 'clear-with-waiver' ? (body.note ?? null) : action === 'clear-with-conditions' ? body.conditions! : body.reason!;
+      const text =
+        action === 'clear' || action === 'approve' || action === 'clear-with-waiver'
+          ? (body.note ?? null)
+          : action === 'clear-with-conditions'
+            ? body.conditions!
+            : body.reason!;
       return { toState: state, fields: { decisionState: state, decidedById: user.id, decidedAt: now, decisionText: text || null }, note: text || null };
     }
     switch (action) {
@@ -326,10 +349,16 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   private async checkReviewer(reviewerId: number, row: Qualification, transaction: Transaction): Promise<void> {
     const reviewer = await this.users.findById(reviewerId, transaction);
     if (!reviewer || !reviewer.active || reviewer.role !== 'engineer') {
-      throw new UnprocessableEntityException({ message: `User ${reviewerId} is not an active engineer and cannot review`, errors: [{ path: 'reviewerId', message: 'must be an active engineer' }] });
+      throw new UnprocessableEntityException({
+        message: `User ${reviewerId} is not an active engineer and cannot review`,
+        errors: [{ path: 'reviewerId', message: 'must be an active engineer' }],
+      });
     }
     if (reviewer.id === row.preparedById) {
-      throw new UnprocessableEntityException({ message: 'The preparer cannot review their own case; name another engineer', errors: [{ path: 'reviewerId', message: 'must not be the preparer' }] });
+      throw new UnprocessableEntityException({
+        message: 'The preparer cannot review their own case; name another engineer',
+        errors: [{ path: 'reviewerId', message: 'must not be the preparer' }],
+      });
     }
   }
 
@@ -342,7 +371,14 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     if (row.needsRecheck) changes.push({ field: 'needsRecheck', from: true, to: false });
     await this.cases.save(
       row,
-      { evaluation, overall: evaluation.overall, specVersion: evaluation.specVersion, cardVersion: evaluation.cardVersion, needsRecheck: false, recheckReasons: [] },
+      {
+        evaluation,
+        overall: evaluation.overall,
+        specVersion: evaluation.specVersion,
+        cardVersion: evaluation.cardVersion,
+        needsRecheck: false,
+        recheckReasons: [],
+      },
       transaction,
     );
     await this.cases.addEvent({ qualificationId: row.id, userId: user.id, action: 'evaluated', changes, note: evaluation.summary }, transaction);
@@ -354,7 +390,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     const summary = [`Re-check of case #${row.id} (${label(row.state).toLowerCase()})${why ? ` after: ${why}` : ''}.`, note ?? ''].filter(Boolean).join(' ');
     const created = await this.openCase(basis, { revision: row.revision + 1, previousId: row.id, summary }, user, [`re-check of case #${row.id}`], transaction);
     await this.cases.addEvent(
-      { qualificationId: row.id, userId: user.id, action: 'recheck-opened', changes: [{ field: 'nextId', from: null, to: created.id }], note: note ?? `case #${created.id} opened` },
+      {
+        qualificationId: row.id,
+        userId: user.id,
+        action: 'recheck-opened',
+        changes: [{ field: 'nextId', from: null, to: created.id }],
+        note: note ?? `case #${created.id} opened`,
+      },
       transaction,
     );
     return created;
@@ -405,7 +447,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     const { housePart: hp, vendorPart: vp } = basis;
     for (const handler of this.openedHandlers) {
       await handler(
-        { caseId: row.id, revision: row.revision, housePart: { id: hp.id, partNumber: hp.partNumber, description: hp.description }, vendorPart: { id: vp.id, manufacturer: vp.manufacturer, mpn: vp.mpn }, by: user },
+        {
+          caseId: row.id,
+          revision: row.revision,
+          housePart: { id: hp.id, partNumber: hp.partNumber, description: hp.description },
+          vendorPart: { id: vp.id, manufacturer: vp.manufacturer, mpn: vp.mpn },
+          by: user,
+        },
         transaction,
       );
     }
@@ -427,7 +475,10 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     const basis = await this.cases.catalogueBasis(housePartId, vendorPartId, transaction);
     if ('missing' in basis) throw new NotFoundException(`No ${basis.missing} with id ${basis.missing === 'house part' ? housePartId : vendorPartId}`);
     if (!basis.housePart.spec || basis.housePart.specVersion === null) {
-      throw new UnprocessableEntityException({ message: `House part ${basis.housePart.partNumber} has no spec yet: write its spec before qualifying a source`, errors: [{ path: 'housePartId', message: 'has no spec' }] });
+      throw new UnprocessableEntityException({
+        message: `House part ${basis.housePart.partNumber} has no spec yet: write its spec before qualifying a source`,
+        errors: [{ path: 'housePartId', message: 'has no spec' }],
+      });
     }
     if (basis.vendorPart.cardVersion === 0) {
       throw new UnprocessableEntityException({
@@ -445,12 +496,22 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
   }
 
   /** Mail, written to the outbox in the decision's transaction: buyers on clearance and revocation, reviewers on submission. */
-  private async notify(action: QualificationAction, row: Qualification, basis: CatalogueBasis, user: AuthUser, transaction: Transaction, waivers: readonly QualificationWaiver[] = []): Promise<void> {
+  private async notify(
+    action: QualificationAction,
+    row: Qualification,
+    basis: CatalogueBasis,
+    user: AuthUser,
+    transaction: Transaction,
+    waivers: readonly QualificationWaiver[] = [],
+  ): Promise<void> {
     const part = `${basis.vendorPart.manufacturer} ${basis.vendorPart.mpn}`;
     const hp = basis.housePart.partNumber;
     const link = `/qualifications/${row.id}`;
     if (action === 'submit') {
-      const to = row.reviewerId !== null ? [(await this.users.findById(row.reviewerId, transaction))!.email] : await this.users.activeEngineerEmails(row.preparedById, transaction);
+      const to =
+        row.reviewerId !== null
+          ? [(await this.users.findById(row.reviewerId, transaction))!.email]
+          : await this.users.activeEngineerEmails(row.preparedById, transaction);
       if (to.length === 0) return;
       await this.mail.enqueue(
         {
@@ -478,13 +539,20 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     }
     const lines =
       action === 'revoke'
-        ? [`${user.name} revoked the clearance of ${part} as a source of ${hp} (case #${row.id}).`, `Reason: ${row.revokeReason}`, 'Do not place new orders for it against this house part until it is cleared again.']
+        ? [
+            `${user.name} revoked the clearance of ${part} as a source of ${hp} (case #${row.id}).`,
+            `Reason: ${row.revokeReason}`,
+            'Do not place new orders for it against this house part until it is cleared again.',
+          ]
         : [
             action === 'approve'
               ? `${user.name} approved ${part} as the approved source of ${hp} (${basis.housePart.description}) (case #${row.id}).`
               : `${user.name} cleared ${part} as a source of ${hp} (${basis.housePart.description})${action === 'clear-with-conditions' ? ' with conditions' : action === 'clear-with-waiver' ? ' with waiver' : ''} (case #${row.id}).`,
             action === 'clear-with-conditions' ? `Conditions: ${row.decisionText}` : row.decisionText ? `Note: ${row.decisionText}` : '',
-            ...waivers.map((w) => `Waived: ${CHECK_LABELS[w.checkId]}, accepted limit ${w.acceptedLimit === null ? 'as stated' : formatCheckValue(w.acceptedLimit, w.quantity)}, until ${dateText(w.expiresOn)} (${w.reason})`),
+            ...waivers.map(
+              (w) =>
+                `Waived: ${CHECK_LABELS[w.checkId]}, accepted limit ${w.acceptedLimit === null ? 'as stated' : formatCheckValue(w.acceptedLimit, w.quantity)}, until ${dateText(w.expiresOn)} (${w.reason})`,
+            ),
             waivers.length ? 'The clearance lapses when a waiver expires.' : '',
             `Prepared by ${await this.userName(row.preparedById, transaction)}; decided on spec version ${row.specVersion} and card version ${row.cardVersion}.`,
           ];
@@ -493,7 +561,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         to,
         kind: `qualification.${AUDIT_OF[action]}`,
         subject: `${hp}: ${part} ${action === 'revoke' ? 'revoked' : action === 'approve' ? 'approved as the approved source' : action === 'clear' ? 'cleared' : action === 'clear-with-waiver' ? 'cleared with waiver' : 'cleared with conditions'}`,
-        body: [...lines.filter(Boolean), '', `Sources of ${hp}: /sources?housePartId=${row.housePartId}`, `Case: ${link}`, `Decision record (PDF): ${decisionRecordPath(row.id)}`].join('\n'),
+        body: [
+          ...lines.filter(Boolean),
+          '',
+          `Sources of ${hp}: /sources?housePartId=${row.housePartId}`,
+          `Case: ${link}`,
+          `Decision record (PDF): ${decisionRecordPath(row.id)}`,
+        ].join('\n'),
       },
       transaction,
     );
@@ -513,7 +587,9 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
         body: [
           `${user.name} decided case #${row.id} that you prepared: ${part} as a source of ${hp}.`,
           `Decision: ${outcome}.`,
-          row.decisionText ? `${row.state === 'cleared-with-conditions' ? 'Conditions' : row.state === 'rejected' ? 'Reason' : 'Note'}: ${row.decisionText}` : '',
+          row.decisionText
+            ? `${row.state === 'cleared-with-conditions' ? 'Conditions' : row.state === 'rejected' ? 'Reason' : 'Note'}: ${row.decisionText}`
+            : '',
           '',
           `Open it in Shuntwise: ${link}`,
         ]
@@ -534,13 +610,21 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     let flagged: number[];
     let reason: RecheckReason;
     if (change.kind === 'card-changed') {
-      reason = { cause: 'card-changed', at, detail: `rating card version ${change.version}${change.changedFields.length ? ` (changed: ${change.changedFields.join(', ')})` : ''}` };
+      reason = {
+        cause: 'card-changed',
+        at,
+        detail: `rating card version ${change.version}${change.changedFields.length ? ` (changed: ${change.changedFields.join(', ')})` : ''}`,
+      };
       flagged = await this.cases.flagForRecheck({ vendorPartId: change.vendorPartId }, reason, transaction, { cardVersionBelow: change.version });
     } else if (change.kind === 'spec-changed') {
       reason = { cause: 'spec-changed', at, detail: `spec version ${change.version}` };
       flagged = await this.cases.flagForRecheck({ housePartId: change.housePartId }, reason, transaction, { specVersionBelow: change.version });
     } else if (change.kind === 'measurements-added') {
-      reason = { cause: 'measurements-added', at, detail: `measurement set #${change.measurementSetId} (${change.samples} sample${change.samples === 1 ? '' : 's'}) added` };
+      reason = {
+        cause: 'measurements-added',
+        at,
+        detail: `measurement set #${change.measurementSetId} (${change.samples} sample${change.samples === 1 ? '' : 's'}) added`,
+      };
       flagged = await this.cases.flagForRecheck({ vendorPartId: change.vendorPartId }, reason, transaction);
     } else {
       reason = { cause: 'datasheet-revised', at, detail: `datasheet ${change.revision ? `revision ${change.revision} ` : ''}(#${change.datasheetId}) added` };
@@ -548,7 +632,13 @@ export class QualificationsService implements OnModuleInit, OnModuleDestroy {
     }
     for (const qualificationId of flagged) {
       await this.cases.addEvent(
-        { qualificationId, userId: change.userId, action: 'flagged-for-recheck', changes: [{ field: 'needsRecheck', from: null, to: true }], note: reason.detail },
+        {
+          qualificationId,
+          userId: change.userId,
+          action: 'flagged-for-recheck',
+          changes: [{ field: 'needsRecheck', from: null, to: true }],
+          note: reason.detail,
+        },
         transaction,
       );
     }
@@ -581,10 +671,13 @@ function auditChanges(action: QualificationAction, row: Qualification, basis: Ca
 
 function checkVersion(row: Qualification, version: number | undefined): void {
   if (version !== undefined && version !== row.version) {
-    throw new StaleConflictException(`Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`, {
-      current: { version: row.version },
-      errors: [{ path: 'version', message: `current version is ${row.version}` }],
-    });
+    throw new StaleConflictException(
+      `Case #${row.id} changed after you loaded it (you saw version ${version}, it is now ${row.version}); reload and try again`,
+      {
+        current: { version: row.version },
+        errors: [{ path: 'version', message: `current version is ${row.version}` }],
+      },
+    );
   }
 }
 
@@ -612,11 +705,21 @@ export function allowedActions(
   nextState: QualificationState | null,
   waivers?: { gaps: readonly CheckId[]; inForce: number },
 ): QualificationAction[] {
-  return allowedActionsFor({ state: row.state, preparedById: row.preparedById, overall: row.overall, fresh: isEvaluationFresh(row, current), nextId: row.nextId, nextState, waivers }, user);
+  return allowedActionsFor(
+    { state: row.state, preparedById: row.preparedById, overall: row.overall, fresh: isEvaluationFresh(row, current), nextId: row.nextId, nextState, waivers },
+    user,
+  );
 }
 
 /** The refusal of an action the rule blocks, in plain words and with its status. */
-function refusal(block: ActionBlock, action: QualificationAction, row: Qualification, basis: CatalogueBasis, next: Qualification | null, gaps: readonly CheckId[] = []): Error {
+function refusal(
+  block: ActionBlock,
+  action: QualificationAction,
+  row: Qualification,
+  basis: CatalogueBasis,
+  next: Qualification | null,
+  gaps: readonly CheckId[] = [],
+): Error {
   const doing = action === 'submit' ? 'sending it for review' : action === 'approve' ? 'approving it' : 'clearing it';
   switch (block) {
     case 'role':
@@ -624,7 +727,9 @@ function refusal(block: ActionBlock, action: QualificationAction, row: Qualifica
     case 'state': {
       if (isDecidedState(row.state) && action !== 'revoke' && action !== 'recheck') return immutable(row, actionWord(action));
       const from = QUALIFICATION_TRANSITIONS[action].from;
-      return new ConflictException(`Case #${row.id} is ${label(row.state).toLowerCase()}; "${QUALIFICATION_TRANSITIONS[action].label}" needs ${from.map((s) => label(s).toLowerCase()).join(' or ')}`);
+      return new ConflictException(
+        `Case #${row.id} is ${label(row.state).toLowerCase()}; "${QUALIFICATION_TRANSITIONS[action].label}" needs ${from.map((s) => label(s).toLowerCase()).join(' or ')}`,
+      );
     }
     case 'two-person':
       return new ForbiddenException(`You prepared case #${row.id}; another engineer must decide it (two-person rule)`);
@@ -636,7 +741,10 @@ function refusal(block: ActionBlock, action: QualificationAction, row: Qualifica
           `Evaluate it again (in draft) before ${doing}.`,
       );
     case 'verdict':
-      if (row.overall === 'fail') return new UnprocessableEntityException(`Case #${row.id} fails (${row.evaluation.summary}): a failing source cannot be ${action === 'approve' ? 'approved' : 'cleared'}; reject it`);
+      if (row.overall === 'fail')
+        return new UnprocessableEntityException(
+          `Case #${row.id} fails (${row.evaluation.summary}): a failing source cannot be ${action === 'approve' ? 'approved' : 'cleared'}; reject it`,
+        );
       return new UnprocessableEntityException(
         `Case #${row.id} evaluates as ${QUALIFICATION_VERDICT_LABELS[row.overall]} (${row.evaluation.summary}): clear it with conditions that say how the gap is covered, or reject it`,
       );
@@ -682,7 +790,9 @@ export function toSummary(row: CaseRow): QualificationSummary {
           }
         : null,
     revocation:
-      row.revokedById !== null && row.revokedAt !== null ? { by: { id: row.revokedById, name: row.revokedByName ?? '' }, at: iso(row.revokedAt)!, reason: row.revokeReason ?? '' } : null,
+      row.revokedById !== null && row.revokedAt !== null
+        ? { by: { id: row.revokedById, name: row.revokedByName ?? '' }, at: iso(row.revokedAt)!, reason: row.revokeReason ?? '' }
+        : null,
     needsRecheck: row.needsRecheck,
     recheckReasons: row.recheckReasons,
     version: row.version,

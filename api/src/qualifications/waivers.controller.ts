@@ -41,7 +41,12 @@ export class WaiversController {
   @Roles('engineer')
   @HttpCode(200)
   @ApiOkResponse({ type: WaiverDto })
-  approve(@Param('id', ParseIntPipe) id: number, @Param('waiverId', ParseIntPipe) waiverId: number, @Body() body: ApproveWaiverDto, @CurrentUser() user: AuthUser) {
+  approve(
+    @Param('id', ParseIntPipe) id: number,
+    @Param('waiverId', ParseIntPipe) waiverId: number,
+    @Body() body: ApproveWaiverDto,
+    @CurrentUser() user: AuthUser,
+  ) {
     return this.waivers.approve(id, waiverId, body, user);
   }
 
@@ -49,7 +54,12 @@ export class WaiversController {
   @Roles('engineer')
   @HttpCode(200)
   @ApiOkResponse({ type: WaiverDto })
-  refuse(@Param('id', ParseIntPipe) id: number, @Param('waiverId', ParseIntPipe) waiverId: number, @Body() body: RefuseWaiverDto, @CurrentUser() user: AuthUser) {
+  refuse(
+    @Param('id', ParseIntPipe) id: number,
+    @Param('waiverId', ParseIntPipe) waiverId: number,
+    @Body() body: RefuseWaiverDto,
+    @CurrentUser() user: AuthUser,
+  ) {
     return this.waivers.refuse(id, waiverId, body, user);
   }
 }

@@ -42,7 +42,11 @@ export class WaiversRepository {
 
   /** A case's waivers as the API shows them, oldest first. */
   rowsOf(qualificationId: number, transaction?: Transaction): Promise<WaiverRow[]> {
-    return this.sequelize.query<WaiverRow>(`${WAIVER_SELECT} WHERE w.qualification_id = ? ORDER BY w.id`, { replacements: [qualificationId], type: QueryTypes.SELECT, transaction });
+    return this.sequelize.query<WaiverRow>(`${WAIVER_SELECT} WHERE w.qualification_id = ? ORDER BY w.id`, {
+      replacements: [qualificationId],
+      type: QueryTypes.SELECT,
+      transaction,
+    });
   }
 
   /** Approved and lapsed waivers of these cases. */

@@ -1,4 +1,14 @@
-import { ConflictException, ForbiddenException, Inject, Injectable, Logger, NotFoundException, UnprocessableEntityException, type OnModuleDestroy, type OnModuleInit } from '@nestjs/common';
+import {
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+  Logger,
+  NotFoundException,
+  UnprocessableEntityException,
+  type OnModuleDestroy,
+  type OnModuleInit,
+} from '@nestjs/common';
 import {
   CHECK_LABELS,
   QUALIFICATION_STATE_LABELS,
@@ -90,7 +100,14 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
     if (caseIds.length === 0) return out;
     const rows = await this.waivers.briefRowsOf(caseIds);
     for (const r of rows) {
-      const brief: WaiverBrief = { id: r.id, checkId: r.checkId, quantity: r.quantity, acceptedLimit: r.acceptedLimit, expiresOn: dateText(r.expiresOn), state: r.state };
+      const brief: WaiverBrief = {
+        id: r.id,
+        checkId: r.checkId,
+        quantity: r.quantity,
+        acceptedLimit: r.acceptedLimit,
+        expiresOn: dateText(r.expiresOn),
+        state: r.state,
+      };
       out.set(r.qualificationId, [...(out.get(r.qualificationId) ?? []), brief]);
     }
     return out;
@@ -101,7 +118,11 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
     const waivers = await this.waivers.findAllOf(row.id, transaction);
     const today = this.today();
     const facts = waivers.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) }));
-    return { gaps: waiverGaps(row.evaluation.checks, facts, today), inForce: facts.filter((w) => isWaiverInForce(w, today)).length, waivers: waivers.filter((w) => isWaiverInForce({ state: w.state, expiresOn: dateText(w.expiresOn) }, today)) };
+    return {
+      gaps: waiverGaps(row.evaluation.checks, facts, today),
+      inForce: facts.filter((w) => isWaiverInForce(w, today)).length,
+      waivers: waivers.filter((w) => isWaiverInForce({ state: w.state, expiresOn: dateText(w.expiresOn) }, today)),
+    };
   }
 
   async create(qualificationId: number, request: CreateWaiverRequest, user: AuthUser): Promise<Waiver> {
@@ -111,7 +132,11 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
       const today = this.today();
       const block = prepareWaiverBlock(
         { checkId: request.checkId, acceptedLimit: request.acceptedLimit, expiresOn: request.expiresOn },
-        { state: row.state, checks: row.evaluation.checks, waivers: existing.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) })) },
+        {
+          state: row.state,
+          checks: row.evaluation.checks,
+          waivers: existing.map((w) => ({ checkId: w.checkId, state: w.state, expiresOn: dateText(w.expiresOn) })),
+        },
         user,
         today,
       );
@@ -168,7 +193,12 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
       const waiver = await this.waivers.findOfCaseLocked(waiverId, qualificationId, transaction);
       if (!waiver) throw new NotFoundException(`Case #${qualificationId} has no waiver with id ${waiverId}`);
       const today = this.today();
-      const block = decideWaiverBlock({ state: waiver.state, preparedById: waiver.preparedById, expiresOn: dateText(waiver.expiresOn) }, row.state, user, today);
+      const block = decideWaiverBlock(
+        { state: waiver.state, preparedById: waiver.preparedById, expiresOn: dateText(waiver.expiresOn) },
+        row.state,
+        user,
+        today,
+      );
       if (block) throw waiverRefusal(block, row, waiver.checkId, today, waiver);
       await this.waivers.save(waiver, { state: to, decidedById: user.id, decidedAt: this.clock.now(), decisionNote: note }, transaction);
       await this.cases.addEvent(
@@ -222,7 +252,15 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
           action: 'waiver-lapsed',
           fromState: standingEnds ? 'cleared-with-waiver' : null,
           toState: standingEnds ? 'waiver-lapsed' : null,
-          changes: [{ field: `waiver#${waiver.id}.state`, from: 'approved', to: 'lapsed' }, ...(standingEnds ? [{ field: 'state', from: 'cleared-with-waiver', to: 'waiver-lapsed' }, { field: 'needsRecheck', from: row.needsRecheck, to: true }] : [])],
+          changes: [
+            { field: `waiver#${waiver.id}.state`, from: 'approved', to: 'lapsed' },
+            ...(standingEnds
+              ? [
+                  { field: 'state', from: 'cleared-with-waiver', to: 'waiver-lapsed' },
+                  { field: 'needsRecheck', from: row.needsRecheck, to: true },
+                ]
+              : []),
+          ],
           note: standingEnds ? `${what}: the source is no longer usable until a re-check clears it` : what,
         },
         transaction,
@@ -311,7 +349,9 @@ function waiverRefusal(block: WaiverBlock, row: Qualification, checkId: CheckId,
     case 'state':
       return waiver && waiver.state !== 'proposed'
         ? new ConflictException(`Waiver #${waiver.id} is already ${waiver.state}; only a waiver waiting for approval can be approved or refused`)
-        : new ConflictException(`Case #${row.id} is ${QUALIFICATION_STATE_LABELS[row.state].toLowerCase()}; waivers are prepared and decided while a case is open (draft or in review)`);
+        : new ConflictException(
+            `Case #${row.id} is ${QUALIFICATION_STATE_LABELS[row.state].toLowerCase()}; waivers are prepared and decided while a case is open (draft or in review)`,
+          );
     case 'two-person':
       return new ForbiddenException(`You prepared waiver #${waiver!.id}; another engineer must approve or refuse it (two-person rule)`);
     case 'check':
@@ -325,7 +365,10 @@ function waiverRefusal(block: WaiverBlock, row: Qualification, checkId: CheckId,
         errors: [{ path: 'acceptedLimit', message: 'must cover the part value (SI), or be null for a text check' }],
       });
     case 'expiry':
-      return new UnprocessableEntityException({ message: `A waiver must expire after today (${today})`, errors: [{ path: 'expiresOn', message: `must be after ${today}` }] });
+      return new UnprocessableEntityException({
+        message: `A waiver must expire after today (${today})`,
+        errors: [{ path: 'expiresOn', message: `must be after ${today}` }],
+      });
     case 'duplicate':
       return new ConflictException(`Check "${check}" of case #${row.id} already has a waiver waiting or in force`);
   }

@@ -1,6 +1,13 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import { DESIGNER_HOUSE_PART_STATUSES, type HousePartStatus, type QualificationState, type RatingCardFields, type SearchQuery, type SearchSort } from '@shuntwise/contracts';
+import {
+  DESIGNER_HOUSE_PART_STATUSES,
+  type HousePartStatus,
+  type QualificationState,
+  type RatingCardFields,
+  type SearchQuery,
+  type SearchSort,
+} from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
@@ -173,7 +180,9 @@ export class SearchRepository {
         wordParams.push(likePrefix(token));
         branches.push('SELECT t.id FROM vendor_parts t WHERE t.manufacturer_name IN (SELECT m.name FROM manufacturers m WHERE m.name LIKE ?)');
         wordParams.push(`%${likePrefix(token)}`);
-        branches.push('SELECT s.vendor_part_id FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id WHERE h.part_number LIKE ? OR h.description LIKE ?');
+        branches.push(
+          'SELECT s.vendor_part_id FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id WHERE h.part_number LIKE ? OR h.description LIKE ?',
+        );
         wordParams.push(likePrefix(token), `%${likePrefix(token)}`);
       }
       words = `(${branches.join(' UNION ')}) words`;
@@ -244,13 +253,19 @@ export class SearchRepository {
     }
     // The whole catalogue: sorting on `column IS NULL` first would sort every row; two index ranges instead,
     // the parts with the figure in its order, then those without.
-    const [counts] = await this.select<{ total: number | bigint; withValue: number | bigint }>(`SELECT COUNT(*) AS total, COUNT(${column}) AS withValue ${c.from} ${c.where}`, c.params);
+    const [counts] = await this.select<{ total: number | bigint; withValue: number | bigint }>(
+      `SELECT COUNT(*) AS total, COUNT(${column}) AS withValue ${c.from} ${c.where}`,
+      c.params,
+    );
     const total = Number(counts.total);
     const withValue = Number(counts.withValue);
     const and = c.where ? `${c.where} AND` : 'WHERE';
     const ids: number[] = [];
     if (offset < withValue) {
-      const rows = await this.select<{ id: number }>(`SELECT vp.id ${c.from} ${and} ${column} IS NOT NULL ORDER BY ${column} ${dir}, vp.id ${dir} LIMIT ? OFFSET ?`, [...c.params, query.pageSize, offset]);
+      const rows = await this.select<{ id: number }>(
+        `SELECT vp.id ${c.from} ${and} ${column} IS NOT NULL ORDER BY ${column} ${dir}, vp.id ${dir} LIMIT ? OFFSET ?`,
+        [...c.params, query.pageSize, offset],
+      );
       ids.push(...rows.map((r) => r.id));
     }
     if (ids.length < query.pageSize && offset + ids.length < total) {
@@ -341,8 +356,12 @@ export class SearchRepository {
         `SELECT u.vendor_part_id AS vendorPartId, u.house_part_id AS housePartId, vp.package, vp.manufacturer_name AS manufacturer
          FROM (${usablePairs(false)}) u JOIN vendor_parts vp ON vp.id = u.vendor_part_id`,
       ),
-      this.select<{ value: string; n: number }>(`SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL GROUP BY vp.package ORDER BY vp.package`),
-      this.select<{ value: string; n: number }>(`SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp GROUP BY vp.manufacturer_name ORDER BY vp.manufacturer_name`),
+      this.select<{ value: string; n: number }>(
+        `SELECT vp.package AS value, COUNT(*) AS n FROM vendor_parts vp WHERE vp.package IS NOT NULL GROUP BY vp.package ORDER BY vp.package`,
+      ),
+      this.select<{ value: string; n: number }>(
+        `SELECT vp.manufacturer_name AS value, COUNT(*) AS n FROM vendor_parts vp GROUP BY vp.manufacturer_name ORDER BY vp.manufacturer_name`,
+      ),
       this.select<{ id: number; partNumber: string; description: string; status: HousePartStatus }>(
         `SELECT h.id, h.part_number AS partNumber, h.description, h.status FROM house_parts h WHERE h.status IN (${DESIGNER_STATUS_SQL}) ORDER BY h.part_number`,
       ),

@@ -3,7 +3,15 @@ import type { CandidateRow, PairRow, PartRow, SearchRepository, TextNarrowing } 
 import type { TextIndexRepository } from '../text-index/text-index.repository';
 import { SearchService, sortMatches, toClearance, toSearchCard } from './search.service';
 
-const candidate = (id: number, mpn: string): CandidateRow => ({ id, mpn, manufacturer: 'Invented Maker', package: 'SOD-123', vzNom: 2 + id / 1000, pdMax: 0.5, houseParts: null });
+const candidate = (id: number, mpn: string): CandidateRow => ({
+  id,
+  mpn,
+  manufacturer: 'Invented Maker',
+  package: 'SOD-123',
+  vzNom: 2 + id / 1000,
+  pdMax: 0.5,
+  houseParts: null,
+});
 
 /** A repository whose candidate query returns `found` rows (cut to the limit asked), recording the narrowing it was given. */
 function fakeRepository(found: number) {
@@ -15,7 +23,16 @@ function fakeRepository(found: number) {
       return rows(Math.min(found, limit));
     },
     parts: async (ids: number[]): Promise<PartRow[]> =>
-      ids.map((id) => ({ id, manufacturer: 'Invented Maker', mpn: `P${id}`, package: null, lifecycleNote: null, cardVersion: null, fields: null, datasheetId: null })),
+      ids.map((id) => ({
+        id,
+        manufacturer: 'Invented Maker',
+        mpn: `P${id}`,
+        package: null,
+        lifecycleNote: null,
+        cardVersion: null,
+        fields: null,
+        datasheetId: null,
+      })),
     pairs: async (): Promise<PairRow[]> => [],
   } as unknown as SearchRepository;
   return { repository, calls };
@@ -36,7 +53,7 @@ function fakeIndex() {
 const query = (raw: Record<string, string>) => searchQuerySchema.parse(raw);
 
 describe('SearchService text narrowing', () => {
-  it('hands the index\'s scored matches to the candidate query and re-ranks them fuzzily', async () => {
+  it("hands the index's scored matches to the candidate query and re-ranks them fuzzily", async () => {
     const { repository, calls } = fakeRepository(50);
     const { index, asked } = fakeIndex();
     const page = await new SearchService(repository, index).search(query({ q: 'QZH5V6A' }));
@@ -82,7 +99,19 @@ const pair = (over: Partial<PairRow>): PairRow => ({
 
 describe('where a pair stands for a designer', () => {
   it('is usable when its latest decision cleared it, with the conditions and the date of that decision', () => {
-    const c = toClearance(pair({ caseId: 9, revision: 2, state: 'cleared-with-conditions', decisionText: 'sample 5 per lot', decidedAt: new Date('2026-11-02T10:00:00Z'), decidedById: 3, decidedByName: 'Tomas Eklund', needsRecheck: 1, openCaseId: 12 }));
+    const c = toClearance(
+      pair({
+        caseId: 9,
+        revision: 2,
+        state: 'cleared-with-conditions',
+        decisionText: 'sample 5 per lot',
+        decidedAt: new Date('2026-11-02T10:00:00Z'),
+        decidedById: 3,
+        decidedByName: 'Tomas Eklund',
+        needsRecheck: 1,
+        openCaseId: 12,
+      }),
+    );
     expect(c).toEqual({
       housePart: { id: 2, partNumber: 'OHI-ZD-1', description: 'clamp', status: 'active' },
       standing: 'cleared-with-conditions',
@@ -99,7 +128,9 @@ describe('where a pair stands for a designer', () => {
 
   it('a plain clearance or an approval carries no conditions, whatever note its decision had', () => {
     for (const state of ['cleared', 'approved'] as const) {
-      expect(toClearance(pair({ caseId: 9, revision: 1, state, decisionText: 'checked on rev. C', decidedAt: new Date('2026-11-02T10:00:00Z') }))!.conditions).toBeNull();
+      expect(
+        toClearance(pair({ caseId: 9, revision: 1, state, decisionText: 'checked on rev. C', decidedAt: new Date('2026-11-02T10:00:00Z') }))!.conditions,
+      ).toBeNull();
     }
   });
 
@@ -111,7 +142,11 @@ describe('where a pair stands for a designer', () => {
   });
 
   it('is usable as the approved source only by an approval decision; never without a decision, never once rejected or revoked', () => {
-    expect(toClearance(pair({ caseId: 4, revision: 1, state: 'approved', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 3, decidedByName: 'Tomas Eklund' }))).toMatchObject({
+    expect(
+      toClearance(
+        pair({ caseId: 4, revision: 1, state: 'approved', decidedAt: new Date('2026-10-01T00:00:00Z'), decidedById: 3, decidedByName: 'Tomas Eklund' }),
+      ),
+    ).toMatchObject({
       standing: 'approved',
       since: '2026-10-01T00:00:00.000Z',
       caseId: 4,
@@ -126,7 +161,11 @@ describe('where a pair stands for a designer', () => {
 
 describe('search card and order', () => {
   it('reads the card fields in SI and the tolerance as the half-width of the window over nominal, less the print rounding of its ends (common practice, no source)', () => {
-    const v = (value: number) => ({ value, printed: null, provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null } });
+    const v = (value: number) => ({
+      value,
+      printed: null,
+      provenance: { source: 'entered', datasheetId: null, page: null, text: null, confirmedBy: null, confirmedAt: null },
+    });
     const card = toSearchCard({
       cardVersion: 3,
       fields: JSON.stringify({ vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), izt: v(0.005), tc: { ...v(0.5), unit: 'mV/K', voltsPerKelvin: 0.0005 } }),
@@ -143,7 +182,11 @@ describe('search card and order', () => {
       [2, { mpn: 'A10', manufacturer: 'X', package: 'SMA', vzNom: null, pdMax: 1 }],
       [3, { mpn: 'A9', manufacturer: 'X', package: 'SMA', vzNom: 4.7, pdMax: 0.5 }],
     ]);
-    const ranked = [{ id: 1, score: 0 }, { id: 2, score: 0.1 }, { id: 3, score: 0.2 }];
+    const ranked = [
+      { id: 1, score: 0 },
+      { id: 2, score: 0.1 },
+      { id: 3, score: 0.2 },
+    ];
     expect(sortMatches(ranked, rows)).toEqual([1, 2, 3]);
     expect(sortMatches(ranked, rows, { field: 'vzNom', desc: false })).toEqual([3, 1, 2]);
     expect(sortMatches(ranked, rows, { field: 'pdMax', desc: true })).toEqual([2, 1, 3]);

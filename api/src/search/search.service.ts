@@ -42,7 +42,13 @@ export class SearchService {
     await this.waivers?.lapseDue();
     if (!query.q) {
       const { ids, total } = await this.repository.page(query);
-      return { items: await this.items(ids, new Map()), total, pageIndex: query.pageIndex, pageSize: query.pageSize, text: { mode: 'none', candidates: total, truncated: false, note: null } };
+      return {
+        items: await this.items(ids, new Map()),
+        total,
+        pageIndex: query.pageIndex,
+        pageSize: query.pageSize,
+        text: { mode: 'none', candidates: total, truncated: false, note: null },
+      };
     }
     const { candidates, mode, truncated } = await this.textCandidates(query, query.q);
     const ranked = rankByText(
@@ -57,8 +63,10 @@ export class SearchService {
     const pageIds = ordered.slice(start, start + query.pageSize);
     const scores = new Map(ranked.map((r) => [r.id, r.score]));
     let note: string | null = null;
-    if (mode === 'prefix') note = 'Text this short is matched as the start of part numbers and names; type three characters or more to match anywhere inside them.';
-    if (truncated) note = `More than ${SEARCH_TEXT_CANDIDATES} parts match the text: the ${SEARCH_TEXT_CANDIDATES} closest were ranked. Narrow the filters or the text.`;
+    if (mode === 'prefix')
+      note = 'Text this short is matched as the start of part numbers and names; type three characters or more to match anywhere inside them.';
+    if (truncated)
+      note = `More than ${SEARCH_TEXT_CANDIDATES} parts match the text: the ${SEARCH_TEXT_CANDIDATES} closest were ranked. Narrow the filters or the text.`;
     return {
       items: await this.items(pageIds, scores),
       total: ordered.length,
@@ -197,7 +205,11 @@ export function toSearchCard(part: Pick<PartRow, 'cardVersion' | 'fields'>): Sea
 }
 
 /** Ranked matches in the order asked for: by score, or by a field with the score breaking ties; parts without the field last. */
-export function sortMatches(ranked: Array<{ id: number; score: number }>, rows: Map<number, Pick<CandidateRow, 'mpn' | 'manufacturer' | 'package' | 'vzNom' | 'pdMax'>>, term?: { field: SearchSort; desc: boolean }): number[] {
+export function sortMatches(
+  ranked: Array<{ id: number; score: number }>,
+  rows: Map<number, Pick<CandidateRow, 'mpn' | 'manufacturer' | 'package' | 'vzNom' | 'pdMax'>>,
+  term?: { field: SearchSort; desc: boolean },
+): number[] {
   if (!term || term.field === 'relevance') return ranked.map((r) => r.id);
   const key = (id: number): string | number | null => {
     const row = rows.get(id)!;

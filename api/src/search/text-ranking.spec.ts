@@ -2,10 +2,38 @@ import { compact, rankByText, splitHouseParts, textTokens, type TextRecord } fro
 
 // Invented demo names; what a designer types is checked against what a person would pick (common practice, no source).
 const records: TextRecord[] = [
-  { id: 1, mpn: 'QHZ5V6A', manufacturer: 'Quarryhill Semitech', package: 'SOD-123', houseParts: ['OHI-ZD-1056'], descriptions: ['Regulator diode 5.6 V, reference for the loop driver'] },
-  { id: 2, mpn: 'BRZ05-5V6', manufacturer: 'Brackenford Semiconductor', package: 'SOD-123', houseParts: ['OHI-ZD-1056'], descriptions: ['Regulator diode 5.6 V, reference for the loop driver'] },
-  { id: 3, mpn: 'QHZ5V1AF', manufacturer: 'Quarryhill Semitech', package: 'SOD-123F', houseParts: ['OHI-ZD-1051'], descriptions: ['Regulator diode 5.1 V, rail clamp'] },
-  { id: 4, mpn: 'TPZ15-11', manufacturer: 'Tevorrow Power Devices', package: 'SMB', houseParts: ['OHI-ZD-2110'], descriptions: ['Regulator diode 11 V, valve-driver clamp'] },
+  {
+    id: 1,
+    mpn: 'QHZ5V6A',
+    manufacturer: 'Quarryhill Semitech',
+    package: 'SOD-123',
+    houseParts: ['OHI-ZD-1056'],
+    descriptions: ['Regulator diode 5.6 V, reference for the loop driver'],
+  },
+  {
+    id: 2,
+    mpn: 'BRZ05-5V6',
+    manufacturer: 'Brackenford Semiconductor',
+    package: 'SOD-123',
+    houseParts: ['OHI-ZD-1056'],
+    descriptions: ['Regulator diode 5.6 V, reference for the loop driver'],
+  },
+  {
+    id: 3,
+    mpn: 'QHZ5V1AF',
+    manufacturer: 'Quarryhill Semitech',
+    package: 'SOD-123F',
+    houseParts: ['OHI-ZD-1051'],
+    descriptions: ['Regulator diode 5.1 V, rail clamp'],
+  },
+  {
+    id: 4,
+    mpn: 'TPZ15-11',
+    manufacturer: 'Tevorrow Power Devices',
+    package: 'SMB',
+    houseParts: ['OHI-ZD-2110'],
+    descriptions: ['Regulator diode 11 V, valve-driver clamp'],
+  },
 ];
 const ids = (text: string) => rankByText(records, text).map((r) => r.id);
 

@@ -48,10 +48,7 @@ export { compact };
 
 /** Words of the typed text (at most 6, each at least 2 characters unless that leaves none). */
 export function textTokens(text: string): string[] {
-  const words = text
-    .trim()
-    .split(/\s+/)
-    .filter(Boolean);
+  const words = text.trim().split(/\s+/).filter(Boolean);
   const long = words.filter((w) => w.length >= 2);
   return (long.length > 0 ? long : words).slice(0, 6);
 }

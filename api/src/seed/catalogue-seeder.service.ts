@@ -100,7 +100,12 @@ export class CatalogueSeeder {
     let created = 0;
     let part = await this.houseParts.findByPartNumber(item.partNumber);
     if (!part) {
-      part = await this.houseParts.create({ partNumber: item.partNumber, description: item.description, status: item.status as HousePartStatus, createdById: user.id });
+      part = await this.houseParts.create({
+        partNumber: item.partNumber,
+        description: item.description,
+        status: item.status as HousePartStatus,
+        createdById: user.id,
+      });
       created++;
     }
     if (part.specVersion == null) {
@@ -133,7 +138,9 @@ function cardFields(part: CatalogueVendorPart, datasheetId: number, extraction: 
     const agrees = hit && hit.page === value.page && Math.abs(hit.si - value.value) <= 1e-9 * Math.max(1, Math.abs(value.value));
     const provenance = { source: 'extracted' as const, datasheetId, page: value.page, text: agrees ? hit.text.slice(0, 500) : value.printed };
     fields[field] =
-      field === 'tc' ? { value: value.valueInUnit, unit: value.unit, printed: value.printed, provenance } : { value: value.value, printed: value.printed, provenance };
+      field === 'tc'
+        ? { value: value.valueInUnit, unit: value.unit, printed: value.printed, provenance }
+        : { value: value.value, printed: value.printed, provenance };
   }
   // The power rating's reference ambient is stated with the rating, not extracted as a field of its own.
   fields.pdRefC = { value: part.ratingCard.pdRefC, printed: `${part.ratingCard.pdRefC} °C`, provenance: { source: 'entered' } };

@@ -35,7 +35,11 @@ export class MeasurementsSeeder {
       if (!part) continue;
       const buffer = readFileSync(m.csvPath);
       if (await this.measurements.isStored(part.id, buffer)) continue;
-      await this.measurements.upload({ buffer, originalName: m.file }, { vendorPartId: part.id, instrument: m.instrument, measuredOn: m.measuredOn, note: m.note }, user);
+      await this.measurements.upload(
+        { buffer, originalName: m.file },
+        { vendorPartId: part.id, instrument: m.instrument, measuredOn: m.measuredOn, note: m.note },
+        user,
+      );
       created++;
     }
     return { created };

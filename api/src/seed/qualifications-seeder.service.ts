@@ -1,12 +1,6 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import {
-  CARD_FIELDS,
-  ratingCardFieldsInputSchema,
-  type QualificationAction,
-  type RatingCardFields,
-  type RatingCardFieldsInput,
-} from '@shuntwise/contracts';
+import { CARD_FIELDS, ratingCardFieldsInputSchema, type QualificationAction, type RatingCardFields, type RatingCardFieldsInput } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
@@ -65,7 +59,11 @@ export const DEMO_CASES: readonly DemoCase[] = [
     mpn: 'QHZ4V7A',
     summary: 'Second source for the sensor-supply clamp; the approved part is on allocation.',
     daysAgo: 41,
-    steps: [review, { action: 'comment', by: 'reviewer', body: { text: 'Checked every figure against page 2 of the datasheet; nothing to add.' } }, { action: 'clear', by: 'reviewer', body: { note: 'Equivalent on every check.' } }],
+    steps: [
+      review,
+      { action: 'comment', by: 'reviewer', body: { text: 'Checked every figure against page 2 of the datasheet; nothing to add.' } },
+      { action: 'clear', by: 'reviewer', body: { note: 'Equivalent on every check.' } },
+    ],
   },
   {
     partNumber: 'OHI-ZD-1056',
@@ -83,7 +81,11 @@ export const DEMO_CASES: readonly DemoCase[] = [
       review,
       { action: 'comment', by: 'reviewer', body: { text: 'Leakage is on the limit with no margin. I can clear it only with an incoming check.' } },
       { action: 'comment', by: 'preparer', body: { text: 'Agreed; quality will sample five pieces per lot.' } },
-      { action: 'clear-with-conditions', by: 'reviewer', body: { conditions: 'Incoming inspection measures reverse leakage at 7.7 V on five pieces per lot; reject the lot above 1 µA.' } },
+      {
+        action: 'clear-with-conditions',
+        by: 'reviewer',
+        body: { conditions: 'Incoming inspection measures reverse leakage at 7.7 V on five pieces per lot; reject the lot above 1 µA.' },
+      },
     ],
   },
   {
@@ -110,7 +112,11 @@ export const DEMO_CASES: readonly DemoCase[] = [
     summary: 'Alternate for the 5 V rail clamp.',
     daysAgo: 14,
     steps: [
-      { action: 'comment', by: 'preparer', body: { text: 'The datasheet gives leakage at 1 V only; the spec asks for 2 V. Asked the vendor for the 2 V figure.' } },
+      {
+        action: 'comment',
+        by: 'preparer',
+        body: { text: 'The datasheet gives leakage at 1 V only; the spec asks for 2 V. Asked the vendor for the 2 V figure.' },
+      },
       { action: 'withdraw', by: 'preparer', body: { reason: 'Waiting for the vendor’s leakage figure at 2 V; will reopen when it arrives.' } },
     ],
   },
@@ -210,9 +216,17 @@ export class QualificationsSeeder {
           type: QueryTypes.SELECT,
         });
         if (existing) continue;
-        const id = await this.service.open({ ...pair, summary: `Approved source of record for ${housePart.partNumber}: the part its spec was written from.` }, preparer);
+        const id = await this.service.open(
+          { ...pair, summary: `Approved source of record for ${housePart.partNumber}: the part its spec was written from.` },
+          preparer,
+        );
         await this.service.apply(id, 'submit', { reviewerId: reviewer.id }, preparer);
-        await this.service.apply(id, 'approve', { note: 'Reference part the spec was written from; any margin below is the spec drawn tight around it.' }, reviewer);
+        await this.service.apply(
+          id,
+          'approve',
+          { note: 'Reference part the spec was written from; any margin below is the spec drawn tight around it.' },
+          reviewer,
+        );
         await this.backdate(id, APPROVED_DAYS_AGO);
         created++;
       }
@@ -221,7 +235,10 @@ export class QualificationsSeeder {
   }
 
   private async user(email: string): Promise<AuthUser> {
-    const [row] = await this.sequelize.query<AuthUser>('SELECT id, email, name, role FROM users WHERE email = ?', { replacements: [email], type: QueryTypes.SELECT });
+    const [row] = await this.sequelize.query<AuthUser>('SELECT id, email, name, role FROM users WHERE email = ?', {
+      replacements: [email],
+      type: QueryTypes.SELECT,
+    });
     if (!row) throw new Error(`the demo qualifications need the demo account ${email}: seed the users first`);
     return row;
   }
@@ -240,7 +257,10 @@ export class QualificationsSeeder {
   /** A vendor's correction entered as a new card version through the catalogue's own write path (its event flags the case). */
   private async correctCard(vendorPartId: number, erratum: NonNullable<DemoCase['erratum']>, user: AuthUser): Promise<void> {
     const card = await this.cards.card(vendorPartId);
-    const fields = { ...toInput(card.fields), [erratum.field]: { value: erratum.value, printed: erratum.printed, provenance: { source: 'entered', text: erratum.note }, confirmed: true } };
+    const fields = {
+      ...toInput(card.fields),
+      [erratum.field]: { value: erratum.value, printed: erratum.printed, provenance: { source: 'entered', text: erratum.note }, confirmed: true },
+    };
     await this.sequelize.transaction((transaction) =>
       this.cards.write(vendorPartId, { baseVersion: card.version, fields: ratingCardFieldsInputSchema.parse(fields), note: erratum.note }, user, transaction),
     );
@@ -254,7 +274,10 @@ export class QualificationsSeeder {
       { replacements: [days, days, days, days, days, id], type: QueryTypes.UPDATE },
     );
     for (const table of ['qualification_events', 'qualification_comments']) {
-      await this.sequelize.query(`UPDATE ${table} SET created_at = DATE_SUB(created_at, INTERVAL ? DAY) WHERE qualification_id = ?`, { replacements: [days, id], type: QueryTypes.UPDATE });
+      await this.sequelize.query(`UPDATE ${table} SET created_at = DATE_SUB(created_at, INTERVAL ? DAY) WHERE qualification_id = ?`, {
+        replacements: [days, id],
+        type: QueryTypes.UPDATE,
+      });
     }
   }
 }

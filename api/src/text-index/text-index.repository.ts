@@ -51,12 +51,20 @@ export class TextIndexRepository {
 
   /** Rewrites one record's pieces inside the caller's transaction (it must be the one that writes the record). */
   async write(kind: TextKind, id: number, texts: ReadonlyArray<string | null | undefined>, transaction: Transaction): Promise<void> {
-    await this.sequelize.query('DELETE FROM text_grams WHERE kind = ? AND entity_id = ?', { replacements: [TEXT_KINDS[kind], id], type: QueryTypes.DELETE, transaction });
+    await this.sequelize.query('DELETE FROM text_grams WHERE kind = ? AND entity_id = ?', {
+      replacements: [TEXT_KINDS[kind], id],
+      type: QueryTypes.DELETE,
+      transaction,
+    });
     await this.insertRows(indexRowsOf(kind, id, texts), transaction);
   }
 
   /** Adds the pieces of many new records at once (bulk loads); the records must not be indexed yet. */
-  async writeNew(kind: TextKind, records: ReadonlyArray<{ id: number; texts: ReadonlyArray<string | null | undefined> }>, transaction?: Transaction): Promise<void> {
+  async writeNew(
+    kind: TextKind,
+    records: ReadonlyArray<{ id: number; texts: ReadonlyArray<string | null | undefined> }>,
+    transaction?: Transaction,
+  ): Promise<void> {
     await this.insertRows(
       records.flatMap((r) => indexRowsOf(kind, r.id, r.texts)),
       transaction,
@@ -140,7 +148,10 @@ export class TextIndexRepository {
       // every description) cannot pull in the whole catalogue: the closest parts of a part
       // number, the closest house parts, and only the manufacturers that match best.
       if (kind === 'vendorPart') branches.push(`SELECT entity_id AS id, score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
-      if (kind === 'housePart') branches.push(`SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`);
+      if (kind === 'housePart')
+        branches.push(
+          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`,
+        );
       if (kind === 'manufacturer') {
         branches.push(
           `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
@@ -180,7 +191,9 @@ export class TextIndexRepository {
     }
     if (missing.length === 0) return out;
     const rows = await this.sequelize.query<{ gram: string; n: number | bigint }>(
-      missing.map(() => `SELECT ? AS gram, COUNT(*) AS n FROM (SELECT 1 FROM text_grams WHERE kind = ? AND gram = ? LIMIT ${COMMON_PIECE + 1}) c`).join(' UNION ALL '),
+      missing
+        .map(() => `SELECT ? AS gram, COUNT(*) AS n FROM (SELECT 1 FROM text_grams WHERE kind = ? AND gram = ? LIMIT ${COMMON_PIECE + 1}) c`)
+        .join(' UNION ALL '),
       { replacements: missing.flatMap((p) => [p, TEXT_KINDS[kind], p]), type: QueryTypes.SELECT },
     );
     if (this.frequencies.size > FREQUENCY_CACHE_LIMIT) this.frequencies.clear();

@@ -49,7 +49,11 @@ export class UsersRepository {
   }
 
   /** Writes the given columns of a user (the instance is updated too). */
-  async saveUser(user: User, values: Partial<Pick<User, 'name' | 'role' | 'active' | 'passwordHash' | 'tokenVersion' | 'lastLoginAt'>>, transaction?: Transaction): Promise<User> {
+  async saveUser(
+    user: User,
+    values: Partial<Pick<User, 'name' | 'role' | 'active' | 'passwordHash' | 'tokenVersion' | 'lastLoginAt'>>,
+    transaction?: Transaction,
+  ): Promise<User> {
     return user.update(values, { transaction });
   }
 
@@ -71,17 +75,29 @@ export class UsersRepository {
   }
 
   /** Writes the given columns of an invitation (the instance is updated too). */
-  async saveInvitation(invitation: Invitation, values: Partial<Pick<Invitation, 'tokenHash' | 'expiresAt' | 'acceptedAt' | 'revokedAt'>>, transaction?: Transaction): Promise<Invitation> {
+  async saveInvitation(
+    invitation: Invitation,
+    values: Partial<Pick<Invitation, 'tokenHash' | 'expiresAt' | 'acceptedAt' | 'revokedAt'>>,
+    transaction?: Transaction,
+  ): Promise<Invitation> {
     return invitation.update(values, { transaction });
   }
 
   /** E-mails of the active engineers except one (who should hear of a case or request waiting for review). */
   async activeEngineerEmails(exceptId: number, transaction?: Transaction): Promise<string[]> {
-    const rows = await this.users.findAll({ attributes: ['email'], where: { role: 'engineer', active: true, id: { [Op.ne]: exceptId } }, order: [['email', 'ASC']], transaction });
+    const rows = await this.users.findAll({
+      attributes: ['email'],
+      where: { role: 'engineer', active: true, id: { [Op.ne]: exceptId } },
+      order: [['email', 'ASC']],
+      transaction,
+    });
     return rows.map((r) => r.email);
   }
 
-  createInvitation(values: Pick<Invitation, 'email' | 'name' | 'role' | 'tokenHash' | 'invitedById' | 'expiresAt'>, transaction?: Transaction): Promise<Invitation> {
+  createInvitation(
+    values: Pick<Invitation, 'email' | 'name' | 'role' | 'tokenHash' | 'invitedById' | 'expiresAt'>,
+    transaction?: Transaction,
+  ): Promise<Invitation> {
     return this.invitations.create({ ...values }, { transaction });
   }
 }

@@ -52,7 +52,11 @@ export class UsersService {
     const invitation = await this.unitOfWork.run(async (transaction) => {
       const row = await this.openInvitation(id, transaction, 'resent');
       const token = newToken();
-      await this.users.saveInvitation(row, { tokenHash: hashToken(token), expiresAt: new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000) }, transaction);
+      await this.users.saveInvitation(
+        row,
+        { tokenHash: hashToken(token), expiresAt: new Date(Date.now() + this.env.INVITATION_TTL_HOURS * 3600_000) },
+        transaction,
+      );
       await this.mailInvitation(row, token, admin, transaction);
       return row;
     });

@@ -3,7 +3,14 @@ import { ApiBearerAuth, ApiConflictResponse, ApiOkResponse, ApiTags } from '@nes
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { RatingCardsService } from './rating-cards.service';
-import { PutRatingCardDto, RatingCardConflictDto, RatingCardQueryDto, RatingCardVersionSummaryDto, RatingCardViewDto, VendorPartModelDto } from './vendor-parts.dto';
+import {
+  PutRatingCardDto,
+  RatingCardConflictDto,
+  RatingCardQueryDto,
+  RatingCardVersionSummaryDto,
+  RatingCardViewDto,
+  VendorPartModelDto,
+} from './vendor-parts.dto';
 
 @ApiTags('rating cards')
 @ApiBearerAuth()
@@ -23,7 +30,10 @@ export class RatingCardsController {
   @ApiOkResponse({ type: RatingCardViewDto })
   @ApiConflictResponse({ type: RatingCardConflictDto, description: 'the card changed since `version`; the body carries the current card' })
   put(@Param('id', ParseIntPipe) id: number, @Body() body: PutRatingCardDto, @CurrentUser() user: AuthUser, @Query() query: RatingCardQueryDto) {
-    return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user, { include: query.include, housePartId: query.housePartId });
+    return this.cards.put(id, { baseVersion: body.version, fields: body.fields, note: body.note }, user, {
+      include: query.include,
+      housePartId: query.housePartId,
+    });
   }
 
   @Get('rating-card/versions')

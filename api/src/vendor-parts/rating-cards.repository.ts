@@ -29,8 +29,17 @@ export class RatingCardsRepository {
    * The vendor part's current card in one primary-key read (raw row, no model instances):
    * null when there is no such vendor part, `card: null` when it has no card yet.
    */
-  async currentRow(vendorPartId: number): Promise<{ card: { version: number; fields: RatingCardFields; note: string | null; updatedAt: Date; updatedBy: { id: number; name: string } | null } | null } | null> {
-    const [row] = await this.raw.select<{ version: number | null; fields: string | RatingCardFields | null; note: string | null; updatedAt: Date | null; userId: number | null; userName: string | null }>(
+  async currentRow(vendorPartId: number): Promise<{
+    card: { version: number; fields: RatingCardFields; note: string | null; updatedAt: Date; updatedBy: { id: number; name: string } | null } | null;
+  } | null> {
+    const [row] = await this.raw.select<{
+      version: number | null;
+      fields: string | RatingCardFields | null;
+      note: string | null;
+      updatedAt: Date | null;
+      userId: number | null;
+      userName: string | null;
+    }>(
       `SELECT rc.version, rc.fields, rc.note, rc.updated_at AS updatedAt, u.id AS userId, u.name AS userName
        FROM vendor_parts vp LEFT JOIN rating_cards rc ON rc.vendor_part_id = vp.id LEFT JOIN users u ON u.id = rc.updated_by_id
        WHERE vp.id = ?`,
@@ -68,7 +77,17 @@ export class RatingCardsRepository {
 
   /** Writes the card's new current state, its version row and the vendor part's list figures (one transaction, the caller's). */
   async save(
-    values: { vendorPartId: number; version: number; fields: RatingCardFields; note: string | null; vzNom: number; izt: number; pdMax: number | null; userId: number | null; changedFields: string[] },
+    values: {
+      vendorPartId: number;
+      version: number;
+      fields: RatingCardFields;
+      note: string | null;
+      vzNom: number;
+      izt: number;
+      pdMax: number | null;
+      userId: number | null;
+      changedFields: string[];
+    },
     existing: RatingCard | null,
     transaction: Transaction,
   ): Promise<void> {
@@ -81,7 +100,14 @@ export class RatingCardsRepository {
       transaction,
     });
     await this.versions.create(
-      { vendorPartId: values.vendorPartId, version: values.version, fields: values.fields, changedFields: values.changedFields, note: values.note, changedById: values.userId },
+      {
+        vendorPartId: values.vendorPartId,
+        version: values.version,
+        fields: values.fields,
+        changedFields: values.changedFields,
+        note: values.note,
+        changedById: values.userId,
+      },
       { transaction },
     );
   }

@@ -26,7 +26,15 @@ describe('storedFields', () => {
 
   it('keeps the first confirmation of an unchanged value; a changed or unconfirmed one is recorded afresh', () => {
     const first = storedFields(input(), null, priya, '2026-12-01T10:00:00.000Z');
-    const second = storedFields(input({ izt: { value: 0.005, provenance: entered }, zzt: { value: 9, provenance: { source: 'extracted', datasheetId: 3, page: 2, text: 'ZZT 9 Ω' }, confirmed: false } }), first, tomas, '2026-12-02T10:00:00.000Z');
+    const second = storedFields(
+      input({
+        izt: { value: 0.005, provenance: entered },
+        zzt: { value: 9, provenance: { source: 'extracted', datasheetId: 3, page: 2, text: 'ZZT 9 Ω' }, confirmed: false },
+      }),
+      first,
+      tomas,
+      '2026-12-02T10:00:00.000Z',
+    );
     expect(second.vzNom!.provenance).toMatchObject({ confirmedBy: priya, confirmedAt: '2026-12-01T10:00:00.000Z' });
     expect(second.izt!.provenance).toMatchObject({ confirmedBy: tomas, confirmedAt: '2026-12-02T10:00:00.000Z' });
     expect(second.zzt!.provenance).toMatchObject({ confirmedBy: null, confirmedAt: null });
@@ -45,7 +53,12 @@ describe('storedFields', () => {
     const before = storedFields(input({ tc: { value: 0.07, unit: '%/K', provenance: entered } }), null, priya, 'now');
     const noZzt = storedFields(input({ zzt: undefined, tc: { value: 0.07, unit: '%/K', provenance: entered } }), before, priya, 'now');
     expect(diffFields(before, noZzt)).toEqual(['zzt']);
-    const newVz = storedFields(input({ vzNom: { value: 12.2, provenance: entered }, tc: { value: 0.07, unit: '%/K', provenance: entered } }), before, priya, 'now');
+    const newVz = storedFields(
+      input({ vzNom: { value: 12.2, provenance: entered }, tc: { value: 0.07, unit: '%/K', provenance: entered } }),
+      before,
+      priya,
+      'now',
+    );
     expect(diffFields(before, newVz)).toEqual(['vzNom', 'tc']);
   });
 });

@@ -87,7 +87,11 @@ export class RatingCardsService {
       }
     }
     if (query.housePartId !== undefined && !basis) reason ??= `house part ${query.housePartId} has no spec yet: normalised at the card's own test currents`;
-    view.engineering = { basis: basis ? { housePartId: basis.housePartId, partNumber: basis.partNumber, specVersion: basis.specVersion } : null, result, reason };
+    view.engineering = {
+      basis: basis ? { housePartId: basis.housePartId, partNumber: basis.partNumber, specVersion: basis.specVersion } : null,
+      result,
+      reason,
+    };
     return view;
   }
 
@@ -186,7 +190,17 @@ export class RatingCardsService {
     }
     const version = currentVersion + 1;
     await this.cards.save(
-      { vendorPartId, version, fields, note, vzNom: fields.vzNom!.value, izt: fields.izt!.value, pdMax: fields.pdMax?.value ?? null, userId: user?.id ?? null, changedFields },
+      {
+        vendorPartId,
+        version,
+        fields,
+        note,
+        vzNom: fields.vzNom!.value,
+        izt: fields.izt!.value,
+        pdMax: fields.pdMax?.value ?? null,
+        userId: user?.id ?? null,
+        changedFields,
+      },
       existing,
       transaction,
     );

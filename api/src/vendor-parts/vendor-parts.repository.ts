@@ -71,7 +71,10 @@ export class VendorPartsRepository {
       params.push(likePrefix(query.mpn));
     }
     if (query.manufacturer) {
-      const names = query.manufacturer.split(',').map((s) => s.trim()).filter(Boolean);
+      const names = query.manufacturer
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean);
       where.push(`vp.manufacturer_name IN (${names.map(() => '?').join(', ')})`);
       params.push(...names);
     }
@@ -122,7 +125,11 @@ export class VendorPartsRepository {
 
   /** Row lock on the vendor part: card writes for one part queue behind each other. */
   async lock(id: number, transaction: Transaction): Promise<boolean> {
-    const rows = await this.sequelize.query('SELECT id FROM vendor_parts WHERE id = ? FOR UPDATE', { replacements: [id], type: QueryTypes.SELECT, transaction });
+    const rows = await this.sequelize.query('SELECT id FROM vendor_parts WHERE id = ? FOR UPDATE', {
+      replacements: [id],
+      type: QueryTypes.SELECT,
+      transaction,
+    });
     return rows.length > 0;
   }
 

@@ -107,7 +107,10 @@ export function toVendorPartDto(row: VendorPartRow): VendorPartDto {
     mpn: row.mpn,
     package: row.package,
     lifecycleNote: row.lifecycleNote,
-    card: row.cardVersion === null ? null : { version: row.cardVersion, vzNom: Number(row.vzNom), izt: Number(row.izt), pdMax: row.pdMax === null ? null : Number(row.pdMax) },
+    card:
+      row.cardVersion === null
+        ? null
+        : { version: row.cardVersion, vzNom: Number(row.vzNom), izt: Number(row.izt), pdMax: row.pdMax === null ? null : Number(row.pdMax) },
     createdAt: new Date(row.createdAt).toISOString(),
     updatedAt: new Date(row.updatedAt).toISOString(),
   };

@@ -50,7 +50,10 @@ export async function createVendorPart(http: TestAgent, token: string, body: { m
 }
 
 export async function createHousePart(http: TestAgent, token: string, partNumber: string, description = '', status?: HousePartStatus): Promise<number> {
-  const res = await http.post('/api/house-parts').set('Authorization', `Bearer ${token}`).send({ partNumber, description, ...(status ? { status } : {}) });
+  const res = await http
+    .post('/api/house-parts')
+    .set('Authorization', `Bearer ${token}`)
+    .send({ partNumber, description, ...(status ? { status } : {}) });
   if (res.status !== 201) throw new Error(`create house part failed: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.id as number;
 }

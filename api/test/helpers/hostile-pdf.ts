@@ -34,7 +34,10 @@ export function zeroBombPdf(inflatedBytes: number): Buffer {
   object(1, '<< /Type /Catalog /Pages 2 0 R >>');
   object(2, '<< /Type /Pages /Kids [3 0 R] /Count 1 >>');
   object(3, '<< /Type /Page /Parent 2 0 R /MediaBox [0 0 595 842] /Resources << >> /Contents 4 0 R >>');
-  object(4, Buffer.concat([Buffer.from(`<< /Length ${stream.length} /Filter /FlateDecode >>\nstream\n`, 'latin1'), stream, Buffer.from('\nendstream', 'latin1')]));
+  object(
+    4,
+    Buffer.concat([Buffer.from(`<< /Length ${stream.length} /Filter /FlateDecode >>\nstream\n`, 'latin1'), stream, Buffer.from('\nendstream', 'latin1')]),
+  );
   const xref = length;
   const rows = [1, 2, 3, 4].map((n) => `${String(offsets[n]).padStart(10, '0')} 00000 n \n`).join('');
   add(Buffer.from(`xref\n0 5\n0000000000 65535 f \n${rows}trailer\n<< /Size 5 /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`, 'latin1'));

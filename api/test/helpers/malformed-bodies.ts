@@ -118,7 +118,8 @@ function setAt(body: unknown, path: Path, value: unknown, remove = false): unkno
 
 const CONTROL = ['\u0000', '\u0001', '\u0007', '\u0008', '\u001b', '\u007f'];
 const SURROGATES = ['\ud800', '\udbff', '\udc00', '\udfff'];
-const textWith = (chars: string[]) => fc.tuple(fc.string({ maxLength: 12 }), fc.constantFrom(...chars), fc.string({ maxLength: 12 })).map(([a, c, b]) => `${a}${c}${b}`);
+const textWith = (chars: string[]) =>
+  fc.tuple(fc.string({ maxLength: 12 }), fc.constantFrom(...chars), fc.string({ maxLength: 12 })).map(([a, c, b]) => `${a}${c}${b}`);
 const deeplyNested = fc.integer({ min: 70, max: 3000 }).map((depth) => {
   let v: unknown = 'leaf';
   for (let i = 0; i < depth; i++) v = i % 2 ? { k: v } : [v];
@@ -149,7 +150,12 @@ function sitesOf(node: Json, root: Json, path: Path = [], depth = 0): Site[] {
   const b = branches(node);
   if (b) {
     const nonNull = b.filter((x) => resolve(x, root).type !== 'null');
-    if (nonNull.length === 1) out.push(...sitesOf(nonNull[0], root, path, depth + 1).slice(1).concat(branchBounds(nonNull[0], root, path, b.length > 1)));
+    if (nonNull.length === 1)
+      out.push(
+        ...sitesOf(nonNull[0], root, path, depth + 1)
+          .slice(1)
+          .concat(branchBounds(nonNull[0], root, path, b.length > 1)),
+      );
     return out;
   }
   if (node.type === 'object' && node.properties) {
@@ -179,7 +185,8 @@ function poisonsAt(site: Site, root: Json, strictParents: Set<string>): Array<fc
     const wrong = Object.keys(VALUE_OF).filter((t) => !types.has(t) && !(t === 'number' && types.has('integer')));
     if (path.length === 0) wrong.splice(0, wrong.length, ...wrong.filter((t) => t === 'array'));
     if (wrong.length) out.push(fc.constantFrom(...wrong).chain((t) => at(`wrong type (${t})`, VALUE_OF[t])));
-    if (types.has('number') && types.size === 1) out.push(at('Infinity (1e999)', fc.constant(raw('1e999'))), at('-Infinity (-1e999)', fc.constant(raw('-1e999'))));
+    if (types.has('number') && types.size === 1)
+      out.push(at('Infinity (1e999)', fc.constant(raw('1e999'))), at('-Infinity (-1e999)', fc.constant(raw('-1e999'))));
   }
   const type = node.type;
   if (type === 'number' || type === 'integer') {
@@ -199,7 +206,12 @@ function poisonsAt(site: Site, root: Json, strictParents: Set<string>): Array<fc
   if (type === 'string') {
     const maxLength = node.maxLength as number | undefined;
     if (maxLength !== undefined && maxLength < 1_500_000) {
-      out.push(at('huge string', fc.integer({ min: maxLength + 1, max: Math.max(maxLength + 1, Math.min(200_000, maxLength * 50)) }).map((n) => 'x'.repeat(n))));
+      out.push(
+        at(
+          'huge string',
+          fc.integer({ min: maxLength + 1, max: Math.max(maxLength + 1, Math.min(200_000, maxLength * 50)) }).map((n) => 'x'.repeat(n)),
+        ),
+      );
     }
     if (Number(node.minLength ?? 0) >= 1 && !node.pattern) out.push(at('empty string', fc.constant('')));
     if (Array.isArray(node.enum)) out.push(at('not one of the choices', fc.constantFrom('not-a-choice', 'DRAFT ', '')));

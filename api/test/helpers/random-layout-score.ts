@@ -1,5 +1,12 @@
 import type { ExtractedValue, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
-import { generateRandomDatasheet, layoutChoiceLabels, type LayoutChoices, type RandomAnswerKey, type RandomAnswerValue, type RatingField } from '@shuntwise/test-fixtures';
+import {
+  generateRandomDatasheet,
+  layoutChoiceLabels,
+  type LayoutChoices,
+  type RandomAnswerKey,
+  type RandomAnswerValue,
+  type RatingField,
+} from '@shuntwise/test-fixtures';
 
 /**
  * Scores extraction on random-layout datasheets against the answer keys the generator wrote
@@ -11,7 +18,22 @@ import { generateRandomDatasheet, layoutChoiceLabels, type LayoutChoices, type R
  * SI Brochure, 9th edition (from memory); %/K is α·VZ/100 (common practice, no source).
  */
 
-export const RANDOM_LAYOUT_FIELDS: RatingField[] = ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'tjMax', 'rthJA', 'izm'];
+export const RANDOM_LAYOUT_FIELDS: RatingField[] = [
+  'vzMin',
+  'vzNom',
+  'vzMax',
+  'izt',
+  'zzt',
+  'izk',
+  'zzk',
+  'irMax',
+  'vr',
+  'tc',
+  'pdMax',
+  'tjMax',
+  'rthJA',
+  'izm',
+];
 
 /** The goal the extractor is measured against (issue 8): precision before recall. */
 export const GOAL = { recall: 0.97, precision: 0.995 };

@@ -33,7 +33,9 @@ export function listWriteRoutes(app: INestApplication): WriteRoute[] {
     }
   }
   return listRoutes(app)
-    .filter((r) => r.method === RequestMethod[RequestMethod.POST] || r.method === RequestMethod[RequestMethod.PUT] || r.method === RequestMethod[RequestMethod.PATCH])
+    .filter(
+      (r) => r.method === RequestMethod[RequestMethod.POST] || r.method === RequestMethod[RequestMethod.PUT] || r.method === RequestMethod[RequestMethod.PATCH],
+    )
     .map((r) => {
       const body = bodies.get(`${r.controller}.${r.handler}`) ?? { schema: null, takesBody: false };
       return { ...r, bodySchema: body.schema, takesBody: body.takesBody };

@@ -7,13 +7,15 @@ export const ROLES = ['admin', 'engineer', 'designer', 'buyer'] as const;
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
 
-export const emailSchema = z.string().check(
-  z.trim(),
-  z.minLength(3, 'Enter a valid e-mail address'),
-  z.maxLength(254, 'Use at most 254 characters'),
-  z.email('Enter a valid e-mail address'),
-  z.toLowerCase(),
-);
+export const emailSchema = z
+  .string()
+  .check(
+    z.trim(),
+    z.minLength(3, 'Enter a valid e-mail address'),
+    z.maxLength(254, 'Use at most 254 characters'),
+    z.email('Enter a valid e-mail address'),
+    z.toLowerCase(),
+  );
 
 export const loginRequestSchema = z.object({
   email: emailSchema,

@@ -94,10 +94,16 @@ export function engineeringCardContradictions(card: EngineeringCardInput): CardF
   // zzt·izt is the junction's log slope at izt if RS were 0; a slope as large as vz itself
   // would put the voltage below zero a few times below izt.
   if (card.zzt != null && card.zzt * card.izt >= card.vzNom) {
-    problems.push({ field: 'zzt', message: `${fw('zzt', card.zzt)} × ${fw('izt', card.izt)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance` });
+    problems.push({
+      field: 'zzt',
+      message: `${fw('zzt', card.zzt)} × ${fw('izt', card.izt)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance`,
+    });
   }
   if (card.zzk != null && card.izk != null && card.zzk * card.izk >= card.vzNom) {
-    problems.push({ field: 'zzk', message: `${fw('zzk', card.zzk)} × ${fw('izk', card.izk)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance` });
+    problems.push({
+      field: 'zzk',
+      message: `${fw('zzk', card.zzk)} × ${fw('izk', card.izk)} is not below ${fw('vzNom', card.vzNom)}: no junction in breakdown has that impedance`,
+    });
   }
   if (card.vr != null && card.vr >= card.vzNom) {
     problems.push({ field: 'vr', message: `${fw('vr', card.vr)} must be below the Zener voltage ${fw('vzNom', card.vzNom)}` });

@@ -12,7 +12,8 @@ export const envelopeSchema = z
   })
   .superRefine((e, ctx) => {
     if (e.iMin > e.iMax) ctx.addIssue({ code: 'custom', path: ['iMin'], message: `${fw('envelope.iMin', e.iMin)} is above ${fw('envelope.iMax', e.iMax)}` });
-    if (e.taMin > e.taMax) ctx.addIssue({ code: 'custom', path: ['taMin'], message: `${fw('envelope.taMin', e.taMin)} is above ${fw('envelope.taMax', e.taMax)}` });
+    if (e.taMin > e.taMax)
+      ctx.addIssue({ code: 'custom', path: ['taMin'], message: `${fw('envelope.taMin', e.taMin)} is above ${fw('envelope.taMax', e.taMax)}` });
   });
 export type Envelope = z.infer<typeof envelopeSchema>;
 

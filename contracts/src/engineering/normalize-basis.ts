@@ -24,11 +24,18 @@ const sorted = (values: number[]) => [...new Set(values.map((v) => Number(v.toPr
  * STANDARD_CURRENTS at 25 °C. The card editor, the card read and the evaluation's reading
  * of a card all take it from here.
  */
-export function normalizeBasis(card: Pick<EngineeringCardInput, 'izt' | 'izk'>, spec: { spec: Spec; partNumber: string; version: number } | null): NormalizeBasis {
+export function normalizeBasis(
+  card: Pick<EngineeringCardInput, 'izt' | 'izk'>,
+  spec: { spec: Spec; partNumber: string; version: number } | null,
+): NormalizeBasis {
   if (spec) {
     const s = spec.spec;
     const currents = [s.iRef, s.knee?.iKnee ?? null, s.envelope.iMin, s.envelope.iMax].filter((c): c is number => c !== null);
-    return { label: `at the currents of ${spec.partNumber}'s spec v${spec.version}`, currents: sorted(currents), temperaturesC: sorted([25, s.envelope.taMin, s.envelope.taMax]) };
+    return {
+      label: `at the currents of ${spec.partNumber}'s spec v${spec.version}`,
+      currents: sorted(currents),
+      temperaturesC: sorted([25, s.envelope.taMin, s.envelope.taMax]),
+    };
   }
   const own = [card.izk ?? null, card.izt].filter((c): c is number => c !== null);
   return { label: 'at its test currents and 1, 5, 10, 20 mA, 25 °C', currents: sorted([...own, ...STANDARD_CURRENTS]), temperaturesC: [25] };

@@ -18,21 +18,21 @@ const supplySchema = z
   .superRefine((s, ctx) => {
     if (s.min > s.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('supply.min', s.min)} is above ${fw('supply.max', s.max)}` });
     if (s.nom !== undefined && (s.nom < s.min || s.nom > s.max)) {
-      ctx.addIssue({ code: 'custom', path: ['nom'], message: `${fw('supply.nom', s.nom)} lies outside ${fieldValue('supply.min', s.min)} … ${fieldValue('supply.max', s.max)}` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nom'],
+        message: `${fw('supply.nom', s.nom)} lies outside ${fieldValue('supply.min', s.min)} … ${fieldValue('supply.max', s.max)}`,
+      });
     }
   });
 
-const loadSchema = z
-  .strictObject({ min: z.number().nonnegative().max(100), max: z.number().nonnegative().max(100) })
-  .superRefine((l, ctx) => {
-    if (l.min > l.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('load.min', l.min)} is above ${fw('load.max', l.max)}` });
-  });
+const loadSchema = z.strictObject({ min: z.number().nonnegative().max(100), max: z.number().nonnegative().max(100) }).superRefine((l, ctx) => {
+  if (l.min > l.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('load.min', l.min)} is above ${fw('load.max', l.max)}` });
+});
 
-const ambientSchema = z
-  .strictObject({ min: physical('ambient'), max: physical('ambient') })
-  .superRefine((a, ctx) => {
-    if (a.min > a.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('ambient.min', a.min)} is above ${fw('ambient.max', a.max)}` });
-  });
+const ambientSchema = z.strictObject({ min: physical('ambient'), max: physical('ambient') }).superRefine((a, ctx) => {
+  if (a.min > a.max) ctx.addIssue({ code: 'custom', path: ['min'], message: `${fw('ambient.min', a.min)} is above ${fw('ambient.max', a.max)}` });
+});
 
 /** `POST /api/engineering/regulator`: a shunt regulator (supply → R → diode ∥ load) designed around a card. */
 export const regulatorRequestSchema = z.strictObject({

@@ -67,8 +67,6 @@ export type CreateVariantsRequest = z.input<typeof createVariantsRequestSchema>;
 
 export const createVariantsResponseSchema = z.object({
   datasheetId: z.number().int(),
-  vendorParts: z.array(
-    z.object({ vendorPartId: z.number().int(), mpn: z.string(), created: z.boolean(), cardVersion: z.number().int() }),
-  ),
+  vendorParts: z.array(z.object({ vendorPartId: z.number().int(), mpn: z.string(), created: z.boolean(), cardVersion: z.number().int() })),
 });
 export type CreateVariantsResponse = z.infer<typeof createVariantsResponseSchema>;

@@ -26,7 +26,10 @@ export function sortQuerySchema<const F extends string>(fields: readonly [F, ...
     .default(fallback)
     .transform((text, ctx): SortTerm<F>[] => {
       const terms: SortTerm<F>[] = [];
-      for (const raw of text.split(',').map((s) => s.trim()).filter(Boolean)) {
+      for (const raw of text
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean)) {
         const desc = raw.startsWith('-');
         const field = (desc ? raw.slice(1) : raw) as F;
         if (!fields.includes(field)) {

@@ -51,7 +51,10 @@ describe('rating card input', () => {
       fields: { vzNom: { value: 5.1, provenance: { source: 'extracted' } }, izt: { value: 5e-3, provenance: entered } },
     });
     expect(bad.error!.issues.map((i) => i.path.join('.'))).toEqual(['fields.vzNom.provenance.datasheetId', 'fields.vzNom.provenance.page']);
-    const good = putRatingCardRequestSchema.parse({ version: 3, fields: { vzNom: { value: 5.1, provenance: entered }, izt: { value: 5e-3, provenance: entered } } });
+    const good = putRatingCardRequestSchema.parse({
+      version: 3,
+      fields: { vzNom: { value: 5.1, provenance: entered }, izt: { value: 5e-3, provenance: entered } },
+    });
     expect(good.fields.izt.confirmed).toBe(true);
   });
 });
@@ -59,7 +62,16 @@ describe('rating card input', () => {
 describe('spec', () => {
   const base = { iRef: 5e-3, vz: { min: 4.85, nom: 5.1, max: 5.36 }, envelope: { iMin: 1e-3, iMax: 20e-3, taMin: -40, taMax: 85 } };
   it('fills the optional limits with null and the marginal band with 5 %', () => {
-    expect(specSchema.parse(base)).toMatchObject({ zdMax: null, knee: null, leakage: null, tc: null, power: null, packages: [], outputWindow: null, marginalBandPercent: 5 });
+    expect(specSchema.parse(base)).toMatchObject({
+      zdMax: null,
+      knee: null,
+      leakage: null,
+      tc: null,
+      power: null,
+      packages: [],
+      outputWindow: null,
+      marginalBandPercent: 5,
+    });
   });
   it('names the field of each contradiction', () => {
     const r = specSchema.safeParse({ ...base, knee: { maxRatio: 10 }, leakage: { irMax: 1e-6, vr: 5 }, outputWindow: { vMin: 5.5, vMax: 5 } });
@@ -78,7 +90,11 @@ describe('cardDraftFromExtraction', () => {
   };
   it('marks every found value extracted, with its datasheet, page and text, and keeps tc in mV/K', () => {
     const draft = cardDraftFromExtraction(variant, 9);
-    expect(draft.vzNom).toEqual({ value: 5.1, printed: '5.1 V', provenance: { source: 'extracted', datasheetId: 9, page: 2, text: 'X-5V1 4.85 5.1 5.36 5 60' } });
+    expect(draft.vzNom).toEqual({
+      value: 5.1,
+      printed: '5.1 V',
+      provenance: { source: 'extracted', datasheetId: 9, page: 2, text: 'X-5V1 4.85 5.1 5.36 5 60' },
+    });
     expect(draft.tc).toMatchObject({ value: -1.8, unit: 'mV/K', printed: '−1.8 mV/°C' });
     expect(draft.izt).toBeUndefined();
   });

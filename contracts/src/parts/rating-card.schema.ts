@@ -14,23 +14,7 @@ import type { QuantityKind } from '../units/quantity';
 import { actorSchema } from './page.schema';
 
 /** The rating card's fields; every value is SI except tc, which keeps the unit the datasheet used. */
-export const CARD_FIELDS = [
-  'vzMin',
-  'vzNom',
-  'vzMax',
-  'izt',
-  'zzt',
-  'izk',
-  'zzk',
-  'irMax',
-  'vr',
-  'tc',
-  'pdMax',
-  'pdRefC',
-  'tjMax',
-  'rthJA',
-  'izm',
-] as const;
+export const CARD_FIELDS = ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'pdRefC', 'tjMax', 'rthJA', 'izm'] as const;
 export type CardField = (typeof CARD_FIELDS)[number];
 export type PlainCardField = Exclude<CardField, 'tc'>;
 
@@ -247,12 +231,14 @@ export type RatingCard = z.infer<typeof ratingCardSchema>;
 export const ratingCardViewSchema = ratingCardSchema.extend({
   issues: z.array(cardIssueSchema),
   /** Only with `include=engineering`: the card normalised by the same function and currents the card editor uses (normalizeBasis). */
-  engineering: z.object({
-    basis: z.object({ housePartId: z.number().int(), partNumber: z.string(), specVersion: z.number().int() }).nullable(),
-    result: normalizeResponseSchema.nullable(),
-    /** Why there is no result (no vzNom/izt yet, or the core refused the card). */
-    reason: z.string().nullable(),
-  }).optional(),
+  engineering: z
+    .object({
+      basis: z.object({ housePartId: z.number().int(), partNumber: z.string(), specVersion: z.number().int() }).nullable(),
+      result: normalizeResponseSchema.nullable(),
+      /** Why there is no result (no vzNom/izt yet, or the core refused the card). */
+      reason: z.string().nullable(),
+    })
+    .optional(),
 });
 export type RatingCardView = z.infer<typeof ratingCardViewSchema>;
 

@@ -32,9 +32,15 @@ export const specSchema = z
       .nullable()
       .default(null),
     /** Largest reverse leakage irMax (A) at reverse voltage vr (V). */
-    leakage: z.strictObject({ irMax: physical('leakage'), vr: volts }).nullable().default(null),
+    leakage: z
+      .strictObject({ irMax: physical('leakage'), vr: volts })
+      .nullable()
+      .default(null),
     /** Temperature-coefficient window (V/K). */
-    tc: z.strictObject({ min: physical('tempCoVoltsPerK'), max: physical('tempCoVoltsPerK') }).nullable().default(null),
+    tc: z
+      .strictObject({ min: physical('tempCoVoltsPerK'), max: physical('tempCoVoltsPerK') })
+      .nullable()
+      .default(null),
     /** Smallest power rating (W) and the largest fraction of the derated power the part may dissipate. */
     power: z
       .strictObject({ pdMin: physical('power'), deratingFraction: z.number().positive().max(1) })
@@ -54,9 +60,11 @@ export const specSchema = z
     if (s.vz.min > s.vz.nom) issue(['vz', 'min'], `${fw('vz.min', s.vz.min)} is above ${fw('vz.nom', s.vz.nom)}`);
     if (s.vz.max < s.vz.nom) issue(['vz', 'max'], `${fw('vz.max', s.vz.max)} is below ${fw('vz.nom', s.vz.nom)}`);
     if (s.knee) {
-      if (s.knee.maxRatio === null && s.knee.maxSpan === null) issue(['knee'], 'A knee limit needs the largest ratio (with the knee current) or the largest span');
+      if (s.knee.maxRatio === null && s.knee.maxSpan === null)
+        issue(['knee'], 'A knee limit needs the largest ratio (with the knee current) or the largest span');
       if (s.knee.maxRatio !== null && s.knee.iKnee === null) issue(['knee', 'iKnee'], 'The knee ratio is stated at a knee current: give the knee current');
-      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef) issue(['knee', 'iKnee'], `${fw('knee.iKnee', s.knee.iKnee)} must be below the reference current (${fieldValue('iRef', s.iRef)})`);
+      if (s.knee.iKnee !== null && s.knee.iKnee >= s.iRef)
+        issue(['knee', 'iKnee'], `${fw('knee.iKnee', s.knee.iKnee)} must be below the reference current (${fieldValue('iRef', s.iRef)})`);
     }
     if (s.leakage && s.leakage.vr >= s.vz.min) issue(['leakage', 'vr'], `${fw('leakage.vr', s.leakage.vr)} must be below ${fw('vz.min', s.vz.min)}`);
     if (s.tc && s.tc.min > s.tc.max) issue(['tc', 'min'], `${fw('tc.min', s.tc.min)} is above ${fw('tc.max', s.tc.max)}`);

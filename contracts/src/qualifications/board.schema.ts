@@ -20,7 +20,12 @@ export const boardQuerySchema = z.object({
     .trim()
     .max(200)
     .transform((text, ctx) => {
-      const parsed = z.array(boardStateSchema).safeParse(text.split(',').map((s) => s.trim()).filter(Boolean));
+      const parsed = z.array(boardStateSchema).safeParse(
+        text
+          .split(',')
+          .map((s) => s.trim())
+          .filter(Boolean),
+      );
       if (!parsed.success) {
         ctx.addIssue({ code: 'custom', message: `unknown state in "${text}"; states: ${BOARD_STATES.join(', ')}` });
         return z.NEVER;

@@ -39,9 +39,7 @@ export const compareSourceSchema = z.object({
   vendorPart: vendorPartRefSchema,
   role: sourceRoleSchema,
   cardVersion: z.number().int().nullable(),
-  latestCase: z
-    .object({ id: z.number().int(), revision: z.number().int(), state: qualificationStateSchema, overall: qualificationVerdictSchema })
-    .nullable(),
+  latestCase: z.object({ id: z.number().int(), revision: z.number().int(), state: qualificationStateSchema, overall: qualificationVerdictSchema }).nullable(),
   /** The card evaluated now against the current spec; null when the card cannot be read (see `reason`). */
   evaluation: evaluationSchema.nullable(),
   /** One curve per temperature of `temperaturesC`, same order; empty without a readable card. */

@@ -49,9 +49,7 @@ export const qualificationRequestSchema = z.object({
    * When the latest decision on this vendor part for the named house part ruled it out
    * (rejected, or revoked): that case, so the engineer sees it before taking the request up.
    */
-  ruledOut: z
-    .object({ caseId: z.number().int(), state: z.enum(RULED_OUT_STATES), reason: z.string().nullable(), at: z.string().nullable() })
-    .nullable(),
+  ruledOut: z.object({ caseId: z.number().int(), state: z.enum(RULED_OUT_STATES), reason: z.string().nullable(), at: z.string().nullable() }).nullable(),
   /** The case that took it up, as it stands now. */
   case: z
     .object({

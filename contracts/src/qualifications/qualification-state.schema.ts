@@ -41,7 +41,15 @@ export const QUALIFICATION_STATE_LABELS: Record<QualificationState, string> = {
 /** States in which the case may still be edited, evaluated again or decided. */
 export const OPEN_STATES = ['draft', 'in-review'] as const satisfies readonly QualificationState[];
 /** States reached by a second engineer's decision (revoked included: it ends an approval or clearance). */
-export const DECIDED_STATES = ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected', 'revoked', 'waiver-lapsed'] as const satisfies readonly QualificationState[];
+export const DECIDED_STATES = [
+  'approved',
+  'cleared',
+  'cleared-with-conditions',
+  'cleared-with-waiver',
+  'rejected',
+  'revoked',
+  'waiver-lapsed',
+] as const satisfies readonly QualificationState[];
 
 export function isOpenState(state: QualificationState): boolean {
   return (OPEN_STATES as readonly string[]).includes(state);
@@ -81,7 +89,11 @@ export const QUALIFICATION_TRANSITIONS: Record<QualificationAction, { from: read
   reject: { from: ['in-review'], to: 'rejected', label: 'Reject' },
   withdraw: { from: ['draft', 'in-review'], to: 'withdrawn', label: 'Withdraw' },
   revoke: { from: ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver'], to: 'revoked', label: 'Revoke' },
-  recheck: { from: ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected', 'revoked', 'waiver-lapsed'], to: null, label: 'Open a re-check' },
+  recheck: {
+    from: ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected', 'revoked', 'waiver-lapsed'],
+    to: null,
+    label: 'Open a re-check',
+  },
 };
 
 /** The decisions a second engineer makes; the preparer of a case may make none of them. */

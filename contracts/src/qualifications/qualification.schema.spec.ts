@@ -29,6 +29,8 @@ describe('qualification contracts', () => {
     const empty = qualificationClearWithConditionsRequestSchema.safeParse({ version: 0, conditions: '   ' });
     expect(empty.success).toBe(false);
     expect(empty.error?.issues[0]).toMatchObject({ path: ['conditions'], message: 'Write the conditions' });
-    expect(qualificationClearWithConditionsRequestSchema.parse({ version: 0, conditions: ' 100 % leakage test at 2 V ' }).conditions).toBe('100 % leakage test at 2 V');
+    expect(qualificationClearWithConditionsRequestSchema.parse({ version: 0, conditions: ' 100 % leakage test at 2 V ' }).conditions).toBe(
+      '100 % leakage test at 2 V',
+    );
   });
 });

@@ -15,12 +15,7 @@ import { z } from 'zod';
 import { actorSchema, pageQueryShape, pageSchema, queryBooleanSchema, sortQuerySchema } from '../parts/page.schema';
 import { sourceRoleSchema } from '../parts/source.schema';
 import { evaluationSchema } from './evaluation.schema';
-import {
-  qualificationActionSchema,
-  qualificationStateSchema,
-  qualificationVerdictSchema,
-  type QualificationAction,
-} from './qualification-state.schema';
+import { qualificationActionSchema, qualificationStateSchema, qualificationVerdictSchema, type QualificationAction } from './qualification-state.schema';
 
 /** What the audit trail records. Every state change and edit writes one entry. */
 export const AUDIT_ACTIONS = [
@@ -158,7 +153,10 @@ export const qualificationStateListSchema = z
   .trim()
   .max(200)
   .transform((text, ctx) => {
-    const states = text.split(',').map((s) => s.trim()).filter(Boolean);
+    const states = text
+      .split(',')
+      .map((s) => s.trim())
+      .filter(Boolean);
     const parsed = z.array(qualificationStateSchema).safeParse(states);
     if (!parsed.success) {
       ctx.addIssue({ code: 'custom', message: `unknown state in "${text}"; states: ${qualificationStateSchema.options.join(', ')}` });
@@ -191,7 +189,10 @@ const required = (what: string, max = 2000) => z.string().trim().min(1, `Write t
  * that changes the case, so no request can skip the optimistic lock by leaving it out
  * (a re-check opens a new case and leaves this one as it is, so it takes none).
  */
-const versionField = z.number({ error: (i) => (i.input === undefined ? 'Send the case version you loaded' : 'must be the case version, a whole number') }).int().min(0);
+const versionField = z
+  .number({ error: (i) => (i.input === undefined ? 'Send the case version you loaded' : 'must be the case version, a whole number') })
+  .int()
+  .min(0);
 
 /** `POST /api/qualifications` (engineers): opens a case and evaluates it against the current spec and card. */
 export const createQualificationRequestSchema = z.strictObject({
@@ -213,7 +214,11 @@ export type UpdateQualificationRequest = z.input<typeof updateQualificationReque
 
 export const qualificationEvaluateRequestSchema = z.strictObject({ version: versionField });
 /** Send for review; name a reviewer (another engineer) or leave it to every other engineer. */
-export const qualificationSubmitRequestSchema = z.strictObject({ version: versionField, reviewerId: z.number().int().positive().nullish(), note: text(2000).nullish() });
+export const qualificationSubmitRequestSchema = z.strictObject({
+  version: versionField,
+  reviewerId: z.number().int().positive().nullish(),
+  note: text(2000).nullish(),
+});
 export const qualificationSendBackRequestSchema = z.strictObject({ version: versionField, reason: required('reason for sending it back') });
 /** A second engineer makes the source the house part's approved source (the reference part). */
 export const qualificationApproveRequestSchema = z.strictObject({ version: versionField, note: text(2000).nullish() });

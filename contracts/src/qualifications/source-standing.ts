@@ -170,7 +170,10 @@ export function allowedActionsFor(facts: CaseFacts, actor: { id: number; role: R
 }
 
 /** Whether an evaluation made on these versions is still current. */
-export function isEvaluationFresh(evaluated: { needsRecheck: boolean; specVersion: number; cardVersion: number }, current: { specVersion: number | null; cardVersion: number | null }): boolean {
+export function isEvaluationFresh(
+  evaluated: { needsRecheck: boolean; specVersion: number; cardVersion: number },
+  current: { specVersion: number | null; cardVersion: number | null },
+): boolean {
   return !evaluated.needsRecheck && evaluated.specVersion === current.specVersion && evaluated.cardVersion === current.cardVersion;
 }
 
@@ -216,7 +219,11 @@ export function isWaiverDue(waiver: Pick<WaiverFacts, 'state' | 'expiresOn'>, to
 }
 
 /** The checks that are not a pass and no waiver in force covers, in the evaluation's order. */
-export function waiverGaps(checks: readonly Pick<QualificationCheck, 'id' | 'verdict'>[], waivers: readonly Pick<WaiverFacts, 'checkId' | 'state' | 'expiresOn'>[], today: string): CheckId[] {
+export function waiverGaps(
+  checks: readonly Pick<QualificationCheck, 'id' | 'verdict'>[],
+  waivers: readonly Pick<WaiverFacts, 'checkId' | 'state' | 'expiresOn'>[],
+  today: string,
+): CheckId[] {
   const covered = new Set(waivers.filter((w) => isWaiverInForce(w, today)).map((w) => w.checkId));
   return checks.filter((c) => c.verdict !== 'pass' && !covered.has(c.id)).map((c) => c.id);
 }
@@ -266,7 +273,12 @@ export function limitCovers(check: { limitKind: LimitKind; value: number | null;
   return true;
 }
 
-export function decideWaiverBlock(waiver: Pick<WaiverFacts, 'state' | 'preparedById' | 'expiresOn'>, caseState: QualificationState, actor: { id: number; role: Role }, today: string): WaiverBlock | null {
+export function decideWaiverBlock(
+  waiver: Pick<WaiverFacts, 'state' | 'preparedById' | 'expiresOn'>,
+  caseState: QualificationState,
+  actor: { id: number; role: Role },
+  today: string,
+): WaiverBlock | null {
   if (!(CASE_ROLES as readonly string[]).includes(actor.role)) return 'role';
   if (waiver.state !== 'proposed' || !isOpenState(caseState)) return 'state';
   if (waiver.preparedById === actor.id) return 'two-person';

@@ -1,5 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { actionBlock, allowedActionsFor, decideWaiverBlock, isUsableState, isWaiverDue, isWaiverInForce, limitCovers, prepareWaiverBlock, waiverGaps, type CaseFacts } from './source-standing';
+import {
+  actionBlock,
+  allowedActionsFor,
+  decideWaiverBlock,
+  isUsableState,
+  isWaiverDue,
+  isWaiverInForce,
+  limitCovers,
+  prepareWaiverBlock,
+  waiverGaps,
+  type CaseFacts,
+} from './source-standing';
 import { isDecidedState } from './qualification-state.schema';
 
 // The waiver rule beside the case rule: one engineer prepares, another decides; a clearance
@@ -26,7 +37,16 @@ describe('waiver rule', () => {
 
   it('lists the checks not a pass that no waiver in force covers', () => {
     expect(waiverGaps(checks, [], today)).toEqual(['zd', 'leakage', 'package']);
-    expect(waiverGaps(checks, [{ checkId: 'zd', state: 'approved', expiresOn: '2027-06-30' }, { checkId: 'leakage', state: 'proposed', expiresOn: '2027-06-30' }], today)).toEqual(['leakage', 'package']);
+    expect(
+      waiverGaps(
+        checks,
+        [
+          { checkId: 'zd', state: 'approved', expiresOn: '2027-06-30' },
+          { checkId: 'leakage', state: 'proposed', expiresOn: '2027-06-30' },
+        ],
+        today,
+      ),
+    ).toEqual(['leakage', 'package']);
     expect(waiverGaps(checks, [{ checkId: 'zd', state: 'approved', expiresOn: '2027-01-14' }], today)).toContain('zd');
     expect(waiverGaps([{ id: 'zd', verdict: 'no-data' }], [{ checkId: 'zd', state: 'approved', expiresOn: '2027-06-30' }], today)).toEqual([]);
   });

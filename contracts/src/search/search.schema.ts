@@ -35,7 +35,14 @@ const commaListSchema = (max: number) =>
     .string()
     .trim()
     .max(max)
-    .transform((text) => [...new Set(text.split(',').map((s) => s.trim()).filter(Boolean))])
+    .transform((text) => [
+      ...new Set(
+        text
+          .split(',')
+          .map((s) => s.trim())
+          .filter(Boolean),
+      ),
+    ])
     .optional();
 
 export const searchQuerySchema = z
@@ -77,7 +84,11 @@ export const searchQuerySchema = z
       ctx.addIssue({ code: 'custom', path: ['vzWindow'], message: 'vzWindow needs vzFrom or vzTo: the window is checked against that range' });
     }
     if (q.housePartId !== undefined && q.includeNotCleared) {
-      ctx.addIssue({ code: 'custom', path: ['includeNotCleared'], message: 'housePartId lists the parts usable for that house part; it cannot be combined with includeNotCleared' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['includeNotCleared'],
+        message: 'housePartId lists the parts usable for that house part; it cannot be combined with includeNotCleared',
+      });
     }
   });
 export type SearchQuery = z.infer<typeof searchQuerySchema>;

@@ -28,17 +28,32 @@ describe('physical values have sane bounds, refused with the field named', () =>
   });
 
   it('refuses a Zener voltage of 1e-300 V and a test current of 1e-300 A, naming the field', () => {
-    expect(issues(putRatingCardRequestSchema.safeParse(card({ vzNom: v(1e-300) })))).toContainEqual({ path: 'fields.vzNom.value', message: expect.stringMatching(/^vzNom: must be between 0.5 and 1000 V/) });
-    expect(issues(putRatingCardRequestSchema.safeParse(card({ izt: v(1e-300) })))).toContainEqual({ path: 'fields.izt.value', message: expect.stringMatching(/^izt: .*A/) });
-    expect(issues(putRatingCardRequestSchema.safeParse(card({ izt: v(1e3) })))).toContainEqual({ path: 'fields.izt.value', message: expect.stringMatching(/^izt: .*100 A/) });
+    expect(issues(putRatingCardRequestSchema.safeParse(card({ vzNom: v(1e-300) })))).toContainEqual({
+      path: 'fields.vzNom.value',
+      message: expect.stringMatching(/^vzNom: must be between 0.5 and 1000 V/),
+    });
+    expect(issues(putRatingCardRequestSchema.safeParse(card({ izt: v(1e-300) })))).toContainEqual({
+      path: 'fields.izt.value',
+      message: expect.stringMatching(/^izt: .*A/),
+    });
+    expect(issues(putRatingCardRequestSchema.safeParse(card({ izt: v(1e3) })))).toContainEqual({
+      path: 'fields.izt.value',
+      message: expect.stringMatching(/^izt: .*100 A/),
+    });
   });
 
   it('refuses out-of-range spec values at their path and keeps plausible ones', () => {
     expect(specSchema.safeParse(spec()).success).toBe(true);
-    expect(issues(specSchema.safeParse(spec({ vz: { min: 1e-300, nom: 1e-300, max: 1e-300 } })))).toContainEqual({ path: 'vz.nom', message: expect.stringMatching(/0.5 and 1000 V/) });
+    expect(issues(specSchema.safeParse(spec({ vz: { min: 1e-300, nom: 1e-300, max: 1e-300 } })))).toContainEqual({
+      path: 'vz.nom',
+      message: expect.stringMatching(/0.5 and 1000 V/),
+    });
     expect(issues(specSchema.safeParse(spec({ iRef: 0 })))).toContainEqual({ path: 'iRef', message: expect.stringMatching(/A$/) });
     expect(issues(specSchema.safeParse(spec({ tc: { min: -1e300, max: 1 } })))).toContainEqual({ path: 'tc.min', message: expect.stringMatching(/V\/K/) });
-    expect(issues(specSchema.safeParse(spec({ envelope: { iMin: 1e-3, iMax: 1e300, taMin: -40, taMax: 85 } })))).toContainEqual({ path: 'envelope.iMax', message: expect.any(String) });
+    expect(issues(specSchema.safeParse(spec({ envelope: { iMin: 1e-3, iMax: 1e300, taMin: -40, taMax: 85 } })))).toContainEqual({
+      path: 'envelope.iMax',
+      message: expect.any(String),
+    });
   });
 
   it('keeps every bound ordered and finite', () => {

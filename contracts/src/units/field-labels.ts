@@ -181,7 +181,9 @@ export function issueMessage(issue: LabelledIssue): string {
   switch (issue.code) {
     case 'too_small':
       if (numeric) return `${name} must be ${issue.inclusive ? 'at least' : 'above'} ${limit(issue.minimum)}`;
-      return Number(issue.minimum) <= 1 ? `${name} is required` : `${name}: use at least ${issue.minimum} ${issue.origin === 'array' ? 'entries' : 'characters'}`;
+      return Number(issue.minimum) <= 1
+        ? `${name} is required`
+        : `${name}: use at least ${issue.minimum} ${issue.origin === 'array' ? 'entries' : 'characters'}`;
     case 'too_big':
       if (numeric) return `${name} must be ${issue.inclusive === false ? 'below' : 'at most'} ${limit(issue.maximum)}`;
       return `${name}: use at most ${issue.maximum} ${issue.origin === 'array' ? 'entries' : 'characters'}`;

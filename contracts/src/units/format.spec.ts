@@ -37,7 +37,12 @@ describe('formatQuantity prints SI numbers with engineering prefixes', () => {
   });
 
   it('what it prints reads back through parseQuantity', () => {
-    for (const [value, kind] of [[4.7, 'voltage'], [2.5e-7, 'current'], [-0.0019, 'tempCoVoltage'], [0.06, 'tempCoPercent']] as const) {
+    for (const [value, kind] of [
+      [4.7, 'voltage'],
+      [2.5e-7, 'current'],
+      [-0.0019, 'tempCoVoltage'],
+      [0.06, 'tempCoPercent'],
+    ] as const) {
       expect(parseQuantity(formatQuantity(value, kind), kind)).toBeCloseTo(value, 12);
     }
   });
@@ -69,7 +74,7 @@ describe('roundToDigits keeps exported numbers to the printed precision', () => 
     const seed = Date.now() % 100000;
     (globalThis as unknown as { console: { log(message: string): void } }).console.log(`roundToStated seed ${seed}`);
     let state = seed;
-    const next = () => ((state = (state * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const next = () => (state = (state * 1103515245 + 12345) % 2147483648) / 2147483648;
     for (let i = 0; i < 500; i++) {
       const value = (next() < 0.5 ? -1 : 1) * 10 ** (next() * 12 - 9) * (1 + next());
       const printed = `${value.toPrecision(1 + Math.floor(next() * 5))} X`;
@@ -129,7 +134,7 @@ describe('every displayed negative number carries a true minus (U+2212), never a
     const seed = Date.now() % 100000;
     (globalThis as unknown as { console: { log(message: string): void } }).console.log(`minus-sign seed ${seed}`);
     let state = seed;
-    const next = () => ((state = (state * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const next = () => (state = (state * 1103515245 + 12345) % 2147483648) / 2147483648;
     for (let i = 0; i < 200; i++) {
       const x = -(10 ** (next() * 16 - 12)) * (1 + next());
       for (const kind of ['voltage', 'current', 'resistance', 'power', 'temperature', 'thermalResistance', 'tempCoVoltage', 'tempCoPercent'] as const) {

@@ -95,7 +95,10 @@ export function formatNumber(value: number | null | undefined, digits = 3, optio
  * A fraction as a percentage: 0.0526 → "5.26 %", -0.02 → "−2 %". Trailing zeros are dropped
  * unless `trim: false`; `signed` writes "+" before positive values.
  */
-export function formatPercent(fraction: number | null | undefined, options: { digits?: number; signed?: boolean; trim?: boolean; empty?: string } = {}): string {
+export function formatPercent(
+  fraction: number | null | undefined,
+  options: { digits?: number; signed?: boolean; trim?: boolean; empty?: string } = {},
+): string {
   if (fraction === null || fraction === undefined || Number.isNaN(fraction)) return options.empty ?? '–';
   const text = formatNumber(fraction * 100, options.digits ?? 3, { trim: options.trim ?? true });
   return `${options.signed && fraction > 0 ? '+' : ''}${text} %`;

@@ -16,8 +16,8 @@ const PREFIX_FACTOR: Record<string, number> = {
   p: 1e-12,
   n: 1e-9,
   u: 1e-6,
-  'µ': 1e-6, // micro sign U+00B5
-  'μ': 1e-6, // Greek mu U+03BC
+  µ: 1e-6, // micro sign U+00B5
+  μ: 1e-6, // Greek mu U+03BC
   m: 1e-3,
   '': 1,
   k: 1e3,
@@ -128,16 +128,7 @@ export function unitFactor(unitText: string, kind: QuantityKind): number | undef
 /** Which quantity kind a unit text belongs to, if any ("mV/°C" → tempCoVoltage). */
 export function kindOfUnit(unitText: string): QuantityKind | undefined {
   // Longest spellings first so "V/K" is not mistaken for a voltage.
-  const order: QuantityKind[] = [
-    'tempCoPercent',
-    'tempCoVoltage',
-    'thermalResistance',
-    'resistance',
-    'temperature',
-    'voltage',
-    'current',
-    'power',
-  ];
+  const order: QuantityKind[] = ['tempCoPercent', 'tempCoVoltage', 'thermalResistance', 'resistance', 'temperature', 'voltage', 'current', 'power'];
   return order.find((kind) => unitFactor(unitText, kind) !== undefined);
 }
 

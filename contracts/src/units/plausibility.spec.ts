@@ -27,13 +27,18 @@ describe('plausibility of spec values (usual ranges: common practice, no source)
     // contracts compile without DOM or Node types: reach the console through globalThis.
     (globalThis as unknown as { console: { log(message: string): void } }).console.log(`plausibility seed ${seed}`);
     let s = seed;
-    const rand = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const rand = () => (s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
     for (const [name, { min, max }] of Object.entries(USUAL_RANGES)) {
       for (let k = 0; k < 200; k++) {
         const inside = min * (max / min) ** rand();
         expect([seed, name, inside, plausibilityWarning(name as keyof typeof USUAL_RANGES, inside)]).toEqual([seed, name, inside, null]);
         const outside = rand() < 0.5 ? min * 10 ** (-6 * rand() - 1e-3) : max * 10 ** (6 * rand() + 1e-3);
-        expect([seed, name, outside, plausibilityWarning(name as keyof typeof USUAL_RANGES, outside)]).toEqual([seed, name, outside, expect.stringMatching(/outside the usual range/)]);
+        expect([seed, name, outside, plausibilityWarning(name as keyof typeof USUAL_RANGES, outside)]).toEqual([
+          seed,
+          name,
+          outside,
+          expect.stringMatching(/outside the usual range/),
+        ]);
       }
     }
   });

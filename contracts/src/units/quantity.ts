@@ -3,16 +3,7 @@
  * Each kind lists the unit symbols a datasheet may print for it, with the factor that
  * turns a value in that unit into SI.
  */
-export const QUANTITY_KINDS = [
-  'voltage',
-  'current',
-  'resistance',
-  'power',
-  'temperature',
-  'thermalResistance',
-  'tempCoVoltage',
-  'tempCoPercent',
-] as const;
+export const QUANTITY_KINDS = ['voltage', 'current', 'resistance', 'power', 'temperature', 'thermalResistance', 'tempCoVoltage', 'tempCoPercent'] as const;
 export type QuantityKind = (typeof QUANTITY_KINDS)[number];
 
 /** The SI unit symbol that each kind is formatted with. */

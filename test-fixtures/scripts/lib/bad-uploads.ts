@@ -15,7 +15,7 @@ function scannedPage(prng: Prng): Buffer {
   const lines: Array<{ y: number; words: Array<[number, number]> }> = [];
   for (let y = 60; y < height - 60; y += prng.int(14, 22)) {
     const words: Array<[number, number]> = [];
-    for (let x = 50; x < width - 60; ) {
+    for (let x = 50; x < width - 60;) {
       const w = prng.int(12, 60);
       words.push([x, Math.min(x + w, width - 50)]);
       x += w + prng.int(5, 10);
@@ -67,7 +67,7 @@ export async function encryptedPdf(): Promise<Buffer> {
 
 /** A PNG screenshot saved with a .pdf name. */
 export function notAPdf(): Buffer {
-  return greyPng(64, 32, (x, y) => ((x >> 3) + (y >> 3)) % 2 ? 255 : 30);
+  return greyPng(64, 32, (x, y) => (((x >> 3) + (y >> 3)) % 2 ? 255 : 30));
 }
 
 /** The first part of a real datasheet, cut off mid-file as an interrupted download would be. */

@@ -38,28 +38,94 @@ interface HousePartPlan {
 }
 
 const PLANS: HousePartPlan[] = [
-  { partNumber: 'OHI-ZD-1024', family: 'small', approved: 'BRZ05-2V4', alternates: ['CBX3-2.4'], status: 'not-for-new-designs', use: 'bias for the legacy thermocouple front end' },
+  {
+    partNumber: 'OHI-ZD-1024',
+    family: 'small',
+    approved: 'BRZ05-2V4',
+    alternates: ['CBX3-2.4'],
+    status: 'not-for-new-designs',
+    use: 'bias for the legacy thermocouple front end',
+  },
   { partNumber: 'OHI-ZD-1033', family: 'small', approved: 'BRZ05-3V3', alternates: ['CBX3-3.3'], use: 'clamp on 3.3 V logic inputs' },
-  { partNumber: 'OHI-ZD-1036', family: 'small', approved: 'NMZ-03V6', alternates: ['BRZ05-3V6'], use: 'comparator threshold, ±2 % part', vzWiden: 0.022, extraPackages: ['SOT-23'] },
+  {
+    partNumber: 'OHI-ZD-1036',
+    family: 'small',
+    approved: 'NMZ-03V6',
+    alternates: ['BRZ05-3V6'],
+    use: 'comparator threshold, ±2 % part',
+    vzWiden: 0.022,
+    extraPackages: ['SOT-23'],
+  },
   { partNumber: 'OHI-ZD-1047', family: 'small', approved: 'BRZ05-4V7', alternates: ['QHZ4V7A'], use: 'sensor supply clamp' },
-  { partNumber: 'OHI-ZD-1051', family: 'small', approved: 'BRZ05-5V1', alternates: ['QHZ5V1AF', 'NMZ-05V1', 'CBX3-5.1'], use: '5 V rail over-voltage clamp', outputWindow: true, extraPackages: ['SOT-23'] },
+  {
+    partNumber: 'OHI-ZD-1051',
+    family: 'small',
+    approved: 'BRZ05-5V1',
+    alternates: ['QHZ5V1AF', 'NMZ-05V1', 'CBX3-5.1'],
+    use: '5 V rail over-voltage clamp',
+    outputWindow: true,
+    extraPackages: ['SOT-23'],
+  },
   { partNumber: 'OHI-ZD-1056', family: 'small', approved: 'BRZ05-5V6', alternates: ['QHZ5V6A'], use: 'reference for the 4–20 mA loop driver' },
   { partNumber: 'OHI-ZD-1062', family: 'small', approved: 'QHZ6V2AF', alternates: ['BRZ05-6V2'], use: 'low-drift reference (near-zero TC)', knee: 'both' },
-  { partNumber: 'OHI-ZD-1068', family: 'small', approved: 'BRZ05-6V8', alternates: ['QHZ6V8A', 'NMZ-06V8'], use: 'gate clamp on the MOSFET driver', extraPackages: ['SOT-23'] },
+  {
+    partNumber: 'OHI-ZD-1068',
+    family: 'small',
+    approved: 'BRZ05-6V8',
+    alternates: ['QHZ6V8A', 'NMZ-06V8'],
+    use: 'gate clamp on the MOSFET driver',
+    extraPackages: ['SOT-23'],
+  },
   { partNumber: 'OHI-ZD-1082', family: 'small', approved: 'BRZ05-8V2', alternates: ['QHZ8V2AF'], use: 'auxiliary rail limiter' },
-  { partNumber: 'OHI-ZD-1100', family: 'small', approved: 'BRZ05-10', alternates: ['QHZ10A', 'NMZ-10', 'CBX3-10'], use: '10 V bias for the analogue front end', outputWindow: true, extraPackages: ['SOT-23'] },
+  {
+    partNumber: 'OHI-ZD-1100',
+    family: 'small',
+    approved: 'BRZ05-10',
+    alternates: ['QHZ10A', 'NMZ-10', 'CBX3-10'],
+    use: '10 V bias for the analogue front end',
+    outputWindow: true,
+    extraPackages: ['SOT-23'],
+  },
   { partNumber: 'OHI-ZD-1120', family: 'small', approved: 'QHZ12AF', alternates: ['BRZ05-12'], use: 'relay-driver clamp' },
   { partNumber: 'OHI-ZD-1150', family: 'small', approved: 'BRZ05-15', alternates: ['QHZ15A'], use: '15 V op-amp rail clamp', knee: 'span' },
-  { partNumber: 'OHI-ZD-1240', family: 'small', approved: 'BRZ05-24', alternates: ['QHZ24AF', 'NMZ-24'], use: '24 V input protection', extraPackages: ['SOT-23'] },
+  {
+    partNumber: 'OHI-ZD-1240',
+    family: 'small',
+    approved: 'BRZ05-24',
+    alternates: ['QHZ24AF', 'NMZ-24'],
+    use: '24 V input protection',
+    extraPackages: ['SOT-23'],
+  },
   { partNumber: 'OHI-ZD-2082', family: 'power', approved: 'LVD1-082', alternates: ['TPZ15-8V2'], use: 'shunt regulator on the display board' },
   { partNumber: 'OHI-ZD-2100', family: 'power', approved: 'LVD1-100', alternates: ['TPZ15-10'], use: 'shunt regulator for the isolated sensor supply' },
   { partNumber: 'OHI-ZD-2110', family: 'power', approved: 'LVD1-110', alternates: ['TPZ15-11'], use: '11 V clamp for the valve-driver supply' },
-  { partNumber: 'OHI-ZD-2120', family: 'power', approved: 'LVD1-120', alternates: ['TPZ15-12', 'AM-ZR12'], use: '12 V auxiliary supply from the 24 V bus', outputWindow: true },
+  {
+    partNumber: 'OHI-ZD-2120',
+    family: 'power',
+    approved: 'LVD1-120',
+    alternates: ['TPZ15-12', 'AM-ZR12'],
+    use: '12 V auxiliary supply from the 24 V bus',
+    outputWindow: true,
+  },
   { partNumber: 'OHI-ZD-2150', family: 'power', approved: 'TPZ15-15', alternates: ['LVD1-150'], use: 'gate-drive supply clamp' },
   { partNumber: 'OHI-ZD-2160', family: 'power', approved: 'TPZ15-16', alternates: ['LVD1-160'], use: '16 V rail clamp on the motor-drive board' },
   { partNumber: 'OHI-ZD-2180', family: 'power', approved: 'LVD1-180', alternates: ['TPZ15-18'], use: 'field-bus surge clamp' },
-  { partNumber: 'OHI-ZD-3150', family: 'through-hole', approved: 'ODW15', alternates: ['AM-ZR15'], status: 'not-for-new-designs', use: 'retrofit board, through-hole' },
-  { partNumber: 'OHI-ZD-3330', family: 'through-hole', approved: 'ODW33', alternates: ['TPZ15-33'], status: 'end-of-life', use: 'legacy 30 V reference, through-hole' },
+  {
+    partNumber: 'OHI-ZD-3150',
+    family: 'through-hole',
+    approved: 'ODW15',
+    alternates: ['AM-ZR15'],
+    status: 'not-for-new-designs',
+    use: 'retrofit board, through-hole',
+  },
+  {
+    partNumber: 'OHI-ZD-3330',
+    family: 'through-hole',
+    approved: 'ODW33',
+    alternates: ['TPZ15-33'],
+    status: 'end-of-life',
+    use: 'legacy 30 V reference, through-hole',
+  },
 ];
 
 const FAMILY = {
@@ -144,12 +210,20 @@ function roughCheck(spec: Spec, c: Card): { verdict: Verdict; reason: string } {
     margins['output window'] = Math.min((low - spec.outputWindow.vMin) / spec.outputWindow.vMin, (spec.outputWindow.vMax - high) / spec.outputWindow.vMax);
   }
   margins.package = spec.packages.includes(c.package) ? 1 : -1;
-  const failing = Object.entries(margins).filter(([, v]) => v !== null && v < 0).map(([k]) => k);
-  const missing = Object.entries(margins).filter(([, v]) => v === null).map(([k]) => k);
-  const marginal = Object.entries(margins).filter(([, v]) => v !== null && v >= 0 && v < spec.marginalBand).map(([k]) => k);
+  const failing = Object.entries(margins)
+    .filter(([, v]) => v !== null && v < 0)
+    .map(([k]) => k);
+  const missing = Object.entries(margins)
+    .filter(([, v]) => v === null)
+    .map(([k]) => k);
+  const marginal = Object.entries(margins)
+    .filter(([, v]) => v !== null && v >= 0 && v < spec.marginalBand)
+    .map(([k]) => k);
   if (failing.length) return { verdict: 'fail', reason: `fails: ${failing.join(', ')}` };
   if (missing.length) {
-    const why = missing.map((k) => (k === 'knee' ? 'knee (no knee point in the datasheet)' : k === 'leakage' ? `leakage (given only at ${c.vr} V, below the spec's ${spec.leakage.vr} V)` : k));
+    const why = missing.map((k) =>
+      k === 'knee' ? 'knee (no knee point in the datasheet)' : k === 'leakage' ? `leakage (given only at ${c.vr} V, below the spec's ${spec.leakage.vr} V)` : k,
+    );
     return { verdict: 'no data', reason: `no data: ${why.join(', ')}` };
   }
   if (marginal.length) return { verdict: 'marginal', reason: `marginal: ${marginal.join(', ')}` };

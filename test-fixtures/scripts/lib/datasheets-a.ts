@@ -141,7 +141,14 @@ export async function lumenvale(d: SeriesData): Promise<Built> {
     { label: 'Storage temperature', symbol: 'Tstg', value: '−65 … +175', unit: '°C' },
   ]);
   y = ratingTable(sheet, rec, y, 'Thermal characteristics', [
-    { label: 'Thermal resistance from junction to ambient', symbol: 'RθJA', condition: 'note 1', value: d.device.rthJA.value, unit: d.device.rthJA.unit, field: 'rthJA' },
+    {
+      label: 'Thermal resistance from junction to ambient',
+      symbol: 'RθJA',
+      condition: 'note 1',
+      value: d.device.rthJA.value,
+      unit: d.device.rthJA.unit,
+      field: 'rthJA',
+    },
     { label: 'Thermal resistance from junction to lead', symbol: 'RθJL', condition: 'at the cathode tab', value: '30', unit: '°C/W' },
   ]);
   const micro = `${s.micro}A`;

@@ -34,7 +34,14 @@ export async function aldmoor(d: SeriesData): Promise<Built> {
     { label: 'Non-repetitive peak reverse power', symbol: 'PZSM', condition: 'tp = 100 μs', value: '60', unit: 'W' },
     { label: 'Junction temperature', symbol: 'Tj', value: d.device.tjMax.value, unit: '°C', field: 'tjMax' },
     { label: 'Storage temperature range', symbol: 'Tstg', value: '−65 to +175', unit: '°C' },
-    { label: 'Thermal resistance junction to ambient', symbol: 'RthJA', condition: 'lead length 10 mm', value: d.device.rthJA.value, unit: 'K/W', field: 'rthJA' },
+    {
+      label: 'Thermal resistance junction to ambient',
+      symbol: 'RthJA',
+      condition: 'lead length 10 mm',
+      value: d.device.rthJA.value,
+      unit: 'K/W',
+      field: 'rthJA',
+    },
     { label: 'Thermal resistance junction to lead', symbol: 'RthJL', condition: '4 mm from the body', value: '40', unit: 'K/W' },
   ]);
 
@@ -129,10 +136,19 @@ export async function nettlecombe(d: SeriesData): Promise<Built> {
     const tcMin = v.tcSpread!.min.value;
     const tcMax = v.tcSpread!.max.value;
     const rows: Array<[string[], Field[]]> = [
-      [['Zener voltage', 'VZ', izt, x.vzMin!.value, x.vzNom!.value, x.vzMax!.value, 'V'], ['vzMin', 'vzNom', 'vzMax', 'izt']],
+      [
+        ['Zener voltage', 'VZ', izt, x.vzMin!.value, x.vzNom!.value, x.vzMax!.value, 'V'],
+        ['vzMin', 'vzNom', 'vzMax', 'izt'],
+      ],
       [['Dynamic impedance', 'ZZT', `${izt}, f = 1 kHz`, '', '', x.zzt!.value, x.zzt!.unit], ['zzt']],
-      [['Knee impedance', 'ZZK', `IZ = ${x.izk!.value} mA, f = 1 kHz`, '', '', x.zzk!.value, x.zzk!.unit], ['zzk', 'izk']],
-      [['Reverse current', 'IR', `VR = ${x.vr!.value} V`, '', '', x.irMax!.value, x.irMax!.unit], ['irMax', 'vr']],
+      [
+        ['Knee impedance', 'ZZK', `IZ = ${x.izk!.value} mA, f = 1 kHz`, '', '', x.zzk!.value, x.zzk!.unit],
+        ['zzk', 'izk'],
+      ],
+      [
+        ['Reverse current', 'IR', `VR = ${x.vr!.value} V`, '', '', x.irMax!.value, x.irMax!.unit],
+        ['irMax', 'vr'],
+      ],
       [['Temperature coefficient', 'SZ', izt, tcMin, x.tc!.value, tcMax, x.tc!.unit], ['tc']],
       [['Forward voltage', 'VF', 'IF = 10 mA', '', '', '0.9', 'V'], []],
       [['Maximum Zener current', 'IZM', 'Tamb = 25 °C', '', '', x.izm!.value, 'mA'], ['izm']],
@@ -143,10 +159,15 @@ export async function nettlecombe(d: SeriesData): Promise<Built> {
       cy += 14;
     }
     sheet.rule(PAGE.left, PAGE.left + 465, cy - 2, 0.5);
-    cy = notes(sheet, cy + 6, [
-      `Typical capacitance at VR = 0 V and f = 1 MHz: ${Math.round(400 / v.vz)} pF.`,
-      'SZ is measured between 25 °C and 100 °C; the minimum and maximum cover the production spread.',
-    ], 8);
+    cy = notes(
+      sheet,
+      cy + 6,
+      [
+        `Typical capacitance at VR = 0 V and f = 1 MHz: ${Math.round(400 / v.vz)} pF.`,
+        'SZ is measured between 25 °C and 100 °C; the minimum and maximum cover the production spread.',
+      ],
+      8,
+    );
     sheet.text(`Marking code: ${v.marking}`, PAGE.left, cy + 4, { size: 8 });
   });
   const pdf = await sheet.finish();
@@ -216,4 +237,3 @@ export async function quarryhill(d: SeriesData): Promise<Built> {
   const pdf = await sheet.finish();
   return { pdf, answers: rec.key('series table with units in the cells and a package column; leakage at 1 V only', title, sheet.page) };
 }
-

@@ -47,7 +47,14 @@ export async function tevorrow(d: SeriesData): Promise<Built> {
     { label: 'Power dissipation 1)', symbol: 'PD', condition: 'Tamb = 25 °C', value: d.device.pdMax.value, unit: 'W', field: 'pdMax' },
     { label: 'Non-repetitive peak reverse surge power', symbol: 'PRSM', condition: 'tp = 100 µs', value: '150', unit: 'W' },
     { label: 'Peak forward surge current', symbol: 'IFSM', condition: '8.3 ms half sine', value: '10', unit: 'A' },
-    { label: 'Operating junction temperature range', symbol: 'TJ', value: `−55 to +${d.device.tjMax.value}`, unit: '°C', field: 'tjMax', printedAs: { value: `+${d.device.tjMax.value}` } },
+    {
+      label: 'Operating junction temperature range',
+      symbol: 'TJ',
+      value: `−55 to +${d.device.tjMax.value}`,
+      unit: '°C',
+      field: 'tjMax',
+      printedAs: { value: `+${d.device.tjMax.value}` },
+    },
     { label: 'Storage temperature range', symbol: 'Tstg', value: '−55 to +150', unit: '°C' },
   ]);
   y = ratingTable(sheet, rec, y, 'Thermal characteristics', [
@@ -183,7 +190,10 @@ export async function tevorrow(d: SeriesData): Promise<Built> {
     'Hand soldering: 350 °C for at most 3 s per terminal.',
     'Moisture sensitivity level 1: unlimited floor life at 30 °C and 85 % RH.',
   ]);
-  infoLines(sheet, y + 10, 'Storage', ['Store in the original packing at 5 °C to 35 °C and below 60 % RH.', 'Solderability is guaranteed for 24 months from the date code.']);
+  infoLines(sheet, y + 10, 'Storage', [
+    'Store in the original packing at 5 °C to 35 °C and below 60 % RH.',
+    'Solderability is guaranteed for 24 months from the date code.',
+  ]);
   // Page 10: ordering information and notices
   sheet.addPage();
   y = sheet.heading('Ordering information', PAGE.top);
@@ -195,10 +205,7 @@ export async function tevorrow(d: SeriesData): Promise<Built> {
     { width: 70, align: 'center' },
     { width: 70, align: 'center' },
   ];
-  const orderHeader = [
-    spans(['Part number', 'Package', 'Marking', 'Reel size', 'Tape width', 'Pieces per']),
-    spans(['', '', '', '(in)', '(mm)', 'reel']),
-  ];
+  const orderHeader = [spans(['Part number', 'Package', 'Marking', 'Reel size', 'Tape width', 'Pieces per']), spans(['', '', '', '(in)', '(mm)', 'reel'])];
   y = sheet.tableHeader(PAGE.left, y, orderColumns, orderHeader, { size: 8, bold: true, lineHeight: 11 });
   for (const v of d.variants.slice(0, 8)) {
     sheet.tableRow(PAGE.left, y, orderColumns, [`${v.mpn}-13`, 'SMB', v.marking, '13', '12', '3000'], { size: 8 });
@@ -232,7 +239,14 @@ export async function ostrander(d: SeriesData): Promise<Built> {
     { label: 'Power dissipation', symbol: 'Ptot', condition: 'lead length 9.5 mm', value: d.device.pdMax.value, unit: 'W', field: 'pdMax' },
     { label: 'Junction temperature', symbol: 'Tj', value: d.device.tjMax.value, unit: '°C', field: 'tjMax' },
     { label: 'Storage temperature range', symbol: 'Tstg', value: '−65 to +175', unit: '°C' },
-    { label: 'Thermal resistance junction to ambient', symbol: 'RthJA', condition: 'lead length 9.5 mm', value: d.device.rthJA.value, unit: 'K/W', field: 'rthJA' },
+    {
+      label: 'Thermal resistance junction to ambient',
+      symbol: 'RthJA',
+      condition: 'lead length 9.5 mm',
+      value: d.device.rthJA.value,
+      unit: 'K/W',
+      field: 'rthJA',
+    },
     { label: 'Thermal resistance junction to lead', symbol: 'RthJL', condition: 'at 4 mm from the body', value: '170', unit: 'K/W' },
   ]);
   sheet.addPage();
@@ -259,10 +273,7 @@ export async function ostrander(d: SeriesData): Promise<Built> {
   y = seriesTable(sheet, rec, { columns, rows: low, y: y + 18, repeatHeader: true, header: header('5'), headerFields: ['izt', 'izk'] });
   sheet.text(`Table 2 — types ${d.variants[high[0]].mpn} to ${d.variants[high[high.length - 1]].mpn}`, PAGE.left, y + 8, { size: 9, bold: true });
   y = seriesTable(sheet, rec, { columns, rows: high, y: y + 26, repeatHeader: true, header: header('2'), headerFields: ['izt', 'izk'] });
-  notes(sheet, y, [
-    'VZ is measured 90 s after the test current is applied, with the diode in still air at 25 °C.',
-    'TC is typical between 25 °C and 100 °C.',
-  ]);
+  notes(sheet, y, ['VZ is measured 90 s after the test current is applied, with the diode in still air at 25 °C.', 'TC is typical between 25 °C and 100 °C.']);
   sheet.addPage();
   dimensionTable(
     sheet,

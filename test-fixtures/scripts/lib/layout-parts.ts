@@ -143,8 +143,7 @@ export function seriesTable(sheet: Sheet, rec: AnswerRecorder, o: SeriesTableOpt
   const bottom = o.bottom ?? PAGE.bottom;
   const columns: TableColumn[] = o.columns.map((c) => ({ width: c.width, align: c.align }));
   const width = columns.reduce((s, c) => s + c.width, 0);
-  const drawHeader = (y: number) =>
-    sheet.tableHeader(PAGE.left, y, columns, o.header, { size, bold: true, condensed: true, lineHeight: 10 });
+  const drawHeader = (y: number) => sheet.tableHeader(PAGE.left, y, columns, o.header, { size, bold: true, condensed: true, lineHeight: 10 });
   let y = drawHeader(o.y);
   // Rows take header-given conditions from the header above them (repeated or not).
   let headerPage = sheet.page;

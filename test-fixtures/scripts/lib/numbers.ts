@@ -3,7 +3,7 @@
 export function roundTo(x: number, decimals: number): number {
   const f = 10 ** decimals;
   // The small bias keeps 4.845 (stored as 4.84499…) rounding up, as a person would.
-  return Math.sign(x) * Math.round(Math.abs(x) * f + 1e-7) / f;
+  return (Math.sign(x) * Math.round(Math.abs(x) * f + 1e-7)) / f;
 }
 
 export function fixed(x: number, decimals: number): string {

@@ -1,12 +1,4 @@
-import {
-  LEAKAGE_LADDER_UA,
-  leakageBase,
-  leakageVoltage,
-  tcPercentPerK,
-  vzCode,
-  vzRange,
-  zdTypical,
-} from './diode-physics';
+import { LEAKAGE_LADDER_UA, leakageBase, leakageVoltage, tcPercentPerK, vzCode, vzRange, zdTypical } from './diode-physics';
 import { ceilLimit, fixed, plain, sig } from './numbers';
 import { Prng } from './prng';
 import { Field, Printed } from './types';
@@ -122,10 +114,7 @@ function markingCode(seriesSeed: number, index: number): string {
 export function buildSeries(def: SeriesDef): SeriesData {
   const prng = new Prng(def.seed);
   const s = def.style;
-  const pd: Printed =
-    def.pdUnit === 'mW'
-      ? { value: plain(def.pdW * 1000), unit: 'mW', si: def.pdW }
-      : { value: plain(def.pdW), unit: 'W', si: def.pdW };
+  const pd: Printed = def.pdUnit === 'mW' ? { value: plain(def.pdW * 1000), unit: 'mW', si: def.pdW } : { value: plain(def.pdW), unit: 'W', si: def.pdW };
   const rth = Math.round((def.tjMax - 25) / def.pdW);
   const device = {
     pdMax: pd,

@@ -1,21 +1,6 @@
 /** Shapes shared by the generator's parts. The answer-key shape is documented in README.md. */
 
-export const FIELDS = [
-  'vzMin',
-  'vzNom',
-  'vzMax',
-  'izt',
-  'zzt',
-  'izk',
-  'zzk',
-  'irMax',
-  'vr',
-  'tc',
-  'pdMax',
-  'tjMax',
-  'rthJA',
-  'izm',
-] as const;
+export const FIELDS = ['vzMin', 'vzNom', 'vzMax', 'izt', 'zzt', 'izk', 'zzk', 'irMax', 'vr', 'tc', 'pdMax', 'tjMax', 'rthJA', 'izm'] as const;
 export type Field = (typeof FIELDS)[number];
 
 /** A value as a datasheet prints it, with its SI value (V, A, Ω, W, °C, K/W, V/K). */

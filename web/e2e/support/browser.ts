@@ -90,7 +90,13 @@ export async function seriousAxeViolations(page: Page): Promise<string[]> {
   });
   return violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => JSON.stringify(n.target)).join(', ')}`);
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => JSON.stringify(n.target))
+          .join(', ')}`,
+    );
 }
 
 /** Tables wider than their box with no way to scroll to the rest (cut off, not scrollable). */
@@ -113,7 +119,8 @@ export async function clippedTables(page: Page): Promise<string[]> {
         node = node.parentElement;
       }
       if (!node || node === document.body) {
-        if (rect.right > document.documentElement.clientWidth + 1) out.push(`${table.getAttribute('aria-label') ?? 'table'} runs past the window (${Math.round(rect.right)} px)`);
+        if (rect.right > document.documentElement.clientWidth + 1)
+          out.push(`${table.getAttribute('aria-label') ?? 'table'} runs past the window (${Math.round(rect.right)} px)`);
       }
     }
     return out;

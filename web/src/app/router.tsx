@@ -22,31 +22,109 @@ function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {
   );
 }
 
-const SignIn = page(() => import('./routes/sign-in'), (m) => m.SignInRoute);
-const Invitation = page(() => import('./routes/invitation'), (m) => m.InvitationRoute);
-const AppLayout = page(() => import('./routes/app/layout'), (m) => m.AppLayout);
-const NotFound = page(() => import('./routes/app/not-found'), (m) => m.NotFoundRoute);
+const SignIn = page(
+  () => import('./routes/sign-in'),
+  (m) => m.SignInRoute,
+);
+const Invitation = page(
+  () => import('./routes/invitation'),
+  (m) => m.InvitationRoute,
+);
+const AppLayout = page(
+  () => import('./routes/app/layout'),
+  (m) => m.AppLayout,
+);
+const NotFound = page(
+  () => import('./routes/app/not-found'),
+  (m) => m.NotFoundRoute,
+);
 
 /** One page per navigation entry. */
 const SCREEN_PAGES: Record<ScreenKey, LazyExoticComponent<ComponentType>> = {
-  board: page(() => import('./routes/app/board'), (m) => m.BoardRoute),
-  'house-parts': page(() => import('./routes/app/house-parts'), (m) => m.HousePartsRoute),
-  'vendor-parts': page(() => import('./routes/app/vendor-parts'), (m) => m.VendorPartsRoute),
-  qualifications: page(() => import('./routes/app/qualifications'), (m) => m.QualificationsRoute),
-  find: page(() => import('./routes/app/find'), (m) => m.FindPartsRoute),
-  sources: page(() => import('./routes/app/sources'), (m) => m.SourcesRoute),
-  outbox: page(() => import('./routes/app/outbox'), (m) => m.OutboxRoute),
-  users: page(() => import('./routes/app/users'), (m) => m.UsersRoute),
+  board: page(
+    () => import('./routes/app/board'),
+    (m) => m.BoardRoute,
+  ),
+  'house-parts': page(
+    () => import('./routes/app/house-parts'),
+    (m) => m.HousePartsRoute,
+  ),
+  'vendor-parts': page(
+    () => import('./routes/app/vendor-parts'),
+    (m) => m.VendorPartsRoute,
+  ),
+  qualifications: page(
+    () => import('./routes/app/qualifications'),
+    (m) => m.QualificationsRoute,
+  ),
+  find: page(
+    () => import('./routes/app/find'),
+    (m) => m.FindPartsRoute,
+  ),
+  sources: page(
+    () => import('./routes/app/sources'),
+    (m) => m.SourcesRoute,
+  ),
+  outbox: page(
+    () => import('./routes/app/outbox'),
+    (m) => m.OutboxRoute,
+  ),
+  users: page(
+    () => import('./routes/app/users'),
+    (m) => m.UsersRoute,
+  ),
 };
 
 /** Pages below a screen (one record, an upload, an import); the screen's roles apply to them. */
 const CATALOGUE_PAGES: ReadonlyArray<{ screen: ScreenKey; path: string; page: LazyExoticComponent<ComponentType> }> = [
-  { screen: 'house-parts', path: '/house-parts/:id', page: page(() => import('./routes/app/house-part'), (m) => m.HousePartRoute) },
-  { screen: 'vendor-parts', path: '/vendor-parts/upload', page: page(() => import('./routes/app/vendor-parts-upload'), (m) => m.VendorPartsUploadRoute) },
-  { screen: 'vendor-parts', path: '/vendor-parts/import', page: page(() => import('./routes/app/vendor-parts-import'), (m) => m.VendorPartsImportRoute) },
-  { screen: 'vendor-parts', path: '/vendor-parts/:id', page: page(() => import('./routes/app/vendor-part'), (m) => m.VendorPartRoute) },
-  { screen: 'qualifications', path: '/qualifications/:id', page: page(() => import('./routes/app/qualification'), (m) => m.QualificationRoute) },
-  { screen: 'board', path: '/compare/:housePartId', page: page(() => import('./routes/app/compare'), (m) => m.CompareRoute) },
+  {
+    screen: 'house-parts',
+    path: '/house-parts/:id',
+    page: page(
+      () => import('./routes/app/house-part'),
+      (m) => m.HousePartRoute,
+    ),
+  },
+  {
+    screen: 'vendor-parts',
+    path: '/vendor-parts/upload',
+    page: page(
+      () => import('./routes/app/vendor-parts-upload'),
+      (m) => m.VendorPartsUploadRoute,
+    ),
+  },
+  {
+    screen: 'vendor-parts',
+    path: '/vendor-parts/import',
+    page: page(
+      () => import('./routes/app/vendor-parts-import'),
+      (m) => m.VendorPartsImportRoute,
+    ),
+  },
+  {
+    screen: 'vendor-parts',
+    path: '/vendor-parts/:id',
+    page: page(
+      () => import('./routes/app/vendor-part'),
+      (m) => m.VendorPartRoute,
+    ),
+  },
+  {
+    screen: 'qualifications',
+    path: '/qualifications/:id',
+    page: page(
+      () => import('./routes/app/qualification'),
+      (m) => m.QualificationRoute,
+    ),
+  },
+  {
+    screen: 'board',
+    path: '/compare/:housePartId',
+    page: page(
+      () => import('./routes/app/compare'),
+      (m) => m.CompareRoute,
+    ),
+  },
 ];
 
 function HomeRedirect() {
@@ -67,11 +145,7 @@ export function AppRoutes() {
           <Route element={<Lazy page={AppLayout} />}>
             <Route index element={<HomeRedirect />} />
             {SCREENS.map((screen) => (
-              <Route
-                key={screen.key}
-                path={screen.path}
-                element={<ScreenGate screen={screen} page={SCREEN_PAGES[screen.key]} />}
-              />
+              <Route key={screen.key} path={screen.path} element={<ScreenGate screen={screen} page={SCREEN_PAGES[screen.key]} />} />
             ))}
             {CATALOGUE_PAGES.map((sub) => (
               <Route key={sub.path} path={sub.path} element={<ScreenGate screen={screenByKey(sub.screen)} page={sub.page} />} />

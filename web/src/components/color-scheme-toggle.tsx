@@ -9,14 +9,7 @@ export function ColorSchemeToggle() {
   const next = computed === 'dark' ? 'light' : 'dark';
   const label = next === 'dark' ? 'Use the dark scheme' : 'Use the light scheme';
   return (
-    <ActionIcon
-      variant="subtle"
-      color="gray"
-      size="lg"
-      aria-label={label}
-      title={label}
-      onClick={() => setColorScheme(next)}
-    >
+    <ActionIcon variant="subtle" color="gray" size="lg" aria-label={label} title={label} onClick={() => setColorScheme(next)}>
       {next === 'dark' ? <IconMoon size={18} stroke={1.6} /> : <IconSun size={18} stroke={1.6} />}
     </ActionIcon>
   );

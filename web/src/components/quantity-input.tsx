@@ -2,8 +2,7 @@ import { useEffect, useRef, useState, type FocusEvent } from 'react';
 import { TextInput, type TextInputProps } from '@mantine/core';
 import { formatQuantity, parseQuantity, SI_UNIT, UnitParseError, type QuantityKind } from '@shuntwise/contracts';
 
-export interface QuantityInputProps
-  extends Omit<TextInputProps, 'value' | 'defaultValue' | 'onChange' | 'rightSection'> {
+export interface QuantityInputProps extends Omit<TextInputProps, 'value' | 'defaultValue' | 'onChange' | 'rightSection'> {
   kind: QuantityKind;
   /** The value in SI, or null when the field is empty. */
   value: number | null;
@@ -35,18 +34,7 @@ export function formatForInput(value: number | null, kind: QuantityKind): string
  * and, when the text does not read, says so naming the field — and keeps the text so
  * nothing typed is lost.
  */
-export function QuantityInput({
-  kind,
-  value,
-  onChange,
-  unit,
-  fieldName,
-  onValidityChange,
-  label,
-  error,
-  onBlur,
-  ...rest
-}: QuantityInputProps) {
+export function QuantityInput({ kind, value, onChange, unit, fieldName, onValidityChange, label, error, onBlur, ...rest }: QuantityInputProps) {
   const fieldUnit = unit ?? SI_UNIT[kind];
   const [text, setText] = useState(() => formatForInput(value, kind));
   const [parseError, setParseError] = useState<string | null>(null);

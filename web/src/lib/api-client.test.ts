@@ -129,7 +129,7 @@ describe('fileNameFromDisposition (the content-disposition package, RFC 6266)', 
 });
 
 describe('downloads and uploads share the token, the 401 rule and the error body', () => {
-  it('a download sends the token and uses the server\'s file name', async () => {
+  it("a download sends the token and uses the server's file name", async () => {
     signInAs('engineer');
     const fetchMock = vi.fn(
       async () => new Response('a,b\n', { status: 200, headers: { 'Content-Disposition': 'attachment; filename="rating-cards-2026.csv"' } }),
@@ -147,7 +147,7 @@ describe('downloads and uploads share the token, the 401 rule and the error body
     click.mockRestore();
   });
 
-  it('a download that gets 401 ends the session and throws the server\'s message', async () => {
+  it("a download that gets 401 ends the session and throws the server's message", async () => {
     signInAs('engineer');
     mockApi({ 'GET /api/qualifications/9/record': { status: 401, body: errorBody('Token no longer valid') } });
     await expect(downloadFile('/qualifications/9/record', 'r.pdf')).rejects.toMatchObject({ status: 401, message: 'Token no longer valid' });

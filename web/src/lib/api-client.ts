@@ -71,7 +71,11 @@ function bearer(auth: boolean): string | undefined {
 }
 
 /** fetch for `/api` with the token; a network failure or a non-2xx answer throws an ApiError. */
-async function send(path: string, init: { method?: string; headers?: Record<string, string>; body?: string; signal?: AbortSignal }, auth: boolean): Promise<Response> {
+async function send(
+  path: string,
+  init: { method?: string; headers?: Record<string, string>; body?: string; signal?: AbortSignal },
+  auth: boolean,
+): Promise<Response> {
   const headers: Record<string, string> = { ...init.headers };
   const token = bearer(auth);
   if (token) headers.Authorization = `Bearer ${token}`;

@@ -23,7 +23,15 @@ export interface ListState {
  * reload and a shared link show the same rows. Sort is `col,-other` (a leading minus for
  * descending); only the columns in `sortable` are sent.
  */
-export function useListState({ defaultSort, sortable, defaultPageSize = 50 }: { defaultSort: string; sortable: ReadonlySet<string>; defaultPageSize?: number }): ListState {
+export function useListState({
+  defaultSort,
+  sortable,
+  defaultPageSize = 50,
+}: {
+  defaultSort: string;
+  sortable: ReadonlySet<string>;
+  defaultPageSize?: number;
+}): ListState {
   const [search, setSearch] = useSearchParams();
   const set = useCallback(
     (changes: ListChanges, resetPage = true) =>
@@ -82,7 +90,11 @@ interface PageQuery<T> {
  * `empty` is what an empty list says; while the list failed to load the error banner says
  * it all, and the body stays blank rather than claiming there is nothing.
  */
-export function serverTableOptions<T extends MRT_RowData>(list: PageQuery<T>, state: ListState, empty: () => ReactNode): Partial<MRT_TableOptions<T>> & { data: T[] } {
+export function serverTableOptions<T extends MRT_RowData>(
+  list: PageQuery<T>,
+  state: ListState,
+  empty: () => ReactNode,
+): Partial<MRT_TableOptions<T>> & { data: T[] } {
   return {
     // An empty fragment, not null: the table shows its own "no records" text for null.
     renderEmptyRowsFallback: () => (list.isError ? createElement(Fragment) : empty()),

@@ -55,11 +55,7 @@ export function setSession(session: Session): void {
 /** Updates the stored user (after `/auth/me` reports a new name or role) and keeps the token. */
 export function updateSessionUser(user: Session['user']): void {
   if (!current) return;
-  const same =
-    current.user.id === user.id &&
-    current.user.email === user.email &&
-    current.user.name === user.name &&
-    current.user.role === user.role;
+  const same = current.user.id === user.id && current.user.email === user.email && current.user.name === user.name && current.user.role === user.role;
   if (!same) setSession({ ...current, user });
 }
 

@@ -9,7 +9,7 @@ async function write(rows: unknown[][]): Promise<string> {
 
 // The characters and the apostrophe remedy are OWASP's "CSV Injection" guidance (common practice).
 describe('CSV export neutralises formula cells', () => {
-  it.each(['=1+1', '+cmd', '-2+3', '@SUM(A1)', '\tx', '\rx', "=HYPERLINK(\"http://x.invalid\")"])('prefixes text %j with an apostrophe', (cell) => {
+  it.each(['=1+1', '+cmd', '-2+3', '@SUM(A1)', '\tx', '\rx', '=HYPERLINK("http://x.invalid")'])('prefixes text %j with an apostrophe', (cell) => {
     expect(neutraliseCsvText(cell)).toBe(`'${cell}`);
   });
 
@@ -30,7 +30,11 @@ describe('CSV export neutralises formula cells', () => {
     expect(neutraliseCsvText('-1.4 mV/K')).toBe('-1.4 mV/K');
     expect(neutraliseCsvText('-1+A1')).toBe("'-1+A1");
     expect(neutraliseCsvText("-2 cmd|' /C calc'!A0")).toBe("'-2 cmd|' /C calc'!A0");
-    const csv = await write([['tc', 'note'], [-0.0018, '=1+2'], ['-0.0018', '-cmd|x']]);
+    const csv = await write([
+      ['tc', 'note'],
+      [-0.0018, '=1+2'],
+      ['-0.0018', '-cmd|x'],
+    ]);
     expect(csv.split(/\r?\n/).filter(Boolean)).toEqual(['tc,note', "-0.0018,'=1+2", "-0.0018,'-cmd|x"]);
   });
 });

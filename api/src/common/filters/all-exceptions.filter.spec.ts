@@ -18,7 +18,9 @@ function answer(exception: unknown) {
     },
     json: (body: Record<string, unknown>) => (sent.body = body),
   };
-  const host = { switchToHttp: () => ({ getRequest: () => ({ method: 'POST', originalUrl: '/api/x', correlationId: 'c' }), getResponse: () => res }) } as unknown as ArgumentsHost;
+  const host = {
+    switchToHttp: () => ({ getRequest: () => ({ method: 'POST', originalUrl: '/api/x', correlationId: 'c' }), getResponse: () => res }),
+  } as unknown as ArgumentsHost;
   new AllExceptionsFilter().catch(exception, host);
   return sent;
 }

@@ -34,7 +34,8 @@ export class AllExceptionsFilter implements ExceptionFilter {
     if (status === HttpStatus.SERVICE_UNAVAILABLE) {
       // Expected while a service is away: one line, no stack trace per request.
       this.logger.warn(`${req.method} ${req.originalUrl} [${correlationId}] unavailable: ${(exception as Error).message}`);
-      if ((isDatabaseUnavailable(exception) || isDroppedConnection(exception) || isTransactionConflict(exception)) && !res.headersSent) res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+      if ((isDatabaseUnavailable(exception) || isDroppedConnection(exception) || isTransactionConflict(exception)) && !res.headersSent)
+        res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
     } else if (status >= 500) {
       this.logger.error(`${req.method} ${req.originalUrl} [${correlationId}] ${exception instanceof Error ? exception.stack : String(exception)}`);
     }
@@ -53,7 +54,10 @@ export class AllExceptionsFilter implements ExceptionFilter {
       // A socket that a backing service (most often the database mid-restart) closed under a request.
       return {
         status: HttpStatus.SERVICE_UNAVAILABLE,
-        body: { message: 'A connection dropped under this request; most likely the database is unavailable or restarting. Try again in a few seconds; if this was a change, check whether it was saved before repeating it.' },
+        body: {
+          message:
+            'A connection dropped under this request; most likely the database is unavailable or restarting. Try again in a few seconds; if this was a change, check whether it was saved before repeating it.',
+        },
       };
     }
     if (isTransactionConflict(exception)) {
@@ -81,7 +85,10 @@ export class AllExceptionsFilter implements ExceptionFilter {
       const fields = Object.keys(exception.fields ?? {});
       return {
         status: HttpStatus.CONFLICT,
-        body: { message: `Already exists${fields.length ? ` (${fields.join(', ')})` : ''}`, errors: fields.map((f) => ({ path: f, message: 'must be unique' })) },
+        body: {
+          message: `Already exists${fields.length ? ` (${fields.join(', ')})` : ''}`,
+          errors: fields.map((f) => ({ path: f, message: 'must be unique' })),
+        },
       };
     }
     if (exception instanceof ForeignKeyConstraintError) {

@@ -38,7 +38,8 @@ function findProblem(value: unknown, path: string[], depth: number): { path: str
   if (depth >= MAX_DEPTH) return { path, message: `is nested deeper than ${MAX_DEPTH} levels` };
   const entries: Array<[string, unknown]> = Array.isArray(value) ? value.map((v, i) => [String(i), v]) : Object.entries(value);
   for (const [key, inner] of entries) {
-    if (LONE_SURROGATE.test(key) || CONTROL.test(key)) return { path: [...path, '(key)'], message: 'a key contains a lone UTF-16 surrogate or a control character' };
+    if (LONE_SURROGATE.test(key) || CONTROL.test(key))
+      return { path: [...path, '(key)'], message: 'a key contains a lone UTF-16 surrogate or a control character' };
     const found = findProblem(inner, [...path, key], depth + 1);
     if (found) return found;
   }

@@ -16,7 +16,9 @@ export const vendorPartListColumns: Migration = {
     await q.addColumn('vendor_parts', 'vz_nom', { type: DataTypes.DOUBLE, allowNull: true });
     await q.addColumn('vendor_parts', 'izt', { type: DataTypes.DOUBLE, allowNull: true });
     await q.addColumn('vendor_parts', 'pd_max', { type: DataTypes.DOUBLE, allowNull: true });
-    await sequelize.query('UPDATE vendor_parts vp JOIN manufacturers m ON m.id = vp.manufacturer_id SET vp.manufacturer_name = m.name', { type: QueryTypes.UPDATE });
+    await sequelize.query('UPDATE vendor_parts vp JOIN manufacturers m ON m.id = vp.manufacturer_id SET vp.manufacturer_name = m.name', {
+      type: QueryTypes.UPDATE,
+    });
     await sequelize.query(
       'UPDATE vendor_parts vp JOIN rating_cards rc ON rc.vendor_part_id = vp.id SET vp.card_version = rc.version, vp.vz_nom = rc.vz_nom, vp.izt = rc.izt, vp.pd_max = rc.pd_max',
       { type: QueryTypes.UPDATE },
@@ -37,9 +39,12 @@ export const vendorPartListColumns: Migration = {
     await q.addColumn('rating_cards', 'vz_nom', { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 });
     await q.addColumn('rating_cards', 'izt', { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 });
     await q.addColumn('rating_cards', 'pd_max', { type: DataTypes.DOUBLE, allowNull: true });
-    await sequelize.query('UPDATE rating_cards rc JOIN vendor_parts vp ON vp.id = rc.vendor_part_id SET rc.vz_nom = vp.vz_nom, rc.izt = vp.izt, rc.pd_max = vp.pd_max', {
-      type: QueryTypes.UPDATE,
-    });
+    await sequelize.query(
+      'UPDATE rating_cards rc JOIN vendor_parts vp ON vp.id = rc.vendor_part_id SET rc.vz_nom = vp.vz_nom, rc.izt = vp.izt, rc.pd_max = vp.pd_max',
+      {
+        type: QueryTypes.UPDATE,
+      },
+    );
     for (const column of ['vz_nom', 'izt', 'pd_max']) await q.addIndex('rating_cards', [column]);
     await sequelize.query(
       `ALTER TABLE vendor_parts ${['manufacturer_name_mpn', 'vz_nom', 'izt', 'pd_max', 'card_version'].map((i) => `DROP INDEX vendor_parts_${i}`).join(', ')},

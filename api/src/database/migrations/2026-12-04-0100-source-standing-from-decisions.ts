@@ -20,7 +20,9 @@ export const LEGACY_APPROVED_MARK = '[was marked approved without a decision; qu
 export const sourceStandingFromDecisions: Migration = {
   name: '2026-12-04-0100-source-standing-from-decisions',
   async up({ sequelize }) {
-    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_AFTER)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_AFTER)} NULL`, { type: QueryTypes.BULKUPDATE });
+    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_AFTER)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_AFTER)} NULL`, {
+      type: QueryTypes.BULKUPDATE,
+    });
     await sequelize.query(`UPDATE house_part_sources SET note = LEFT(CONCAT(?, COALESCE(note, '')), 500) WHERE role = 'approved'`, {
       replacements: [LEGACY_APPROVED_MARK],
       type: QueryTypes.UPDATE,
@@ -43,6 +45,8 @@ export const sourceStandingFromDecisions: Migration = {
     // The older schema knows no approval decision: those cases read as cleared there.
     await sequelize.query(`UPDATE qualifications SET state = 'cleared' WHERE state = 'approved'`, { type: QueryTypes.UPDATE });
     await sequelize.query(`UPDATE qualifications SET decision_state = 'cleared' WHERE decision_state = 'approved'`, { type: QueryTypes.UPDATE });
-    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_BEFORE)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_BEFORE)} NULL`, { type: QueryTypes.BULKUPDATE });
+    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_BEFORE)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_BEFORE)} NULL`, {
+      type: QueryTypes.BULKUPDATE,
+    });
   },
 };

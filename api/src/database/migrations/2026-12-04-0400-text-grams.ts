@@ -27,12 +27,18 @@ export const textGrams: Migration = {
     const insert = async (rows: unknown[][]) => {
       for (let i = 0; i < rows.length; i += 2000) {
         const chunk = rows.slice(i, i + 2000);
-        await sequelize.query(`INSERT IGNORE INTO text_grams (kind, gram, entity_id) VALUES ${chunk.map(() => '(?, ?, ?)').join(', ')}`, { replacements: chunk.flat(), type: QueryTypes.INSERT });
+        await sequelize.query(`INSERT IGNORE INTO text_grams (kind, gram, entity_id) VALUES ${chunk.map(() => '(?, ?, ?)').join(', ')}`, {
+          replacements: chunk.flat(),
+          type: QueryTypes.INSERT,
+        });
       }
     };
     const parts = await sequelize.query<{ id: number; mpn: string }>('SELECT id, mpn FROM vendor_parts', { type: QueryTypes.SELECT });
     await insert(parts.flatMap((p) => indexRowsOf('vendorPart', p.id, [p.mpn])));
-    const houseParts = await sequelize.query<{ id: number; partNumber: string; description: string }>('SELECT id, part_number AS partNumber, description FROM house_parts', { type: QueryTypes.SELECT });
+    const houseParts = await sequelize.query<{ id: number; partNumber: string; description: string }>(
+      'SELECT id, part_number AS partNumber, description FROM house_parts',
+      { type: QueryTypes.SELECT },
+    );
     await insert(houseParts.flatMap((h) => indexRowsOf('housePart', h.id, [h.partNumber, h.description])));
     const makers = await sequelize.query<{ id: number; name: string }>('SELECT id, name FROM manufacturers', { type: QueryTypes.SELECT });
     await insert(makers.flatMap((m) => indexRowsOf('manufacturer', m.id, [m.name])));

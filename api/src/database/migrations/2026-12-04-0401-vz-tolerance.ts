@@ -13,11 +13,14 @@ export const vzToleranceColumn: Migration = {
   async up({ queryInterface: q, sequelize }) {
     await q.addColumn('vendor_parts', 'vz_tolerance', { type: DataTypes.DOUBLE, allowNull: true });
     await q.addIndex('vendor_parts', ['vz_tolerance'], { name: 'vendor_parts_vz_tolerance' });
-    const cards = await sequelize.query<{ id: number; fields: RatingCardFields | string }>('SELECT vendor_part_id AS id, fields FROM rating_cards', { type: QueryTypes.SELECT });
+    const cards = await sequelize.query<{ id: number; fields: RatingCardFields | string }>('SELECT vendor_part_id AS id, fields FROM rating_cards', {
+      type: QueryTypes.SELECT,
+    });
     for (const card of cards) {
       const fields = typeof card.fields === 'string' ? (JSON.parse(card.fields) as RatingCardFields) : card.fields;
       const tolerance = vzTolerance(fields);
-      if (tolerance !== null) await sequelize.query('UPDATE vendor_parts SET vz_tolerance = ? WHERE id = ?', { replacements: [tolerance, card.id], type: QueryTypes.UPDATE });
+      if (tolerance !== null)
+        await sequelize.query('UPDATE vendor_parts SET vz_tolerance = ? WHERE id = ?', { replacements: [tolerance, card.id], type: QueryTypes.UPDATE });
     }
   },
   async down({ sequelize }) {

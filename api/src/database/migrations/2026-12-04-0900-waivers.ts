@@ -3,7 +3,18 @@ import type { Migration } from '../migration';
 
 const enumOf = (values: string[]) => `ENUM(${values.map((v) => `'${v}'`).join(', ')})`;
 const STATES_BEFORE = ['draft', 'in-review', 'approved', 'cleared', 'cleared-with-conditions', 'rejected', 'withdrawn', 'revoked'];
-const STATES_AFTER = ['draft', 'in-review', 'approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected', 'withdrawn', 'revoked', 'waiver-lapsed'];
+const STATES_AFTER = [
+  'draft',
+  'in-review',
+  'approved',
+  'cleared',
+  'cleared-with-conditions',
+  'cleared-with-waiver',
+  'rejected',
+  'withdrawn',
+  'revoked',
+  'waiver-lapsed',
+];
 const DECISIONS_BEFORE = ['approved', 'cleared', 'cleared-with-conditions', 'rejected'];
 const DECISIONS_AFTER = ['approved', 'cleared', 'cleared-with-conditions', 'cleared-with-waiver', 'rejected'];
 
@@ -15,7 +26,9 @@ const DECISIONS_AFTER = ['approved', 'cleared', 'cleared-with-conditions', 'clea
 export const waivers: Migration = {
   name: '2026-12-04-0900-waivers',
   async up({ sequelize, queryInterface: q }) {
-    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_AFTER)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_AFTER)} NULL`, { type: QueryTypes.BULKUPDATE });
+    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_AFTER)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_AFTER)} NULL`, {
+      type: QueryTypes.BULKUPDATE,
+    });
     await q.createTable('qualification_waivers', {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       qualification_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: 'qualifications', key: 'id' }, onDelete: 'RESTRICT' },
@@ -45,7 +58,11 @@ export const waivers: Migration = {
   async down({ sequelize, queryInterface: q }) {
     await q.dropTable('qualification_waivers');
     await sequelize.query(`UPDATE qualifications SET state = 'revoked' WHERE state IN ('cleared-with-waiver', 'waiver-lapsed')`, { type: QueryTypes.UPDATE });
-    await sequelize.query(`UPDATE qualifications SET decision_state = 'cleared-with-conditions' WHERE decision_state = 'cleared-with-waiver'`, { type: QueryTypes.UPDATE });
-    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_BEFORE)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_BEFORE)} NULL`, { type: QueryTypes.BULKUPDATE });
+    await sequelize.query(`UPDATE qualifications SET decision_state = 'cleared-with-conditions' WHERE decision_state = 'cleared-with-waiver'`, {
+      type: QueryTypes.UPDATE,
+    });
+    await sequelize.query(`ALTER TABLE qualifications MODIFY state ${enumOf(STATES_BEFORE)} NOT NULL, MODIFY decision_state ${enumOf(DECISIONS_BEFORE)} NULL`, {
+      type: QueryTypes.BULKUPDATE,
+    });
   },
 };

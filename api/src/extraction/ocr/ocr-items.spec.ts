@@ -51,7 +51,10 @@ describe('ocrItems', () => {
   });
 
   it('puts a tilted row back on one baseline in PDF points and keeps its columns in line with the next row', () => {
-    const items = ocrItems([tilted(500, [word('BRZ05-5V1', 200), word('5.1', 1000), word('5', 2000)]), tilted(550, [word('BRZ05-5V6', 200), word('5.6', 1000)])], geometry);
+    const items = ocrItems(
+      [tilted(500, [word('BRZ05-5V1', 200), word('5.1', 1000), word('5', 2000)]), tilted(550, [word('BRZ05-5V6', 200), word('5.6', 1000)])],
+      geometry,
+    );
     const row1 = items.slice(0, 3);
     expect(new Set(row1.map((i) => i.y)).size).toBe(1);
     expect(row1[0].y).toBeGreaterThan(items[3].y);

@@ -54,7 +54,13 @@ async function textOf(pdfPath: string, pages: number[]): Promise<ExtractionResul
 
 /** OCR results renumbered to the original's pages (a scan of chosen pages starts at 1). */
 function renumber(result: ExtractionResult, pages: number[]): ExtractionResult {
-  return { ...result, variants: result.variants.map((v) => ({ ...v, fields: Object.fromEntries(Object.entries(v.fields).map(([k, x]) => [k, { ...x, page: pages[x.page - 1] }])) })) };
+  return {
+    ...result,
+    variants: result.variants.map((v) => ({
+      ...v,
+      fields: Object.fromEntries(Object.entries(v.fields).map(([k, x]) => [k, { ...x, page: pages[x.page - 1] }])),
+    })),
+  };
 }
 
 describe(`OCR of scanned datasheet pages (seed ${seed}; OCR_SEED=${seed} replays)`, () => {
@@ -66,7 +72,7 @@ describe(`OCR of scanned datasheet pages (seed ${seed}; OCR_SEED=${seed} replays
     const fixtures = listDatasheetFixtures();
     const totals = { expected: 0, recalled: 0, returned: 0, correct: 0 };
     const wrong: string[] = [];
-    for (let read = 0; read < pageCount; ) {
+    for (let read = 0; read < pageCount;) {
       const [prefix, pages] = TABLE_SCANS[Math.floor(random() * TABLE_SCANS.length)];
       const fixture = fixtures.find((f) => f.name.startsWith(prefix))!;
       const scan = await rasterisePdf(readFileSync(fixture.pdfPath), { seed: Math.floor(random() * 2 ** 31), pages });
@@ -79,7 +85,9 @@ describe(`OCR of scanned datasheet pages (seed ${seed}; OCR_SEED=${seed} replays
       expect(values.length).toBeGreaterThan(0);
       for (const value of values) expect(value).toMatchObject({ ocr: true, page: expect.any(Number), box: expect.any(Object) });
       const score = scoreOcr(fixture.answers, pages, await textOf(fixture.pdfPath, pages), renumber(result, pages));
-      console.log(`${fixture.name} p. ${pages.join('+')} (tilt ${scan.pages.map((p) => p.rotation.toFixed(2)).join(', ')}°): recall ${score.recalled}/${score.expected}, precision ${score.correct}/${score.returned}`);
+      console.log(
+        `${fixture.name} p. ${pages.join('+')} (tilt ${scan.pages.map((p) => p.rotation.toFixed(2)).join(', ')}°): recall ${score.recalled}/${score.expected}, precision ${score.correct}/${score.returned}`,
+      );
       for (const k of Object.keys(totals) as Array<keyof typeof totals>) totals[k] += score[k];
       wrong.push(...score.wrong.map((w) => `${fixture.name}: ${w}`));
     }
@@ -88,14 +96,18 @@ describe(`OCR of scanned datasheet pages (seed ${seed}; OCR_SEED=${seed} replays
     expect(totals.recalled / totals.expected).toBeGreaterThanOrEqual(RECALL_FLOOR);
   }, 600_000);
 
-  (process.env.OCR_SCANNED === '1' ? it : it.skip)('reads the committed scanned copies with the same precision', async () => {
-    for (const scanned of listScannedFixtures()) {
-      const pages = Array.from({ length: scanned.original.answers.pages }, (_, i) => i + 1);
-      const result = await extractWithOcr(readFileSync(scanned.pdfPath), { engine, dpi: 300, maxOcrPages: pages.length });
-      const score = scoreOcr(scanned.original.answers, pages, await textOf(scanned.original.pdfPath, pages), result);
-      console.log(`${scanned.name}: recall ${score.recalled}/${score.expected}, precision ${score.correct}/${score.returned}`, score.wrong);
-      expect(score.correct / score.returned).toBeGreaterThanOrEqual(PRECISION_GOAL);
-      expect(score.recalled / score.expected).toBeGreaterThanOrEqual(RECALL_FLOOR);
-    }
-  }, 1_200_000);
+  (process.env.OCR_SCANNED === '1' ? it : it.skip)(
+    'reads the committed scanned copies with the same precision',
+    async () => {
+      for (const scanned of listScannedFixtures()) {
+        const pages = Array.from({ length: scanned.original.answers.pages }, (_, i) => i + 1);
+        const result = await extractWithOcr(readFileSync(scanned.pdfPath), { engine, dpi: 300, maxOcrPages: pages.length });
+        const score = scoreOcr(scanned.original.answers, pages, await textOf(scanned.original.pdfPath, pages), result);
+        console.log(`${scanned.name}: recall ${score.recalled}/${score.expected}, precision ${score.correct}/${score.returned}`, score.wrong);
+        expect(score.correct / score.returned).toBeGreaterThanOrEqual(PRECISION_GOAL);
+        expect(score.recalled / score.expected).toBeGreaterThanOrEqual(RECALL_FLOOR);
+      }
+    },
+    1_200_000,
+  );
 });

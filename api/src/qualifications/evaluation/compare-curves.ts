@@ -37,7 +37,15 @@ export function compareCurves(card: EngineeringCardInput, currents: readonly num
 }
 
 /** JSON has no NaN: a point in thermal runaway says null. */
-function clean(p: { current: number; tempC: number; tjC: number; vzMin: number | null; vzNom: number; vzMax: number | null; zd: number | null }): NormalizedPoint {
+function clean(p: {
+  current: number;
+  tempC: number;
+  tjC: number;
+  vzMin: number | null;
+  vzNom: number;
+  vzMax: number | null;
+  zd: number | null;
+}): NormalizedPoint {
   const c = (x: number | null) => (x === null || Number.isNaN(x) ? null : x);
   return { current: p.current, tempC: p.tempC, tjC: c(p.tjC), vzMin: c(p.vzMin), vzNom: c(p.vzNom), vzMax: c(p.vzMax), zd: c(p.zd) };
 }

@@ -164,7 +164,8 @@ function vzWindowCheck(ctx: CheckContext): CheckResult {
   }
   const assumptions: string[] = [];
   if (!sameCurrent(spec.iRef, card.izt)) {
-    if (model.basis === 'none') return noData(base, `the card gives no impedance, so Vz cannot be moved from IZT (${amps(card.izt)}) to the reference current (${amps(spec.iRef)})`);
+    if (model.basis === 'none')
+      return noData(base, `the card gives no impedance, so Vz cannot be moved from IZT (${amps(card.izt)}) to the reference current (${amps(spec.iRef)})`);
     assumptions.push(`moved from IZT (${amps(card.izt)}) to the reference current (${amps(spec.iRef)}) along the fitted curve (${model.basis} fit)`);
     if (model.basis !== 'two-point') assumptions.push(basisAssumption(model, spec.iRef, card.izt));
   }
@@ -224,7 +225,10 @@ function kneeRatioCheck(ctx: CheckContext): CheckResult {
   if ('missing' in knee) return noData(base, knee.missing);
   const ratio = knee.zd(iKnee) / knee.zd(spec.iRef);
   const margin = percent(maxRatio - ratio, maxRatio);
-  const warnings = iKnee < model.lowestTestCurrent ? [`the knee current (${amps(iKnee)}) lies below the card's IZK (${amps(model.lowestTestCurrent)}): the ratio is extrapolated`] : [];
+  const warnings =
+    iKnee < model.lowestTestCurrent
+      ? [`the knee current (${amps(iKnee)}) lies below the card's IZK (${amps(model.lowestTestCurrent)}): the ratio is extrapolated`]
+      : [];
   return {
     ...base,
     label: CHECK_LABELS['knee-ratio'],
@@ -251,7 +255,10 @@ function kneeSpanCheck(ctx: CheckContext): CheckResult {
   if ('missing' in knee) return noData(base, knee.missing);
   const span = knee.span(iMin, iMax);
   const margin = percent(maxSpan - span, maxSpan);
-  const warnings = iMin < model.lowestTestCurrent ? [`the lowest current (${amps(iMin)}) lies below the card's lowest test current (${amps(model.lowestTestCurrent)}): extrapolated`] : [];
+  const warnings =
+    iMin < model.lowestTestCurrent
+      ? [`the lowest current (${amps(iMin)}) lies below the card's lowest test current (${amps(model.lowestTestCurrent)}): extrapolated`]
+      : [];
   return {
     ...base,
     label: CHECK_LABELS['knee-span'],
@@ -283,7 +290,9 @@ function leakageCheck(ctx: CheckContext): CheckResult {
   }
   const assumptions =
     card.vr > vr * (1 + VOLTAGE_MATCH)
-      ? [`the card states IR max at ${volts(card.vr)}, above the spec's ${volts(vr)}: leakage rises with reverse voltage, so it bounds the leakage at ${volts(vr)}`]
+      ? [
+          `the card states IR max at ${volts(card.vr)}, above the spec's ${volts(vr)}: leakage rises with reverse voltage, so it bounds the leakage at ${volts(vr)}`,
+        ]
       : [];
   const margin = percent(irMax - card.irMax, irMax);
   return {

@@ -23,7 +23,10 @@ export class DecisionRecordsRepository {
     return this.records.findOne({ where: { qualificationId }, transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
   }
 
-  create(values: Pick<DecisionRecord, 'qualificationId' | 'state' | 'storageKey' | 'inputsSha256' | 'inputs' | 'createdAt'>, transaction: Transaction): Promise<DecisionRecord> {
+  create(
+    values: Pick<DecisionRecord, 'qualificationId' | 'state' | 'storageKey' | 'inputsSha256' | 'inputs' | 'createdAt'>,
+    transaction: Transaction,
+  ): Promise<DecisionRecord> {
     return this.records.create(values as Record<string, unknown>, { transaction });
   }
 
@@ -39,7 +42,11 @@ export class DecisionRecordsRepository {
   }
 
   async specVersion(housePartId: number, version: number, transaction?: Transaction): Promise<Spec | null> {
-    const [row] = await this.select<{ spec: Spec | string }>(`SELECT spec FROM house_part_specs WHERE house_part_id = ? AND version = ?`, [housePartId, version], transaction);
+    const [row] = await this.select<{ spec: Spec | string }>(
+      `SELECT spec FROM house_part_specs WHERE house_part_id = ? AND version = ?`,
+      [housePartId, version],
+      transaction,
+    );
     return row ? json(row.spec) : null;
   }
 
@@ -52,7 +59,10 @@ export class DecisionRecordsRepository {
     return row ? { fields: json(row.fields), note: row.note } : null;
   }
 
-  async datasheets(ids: number[], transaction?: Transaction): Promise<Array<{ id: number; fileName: string; revision: string | null; sha256: string; pages: number }>> {
+  async datasheets(
+    ids: number[],
+    transaction?: Transaction,
+  ): Promise<Array<{ id: number; fileName: string; revision: string | null; sha256: string; pages: number }>> {
     if (ids.length === 0) return [];
     return this.select(`SELECT id, file_name AS fileName, revision, sha256, pages FROM datasheets WHERE id IN (?) ORDER BY id`, [ids], transaction);
   }
@@ -60,8 +70,26 @@ export class DecisionRecordsRepository {
   async events(
     qualificationId: number,
     transaction?: Transaction,
-  ): Promise<Array<{ at: Date; by: string | null; action: AuditEntry['action']; fromState: AuditEntry['fromState']; toState: AuditEntry['toState']; note: string | null; changes: AuditEntry['changes'] }>> {
-    const rows = await this.select<{ at: Date; by: string | null; action: AuditEntry['action']; fromState: AuditEntry['fromState']; toState: AuditEntry['toState']; note: string | null; changes: AuditEntry['changes'] | string }>(
+  ): Promise<
+    Array<{
+      at: Date;
+      by: string | null;
+      action: AuditEntry['action'];
+      fromState: AuditEntry['fromState'];
+      toState: AuditEntry['toState'];
+      note: string | null;
+      changes: AuditEntry['changes'];
+    }>
+  > {
+    const rows = await this.select<{
+      at: Date;
+      by: string | null;
+      action: AuditEntry['action'];
+      fromState: AuditEntry['fromState'];
+      toState: AuditEntry['toState'];
+      note: string | null;
+      changes: AuditEntry['changes'] | string;
+    }>(
       `SELECT e.created_at AS at, u.name AS \`by\`, e.action, e.from_state AS fromState, e.to_state AS toState, e.note, e.changes
        FROM qualification_events e LEFT JOIN users u ON u.id = e.user_id WHERE e.qualification_id = ? ORDER BY e.id`,
       [qualificationId],

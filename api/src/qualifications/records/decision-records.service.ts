@@ -1,5 +1,13 @@
 import { randomUUID } from 'node:crypto';
-import { ConflictException, ForbiddenException, Injectable, InternalServerErrorException, Logger, NotFoundException, ServiceUnavailableException } from '@nestjs/common';
+import {
+  ConflictException,
+  ForbiddenException,
+  Injectable,
+  InternalServerErrorException,
+  Logger,
+  NotFoundException,
+  ServiceUnavailableException,
+} from '@nestjs/common';
 import {
   CARD_FIELDS,
   QUALIFICATION_STATE_LABELS,
@@ -76,11 +84,16 @@ export class DecisionRecordsService {
     const existing = await this.records.find(qualificationId, transaction, true);
     if (existing) {
       if (existing.inputsSha256 !== inputsSha256) {
-        throw new ConflictException(`Case #${qualificationId} already has its decision record (inputs sha256 ${existing.inputsSha256}); a record is never made again from other inputs`);
+        throw new ConflictException(
+          `Case #${qualificationId} already has its decision record (inputs sha256 ${existing.inputsSha256}); a record is never made again from other inputs`,
+        );
       }
       return;
     }
-    await this.records.create({ qualificationId, state: 'pending', storageKey: `records/${randomUUID()}.pdf`, inputsSha256, inputs: text, createdAt: new Date(inputs.madeAt) }, transaction);
+    await this.records.create(
+      { qualificationId, state: 'pending', storageKey: `records/${randomUUID()}.pdf`, inputsSha256, inputs: text, createdAt: new Date(inputs.madeAt) },
+      transaction,
+    );
     if (this.deferring > 0) return;
     // Runs after commit (Sequelize also runs it after a failed commit: then there is no row and nothing happens).
     transaction.afterCommit(async () => {
@@ -103,7 +116,8 @@ export class DecisionRecordsService {
   async download(qualificationId: number, user: AuthUser): Promise<{ bytes: Uint8Array; fileName: string; sha256: string }> {
     await this.checkAccess(qualificationId, user);
     const row = await this.ensure(qualificationId);
-    if (row.state !== 'stored' || !row.sha256) throw new ServiceUnavailableException(`The record of case #${qualificationId} is waiting for the object store; try again in a moment`);
+    if (row.state !== 'stored' || !row.sha256)
+      throw new ServiceUnavailableException(`The record of case #${qualificationId} is waiting for the object store; try again in a moment`);
     let bytes: Uint8Array;
     try {
       bytes = await this.storage.getBytes(row.storageKey);
@@ -127,10 +141,14 @@ export class DecisionRecordsService {
     if (!row) throw new NotFoundException(`Case #${qualificationId} has no decision record`);
     const given = inputs ?? (JSON.parse(row.inputs) as RecordInputs);
     const givenSha = sha256Hex(canonicalJson(given));
-    if (givenSha !== row.inputsSha256) throw new ConflictException(`Refused: these inputs (sha256 ${givenSha}) are not the ones case #${qualificationId}'s record was made from (${row.inputsSha256})`);
+    if (givenSha !== row.inputsSha256)
+      throw new ConflictException(
+        `Refused: these inputs (sha256 ${givenSha}) are not the ones case #${qualificationId}'s record was made from (${row.inputsSha256})`,
+      );
     const pdf = await renderDecisionRecord(given);
     const sha = sha256Hex(pdf);
-    if (row.sha256 !== null && sha !== row.sha256) throw new ConflictException(`Refused: the re-drawn record (sha256 ${sha}) differs from the stored one (${row.sha256})`);
+    if (row.sha256 !== null && sha !== row.sha256)
+      throw new ConflictException(`Refused: the re-drawn record (sha256 ${sha}) differs from the stored one (${row.sha256})`);
     return pdf;
   }
 
@@ -177,7 +195,8 @@ export class DecisionRecordsService {
     if (!row) throw new NotFoundException(`No qualification case with id ${qualificationId}`);
     const state = QUALIFICATION_STATE_LABELS[row.state].toLowerCase();
     // Designers read the cases they may design in, as the case itself (GET /qualifications/:id) decides.
-    if (user.role === 'designer' && !isUsableState(row.state)) throw new ForbiddenException(`Case #${qualificationId} is ${state}; designers see the records of cleared cases only`);
+    if (user.role === 'designer' && !isUsableState(row.state))
+      throw new ForbiddenException(`Case #${qualificationId} is ${state}; designers see the records of cleared cases only`);
     if (!isDecidedState(row.state)) throw new NotFoundException(`Case #${qualificationId} is ${state}: a record is made when it is decided`);
   }
 
@@ -196,7 +215,13 @@ export class DecisionRecordsService {
     const { curve, note } = recordCurve(card?.fields ?? null, spec);
     const decision =
       row.decisionState !== null && row.decidedAt !== null && row.decidedById !== null
-        ? { state: row.decisionState, stateLabel: QUALIFICATION_STATE_LABELS[row.decisionState], at: iso(row.decidedAt), by: { id: row.decidedById, name: row.decidedByName ?? '' }, text: row.decisionText }
+        ? {
+            state: row.decisionState,
+            stateLabel: QUALIFICATION_STATE_LABELS[row.decisionState],
+            at: iso(row.decidedAt),
+            by: { id: row.decidedById, name: row.decidedByName ?? '' },
+            text: row.decisionText,
+          }
         : null;
     return {
       format: 1,
@@ -214,10 +239,21 @@ export class DecisionRecordsService {
         preparedBy: { id: row.preparedById, name: row.preparedByName },
         reviewer: row.reviewerId !== null ? { id: row.reviewerId, name: row.reviewerName ?? '' } : null,
         decision,
-        revocation: row.revokedAt && row.revokedById !== null ? { at: iso(row.revokedAt), by: { id: row.revokedById, name: row.revokedByName ?? '' }, reason: row.revokeReason ?? '' } : null,
+        revocation:
+          row.revokedAt && row.revokedById !== null
+            ? { at: iso(row.revokedAt), by: { id: row.revokedById, name: row.revokedByName ?? '' }, reason: row.revokeReason ?? '' }
+            : null,
       },
       housePart: { id: row.housePartId, partNumber: row.partNumber, description: row.housePartDescription, specVersion: row.specVersion, spec },
-      vendorPart: { id: row.vendorPartId, manufacturer: row.manufacturer, mpn: row.mpn, package: row.package, cardVersion: row.cardVersion, card: card?.fields ?? null, cardNote: card?.note ?? null },
+      vendorPart: {
+        id: row.vendorPartId,
+        manufacturer: row.manufacturer,
+        mpn: row.mpn,
+        package: row.package,
+        cardVersion: row.cardVersion,
+        card: card?.fields ?? null,
+        cardNote: card?.note ?? null,
+      },
       datasheets,
       evaluation: row.evaluation,
       measurementSets: sets.map((s) => ({
@@ -231,7 +267,13 @@ export class DecisionRecordsService {
         uploadedAt: s.createdAt,
         samples: s.samples.length,
         points: s.samples.reduce((n, sample) => n + sample.points.length, 0),
-        analysis: { overall: s.analysis.overall, checks: s.analysis.checks, cardVersion: s.analysis.cardVersion, specVersion: s.analysis.specVersion, warnings: s.analysis.warnings },
+        analysis: {
+          overall: s.analysis.overall,
+          checks: s.analysis.checks,
+          cardVersion: s.analysis.cardVersion,
+          specVersion: s.analysis.specVersion,
+          warnings: s.analysis.warnings,
+        },
       })),
       curve,
       curveNote: note,

@@ -30,7 +30,15 @@ export interface RecordInputs {
     revocation: { at: string; by: { id: number; name: string }; reason: string } | null;
   };
   housePart: { id: number; partNumber: string; description: string; specVersion: number; spec: Spec | null };
-  vendorPart: { id: number; manufacturer: string; mpn: string; package: string | null; cardVersion: number; card: RatingCardFields | null; cardNote: string | null };
+  vendorPart: {
+    id: number;
+    manufacturer: string;
+    mpn: string;
+    package: string | null;
+    cardVersion: number;
+    card: RatingCardFields | null;
+    cardNote: string | null;
+  };
   /** The datasheets the card's values cite. */
   datasheets: Array<{ id: number; fileName: string; revision: string | null; sha256: string; pages: number }>;
   evaluation: Evaluation;
@@ -48,7 +56,12 @@ export interface RecordInputs {
     analysis: Pick<MeasurementAnalysis, 'overall' | 'checks' | 'cardVersion' | 'specVersion' | 'warnings'>;
   }>;
   /** The card's I–V curve at 25 °C (nominal and tolerance ends), or why there is none. */
-  curve: { tempC: number; points: Array<{ current: number; low: number; nom: number; high: number }>; iRef: number | null; window: { min: number; max: number } | null } | null;
+  curve: {
+    tempC: number;
+    points: Array<{ current: number; low: number; nom: number; high: number }>;
+    iRef: number | null;
+    window: { min: number; max: number } | null;
+  } | null;
   curveNote: string | null;
   comments: Array<{ at: string; by: string; text: string }>;
   audit: Array<Pick<AuditEntry, 'at' | 'action' | 'fromState' | 'toState' | 'note' | 'changes'> & { by: string | null }>;
@@ -113,7 +126,10 @@ export function recordCurve(card: RatingCardFields | null, spec: Spec | null): {
     if (points.some((p) => !Number.isFinite(p.low) || !Number.isFinite(p.nom) || !Number.isFinite(p.high))) {
       return { curve: null, note: 'The fitted model gives no finite voltage over these currents: no curve.' };
     }
-    return { curve: { tempC: T_REF_C, points, iRef: spec?.iRef ?? null, window: spec ? { min: spec.vz.min, max: spec.vz.max } : null }, note: model.warnings.length ? model.warnings.join(' ') : null };
+    return {
+      curve: { tempC: T_REF_C, points, iRef: spec?.iRef ?? null, window: spec ? { min: spec.vz.min, max: spec.vz.max } : null },
+      note: model.warnings.length ? model.warnings.join(' ') : null,
+    };
   } catch (error) {
     return { curve: null, note: `No curve: ${(error as Error).message}` };
   }

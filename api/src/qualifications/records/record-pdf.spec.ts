@@ -30,7 +30,13 @@ const card = {
 };
 
 function inputs(madeAt = '2026-12-01T10:00:00.000Z'): RecordInputs {
-  const evaluation = evaluateCard({ spec, specVersion: 1, card: { vzNom: 5.1, vzMin: 4.9, vzMax: 5.3, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500 }, cardVersion: 1, vendorPackage: 'SOD-123' });
+  const evaluation = evaluateCard({
+    spec,
+    specVersion: 1,
+    card: { vzNom: 5.1, vzMin: 4.9, vzMax: 5.3, izt: 5e-3, zzt: 40, izk: 0.25e-3, zzk: 500 },
+    cardVersion: 1,
+    vendorPackage: 'SOD-123',
+  });
   const { curve, note } = recordCurve(card, spec);
   return {
     format: 1,

@@ -73,10 +73,18 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
 
   const pen = new Pen(doc);
   pen.title(`Decision record — qualification case #${c.id} (revision ${c.revision})`);
-  pen.text(`${inputs.vendorPart.manufacturer} ${inputs.vendorPart.mpn} as a source of ${inputs.housePart.partNumber} (${inputs.housePart.description})`, { bold: true });
-  pen.text(`Decision: ${c.decision ? `${c.decision.stateLabel} by ${c.decision.by.name} on ${stamp(c.decision.at)}` : `${c.stateLabel} (no decision recorded)`}`, { bold: true, size: 11 });
-  if (c.decision?.text) pen.text(`${c.decision.state === 'rejected' ? 'Reason' : c.decision.state === 'cleared-with-conditions' ? 'Conditions' : 'Note'}: ${c.decision.text}`);
-  pen.text(`Prepared by ${c.preparedBy.name}${c.reviewer ? `; review asked of ${c.reviewer.name}` : ''}. Opened ${stamp(c.openedAt)}${c.submittedAt ? `, sent for review ${stamp(c.submittedAt)}` : ''}.`);
+  pen.text(`${inputs.vendorPart.manufacturer} ${inputs.vendorPart.mpn} as a source of ${inputs.housePart.partNumber} (${inputs.housePart.description})`, {
+    bold: true,
+  });
+  pen.text(
+    `Decision: ${c.decision ? `${c.decision.stateLabel} by ${c.decision.by.name} on ${stamp(c.decision.at)}` : `${c.stateLabel} (no decision recorded)`}`,
+    { bold: true, size: 11 },
+  );
+  if (c.decision?.text)
+    pen.text(`${c.decision.state === 'rejected' ? 'Reason' : c.decision.state === 'cleared-with-conditions' ? 'Conditions' : 'Note'}: ${c.decision.text}`);
+  pen.text(
+    `Prepared by ${c.preparedBy.name}${c.reviewer ? `; review asked of ${c.reviewer.name}` : ''}. Opened ${stamp(c.openedAt)}${c.submittedAt ? `, sent for review ${stamp(c.submittedAt)}` : ''}.`,
+  );
   if (c.revocation) pen.text(`Revoked by ${c.revocation.by.name} on ${stamp(c.revocation.at)}: ${c.revocation.reason}`);
   pen.text(`Evaluation: ${QUALIFICATION_VERDICT_LABELS[inputs.evaluation.overall]} — ${inputs.evaluation.summary}.`);
   pen.text(`Record made ${stamp(inputs.madeAt)}. Inputs sha256: ${inputsSha256}`, { size: 8 });
@@ -95,16 +103,27 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
         [
           'Knee',
           spec.knee
-            ? [spec.knee.maxRatio !== null ? `Zd(${v(spec.knee.iKnee, 'current')})/Zd(iRef) ≤ ${spec.knee.maxRatio}` : '', spec.knee.maxSpan !== null ? `span ≤ ${v(spec.knee.maxSpan, 'voltage')}` : '']
+            ? [
+                spec.knee.maxRatio !== null ? `Zd(${v(spec.knee.iKnee, 'current')})/Zd(iRef) ≤ ${spec.knee.maxRatio}` : '',
+                spec.knee.maxSpan !== null ? `span ≤ ${v(spec.knee.maxSpan, 'voltage')}` : '',
+              ]
                 .filter(Boolean)
                 .join('; ')
             : 'not limited',
         ],
         ['Leakage', spec.leakage ? `≤ ${v(spec.leakage.irMax, 'current')} at ${v(spec.leakage.vr, 'voltage')}` : 'not limited'],
         ['Temperature coefficient', spec.tc ? `${v(spec.tc.min, 'tempCoVoltage')} … ${v(spec.tc.max, 'tempCoVoltage')}` : 'not limited'],
-        ['Power', spec.power ? `rating ≥ ${v(spec.power.pdMin, 'power')}, at most ${Math.round(spec.power.deratingFraction * 100)} % of the derated power` : 'not limited'],
+        [
+          'Power',
+          spec.power
+            ? `rating ≥ ${v(spec.power.pdMin, 'power')}, at most ${Math.round(spec.power.deratingFraction * 100)} % of the derated power`
+            : 'not limited',
+        ],
         ['Packages', spec.packages.length ? spec.packages.join(', ') : 'any'],
-        ['Envelope', `${v(spec.envelope.iMin, 'current')} … ${v(spec.envelope.iMax, 'current')}, ${v(spec.envelope.taMin, 'temperature')} … ${v(spec.envelope.taMax, 'temperature')}`],
+        [
+          'Envelope',
+          `${v(spec.envelope.iMin, 'current')} … ${v(spec.envelope.iMax, 'current')}, ${v(spec.envelope.taMin, 'temperature')} … ${v(spec.envelope.taMax, 'temperature')}`,
+        ],
         ['Output window', spec.outputWindow ? `${v(spec.outputWindow.vMin, 'voltage')} … ${v(spec.outputWindow.vMax, 'voltage')}` : 'none'],
         ['Marginal band', `${spec.marginalBandPercent} %`],
       ],
@@ -139,7 +158,8 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
   if (vp.cardNote) pen.text(`Card note: ${vp.cardNote}`);
   if (inputs.datasheets.length) {
     pen.text('Datasheets cited:', { bold: true });
-    for (const d of inputs.datasheets) pen.text(`#${d.id} ${d.fileName}${d.revision ? ` rev. ${d.revision}` : ''}, ${d.pages} page(s), sha256 ${d.sha256}`, { size: 8 });
+    for (const d of inputs.datasheets)
+      pen.text(`#${d.id} ${d.fileName}${d.revision ? ` rev. ${d.revision}` : ''}, ${d.pages} page(s), sha256 ${d.sha256}`, { size: 8 });
   }
   pen.gap();
 
@@ -181,7 +201,10 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
       `Set #${set.id}: ${set.fileName}, ${set.samples} sample(s), ${set.points} point(s)${set.lot ? `, lot ${set.lot}` : ''}${set.instrument ? `, ${set.instrument}` : ''}${set.measuredOn ? `, measured ${set.measuredOn}` : ''}; overall ${QUALIFICATION_VERDICT_LABELS[set.analysis.overall]}`,
       { bold: true },
     );
-    pen.text(`sha256 ${set.sha256}, ${set.sizeBytes} bytes, uploaded ${stamp(set.uploadedAt)}; analysed against card version ${set.analysis.cardVersion ?? '–'} and spec version ${set.analysis.specVersion ?? '–'}`, { size: 8 });
+    pen.text(
+      `sha256 ${set.sha256}, ${set.sizeBytes} bytes, uploaded ${stamp(set.uploadedAt)}; analysed against card version ${set.analysis.cardVersion ?? '–'} and spec version ${set.analysis.specVersion ?? '–'}`,
+      { size: 8 },
+    );
     const rows: string[][] = [['Measured check', 'Value', 'Limit', 'Margin', 'Verdict']];
     for (const m of set.analysis.checks) {
       rows.push([
@@ -204,13 +227,18 @@ export async function renderDecisionRecord(inputs: RecordInputs): Promise<Buffer
   pen.heading('Audit trail');
   for (const e of inputs.audit) {
     const changes = e.changes.map((ch) => `${ch.field} ${String(ch.from)} → ${String(ch.to)}`).join('; ');
-    pen.text(`${stamp(e.at)} ${e.by ?? 'system'}: ${e.action}${e.toState ? ` (${e.fromState ?? '–'} → ${e.toState})` : ''}${e.note ? ` — ${e.note}` : ''}${changes ? ` [${changes}]` : ''}`, { size: 8 });
+    pen.text(
+      `${stamp(e.at)} ${e.by ?? 'system'}: ${e.action}${e.toState ? ` (${e.fromState ?? '–'} → ${e.toState})` : ''}${e.note ? ` — ${e.note}` : ''}${changes ? ` [${changes}]` : ''}`,
+      { size: 8 },
+    );
   }
   pen.gap();
 
   pen.heading('Caution');
   pen.text(inputs.caution);
-  pen.text("The values above are the case as it stood when it was decided; the organisation's qualification procedure and the relevant standards govern its use.");
+  pen.text(
+    "The values above are the case as it stood when it was decided; the organisation's qualification procedure and the relevant standards govern its use.",
+  );
   pen.gap();
   pen.text(`Inputs sha256 (canonical JSON of the case snapshot): ${inputsSha256}`, { size: 8, bold: true });
 
@@ -279,7 +307,12 @@ class Pen {
         doc.fillColor(colour ?? '#000000').text(cell, x, y, { width: widths[i] - 4, lineBreak: true });
         x += widths[i];
       });
-      doc.moveTo(MARGIN, y + height - 1).lineTo(MARGIN + widths.reduce((a, b) => a + b, 0), y + height - 1).lineWidth(0.3).strokeColor('#bbbbbb').stroke();
+      doc
+        .moveTo(MARGIN, y + height - 1)
+        .lineTo(MARGIN + widths.reduce((a, b) => a + b, 0), y + height - 1)
+        .lineWidth(0.3)
+        .strokeColor('#bbbbbb')
+        .stroke();
       doc.x = MARGIN;
       doc.y = y + height;
     });
@@ -311,7 +344,12 @@ class Pen {
     doc.font('regular').fontSize(7).fillColor('#000000');
     for (let d = x0; d <= x1; d++) {
       const x = left + ((d - x0) / (x1 - x0)) * w;
-      doc.moveTo(x, top).lineTo(x, top + h).lineWidth(0.2).strokeColor('#cccccc').stroke();
+      doc
+        .moveTo(x, top)
+        .lineTo(x, top + h)
+        .lineWidth(0.2)
+        .strokeColor('#cccccc')
+        .stroke();
       doc.text(formatQuantity(10 ** d, 'current'), x - 20, top + h + 3, { width: 40, align: 'center', lineBreak: false });
     }
     // Round voltages on the axis: a 1-2-5 step giving about five lines.
@@ -321,13 +359,21 @@ class Pen {
     for (let k = Math.ceil(y0 / step); k * step <= y1; k++) {
       const v = k * step;
       const y = Y(v);
-      doc.moveTo(left, y).lineTo(left + w, y).lineWidth(0.2).strokeColor('#cccccc').stroke();
+      doc
+        .moveTo(left, y)
+        .lineTo(left + w, y)
+        .lineWidth(0.2)
+        .strokeColor('#cccccc')
+        .stroke();
       doc.text(formatQuantity(v, 'voltage', { digits: 4 }), MARGIN - 5, y - 3, { width: 48, align: 'right', lineBreak: false });
     }
     const line = (key: 'low' | 'nom' | 'high', colour: string, dash: boolean) => {
       points.forEach((p, i) => (i === 0 ? doc.moveTo(X(p.current), Y(p[key])) : doc.lineTo(X(p.current), Y(p[key]))));
       if (dash) doc.dash(3, { space: 2 });
-      doc.lineWidth(dash ? 0.8 : 1.4).strokeColor(colour).stroke();
+      doc
+        .lineWidth(dash ? 0.8 : 1.4)
+        .strokeColor(colour)
+        .stroke();
       doc.undash();
     };
     line('low', '#457b9d', true);
@@ -336,7 +382,13 @@ class Pen {
     if (curve.window && curve.iRef !== null) {
       const x = X(curve.iRef);
       doc.moveTo(x, Y(curve.window.min)).lineTo(x, Y(curve.window.max)).lineWidth(2).strokeColor('#e63946').stroke();
-      for (const v of [curve.window.min, curve.window.max]) doc.moveTo(x - 4, Y(v)).lineTo(x + 4, Y(v)).lineWidth(1).strokeColor('#e63946').stroke();
+      for (const v of [curve.window.min, curve.window.max])
+        doc
+          .moveTo(x - 4, Y(v))
+          .lineTo(x + 4, Y(v))
+          .lineWidth(1)
+          .strokeColor('#e63946')
+          .stroke();
     }
     doc.fillColor('#000000').font('regular').fontSize(7.5);
     doc.text('reverse current (log scale)', left, top + h + 13, { width: w, align: 'center' });

@@ -114,7 +114,10 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const fit = (texts: string[], bold = false) => Math.max(...texts.map((t) => pen.width(t, { size: size0, condensed: true, bold }))) + 8;
   const columns: GridColumn[] = [
     ...lead.map((l, i) => ({
-      width: Math.max(l.width * 0.8, fit([l.text, ...s.rows.map((r) => (i === 0 ? r[0].printedMpn : withPkg && i === 1 ? r[0].pkg.name : r[0].marking))], true)),
+      width: Math.max(
+        l.width * 0.8,
+        fit([l.text, ...s.rows.map((r) => (i === 0 ? r[0].printedMpn : withPkg && i === 1 ? r[0].pkg.name : r[0].marking))], true),
+      ),
       align: 'left' as const,
     })),
     ...specs.map(() => ({ width: 0, align: 'center' as const })),
@@ -277,7 +280,11 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
   const page = pen.page;
   let title = `${p.printedMpn}`;
   if (c.conditions === 'title') {
-    const conds = [s.iztConst ? condText(ctx, 'izt', s.iztConst) : '', s.izkConst && s.hasIzk ? condText(ctx, 'izk', s.izkConst) : '', `${sym(ctx, 'vr')} = ${pen.vu(p.values.vr!)}`]
+    const conds = [
+      s.iztConst ? condText(ctx, 'izt', s.iztConst) : '',
+      s.izkConst && s.hasIzk ? condText(ctx, 'izk', s.izkConst) : '',
+      `${sym(ctx, 'vr')} = ${pen.vu(p.values.vr!)}`,
+    ]
       .filter(Boolean)
       .join(', ');
     title += ` (TA = 25 °C, ${conds})`;
@@ -311,7 +318,15 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
       // Conditions printed as their own row: test current, knee current, VR.
       const v = p.values[sp.field]!;
       pen.record(row, sp.field, page);
-      rows.push([sym(ctx, sp.key), name(ctx, sp.key) + (c.units === 'header' ? ` ${bracketed(c, v.unit)}` : ''), '', '', unitInCell ? pen.vu(v) : pen.num(v.value), '', ...(unitCol ? [v.unit] : [])]);
+      rows.push([
+        sym(ctx, sp.key),
+        name(ctx, sp.key) + (c.units === 'header' ? ` ${bracketed(c, v.unit)}` : ''),
+        '',
+        '',
+        unitInCell ? pen.vu(v) : pen.num(v.value),
+        '',
+        ...(unitCol ? [v.unit] : []),
+      ]);
       continue;
     }
     let cond = '';
@@ -353,7 +368,13 @@ export function partPerPage(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     flow.newPage(rotated);
     pen.sheet.text(`${row[0].printedMpn}`, pen.frame.left, flow.y, { size: 15, bold: true });
     flow.y += 26;
-    flow.y = pen.prose(`${name(ctx, 'vz')} regulator diode of the ${s.name} series. All values at TA = 25 °C.`, pen.frame.left, flow.y, pen.frame.right - pen.frame.left) + 6;
+    flow.y =
+      pen.prose(
+        `${name(ctx, 'vz')} regulator diode of the ${s.name} series. All values at TA = 25 °C.`,
+        pen.frame.left,
+        flow.y,
+        pen.frame.right - pen.frame.left,
+      ) + 6;
     flow.belowFullWidth(partTable(ctx, flow, s, row, i === 0, pen.frame.left, pen.frame.right - pen.frame.left) + 6);
   });
 }
@@ -412,7 +433,14 @@ export function leaderLists(ctx: Ctx, flow: Flow, s: SeriesModel): void {
     flow.y = y + 6;
   });
   flow.need(30, rotated);
-  flow.y = pen.prose(`Measured with pulses of 20 ms so that the junction stays near the ambient; ${sym(ctx, 'zzt')} with 10 % a.c. at 1 kHz.`, flow.x, flow.y, flow.width, 7.5) + 6;
+  flow.y =
+    pen.prose(
+      `Measured with pulses of 20 ms so that the junction stays near the ambient; ${sym(ctx, 'zzt')} with 10 % a.c. at 1 kHz.`,
+      flow.x,
+      flow.y,
+      flow.width,
+      7.5,
+    ) + 6;
 }
 
 /** Ratings given in sentences, one paragraph per part. */

@@ -20,14 +20,7 @@ export interface Ctx {
 const SUPER = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 export function markerStyle(prng: Prng): (n: number) => string {
   const style = prng.pick(['paren-super', 'super-paren', 'note', 'bracket'] as const);
-  return (n) =>
-    style === 'paren-super'
-      ? `⁽${SUPER[n]}⁾`
-      : style === 'super-paren'
-        ? `${SUPER[n]})`
-        : style === 'note'
-          ? ` (Note ${n})`
-          : ` [${n}]`;
+  return (n) => (style === 'paren-super' ? `⁽${SUPER[n]}⁾` : style === 'super-paren' ? `${SUPER[n]})` : style === 'note' ? ` (Note ${n})` : ` [${n}]`);
 }
 
 /** A value with a footnote marker stuck to it when the vendor uses them (first row only). */
@@ -201,7 +194,13 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
   const y = pen.heading(heading, flow.x, flow.y, 10);
   const eachValue = c.units === 'each-value';
   const narrow = w < 300;
-  const cols = eachValue ? (narrow ? [0.36, 0.12, 0.26, 0.26] : [0.4, 0.14, 0.28, 0.18]) : narrow ? [0.33, 0.1, 0.23, 0.23, 0.11] : [0.36, 0.12, 0.26, 0.14, 0.12];
+  const cols = eachValue
+    ? narrow
+      ? [0.36, 0.12, 0.26, 0.26]
+      : [0.4, 0.14, 0.28, 0.18]
+    : narrow
+      ? [0.33, 0.1, 0.23, 0.23, 0.11]
+      : [0.36, 0.12, 0.26, 0.14, 0.12];
   const head = eachValue ? ['Parameter', 'Symbol', 'Conditions', 'Value'] : ['Parameter', 'Symbol', 'Conditions', 'Value', 'Unit'];
   const rows = lines.map((l) => (eachValue ? [l.label, l.symbol, l.cond, `${l.value} ${l.unit}`] : [l.label, l.symbol, l.cond, l.value, l.unit]));
   flow.y = grid(
@@ -308,7 +307,7 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
     const vz = p.values.vzNom!;
     const vin = Math.ceil(vz.si * 1.6 + 2);
     const iz = 10;
-    const r = Math.round(((vin - vz.si) / ((iz + 5) * 1e-3)) / 10) * 10;
+    const r = Math.round((vin - vz.si) / ((iz + 5) * 1e-3) / 10) * 10;
     const pw = Math.round(vz.si * (iz + 5));
     flow.y =
       pen.prose(
@@ -325,12 +324,19 @@ export function clutterBlocks(ctx: Ctx, flow: Flow, which: LayoutClutter[]): voi
     const y = pen.heading('Typical characteristics', flow.x, flow.y, 10);
     const x0 = flow.x + 30;
     const gw = Math.min(200, w - 40);
-    pen.doc.rect(x0, y + 4, gw, 100).lineWidth(0.5).strokeColor('#555555').stroke();
+    pen.doc
+      .rect(x0, y + 4, gw, 100)
+      .lineWidth(0.5)
+      .strokeColor('#555555')
+      .stroke();
     for (let i = 0; i <= 4; i++) {
       pen.sheet.text(String(i * 5), x0 + (gw * i) / 4 - 4, y + 108, { size: 6.5 });
       pen.sheet.text(pen.num(String(i * 2.5)), x0 - 22, y + 100 - i * 25, { size: 6.5 });
     }
-    pen.doc.moveTo(x0, y + 104).bezierCurveTo(x0 + 20, y + 20, x0 + 60, y + 12, x0 + gw, y + 8).stroke();
+    pen.doc
+      .moveTo(x0, y + 104)
+      .bezierCurveTo(x0 + 20, y + 20, x0 + 60, y + 12, x0 + gw, y + 8)
+      .stroke();
     pen.sheet.text(`Fig. 1 ${sym(ctx, 'izt')} (mA) against ${sym(ctx, 'vz')} (V), TA = 25 °C`, x0, y + 118, { size: 7 });
     flow.y = y + 134;
   }

@@ -44,8 +44,8 @@ function InvitationPage() {
       {invitation.isSuccess && (
         <>
           <Text fz="sm">
-            <b>{invitation.data.email}</b> is invited to Shuntwise as <RoleBadge role={invitation.data.role} />. The
-            link works once, until {formatDateTime(invitation.data.expiresAt)}.
+            <b>{invitation.data.email}</b> is invited to Shuntwise as <RoleBadge role={invitation.data.role} />. The link works once, until{' '}
+            {formatDateTime(invitation.data.expiresAt)}.
           </Text>
           <AcceptInvitationForm
             token={token}

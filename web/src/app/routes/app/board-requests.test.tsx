@@ -10,13 +10,29 @@ const EMPTY_BOARD: BoardPage = {
   total: 0,
   pageIndex: 0,
   pageSize: 25,
-  counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 0, 'cleared-with-conditions': 0, 'cleared-with-waiver': 0, rejected: 0, withdrawn: 0, revoked: 0, 'waiver-lapsed': 0, none: 0 },
+  counts: {
+    draft: 0,
+    'in-review': 0,
+    approved: 0,
+    cleared: 0,
+    'cleared-with-conditions': 0,
+    'cleared-with-waiver': 0,
+    rejected: 0,
+    withdrawn: 0,
+    revoked: 0,
+    'waiver-lapsed': 0,
+    none: 0,
+  },
   engineers: [],
 };
 
 // Invented requests: one naming its house part, one leaving the choice to the engineer.
 const NAMED = request(21, { housePart: { id: 8, partNumber: 'OHI-ZD-1056', description: 'Regulator diode 5.6 V, loop-driver reference' } });
-const UNNAMED = request(22, { vendorPart: { id: 61, manufacturer: 'Nettlecombe Devices', mpn: 'NMZ-05V1', package: 'SOD-123' }, neededBy: null, note: 'Any 5.1 V position; cheaper than the approved part' });
+const UNNAMED = request(22, {
+  vendorPart: { id: 61, manufacturer: 'Nettlecombe Devices', mpn: 'NMZ-05V1', package: 'SOD-123' },
+  neededBy: null,
+  note: 'Any 5.1 V position; cheaper than the approved part',
+});
 
 function api(role: 'engineer' | 'admin', open: QualificationRequest[] = [NAMED, UNNAMED], extra: Parameters<typeof mockApi>[0] = {}) {
   return mockApi({
@@ -76,7 +92,10 @@ describe('Board: requests for a qualification', { timeout: 20_000 }, () => {
   it('a request that names its house part opens for it without asking, and a refusal is said plainly', async () => {
     signInAs('engineer');
     const mock = api('engineer', [NAMED], {
-      'POST /api/qualification-requests/:id/open-case': { status: 409, body: errorBody('Case #12 (Nettlecombe Devices NMZ-05V6 for OHI-ZD-1056) is still draft: continue that one') },
+      'POST /api/qualification-requests/:id/open-case': {
+        status: 409,
+        body: errorBody('Case #12 (Nettlecombe Devices NMZ-05V6 for OHI-ZD-1056) is still draft: continue that one'),
+      },
     });
     const { user } = renderApp('/board');
     await user.click(await screen.findByRole('button', { name: 'Open a case from request #21' }));
@@ -106,7 +125,9 @@ describe('Board: requests for a qualification', { timeout: 20_000 }, () => {
     await user.type(within(dialog).getByRole('textbox', { name: /Reply to Nadia Okafor/ }), 'End of life announced; use BRZ05-5V6, already approved.');
     await user.click(within(dialog).getByRole('button', { name: 'Decline the request' }));
     await waitFor(() => expect(mock.callsTo('POST', '/api/qualification-requests/21/decline')).toHaveLength(1));
-    expect(mock.callsTo('POST', '/api/qualification-requests/21/decline')[0].body).toEqual({ reply: 'End of life announced; use BRZ05-5V6, already approved.' });
+    expect(mock.callsTo('POST', '/api/qualification-requests/21/decline')[0].body).toEqual({
+      reply: 'End of life announced; use BRZ05-5V6, already approved.',
+    });
     expect(await screen.findByText('Request #21 declined')).toBeInTheDocument();
   });
 

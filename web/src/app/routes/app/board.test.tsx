@@ -10,7 +10,13 @@ const PAGE: BoardPage = {
     {
       housePart: { id: 4, partNumber: 'OHI-ZD-1047', description: 'Regulator diode 4.7 V', status: 'active', specVersion: 1 },
       sources: [
-        { vendorPart: { id: 11, manufacturer: 'Brackenford Semiconductor', mpn: 'BRZ05-4V7', package: 'SOD-123' }, role: 'approved', cardVersion: 1, state: 'none', latestCase: null },
+        {
+          vendorPart: { id: 11, manufacturer: 'Brackenford Semiconductor', mpn: 'BRZ05-4V7', package: 'SOD-123' },
+          role: 'approved',
+          cardVersion: 1,
+          state: 'none',
+          latestCase: null,
+        },
         {
           vendorPart: { id: 40, manufacturer: 'Quarryhill Semitech', mpn: 'QHZ4V7A', package: 'SOD-123' },
           role: 'alternate',
@@ -28,14 +34,32 @@ const PAGE: BoardPage = {
             ageDays: 41,
           },
         },
-        { vendorPart: { id: 41, manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4.7', package: 'SOD-323' }, role: 'alternate', cardVersion: 1, state: 'none', latestCase: null },
+        {
+          vendorPart: { id: 41, manufacturer: 'Corriebank Electronics', mpn: 'CBX3-4.7', package: 'SOD-323' },
+          role: 'alternate',
+          cardVersion: 1,
+          state: 'none',
+          latestCase: null,
+        },
       ],
     },
   ],
   total: 1,
   pageIndex: 0,
   pageSize: 25,
-  counts: { draft: 0, 'in-review': 0, approved: 0, cleared: 1, 'cleared-with-conditions': 0, 'cleared-with-waiver': 0, rejected: 0, withdrawn: 0, revoked: 0, 'waiver-lapsed': 0, none: 2 },
+  counts: {
+    draft: 0,
+    'in-review': 0,
+    approved: 0,
+    cleared: 1,
+    'cleared-with-conditions': 0,
+    'cleared-with-waiver': 0,
+    rejected: 0,
+    withdrawn: 0,
+    revoked: 0,
+    'waiver-lapsed': 0,
+    none: 2,
+  },
   // Every engineer the server knows, including one with no case on this page.
   engineers: [
     { id: 5, name: 'Aino Varga' },
@@ -46,7 +70,8 @@ const PAGE: BoardPage = {
 
 // The Board also lists open qualification requests; these tests are about the table.
 const NO_REQUESTS = { 'GET /api/qualification-requests': { body: { items: [], total: 0, pageIndex: 0, pageSize: 200 } } };
-const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) => fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualification-views/board'));
+const boardUrls = (fetch: ReturnType<typeof mockApi>['fetch']) =>
+  fetch.mock.calls.map(([input]) => String(input)).filter((u) => u.includes('/qualification-views/board'));
 
 describe('Board screen', () => {
   it('shows each source with its state, verdict, case, engineers and age, and links to the case, the compare view and the parts', async () => {
@@ -77,7 +102,9 @@ describe('Board screen', () => {
     expect(currentLocation()).toBe('/board?state=cleared');
     // One request per view: the server's tallies already ignore the state filter.
     expect(boardUrls(api.fetch).filter((u) => u.includes('pageSize=1&') || u.endsWith('pageSize=1'))).toEqual([]);
-    expect(new Set(boardUrls(api.fetch))).toEqual(new Set(['/api/qualification-views/board?pageIndex=0&pageSize=25', '/api/qualification-views/board?pageIndex=0&pageSize=25&state=cleared']));
+    expect(new Set(boardUrls(api.fetch))).toEqual(
+      new Set(['/api/qualification-views/board?pageIndex=0&pageSize=25', '/api/qualification-views/board?pageIndex=0&pageSize=25&state=cleared']),
+    );
     expect(screen.getByRole('button', { name: 'Cleared: 1' })).toHaveAttribute('aria-pressed', 'true');
     await user.type(screen.getByLabelText('Unchanged for at least'), '30');
     await waitFor(() => expect(boardUrls(api.fetch)).toContain('/api/qualification-views/board?minAgeDays=30&pageIndex=0&pageSize=25&state=cleared'));
@@ -100,8 +127,12 @@ describe('Board screen', () => {
     signInAs('engineer');
     const api = mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualification-views/board': { body: PAGE }, ...NO_REQUESTS,
-      'POST /api/qualifications': { status: 409, body: { message: 'Case #12 (Corriebank Electronics CBX3-4.7 for OHI-ZD-1047) is still draft: continue that one', correlationId: 'c0ffee00-test' } },
+      'GET /api/qualification-views/board': { body: PAGE },
+      ...NO_REQUESTS,
+      'POST /api/qualifications': {
+        status: 409,
+        body: { message: 'Case #12 (Corriebank Electronics CBX3-4.7 for OHI-ZD-1047) is still draft: continue that one', correlationId: 'c0ffee00-test' },
+      },
     });
     const { user } = renderApp('/board');
     await user.click(await screen.findByRole('button', { name: 'Open a case: CBX3-4.7 for OHI-ZD-1047' }));

@@ -13,7 +13,10 @@ import { logTicks, niceTicks } from '@/features/compare/utils/series';
 // jsdom lays nothing out, so the chart's responsive wrapper would measure 0 × 0 and draw nothing: give it a size.
 vi.mock('recharts', async (importOriginal) => {
   const actual = await importOriginal<typeof import('recharts')>();
-  return { ...actual, ResponsiveContainer: ({ children }: { children: ReactElement<{ width?: number; height?: number }> }) => cloneElement(children, { width: 900, height: 380 }) };
+  return {
+    ...actual,
+    ResponsiveContainer: ({ children }: { children: ReactElement<{ width?: number; height?: number }> }) => cloneElement(children, { width: 900, height: 380 }),
+  };
 });
 
 // An answer of the demo stack (invented catalogue), trimmed to five currents and three sources.
@@ -40,8 +43,12 @@ describe('Compare screen', () => {
     // Each part is held to its own derated limit, not the first source's for all.
     expect(cells[1]).toHaveTextContent("each part's own");
     expect(cells[1]).not.toHaveTextContent('130 mW');
-    expect(within(cells[2]).getByTestId('own-limit-power-dissipation')).toHaveTextContent('limit ≤ 130 mW: 50 % of 260 mW derated to 85.0 °C (PD max, linear to TJ max)');
-    expect(within(cells[3]).getByTestId('own-limit-power-dissipation')).toHaveTextContent('limit ≤ 77.9 mW: 50 % of 156 mW derated to 85.0 °C ((TJ max − Ta)/RthJA)');
+    expect(within(cells[2]).getByTestId('own-limit-power-dissipation')).toHaveTextContent(
+      'limit ≤ 130 mW: 50 % of 260 mW derated to 85.0 °C (PD max, linear to TJ max)',
+    );
+    expect(within(cells[3]).getByTestId('own-limit-power-dissipation')).toHaveTextContent(
+      'limit ≤ 77.9 mW: 50 % of 156 mW derated to 85.0 °C ((TJ max − Ta)/RthJA)',
+    );
     // A spec limit is the same for every part and stays in the limit column.
     const rating = within(table.querySelector('tr[data-check="power-rating"]') as HTMLElement).getAllByRole('cell');
     expect(rating[1]).toHaveTextContent('≥ 300 mW');
@@ -83,7 +90,10 @@ describe('Compare screen', () => {
     signInAs('engineer');
     mockApi({
       'GET /api/auth/me': { body: DEMO_USERS.engineer },
-      'GET /api/qualification-views/compare/:id': { status: 422, body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against') },
+      'GET /api/qualification-views/compare/:id': {
+        status: 422,
+        body: errorBody('House part OHI-ZD-1100 has no spec yet: there is nothing to compare against'),
+      },
     });
     renderCompare();
     expect(await screen.findByRole('alert')).toHaveTextContent('has no spec yet: there is nothing to compare against');

@@ -21,23 +21,26 @@ export function CompareRoute() {
   if (!Number.isInteger(housePartId) || housePartId <= 0) {
     return (
       <Alert color="red" role="alert" title="Not a house part">
-        The address does not name a house part to compare. <Anchor component={Link} to="/board">Go to the board</Anchor>
+        The address does not name a house part to compare.{' '}
+        <Anchor component={Link} to="/board">
+          Go to the board
+        </Anchor>
       </Alert>
     );
   }
   const engineer = session?.user.role === 'engineer';
   return (
     <>
-    <CompareView
-      key={housePartId}
-      housePartId={housePartId}
-      renderSourceAction={(payload, source) =>
-        engineer && source.role === 'alternate' && (source.latestCase === null || source.latestCase.state === 'withdrawn') && source.evaluation ? (
-          <OpenCaseButton target={{ housePart: payload.housePart, vendorPart: source.vendorPart }} />
-        ) : null
-      }
-    />
-    <CompareMeasurements key={`m${housePartId}`} housePartId={housePartId} />
+      <CompareView
+        key={housePartId}
+        housePartId={housePartId}
+        renderSourceAction={(payload, source) =>
+          engineer && source.role === 'alternate' && (source.latestCase === null || source.latestCase.state === 'withdrawn') && source.evaluation ? (
+            <OpenCaseButton target={{ housePart: payload.housePart, vendorPart: source.vendorPart }} />
+          ) : null
+        }
+      />
+      <CompareMeasurements key={`m${housePartId}`} housePartId={housePartId} />
     </>
   );
 }

@@ -23,7 +23,10 @@ function api(mine: QualificationRequest[] = [], onCreate?: (body: CreateQualific
     'GET /api/qualification-requests': () => ({ body: requestPage(stored) }),
     'GET /api/house-parts': { body: HOUSE_PARTS },
     'POST /api/qualification-requests': (call) => {
-      const reply = onCreate?.(call.body as CreateQualificationRequestRequest) ?? { status: 201, body: request(31, { ...(call.body as object), housePart: null }) };
+      const reply = onCreate?.(call.body as CreateQualificationRequestRequest) ?? {
+        status: 201,
+        body: request(31, { ...(call.body as object), housePart: null }),
+      };
       if ((reply.status ?? 201) === 201) stored.unshift(reply.body as QualificationRequest);
       return reply;
     },
@@ -94,12 +97,17 @@ describe('Find parts: asking for a qualification', { timeout: 20_000 }, () => {
     expect(await screen.findByRole('dialog')).toHaveTextContent('A qualification of it is under way already; ask only if you need it for another house part.');
   });
 
-  it("says plainly when the server refuses (a duplicate), and keeps what was typed; a past date is named on its field", async () => {
+  it('says plainly when the server refuses (a duplicate), and keeps what was typed; a past date is named on its field', async () => {
     signInAs('designer');
     const mock = api([], (body) =>
       body.neededBy === '2020-01-15'
         ? { status: 400, body: errorBody('neededBy (2020-01-15) is in the past', [{ path: 'neededBy', message: 'in the past' }]) }
-        : { status: 409, body: errorBody('You already asked for Nettlecombe Devices NMZ-05V6 (no house part named) in request #30 on 2026-11-28; it is waiting for an engineer') },
+        : {
+            status: 409,
+            body: errorBody(
+              'You already asked for Nettlecombe Devices NMZ-05V6 (no house part named) in request #30 on 2026-11-28; it is waiting for an engineer',
+            ),
+          },
     );
     const { user } = renderApp('/find');
     await user.click(await screen.findByRole('button', { name: 'Ask for qualification of NMZ-05V6' }));
@@ -127,7 +135,13 @@ describe('Find parts: asking for a qualification', { timeout: 20_000 }, () => {
         closedAt: '2026-11-30T10:00:00.000Z',
         case: { id: 14, revision: 1, state: 'in-review', housePart: { id: 8, partNumber: 'OHI-ZD-1056', description: 'loop-driver reference' } },
       }),
-      request(30, { vendorPart: { id: 62, manufacturer: 'Nettlecombe Devices', mpn: 'NMZ-24', package: 'SOD-123' }, state: 'declined', closedBy: { id: 2, name: 'Tomas Verhoef' }, closedAt: '2026-11-29T10:00:00.000Z', reply: 'End of life announced; use BRZ05-24.' }),
+      request(30, {
+        vendorPart: { id: 62, manufacturer: 'Nettlecombe Devices', mpn: 'NMZ-24', package: 'SOD-123' },
+        state: 'declined',
+        closedBy: { id: 2, name: 'Tomas Verhoef' },
+        closedAt: '2026-11-29T10:00:00.000Z',
+        reply: 'End of life announced; use BRZ05-24.',
+      }),
     ]);
     renderApp('/find');
     const panel = await screen.findByRole('region', { name: 'My qualification requests' });

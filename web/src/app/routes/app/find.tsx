@@ -14,7 +14,15 @@ export function FindPartsRoute() {
     <FindPartsScreen
       linkCatalogue={linkCatalogue}
       requestsPanel={mayAsk ? <MyRequestsPanel linkCases={linkCatalogue} /> : null}
-      renderPartAction={mayAsk ? (item) => <AskQualificationButton target={{ vendorPart: item.vendorPart, clearedFor: item.clearances.map((c) => c.housePart), underWay: item.qualificationOpen }} /> : undefined}
+      renderPartAction={
+        mayAsk
+          ? (item) => (
+              <AskQualificationButton
+                target={{ vendorPart: item.vendorPart, clearedFor: item.clearances.map((c) => c.housePart), underWay: item.qualificationOpen }}
+              />
+            )
+          : undefined
+      }
     />
   );
 }

@@ -26,7 +26,10 @@ export function HousePartRoute() {
   if (!valid) {
     return (
       <Alert color="red" role="alert" title="Not a house part">
-        The address does not name a house part. <Anchor component={Link} to="/house-parts">Go to the list</Anchor>
+        The address does not name a house part.{' '}
+        <Anchor component={Link} to="/house-parts">
+          Go to the list
+        </Anchor>
       </Alert>
     );
   }
@@ -40,7 +43,10 @@ export function HousePartRoute() {
   if (part.isError || spec.isError) {
     return (
       <Alert color="red" role="alert" title="The house part could not be loaded">
-        {describeError(part.error ?? spec.error)} <Anchor component={Link} to="/house-parts">Back to the list</Anchor>
+        {describeError(part.error ?? spec.error)}{' '}
+        <Anchor component={Link} to="/house-parts">
+          Back to the list
+        </Anchor>
       </Alert>
     );
   }

@@ -1,19 +1,9 @@
-import "@mantine/notifications/styles.css";
+import '@mantine/notifications/styles.css';
 
-import { useEffect, type ComponentType } from "react";
-import {
-  AppShell,
-  Box,
-  Burger,
-  Button,
-  Group,
-  NavLink,
-  ScrollArea,
-  Stack,
-  Text,
-} from "@mantine/core";
-import { useDisclosure } from "@mantine/hooks";
-import { Notifications } from "@mantine/notifications";
+import { useEffect, type ComponentType } from 'react';
+import { AppShell, Box, Burger, Button, Group, NavLink, ScrollArea, Stack, Text } from '@mantine/core';
+import { useDisclosure } from '@mantine/hooks';
+import { Notifications } from '@mantine/notifications';
 import {
   IconBuildingFactory2,
   IconClipboardCheck,
@@ -25,22 +15,22 @@ import {
   IconTruckDelivery,
   IconUsers,
   type IconProps,
-} from "@tabler/icons-react";
-import { Link, Outlet, useLocation } from "react-router";
-import { SCREEN_GROUPS, screensFor, type ScreenKey } from "@/app/navigation";
-import { QueryProvider } from "@/app/query-provider";
-import { Brand } from "@/components/brand";
-import { ColorSchemeToggle } from "@/components/color-scheme-toggle";
-import { RoleBadge } from "@/components/role-badge";
-import { useMe } from "@/features/auth/api/get-me";
-import { useLogout } from "@/features/auth/api/logout";
-import { updateSessionUser, useSession } from "@/lib/session";
-import classes from "./layout.module.css";
+} from '@tabler/icons-react';
+import { Link, Outlet, useLocation } from 'react-router';
+import { SCREEN_GROUPS, screensFor, type ScreenKey } from '@/app/navigation';
+import { QueryProvider } from '@/app/query-provider';
+import { Brand } from '@/components/brand';
+import { ColorSchemeToggle } from '@/components/color-scheme-toggle';
+import { RoleBadge } from '@/components/role-badge';
+import { useMe } from '@/features/auth/api/get-me';
+import { useLogout } from '@/features/auth/api/logout';
+import { updateSessionUser, useSession } from '@/lib/session';
+import classes from './layout.module.css';
 
 const ICONS: Record<ScreenKey, ComponentType<IconProps>> = {
   board: IconLayoutGrid,
-  "house-parts": IconBuildingFactory2,
-  "vendor-parts": IconPackage,
+  'house-parts': IconBuildingFactory2,
+  'vendor-parts': IconPackage,
   qualifications: IconClipboardCheck,
   find: IconSearch,
   sources: IconTruckDelivery,
@@ -75,41 +65,19 @@ function SignedInShell() {
   // A role with one screen needs no navigation: the page gets the whole width, the header the account.
   const single = screens.length <= 1;
   const signOut = (
-    <Button
-      variant="default"
-      size="xs"
-      leftSection={<IconLogout size={14} />}
-      loading={logout.isPending}
-      onClick={() => logout.mutate()}
-    >
+    <Button variant="default" size="xs" leftSection={<IconLogout size={14} />} loading={logout.isPending} onClick={() => logout.mutate()}>
       Sign out
     </Button>
   );
 
   return (
-    <AppShell
-      header={{ height: 52 }}
-      navbar={
-        single
-          ? undefined
-          : { width: 232, breakpoint: "sm", collapsed: { mobile: !opened } }
-      }
-      padding="md"
-    >
+    <AppShell header={{ height: 52 }} navbar={single ? undefined : { width: 232, breakpoint: 'sm', collapsed: { mobile: !opened } }} padding="md">
       <a href="#main-content" className={classes.skip}>
         Skip to main content
       </a>
       <Notifications position="top-right" limit={4} />
       <AppShell.Header className={classes.header}>
-        {!single && (
-          <Burger
-            opened={opened}
-            onClick={toggle}
-            hiddenFrom="sm"
-            size="sm"
-            aria-label="Show navigation"
-          />
-        )}
+        {!single && <Burger opened={opened} onClick={toggle} hiddenFrom="sm" size="sm" aria-label="Show navigation" />}
         <Brand size="md" />
         <Box style={{ flex: 1 }} />
         {single && (
@@ -125,29 +93,18 @@ function SignedInShell() {
       </AppShell.Header>
 
       {!single && (
-        <AppShell.Navbar
-          className={classes.navbar}
-          p="xs"
-          aria-label="Main navigation"
-        >
+        <AppShell.Navbar className={classes.navbar} p="xs" aria-label="Main navigation">
           <AppShell.Section grow component={ScrollArea}>
             <nav>
               {SCREEN_GROUPS.map((group) => {
                 const entries = screens.filter((s) => s.group === group.key);
                 if (entries.length === 0) return null;
                 return (
-                  <Box
-                    key={group.key}
-                    mb="xs"
-                    role="group"
-                    aria-label={group.label}
-                  >
+                  <Box key={group.key} mb="xs" role="group" aria-label={group.label}>
                     <div className={classes.groupLabel}>{group.label}</div>
                     {entries.map((screen) => {
                       const Icon = ICONS[screen.key as ScreenKey];
-                      const active =
-                        location.pathname === screen.path ||
-                        location.pathname.startsWith(`${screen.path}/`);
+                      const active = location.pathname === screen.path || location.pathname.startsWith(`${screen.path}/`);
                       return (
                         <NavLink
                           key={screen.key}
@@ -155,7 +112,7 @@ function SignedInShell() {
                           to={screen.path}
                           label={screen.label}
                           active={active}
-                          aria-current={active ? "page" : undefined}
+                          aria-current={active ? 'page' : undefined}
                           className={classes.link}
                           leftSection={<Icon size={18} stroke={1.6} />}
                         />

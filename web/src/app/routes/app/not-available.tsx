@@ -13,8 +13,7 @@ export function NotAvailable({ screen, role }: { screen: Screen; role: Role }) {
       <PageHeader title={screen.label} />
       <Alert color="orange" icon={<IconLock size={18} />} title="Not available for your role" role="alert">
         <Text fz="sm">
-          {screen.label} is open to: {who}. You are signed in as {roleLabel(role)}. Ask an administrator if your work
-          needs it.
+          {screen.label} is open to: {who}. You are signed in as {roleLabel(role)}. Ask an administrator if your work needs it.
         </Text>
         <Text fz="sm" mt="xs">
           <Anchor component={Link} to={homePathFor(role)}>

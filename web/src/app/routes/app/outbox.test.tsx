@@ -29,10 +29,7 @@ describe('Outbox screen', () => {
     mockApi({ 'GET /api/auth/me': { body: DEMO_USERS.admin }, 'GET /api/outbox': { body: mails } });
     renderApp('/outbox');
     const articles = await screen.findAllByRole('article');
-    expect(articles.map((a) => a.getAttribute('aria-label'))).toEqual([
-      'Source cleared: HP-1047',
-      'You are invited to Shuntwise',
-    ]);
+    expect(articles.map((a) => a.getAttribute('aria-label'))).toEqual(['Source cleared: HP-1047', 'You are invited to Shuntwise']);
     expect(within(articles[0]).getByText('buyer@demo.test, purchasing@demo.test')).toBeInTheDocument();
     const link = within(articles[1]).getByRole('link', { name: /\/invitation\// });
     expect(link).toHaveAttribute('href', 'http://127.0.0.1:8080/invitation/abcdefghijklmnopqrstuvwx');

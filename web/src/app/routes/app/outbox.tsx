@@ -13,12 +13,7 @@ export function OutboxRoute() {
         title="Outbox"
         description="Mail the local mail catcher received, newest first. Nothing here left this machine."
         actions={
-          <Button
-            variant="default"
-            leftSection={<IconRefresh size={16} />}
-            loading={outbox.isFetching}
-            onClick={() => outbox.refetch()}
-          >
+          <Button variant="default" leftSection={<IconRefresh size={16} />} loading={outbox.isFetching} onClick={() => outbox.refetch()}>
             Refresh
           </Button>
         }

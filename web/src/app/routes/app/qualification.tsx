@@ -10,7 +10,12 @@ function CaseMeasurements({ id }: { id: number }) {
   const role = useSession()?.user.role;
   const q = useQualification(id);
   if (!q.data || (role !== 'engineer' && role !== 'admin')) return null;
-  return <MeasuredEvidence housePartId={q.data.housePart.id} sources={[{ vendorPartId: q.data.vendorPart.id, label: `${q.data.vendorPart.manufacturer} ${q.data.vendorPart.mpn}` }]} />;
+  return (
+    <MeasuredEvidence
+      housePartId={q.data.housePart.id}
+      sources={[{ vendorPartId: q.data.vendorPart.id, label: `${q.data.vendorPart.manufacturer} ${q.data.vendorPart.mpn}` }]}
+    />
+  );
 }
 
 export function QualificationRoute() {
@@ -18,7 +23,10 @@ export function QualificationRoute() {
   if (!Number.isInteger(id) || id <= 0) {
     return (
       <Alert color="red" role="alert" title="Not a case">
-        The address does not name a qualification case. <Anchor component={Link} to="/qualifications">Go to the list</Anchor>
+        The address does not name a qualification case.{' '}
+        <Anchor component={Link} to="/qualifications">
+          Go to the list
+        </Anchor>
       </Alert>
     );
   }

@@ -4,7 +4,10 @@ import { QualificationsTable } from '@/features/qualifications/components/qualif
 export function QualificationsRoute() {
   return (
     <>
-      <PageHeader title="Qualifications" description="Second-source cases: each a vendor part checked against a house part's spec, signed off by a second engineer." />
+      <PageHeader
+        title="Qualifications"
+        description="Second-source cases: each a vendor part checked against a house part's spec, signed off by a second engineer."
+      />
       <QualificationsTable />
     </>
   );

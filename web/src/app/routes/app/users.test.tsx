@@ -5,15 +5,50 @@ import { errorBody, mockApi } from '@/testing/mock-api';
 import { DEMO_USERS, renderApp, signInAs } from '@/testing/render';
 
 const users: User[] = [
-  { id: 1, email: 'admin@demo.test', name: 'Ilse Brandauer', role: 'admin', active: true, createdAt: '2026-11-01T09:00:00.000Z', lastLoginAt: '2026-12-01T08:00:00.000Z' },
+  {
+    id: 1,
+    email: 'admin@demo.test',
+    name: 'Ilse Brandauer',
+    role: 'admin',
+    active: true,
+    createdAt: '2026-11-01T09:00:00.000Z',
+    lastLoginAt: '2026-12-01T08:00:00.000Z',
+  },
   { id: 2, email: 'engineer@demo.test', name: 'Tomas Verhoef', role: 'engineer', active: true, createdAt: '2026-11-01T09:00:00.000Z', lastLoginAt: null },
   { id: 6, email: 'pia@demo.test', name: 'Pia Lindqvist', role: 'buyer', active: false, createdAt: '2026-11-03T09:00:00.000Z', lastLoginAt: null },
 ];
 
 const invitations: Invitation[] = [
-  { id: 11, email: 'oskar@demo.test', name: 'Oskar Benitez', role: 'designer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2026-11-30T10:00:00.000Z' },
-  { id: 10, email: 'old@demo.test', name: 'Mara Old', role: 'buyer', expiresAt: '2026-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2025-12-25T10:00:00.000Z' },
-  { id: 9, email: 'done@demo.test', name: 'Done Already', role: 'engineer', expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: '2026-11-02T10:00:00.000Z', revokedAt: null, createdAt: '2026-11-01T10:00:00.000Z' },
+  {
+    id: 11,
+    email: 'oskar@demo.test',
+    name: 'Oskar Benitez',
+    role: 'designer',
+    expiresAt: '2099-01-01T00:00:00.000Z',
+    acceptedAt: null,
+    revokedAt: null,
+    createdAt: '2026-11-30T10:00:00.000Z',
+  },
+  {
+    id: 10,
+    email: 'old@demo.test',
+    name: 'Mara Old',
+    role: 'buyer',
+    expiresAt: '2026-01-01T00:00:00.000Z',
+    acceptedAt: null,
+    revokedAt: null,
+    createdAt: '2025-12-25T10:00:00.000Z',
+  },
+  {
+    id: 9,
+    email: 'done@demo.test',
+    name: 'Done Already',
+    role: 'engineer',
+    expiresAt: '2099-01-01T00:00:00.000Z',
+    acceptedAt: '2026-11-02T10:00:00.000Z',
+    revokedAt: null,
+    createdAt: '2026-11-01T10:00:00.000Z',
+  },
 ];
 
 function usersApi(overrides: Parameters<typeof mockApi>[0] = {}) {
@@ -26,10 +61,21 @@ function usersApi(overrides: Parameters<typeof mockApi>[0] = {}) {
     }),
     'POST /api/users/invitations': (call) => ({
       status: 201,
-      body: { id: 12, ...(call.body as object), expiresAt: '2099-01-01T00:00:00.000Z', acceptedAt: null, revokedAt: null, createdAt: '2026-12-01T10:00:00.000Z' },
+      body: {
+        id: 12,
+        ...(call.body as object),
+        expiresAt: '2099-01-01T00:00:00.000Z',
+        acceptedAt: null,
+        revokedAt: null,
+        createdAt: '2026-12-01T10:00:00.000Z',
+      },
     }),
-    'POST /api/users/invitations/:id/resend': (_call, params) => ({ body: { ...invitations.find((i) => i.id === Number(params.id))!, expiresAt: '2099-02-01T00:00:00.000Z' } }),
-    'POST /api/users/invitations/:id/revoke': (_call, params) => ({ body: { ...invitations.find((i) => i.id === Number(params.id))!, revokedAt: '2026-12-04T08:00:00.000Z' } }),
+    'POST /api/users/invitations/:id/resend': (_call, params) => ({
+      body: { ...invitations.find((i) => i.id === Number(params.id))!, expiresAt: '2099-02-01T00:00:00.000Z' },
+    }),
+    'POST /api/users/invitations/:id/revoke': (_call, params) => ({
+      body: { ...invitations.find((i) => i.id === Number(params.id))!, revokedAt: '2026-12-04T08:00:00.000Z' },
+    }),
     ...overrides,
   });
 }

@@ -33,7 +33,19 @@ function defaultDatasheet(part: VendorPartDetail, card: RatingCardView | undefin
   return newest?.id ?? best?.[0] ?? null;
 }
 
-function DatasheetPane({ part, datasheetId, onSelect, target, onUploaded }: { part: VendorPartDetail; datasheetId: number | null; onSelect: (id: number) => void; target: ViewerTarget | null; onUploaded: (id: number) => void }) {
+function DatasheetPane({
+  part,
+  datasheetId,
+  onSelect,
+  target,
+  onUploaded,
+}: {
+  part: VendorPartDetail;
+  datasheetId: number | null;
+  onSelect: (id: number) => void;
+  target: ViewerTarget | null;
+  onUploaded: (id: number) => void;
+}) {
   const [adding, { toggle, open: keepUploadOpen }] = useDisclosure(false);
   const linked = part.datasheets.find((d) => d.id === datasheetId);
   // A value may point at a datasheet this part is not linked to: read its name.
@@ -119,7 +131,10 @@ export function VendorPartRoute() {
   if (!valid) {
     return (
       <Alert color="red" role="alert" title="Not a vendor part">
-        The address does not name a vendor part. <Anchor component={Link} to="/vendor-parts">Go to the list</Anchor>
+        The address does not name a vendor part.{' '}
+        <Anchor component={Link} to="/vendor-parts">
+          Go to the list
+        </Anchor>
       </Alert>
     );
   }
@@ -133,7 +148,10 @@ export function VendorPartRoute() {
   if (part.isError || card.isError) {
     return (
       <Alert color="red" role="alert" title="The vendor part could not be loaded">
-        {describeError(part.error ?? card.error)} <Anchor component={Link} to="/vendor-parts">Back to the list</Anchor>
+        {describeError(part.error ?? card.error)}{' '}
+        <Anchor component={Link} to="/vendor-parts">
+          Back to the list
+        </Anchor>
       </Alert>
     );
   }
@@ -150,7 +168,14 @@ export function VendorPartRoute() {
               {p.lifecycleNote ? ` · ${p.lifecycleNote}` : ''}
             </span>
             {p.sourceOf.map((s) => (
-              <Badge key={s.housePartId} size="sm" color={s.role === 'approved' ? 'verdigris' : 'copper'} component={Link} to={`/house-parts/${s.housePartId}`} style={{ cursor: 'pointer' }}>
+              <Badge
+                key={s.housePartId}
+                size="sm"
+                color={s.role === 'approved' ? 'verdigris' : 'copper'}
+                component={Link}
+                to={`/house-parts/${s.housePartId}`}
+                style={{ cursor: 'pointer' }}
+              >
                 {s.role} source of {s.partNumber}
               </Badge>
             ))}

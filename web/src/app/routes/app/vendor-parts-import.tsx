@@ -12,8 +12,10 @@ export function VendorPartsImportRoute() {
         title="Import a vendor series"
         description={
           <>
-            A CSV with one row per part. The preview shows what each row would do and every cell that does not read; nothing is
-            written until you import. <Anchor component={Link} to="/vendor-parts" fz="sm">Back to vendor parts</Anchor>
+            A CSV with one row per part. The preview shows what each row would do and every cell that does not read; nothing is written until you import.{' '}
+            <Anchor component={Link} to="/vendor-parts" fz="sm">
+              Back to vendor parts
+            </Anchor>
           </>
         }
       />

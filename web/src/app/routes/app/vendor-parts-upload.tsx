@@ -20,7 +20,9 @@ function ReviewPanel({ result, manufacturers }: { result: UploadDatasheetRespons
       <Button size="compact-sm" variant={open ? 'subtle' : 'light'} leftSection={<IconTable size={14} />} onClick={() => setOpen((o) => !o)} w="fit-content">
         {open ? 'Hide the review' : `Review ${variants.length} part${variants.length === 1 ? '' : 's'} and create them`}
       </Button>
-      <Collapse in={open}>{open && <SeriesReview datasheetId={result.id} fileName={result.fileName} variants={variants} manufacturers={manufacturers} />}</Collapse>
+      <Collapse in={open}>
+        {open && <SeriesReview datasheetId={result.id} fileName={result.fileName} variants={variants} manufacturers={manufacturers} />}
+      </Collapse>
     </Stack>
   );
 }
@@ -34,8 +36,10 @@ export function VendorPartsUploadRoute() {
         title="Upload datasheets"
         description={
           <>
-            Drop one or many vendor PDFs. Each is stored once, read for ratings with their pages, and its parts can be reviewed
-            and created in one go. <Anchor component={Link} to="/vendor-parts" fz="sm">Back to vendor parts</Anchor>
+            Drop one or many vendor PDFs. Each is stored once, read for ratings with their pages, and its parts can be reviewed and created in one go.{' '}
+            <Anchor component={Link} to="/vendor-parts" fz="sm">
+              Back to vendor parts
+            </Anchor>
           </>
         }
       />

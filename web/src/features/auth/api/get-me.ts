@@ -7,8 +7,7 @@ export function getMe(signal?: AbortSignal): Promise<UserSummary> {
   return apiRequest('/auth/me', { schema: userSummarySchema, signal });
 }
 
-export const meQueryOptions = () =>
-  queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
 
 export function useMe(enabled = true) {
   return useQuery({ ...meQueryOptions(), enabled });

@@ -66,12 +66,7 @@ export function AcceptInvitationForm({
           key={form.key('password')}
           {...form.getInputProps('password')}
         />
-        <PasswordInput
-          label="Password again"
-          autoComplete="new-password"
-          key={form.key('confirm')}
-          {...form.getInputProps('confirm')}
-        />
+        <PasswordInput label="Password again" autoComplete="new-password" key={form.key('confirm')} {...form.getInputProps('confirm')} />
         <Button type="submit" loading={accept.isPending} fullWidth mt="xs">
           Set password and sign in
         </Button>

@@ -8,8 +8,7 @@ import { useSignIn } from '../api/login';
 
 function signInErrorText(error: unknown): string {
   if (error instanceof ApiError && error.status === 401) return 'That e-mail and password do not match an active account.';
-  if (error instanceof ApiError && error.status === 429)
-    return 'Too many sign-in attempts from here. Wait a minute, then try again.';
+  if (error instanceof ApiError && error.status === 429) return 'Too many sign-in attempts from here. Wait a minute, then try again.';
   return describeError(error);
 }
 
@@ -34,20 +33,8 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (session: LoginResponse
             {signInErrorText(error)}
           </Alert>
         )}
-        <TextInput
-          label="E-mail"
-          type="email"
-          autoComplete="username"
-          autoFocus
-          key={form.key('email')}
-          {...form.getInputProps('email')}
-        />
-        <PasswordInput
-          label="Password"
-          autoComplete="current-password"
-          key={form.key('password')}
-          {...form.getInputProps('password')}
-        />
+        <TextInput label="E-mail" type="email" autoComplete="username" autoFocus key={form.key('email')} {...form.getInputProps('email')} />
+        <PasswordInput label="Password" autoComplete="current-password" key={form.key('password')} {...form.getInputProps('password')} />
         <Button type="submit" loading={pending} fullWidth mt="xs">
           Sign in
         </Button>

@@ -101,8 +101,25 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
       <Paper p="xs">
         <Stack gap="xs">
           <Group gap="sm" align="flex-end" role="search" aria-label="Filter the board" wrap="wrap">
-            <TextInput size="xs" w={220} label="House part" placeholder="number or description" leftSection={<IconSearch size={14} />} value={qText} onChange={(e) => setQText(e.currentTarget.value)} />
-            <MultiSelect size="xs" w={300} label="State" placeholder={states.length ? undefined : 'any'} data={STATE_OPTIONS} value={states} onChange={(v) => set({ state: v.join(',') })} clearable />
+            <TextInput
+              size="xs"
+              w={220}
+              label="House part"
+              placeholder="number or description"
+              leftSection={<IconSearch size={14} />}
+              value={qText}
+              onChange={(e) => setQText(e.currentTarget.value)}
+            />
+            <MultiSelect
+              size="xs"
+              w={300}
+              label="State"
+              placeholder={states.length ? undefined : 'any'}
+              data={STATE_OPTIONS}
+              value={states}
+              onChange={(v) => set({ state: v.join(',') })}
+              clearable
+            />
             <Select
               size="xs"
               w={200}
@@ -117,7 +134,11 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
               size="xs"
               w={150}
               label="Unchanged for at least"
-              rightSection={<Text fz="xs" c="dimmed">days</Text>}
+              rightSection={
+                <Text fz="xs" c="dimmed">
+                  days
+                </Text>
+              }
               rightSectionWidth={40}
               min={0}
               max={36500}
@@ -236,7 +257,13 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
                           {i === 0 && head}
                           <Table.Td>
                             <Group gap={6} wrap="nowrap">
-                              <Anchor component={Link} to={`/vendor-parts/${s.vendorPart.id}`} fz="sm" fw={s.role === 'approved' ? 600 : 400} style={{ whiteSpace: 'nowrap' }}>
+                              <Anchor
+                                component={Link}
+                                to={`/vendor-parts/${s.vendorPart.id}`}
+                                fz="sm"
+                                fw={s.role === 'approved' ? 600 : 400}
+                                style={{ whiteSpace: 'nowrap' }}
+                              >
                                 {s.vendorPart.mpn}
                               </Anchor>
                               {s.role === 'approved' && (
@@ -261,7 +288,15 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
                               )}
                             </Group>
                           </Table.Td>
-                          <Table.Td>{c ? <VerdictBadge verdict={c.overall} size="xs" /> : <Text fz="xs" c="dimmed">–</Text>}</Table.Td>
+                          <Table.Td>
+                            {c ? (
+                              <VerdictBadge verdict={c.overall} size="xs" />
+                            ) : (
+                              <Text fz="xs" c="dimmed">
+                                –
+                              </Text>
+                            )}
+                          </Table.Td>
                           <Table.Td>
                             {c ? (
                               <Anchor component={Link} to={`/qualifications/${c.id}`} fz="sm">
@@ -275,7 +310,11 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
                             )}
                           </Table.Td>
                           <Table.Td>
-                            <Text fz="xs" style={{ whiteSpace: 'nowrap' }} title={c ? `prepared by ${c.preparedBy.name}${c.decidedBy ? `, decided by ${c.decidedBy.name}` : ''}` : undefined}>
+                            <Text
+                              fz="xs"
+                              style={{ whiteSpace: 'nowrap' }}
+                              title={c ? `prepared by ${c.preparedBy.name}${c.decidedBy ? `, decided by ${c.decidedBy.name}` : ''}` : undefined}
+                            >
                               {c ? `${c.preparedBy.name}${c.decidedBy ? ` → ${c.decidedBy.name}` : ''}` : '–'}
                             </Text>
                           </Table.Td>
@@ -300,7 +339,14 @@ export function BoardTable({ renderSourceAction }: BoardTableProps) {
           <Text fz="xs" c="dimmed">
             {board.data.total} house parts
           </Text>
-          <Pagination size="sm" total={pages} value={page + 1} onChange={(p) => list.onPaginationChange({ pageIndex: p - 1, pageSize: PAGE_SIZE })} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
+          <Pagination
+            size="sm"
+            total={pages}
+            value={page + 1}
+            onChange={(p) => list.onPaginationChange({ pageIndex: p - 1, pageSize: PAGE_SIZE })}
+            getControlProps={(control) => ({ 'aria-label': `${control} page` })}
+            getItemProps={(p) => ({ 'aria-label': `Page ${p}` })}
+          />
         </Group>
       )}
     </Stack>

@@ -1,11 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import {
-  csvImportPreviewSchema,
-  csvImportResultSchema,
-  type CsvImportPreview,
-  type CsvImportRequest,
-  type CsvImportResult,
-} from '@shuntwise/contracts';
+import { csvImportPreviewSchema, csvImportResultSchema, type CsvImportPreview, type CsvImportRequest, type CsvImportResult } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
 import { invalidateKeys, staleAfter } from '@/lib/query-keys';
 

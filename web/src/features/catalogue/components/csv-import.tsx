@@ -180,8 +180,7 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
             </Alert>
           )}
           <Text fz="xs" c="dimmed">
-            Columns read as:{' '}
-            {shown.columns.map((c) => `${c.header} → ${c.field ?? 'not used'}${c.unit ? ` (${c.unit})` : ''}`).join(' · ')}
+            Columns read as: {shown.columns.map((c) => `${c.header} → ${c.field ?? 'not used'}${c.unit ? ` (${c.unit})` : ''}`).join(' · ')}
           </Text>
           <Table.ScrollContainer minWidth={600} maxHeight={560}>
             <Table stickyHeader aria-label="Import preview">
@@ -218,7 +217,12 @@ export function CsvImport({ manufacturers }: CsvImportProps) {
                       const v = row.values[f];
                       const columnError = row.errors.some((e) => shown.columns.find((c) => c.header === e.column)?.field === f);
                       return (
-                        <Table.Td key={f} style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }} c={columnError ? 'red' : undefined} title={v?.printed}>
+                        <Table.Td
+                          key={f}
+                          style={{ whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}
+                          c={columnError ? 'red' : undefined}
+                          title={v?.printed}
+                        >
                           {v ? formatCardValue(f as CardField, v.value, (v.unit as TempCoUnit | undefined) ?? null) : columnError ? '?' : ''}
                         </Table.Td>
                       );

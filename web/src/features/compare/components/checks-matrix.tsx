@@ -43,7 +43,9 @@ export function ChecksMatrix({ payload, renderSourceAction }: { payload: Compare
   const theme = useMantineTheme();
   const byId = payload.sources.map((s) => new Map((s.evaluation?.checks ?? []).map((c) => [c.id, c] as const)));
   const ids = CHECK_IDS.filter((id) => byId.some((m) => m.has(id)));
-  const skipped = new Map(payload.sources.flatMap((s) => (s.evaluation?.notApplicable ?? []).filter((n) => !ids.includes(n.id)).map((n) => [n.id, n.reason] as const)));
+  const skipped = new Map(
+    payload.sources.flatMap((s) => (s.evaluation?.notApplicable ?? []).filter((n) => !ids.includes(n.id)).map((n) => [n.id, n.reason] as const)),
+  );
   const limitOf = (id: CheckId): QualificationCheck | undefined => byId.map((m) => m.get(id)).find((c) => c !== undefined);
 
   return (

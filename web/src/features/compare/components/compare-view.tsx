@@ -16,8 +16,9 @@ function EnvelopeLine({ payload }: { payload: ComparePayload }) {
   return (
     <>
       Spec v{payload.specVersion}: <Quantity value={specWindow.min} kind="voltage" /> … <Quantity value={specWindow.max} kind="voltage" /> at{' '}
-      <Quantity value={specWindow.current} kind="current" />; operating <Quantity value={envelope.iMin} kind="current" /> … <Quantity value={envelope.iMax} kind="current" />,
-      ambient <Quantity value={envelope.taMin} kind="temperature" /> … <Quantity value={envelope.taMax} kind="temperature" />
+      <Quantity value={specWindow.current} kind="current" />; operating <Quantity value={envelope.iMin} kind="current" /> …{' '}
+      <Quantity value={envelope.iMax} kind="current" />, ambient <Quantity value={envelope.taMin} kind="temperature" /> …{' '}
+      <Quantity value={envelope.taMax} kind="temperature" />
     </>
   );
 }
@@ -26,7 +27,13 @@ function EnvelopeLine({ payload }: { payload: ComparePayload }) {
  * The approved source and the alternates of a house part side by side, each evaluated
  * now on the current spec and card: curves, worst-case windows and every check.
  */
-export function CompareView({ housePartId, renderSourceAction }: { housePartId: number; renderSourceAction?: (payload: ComparePayload, source: CompareSource) => ReactNode }) {
+export function CompareView({
+  housePartId,
+  renderSourceAction,
+}: {
+  housePartId: number;
+  renderSourceAction?: (payload: ComparePayload, source: CompareSource) => ReactNode;
+}) {
   const compare = useCompare(housePartId);
 
   if (compare.isPending) {

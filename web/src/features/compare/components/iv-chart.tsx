@@ -1,7 +1,20 @@
 import { useMemo, useState } from 'react';
 import { Box, Checkbox, Chip, ColorSwatch, Group, Paper, SegmentedControl, Stack, Switch, Text, Title, getThemeColor, useMantineTheme } from '@mantine/core';
 import { formatQuantity, type ComparePayload } from '@shuntwise/contracts';
-import { Area, CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis, type TooltipProps } from 'recharts';
+import {
+  Area,
+  CartesianGrid,
+  ComposedChart,
+  Line,
+  ReferenceArea,
+  ReferenceDot,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+  type TooltipProps,
+} from 'recharts';
 import { bandKey, curveRows, dashFor, logTicks, niceTicks, seriesKey, shortQuantity, SOURCE_COLORS } from '../utils/series';
 
 /** The two ways the curves are drawn: current on a log axis (x), or the diode's I–V as usually drawn, voltage on x and current linear on y. */
@@ -59,7 +72,13 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
     color,
     dash: dashFor(tempC),
   }));
-  const bands = tolerance ? shown.map(({ d, tempC, t, color }) => ({ key: bandKey(d.index, t), name: `${d.source.vendorPart.mpn} ${formatQuantity(tempC, 'temperature', { trim: true })} tolerance band`, color })) : [];
+  const bands = tolerance
+    ? shown.map(({ d, tempC, t, color }) => ({
+        key: bandKey(d.index, t),
+        name: `${d.source.vendorPart.mpn} ${formatQuantity(tempC, 'temperature', { trim: true })} tolerance band`,
+        color,
+      }))
+    : [];
   const names = Object.fromEntries(lines.map((l) => [l.key, l.name]));
 
   const iLow = payload.currents[0];
@@ -151,7 +170,8 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
             />
           ))}
           <Text fz="xs" c="dimmed">
-            solid 25 °C · dashed colder · dotted hotter · {tolerance ? 'coloured shading: tolerance band · ' : ''}grey shading: operating currents · bar: spec window at iRef
+            solid 25 °C · dashed colder · dotted hotter · {tolerance ? 'coloured shading: tolerance band · ' : ''}grey shading: operating currents · bar: spec
+            window at iRef
           </Text>
         </Group>
         {drawable.length === 0 ? (
@@ -173,10 +193,20 @@ export function IvChart({ payload }: { payload: ComparePayload }) {
                   width={64}
                   label={linear ? { value: 'current (linear)', angle: -90, position: 'insideLeft', offset: 4, fontSize: 11 } : undefined}
                 />
-                <ReferenceArea {...(linear ? { y1: iMin, y2: iMax } : { x1: iMin, x2: iMax })} fill="var(--mantine-color-gray-5)" fillOpacity={0.12} ifOverflow="hidden" />
+                <ReferenceArea
+                  {...(linear ? { y1: iMin, y2: iMax } : { x1: iMin, x2: iMax })}
+                  fill="var(--mantine-color-gray-5)"
+                  fillOpacity={0.12}
+                  ifOverflow="hidden"
+                />
                 <ReferenceArea
                   {...(linear
-                    ? { y1: iRef - linearCurrent.domain[1] * 0.01, y2: iRef + linearCurrent.domain[1] * 0.01, x1: payload.specWindow.min, x2: payload.specWindow.max }
+                    ? {
+                        y1: iRef - linearCurrent.domain[1] * 0.01,
+                        y2: iRef + linearCurrent.domain[1] * 0.01,
+                        x1: payload.specWindow.min,
+                        x2: payload.specWindow.max,
+                      }
                     : { x1: iRef / 1.06, x2: iRef * 1.06, y1: payload.specWindow.min, y2: payload.specWindow.max })}
                   fill="var(--mantine-color-red-5)"
                   fillOpacity={0.25}

@@ -32,12 +32,14 @@ export function WindowBand({ payload }: { payload: ComparePayload }) {
           <Text fz="xs" c="dimmed">
             {payload.outputWindow ? (
               <>
-                shaded: the spec&apos;s output window <Quantity value={payload.outputWindow.vMin} kind="voltage" /> … <Quantity value={payload.outputWindow.vMax} kind="voltage" /> ·{' '}
+                shaded: the spec&apos;s output window <Quantity value={payload.outputWindow.vMin} kind="voltage" /> …{' '}
+                <Quantity value={payload.outputWindow.vMax} kind="voltage" /> ·{' '}
               </>
             ) : (
               'the spec sets no output window · '
             )}
-            dashed: Zener-voltage window at iRef <Quantity value={payload.specWindow.min} kind="voltage" /> … <Quantity value={payload.specWindow.max} kind="voltage" />
+            dashed: Zener-voltage window at iRef <Quantity value={payload.specWindow.min} kind="voltage" /> …{' '}
+            <Quantity value={payload.specWindow.max} kind="voltage" />
           </Text>
         </Group>
         <Stack gap={6}>
@@ -50,12 +52,22 @@ export function WindowBand({ payload }: { payload: ComparePayload }) {
                 </Text>
                 <Box pos="relative" h={22} style={{ flex: 1, borderRadius: 4, background: 'var(--mantine-color-default-hover)' }}>
                   {payload.outputWindow && (
-                    <Box pos="absolute" top={0} bottom={0} left={pct(payload.outputWindow.vMin)} w={width(payload.outputWindow.vMin, payload.outputWindow.vMax)} bg="verdigris.1" style={{ opacity: 0.9 }} />
+                    <Box
+                      pos="absolute"
+                      top={0}
+                      bottom={0}
+                      left={pct(payload.outputWindow.vMin)}
+                      w={width(payload.outputWindow.vMin, payload.outputWindow.vMax)}
+                      bg="verdigris.1"
+                      style={{ opacity: 0.9 }}
+                    />
                   )}
                   <Box pos="absolute" top={0} bottom={0} left={pct(payload.specWindow.min)} style={{ borderLeft: '1px dashed var(--mantine-color-red-7)' }} />
                   <Box pos="absolute" top={0} bottom={0} left={pct(payload.specWindow.max)} style={{ borderLeft: '1px dashed var(--mantine-color-red-7)' }} />
                   {r.w ? (
-                    <Tooltip label={`${shortQuantity(r.w.vMin, 'voltage')} at ${shortQuantity(r.w.atMin.current, 'current')}, ${formatQuantity(r.w.atMin.taC, 'temperature')} ambient, ${r.w.atMin.corner} part · ${shortQuantity(r.w.vMax, 'voltage')} at ${shortQuantity(r.w.atMax.current, 'current')}, ${formatQuantity(r.w.atMax.taC, 'temperature')} ambient, ${r.w.atMax.corner} part`}>
+                    <Tooltip
+                      label={`${shortQuantity(r.w.vMin, 'voltage')} at ${shortQuantity(r.w.atMin.current, 'current')}, ${formatQuantity(r.w.atMin.taC, 'temperature')} ambient, ${r.w.atMin.corner} part · ${shortQuantity(r.w.vMax, 'voltage')} at ${shortQuantity(r.w.atMax.current, 'current')}, ${formatQuantity(r.w.atMax.taC, 'temperature')} ambient, ${r.w.atMax.corner} part`}
+                    >
                       <Box
                         pos="absolute"
                         top={5}

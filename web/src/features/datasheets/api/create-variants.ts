@@ -19,9 +19,6 @@ export function useCreateVariants() {
     mutationFn: createVariants,
     // New vendor parts and cards: every list that shows them is stale.
     onSuccess: (_result, { datasheetId }) =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: datasheetKeys.detail(datasheetId) }),
-        invalidateKeys(queryClient, staleAfter.vendorPartsAdded()),
-      ]),
+      Promise.all([queryClient.invalidateQueries({ queryKey: datasheetKeys.detail(datasheetId) }), invalidateKeys(queryClient, staleAfter.vendorPartsAdded())]),
   });
 }

@@ -7,8 +7,7 @@ export function getDatasheet(id: number, signal?: AbortSignal): Promise<Datashee
   return apiRequest(`/datasheets/${id}`, { schema: datasheetSchema, signal });
 }
 
-export const datasheetQueryOptions = (id: number) =>
-  queryOptions({ queryKey: datasheetKeys.detail(id), queryFn: ({ signal }) => getDatasheet(id, signal) });
+export const datasheetQueryOptions = (id: number) => queryOptions({ queryKey: datasheetKeys.detail(id), queryFn: ({ signal }) => getDatasheet(id, signal) });
 
 export function useDatasheet(id: number | null) {
   return useQuery({ ...datasheetQueryOptions(id ?? 0), enabled: id !== null });

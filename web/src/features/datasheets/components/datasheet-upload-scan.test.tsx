@@ -24,10 +24,23 @@ describe('DatasheetUpload of scans', () => {
     mockApi({ 'GET /api/datasheets/:id/extraction': { body: extraction } });
     mockXhr((call) => {
       const file = call.form!.get('file') as File;
-      return { status: 201, body: { id: 13, sha256: 'cd', pages: extraction.pages, sizeBytes: file.size, fileName: file.name, createdAt: '2026-12-01T10:00:00.000Z', existing: false } };
+      return {
+        status: 201,
+        body: {
+          id: 13,
+          sha256: 'cd',
+          pages: extraction.pages,
+          sizeBytes: file.size,
+          fileName: file.name,
+          createdAt: '2026-12-01T10:00:00.000Z',
+          existing: false,
+        },
+      };
     });
     const { user } = render(<DatasheetUpload vendorPartId={41} onUploaded={() => undefined} />);
-    await user.upload(document.querySelector('input[type="file"]') as HTMLInputElement, [new File([new Uint8Array(2048)], 'scan.pdf', { type: 'application/pdf' })]);
+    await user.upload(document.querySelector('input[type="file"]') as HTMLInputElement, [
+      new File([new Uint8Array(2048)], 'scan.pdf', { type: 'application/pdf' }),
+    ]);
     const item = () => screen.getByRole('listitem', { name: 'Upload of scan.pdf' });
     await waitFor(() => expect(item()).toHaveAttribute('data-status', 'done'));
     expect(await within(item()).findByTestId('extraction-summary')).toHaveTextContent(summary);

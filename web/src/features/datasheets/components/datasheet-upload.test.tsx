@@ -33,10 +33,16 @@ describe('DatasheetUpload', () => {
       if (file.name === 'renamed-image.pdf') {
         return {
           status: 415,
-          body: { message: 'The file is not a PDF: it does not start with the PDF signature (%PDF-). It looks like a PNG image.', correlationId: 'c0ffee00-test' },
+          body: {
+            message: 'The file is not a PDF: it does not start with the PDF signature (%PDF-). It looks like a PNG image.',
+            correlationId: 'c0ffee00-test',
+          },
         };
       }
-      return { status: 201, body: { id: 12, sha256: 'ab', pages: 2, sizeBytes: file.size, fileName: file.name, createdAt: '2026-12-01T10:00:00.000Z', existing: false } };
+      return {
+        status: 201,
+        body: { id: 12, sha256: 'ab', pages: 2, sizeBytes: file.size, fileName: file.name, createdAt: '2026-12-01T10:00:00.000Z', existing: false },
+      };
     });
     const onUploaded = vi.fn();
     const { user } = render(<DatasheetUpload vendorPartId={41} onUploaded={onUploaded} />);
@@ -54,7 +60,9 @@ describe('DatasheetUpload', () => {
     expect(within(good()).getByText(/zzt "n\/a" could not be read/)).toBeInTheDocument();
 
     await waitFor(() => expect(bad()).toHaveAttribute('data-status', 'failed'));
-    expect(within(bad()).getByRole('alert')).toHaveTextContent('The file is not a PDF: it does not start with the PDF signature (%PDF-). It looks like a PNG image. (ref. c0ffee00-test)');
+    expect(within(bad()).getByRole('alert')).toHaveTextContent(
+      'The file is not a PDF: it does not start with the PDF signature (%PDF-). It looks like a PNG image. (ref. c0ffee00-test)',
+    );
     expect(screen.getByText('1 of 2 files refused; the others are not affected.')).toBeInTheDocument();
 
     // Multipart with the token and the vendor part, one request per file.
@@ -75,7 +83,12 @@ describe('DatasheetUpload', () => {
     mockXhr(
       () =>
         new Promise((resolve) => {
-          release = () => resolve({ status: 200, body: { id: 4, sha256: 'cd', pages: 2, sizeBytes: 10, fileName: 'same.pdf', createdAt: '2026-12-01T10:00:00.000Z', existing: true }, progress: [0.25, 0.75] });
+          release = () =>
+            resolve({
+              status: 200,
+              body: { id: 4, sha256: 'cd', pages: 2, sizeBytes: 10, fileName: 'same.pdf', createdAt: '2026-12-01T10:00:00.000Z', existing: true },
+              progress: [0.25, 0.75],
+            });
         }),
     );
     const { user } = render(<DatasheetUpload />);

@@ -35,7 +35,13 @@ function sizeText(bytes: number): string {
 }
 
 /** What the API found in one uploaded datasheet. */
-function ExtractionSummary({ result, children }: { result: UploadDatasheetResponse; children?: (result: UploadDatasheetResponse, variantCount: number) => ReactNode }) {
+function ExtractionSummary({
+  result,
+  children,
+}: {
+  result: UploadDatasheetResponse;
+  children?: (result: UploadDatasheetResponse, variantCount: number) => ReactNode;
+}) {
   const extraction = useExtraction(result.id);
   if (extraction.isPending) return <Loader size="xs" aria-label="Reading what was found" />;
   if (extraction.isError) {
@@ -51,7 +57,8 @@ function ExtractionSummary({ result, children }: { result: UploadDatasheetRespon
     <Stack gap={4}>
       <Text fz="xs" data-testid="extraction-summary">
         {result.existing ? 'Already stored (same file): ' : ''}
-        {result.pages} page{result.pages === 1 ? '' : 's'} · {hasText
+        {result.pages} page{result.pages === 1 ? '' : 's'} ·{' '}
+        {hasText
           ? `${variants.length} part${variants.length === 1 ? '' : 's'} found, ${fields} values`
           : variants.length > 0
             ? `a scan read by OCR: ${variants.length} part${variants.length === 1 ? '' : 's'}, ${fields} value${fields === 1 ? '' : 's'} to check against the page`
@@ -222,7 +229,9 @@ export function DatasheetUpload({ vendorPartId, multiple = true, onUploaded, ren
             <IconFileTypePdf size={compact ? 24 : 36} color="var(--mantine-color-dimmed)" />
           </Dropzone.Idle>
           <Stack gap={2}>
-            <Text fz={compact ? 'sm' : 'md'}>{multiple ? 'Drop datasheet PDFs here, or click to choose' : 'Drop the datasheet PDF here, or click to choose'}</Text>
+            <Text fz={compact ? 'sm' : 'md'}>
+              {multiple ? 'Drop datasheet PDFs here, or click to choose' : 'Drop the datasheet PDF here, or click to choose'}
+            </Text>
             <Text fz="xs" c="dimmed">
               Text PDFs are read for ratings on upload; a file already stored is not stored twice.
             </Text>

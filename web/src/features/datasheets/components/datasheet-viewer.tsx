@@ -220,7 +220,13 @@ export function DatasheetViewer({ datasheetId, fileName, target, height = '70vh'
             {Math.round(ZOOMS[zoomIndex] * 100)} %
           </Text>
           <Tooltip label="Larger">
-            <ActionIcon variant="subtle" color="gray" onClick={() => setZoomIndex((z) => Math.min(ZOOMS.length - 1, z + 1))} disabled={zoomIndex === ZOOMS.length - 1} aria-label="Zoom in">
+            <ActionIcon
+              variant="subtle"
+              color="gray"
+              onClick={() => setZoomIndex((z) => Math.min(ZOOMS.length - 1, z + 1))}
+              disabled={zoomIndex === ZOOMS.length - 1}
+              aria-label="Zoom in"
+            >
               <IconZoomIn size={16} />
             </ActionIcon>
           </Tooltip>
@@ -231,7 +237,15 @@ export function DatasheetViewer({ datasheetId, fileName, target, height = '70vh'
           Page {target?.page}: the printed text was not found in the page&apos;s text layer; look for “{target?.text}”.
         </Text>
       )}
-      <div ref={frameRef} className={classes.frame} style={{ height }} tabIndex={0} onKeyDown={onKeyDown} aria-label={`Datasheet ${fileName}, page ${pageNumber} of ${pages}`} role="region">
+      <div
+        ref={frameRef}
+        className={classes.frame}
+        style={{ height }}
+        tabIndex={0}
+        onKeyDown={onKeyDown}
+        aria-label={`Datasheet ${fileName}, page ${pageNumber} of ${pages}`}
+        role="region"
+      >
         {failure != null ? (
           <Alert color="red" role="alert" title="The datasheet cannot be shown">
             {describeError(failure)}

@@ -164,8 +164,7 @@ export function SeriesReview({ datasheetId, fileName, variants, manufacturers, o
           withAsterisk
         />
         <Text fz="xs" c="dimmed" style={{ flex: 1 }}>
-          {selected.length} of {rows.length} parts chosen. Values come from the datasheet; edit any of them — an edited value is
-          recorded as entered.
+          {selected.length} of {rows.length} parts chosen. Values come from the datasheet; edit any of them — an edited value is recorded as entered.
         </Text>
         <Button size="xs" onClick={submit} loading={create.isPending} disabled={selected.length === 0}>
           Create {selected.length} vendor part{selected.length === 1 ? '' : 's'} with cards
@@ -173,8 +172,7 @@ export function SeriesReview({ datasheetId, fileName, variants, manufacturers, o
       </Group>
       {tried && selectedWithProblems > 0 && (
         <Alert color="red" p="xs" role="alert">
-          {selectedWithProblems} chosen row{selectedWithProblems === 1 ? ' needs' : 's need'} attention (marked in red). Fix or unselect
-          them.
+          {selectedWithProblems} chosen row{selectedWithProblems === 1 ? ' needs' : 's need'} attention (marked in red). Fix or unselect them.
         </Alert>
       )}
       {create.isError && (
@@ -222,16 +220,29 @@ export function SeriesReview({ datasheetId, fileName, variants, manufacturers, o
                     />
                   </Table.Td>
                   <Table.Td>
-                    <TextInput size="xs" w={130} aria-label={`Part number of row ${index + 1}`} value={row.mpn} error={cellError('mpn')} onChange={(e) => {
-                      const mpn = e.currentTarget.value;
-                      update(row.key, (r) => ({ ...r, mpn }));
-                    }} />
+                    <TextInput
+                      size="xs"
+                      w={130}
+                      aria-label={`Part number of row ${index + 1}`}
+                      value={row.mpn}
+                      error={cellError('mpn')}
+                      onChange={(e) => {
+                        const mpn = e.currentTarget.value;
+                        update(row.key, (r) => ({ ...r, mpn }));
+                      }}
+                    />
                   </Table.Td>
                   <Table.Td>
-                    <TextInput size="xs" w={90} aria-label={`Package of ${row.mpn}`} value={row.package} onChange={(e) => {
-                      const pkg = e.currentTarget.value;
-                      update(row.key, (r) => ({ ...r, package: pkg }));
-                    }} />
+                    <TextInput
+                      size="xs"
+                      w={90}
+                      aria-label={`Package of ${row.mpn}`}
+                      value={row.package}
+                      onChange={(e) => {
+                        const pkg = e.currentTarget.value;
+                        update(row.key, (r) => ({ ...r, package: pkg }));
+                      }}
+                    />
                   </Table.Td>
                   {columns.map((field) => {
                     const value = (row.fields as Record<string, FieldValue | undefined>)[field];
@@ -250,7 +261,13 @@ export function SeriesReview({ datasheetId, fileName, variants, manufacturers, o
                           <TempCoInput
                             {...common}
                             value={value ? { value: value.value, unit: value.unit ?? 'mV/K' } : null}
-                            onChange={(v) => setField(row, 'tc', v ? { value: v.value, unit: v.unit, printed: `${v.value} ${v.unit}`, provenance: { source: 'entered' } } : null)}
+                            onChange={(v) =>
+                              setField(
+                                row,
+                                'tc',
+                                v ? { value: v.value, unit: v.unit, printed: `${v.value} ${v.unit}`, provenance: { source: 'entered' } } : null,
+                              )
+                            }
                           />
                         ) : (
                           <QuantityInput
@@ -262,7 +279,13 @@ export function SeriesReview({ datasheetId, fileName, variants, manufacturers, o
                               setField(
                                 row,
                                 field,
-                                v === null ? null : { value: v, printed: Number.isNaN(v) ? null : formatForInput(v, cardFieldKind(field as Exclude<CardField, 'tc'>)), provenance: { source: 'entered' } },
+                                v === null
+                                  ? null
+                                  : {
+                                      value: v,
+                                      printed: Number.isNaN(v) ? null : formatForInput(v, cardFieldKind(field as Exclude<CardField, 'tc'>)),
+                                      provenance: { source: 'entered' },
+                                    },
                               )
                             }
                           />

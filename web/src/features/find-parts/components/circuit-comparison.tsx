@@ -11,7 +11,13 @@ export interface ComparedPart {
   error: string | null;
 }
 
-const SIMPLE_LABEL = { inside: 'inside the range', 'too-high': 'too high: below the knee', 'too-low': 'too low: over power', 'no-range': 'no range', none: '–' } as const;
+const SIMPLE_LABEL = {
+  inside: 'inside the range',
+  'too-high': 'too high: below the knee',
+  'too-low': 'too low: over power',
+  'no-range': 'no range',
+  none: '–',
+} as const;
 
 /** Two or three parts in the same circuit, figure by figure. */
 export function CircuitComparison({ parts }: { parts: ComparedPart[] }) {
@@ -22,7 +28,13 @@ export function CircuitComparison({ parts }: { parts: ComparedPart[] }) {
       </Table.Th>
       {parts.map((p) => (
         <Table.Td key={p.item.vendorPart.id} fz="sm">
-          {p.result ? cell(p as ComparedPart & { result: RegulatorResponse }) : <Text fz="xs" c={p.error ? 'red' : 'dimmed'}>{p.error ?? 'checking…'}</Text>}
+          {p.result ? (
+            cell(p as ComparedPart & { result: RegulatorResponse })
+          ) : (
+            <Text fz="xs" c={p.error ? 'red' : 'dimmed'}>
+              {p.error ?? 'checking…'}
+            </Text>
+          )}
         </Table.Td>
       ))}
     </Table.Tr>
@@ -46,13 +58,20 @@ export function CircuitComparison({ parts }: { parts: ComparedPart[] }) {
           </Table.Tr>
         </Table.Thead>
         <Table.Tbody>
-          {row('Verdict', (p) => <VerdictBadge verdict={p.result.verdict} />)}
-          {row('Chosen resistor', (p) => (p.result.selected ? `${formatQuantity(p.result.selected.resistance, 'resistance')} ${p.result.selected.series} ±${formatPercent(p.result.selected.tolerance)}` : 'none'))}
+          {row('Verdict', (p) => (
+            <VerdictBadge verdict={p.result.verdict} />
+          ))}
+          {row('Chosen resistor', (p) =>
+            p.result.selected
+              ? `${formatQuantity(p.result.selected.resistance, 'resistance')} ${p.result.selected.series} ±${formatPercent(p.result.selected.tolerance)}`
+              : 'none',
+          )}
           {row('Working range', (p) => describeRange(p.result.range))}
           {row('Output band', (p) =>
             p.result.outputBand ? (
               <>
-                <Quantity value={p.result.outputBand.vMin} kind="voltage" digits={4} /> … <Quantity value={p.result.outputBand.vMax} kind="voltage" digits={4} />
+                <Quantity value={p.result.outputBand.vMin} kind="voltage" digits={4} /> …{' '}
+                <Quantity value={p.result.outputBand.vMax} kind="voltage" digits={4} />
               </>
             ) : (
               '–'
@@ -63,10 +82,18 @@ export function CircuitComparison({ parts }: { parts: ComparedPart[] }) {
               <Quantity value={p.result.diodePower} kind="power" /> / <Quantity value={p.result.diodePowerAllowed} kind="power" />
             </>
           ))}
-          {row('Resistor power', (p) => <Quantity value={p.result.resistorPower} kind="power" />)}
+          {row('Resistor power', (p) => (
+            <Quantity value={p.result.resistorPower} kind="power" />
+          ))}
           {row('Line regulation', (p) => formatLineRegulation(p.result.lineRegulation))}
-          {row('Load regulation', (p) => <Quantity value={p.result.loadRegulation} kind="voltage" />)}
-          {row('Simple formula', (p) => `${p.result.simple.resistance !== null ? formatQuantity(p.result.simple.resistance, 'resistance') : '–'} (${SIMPLE_LABEL[simpleFinding(p.result).verdict]})`)}
+          {row('Load regulation', (p) => (
+            <Quantity value={p.result.loadRegulation} kind="voltage" />
+          ))}
+          {row(
+            'Simple formula',
+            (p) =>
+              `${p.result.simple.resistance !== null ? formatQuantity(p.result.simple.resistance, 'resistance') : '–'} (${SIMPLE_LABEL[simpleFinding(p.result).verdict]})`,
+          )}
         </Table.Tbody>
       </Table>
     </Table.ScrollContainer>

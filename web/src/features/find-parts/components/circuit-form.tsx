@@ -103,7 +103,9 @@ export function CircuitForm({ initialValues = EMPTY_CIRCUIT, onSubmit, busy, par
               aria-labelledby="series-label"
               data={['E24', 'E96']}
               value={v.series}
-              onChange={(s) => form.setValues({ series: s as CircuitValues['series'], tolerance: s === 'E96' && Number(v.tolerance) > 0.01 ? '0.01' : v.tolerance })}
+              onChange={(s) =>
+                form.setValues({ series: s as CircuitValues['series'], tolerance: s === 'E96' && Number(v.tolerance) > 0.01 ? '0.01' : v.tolerance })
+              }
             />
           </Stack>
           <Select label="Tolerance" data={RESISTOR_TOLERANCES} allowDeselect={false} {...form.getInputProps('tolerance')} />

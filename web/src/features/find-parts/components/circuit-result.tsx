@@ -71,11 +71,16 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
 
   return (
     <Stack gap="sm" aria-label={`Circuit check of ${mpn}`} role="region">
-      <Alert color={VERDICT_TEXT[result.verdict].color} icon={VERDICT_ICON[result.verdict]} title={`${mpn}: ${VERDICT_TEXT[result.verdict].title}`} data-testid="verdict-alert">
+      <Alert
+        color={VERDICT_TEXT[result.verdict].color}
+        icon={VERDICT_ICON[result.verdict]}
+        title={`${mpn}: ${VERDICT_TEXT[result.verdict].title}`}
+        data-testid="verdict-alert"
+      >
         {result.verdict === 'ok' && result.selected && (
           <Text fz="sm">
-            A {formatQuantity(result.selected.resistance, 'resistance')} {result.selected.series} resistor (±{formatPercent(result.selected.tolerance)}) keeps the diode above its knee and within its power at all {corners.length} corners of supply, load,
-            ambient and tolerance.
+            A {formatQuantity(result.selected.resistance, 'resistance')} {result.selected.series} resistor (±{formatPercent(result.selected.tolerance)}) keeps
+            the diode above its knee and within its power at all {corners.length} corners of supply, load, ambient and tolerance.
           </Text>
         )}
         {result.reasons.length > 0 && (
@@ -100,7 +105,8 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
               </Text>
               {result.selected && (
                 <Text fz="sm" c="dimmed">
-                  {result.selected.series}, ±{formatPercent(result.selected.tolerance)} (fitted <Quantity value={result.selected.low} kind="resistance" /> … <Quantity value={result.selected.high} kind="resistance" />)
+                  {result.selected.series}, ±{formatPercent(result.selected.tolerance)} (fitted <Quantity value={result.selected.low} kind="resistance" /> …{' '}
+                  <Quantity value={result.selected.high} kind="resistance" />)
                 </Text>
               )}
             </Group>
@@ -136,7 +142,8 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
               R = (Vs − Vz) / (Iz + IL,max)
             </Text>
             <Text fz="sm" ff="monospace">
-              = ({formatQuantity(vsNom, 'voltage')} − {formatQuantity(result.simple.vz, 'voltage')}) / ({formatQuantity(result.simple.diodeCurrent, 'current')} + {formatQuantity(result.simple.loadMax, 'current')})
+              = ({formatQuantity(vsNom, 'voltage')} − {formatQuantity(result.simple.vz, 'voltage')}) / ({formatQuantity(result.simple.diodeCurrent, 'current')}{' '}
+              + {formatQuantity(result.simple.loadMax, 'current')})
             </Text>
             <Text fz={22} fw={600} data-testid="simple-resistor">
               {result.simple.resistance !== null ? formatQuantity(result.simple.resistance, 'resistance') : 'no value'}
@@ -168,23 +175,44 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
             )}
           </Text>
         </Figure>
-        <Figure label="Diode power, worst corner" hint={result.diodePowerAllowed !== null ? 'against the rating derated at that ambient' : 'no power rating to derate'}>
+        <Figure
+          label="Diode power, worst corner"
+          hint={result.diodePowerAllowed !== null ? 'against the rating derated at that ambient' : 'no power rating to derate'}
+        >
           <Text fz="lg" fw={600} data-testid="diode-power">
             <Quantity value={result.diodePower} kind="power" /> of <Quantity value={result.diodePowerAllowed} kind="power" />
           </Text>
-          {share !== null && <Progress value={Math.min(100, share * 100)} color={share > 1 ? 'red' : share > 0.8 ? 'orange' : 'verdigris'} size="sm" mt={4} aria-label={`${formatPercent(share)} of the allowance`} />}
+          {share !== null && (
+            <Progress
+              value={Math.min(100, share * 100)}
+              color={share > 1 ? 'red' : share > 0.8 ? 'orange' : 'verdigris'}
+              size="sm"
+              mt={4}
+              aria-label={`${formatPercent(share)} of the allowance`}
+            />
+          )}
         </Figure>
         <Figure label="Resistor power, worst corner" hint="rate the resistor with margin above this (about twice is common practice)">
           <Text fz="lg" fw={600} data-testid="resistor-power">
             <Quantity value={result.resistorPower} kind="power" />
           </Text>
         </Figure>
-        <Figure label="Line regulation" hint={result.outputResistance !== null ? `ΔVout/ΔVs at the nominal point; output resistance ${formatQuantity(result.outputResistance, 'resistance')}` : undefined}>
+        <Figure
+          label="Line regulation"
+          hint={
+            result.outputResistance !== null
+              ? `ΔVout/ΔVs at the nominal point; output resistance ${formatQuantity(result.outputResistance, 'resistance')}`
+              : undefined
+          }
+        >
           <Text fz="lg" fw={600} data-testid="line-regulation">
             {formatLineRegulation(result.lineRegulation)}
           </Text>
         </Figure>
-        <Figure label="Load regulation" hint={`output change from ${formatQuantity(circuit.load.min, 'current')} to ${formatQuantity(circuit.load.max, 'current')} load`}>
+        <Figure
+          label="Load regulation"
+          hint={`output change from ${formatQuantity(circuit.load.min, 'current')} to ${formatQuantity(circuit.load.max, 'current')} load`}
+        >
           <Text fz="lg" fw={600} data-testid="load-regulation">
             <Quantity value={result.loadRegulation} kind="voltage" />
           </Text>
@@ -231,15 +259,27 @@ export function CircuitResult({ result, circuit, card, mpn }: CircuitResultProps
                 <Table.Tbody>
                   {corners.map((c, i) => (
                     <Table.Tr key={i} c={c.belowKnee || c.overPower ? 'red.7' : undefined}>
-                      <Table.Td ta="right"><Quantity value={c.supply} kind="voltage" /></Table.Td>
-                      <Table.Td ta="right"><Quantity value={c.load} kind="current" /></Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.supply} kind="voltage" />
+                      </Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.load} kind="current" />
+                      </Table.Td>
                       <Table.Td ta="right">{formatQuantity(c.ambientC, 'temperature', { trim: true })}</Table.Td>
                       <Table.Td>{c.corner} VZ</Table.Td>
-                      <Table.Td ta="right"><Quantity value={c.resistance} kind="resistance" /></Table.Td>
-                      <Table.Td ta="right"><Quantity value={c.vOut} kind="voltage" digits={4} /></Table.Td>
-                      <Table.Td ta="right"><Quantity value={c.diodeCurrent} kind="current" /></Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.resistance} kind="resistance" />
+                      </Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.vOut} kind="voltage" digits={4} />
+                      </Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.diodeCurrent} kind="current" />
+                      </Table.Td>
                       <Table.Td ta="right">{c.tjC === null ? 'runaway' : <Quantity value={c.tjC} kind="temperature" />}</Table.Td>
-                      <Table.Td ta="right"><Quantity value={c.diodePower} kind="power" /></Table.Td>
+                      <Table.Td ta="right">
+                        <Quantity value={c.diodePower} kind="power" />
+                      </Table.Td>
                       <Table.Td>{c.belowKnee ? 'below knee' : c.overPower ? 'over power' : 'ok'}</Table.Td>
                     </Table.Tr>
                   ))}

@@ -25,7 +25,12 @@ describe('ClearanceList', () => {
   });
 
   it('says it beside the clearances of a part cleared for another house part', () => {
-    render(<ClearanceList item={searchItem(7, 'TPZ15-8V2', { ruledOut: [{ ...RULED_OUT, state: 'revoked', reason: 'Assembly moved to a new site.' }] })} linkHouseParts={false} />);
+    render(
+      <ClearanceList
+        item={searchItem(7, 'TPZ15-8V2', { ruledOut: [{ ...RULED_OUT, state: 'revoked', reason: 'Assembly moved to a new site.' }] })}
+        linkHouseParts={false}
+      />,
+    );
     expect(screen.getByLabelText('Ruled out')).toHaveTextContent('Revoked: Assembly moved to a new site.');
   });
 

@@ -1,5 +1,12 @@
 import { Anchor, Badge, Group, Stack, Text, Tooltip } from '@mantine/core';
-import { CLEARANCE_STANDING_LABELS, QUALIFICATION_STATE_LABELS, type Clearance, type ClearanceStanding, type RuledOut, type SearchItem } from '@shuntwise/contracts';
+import {
+  CLEARANCE_STANDING_LABELS,
+  QUALIFICATION_STATE_LABELS,
+  type Clearance,
+  type ClearanceStanding,
+  type RuledOut,
+  type SearchItem,
+} from '@shuntwise/contracts';
 import { Link } from 'react-router';
 import { WaiverBadges } from '@/components/waiver-badges';
 import { formatDate } from '../utils/format';

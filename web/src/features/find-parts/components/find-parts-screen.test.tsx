@@ -118,7 +118,12 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
 
     await waitFor(() => expect(mock.callsTo('POST', '/api/engineering/regulator')).toHaveLength(1));
     const body = mock.callsTo('POST', '/api/engineering/regulator')[0].body as RegulatorRequest;
-    expect(body).toMatchObject({ supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.02 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } });
+    expect(body).toMatchObject({
+      supply: { min: 10.8, nom: 12, max: 13.2 },
+      load: { min: 0, max: 0.02 },
+      ambient: { min: -20, max: 70 },
+      resistor: { series: 'E24', tolerance: 0.05 },
+    });
     expect(body.card).toMatchObject({ vzNom: 5.1, vzMin: 4.85, vzMax: 5.36, izt: 0.005, zzt: 28, rthJA: 250 });
 
     const region = await screen.findByRole('region', { name: 'Circuit check of BRZ05-5V1' });
@@ -176,7 +181,9 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
 
   it('says why when no resistor works', async () => {
     signInAs('designer');
-    const reasons = ['no resistor works: the power limit needs at least 300 Ω but the knee needs at most 244 Ω; narrow the supply or load range, or use a diode with more power or a lower knee current'];
+    const reasons = [
+      'no resistor works: the power limit needs at least 300 Ω but the knee needs at most 244 Ω; narrow the supply or load range, or use a diode with more power or a lower knee current',
+    ];
     api('designer', regulatorAnswer({ verdict: 'no-solution', reasons, selected: null, range: { ...regulatorAnswer().range, min: 300 } }));
     const { user } = renderApp('/find');
     await user.click(await screen.findByRole('button', { name: /Check BRZ05-5V1 .* in my circuit/ }));
@@ -214,7 +221,11 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
     await user.click(within(form).getByRole('button', { name: 'Check 2 parts' }));
     await waitFor(() => expect(mock.callsTo('POST', '/api/engineering/regulator')).toHaveLength(2));
     const comparison = await screen.findByRole('table', { name: 'Comparison' });
-    expect(within(comparison).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['', expect.stringContaining('BRZ05-5V1'), expect.stringContaining('TPZ15-11')]);
+    expect(
+      within(comparison)
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['', expect.stringContaining('BRZ05-5V1'), expect.stringContaining('TPZ15-11')]);
     await waitFor(() => expect(comparison).toHaveTextContent('240 Ω E24 ±5 %'));
     // the second part's refusal is shown in its column, with the API's message
     expect(comparison).toHaveTextContent(/card\.zzt: out of range/);
@@ -263,7 +274,9 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
       );
       // rounded as printed: no -0.0018000000000000002 (IEEE 754 noise of 0.0012 − 0.003)
       expect(before[1]).toBe('BRZ05-5V1,Brackenford Semiconductor,SOD-123,4.85,5.1,5.36,0.005,5.1,28,0.5,-0.0018,OHI-ZD-1051: Approved source');
-      expect(before[2]).toBe('TPZ15-11,Tevorrow Power Devices,SMB,10.45,11,11.55,0.034,5,7,1.5,0.0003,OHI-ZD-2110: Cleared with conditions (Incoming inspection measures reverse leakage on five pieces per lot.)');
+      expect(before[2]).toBe(
+        'TPZ15-11,Tevorrow Power Devices,SMB,10.45,11,11.55,0.034,5,7,1.5,0.0003,OHI-ZD-2110: Cleared with conditions (Incoming inspection measures reverse leakage on five pieces per lot.)',
+      );
       expect(before[0]).not.toContain('Circuit check');
 
       await user.click(screen.getByRole('button', { name: /Check BRZ05-5V1 .* in my circuit/ }));
@@ -276,7 +289,9 @@ describe('Find parts screen', { timeout: 20_000 }, () => {
       await user.click(screen.getByRole('button', { name: 'Export CSV' }));
       await waitFor(() => expect(saved).toHaveLength(2));
       const after = (await savedText()).split('\r\n');
-      expect(after[0]).toMatch(/,Circuit check,Chosen resistor \(Ω\),Resistor series,Working range from \(Ω\),Working range to \(Ω\),Output lowest \(V\),Output highest \(V\),/);
+      expect(after[0]).toMatch(
+        /,Circuit check,Chosen resistor \(Ω\),Resistor series,Working range from \(Ω\),Working range to \(Ω\),Output lowest \(V\),Output highest \(V\),/,
+      );
       expect(after[1]).toMatch(/,Works at every corner,240,E24,137,244,4.61,5.52,0.162,0.32,0.266$/);
       // a part the check did not run on has those cells empty
       expect(after[2]).toMatch(/,,,,,,,,,,$/);

@@ -82,7 +82,12 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
       const done = new Map<number, RegulatorResponse>();
       if (circuit && !stale) compared.forEach((c) => c.result && done.set(c.item.vendorPart.id, c.result));
       saveBlob(new Blob([resultsCsv(items, done)], { type: 'text/csv;charset=utf-8' }), 'shuntwise-find-parts.csv');
-      if (total > items.length) notifications.show({ color: 'orange', title: 'Export shortened', message: `The first ${EXPORT_LIMIT} of ${total} parts were saved: narrow the filters for the rest.` });
+      if (total > items.length)
+        notifications.show({
+          color: 'orange',
+          title: 'Export shortened',
+          message: `The first ${EXPORT_LIMIT} of ${total} parts were saved: narrow the filters for the rest.`,
+        });
     } catch (e) {
       notifications.show({ color: 'red', title: 'The results could not be exported', message: describeError(e) });
     } finally {
@@ -151,8 +156,9 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
           </Group>
         </Group>
         <Text fz="sm" c="dimmed" mb="md">
-          Supply → series resistor → diode in parallel with the load. The engineering core finds the resistor range that keeps the diode above its knee at the lowest supply
-          and largest load and within its derated power at the highest supply and smallest load, picks the nearest standard value inside it, and solves every corner.
+          Supply → series resistor → diode in parallel with the load. The engineering core finds the resistor range that keeps the diode above its knee at the
+          lowest supply and largest load and within its derated power at the highest supply and smallest load, picks the nearest standard value inside it, and
+          solves every corner.
         </Text>
         <Grid gutter="lg">
           <Grid.Col span={{ base: 12, md: 4 }}>
@@ -179,7 +185,12 @@ export function FindPartsScreen({ linkCatalogue, renderPartAction, requestsPanel
             )}
             {chosen.some((c) => !c.cleared) && circuit && !stale && (
               <Alert color="orange" mb="sm" title="Not cleared for new designs">
-                {chosen.filter((c) => !c.cleared).map((c) => c.vendorPart.mpn).join(', ')} {chosen.filter((c) => !c.cleared).length > 1 ? 'are' : 'is'} not cleared: the check shows how it would behave, but a component engineer must qualify it before it is designed in.
+                {chosen
+                  .filter((c) => !c.cleared)
+                  .map((c) => c.vendorPart.mpn)
+                  .join(', ')}{' '}
+                {chosen.filter((c) => !c.cleared).length > 1 ? 'are' : 'is'} not cleared: the check shows how it would behave, but a component engineer must
+                qualify it before it is designed in.
               </Alert>
             )}
             {stale && chosen.length > 0 && (

@@ -1,6 +1,33 @@
-import { ActionIcon, Alert, Anchor, Button, Center, Checkbox, Group, Loader, Pagination, Paper, Select, Stack, Table, Text, Tooltip, UnstyledButton, VisuallyHidden } from '@mantine/core';
+import {
+  ActionIcon,
+  Alert,
+  Anchor,
+  Button,
+  Center,
+  Checkbox,
+  Group,
+  Loader,
+  Pagination,
+  Paper,
+  Select,
+  Stack,
+  Table,
+  Text,
+  Tooltip,
+  UnstyledButton,
+  VisuallyHidden,
+} from '@mantine/core';
 import { notifications } from '@mantine/notifications';
-import { IconArrowDown, IconArrowUp, IconArrowsSort, IconDownload, IconFileCode, IconFileTypePdf, IconInfoCircle, IconPlugConnected } from '@tabler/icons-react';
+import {
+  IconArrowDown,
+  IconArrowUp,
+  IconArrowsSort,
+  IconDownload,
+  IconFileCode,
+  IconFileTypePdf,
+  IconInfoCircle,
+  IconPlugConnected,
+} from '@tabler/icons-react';
 import { formatPercent, formatQuantity, type SearchItem, type SearchPage } from '@shuntwise/contracts';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
@@ -34,7 +61,19 @@ export interface ResultsTableProps {
   exporting?: boolean;
 }
 
-function SortHeader({ field, sort, onSort, children, align = 'left' }: { field: string; sort: string; onSort: (s: string) => void; children: ReactNode; align?: 'left' | 'right' }) {
+function SortHeader({
+  field,
+  sort,
+  onSort,
+  children,
+  align = 'left',
+}: {
+  field: string;
+  sort: string;
+  onSort: (s: string) => void;
+  children: ReactNode;
+  align?: 'left' | 'right';
+}) {
   const active = sort.replace(/^-/, '') === field;
   const desc = sort.startsWith('-');
   const Icon = !active ? IconArrowsSort : desc ? IconArrowDown : IconArrowUp;
@@ -52,7 +91,12 @@ function SortHeader({ field, sort, onSort, children, align = 'left' }: { field: 
 
 function VzCell({ item }: { item: SearchItem }) {
   const card = item.card;
-  if (!card) return <Text fz="xs" c="dimmed">no rating card</Text>;
+  if (!card)
+    return (
+      <Text fz="xs" c="dimmed">
+        no rating card
+      </Text>
+    );
   return (
     <Stack gap={0} align="flex-end">
       <Group gap={4} wrap="nowrap" fz="sm">
@@ -74,7 +118,23 @@ function VzCell({ item }: { item: SearchItem }) {
 }
 
 /** One page of results, with what a designer chooses by, and the way into the circuit check. */
-export function ResultsTable({ page, loading, fetching, error, sort, onSort, onPage, chosenIds, onToggleChosen, onCheck, linkCatalogue, includeNotCleared, renderPartAction, onExport, exporting = false }: ResultsTableProps) {
+export function ResultsTable({
+  page,
+  loading,
+  fetching,
+  error,
+  sort,
+  onSort,
+  onPage,
+  chosenIds,
+  onToggleChosen,
+  onCheck,
+  linkCatalogue,
+  includeNotCleared,
+  renderPartAction,
+  onExport,
+  exporting = false,
+}: ResultsTableProps) {
   const items = page?.items ?? [];
   const total = page?.total ?? 0;
   const pageSize = page?.pageSize ?? 25;
@@ -144,12 +204,18 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
               <SortHeader field="vzNom" sort={sort} onSort={onSort} align="right">
                 VZ min · nom · max
               </SortHeader>
-              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>Tol.</Table.Th>
-              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>ZZT</Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>
+                Tol.
+              </Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>
+                ZZT
+              </Table.Th>
               <SortHeader field="pdMax" sort={sort} onSort={onSort} align="right">
                 PD max
               </SortHeader>
-              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>αVZ</Table.Th>
+              <Table.Th ta="right" style={{ whiteSpace: 'nowrap' }}>
+                αVZ
+              </Table.Th>
               <Table.Th>May be designed in</Table.Th>
               <Table.Th w={120} />
             </Table.Tr>
@@ -168,7 +234,9 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
               <Table.Tr>
                 <Table.Td colSpan={10}>
                   <Text c="dimmed" ta="center" py="lg" fz="sm">
-                    {includeNotCleared ? 'No catalogue part matches these filters.' : 'No usable part matches these filters. Widen them, or include parts not cleared to see the whole catalogue.'}
+                    {includeNotCleared
+                      ? 'No catalogue part matches these filters.'
+                      : 'No usable part matches these filters. Widen them, or include parts not cleared to see the whole catalogue.'}
                   </Text>
                 </Table.Td>
               </Table.Tr>
@@ -178,11 +246,26 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
               const full = chosenIds.length >= MAX_COMPARED && !chosen;
               const label = `${item.vendorPart.mpn} (${item.vendorPart.manufacturer})`;
               return (
-                <Table.Tr key={item.vendorPart.id} bg={chosen ? 'var(--mantine-primary-color-light)' : undefined} aria-label={item.vendorPart.mpn} style={item.cleared ? undefined : { opacity: 0.8 }}>
+                <Table.Tr
+                  key={item.vendorPart.id}
+                  bg={chosen ? 'var(--mantine-primary-color-light)' : undefined}
+                  aria-label={item.vendorPart.mpn}
+                  style={item.cleared ? undefined : { opacity: 0.8 }}
+                >
                   <Table.Td>
-                    <Tooltip label={!item.card ? 'No rating card: nothing to check' : full ? `Compare at most ${MAX_COMPARED} parts` : `Compare ${item.vendorPart.mpn}`} withArrow>
+                    <Tooltip
+                      label={
+                        !item.card ? 'No rating card: nothing to check' : full ? `Compare at most ${MAX_COMPARED} parts` : `Compare ${item.vendorPart.mpn}`
+                      }
+                      withArrow
+                    >
                       <span>
-                        <Checkbox aria-label={`Compare ${item.vendorPart.mpn}`} checked={chosen} disabled={!item.card || full} onChange={() => onToggleChosen(item)} />
+                        <Checkbox
+                          aria-label={`Compare ${item.vendorPart.mpn}`}
+                          checked={chosen}
+                          disabled={!item.card || full}
+                          onChange={() => onToggleChosen(item)}
+                        />
                       </span>
                     </Tooltip>
                   </Table.Td>
@@ -229,7 +312,14 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
                   </Table.Td>
                   <Table.Td>
                     <Group gap={4} wrap="nowrap" justify="flex-end">
-                      <Button size="compact-xs" variant="light" leftSection={<IconPlugConnected size={13} />} disabled={!item.card} onClick={() => onCheck(item)} aria-label={`Check ${label} in my circuit`}>
+                      <Button
+                        size="compact-xs"
+                        variant="light"
+                        leftSection={<IconPlugConnected size={13} />}
+                        disabled={!item.card}
+                        onClick={() => onCheck(item)}
+                        aria-label={`Check ${label} in my circuit`}
+                      >
                         Check
                       </Button>
                       {item.card && (
@@ -277,8 +367,23 @@ export function ResultsTable({ page, loading, fetching, error, sort, onSort, onP
           {total > 0 ? `${first}–${last} of ${total}` : ''}
         </Text>
         <Group gap="sm">
-          <Select size="xs" w={90} aria-label="Rows per page" data={PAGE_SIZES} value={String(pageSize)} onChange={(v) => v && onPage(0, Number(v))} allowDeselect={false} />
-          <Pagination size="sm" total={pages} value={pageIndex + 1} onChange={(p) => onPage(p - 1, pageSize)} getControlProps={(control) => ({ 'aria-label': `${control} page` })} getItemProps={(p) => ({ 'aria-label': `Page ${p}` })} />
+          <Select
+            size="xs"
+            w={90}
+            aria-label="Rows per page"
+            data={PAGE_SIZES}
+            value={String(pageSize)}
+            onChange={(v) => v && onPage(0, Number(v))}
+            allowDeselect={false}
+          />
+          <Pagination
+            size="sm"
+            total={pages}
+            value={pageIndex + 1}
+            onChange={(p) => onPage(p - 1, pageSize)}
+            getControlProps={(control) => ({ 'aria-label': `${control} page` })}
+            getItemProps={(p) => ({ 'aria-label': `Page ${p}` })}
+          />
         </Group>
       </Group>
     </Paper>

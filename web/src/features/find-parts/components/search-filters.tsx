@@ -47,7 +47,16 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
 
   const houseParts = (facets.data?.houseParts ?? []).filter((h) => h.cleared > 0 || h.id === params.housePartId);
   const anyFilter =
-    text || vzFrom !== null || vzTo !== null || pdMin !== null || params.package || params.manufacturer || params.toleranceMax || params.housePartId || params.includeNotCleared || params.vzWindow;
+    text ||
+    vzFrom !== null ||
+    vzTo !== null ||
+    pdMin !== null ||
+    params.package ||
+    params.manufacturer ||
+    params.toleranceMax ||
+    params.housePartId ||
+    params.includeNotCleared ||
+    params.vzWindow;
 
   return (
     <Paper p="sm" mb="md" role="search" aria-label="Find parts">
@@ -90,7 +99,9 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
             mb={6}
             label="Include parts not cleared"
             checked={params.includeNotCleared ?? false}
-            onChange={(e) => onChange({ includeNotCleared: e.currentTarget.checked || undefined, housePartId: e.currentTarget.checked ? undefined : params.housePartId })}
+            onChange={(e) =>
+              onChange({ includeNotCleared: e.currentTarget.checked || undefined, housePartId: e.currentTarget.checked ? undefined : params.housePartId })
+            }
           />
           {anyFilter && (
             <Button
@@ -104,7 +115,14 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
                 setVzTo(null);
                 setPdMin(null);
                 // The typed fields follow through their pause, as typing does.
-                onChange({ vzWindow: undefined, package: undefined, manufacturer: undefined, toleranceMax: undefined, housePartId: undefined, includeNotCleared: undefined });
+                onChange({
+                  vzWindow: undefined,
+                  package: undefined,
+                  manufacturer: undefined,
+                  toleranceMax: undefined,
+                  housePartId: undefined,
+                  includeNotCleared: undefined,
+                });
               }}
             >
               Clear filters
@@ -124,7 +142,7 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
           <Select
             w={160}
             label="VZ tolerance"
-           
+
             data={TOLERANCE_CHOICES}
             value={params.toleranceMax !== undefined ? String(params.toleranceMax) : ''}
             onChange={(v) => onChange({ toleranceMax: v ? Number(v) : undefined })}
@@ -134,7 +152,7 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
           <MultiSelect
             w={260}
             label="Package"
-           
+
             placeholder={params.package ? undefined : 'any'}
             data={(facets.data?.packages ?? []).map((p) => ({ value: p.value, label: `${p.value} (${params.includeNotCleared ? p.total : p.cleared})` }))}
             value={list(params.package)}
@@ -146,7 +164,8 @@ export function SearchFilters({ params, onChange }: SearchFiltersProps) {
           />
         </Group>
         <Text fz="xs" c="dimmed">
-          VZ is each part&apos;s own at its test current IZT, 25 °C; power is its rating PD max. The numbers beside packages and manufacturers count {params.includeNotCleared ? 'catalogue' : 'usable'} parts.
+          VZ is each part&apos;s own at its test current IZT, 25 °C; power is its rating PD max. The numbers beside packages and manufacturers count{' '}
+          {params.includeNotCleared ? 'catalogue' : 'usable'} parts.
         </Text>
       </Stack>
     </Paper>

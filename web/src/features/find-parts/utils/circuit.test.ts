@@ -1,7 +1,17 @@
 import { regulatorRequestSchema } from '@shuntwise/contracts';
 import { describe, expect, it } from 'vitest';
 import { regulatorAnswer, searchItem } from '../testing/fixtures';
-import { describeRange, EMPTY_CIRCUIT, regulatorRequest, simpleFinding, simpleOmissions, supplyAround, toCircuit, validateCircuit, type CircuitValues } from './circuit';
+import {
+  describeRange,
+  EMPTY_CIRCUIT,
+  regulatorRequest,
+  simpleFinding,
+  simpleOmissions,
+  supplyAround,
+  toCircuit,
+  validateCircuit,
+  type CircuitValues,
+} from './circuit';
 
 const filled: CircuitValues = { ...EMPTY_CIRCUIT, supplyMin: 10.8, supplyNom: 12, supplyMax: 13.2, loadMin: 0, loadMax: 0.02 };
 
@@ -19,14 +29,21 @@ describe('circuit form values', () => {
   it("applies the contract's own rules with its wording (min above max)", () => {
     expect(validateCircuit({ ...filled, supplyMin: 14 })).toMatchObject({ supplyMin: 'Lowest supply (14 V) is above Highest supply (13.2 V)' });
     expect(validateCircuit({ ...filled, supplyNom: 20 })).toMatchObject({ supplyNom: 'Nominal supply (20 V) lies outside 10.8 V … 13.2 V' });
-    expect(validateCircuit({ ...filled, ambientMin: 90 })).toMatchObject({ ambientMin: expect.stringMatching(/Lowest ambient \(90 °C\) is above Highest ambient/) });
+    expect(validateCircuit({ ...filled, ambientMin: 90 })).toMatchObject({
+      ambientMin: expect.stringMatching(/Lowest ambient \(90 °C\) is above Highest ambient/),
+    });
     expect(validateCircuit(filled)).toEqual({});
   });
 
   it('builds a request the API schema accepts, with the card fields the core reads and nothing else', () => {
     const request = regulatorRequest(toCircuit(filled)!, searchItem(1, 'BRZ05-5V1').card!);
     expect(() => regulatorRequestSchema.parse(request)).not.toThrow();
-    expect(request).toMatchObject({ supply: { min: 10.8, nom: 12, max: 13.2 }, load: { min: 0, max: 0.02 }, ambient: { min: -20, max: 70 }, resistor: { series: 'E24', tolerance: 0.05 } });
+    expect(request).toMatchObject({
+      supply: { min: 10.8, nom: 12, max: 13.2 },
+      load: { min: 0, max: 0.02 },
+      ambient: { min: -20, max: 70 },
+      resistor: { series: 'E24', tolerance: 0.05 },
+    });
     expect(Object.keys(request.card)).not.toContain('tolerance');
     expect(toCircuit({ ...filled, supplyNom: null })!.supply).toEqual({ min: 10.8, max: 13.2 });
   });

@@ -127,7 +127,6 @@ export function validateCircuit(v: CircuitValues): Partial<Record<keyof CircuitV
   return errors;
 }
 
-
 /**
  * The engineering card of a search result. The API built it with the one card mapping
  * (contracts' toEngineeringCard); here only the display figures are set aside, nothing is read anew.
@@ -179,7 +178,10 @@ export function simpleFinding(result: RegulatorResponse): SimpleFinding {
       message: `${ohms(r)} is below the smallest working value ${ohms(min)}: at the highest supply and the smallest load the diode would carry more than ${formatQuantity(allowedDiodeCurrent, 'current')}, beyond its derated power.`,
     };
   }
-  return { verdict: 'inside', message: `${ohms(r)} happens to lie inside the working range ${ohms(min)} … ${ohms(max)} here; the formula alone could not tell.` };
+  return {
+    verdict: 'inside',
+    message: `${ohms(r)} happens to lie inside the working range ${ohms(min)} … ${ohms(max)} here; the formula alone could not tell.`,
+  };
 }
 
 const celsius = (c: number) => formatQuantity(c, 'temperature', { trim: true });
@@ -191,7 +193,10 @@ export function simpleOmissions(circuit: CircuitRequest, card: SearchCard): stri
     `the smallest load (${formatQuantity(circuit.load.min, 'current')}), where all the current flows through the diode`,
   ];
   if (card.tolerance !== null) out.push(`the diode's tolerance of ±${formatPercent(card.tolerance, { digits: 2 })} on VZ`);
-  if (card.tc !== null) out.push(`the drift of VZ with temperature (${formatQuantity(card.tc, 'tempCoVoltage')}) over ${celsius(circuit.ambient.min)} … ${celsius(circuit.ambient.max)} and self-heating`);
+  if (card.tc !== null)
+    out.push(
+      `the drift of VZ with temperature (${formatQuantity(card.tc, 'tempCoVoltage')}) over ${celsius(circuit.ambient.min)} … ${celsius(circuit.ambient.max)} and self-heating`,
+    );
   out.push(`the resistor's own tolerance (±${formatPercent(circuit.resistor.tolerance)}) and its standard values`);
   out.push(`the knee: the diode needs a minimum current to regulate`);
   out.push(`the diode's power rating, derated at the highest ambient`);

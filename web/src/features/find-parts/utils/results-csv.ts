@@ -36,7 +36,9 @@ const r3 = (x: number | null | undefined) => roundToDigits(x, 3);
 
 function clearances(item: SearchItem): string {
   if (!item.cleared) return 'not cleared';
-  return item.clearances.map((c) => `${c.housePart.partNumber}: ${CLEARANCE_STANDING_LABELS[c.standing]}${c.conditions ? ` (${c.conditions})` : ''}`).join('; ');
+  return item.clearances
+    .map((c) => `${c.housePart.partNumber}: ${CLEARANCE_STANDING_LABELS[c.standing]}${c.conditions ? ` (${c.conditions})` : ''}`)
+    .join('; ');
 }
 
 function checkCells(result: RegulatorResponse | undefined): CsvCell[] {

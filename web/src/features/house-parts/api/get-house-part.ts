@@ -7,8 +7,7 @@ export function getHousePart(id: number, signal?: AbortSignal): Promise<HousePar
   return apiRequest(`/house-parts/${id}`, { schema: housePartSchema, signal });
 }
 
-export const housePartQueryOptions = (id: number) =>
-  queryOptions({ queryKey: housePartKeys.detail(id), queryFn: ({ signal }) => getHousePart(id, signal) });
+export const housePartQueryOptions = (id: number) => queryOptions({ queryKey: housePartKeys.detail(id), queryFn: ({ signal }) => getHousePart(id, signal) });
 
 export function useHousePart(id: number) {
   return useQuery(housePartQueryOptions(id));

@@ -16,7 +16,17 @@ interface Values {
 const STATUS_OPTIONS = HOUSE_PART_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }));
 
 /** Create or edit a house part: its internal number (unique), description and status. */
-export function HousePartFormModal({ opened, onClose, part, onSaved }: { opened: boolean; onClose: () => void; part?: HousePart; onSaved?: (part: HousePart) => void }) {
+export function HousePartFormModal({
+  opened,
+  onClose,
+  part,
+  onSaved,
+}: {
+  opened: boolean;
+  onClose: () => void;
+  part?: HousePart;
+  onSaved?: (part: HousePart) => void;
+}) {
   const create = useCreateHousePart();
   const update = useUpdateHousePart();
   const mutation = part ? update : create;
@@ -61,7 +71,14 @@ export function HousePartFormModal({ opened, onClose, part, onSaved }: { opened:
           )}
           <TextInput label="House part number" withAsterisk data-autofocus key={form.key('partNumber')} {...form.getInputProps('partNumber')} />
           <Textarea label="Description" autosize minRows={2} maxLength={500} key={form.key('description')} {...form.getInputProps('description')} />
-          <Select label="Status" data={STATUS_OPTIONS} allowDeselect={false} comboboxProps={{ withinPortal: true }} key={form.key('status')} {...form.getInputProps('status')} />
+          <Select
+            label="Status"
+            data={STATUS_OPTIONS}
+            allowDeselect={false}
+            comboboxProps={{ withinPortal: true }}
+            key={form.key('status')}
+            {...form.getInputProps('status')}
+          />
           <Group justify="flex-end" mt="xs">
             <Button variant="default" onClick={close}>
               Cancel

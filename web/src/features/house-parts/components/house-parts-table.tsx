@@ -27,7 +27,13 @@ export function HousePartsTable() {
     if ((search.get('q') ?? '') !== q) set({ q });
   }, [q, search, set]);
 
-  const list = useHouseParts({ pageIndex: pagination.pageIndex, pageSize: pagination.pageSize, sort: listState.sort, q: search.get('q') || undefined, status: status || undefined });
+  const list = useHouseParts({
+    pageIndex: pagination.pageIndex,
+    pageSize: pagination.pageSize,
+    sort: listState.sort,
+    q: search.get('q') || undefined,
+    status: status || undefined,
+  });
 
   const columns = useMemo<MRT_ColumnDef<HousePart>[]>(
     () => [
@@ -40,7 +46,16 @@ export function HousePartsTable() {
           </Anchor>
         ),
       },
-      { accessorKey: 'description', header: 'Description', enableSorting: false, Cell: ({ row }) => <Text fz="sm" lineClamp={1}>{row.original.description}</Text> },
+      {
+        accessorKey: 'description',
+        header: 'Description',
+        enableSorting: false,
+        Cell: ({ row }) => (
+          <Text fz="sm" lineClamp={1}>
+            {row.original.description}
+          </Text>
+        ),
+      },
       { accessorKey: 'status', header: 'Status', Cell: ({ row }) => <HousePartStatusBadge status={row.original.status} /> },
       {
         accessorKey: 'specVersion',
@@ -74,7 +89,14 @@ export function HousePartsTable() {
     getRowId: (p) => String(p.id),
     renderTopToolbarCustomActions: () => (
       <Group gap="xs" align="flex-end" role="search" aria-label="Filter house parts">
-        <TextInput size="xs" w={240} label="Number or description" leftSection={<IconSearch size={14} />} value={qText} onChange={(e) => setQText(e.currentTarget.value)} />
+        <TextInput
+          size="xs"
+          w={240}
+          label="Number or description"
+          leftSection={<IconSearch size={14} />}
+          value={qText}
+          onChange={(e) => setQText(e.currentTarget.value)}
+        />
         <Select
           size="xs"
           w={180}

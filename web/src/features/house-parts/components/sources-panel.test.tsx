@@ -46,8 +46,29 @@ describe('SourcesPanel', { timeout: 20_000 }, () => {
     signInAs('engineer');
     const api = mockApi({
       'GET /api/house-parts/:id/sources': { body: [] },
-      'GET /api/vendor-parts': { body: { items: [{ id: 12, mpn: 'BRZ-5V1', manufacturer: 'Brackenford Devices', package: 'SOD-323', lifecycleNote: null, card: null, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z' }], total: 1, pageIndex: 0, pageSize: 20 } },
-      'POST /api/house-parts/:id/sources': (call) => ({ status: 201, body: source({ vendorPartId: (call.body as { vendorPartId: number }).vendorPartId, mpn: 'BRZ-5V1' }) }),
+      'GET /api/vendor-parts': {
+        body: {
+          items: [
+            {
+              id: 12,
+              mpn: 'BRZ-5V1',
+              manufacturer: 'Brackenford Devices',
+              package: 'SOD-323',
+              lifecycleNote: null,
+              card: null,
+              createdAt: '2026-12-01T10:00:00.000Z',
+              updatedAt: '2026-12-01T10:00:00.000Z',
+            },
+          ],
+          total: 1,
+          pageIndex: 0,
+          pageSize: 20,
+        },
+      },
+      'POST /api/house-parts/:id/sources': (call) => ({
+        status: 201,
+        body: source({ vendorPartId: (call.body as { vendorPartId: number }).vendorPartId, mpn: 'BRZ-5V1' }),
+      }),
     });
     const { user } = render(<SourcesPanel housePartId={5} partNumber="OHI-ZD-9051" />);
     await user.type(screen.getByPlaceholderText('Type a part number or manufacturer'), 'BRZ');

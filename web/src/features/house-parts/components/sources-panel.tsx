@@ -1,44 +1,18 @@
-import { useState } from "react";
-import {
-  ActionIcon,
-  Alert,
-  Anchor,
-  Badge,
-  Button,
-  Group,
-  Loader,
-  Modal,
-  Paper,
-  Select,
-  Stack,
-  Table,
-  Text,
-  TextInput,
-  Title,
-  Tooltip,
-} from "@mantine/core";
-import { useDebouncedValue } from "@mantine/hooks";
-import { notifications } from "@mantine/notifications";
-import { IconLinkPlus, IconTrash } from "@tabler/icons-react";
-import {
-  formatQuantity,
-  type Source,
-  type SourceRole,
-} from "@shuntwise/contracts";
-import { Link } from "react-router";
-import { describeError } from "@/lib/api-client";
-import { formatDateTime } from "@/lib/format-date";
-import { useSession } from "@/lib/session";
-import {
-  useAddSource,
-  useRemoveSource,
-  useSources,
-  useVendorPartSearch,
-} from "../api/sources";
+import { useState } from 'react';
+import { ActionIcon, Alert, Anchor, Badge, Button, Group, Loader, Modal, Paper, Select, Stack, Table, Text, TextInput, Title, Tooltip } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
+import { notifications } from '@mantine/notifications';
+import { IconLinkPlus, IconTrash } from '@tabler/icons-react';
+import { formatQuantity, type Source, type SourceRole } from '@shuntwise/contracts';
+import { Link } from 'react-router';
+import { describeError } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format-date';
+import { useSession } from '@/lib/session';
+import { useAddSource, useRemoveSource, useSources, useVendorPartSearch } from '../api/sources';
 
 const ROLE_LABEL: Record<SourceRole, string> = {
-  approved: "Approved source",
-  alternate: "Alternate",
+  approved: 'Approved source',
+  alternate: 'Alternate',
 };
 
 /**
@@ -46,23 +20,17 @@ const ROLE_LABEL: Record<SourceRole, string> = {
  * standing (approved source, cleared) comes only from a second engineer's decision on its
  * qualification case, so there is nothing to choose here.
  */
-function AddSource({
-  housePartId,
-  linked,
-}: {
-  housePartId: number;
-  linked: ReadonlySet<number>;
-}) {
-  const [text, setText] = useState("");
+function AddSource({ housePartId, linked }: { housePartId: number; linked: ReadonlySet<number> }) {
+  const [text, setText] = useState('');
   const [query] = useDebouncedValue(text.trim(), 200);
   const search = useVendorPartSearch(query);
   const [picked, setPicked] = useState<string | null>(null);
-  const [note, setNote] = useState("");
+  const [note, setNote] = useState('');
   const add = useAddSource();
 
   const options = (search.data?.items ?? []).map((p) => ({
     value: String(p.id),
-    label: `${p.mpn} — ${p.manufacturer}${p.package ? `, ${p.package}` : ""}${p.card ? `, ${formatQuantity(p.card.vzNom, "voltage")} at ${formatQuantity(p.card.izt, "current")}` : ", no card"}`,
+    label: `${p.mpn} — ${p.manufacturer}${p.package ? `, ${p.package}` : ''}${p.card ? `, ${formatQuantity(p.card.vzNom, 'voltage')} at ${formatQuantity(p.card.izt, 'current')}` : ', no card'}`,
     disabled: linked.has(p.id),
   }));
 
@@ -76,13 +44,13 @@ function AddSource({
       {
         onSuccess: (source) => {
           notifications.show({
-            color: "verdigris",
-            title: "Source linked",
+            color: 'verdigris',
+            title: 'Source linked',
             message: `${source.mpn} (${source.manufacturer}) as a candidate; open its qualification case to approve or clear it.`,
           });
           setPicked(null);
-          setText("");
-          setNote("");
+          setText('');
+          setNote('');
         },
       },
     );
@@ -103,32 +71,12 @@ function AddSource({
           value={picked}
           onChange={setPicked}
           filter={({ options: o }) => o}
-          nothingFoundMessage={
-            query
-              ? search.isFetching
-                ? "Searching…"
-                : "No vendor part starts with this"
-              : "Type to search"
-          }
+          nothingFoundMessage={query ? (search.isFetching ? 'Searching…' : 'No vendor part starts with this') : 'Type to search'}
           rightSection={search.isFetching ? <Loader size={12} /> : undefined}
           clearable
         />
-        <TextInput
-          size="xs"
-          w={220}
-          label="Note"
-          placeholder="optional"
-          value={note}
-          onChange={(e) => setNote(e.currentTarget.value)}
-          maxLength={500}
-        />
-        <Button
-          size="xs"
-          leftSection={<IconLinkPlus size={14} />}
-          onClick={submit}
-          disabled={!picked}
-          loading={add.isPending}
-        >
+        <TextInput size="xs" w={220} label="Note" placeholder="optional" value={note} onChange={(e) => setNote(e.currentTarget.value)} maxLength={500} />
+        <Button size="xs" leftSection={<IconLinkPlus size={14} />} onClick={submit} disabled={!picked} loading={add.isPending}>
           Link source
         </Button>
       </Group>
@@ -142,19 +90,13 @@ function AddSource({
 }
 
 /** The vendor parts linked to a house part, each with the role its decisions gave it (read only). */
-export function SourcesPanel({
-  housePartId,
-  partNumber,
-}: {
-  housePartId: number;
-  partNumber: string;
-}) {
+export function SourcesPanel({ housePartId, partNumber }: { housePartId: number; partNumber: string }) {
   const sources = useSources(housePartId);
   const remove = useRemoveSource();
   const [removing, setRemoving] = useState<Source | null>(null);
   const linked = new Set((sources.data ?? []).map((s) => s.vendorPartId));
   // Only engineers link and unlink (the API refuses others); an admin reads.
-  const engineer = useSession()?.user.role === "engineer";
+  const engineer = useSession()?.user.role === 'engineer';
 
   return (
     <Paper>
@@ -163,9 +105,7 @@ export function SourcesPanel({
           Sources
         </Title>
         {engineer && <AddSource housePartId={housePartId} linked={linked} />}
-        {sources.isPending && (
-          <Loader size="sm" aria-label="Loading the sources" />
-        )}
+        {sources.isPending && <Loader size="sm" aria-label="Loading the sources" />}
         {sources.isError && (
           <Alert color="red" role="alert">
             {describeError(sources.error)}
@@ -173,9 +113,8 @@ export function SourcesPanel({
         )}
         {sources.data?.length === 0 && (
           <Text fz="sm" c="dimmed">
-            No vendor part is linked yet. Link the parts to qualify; a second
-            engineer's decision on each one's case makes it the approved source
-            or a cleared alternate.
+            No vendor part is linked yet. Link the parts to qualify; a second engineer's decision on each one's case makes it the approved source or a cleared
+            alternate.
           </Text>
         )}
         {sources.data && sources.data.length > 0 && (
@@ -196,25 +135,15 @@ export function SourcesPanel({
               {sources.data.map((s) => (
                 <Table.Tr key={s.vendorPartId}>
                   <Table.Td>
-                    <Anchor
-                      component={Link}
-                      to={`/vendor-parts/${s.vendorPartId}`}
-                      fz="sm"
-                      fw={500}
-                    >
+                    <Anchor component={Link} to={`/vendor-parts/${s.vendorPartId}`} fz="sm" fw={500}>
                       {s.mpn}
                     </Anchor>
                   </Table.Td>
                   <Table.Td>{s.manufacturer}</Table.Td>
-                  <Table.Td>{s.package ?? "–"}</Table.Td>
+                  <Table.Td>{s.package ?? '–'}</Table.Td>
                   <Table.Td>
                     <Tooltip label="Set by decisions on its qualification case, not here">
-                      <Badge
-                        size="sm"
-                        variant="outline"
-                        color={s.role === "approved" ? "verdigris" : "gray"}
-                        aria-label={`Role of ${s.mpn}`}
-                      >
+                      <Badge size="sm" variant="outline" color={s.role === 'approved' ? 'verdigris' : 'gray'} aria-label={`Role of ${s.mpn}`}>
                         {ROLE_LABEL[s.role]}
                       </Badge>
                     </Tooltip>
@@ -231,22 +160,17 @@ export function SourcesPanel({
                     )}
                   </Table.Td>
                   <Table.Td>
-                    <Text fz="xs">{s.note ?? ""}</Text>
+                    <Text fz="xs">{s.note ?? ''}</Text>
                   </Table.Td>
                   <Table.Td>
                     <Text fz="xs">
-                      {s.addedBy?.name ?? "–"}, {formatDateTime(s.createdAt)}
+                      {s.addedBy?.name ?? '–'}, {formatDateTime(s.createdAt)}
                     </Text>
                   </Table.Td>
                   <Table.Td>
                     {engineer && (
                       <Tooltip label="Remove this source">
-                        <ActionIcon
-                          variant="subtle"
-                          color="red"
-                          onClick={() => setRemoving(s)}
-                          aria-label={`Remove ${s.mpn}`}
-                        >
+                        <ActionIcon variant="subtle" color="red" onClick={() => setRemoving(s)} aria-label={`Remove ${s.mpn}`}>
                           <IconTrash size={16} />
                         </ActionIcon>
                       </Tooltip>
@@ -258,19 +182,12 @@ export function SourcesPanel({
           </Table>
         )}
       </Stack>
-      <Modal
-        opened={removing !== null}
-        onClose={() => setRemoving(null)}
-        title="Remove this source?"
-        centered
-      >
+      <Modal opened={removing !== null} onClose={() => setRemoving(null)} title="Remove this source?" centered>
         {removing && (
           <Stack gap="sm">
             <Text fz="sm">
-              {removing.mpn} ({removing.manufacturer}) stops being{" "}
-              {removing.role === "approved" ? "an approved" : "an alternate"}{" "}
-              source of {partNumber}. The vendor part and its card stay in the
-              catalogue.
+              {removing.mpn} ({removing.manufacturer}) stops being {removing.role === 'approved' ? 'an approved' : 'an alternate'} source of {partNumber}. The
+              vendor part and its card stay in the catalogue.
             </Text>
             {remove.isError && (
               <Alert color="red" p="xs" role="alert">
@@ -290,8 +207,8 @@ export function SourcesPanel({
                     {
                       onSuccess: () => {
                         notifications.show({
-                          color: "verdigris",
-                          title: "Source removed",
+                          color: 'verdigris',
+                          title: 'Source removed',
                           message: `${removing.mpn} is no longer a source of ${partNumber}.`,
                         });
                         setRemoving(null);

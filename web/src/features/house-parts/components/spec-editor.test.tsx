@@ -7,7 +7,14 @@ import { render, signInAs } from '@/testing/render';
 import { SpecEditor } from './spec-editor';
 
 function saved(version: number, spec: unknown): SpecVersion {
-  return { housePartId: 5, version, spec: spec as SpecVersion['spec'], note: null, createdAt: '2026-12-01T10:00:00.000Z', createdBy: { id: 2, name: 'Priya Raman' } };
+  return {
+    housePartId: 5,
+    version,
+    spec: spec as SpecVersion['spec'],
+    note: null,
+    createdAt: '2026-12-01T10:00:00.000Z',
+    createdBy: { id: 2, name: 'Priya Raman' },
+  };
 }
 
 const v1 = saved(1, {
@@ -136,7 +143,10 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
       'PUT /api/house-parts/:id/spec': (call) => {
         puts += 1;
         if (puts === 1) {
-          return { status: 409, body: errorBody('The spec of OHI-ZD-9051 is now at version 2; you edited version 1.', [{ path: 'baseVersion', message: 'current version is 2' }]) };
+          return {
+            status: 409,
+            body: errorBody('The spec of OHI-ZD-9051 is now at version 2; you edited version 1.', [{ path: 'baseVersion', message: 'current version is 2' }]),
+          };
         }
         return { body: saved(3, (call.body as Put).spec) };
       },
@@ -231,7 +241,9 @@ describe('SpecEditor', { timeout: 20_000 }, () => {
     await user.tab();
     // Not silently clamped or scaled: 0.5 stays 0.5 %, and the line says so and asks.
     expect(share).toHaveValue('0.5 %');
-    expect(screen.getByTestId('derating-reading')).toHaveTextContent('stores 0.5 % of the derated rating (fraction 0.005) — did you mean the fraction 0.5, that is 50 %?');
+    expect(screen.getByTestId('derating-reading')).toHaveTextContent(
+      'stores 0.5 % of the derated rating (fraction 0.005) — did you mean the fraction 0.5, that is 50 %?',
+    );
     await user.click(screen.getByRole('button', { name: 'Use 50 %' }));
     expect(share).toHaveValue('50 %');
     expect(screen.getByTestId('derating-reading')).toHaveTextContent('stores 50 % of the derated rating (fraction 0.5)');

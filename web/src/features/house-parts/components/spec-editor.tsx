@@ -303,7 +303,13 @@ export function SpecEditor({ housePartId, partNumber, current, startFrom }: Spec
         </SimpleGrid>
 
         <Group align="flex-end" gap="xs">
-          <TextInput style={{ flex: 1 }} label="Note for this version" placeholder="e.g. envelope widened for the outdoor variant" maxLength={500} {...ip('note')} />
+          <TextInput
+            style={{ flex: 1 }}
+            label="Note for this version"
+            placeholder="e.g. envelope widened for the outdoor variant"
+            maxLength={500}
+            {...ip('note')}
+          />
           <Button type="submit" loading={put.isPending} disabled={!changed}>
             {changed ? `Save as v${baseVersion + 1}` : 'No changes to save'}
           </Button>

@@ -132,7 +132,13 @@ export function SpecVersions({ housePartId, onStartFrom }: { housePartId: number
               {list.map((v) => (
                 <Table.Tr key={v.version}>
                   <Table.Td w={40}>
-                    <Anchor component="button" type="button" fz="sm" onClick={() => setShown(v.version)} aria-label={`v${v.version}: open spec version ${v.version}`}>
+                    <Anchor
+                      component="button"
+                      type="button"
+                      fz="sm"
+                      onClick={() => setShown(v.version)}
+                      aria-label={`v${v.version}: open spec version ${v.version}`}
+                    >
                       v{v.version}
                     </Anchor>
                   </Table.Td>

@@ -40,7 +40,8 @@ export function MeasuredEvidence({ housePartId, sources }: { housePartId: number
           Measured samples against the spec
         </Title>
         <Text fz="xs" c="dimmed">
-          Bench measurements uploaded on each vendor part, fitted per sample and read at the spec&apos;s reference current; parts without measurements are not listed.
+          Bench measurements uploaded on each vendor part, fitted per sample and read at the spec&apos;s reference current; parts without measurements are not
+          listed.
         </Text>
         {sources.map((s) => (
           <SourceSets key={s.vendorPartId} source={s} housePartId={housePartId} />

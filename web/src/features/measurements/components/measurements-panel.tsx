@@ -21,8 +21,8 @@ function Spread({ spread, kind }: { spread: SpreadDto | null; kind: 'voltage' | 
   if (!spread) return <>–</>;
   return (
     <span style={{ whiteSpace: 'nowrap' }}>
-      <Quantity value={spread.mean} kind={kind} digits={4} /> (<Quantity value={spread.min} kind={kind} digits={4} /> … <Quantity value={spread.max} kind={kind} digits={4} />, σ{' '}
-      <Quantity value={spread.stdDev} kind={kind} digits={2} />)
+      <Quantity value={spread.mean} kind={kind} digits={4} /> (<Quantity value={spread.min} kind={kind} digits={4} /> …{' '}
+      <Quantity value={spread.max} kind={kind} digits={4} />, σ <Quantity value={spread.stdDev} kind={kind} digits={2} />)
     </span>
   );
 }
@@ -40,7 +40,12 @@ export function MeasurementSetResult({ set }: { set: MeasurementSet }) {
             <VerdictBadge verdict={a.overall} />
           </Group>
           <Text fz="xs" c="dimmed">
-            {[set.lot && `lot ${set.lot}`, set.instrument, set.measuredOn && `measured ${set.measuredOn}`, `uploaded ${formatDateTime(set.createdAt)}${set.uploadedBy ? ` by ${set.uploadedBy.name}` : ''}`]
+            {[
+              set.lot && `lot ${set.lot}`,
+              set.instrument,
+              set.measuredOn && `measured ${set.measuredOn}`,
+              `uploaded ${formatDateTime(set.createdAt)}${set.uploadedBy ? ` by ${set.uploadedBy.name}` : ''}`,
+            ]
               .filter(Boolean)
               .join(' · ')}
           </Text>
@@ -247,8 +252,14 @@ export function MeasurementsPanel({ vendorPartId, canUpload }: { vendorPartId: n
             The measurements could not be loaded: {describeError(sets.error)}
           </Alert>
         )}
-        {sets.data?.length === 0 && <Text fz="sm" c="dimmed">No bench measurements of this part yet.</Text>}
-        {sets.data?.map((set) => <MeasurementSetResult key={set.id} set={set} />)}
+        {sets.data?.length === 0 && (
+          <Text fz="sm" c="dimmed">
+            No bench measurements of this part yet.
+          </Text>
+        )}
+        {sets.data?.map((set) => (
+          <MeasurementSetResult key={set.id} set={set} />
+        ))}
         {sets.data && sets.data.length > 0 && (
           <Badge variant="light" color="gray" w="fit-content">
             {sets.data.length} set(s)

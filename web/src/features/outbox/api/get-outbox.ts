@@ -11,8 +11,7 @@ export async function getOutbox(signal?: AbortSignal): Promise<CapturedMail[]> {
   return [...mails].sort((a, b) => Date.parse(b.receivedAt) - Date.parse(a.receivedAt) || b.id - a.id);
 }
 
-export const outboxQueryOptions = () =>
-  queryOptions({ queryKey: outboxKeys.list(), queryFn: ({ signal }) => getOutbox(signal), staleTime: 0 });
+export const outboxQueryOptions = () => queryOptions({ queryKey: outboxKeys.list(), queryFn: ({ signal }) => getOutbox(signal), staleTime: 0 });
 
 export function useOutbox() {
   return useQuery(outboxQueryOptions());

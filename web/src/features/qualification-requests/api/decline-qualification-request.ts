@@ -15,5 +15,8 @@ export function declineQualificationRequest({ id, body }: DeclineInput): Promise
 
 export function useDeclineQualificationRequest() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: declineQualificationRequest, onSuccess: () => queryClient.invalidateQueries({ queryKey: qualificationRequestKeys.lists() }) });
+  return useMutation({
+    mutationFn: declineQualificationRequest,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: qualificationRequestKeys.lists() }),
+  });
 }

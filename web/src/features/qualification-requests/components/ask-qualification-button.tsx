@@ -52,7 +52,9 @@ export function AskQualificationButton({ target }: { target: AskTarget }) {
           withArrow
           multiline
           maw={300}
-          label={waiting.map((r) => `Request #${r.id}${r.housePart ? ` for ${r.housePart.partNumber}` : ''}, sent ${formatDateTime(r.createdAt)}: waiting for an engineer`).join('; ')}
+          label={waiting
+            .map((r) => `Request #${r.id}${r.housePart ? ` for ${r.housePart.partNumber}` : ''}, sent ${formatDateTime(r.createdAt)}: waiting for an engineer`)
+            .join('; ')}
         >
           <Badge size="sm" color="blue" variant="outline" data-testid={`asked-${mpn}`}>
             you asked · waiting
@@ -118,8 +120,8 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
     <Modal opened onClose={onClose} title={`Ask for qualification of ${target.vendorPart.mpn}`} centered size="lg">
       <Stack gap="sm">
         <Text fz="sm">
-          A component engineer checks {what} against a house part&apos;s spec, and a second engineer signs the decision off. Say what you need it for, so they can weigh
-          it against the rest of their work.
+          A component engineer checks {what} against a house part&apos;s spec, and a second engineer signs the decision off. Say what you need it for, so they
+          can weigh it against the rest of their work.
         </Text>
         {target.clearedFor.length > 0 && (
           <Text fz="sm" c="dimmed">
@@ -158,12 +160,26 @@ function AskQualificationDialog({ target, onClose }: { target: AskTarget; onClos
           error={errors.note}
           data-autofocus
         />
-        <TextInput type="date" w={200} label="Needed by" description="Optional" min={today()} value={neededBy} onChange={(e) => {
+        <TextInput
+          type="date"
+          w={200}
+          label="Needed by"
+          description="Optional"
+          min={today()}
+          value={neededBy}
+          onChange={(e) => {
             setNeededBy(e.currentTarget.value);
             clear('neededBy');
-          }} error={errors.neededBy} />
+          }}
+          error={errors.neededBy}
+        />
         {create.isError && Object.keys(fieldErrors(create.error)).length === 0 && (
-          <Alert color={create.error instanceof ApiError && create.error.status === 409 ? 'orange' : 'red'} role="alert" title="The request was not sent" p="xs">
+          <Alert
+            color={create.error instanceof ApiError && create.error.status === 409 ? 'orange' : 'red'}
+            role="alert"
+            title="The request was not sent"
+            p="xs"
+          >
             <Text fz="sm">{describeError(create.error)}</Text>
           </Alert>
         )}

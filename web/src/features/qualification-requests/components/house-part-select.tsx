@@ -19,7 +19,17 @@ export interface HousePartSelectProps {
 }
 
 /** A house part chosen by number or description; the server finds the matches. */
-export function HousePartSelect({ label, description, placeholder, value, onChange, exclude, requireSpec = false, required = false, error }: HousePartSelectProps) {
+export function HousePartSelect({
+  label,
+  description,
+  placeholder,
+  value,
+  onChange,
+  exclude,
+  requireSpec = false,
+  required = false,
+  error,
+}: HousePartSelectProps) {
   const [search, setSearch] = useState('');
   const [q] = useDebouncedValue(search.trim(), 250);
   const [chosen, setChosen] = useState<HousePart | null>(null);

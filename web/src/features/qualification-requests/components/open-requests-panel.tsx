@@ -80,8 +80,8 @@ function OpenCaseDialog({ request, onClose }: { request: QualificationRequest; o
       <Stack gap="sm">
         <Text fz="sm">
           Opens a qualification case for {what}
-          {request.housePart ? ` as a source of ${request.housePart.partNumber}` : ''}. Its rating card is checked now against the house part&apos;s current spec; the case
-          starts as a draft, request #{request.id} is taken up and {request.requestedBy.name} is told.
+          {request.housePart ? ` as a source of ${request.housePart.partNumber}` : ''}. Its rating card is checked now against the house part&apos;s current
+          spec; the case starts as a draft, request #{request.id} is taken up and {request.requestedBy.name} is told.
         </Text>
         <Paper withBorder p="xs" bg="var(--mantine-color-default-hover)">
           <Text fz="xs" c="dimmed">
@@ -110,7 +110,7 @@ function OpenCaseDialog({ request, onClose }: { request: QualificationRequest; o
               setHousePartId(id);
               setMissing(false);
             }}
-            error={missing ? 'Choose the house part to qualify it for' : (open.error instanceof ApiError ? open.error.fieldError('housePartId') : undefined)}
+            error={missing ? 'Choose the house part to qualify it for' : open.error instanceof ApiError ? open.error.fieldError('housePartId') : undefined}
           />
         )}
         <Textarea
@@ -176,7 +176,13 @@ function DeclineDialog({ request, onClose }: { request: QualificationRequest; on
             setReply(e.currentTarget.value);
             setMissing(false);
           }}
-          error={missing ? 'Write the reply to the requester: why not, or what to use instead' : (decline.error instanceof ApiError ? decline.error.fieldError('reply') : undefined)}
+          error={
+            missing
+              ? 'Write the reply to the requester: why not, or what to use instead'
+              : decline.error instanceof ApiError
+                ? decline.error.fieldError('reply')
+                : undefined
+          }
           data-autofocus
         />
         {decline.isError && !(decline.error instanceof ApiError && decline.error.fieldError('reply')) && <Refused error={decline.error} what="declined" />}
@@ -287,7 +293,13 @@ export function OpenRequestsPanel({ canAct, linkParts }: { canAct: boolean; link
                     </Text>
                   </Table.Td>
                   <Table.Td fz="sm" style={{ whiteSpace: 'nowrap' }}>
-                    {r.neededBy ? formatDay(r.neededBy) : <Text span fz="xs" c="dimmed">–</Text>}
+                    {r.neededBy ? (
+                      formatDay(r.neededBy)
+                    ) : (
+                      <Text span fz="xs" c="dimmed">
+                        –
+                      </Text>
+                    )}
                   </Table.Td>
                   <Table.Td maw={420}>
                     <Text fz="xs" lineClamp={2} title={r.note}>

@@ -18,7 +18,9 @@ export function useWaivers(qualificationId: number, enabled: boolean) {
 export function useWaiverStep(qualificationId: number) {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (step: { kind: 'create'; body: CreateWaiverRequest } | { kind: 'approve' | 'refuse'; waiverId: number; body: Record<string, unknown> }): Promise<Waiver> =>
+    mutationFn: (
+      step: { kind: 'create'; body: CreateWaiverRequest } | { kind: 'approve' | 'refuse'; waiverId: number; body: Record<string, unknown> },
+    ): Promise<Waiver> =>
       step.kind === 'create'
         ? apiRequest(`/qualifications/${qualificationId}/waivers`, { method: 'POST', body: step.body, schema: waiverSchema })
         : apiRequest(`/qualifications/${qualificationId}/waivers/${step.waiverId}/${step.kind}`, { method: 'POST', body: step.body, schema: waiverSchema }),

@@ -1,11 +1,4 @@
-import {
-  QUALIFICATION_VERDICT_LABELS,
-  actionBlock,
-  isEvaluationFresh,
-  type Qualification,
-  type QualificationAction,
-  type Role,
-} from '@shuntwise/contracts';
+import { QUALIFICATION_VERDICT_LABELS, actionBlock, isEvaluationFresh, type Qualification, type QualificationAction, type Role } from '@shuntwise/contracts';
 
 export interface Viewer {
   id: number;
@@ -13,14 +6,27 @@ export interface Viewer {
 }
 
 /** The order the panel offers actions in: the decision first, then the way out. */
-const ORDER: readonly QualificationAction[] = ['submit', 'evaluate', 'approve', 'clear', 'clear-with-conditions', 'clear-with-waiver', 'reject', 'send-back', 'withdraw', 'revoke', 'recheck'];
+const ORDER: readonly QualificationAction[] = [
+  'submit',
+  'evaluate',
+  'approve',
+  'clear',
+  'clear-with-conditions',
+  'clear-with-waiver',
+  'reject',
+  'send-back',
+  'withdraw',
+  'revoke',
+  'recheck',
+];
 
 /** True when the evaluation is on the spec and card the catalogue holds now, and nothing flagged it. */
 export function isEvaluationCurrent(q: Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>): boolean {
   return isEvaluationFresh(q, q.current);
 }
 
-type OfferFacts = Pick<Qualification, 'state' | 'preparedBy' | 'overall' | 'nextId'> & Partial<Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>>;
+type OfferFacts = Pick<Qualification, 'state' | 'preparedBy' | 'overall' | 'nextId'> &
+  Partial<Pick<Qualification, 'needsRecheck' | 'specVersion' | 'cardVersion' | 'current'>>;
 
 /**
  * The same rule the server enforces (actionBlock in contracts/qualifications/source-standing.ts):
@@ -29,9 +35,18 @@ type OfferFacts = Pick<Qualification, 'state' | 'preparedBy' | 'overall' | 'next
  * list is applied too; this keeps a button from being offered at all.
  */
 export function mayOffer(action: QualificationAction, q: OfferFacts, viewer: Viewer, waivers?: { gaps: readonly never[]; inForce: number }): boolean {
-  const fresh = q.current && q.specVersion !== undefined && q.cardVersion !== undefined ? isEvaluationFresh({ needsRecheck: q.needsRecheck ?? false, specVersion: q.specVersion, cardVersion: q.cardVersion }, q.current) : true;
+  const fresh =
+    q.current && q.specVersion !== undefined && q.cardVersion !== undefined
+      ? isEvaluationFresh({ needsRecheck: q.needsRecheck ?? false, specVersion: q.specVersion, cardVersion: q.cardVersion }, q.current)
+      : true;
   // The state of a newer revision is the server's to know: its list decides revoke.
-  return actionBlock(action, { state: q.state, preparedById: q.preparedBy.id, overall: q.overall, fresh, nextId: q.nextId, nextState: undefined, waivers }, viewer) === null;
+  return (
+    actionBlock(
+      action,
+      { state: q.state, preparedById: q.preparedBy.id, overall: q.overall, fresh, nextId: q.nextId, nextState: undefined, waivers },
+      viewer,
+    ) === null
+  );
 }
 
 /** The actions to show as buttons: what the server allows now, within the same rule, in a fixed order. */
@@ -65,7 +80,9 @@ export function signOffNotes(q: Qualification, viewer: Viewer): string[] {
         break;
       }
       if (!current) {
-        notes.push('The catalogue changed since this evaluation: send it back to draft to evaluate it again before it can be cleared. Rejecting stays possible.');
+        notes.push(
+          'The catalogue changed since this evaluation: send it back to draft to evaluate it again before it can be cleared. Rejecting stays possible.',
+        );
       } else if (q.overall === 'fail') {
         notes.push('The evaluation fails: a failing source cannot be cleared. Reject it or send it back.');
       } else if (q.overall !== 'pass') {

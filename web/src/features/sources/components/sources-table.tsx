@@ -133,7 +133,11 @@ export function SourcesTable() {
       )}
       {view.data && items.length === 0 && (
         <Text c="dimmed" ta="center" py="lg" fz="sm">
-          {q ? 'No house part matches.' : scope === 'mine' ? 'You follow no house part yet. Show all house parts and follow the ones you buy for.' : 'No house part yet.'}
+          {q
+            ? 'No house part matches.'
+            : scope === 'mine'
+              ? 'You follow no house part yet. Show all house parts and follow the ones you buy for.'
+              : 'No house part yet.'}
         </Text>
       )}
       {items.length > 0 && (

@@ -9,8 +9,7 @@ export function getInvitations(signal?: AbortSignal): Promise<Invitation[]> {
   return apiRequest('/users/invitations', { schema: invitationsSchema, signal });
 }
 
-export const invitationsQueryOptions = () =>
-  queryOptions({ queryKey: userKeys.invitations(), queryFn: ({ signal }) => getInvitations(signal) });
+export const invitationsQueryOptions = () => queryOptions({ queryKey: userKeys.invitations(), queryFn: ({ signal }) => getInvitations(signal) });
 
 export function useInvitations() {
   return useQuery(invitationsQueryOptions());

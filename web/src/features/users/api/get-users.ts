@@ -9,8 +9,7 @@ export function getUsers(signal?: AbortSignal): Promise<User[]> {
   return apiRequest('/users', { schema: usersSchema, signal });
 }
 
-export const usersQueryOptions = () =>
-  queryOptions({ queryKey: userKeys.lists(), queryFn: ({ signal }) => getUsers(signal) });
+export const usersQueryOptions = () => queryOptions({ queryKey: userKeys.lists(), queryFn: ({ signal }) => getUsers(signal) });
 
 export function useUsers() {
   return useQuery(usersQueryOptions());

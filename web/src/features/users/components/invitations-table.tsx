@@ -15,9 +15,7 @@ export function InvitationsTable({ invitations, now = Date.now() }: { invitation
       onSuccess: () => notifications.show({ color: 'verdigris', title: done, message: invitation.email }),
       onError: (e) => notifications.show({ color: 'red', title: failed, message: describeError(e) }),
     });
-  const pending = invitations
-    .filter((i) => i.acceptedAt === null && i.revokedAt === null)
-    .sort((a, b) => Date.parse(b.createdAt) - Date.parse(a.createdAt));
+  const pending = invitations.filter((i) => i.acceptedAt === null && i.revokedAt === null).sort((a, b) => Date.parse(b.createdAt) - Date.parse(a.createdAt));
 
   if (pending.length === 0) {
     return (
@@ -54,13 +52,7 @@ export function InvitationsTable({ invitations, now = Date.now() }: { invitation
                 <RoleBadge role={invitation.role} />
               </Table.Td>
               <Table.Td>{formatDateTime(invitation.createdAt)}</Table.Td>
-              <Table.Td>
-                {expired ? (
-                  <Badge color="gray">Expired {formatDateTime(invitation.expiresAt)}</Badge>
-                ) : (
-                  formatDateTime(invitation.expiresAt)
-                )}
-              </Table.Td>
+              <Table.Td>{expired ? <Badge color="gray">Expired {formatDateTime(invitation.expiresAt)}</Badge> : formatDateTime(invitation.expiresAt)}</Table.Td>
               <Table.Td>
                 <Group gap={6} wrap="nowrap">
                   <Button
@@ -79,7 +71,8 @@ export function InvitationsTable({ invitations, now = Date.now() }: { invitation
                     aria-label={`Revoke the invitation of ${invitation.email}`}
                     loading={revoke.isPending && revoke.variables === invitation.id}
                     onClick={() => {
-                      if (window.confirm(`Revoke the invitation of ${invitation.email}? Its link stops working.`)) run(revoke, invitation, 'Invitation revoked', 'The invitation was not revoked');
+                      if (window.confirm(`Revoke the invitation of ${invitation.email}? Its link stops working.`))
+                        run(revoke, invitation, 'Invitation revoked', 'The invitation was not revoked');
                     }}
                   >
                     Revoke

@@ -31,8 +31,7 @@ export function UsersTable({ users, loading }: { users: User[]; loading: boolean
               title: 'Role changed',
               message: `${saved.name} is now ${roleLabel(saved.role)}. They sign in again to use it.`,
             }),
-          onError: (error) =>
-            notifications.show({ color: 'red', title: 'Role not changed', message: describeError(error) }),
+          onError: (error) => notifications.show({ color: 'red', title: 'Role not changed', message: describeError(error) }),
         },
       );
     },
@@ -48,9 +47,7 @@ export function UsersTable({ users, loading }: { users: User[]; loading: boolean
           notifications.show({
             color: 'verdigris',
             title: active ? 'Reactivated' : 'Deactivated',
-            message: active
-              ? `${saved.name} can sign in again.`
-              : `${saved.name} is signed out everywhere and cannot sign in.`,
+            message: active ? `${saved.name} can sign in again.` : `${saved.name} is signed out everywhere and cannot sign in.`,
           });
         },
         onError: (error) => {
@@ -101,8 +98,7 @@ export function UsersTable({ users, loading }: { users: User[]; loading: boolean
       {
         accessorKey: 'active',
         header: 'Status',
-        Cell: ({ row }) =>
-          row.original.active ? <Badge color="verdigris">Active</Badge> : <Badge color="gray">Deactivated</Badge>,
+        Cell: ({ row }) => (row.original.active ? <Badge color="verdigris">Active</Badge> : <Badge color="gray">Deactivated</Badge>),
       },
       {
         accessorKey: 'lastLoginAt',
@@ -155,8 +151,8 @@ export function UsersTable({ users, loading }: { users: User[]; loading: boolean
         {confirming && (
           <>
             <Text fz="sm">
-              {confirming.name} ({confirming.email}) is signed out at once and cannot sign in until an administrator
-              reactivates the account. Their records stay as they are.
+              {confirming.name} ({confirming.email}) is signed out at once and cannot sign in until an administrator reactivates the account. Their records stay
+              as they are.
             </Text>
             <Group justify="flex-end" mt="md">
               <Button variant="default" onClick={() => setConfirming(null)}>

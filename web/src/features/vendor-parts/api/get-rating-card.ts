@@ -1,10 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import {
-  ratingCardVersionSummarySchema,
-  ratingCardViewSchema,
-  type RatingCardVersionSummary,
-  type RatingCardView,
-} from '@shuntwise/contracts';
+import { ratingCardVersionSummarySchema, ratingCardViewSchema, type RatingCardVersionSummary, type RatingCardView } from '@shuntwise/contracts';
 import { apiRequest } from '@/lib/api-client';
 import { vendorPartKeys } from './vendor-part-keys';
 

@@ -7,8 +7,7 @@ export function getVendorPart(id: number, signal?: AbortSignal): Promise<VendorP
   return apiRequest(`/vendor-parts/${id}`, { schema: vendorPartDetailSchema, signal });
 }
 
-export const vendorPartQueryOptions = (id: number) =>
-  queryOptions({ queryKey: vendorPartKeys.detail(id), queryFn: ({ signal }) => getVendorPart(id, signal) });
+export const vendorPartQueryOptions = (id: number) => queryOptions({ queryKey: vendorPartKeys.detail(id), queryFn: ({ signal }) => getVendorPart(id, signal) });
 
 export function useVendorPart(id: number) {
   return useQuery(vendorPartQueryOptions(id));

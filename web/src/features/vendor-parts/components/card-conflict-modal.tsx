@@ -54,8 +54,8 @@ export function CardConflictModal({ opened, baseVersion, base, mine, theirs, cur
     <Modal opened={opened} onClose={onKeepEditing} title="The card was saved by someone else meanwhile" size="xl" centered>
       <Stack gap="sm">
         <Alert color="yellow" p="xs">
-          You edited version {baseVersion}; version {current.version} was saved by {who}. Nothing has been overwritten and
-          nothing you typed is lost. Choose per field which value to keep.
+          You edited version {baseVersion}; version {current.version} was saved by {who}. Nothing has been overwritten and nothing you typed is lost. Choose per
+          field which value to keep.
           {conflicts > 0 && ` ${conflicts} field${conflicts === 1 ? '' : 's'} changed on both sides.`}
         </Alert>
         <Table aria-label="Both versions of the card">

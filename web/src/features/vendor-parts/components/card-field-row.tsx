@@ -35,12 +35,25 @@ export interface CardFieldRowProps {
 /** Where a value sits in its datasheet, with the box when the stored value is the suggestion itself. */
 function locationOf(value: DraftField | undefined, suggestion: Suggestion | undefined): SourceLocation | null {
   if (!value || value.datasheetId === null || value.page === null) return null;
-  const box = suggestion && suggestion.datasheetId === value.datasheetId && suggestion.page === value.page && sameFieldValue(value, suggestion) ? suggestion.box : undefined;
+  const box =
+    suggestion && suggestion.datasheetId === value.datasheetId && suggestion.page === value.page && sameFieldValue(value, suggestion)
+      ? suggestion.box
+      : undefined;
   return { datasheetId: value.datasheetId, page: value.page, text: value.text, box };
 }
 
 /** One card field: its value (typed with units), the datasheet's suggestion, and where the value came from. */
-export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestion, changed, error, readOnly, onEnter, onAccept, onShowSource }: CardFieldRowProps) {
+export const CardFieldRow = memo(function CardFieldRow({
+  field,
+  value,
+  suggestion,
+  changed,
+  error,
+  readOnly,
+  onEnter,
+  onAccept,
+  onShowSource,
+}: CardFieldRowProps) {
   const meta = CARD_FIELD_META[field];
   const location = locationOf(value, suggestion);
   const inputLabel = `${meta.symbol} (${meta.label})`;
@@ -92,7 +105,14 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
         {suggestion &&
           (matches ? (
             <Tooltip label={`As printed on page ${suggestion.page}: ${suggestion.text}`} multiline maw={360}>
-              <Anchor component="button" type="button" fz="xs" c="verdigris" onClick={() => onShowSource(suggestion)} aria-label={`${meta.symbol} as printed on page ${suggestion.page}`}>
+              <Anchor
+                component="button"
+                type="button"
+                fz="xs"
+                c="verdigris"
+                onClick={() => onShowSource(suggestion)}
+                aria-label={`${meta.symbol} as printed on page ${suggestion.page}`}
+              >
                 <Group gap={2} wrap="nowrap">
                   <IconCheck size={14} />
                   page {suggestion.page}
@@ -116,7 +136,13 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
                   {formatCardValue(field, suggestion.value, suggestion.unit)}
                 </Button>
               </Tooltip>
-              <Anchor component="button" type="button" fz="xs" onClick={() => onShowSource(suggestion)} aria-label={`Show ${meta.symbol} on page ${suggestion.page}`}>
+              <Anchor
+                component="button"
+                type="button"
+                fz="xs"
+                onClick={() => onShowSource(suggestion)}
+                aria-label={`Show ${meta.symbol} on page ${suggestion.page}`}
+              >
                 page {suggestion.page}
               </Anchor>
             </Group>
@@ -130,7 +156,14 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               {SOURCE_LABEL[value.source]}
             </Badge>
             {location && (
-              <Anchor component="button" type="button" fz="xs" onClick={showLocation} aria-label={`Show the source of ${meta.symbol}, page ${location.page}`} style={{ flexShrink: 0 }}>
+              <Anchor
+                component="button"
+                type="button"
+                fz="xs"
+                onClick={showLocation}
+                aria-label={`Show the source of ${meta.symbol}, page ${location.page}`}
+                style={{ flexShrink: 0 }}
+              >
                 page {location.page}
               </Anchor>
             )}
@@ -138,7 +171,11 @@ export const CardFieldRow = memo(function CardFieldRow({ field, value, suggestio
               fz={11}
               c={changed ? 'yellow.8' : 'dimmed'}
               truncate
-              title={value.confirmedBy ? `Confirmed by ${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt)}${value.text ? ` — “${value.text}”` : ''}` : value.text ?? undefined}
+              title={
+                value.confirmedBy
+                  ? `Confirmed by ${value.confirmedBy.name}, ${formatDateTime(value.confirmedAt)}${value.text ? ` — “${value.text}”` : ''}`
+                  : (value.text ?? undefined)
+              }
             >
               {changed ? 'unsaved' : value.confirmedBy ? `${value.confirmedBy.name}, ${formatShortDate(value.confirmedAt)}` : 'not confirmed'}
             </Text>

@@ -51,7 +51,14 @@ function stored(value: number, printed: string, source: 'extracted' | 'entered',
   return {
     value,
     printed,
-    provenance: { source, datasheetId: page ? 7 : null, page, text: page ? 'PWZ-5V1 4.85 5.1 5.36 5 10' : null, confirmedBy: by, confirmedAt: '2026-12-01T10:00:00.000Z' },
+    provenance: {
+      source,
+      datasheetId: page ? 7 : null,
+      page,
+      text: page ? 'PWZ-5V1 4.85 5.1 5.36 5 10' : null,
+      confirmedBy: by,
+      confirmedAt: '2026-12-01T10:00:00.000Z',
+    },
   };
 }
 
@@ -92,7 +99,10 @@ function api(overrides: Parameters<typeof mockApi>[0] = {}) {
   });
 }
 
-type PutBody = { version: number; fields: Record<string, { value: number; printed?: string; unit?: string; provenance: Record<string, unknown>; confirmed: boolean }> };
+type PutBody = {
+  version: number;
+  fields: Record<string, { value: number; printed?: string; unit?: string; provenance: Record<string, unknown>; confirmed: boolean }>;
+};
 const body = (call: RecordedCall) => call.body as PutBody;
 
 describe('RatingCardEditor', () => {
@@ -143,7 +153,9 @@ describe('RatingCardEditor', () => {
     expect(screen.getByRole('button', { name: 'Use 10.0 Ω for ZZT' })).toBeInTheDocument();
 
     // The engineering core is asked with the card as typed: 8 Ω, in SI.
-    await waitFor(() => expect(calls.callsTo('POST', '/api/engineering/normalize').some((c) => (c.body as { card: { zzt: number } }).card.zzt === 8)).toBe(true));
+    await waitFor(() =>
+      expect(calls.callsTo('POST', '/api/engineering/normalize').some((c) => (c.body as { card: { zzt: number } }).card.zzt === 8)).toBe(true),
+    );
     const request = calls.callsTo('POST', '/api/engineering/normalize').at(-1)!.body as { currents: number[]; temperaturesC: number[] };
     // No house part: its own test current and the standard 1, 5, 10, 20 mA, once each.
     expect(request.currents).toEqual([0.001, 0.005, 0.01, 0.02]);
@@ -178,7 +190,9 @@ describe('RatingCardEditor', () => {
     api({
       'PUT /api/vendor-parts/:id/rating-card': {
         status: 400,
-        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [{ path: 'fields.zzt.value', message: 'ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)' }]),
+        body: errorBody('Invalid request: fields.zzt.value: zzt (900 Ω) × izt (0.005 A) is not below vzNom', [
+          { path: 'fields.zzt.value', message: 'ZZT (900 Ω) × IZT (5 mA) is not below VZ nom (5.1 V)' },
+        ]),
       },
     });
     const { user } = render(<RatingCardEditor vendorPart={part} card={cardV1} extraction={extraction} onShowSource={() => {}} />);
@@ -208,7 +222,11 @@ describe('RatingCardEditor', () => {
     const calls = api({
       'PUT /api/vendor-parts/:id/rating-card': () => {
         puts += 1;
-        if (puts === 1) return { status: 409, body: { message: 'The card is at version 2; you edited version 1', code: 'stale', correlationId: 'c0ffee00-test', current: theirs } };
+        if (puts === 1)
+          return {
+            status: 409,
+            body: { message: 'The card is at version 2; you edited version 1', code: 'stale', correlationId: 'c0ffee00-test', current: theirs },
+          };
         return { body: { ...theirs, version: 3, fields: { ...theirs.fields, zzt: stored(8, '8 Ω', 'entered', null) } } };
       },
     });

@@ -87,9 +87,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
   const variants = useMemo(() => extraction?.variants ?? [], [extraction]);
   const variant = useMemo(
     () =>
-      (variantChoice && extraction && variantChoice.datasheetId === extraction.datasheetId
-        ? variants.find((v) => v.mpn === variantChoice.mpn)
-        : undefined) ??
+      (variantChoice && extraction && variantChoice.datasheetId === extraction.datasheetId ? variants.find((v) => v.mpn === variantChoice.mpn) : undefined) ??
       matchVariant(variants, vendorPart.mpn) ??
       (variants.length === 1 ? variants[0] : undefined) ??
       // A part number the datasheet does not print (an ordering code): the variant the saved card came from.
@@ -138,8 +136,7 @@ export function RatingCardEditor({ vendorPart, card, extraction, onShowSource, r
     ...vendorPart.sourceOf.map((s) => ({ value: String(s.housePartId), label: `Spec of ${s.partNumber} (${s.role})` })),
     { value: STANDARD, label: 'Standard currents' },
   ];
-  const basisLabel =
-    basis?.label ?? (basisHousePart && spec.data === null ? `(${basisHousePart.partNumber} has no spec yet)` : '');
+  const basisLabel = basis?.label ?? (basisHousePart && spec.data === null ? `(${basisHousePart.partNumber} has no spec yet)` : '');
 
   const save = (fields: CardDraft = draft, version: number = baseVersion) => {
     if (readOnly || put.isPending) return;

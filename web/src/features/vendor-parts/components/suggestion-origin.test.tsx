@@ -30,7 +30,16 @@ const variant: ExtractedVariant = {
     // Worked out from the "B" (±2 %) suffix: 6.2 V × 0.98 = 6.076 V (common practice for tolerance suffixes, no source).
     vzMin: { value: '6.076', unit: 'V', si: 6.076, page: 1, text: 'B = ±2 %', method: 'list', derived: 'tolerance-suffix' },
     // A %/K figure converted with VZnom: 0.05 %/K of 6.2 V = 3.1 mV/K (the definition of a relative coefficient, no source).
-    tc: { value: '0.05', unit: '%/K', si: 0.0031, page: 2, text: 'TC 0.05 %/K', method: 'sentence', derived: 'converted', note: 'converted from 0.05 %/K with VZnom = 6.2 V' },
+    tc: {
+      value: '0.05',
+      unit: '%/K',
+      si: 0.0031,
+      page: 2,
+      text: 'TC 0.05 %/K',
+      method: 'sentence',
+      derived: 'converted',
+      note: 'converted from 0.05 %/K with VZnom = 6.2 V',
+    },
     // Plainly printed in a table of a text page.
     izt: { value: '5', unit: 'mA', si: 0.005, page: 2, text: row, method: 'table' },
   },

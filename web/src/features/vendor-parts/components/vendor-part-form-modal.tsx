@@ -32,7 +32,12 @@ export function VendorPartFormModal({ opened, onClose, part, onSaved }: VendorPa
   const form = useForm<Values>({
     mode: 'uncontrolled',
     initialValues: { manufacturer: part?.manufacturer ?? '', mpn: part?.mpn ?? '', package: part?.package ?? '', lifecycleNote: part?.lifecycleNote ?? '' },
-    validate: (values) => schemaResolver<Values>(createVendorPartRequestSchema)({ ...values, package: values.package || null, lifecycleNote: values.lifecycleNote || null } as Values),
+    validate: (values) =>
+      schemaResolver<Values>(createVendorPartRequestSchema)({
+        ...values,
+        package: values.package || null,
+        lifecycleNote: values.lifecycleNote || null,
+      } as Values),
     validateInputOnBlur: true,
   });
 
@@ -45,7 +50,8 @@ export function VendorPartFormModal({ opened, onClose, part, onSaved }: VendorPa
 
   const onError = (error: unknown) => {
     if (error instanceof ApiError) {
-      for (const e of error.errors ?? []) form.setFieldError(e.path, e.message === 'must be unique' ? 'This manufacturer already has a part with this number' : e.message);
+      for (const e of error.errors ?? [])
+        form.setFieldError(e.path, e.message === 'must be unique' ? 'This manufacturer already has a part with this number' : e.message);
     }
   };
 
@@ -82,9 +88,20 @@ export function VendorPartFormModal({ opened, onClose, part, onSaved }: VendorPa
             key={form.key('manufacturer')}
             {...form.getInputProps('manufacturer')}
           />
-          <TextInput label="Manufacturer part number" withAsterisk description="As printed on the datasheet" key={form.key('mpn')} {...form.getInputProps('mpn')} />
+          <TextInput
+            label="Manufacturer part number"
+            withAsterisk
+            description="As printed on the datasheet"
+            key={form.key('mpn')}
+            {...form.getInputProps('mpn')}
+          />
           <TextInput label="Package" placeholder="e.g. SOD-123" key={form.key('package')} {...form.getInputProps('package')} />
-          <TextInput label="Lifecycle note" placeholder="e.g. active, last-time buy announced" key={form.key('lifecycleNote')} {...form.getInputProps('lifecycleNote')} />
+          <TextInput
+            label="Lifecycle note"
+            placeholder="e.g. active, last-time buy announced"
+            key={form.key('lifecycleNote')}
+            {...form.getInputProps('lifecycleNote')}
+          />
           <Group justify="flex-end" mt="xs">
             <Button variant="default" onClick={close}>
               Cancel

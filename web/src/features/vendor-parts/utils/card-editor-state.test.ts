@@ -46,7 +46,7 @@ describe('cardEditorReducer', () => {
     expect(after.note).toBe('from rev. B');
   });
 
-  it('typing a field clears only that field\'s server error; a failed save keeps the draft', () => {
+  it("typing a field clears only that field's server error; a failed save keeps the draft", () => {
     let state = initialCardEditorState(card(1, 5.1));
     state = cardEditorReducer(state, { type: 'save-failed', error: new Error('x'), serverErrors: { vzNom: 'too high', izt: 'missing' } });
     state = cardEditorReducer(state, { type: 'enter', field: 'vzNom', value: 5.0, printed: '5.0 V' });

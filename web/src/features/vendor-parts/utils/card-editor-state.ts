@@ -89,7 +89,15 @@ export function cardEditorReducer(state: CardEditorState, action: CardEditorActi
           (typed as Set<CardField>).delete(s.field);
         }
       }
-      return { ...state, draft, typed, serverErrors: withoutError(state.serverErrors, action.suggestions.map((s) => s.field)) };
+      return {
+        ...state,
+        draft,
+        typed,
+        serverErrors: withoutError(
+          state.serverErrors,
+          action.suggestions.map((s) => s.field),
+        ),
+      };
     }
     case 'note':
       return { ...state, note: action.note };

@@ -27,7 +27,10 @@ const catalogue = JSON.parse(source('test-fixtures/catalogue/demo-catalogue.json
 function storedCard(part: DemoPart): Pick<RatingCard, 'fields'> {
   const provenance = { source: 'extracted' as const, datasheetId: 1, page: 2, text: null, confirmedBy: null, confirmedAt: null };
   const fields: Record<string, unknown> = {};
-  const all: Record<string, DemoField> = { ...part.ratingCard.fields, pdRefC: { value: part.ratingCard.pdRefC, printed: `${part.ratingCard.pdRefC} °C`, page: 1 } };
+  const all: Record<string, DemoField> = {
+    ...part.ratingCard.fields,
+    pdRefC: { value: part.ratingCard.pdRefC, printed: `${part.ratingCard.pdRefC} °C`, page: 1 },
+  };
   for (const [field, f] of Object.entries(all)) {
     fields[field] =
       field === 'tc'
