@@ -2,6 +2,7 @@ import '@fontsource/lexend/latin-400.css';
 import '@fontsource/lexend/latin-500.css';
 import '@fontsource/lexend/latin-600.css';
 import '@mantine/core/styles.css';
+import '@/theme/focus.css';
 
 import type { ReactNode } from 'react';
 import { MantineProvider } from '@mantine/core';

@@ -37,7 +37,7 @@ export function VendorPartsUploadRoute() {
         description={
           <>
             Drop one or many vendor PDFs. Each is stored once, read for ratings with their pages, and its parts can be reviewed and created in one go.{' '}
-            <Anchor component={Link} to="/vendor-parts" fz="sm">
+            <Anchor component={Link} to="/vendor-parts" fz="sm" underline="always">
               Back to vendor parts
             </Anchor>
           </>

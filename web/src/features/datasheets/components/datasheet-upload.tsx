@@ -217,6 +217,9 @@ export function DatasheetUpload({ vendorPartId, multiple = true, onUploaded, ren
         p={compact ? 'sm' : 'lg'}
         aria-label={multiple ? 'Drop datasheet PDFs here or choose files' : 'Drop a datasheet PDF here or choose a file'}
         data-testid="datasheet-dropzone"
+        // The plain file input on Enter, Space or click in every browser (the File System Access picker is Chromium-only).
+        useFsAccessApi={false}
+        inputProps={{ 'aria-label': multiple ? 'Datasheet PDF files' : 'Datasheet PDF file' }}
       >
         <Group justify="center" gap="md" mih={compact ? 40 : 90} style={{ pointerEvents: 'none' }}>
           <Dropzone.Accept>
@@ -230,7 +233,7 @@ export function DatasheetUpload({ vendorPartId, multiple = true, onUploaded, ren
           </Dropzone.Idle>
           <Stack gap={2}>
             <Text fz={compact ? 'sm' : 'md'}>
-              {multiple ? 'Drop datasheet PDFs here, or click to choose' : 'Drop the datasheet PDF here, or click to choose'}
+              {multiple ? 'Drop datasheet PDFs here, or click (or press Enter) to choose' : 'Drop the datasheet PDF here, or click (or press Enter) to choose'}
             </Text>
             <Text fz="xs" c="dimmed">
               Text PDFs are read for ratings on upload; a file already stored is not stored twice.
