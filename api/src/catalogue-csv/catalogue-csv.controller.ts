@@ -1,3 +1,4 @@
+import contentDisposition from 'content-disposition';
 import { Body, Controller, Get, HttpCode, Post, Query, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
@@ -41,7 +42,7 @@ export class CatalogueCsvController {
   @ApiProduces('text/csv')
   @ApiOkResponse({ description: 'one row per card, SI values with the unit in the header' })
   ratingCards(@Query() query: CardExportQueryDto, @Res({ passthrough: true }) res: Response) {
-    res.setHeader('Content-Disposition', `attachment; filename="${exportFileName('rating-cards')}"`);
+    res.setHeader('Content-Disposition', contentDisposition(exportFileName('rating-cards')));
     return new StreamableFile(this.exports.ratingCards(query.manufacturer), { type: 'text/csv; charset=utf-8' });
   }
 
@@ -50,7 +51,7 @@ export class CatalogueCsvController {
   @ApiProduces('text/csv')
   @ApiOkResponse({ description: 'one row per source of each house part' })
   async houseParts(@Res({ passthrough: true }) res: Response) {
-    res.setHeader('Content-Disposition', `attachment; filename="${exportFileName('house-parts-and-sources')}"`);
+    res.setHeader('Content-Disposition', contentDisposition(exportFileName('house-parts-and-sources')));
     return new StreamableFile(await this.exports.houseParts(), { type: 'text/csv; charset=utf-8' });
   }
 }

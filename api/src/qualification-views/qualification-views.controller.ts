@@ -1,3 +1,4 @@
+import contentDisposition from 'content-disposition';
 import { Controller, Get, Param, ParseIntPipe, Query, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
@@ -39,7 +40,7 @@ export class QualificationViewsController {
   @ApiProduces('text/csv')
   @ApiOkResponse({ description: 'one row per source of each house part: standing, conditions, since, who decided' })
   async sourcesCsv(@Query() query: SourcesQueryDto, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response) {
-    res.setHeader('Content-Disposition', `attachment; filename="sources-${new Date().toISOString().slice(0, 10)}.csv"`);
+    res.setHeader('Content-Disposition', contentDisposition(`sources-${new Date().toISOString().slice(0, 10)}.csv`));
     return new StreamableFile(await this.views.sourcesCsv(query, user), { type: 'text/csv; charset=utf-8' });
   }
 }
