@@ -73,7 +73,8 @@ export class DatasheetsService {
    * rolls the rows back; a failed commit deletes the object. Nothing is left half done.
    */
   async upload(file: UploadedPdf | undefined, fields: UploadDatasheetFields, user: AuthUser): Promise<UploadDatasheetResponse> {
-    if (!file) throw new BadRequestException('No file: send the PDF in the multipart field "file"');
+    if (!file)
+      throw new BadRequestException({ message: 'No file: send the PDF in the multipart field "file"', errors: [{ path: 'file', message: 'missing' }] });
     if (fields.vendorPartId !== undefined && !(await this.vendorParts.findById(fields.vendorPartId))) {
       throw new BadRequestException({
         message: `No vendor part with id ${fields.vendorPartId}`,

@@ -7,7 +7,8 @@ export const revisionLabelSchema = z.string().trim().min(1).max(40);
 
 /** Multipart fields beside `file` on `POST /datasheets` (strings, as forms send them). */
 export const uploadDatasheetFieldsSchema = z.object({
-  vendorPartId: z.coerce.number().int().positive().optional(),
+  // A form sends digits as text; anything else (true, "1e3", "") is refused, not coerced into an id.
+  vendorPartId: z.preprocess((v) => (typeof v === 'string' && /^\d+$/.test(v.trim()) ? Number(v) : v), z.number().int().positive()).optional(),
   revision: revisionLabelSchema.optional(),
 });
 export type UploadDatasheetFields = z.infer<typeof uploadDatasheetFieldsSchema>;
