@@ -26,6 +26,9 @@ describe('datasheet upload by keyboard alone', () => {
 
   it('Tab to the drop area, Enter to choose the file, Enter on the review: every stop visible', async () => {
     const page = await (await newContext(browser)).newPage();
+    // Listening from the start turns on the browser's file-chooser interception now; turned on
+    // only when Enter is pressed, it can come too late and the chooser goes unseen.
+    page.on('filechooser', () => undefined);
     const errors = watchErrors(page);
     await keyboardSignIn(page, 'engineer@demo.test');
     await page.goto('/vendor-parts/upload');
