@@ -49,15 +49,21 @@ export const flat = (s: string) => s.toUpperCase().replace(/[\s\-_/.]/g, '');
  * ("NMZ-05 series", "ABC12xx", "XY5…"), or a part number itself.
  */
 export function seriesIn(text: string, mpns: readonly string[]): string | undefined {
+  return seriesNamed(text, mpns)[0];
+}
+
+/** Every series a text names, in order ("XA and XB series" names two). */
+export function seriesNamed(text: string, mpns: readonly string[]): string[] {
   const keys = mpns.map(flat);
+  const found: string[] = [];
   for (const word of text.split(/[\s,;:()[\]]+/)) {
     const w = flat(word.replace(/(?:x+|\*+|…|\.\.\.)$/i, ''));
     // Two capitals ("WE series") name a series only when printed in capitals.
     if (w.length < 2 || (w.length === 2 && !/^[A-Z]{2}$/.test(word)) || !/[A-Z]/.test(w)) continue;
     const n = keys.filter((k) => k.startsWith(w)).length;
-    if (n > 0 && n < keys.length) return w;
+    if (n > 0 && n < keys.length && !found.includes(w)) found.push(w);
   }
-  return undefined;
+  return found;
 }
 
 interface ReadContext {
@@ -74,7 +80,10 @@ function headingScope(ctx: ReadContext, line: Line): Scope {
     if (findQuantities(l.text).some((t) => t.unit)) continue;
     // A features bullet is no heading.
     if (/^[•·]/.test(l.text)) continue;
-    const series = seriesIn(l.text, ctx.mpns);
+    const named = seriesNamed(l.text, ctx.mpns);
+    // A heading over several series ("XA and XB series", the document's title) scopes to none of them alone.
+    if (named.length > 1) return {};
+    const series = named[0];
     const pkgFound = findPackage(l.text);
     const pkg = pkgFound && !/^\s*(?:\/|,|\band\b|\bor\b)/.test(l.text.slice(pkgFound.index + pkgFound.value.length)) ? pkgFound.value : undefined;
     if (series || pkg) return { ...(series ? { series } : {}), ...(pkg ? { package: pkg } : {}) };

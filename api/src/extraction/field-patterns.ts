@@ -1,5 +1,6 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
 import { closeGaps, findQuantities } from './quantity-text';
+import type { Line } from './text-layout';
 import { bareConditionField, conditionField, CONDITION_SYMBOL, CURRENT_SYMBOLS, LABELS, TEMPERATURE_QUALIFIER } from './vocabulary';
 
 /**
@@ -130,4 +131,27 @@ export function findConditions(text: string, context?: ExtractionField): { condi
   let rest = text;
   for (const [a, b] of cuts.sort((x, y) => y[0] - x[0])) rest = rest.slice(0, a) + ' '.repeat(b - a) + rest.slice(b);
   return { conditions, rest: closeGaps(rest) };
+}
+
+/** A series-wide test condition printed in a table's title, kept with the line it came from. */
+export interface TitleCondition extends Condition {
+  line: Line;
+}
+
+/**
+ * "Electrical characteristics, XY series (TA = 25 °C, IZT = 5 mA, IZ(K) = 0.5 mA)": the test
+ * currents a table's title sets for every row. Looks at the few lines above the table's top
+ * line on the same page; only a one-cell title line whose conditions stand in brackets counts,
+ * so prose and other tables' rows above are never read as a condition.
+ */
+export function titleConditions(lines: Line[], top: number): TitleCondition[] {
+  for (let k = top - 1; k >= Math.max(0, top - 3); k--) {
+    const line = lines[k];
+    if (line.cells.length > 1) continue;
+    const bracket = /\(([^()]*(?:\([^()]*\)[^()]*)*)\)\s*$/.exec(line.text);
+    if (!bracket) continue;
+    const found = findConditions(bracket[1]).conditions.filter((c) => c.field === 'izt' || c.field === 'izk');
+    if (found.length) return found.map((c) => ({ ...c, line }));
+  }
+  return [];
 }

@@ -1,5 +1,5 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { fieldFor, FieldMatch, findConditions, isPackageHeader } from './field-patterns';
+import { fieldFor, FieldMatch, findConditions, isPackageHeader, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
@@ -234,6 +234,11 @@ export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: str
         if (previous && sameColumns(cols, previous.columns)) {
           plan = { columns: previous.columns.map((c, k) => ({ ...c, span: cols[k] })), conditions: previous.conditions };
         } else continue;
+      }
+      const title = titleConditions(lines, header.length ? header[0].index : rows[0].index);
+      if (title.length) {
+        const fromTitle = title.map((c) => ({ ...c, page: c.line.page, text: c.line.printed, cell: c.line.cells[0] }));
+        plan = { ...plan, conditions: [...plan.conditions, ...fromTitle] };
       }
       previous = plan;
       for (const row of rows) {

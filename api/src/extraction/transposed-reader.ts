@@ -1,5 +1,5 @@
 import type { ExtractionField } from '@shuntwise/contracts';
-import { fieldFor, findConditions, isPackageHeader } from './field-patterns';
+import { fieldFor, findConditions, isPackageHeader, TitleCondition, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
@@ -17,6 +17,8 @@ interface PartColumn {
   x0: number;
   x1: number;
   order: number;
+  /** Test currents the table's title sets for every part ("… (IZT = 5 mA, IZK = 0.5 mA)"). */
+  title: TitleCondition[];
 }
 
 const centre = (c: { x0: number; x1: number }) => (c.x0 + c.x1) / 2;
@@ -28,7 +30,7 @@ export function partColumns(line: Line): PartColumn[] | undefined {
   // Part numbers after at most a few column titles (Parameter, Symbol, Conditions, Unit): a sentence naming two parts is no table header.
   const others = line.cells.filter((c) => !isPartNumber(c.text));
   if (others.length > 5 || others.some((c) => c.x0 > parts[0].x0)) return undefined;
-  return parts.map((c, i) => ({ mpn: c.text, x0: c.x0, x1: c.x1, order: orderOf(line.page, line.index) + i / 100 }));
+  return parts.map((c, i) => ({ mpn: c.text, x0: c.x0, x1: c.x1, order: orderOf(line.page, line.index) + i / 100, title: [] }));
 }
 
 function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
@@ -53,6 +55,8 @@ export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, use
       if (used.has(line)) continue;
       const top = partColumns(line);
       if (top) {
+        const title = titleConditions(lines, line.index);
+        for (const col of top) col.title = title;
         cols = top;
         misses = 0;
         used.add(line);
@@ -104,9 +108,19 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
   const field: ExtractionField = match.field;
   const conditions = findConditions(labelText, field).conditions;
   for (const col of cols) {
+    for (const cond of col.title) {
+      const si = toSi(cond.value, cond.unit, cond.kind);
+      if (si === undefined) continue;
+      drafts
+        .get(col.mpn, col.order)
+        .offer(cond.field, { ...cond, si, page: cond.line.page, text: cond.line.printed, box: cellBox(cond.line.cells[0]), rank: 1, method: 'table' });
+    }
+  }
+  for (const col of cols) {
     const cell = values.get(col);
     if (!cell || isEmptyCell(cell.text)) continue;
-    const q = findQuantities(findConditions(cell.text, field).rest)[0];
+    const own = findConditions(cell.text, field);
+    const q = findQuantities(own.rest)[0];
     if (!q) continue;
     const u = q.unit || unit || '';
     const k = u ? unitKind(u) : undefined;
@@ -118,6 +132,11 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
     if (si === undefined) continue;
     const draft = drafts.get(col.mpn, col.order);
     draft.offer(field, { value: q.value, unit: u, kind: k, si, page: line.page, text: line.printed, box: cellBox(cell), rank: 3, method: 'table' });
+    // "34 ohm @ 3.1 mA": the condition printed beside the value beats the one in the row's label.
+    for (const cond of own.conditions) {
+      const cs = toSi(cond.value, cond.unit, cond.kind);
+      if (cs !== undefined) draft.offer(cond.field, { ...cond, si: cs, page: line.page, text: line.printed, box: cellBox(cell), rank: 2, method: 'table' });
+    }
     for (const cond of conditions) {
       const cs = toSi(cond.value, cond.unit, cond.kind);
       if (cs !== undefined) {

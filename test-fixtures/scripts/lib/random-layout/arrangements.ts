@@ -207,16 +207,21 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const unitCol = c.units === 'unit-column';
   const condCol = c.conditions === 'column';
   const withPkg = needsPackageColumn(ctx, s);
-  const perBlock = 6;
-  const blocks: PartModel[][][] = [];
-  for (let i = 0; i < s.rows.length; i += perBlock) blocks.push(s.rows.slice(i, i + perBlock));
   const avail = pen.frame.right - pen.frame.left;
   const labelW = 120;
   const symW = 44;
   const condW = condCol ? 70 : 0;
   const unitW = unitCol ? 34 : 0;
+  // As many parts side by side as their widest cell ("290 ohm @ 0.25 mA") leaves room for: a
+  // printed table never lets one cell run into the next.
+  const widest = Math.max(...s.rows.flatMap((row) => specs.map((sp) => pen.width(cell(ctx, s, sp, row, false, unitInCell, 0), { size: 7, condensed: true }))));
+  const fits = Math.max(2, Math.min(6, Math.floor((avail - labelW - symW - condW - unitW) / (widest + 12))));
+  // Blocks of even size: a last block of one part would be a table of one column.
+  const perBlock = Math.ceil(s.rows.length / Math.ceil(s.rows.length / fits));
+  const blocks: PartModel[][][] = [];
+  for (let i = 0; i < s.rows.length; i += perBlock) blocks.push(s.rows.slice(i, i + perBlock));
   blocks.forEach((block, b) => {
-    const partW = Math.min(64, (avail - labelW - symW - condW - unitW) / block.length);
+    const partW = Math.min(Math.max(64, widest + 12), (avail - labelW - symW - condW - unitW) / block.length);
     const columns: GridColumn[] = [
       { width: labelW, align: 'left' },
       { width: symW, align: 'center' },
@@ -263,7 +268,9 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
         ...block.map((row, i) => cell(ctx, s, sp, row, b === 0 && i === 0, unitInCell, page)),
       ]);
     }
-    y = grid(pen, pen.frame.left, y + 4, columns, b === 0 || c.pageBreak !== 'no-repeat' ? header : [], rows, { size: 7 });
+    // Parts are the columns here: a block on a new page always names its parts (the row of type
+    // numbers); without a repeated header only the spans above it are left out.
+    y = grid(pen, pen.frame.left, y + 4, columns, b === 0 || c.pageBreak !== 'no-repeat' ? header : header.slice(-1), rows, { size: 7 });
   });
   flow.belowFullWidth(y + 4);
 }
