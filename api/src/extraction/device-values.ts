@@ -137,10 +137,9 @@ interface Value {
   cell: Cell;
 }
 
-/** `own` is the line itself when `line` is it joined with its continuation: what excludes a rating is looked for there. */
-function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: DeviceRule, own: Line = line): DeviceCandidate[] {
+/** One rating on a line (or a line joined with its continuation). */
+function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: DeviceRule): DeviceCandidate[] {
   const text = line.text;
-  if (rule.exclude.test(own.text)) return [];
   const symbol = rule.symbol.exec(text);
   const words = rule.words.exec(text);
   if (!symbol && !words) return [];
@@ -172,6 +171,11 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
     values.push({ token: t, unit, cell });
   }
   if (values.length === 0) return [];
+  // What excludes a rating ("peak", "derating", "storage", "to lead") is looked for in its own
+  // statement up to its value: "Pd is 300 mW at 25 °C and is derated by 2.4 mW/K above 25 °C"
+  // states the rating before it speaks of derating.
+  const from = Math.max(0, ...[...text.slice(0, start).matchAll(/[.;](?=\s)/g)].map((m) => m.index + 1));
+  if (rule.exclude.test(text.slice(from, values[0].token.index))) return [];
   // A sentence goes on to other things after its clause: "Tj = 150 °C maximum; storage −55 °C to +150 °C".
   const clauseEnd = /;|\.\s|\.$/.exec(rest.slice(values[0].token.end));
   if (clauseEnd) {
@@ -282,9 +286,9 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
         next.y < line.y &&
         line.text.length > 40 &&
         !/[.;:]$/.test(line.text) &&
-        /^[a-z\d+−-]/u.test(next.text);
+        /^[a-z\d+−°µμΩ-]/u.test(next.text);
       const read = wrapped ? joinLines(line, next) : line;
-      for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, read, field, rule, line));
+      for (const [field, rule] of Object.entries(DEVICE_RULES) as Array<[DeviceField, DeviceRule]>) values.push(...readRule(ctx, read, field, rule));
       const p = findPackage(line.text);
       // "Packages: SOT-23 / SMA" names no package for any one part.
       const after = p ? line.text.slice(p.index + p.value.length) : '';

@@ -1,7 +1,7 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { fieldFor } from './field-patterns';
+import { fieldFor, FieldMatch } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
-import { findQuantities, QuantityToken, toSi } from './quantity-text';
+import { blankFootnotes, findQuantities, QuantityToken, toSi } from './quantity-text';
 import { Line, lineBox } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 import { bareConditionField, conditionField, CONDITION_SYMBOL } from './vocabulary';
@@ -123,7 +123,9 @@ function clauses(text: string): Array<{ text: string; start: number }> {
   return out;
 }
 
-function readClause(clause: string, offset: number, whole: string, offer: (f: ExtractionField, t: QuantityToken, rank: number) => void): void {
+function readClause(printed: string, offset: number, whole: string, offer: (f: ExtractionField, t: QuantityToken, rank: number) => void): void {
+  // Footnote markers blanked ("18.0 (Note 2) V (17.10 V to 18.90 V)"), offsets kept.
+  const clause = blankFootnotes(printed);
   const tokens = findQuantities(clause).filter((t) => t.kind);
   let primary: Primary | undefined;
   let labelStart = 0;
@@ -156,7 +158,7 @@ function readClause(clause: string, offset: number, whole: string, offer: (f: Ex
     // After the number only a qualifier word belongs to its label ("12 V nominal", "0.1 µA maximum").
     const after = /^\s*(?:nom(?:inal)?|max(?:imum)?|min(?:imum)?|typ(?:ical(?:ly)?)?)\b/i.exec(clause.slice(t.end))?.[0] ?? '';
     const label = clause.slice(labelStart, t.index) + ' ' + after;
-    const match = fieldFor(label, t.kind);
+    const match = fieldFor(label, t.kind) ?? continuation(label, t, primary);
     labelStart = t.end;
     if (!match) {
       primary = undefined;
@@ -168,4 +170,21 @@ function readClause(clause: string, offset: number, whole: string, offer: (f: Ex
     offer(match.field, at, 2);
   }
   void whole;
+}
+
+/**
+ * A value whose words are only a connective, read from the value before it in the clause:
+ * "its dynamic resistance there is at most 40 Ω and at most 170 Ω at 0.5 mA" — a second
+ * impedance after the one at the test current is the knee impedance (its current follows as its
+ * condition). "The current must stay below 10 mA" is the maximum current.
+ */
+function continuation(label: string, t: QuantityToken, primary: Primary | undefined): FieldMatch | undefined {
+  const connective = /^\s*(?:,|and|or)?\s*(?:at\s+most|not\s+more\s+than|up\s+to|max(?:imum)?\.?)?\s*$/i;
+  if (t.kind === 'resistance' && primary?.field === 'zzt' && /^\s*(?:,|and)\s*/i.test(label) && connective.test(label)) return { field: 'zzk', rank: 1 };
+  if (
+    t.kind === 'current' &&
+    /\bcurrent\s+(?:must|should|shall)\s+(?:stay|remain|be\s+kept)\s+(?:below|under)\s*$|\bcurrent\s+must\s+not\s+exceed\s*$/i.test(label.trim())
+  )
+    return { field: 'izm', rank: 1 };
+  return undefined;
 }
