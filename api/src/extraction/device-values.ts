@@ -57,11 +57,18 @@ export function seriesNamed(text: string, mpns: readonly string[]): string[] {
   const keys = mpns.map(flat);
   const found: string[] = [];
   for (const word of text.split(/[\s,;:()[\]]+/)) {
-    const w = flat(word.replace(/(?:x+|\*+|…|\.\.\.)$/i, ''));
-    // Two capitals ("WE series") name a series only when printed in capitals.
-    if (w.length < 2 || (w.length === 2 && !/^[A-Z]{2}$/.test(word)) || !/[A-Z]/.test(w)) continue;
-    const n = keys.filter((k) => k.startsWith(w)).length;
-    if (n > 0 && n < keys.length && !found.includes(w)) found.push(w);
+    // "ABC12xx", "XY5…" stand for a series; "DTX" is a name ending in X, tried as printed first.
+    const stripped = word.replace(/(?:x+|\*+|…|\.\.\.)$/i, '');
+    for (const printed of stripped === word ? [word] : [word, stripped]) {
+      const w = flat(printed);
+      // Two capitals ("WE series") name a series only when printed in capitals.
+      if (w.length < 2 || (w.length === 2 && !/^[A-Z]{2}$/.test(word) && printed === word) || !/[A-Z]/.test(w)) continue;
+      const n = keys.filter((k) => k.startsWith(w)).length;
+      if (n > 0 && n < keys.length) {
+        if (!found.includes(w)) found.push(w);
+        break;
+      }
+    }
   }
   return found;
 }

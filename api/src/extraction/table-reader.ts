@@ -1,5 +1,5 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { fieldFor, FieldMatch, findConditions, isPackageHeader, titleConditions } from './field-patterns';
+import { fieldFor, FieldMatch, findConditions, isPackageHeader, qualifierOf, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
@@ -142,7 +142,9 @@ function headerTexts(header: Line[], cols: Span[]): { texts: string[]; owners: C
           bestDistance = d;
         }
       }
-      if (best && bestDistance <= 0.6 * pitchOf(cols, i)) {
+      // A heading over another column's centre is that column's, not a neighbour's it merely comes near.
+      const elsewhere = best && bestDistance > 0 && cols.some((o, k) => k !== i && centre(o) >= best!.x0 && centre(o) <= best!.x1);
+      if (best && !elsewhere && bestDistance <= 0.6 * pitchOf(cols, i)) {
         texts[i].push(best.text);
         owners[i].push(best);
       }
@@ -162,6 +164,7 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
     const match = i === 0 ? undefined : fieldFor(rest, kind);
     return { span, header: text, unit, match, isPackage: i > 0 && !match && isPackageHeader(text) };
   });
+  borrowGroupHeadings(columns, rows, cols);
   // Several columns may name one field (min/typ/max of tc): keep the best ranked, first on ties.
   const best = new Map<ExtractionField, number>();
   columns.forEach((c, i) => {
@@ -185,6 +188,40 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
   });
   return { columns, conditions };
 }
+
+const QUALIFIER_WORD = /\b(?:min|nom|typ|max)(?:imum|inal|ical)?\.?(?![a-z])/gi;
+
+/**
+ * A group heading centred over its min / nom / max columns ("VBR" over "minimum [V]",
+ * "nominal [V]", "maximum [V]") reaches only the middle one by position. A column whose header
+ * is a qualifier alone takes the heading of a neighbour that names a field with a qualifier of
+ * its own and has the same unit kind: the qualifiers then tell the three apart.
+ */
+function borrowGroupHeadings(columns: ColumnPlan[], rows: Line[], cols: Span[]): void {
+  columns.forEach((c, i) => {
+    if (i === 0 || c.match || c.isPackage) return;
+    const own = findConditions(c.header).rest;
+    const qualifier = qualifierOf(own);
+    if (!qualifier || own.replace(QUALIFIER_WORD, '').replace(/[([][^()[\]]*[)\]]/g, '').trim() !== '') return;
+    const kind = (c.unit ? unitKind(c.unit) : undefined) ?? cellKind(rows, cols, i);
+    for (const j of [i - 1, i + 1, i - 2, i + 2]) {
+      const n = columns[j];
+      if (!n?.match?.qualifier || j === 0) continue;
+      const nKind = (n.unit ? unitKind(n.unit) : undefined) ?? cellKind(rows, cols, j);
+      if (nKind !== kind) continue;
+      const heading = findConditions(n.header).rest.replace(QUALIFIER_WORD, ' ');
+      const match = fieldFor(`${heading} ${own}`, kind);
+      if (match && match.qualifier === qualifier && sameFamily(match.field, n.match.field) && match.field !== n.match.field) {
+        c.match = match;
+        c.header = `${heading.replace(/\s+/g, ' ').trim()} ${c.header}`;
+      }
+      return;
+    }
+  });
+}
+
+const FAMILIES: ExtractionField[][] = [['vzMin', 'vzNom', 'vzMax']];
+const sameFamily = (a: ExtractionField, b: ExtractionField) => a === b || FAMILIES.some((f) => f.includes(a) && f.includes(b));
 
 /** The most common unit kind in a column's cells (units printed in the cells). */
 function cellKind(rows: Line[], cols: Span[], i: number): QuantityKind | undefined {
