@@ -142,8 +142,9 @@ function headerTexts(header: Line[], cols: Span[]): { texts: string[]; owners: C
           bestDistance = d;
         }
       }
-      // A heading over another column's centre is that column's, not a neighbour's it merely comes near.
-      const elsewhere = best && bestDistance > 0 && cols.some((o, k) => k !== i && centre(o) >= best!.x0 && centre(o) <= best!.x1);
+      // A heading over another column's centre is that column's, not a neighbour's it merely comes near
+      // ("IR at VR" printed over both of its columns still reaches the second).
+      const elsewhere = best && bestDistance > 0.25 * pitchOf(cols, i) && cols.some((o, k) => k !== i && centre(o) >= best!.x0 && centre(o) <= best!.x1);
       if (best && !elsewhere && bestDistance <= 0.6 * pitchOf(cols, i)) {
         texts[i].push(best.text);
         owners[i].push(best);
