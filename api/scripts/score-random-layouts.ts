@@ -4,6 +4,7 @@
  *
  *   npx tsx api/scripts/score-random-layouts.ts --seed 1 --count 150 [--misses 5] [--failing 40] [--set arrangement=rows --set decimal=comma]
  *   npx tsx api/scripts/score-random-layouts.ts --seed 1 --count 10 --scanned    (image-only copies, read by OCR)
+ *   npx tsx api/scripts/score-random-layouts.ts --seed 1 --count 150 --field zzt   (the documents missing a field)
  *
  * Documents use seeds seed … seed + count − 1; `npm run generate:random -w test-fixtures`
  * writes the same documents to a folder for looking at.
@@ -21,6 +22,7 @@ async function main(): Promise<void> {
       failing: { type: 'string', default: '25' },
       set: { type: 'string', multiple: true, default: [] },
       scanned: { type: 'boolean', default: false },
+      field: { type: 'string' },
     },
   });
   // --set name=value pins a layout choice (numbers and true/false are read as such).
@@ -41,6 +43,16 @@ async function main(): Promise<void> {
     rasterise,
   );
   console.log(formatReport(report, { misses: Number(values.misses), failing: Number(values.failing) }));
+  // --field zzt: the documents that miss that field most, with their layout.
+  if (values.field) {
+    const wanted = ` ${values.field}: `;
+    const byDoc = report.docs
+      .map((d) => ({ d, n: d.misses.filter((m) => m.includes(wanted)).length }))
+      .filter((x) => x.n > 0)
+      .sort((a, b) => b.n - a.n);
+    console.log(`\n${values.field} missed in ${byDoc.length} documents (most first):`);
+    for (const { d, n } of byDoc.slice(0, 15)) console.log(`  ${d.seed}: ${n}  ${d.layout}`);
+  }
   console.log(`\n(${((Date.now() - started) / 1000).toFixed(1)} s)`);
 }
 

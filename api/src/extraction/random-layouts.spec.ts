@@ -88,6 +88,10 @@ describe('datasheet extraction on random layouts', () => {
           // pdfjs normalises µ to μ and Ω (ohm sign) to Ω; the number as printed must be on its page.
           const where = `seed ${s} ${v.mpn} ${f} ${a.value} p${a.page}`;
           expect([where, pageText[a.page - 1].includes(a.value.replace(/\s/g, ''))]).toEqual([where, true]);
+          // So must its unit, in the text layer too: documents made after hundreds of others once
+          // printed "[Ω]" with "!" in the text (a glyph cache shared between documents).
+          const unit = `seed ${s} ${v.mpn} ${f} unit ${a.unit} p${a.page}`;
+          expect([unit, pageText[a.page - 1].normalize('NFKC').includes(a.unit.replace(/\s/g, '').normalize('NFKC'))]).toEqual([unit, true]);
         }
       }
     }

@@ -203,7 +203,14 @@ function borrowGroupHeadings(columns: ColumnPlan[], rows: Line[], cols: Span[]):
     if (i === 0 || c.match || c.isPackage) return;
     const own = findConditions(c.header).rest;
     const qualifier = qualifierOf(own);
-    if (!qualifier || own.replace(QUALIFIER_WORD, '').replace(/[([][^()[\]]*[)\]]/g, '').trim() !== '') return;
+    if (
+      !qualifier ||
+      own
+        .replace(QUALIFIER_WORD, '')
+        .replace(/[([][^()[\]]*[)\]]/g, '')
+        .trim() !== ''
+    )
+      return;
     const kind = (c.unit ? unitKind(c.unit) : undefined) ?? cellKind(rows, cols, i);
     for (const j of [i - 1, i + 1, i - 2, i + 2]) {
       const n = columns[j];

@@ -28,7 +28,8 @@ export interface RecordedValue extends Val {
  * Parsing DejaVu takes most of the time of a small document; hundreds of documents in one
  * test run share the parsed fonts. pdfkit parses a registered font file anew for every
  * document, so its font() is wrapped once to hand later documents the parsed font (each
- * document still keeps its own subset and layout cache, so the bytes are unchanged).
+ * document still keeps its own subset and layout cache, and starts with an empty glyph cache,
+ * so the bytes are the same as when it is made alone; the random-layout test checks that).
  */
 interface FontDoc {
   _registeredFonts: Record<string, { src: unknown }>;
@@ -49,6 +50,11 @@ function shareParsedFonts(): void {
     const reg = typeof src === 'string' ? this._registeredFonts[src] : undefined;
     const path = reg && typeof reg.src === 'string' ? reg.src : undefined;
     if (path && Embedded && parsed.has(path) && !this._fontFamilies[src as string]) {
+      // fontkit keeps each glyph with the code point it was first asked for, and pdfkit writes
+      // that code point into the text layer: U+2126 and U+03A9 (or U+00B5 and U+03BC) share a
+      // glyph, so a shared cache would print what an earlier document asked for. Each document
+      // starts with an empty glyph cache: its bytes are the same as when made alone.
+      (parsed.get(path) as { _glyphs: Record<number, unknown> })._glyphs = {};
       const f = new Embedded(this, parsed.get(path), `F${++this._fontCount}`);
       this._fontFamilies[src as string] = f;
       this._fontFamilies[f.name] = f;
