@@ -191,8 +191,10 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
   }
   if (rule.upperOfRange) {
     values = joinRanges(rest, collapseRanges(rest, tokens, values));
-    // "… between −65 °C" at the end of the text: the range goes on past it, its upper end unseen.
-    values = values.filter((v) => !(/\b(?:between|from)\s*$/i.test(rest.slice(0, v.token.index)) && rest.slice(v.token.end).trim() === ''));
+    // "… between −65 °C (and)" at the end of the text: the range goes on past it, its upper end unseen.
+    values = values.filter(
+      (v) => !(/\b(?:between|from)\s*$/i.test(rest.slice(0, v.token.index)) && /^\s*(?:and|to|…|–|-)?\s*$/i.test(rest.slice(v.token.end))),
+    );
     if (values.length === 0) return [];
   }
   const method: Candidate['method'] = line.cells.some((c) => c.text.length > 50) ? 'sentence' : line.cells.length >= 3 ? 'table' : 'list';

@@ -10,6 +10,7 @@ import { readTransposedTables } from './transposed-reader';
 import { expandToleranceSuffixes, findToleranceLegends } from './tolerance-suffix';
 import { pageLines } from './text-layout';
 import { Candidate, VariantDraft, VariantDrafts } from './variant-drafts';
+import { PLAUSIBLE } from './vocabulary';
 
 /**
  * Candidate ratings from a datasheet's text: series tables, per-part blocks, and the
@@ -76,7 +77,11 @@ function applyDevice(draft: VariantDraft, device: DeviceValues, warnings: string
   }
   for (const f of DEVICE_FIELDS) {
     if (draft.fields.has(f)) continue;
-    const applicable = device.values.filter((v) => v.field === f && covers(v.scope, draft.mpn, draft.package?.value));
+    // A value no such part can have (a −55 °C lower end read as the junction's limit) takes no part in the choice.
+    const [lo, hi] = PLAUSIBLE[f];
+    const applicable = device.values.filter(
+      (v) => v.field === f && covers(v.scope, draft.mpn, draft.package?.value) && v.candidate.si >= lo && v.candidate.si <= hi,
+    );
     if (!applicable.length) continue;
     const spec = Math.max(...applicable.map((v) => specificity(v.scope)));
     const mostSpecific = applicable.filter((v) => specificity(v.scope) === spec);

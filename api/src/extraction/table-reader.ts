@@ -1,7 +1,7 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
 import { fieldFor, FieldMatch, findConditions, isPackageHeader, qualifierOf, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
-import { findQuantities, headerUnit, isEmptyCell, isNumericCell, toSi, unitKind } from './quantity-text';
+import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 
@@ -203,14 +203,12 @@ function borrowGroupHeadings(columns: ColumnPlan[], rows: Line[], cols: Span[]):
     if (i === 0 || c.match || c.isPackage) return;
     const own = findConditions(c.header).rest;
     const qualifier = qualifierOf(own);
-    if (
-      !qualifier ||
-      own
-        .replace(QUALIFIER_WORD, '')
-        .replace(/[([][^()[\]]*[)\]]/g, '')
-        .trim() !== ''
-    )
-      return;
+    const residue = own
+      .replace(QUALIFIER_WORD, '')
+      .replace(/[([][^()[\]]*[)\]]/g, '')
+      .trim();
+    // Nothing but the qualifier and a unit ("minimum [V]", or "minimum" over a units row's "V").
+    if (!qualifier || (residue !== '' && !isUnitOnly(residue))) return;
     const kind = (c.unit ? unitKind(c.unit) : undefined) ?? cellKind(rows, cols, i);
     for (const j of [i - 1, i + 1, i - 2, i + 2]) {
       const n = columns[j];
