@@ -1,6 +1,6 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
-import { headingPartNumber, isPartNumber } from './part-numbers';
+import { findPackage, headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
@@ -74,7 +74,10 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       let line = original;
       // "XY5V1 (TA = 25 °C, IT = 1 mA, IZK = 0.5 / mA, VR = 8.4 V)": a heading whose conditions wrap onto the next line.
       const next = lines[k + 1];
-      if (line.cells.length === 1 && /^\S+\s*\([^)]*$/.test(line.text) && next && next.cells.length === 1 && /^[^(]*\)$/.test(next.text)) {
+      // Brackets inside the conditions ("IZ(K) = 0.5") stay balanced on either line.
+      const opened = /^\S+\s*\((?:[^()]|\([^()]*\))*$/;
+      const closes = /^(?:[^()]|\([^()]*\))*\)$/;
+      if (line.cells.length === 1 && opened.test(line.text) && next && next.cells.length === 1 && closes.test(next.text)) {
         const text = `${line.text} ${next.text}`;
         const joined: Line = {
           ...line,
@@ -116,6 +119,14 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         continue;
       }
       if (!mpn) continue;
+      // "Package: SOD-523" (or a leader line to it) inside a part's block is that part's package.
+      const pkg = /^(?:package|case)\b/i.test(line.text) ? findPackage(line.text) : undefined;
+      if (pkg && line.cells.length <= 2) {
+        drafts
+          .get(mpn, order)
+          .offerPackage({ value: pkg.value, page: line.page, text: line.printed, box: cellBox(line.cells[line.cells.length - 1]), rank: 2 });
+        continue;
+      }
       const q = qualifierColumns(line);
       if (q) {
         qualifiers = q;
