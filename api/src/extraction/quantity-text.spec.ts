@@ -24,6 +24,13 @@ describe('finding quantities in datasheet text', () => {
     }
   });
 
+  it('reads no number from figures run together by overlapping cells ("37.139.0" is 37.1 and 39.0, or nothing)', () => {
+    // Precision before recall (common practice, no source): a number with two decimal points is not a value.
+    expect(findQuantities('37.139.0 @ 2 mA41.0').map((q) => q.value)).not.toContain('37.139');
+    expect(findQuantities('37.139.0 V')).toEqual([]);
+    expect(findQuantities('VZ 39.0 V')[0]).toMatchObject({ value: '39.0', unit: 'V' });
+  });
+
   it('keeps the printed sign, reads the true minus sign, and knows temperature-coefficient units', () => {
     expect(findQuantities('αVZ −2.1 mV/°C')[0]).toMatchObject({ value: '−2.1', unit: 'mV/°C', kind: 'tempCoVoltage' });
     expect(toSi('−2.1', 'mV/°C', 'tempCoVoltage')).toBeCloseTo(-0.0021, 12);

@@ -15,7 +15,8 @@ const UNIT =
 /** A number, optionally after ≤/< and followed by a unit; not glued to letters before it. */
 // Not followed by a letter, digit or slash: "12 mW/°C" is a derating slope, not a power.
 // Superscript digits and ⁽ ⁾ are footnote markers ("5.1⁽²⁾", "5.1²"), not part of the number.
-const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/])`, 'gu');
+// Nor followed by ".digit": "37.139.0" is two numbers run together (cells that overlap), no number at all.
+const TOKEN = new RegExp(String.raw`(?<![\p{L}\p{N}.\-/])([<≤>≥]\s*)?(${NUM})(?:\s?(${UNIT}))?(?![\p{L}0-9/]|\.\d)`, 'gu');
 /** A unit left apart from its number where a footnote or condition was blanked ("11.0 [2] V", "56.0 @ 0.89 mA V"). */
 const GAP = new RegExp(String.raw`(\d)(\s{3,40})(${UNIT})(?![\p{L}0-9/])`, 'gu');
 

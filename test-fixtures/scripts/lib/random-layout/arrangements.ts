@@ -357,7 +357,7 @@ function partTable(ctx: Ctx, flow: Flow, s: SeriesModel, row: PartModel[], first
     r[at] = text;
     rows.push(r);
   }
-  return grid(pen, x, y, columns, [head.map((text, i) => ({ text, from: i, to: i }))], rows, { size: w < 300 ? 6 : 7.5 });
+  return grid(pen, x, y, columns, [head.map((text, i) => ({ text, from: i, to: i }))], rows, { size: w < 300 ? 6 : 7.5, fit: true });
 }
 
 export function paramTables(ctx: Ctx, flow: Flow, s: SeriesModel): void {

@@ -215,9 +215,10 @@ export function grid(
   columns: GridColumn[],
   header: HeaderSpan[][],
   rows: string[][],
-  o: { size?: number; rowHeight?: number; onRow?: (index: number, page: number) => void } = {},
+  o: { size?: number; rowHeight?: number; onRow?: (index: number, page: number) => void; fit?: boolean } = {},
 ): number {
-  const size = o.size ?? 7.5;
+  let size = o.size ?? 7.5;
+  if (o.fit) ({ columns, size } = fitColumns(pen, columns, header, rows, size));
   const rowHeight = o.rowHeight ?? 12;
   const lefts = [x];
   for (const col of columns) lefts.push(lefts[lefts.length - 1] + col.width);
@@ -246,6 +247,31 @@ export function grid(
   pen.rule(x, right, cy - 2, 0.8);
   if (pen.c.ruled) for (const l of lefts) pen.vline(l, top - 3, cy - 2);
   return cy + 6;
+}
+
+/**
+ * Widths from what the columns hold, in the same total width, and a smaller type where even
+ * that is too narrow: a printed table never runs one cell into the next.
+ */
+function fitColumns(pen: Pen, columns: GridColumn[], header: HeaderSpan[][], rows: string[][], size: number): { columns: GridColumn[]; size: number } {
+  const total = columns.reduce((n, c) => n + c.width, 0);
+  const need = (sz: number) =>
+    columns.map((_, i) => {
+      const cells = rows.map((r) => pen.width(r[i] ?? '', { size: sz, condensed: true }));
+      const heads = header.flatMap((line) =>
+        line.filter((h) => h.from === i && h.to === i).map((h) => pen.width(h.text, { size: sz, condensed: true, bold: true })),
+      );
+      return Math.max(8, ...cells, ...heads) + 6;
+    });
+  let widths = need(size);
+  let sum = widths.reduce((n, x) => n + x, 0);
+  while (sum > total && size > 4.6) {
+    size = Math.max(4.5, size * 0.92);
+    widths = need(size);
+    sum = widths.reduce((n, x) => n + x, 0);
+  }
+  const scale = total / sum;
+  return { columns: columns.map((c, i) => ({ ...c, width: widths[i] * scale })), size };
 }
 
 /** Blocks flowing down one or two columns and on to new pages. */
