@@ -149,4 +149,41 @@ describe('two-column pages', () => {
     expect(byMpn.get('XA6V2')?.pdMax?.si).toBe(0.5);
     expect(byMpn.get('XA6V2')?.tjMax?.si).toBe(150);
   });
+
+  it('finds the columns when their lines share baselines, a title and a footer run across the page, and few lines stand alone', () => {
+    // Both columns set on one 12 pt pitch: most baselines hold text on both sides; three lines
+    // of each column stand alone. Reading across would give XB5V1 the right column's 47 V.
+    const items: PdfTextItem[] = [item('Voltage regulator diodes, 4.7 V to 47 V, a title across the page', 50, 760, 8, 330)];
+    const leftLines = [
+      'Silicon planar regulator diodes for reference',
+      'and bias circuits across the whole range',
+      'of nominal voltages in E24 steps',
+      'Features',
+      '• Nominal voltages 4.7 V to 47 V',
+      '• Reflow up to 260 °C',
+      '• Lead-free plating',
+      'drift upwards.',
+      'end of notes',
+    ];
+    const rightLines = [
+      'XB5V1',
+      'Package ........................ SOD-523',
+      'Zener voltage, VZ ............. 5.1 V',
+      'Dynamic resistance, rZ ....... 60 ohm',
+      'XB47',
+      'Package ........................ SOD-323',
+      'Zener voltage, VZ ............. 47 V',
+      'Dynamic resistance, rZ ....... 120 ohm',
+      'Measured with pulses of 20 ms',
+    ];
+    leftLines.forEach((t, i) => items.push(item(t, 50, 730 - 12 * i, 8, Math.min(230, t.length * 4))));
+    rightLines.forEach((t, i) => items.push(item(t, 308, 694 - 12 * i, 8, Math.min(230, t.length * 4))));
+    items.push(item('Invented Devices. Specifications are subject to change without notice.', 50, 29, 8, 330));
+    const result = extractRatings(pdf(items));
+    const byMpn = new Map(result.variants.map((v) => [v.mpn, v.fields]));
+    expect(byMpn.get('XB5V1')?.vzNom?.si).toBe(5.1);
+    expect(byMpn.get('XB5V1')?.zzt?.si).toBe(60);
+    expect(byMpn.get('XB47')?.vzNom?.si).toBe(47);
+    expect(byMpn.get('XB47')?.zzt?.si).toBe(120);
+  });
 });

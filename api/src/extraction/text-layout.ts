@@ -82,6 +82,8 @@ function groupByBaseline(items: Placed[]): Placed[][] {
 
 /** No text within this many points of a gutter's line. */
 const GUTTER_CLEAR = 6;
+/** The least gap between two columns' text on one baseline, in points. */
+const SHARED_GAP = 18;
 
 /**
  * Two-column pages: the vertical line in the middle of the text with the most baselines
@@ -103,11 +105,21 @@ function findGutter(groups: Placed[][]): number | undefined {
   const from = Math.round(left + 0.3 * (right - left));
   const to = Math.floor(left + 0.7 * (right - left));
   if (to <= from) return undefined;
+  // The right column's left edge: where most baselines that hold text only in the right half begin.
+  const starts = new Map<number, number>();
+  for (const g of groups) {
+    const x0 = Math.round(Math.min(...g.map((i) => i.x0)));
+    if (x0 > from) starts.set(x0, (starts.get(x0) ?? 0) + 1);
+  }
+  let edge = Infinity;
+  let edgeCount = 0;
+  for (const [x0, k] of starts) if (k > edgeCount || (k === edgeCount && x0 < edge)) [edge, edgeCount] = [x0, k];
   // Per candidate x (whole points from `from`): baselines wholly left, wholly right, and crossing it, by difference arrays.
   const n = to - from + 2;
   const leftStarts = new Int32Array(n);
   const rightEnds = new Int32Array(n);
   const cross = new Int32Array(n);
+  const shared = new Int32Array(n);
   const at = (x: number) => Math.min(n - 1, Math.max(0, x - from));
   for (const g of groups) {
     let maxX1 = -Infinity;
@@ -129,9 +141,20 @@ function findGutter(groups: Placed[][]): number | undefined {
           cross[at(b) + 1 < n ? at(b) + 1 : n - 1]--;
         }
       };
+      let previousEnd = -Infinity;
       for (const [s0, s1] of spans) {
         if (s0 > b + 1) {
           flush();
+          if (b > -Infinity) previousEnd = b;
+          // Text on both sides with a clear gap between: the two columns on one baseline.
+          const g0 = Math.ceil(previousEnd + GUTTER_CLEAR);
+          const g1 = Math.floor(s0 - GUTTER_CLEAR);
+          // Only a gap as wide as a gutter, before text that starts at the right column's edge
+          // (a table's row has gaps too, but its values do not start where the column's lines do).
+          if (previousEnd > -Infinity && Math.abs(s0 - 1 - edge) <= 3 && s0 - previousEnd >= SHARED_GAP && g1 >= g0 && g1 >= from && g0 <= to) {
+            shared[at(Math.max(g0, from))]++;
+            shared[at(g1) + 1 < n ? at(g1) + 1 : n - 1]--;
+          }
           [a, b] = [s0, s1];
         } else b = Math.max(b, s1);
       }
@@ -143,11 +166,16 @@ function findGutter(groups: Placed[][]): number | undefined {
   let onlyLeft = 0;
   let onlyRight = rightEnds.reduce((acc, v) => acc + v, 0);
   let crossing = 0;
+  let both = 0;
   for (let k = 0; k + from <= to; k++) {
     onlyLeft += leftStarts[k];
     crossing += cross[k];
+    both += shared[k];
     const x = from + k;
-    const score = Math.min(onlyLeft, onlyRight) - crossing;
+    // Columns set on one line pitch share many baselines: with a few lines of each column on
+    // their own as well, every baseline clear at x with text on both sides counts half.
+    const own = Math.min(onlyLeft, onlyRight);
+    const score = own + (own >= 2 ? Math.floor(both / 2) : 0) - crossing;
     if (score > bestScore) {
       bestScore = score;
       best = [x];
