@@ -1,7 +1,7 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
 import { fieldFor, FieldMatch, findConditions, isPackageHeader, qualifierOf, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber } from './part-numbers';
-import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
+import { blankFootnotes, findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 
@@ -158,7 +158,8 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
   const { texts, owners } = headerTexts(header, cols);
   const columns: ColumnPlan[] = cols.map((span, i) => {
     const text = texts[i];
-    const { rest } = findConditions(text);
+    // Footnote markers in a header ("IZ (Note 3)") are no part of its words or unit.
+    const rest = blankFootnotes(findConditions(text).rest);
     const unit = headerUnit(rest);
     let kind = unit ? unitKind(unit) : undefined;
     if (!kind) kind = cellKind(rows, cols, i);

@@ -33,6 +33,12 @@ export function partColumns(line: Line): PartColumn[] | undefined {
   return parts.map((c, i) => ({ mpn: c.text, x0: c.x0, x1: c.x1, order: orderOf(line.page, line.index) + i / 100, title: [] }));
 }
 
+/** Whether a table title ("Electrical characteristics, …") stands in the few lines above a table's top. */
+function hasTitle(lines: Line[], top: number): boolean {
+  for (let k = top - 1; k >= Math.max(0, top - 3); k--) if (/characteristics|ratings|parameters|data\b/i.test(lines[k].text)) return true;
+  return false;
+}
+
 function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
   const pitch = cols.length > 1 ? (centre(cols[cols.length - 1]) - centre(cols[0])) / (cols.length - 1) : 40;
   let best: PartColumn | undefined;
@@ -47,7 +53,13 @@ function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
   return distance < 0.45 * pitch ? best : undefined;
 }
 
+/** The letters a part number starts with ("GPWN" of "GPWN-22"): parts of one series share them. */
+const seriesKey = (mpn: string) => /^[A-Za-z]+/.exec(mpn)?.[0].toUpperCase() ?? '';
+
 export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, used: Set<Line>, warnings: string[]): void {
+  // The last table's title conditions: a block of the same series on the next page, under no
+  // title of its own, continues that table.
+  let last: { page: number; series: string; title: TitleCondition[] } | undefined;
   for (const lines of pages) {
     let cols: PartColumn[] | undefined;
     let misses = 0;
@@ -55,7 +67,11 @@ export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, use
       if (used.has(line)) continue;
       const top = partColumns(line);
       if (top) {
-        const title = titleConditions(lines, line.index);
+        let title = titleConditions(lines, line.index);
+        const series = seriesKey(top[0].mpn);
+        const continues = last && last.series === series && line.page - last.page <= 1 && !hasTitle(lines, line.index);
+        if (!title.length && continues) title = last!.title;
+        if (title.length || !continues) last = { page: line.page, series, title };
         for (const col of top) col.title = title;
         cols = top;
         misses = 0;

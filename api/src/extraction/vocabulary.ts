@@ -69,7 +69,8 @@ export const LABELS = {
 export const CURRENT_SYMBOLS: ReadonlyArray<[RegExp, 'izk' | 'izm' | 'izt' | 'irMax']> = [
   [/\bI\s?ZK\b|\bI\s?Z\s?\(K\)|\bI\s?K\b/i, 'izk'],
   [/\bI\s?ZM\b|\bI\s?Z\s?\(?max\b/i, 'izm'],
-  [/\bI\s?ZT\b|\bI\s?T\b|\bI\s?test\b|\bI\s?Z\b(?!\s?\()/i, 'izt'],
+  // "IZ" alone is the test current; "IZ(K)" and "IZ (max)" are others ("IZ (Note 3)" is still IZ).
+  [/\bI\s?ZT\b|\bI\s?T\b|\bI\s?test\b|\bI\s?Z\b(?!\s?\((?:K|max)\b)/i, 'izt'],
   [/\bI\s?RM?\b|\bI\s?D\b/i, 'irMax'],
 ];
 
