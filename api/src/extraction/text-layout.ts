@@ -151,7 +151,7 @@ function findGutter(groups: Placed[][]): number | undefined {
           const g1 = Math.floor(s0 - GUTTER_CLEAR);
           // Only a gap as wide as a gutter, before text that starts at the right column's edge
           // (a table's row has gaps too, but its values do not start where the column's lines do).
-          if (previousEnd > -Infinity && Math.abs(s0 - 1 - edge) <= 3 && s0 - previousEnd >= SHARED_GAP && g1 >= g0 && g1 >= from && g0 <= to) {
+          if (previousEnd > -Infinity && s0 - 1 >= edge - 3 && s0 - 1 <= edge + 15 && s0 - previousEnd >= SHARED_GAP && g1 >= g0 && g1 >= from && g0 <= to) {
             shared[at(Math.max(g0, from))]++;
             shared[at(g1) + 1 < n ? at(g1) + 1 : n - 1]--;
           }
@@ -163,6 +163,7 @@ function findGutter(groups: Placed[][]): number | undefined {
   }
   let best: number[] = [];
   let bestScore = 0;
+  let bestSupport = 0;
   let onlyLeft = 0;
   let onlyRight = rightEnds.reduce((acc, v) => acc + v, 0);
   let crossing = 0;
@@ -176,8 +177,12 @@ function findGutter(groups: Placed[][]): number | undefined {
     // their own as well, every baseline clear at x with text on both sides counts half.
     const own = Math.min(onlyLeft, onlyRight);
     const score = own + (own >= 2 ? Math.floor(both / 2) : 0) - crossing;
-    if (score > bestScore) {
+    // Equal scores: the line that more baselines leave clear (a gap inside one column's table
+    // can tie with the gutter, but fewer of the page's lines stand clear of it).
+    const support = onlyLeft + onlyRight + both;
+    if (score > bestScore || (score === bestScore && support > bestSupport && best[best.length - 1] !== x - 1)) {
       bestScore = score;
+      bestSupport = support;
       best = [x];
     } else if (score === bestScore && best.length && best[best.length - 1] === x - 1) best.push(x);
     onlyRight -= rightEnds[k];
@@ -227,7 +232,11 @@ function inReadingOrder(groups: Placed[][]): Placed[][] {
     while (e < groups.length && shared(groups[e])) e++;
     if (e - k >= 2) {
       const run = groups.slice(k, e);
-      if (run.filter(valueAfterGutter).length * 2 > run.length) for (let j = k; j < e; j++) tableRows.add(j);
+      if (run.filter(valueAfterGutter).length * 2 > run.length) {
+        for (let j = k; j < e; j++) tableRows.add(j);
+        // Its header lines just above ("Parameter Symbol Unit XA10 | XA11 XA12") belong to it too.
+        for (let j = k - 1; j >= Math.max(0, k - 3) && shared(groups[j]); j--) tableRows.add(j);
+      }
     }
     k = Math.max(e, k + 1);
   }

@@ -25,7 +25,7 @@ const centre = (c: { x0: number; x1: number }) => (c.x0 + c.x1) / 2;
 
 /** A line that names two or more parts side by side, after a label column: the top of a transposed table. */
 export function partColumns(line: Line): PartColumn[] | undefined {
-  const parts = line.cells.filter((c) => isPartNumber(c.text));
+  const parts = line.cells.flatMap(splitPartNumbers).filter((c) => isPartNumber(c.text));
   if (parts.length < 2) return undefined;
   // Part numbers after at most a few column titles (Parameter, Symbol, Conditions, Unit): a sentence naming two parts is no table header.
   const others = line.cells.filter((c) => !isPartNumber(c.text));
@@ -37,6 +37,23 @@ export function partColumns(line: Line): PartColumn[] | undefined {
 function hasTitle(lines: Line[], top: number): boolean {
   for (let k = top - 1; k >= Math.max(0, top - 3); k--) if (/characteristics|ratings|parameters|data\b/i.test(lines[k].text)) return true;
   return false;
+}
+
+/**
+ * Part numbers set close together run into one cell ("XA4V7 XA5V1 XA5V6"): each gets its share
+ * of the cell's width by its length, enough to find the column beneath it.
+ */
+function splitPartNumbers(cell: Cell): Cell[] {
+  const words = cell.text.split(' ');
+  if (words.length < 2 || !words.every(isPartNumber)) return [cell];
+  const total = words.reduce((n, w) => n + w.length, 0) + words.length - 1;
+  const perChar = (cell.x1 - cell.x0) / total;
+  let x = cell.x0;
+  return words.map((w) => {
+    const c = { ...cell, text: w, printed: w, x0: x, x1: x + w.length * perChar };
+    x = c.x1 + perChar;
+    return c;
+  });
 }
 
 function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
