@@ -28,7 +28,11 @@ import { extractDatasheet } from './rating-extractor';
  */
 
 /** Seeds kept as regressions: one or more of each arrangement, and documents that once failed. */
-const REGRESSION_SEEDS = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 101, 202, 303, 404, 505, 606, 707, 808, 909, 1001, 2002, 3003];
+const REGRESSION_SEEDS = [
+  1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 101, 202, 303, 404, 505, 606, 707, 808, 909, 1001, 2002, 3003,
+  // Found on fresh draws: two-column pages on one pitch, transposed blocks, sentences, titles.
+  4263, 4266, 4308, 4355, 91027, 91066, 123495, 123510, 777024, 777051, 777058, 777067, 777071, 777133,
+];
 
 const seed = process.env.LAYOUT_SEED ? Number(process.env.LAYOUT_SEED) : randomInt(1, 2 ** 31 - 200_000);
 const count = process.env.LAYOUT_COUNT ? Number(process.env.LAYOUT_COUNT) : 150;
@@ -109,7 +113,7 @@ describe('datasheet extraction on random layouts', () => {
     expect(recall >= FLOOR.recall ? '' : shortfall('recall', recall, FLOOR.recall)).toBe('');
   });
 
-  it(`finds at least ${Math.round(FLOOR.partsFound * 100)} % of the part numbers and invents at most ${Math.round(FLOOR.partsInvented * 100)} % (goal: all, none)`, () => {
+  it(`finds at least ${(FLOOR.partsFound * 100).toFixed(1)} % of the part numbers and invents at most ${(FLOOR.partsInvented * 100).toFixed(1)} % (goal: all, none)`, () => {
     const printed = report.docs.reduce((n, d) => n + d.printedParts, 0);
     const missed = report.docs.reduce((n, d) => n + d.missingParts.length, 0);
     const made = report.docs.reduce((n, d) => n + d.inventedParts.length, 0);
