@@ -48,7 +48,7 @@ export class OcrEngine {
       // cacheMethod 'none' it writes ./eng.traineddata and silently reuses it later.
       createWorker('eng', OEM.LSTM_ONLY, { langPath, gzip: true, cacheMethod: 'none', errorHandler: reject })
         .then(async (w) => {
-          await w.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK, user_defined_dpi: String(this.dpi) });
+          await w.setParameters({ user_defined_dpi: String(this.dpi) });
           resolve(w);
         })
         .catch(reject);
@@ -59,8 +59,22 @@ export class OcrEngine {
     return this.worker;
   }
 
+  /**
+   * Two readings of the page: as one block of text (keeps lines and lone figures in table
+   * cells) and as sparse text (finds small isolated words such as a units row's "(mA)" that the
+   * block reading drops). Words of the second that overlap none of the first are added to the
+   * line they sit on, or stand as lines of their own.
+   */
   async read(png: Buffer): Promise<OcrLine[]> {
     const worker = await this.start();
+    await worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK });
+    const block = await this.lines(worker, png);
+    await worker.setParameters({ tessedit_pageseg_mode: PSM.SPARSE_TEXT });
+    const sparse = await this.lines(worker, png);
+    return mergeReadings(block, sparse);
+  }
+
+  private async lines(worker: Worker, png: Buffer): Promise<OcrLine[]> {
     const { data } = await worker.recognize(png, {}, { blocks: true, text: false });
     const lines: OcrLine[] = [];
     for (const block of data.blocks ?? []) {
@@ -82,4 +96,38 @@ export class OcrEngine {
     this.worker = undefined;
     if (w) await (await w.catch(() => undefined))?.terminate();
   }
+}
+
+const overlaps = (a: OcrWord, b: OcrWord) => {
+  const w = Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0);
+  const h = Math.min(a.y1, b.y1) - Math.max(a.y0, b.y0);
+  return w > 0 && h > 0 && w * h > 0.3 * Math.min((a.x1 - a.x0) * (a.y1 - a.y0), (b.x1 - b.x0) * (b.y1 - b.y0));
+};
+
+/** The first reading, with the words only the second found added where they sit. */
+export function mergeReadings(first: OcrLine[], second: OcrLine[]): OcrLine[] {
+  const out = first.map((l) => ({ ...l, words: l.words.map((w) => ({ ...w })) }));
+  const seen = out.flatMap((l) => l.words);
+  for (const line of second) {
+    for (const word of line.words) {
+      if (!word.text.trim()) continue;
+      const same = seen.filter((w) => overlaps(w, word));
+      // Where both readings have the word, the surer one stands (the block reading is often unsure of small print).
+      if (same.length === 1 && word.confidence > same[0].confidence + 10 && !/\s/.test(word.text)) Object.assign(same[0], word);
+      if (same.length) continue;
+      seen.push(word);
+      const cx = (word.x0 + word.x1) / 2;
+      // The line whose baseline, at the word's place, runs within half a row of the word's foot.
+      const host = out.find((l) => {
+        const b = l.baseline;
+        const y = b.x1 === b.x0 ? b.y0 : b.y0 + ((b.y1 - b.y0) * (cx - b.x0)) / (b.x1 - b.x0);
+        return Math.abs(y - word.y1) < 0.5 * l.rowHeight && cx > Math.min(...l.words.map((w) => w.x0)) - 4 * l.rowHeight;
+      });
+      if (host) {
+        host.words.push(word);
+        host.words.sort((a, b) => a.x0 - b.x0);
+      } else out.push({ words: [word], baseline: { x0: word.x0, y0: line.baseline.y0, x1: word.x1, y1: line.baseline.y1 }, rowHeight: line.rowHeight });
+    }
+  }
+  return out;
 }

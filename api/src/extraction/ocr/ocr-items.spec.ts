@@ -1,4 +1,4 @@
-import type { OcrLine } from './ocr-engine';
+import { mergeReadings, type OcrLine, type OcrWord } from './ocr-engine';
 import { codedVoltage, implausibleVoltages } from './ocr-extraction';
 import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
 
@@ -90,5 +90,26 @@ describe('plausibility of OCR voltages', () => {
     const tc = (si: number) => ({ value: '', unit: 'mV/°C', si, page: 1, text: '', ocr: true });
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
+  });
+});
+
+describe('merging the block and sparse readings of a page', () => {
+  const word = (text: string, x0: number, confidence: number, y0 = 100): OcrWord => ({ text, confidence, x0, y0, x1: x0 + 40, y1: y0 + 20 });
+  const line = (words: OcrWord[]): OcrLine => ({ words, baseline: { x0: words[0].x0, y0: 118, x1: words[words.length - 1].x1, y1: 118 }, rowHeight: 24 });
+
+  it('adds the words only the sparse reading found to the line they sit on, and keeps the surer of two readings of one word', () => {
+    const block = [line([word('(V)', 0, 30), word('(ohm)', 200, 90)])];
+    const sparse = [line([word('(V)', 2, 92), word('(mA)', 100, 88), word('(ohm)', 201, 60)])];
+    const merged = mergeReadings(block, sparse);
+    expect(merged).toHaveLength(1);
+    expect(merged[0].words.map((w) => `${w.text}:${w.confidence}`)).toEqual(['(V):92', '(mA):88', '(ohm):90']);
+    // The first reading itself is not changed.
+    expect(block[0].words[0].confidence).toBe(30);
+  });
+
+  it('gives a word far from every line a line of its own', () => {
+    const merged = mergeReadings([line([word('Type', 0, 95)])], [line([word('5', 300, 90, 400)])]);
+    expect(merged).toHaveLength(2);
+    expect(merged[1].words[0].text).toBe('5');
   });
 });

@@ -16,15 +16,15 @@ import { extractWithOcr } from './ocr-extraction';
  * committed scanned copies (five pages).
  *
  * Precision must stay at 98 % or better: a scan gives no value rather than a doubtful one.
- * Recall: the goal is 90 %; today's reader reaches about 75–92 % per page on these layouts
- * (a lost minus sign or a header symbol the model cannot read takes a column with it), so the
- * test holds the line at 60 % (a fresh seed once gave 69.9 %) until the goal is met.
+ * Recall: the goal is 90 %. Each page is read twice (as a block and as sparse text, merged),
+ * which brought back the small bracketed units the block reading dropped; fresh seeds now give
+ * 77–87 % (2026-12-04; a lost minus sign or a smudged lone digit still takes a value), so the
+ * test holds the line at 65 % until the goal is met.
  * OCR_PAGES = 2 reads two or three pages (one scan of one or two pages at a time).
  */
 const PRECISION_GOAL = 0.98;
-// Two freshly drawn pages vary widely: 51 % (seed 1266693798, after the two-column reading landed) to 85 % seen.
-// The floor guards against collapse; the 90 % goal is still printed and still open.
-const RECALL_FLOOR = 0.45;
+// Fresh draws 77–87 % with the two readings (seed 1266693798 went from 51 % to 77 %); the 90 % goal is printed and still open.
+const RECALL_FLOOR = 0.65;
 
 /**
  * Scans of the fixture set that hold a ratings table with its header (file name prefix, pages):
