@@ -49,7 +49,12 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
     pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
   };
   const result = extractRatings(merged);
-  const variants = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
+  const checked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
+  const misread = misreadPartNumbers(checked.filter((v) => Object.values(v.fields).some((f) => f.ocr)).map((v) => v.mpn));
+  for (const mpn of misread) {
+    warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
+  }
+  const variants = checked.filter((v) => !misread.includes(v.mpn));
 
   const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
   for (const page of ocrItems.keys()) {
@@ -113,6 +118,40 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
     }
   }
   return [...bad];
+}
+
+/** A part number's shape without its trailing letters (tolerance and packing suffixes): letters as A, digits as 9 ("QHZ4V7AF" → "AAA9A9"). */
+const shapeOf = (mpn: string) =>
+  mpn
+    .replace(/[\p{L}\s-]+$/u, '')
+    .replace(/\p{L}/gu, 'A')
+    .replace(/\d/g, '9');
+
+/**
+ * OCR'd part numbers whose shape no other part of their series shares while at least three
+ * others share one ("QHZ4VT7A" among QHZ4V3A, QHZ5V1A, …): a character misread, so the part
+ * would be a new, wrong one. Precision before recall: its values are left out.
+ */
+export function misreadPartNumbers(mpns: readonly string[]): string[] {
+  const series = (m: string) => /^\p{L}+/u.exec(m)?.[0] ?? '';
+  const out: string[] = [];
+  for (const m of mpns) {
+    const siblings = mpns.filter((o) => o !== m && series(o) === series(m));
+    const shapes = new Map<string, number>();
+    for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
+    if (shapes.has(shapeOf(m))) continue;
+    // Plain numbers and letter-for-point codes live side by side in a series (10 / 5V1): only a shape that
+    // differs from a common one by one character inserted inside it is a misreading.
+    const dominant = [...shapes.entries()].find(([shape, n]) => n >= 3 && shape.length === shapeOf(m).length - 1);
+    if (dominant && isOneInsertion(shapeOf(m), dominant[0])) out.push(m);
+  }
+  return out;
+}
+
+/** Whether removing one letter of `longer` (not its first or last character) gives `shorter`: 100 among 10, 12, 15 is a real part, 4VT7 among 5V1, 5V6 is not. */
+function isOneInsertion(longer: string, shorter: string): boolean {
+  for (let i = 1; i < longer.length - 1; i++) if (longer[i] === 'A' && longer.slice(0, i) + longer.slice(i + 1) === shorter) return true;
+  return false;
 }
 
 /** "BRZ05-5V1" → 5.1; undefined when the part number codes no voltage. */

@@ -1,5 +1,5 @@
 import { mergeReadings, type OcrLine, type OcrWord } from './ocr-engine';
-import { codedVoltage, implausibleVoltages } from './ocr-extraction';
+import { codedVoltage, implausibleVoltages, misreadPartNumbers } from './ocr-extraction';
 import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
 
 /**
@@ -111,5 +111,19 @@ describe('merging the block and sparse readings of a page', () => {
     const merged = mergeReadings([line([word('Type', 0, 95)])], [line([word('5', 300, 90, 400)])]);
     expect(merged).toHaveLength(2);
     expect(merged[1].words[0].text).toBe('5');
+  });
+});
+
+describe('part numbers misread by OCR', () => {
+  // Invented part numbers; regulator series code VZ as 5V1 or as a plain number (common practice, no source).
+  it('leaves out a part number with a character inserted into the shape its series shares', () => {
+    const read = ['QZ4VT7A', 'QZ5V1AF', 'QZ5V6A', 'QZ6V2AF', 'QZ6V8A', 'QZ10A', 'QZ12AF', 'QZ15A'];
+    expect(misreadPartNumbers(read)).toEqual(['QZ4VT7A']);
+  });
+
+  it('keeps series that mix plain numbers with letter-for-point codes, and series too small to judge', () => {
+    expect(misreadPartNumbers(['QZ4V7A', 'QZ5V1A', 'QZ10A', 'QZ12A', 'QZ100A'])).toEqual([]);
+    expect(misreadPartNumbers(['QZ10A', 'QZ12A', 'QZ15A', 'QZ18A', 'QZ100A'])).toEqual([]);
+    expect(misreadPartNumbers(['QZ4VT7A', 'QZ5V1A'])).toEqual([]);
   });
 });
