@@ -11,6 +11,8 @@
  */
 import { parseArgs } from 'node:util';
 import { extractDatasheet } from '../src/extraction';
+import { OcrEngine } from '../src/extraction/ocr/ocr-engine';
+import { extractWithOcr } from '../src/extraction/ocr/ocr-extraction';
 import { formatReport, scoreRandomLayouts } from '../test/helpers/random-layout-score';
 
 async function main(): Promise<void> {
@@ -36,12 +38,15 @@ async function main(): Promise<void> {
   if (!Number.isInteger(seed) || !Number.isInteger(count) || count < 1) throw new Error('--seed and --count must be whole numbers (count at least 1)');
   const rasterise = values.scanned ? await loadRasteriser() : undefined;
   const started = Date.now();
+  // Image-only copies go through the product's OCR path (the plain extractor has no text to read there).
+  const engine = values.scanned ? new OcrEngine(300) : undefined;
   const report = await scoreRandomLayouts(
     Array.from({ length: count }, (_, i) => seed + i),
-    (pdf) => extractDatasheet(pdf),
+    (pdf) => (engine ? extractWithOcr(pdf, { engine, dpi: 300, maxOcrPages: 20 }) : extractDatasheet(pdf)),
     overrides,
     rasterise,
   );
+  await engine?.stop();
   console.log(formatReport(report, { misses: Number(values.misses), failing: Number(values.failing) }));
   // --field zzt: the documents that miss that field most, with their layout.
   if (values.field) {
