@@ -111,7 +111,7 @@ export const envSchema = z.object({
   EXTRACTION_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
   EXTRACTION_OCR: bool.default(true),
   EXTRACTION_OCR_MAX_PAGES: z.coerce.number().int().min(0).max(500).default(10),
-  EXTRACTION_OCR_SECONDS_PER_PAGE: z.coerce.number().min(1).max(600).default(15),
+  EXTRACTION_OCR_SECONDS_PER_PAGE: z.coerce.number().min(1).max(600).default(30),
   EXTRACTION_OCR_DPI: z.coerce.number().int().min(100).max(600).default(300),
   DEMO_PASSWORD: z.string().min(8).default('shuntwise-demo'),
 });
