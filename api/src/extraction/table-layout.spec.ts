@@ -186,4 +186,30 @@ describe('two-column pages', () => {
     expect(byMpn.get('XB47')?.vzNom?.si).toBe(47);
     expect(byMpn.get('XB47')?.zzt?.si).toBe(120);
   });
+
+  it('finds two columns of the same kind set on one pitch from top to bottom, where no line of either stands alone', () => {
+    // Each column holds one part's key–value block; every baseline has text on both sides.
+    // Read across, XC5V1's lines would run on into XC6V2's.
+    const items: PdfTextItem[] = [];
+    const block = (mpn: string, vz: string, zz: string) => [
+      mpn,
+      'Package ..................... SOD-123',
+      `Zener voltage, VZ ............ ${vz} V`,
+      `Dynamic impedance, ZZT ....... ${zz} ohm`,
+      'Test current, IZT ............ 5 mA',
+      'Reverse current, IR .......... 2 µA',
+      'Reverse voltage, VR .......... 1 V',
+      'Maximum current, IZM ......... 80 mA',
+      'Notes: pulsed measurement',
+      'Marking on the body',
+    ];
+    block('XC5V1', '5.1', '60').forEach((t, i) => items.push(item(t, 50, 700 - 12 * i, 8, Math.min(220, t.length * 4))));
+    block('XC6V2', '6.2', '10').forEach((t, i) => items.push(item(t, 310, 700 - 12 * i, 8, Math.min(220, t.length * 4))));
+    const result = extractRatings(pdf(items));
+    const byMpn = new Map(result.variants.map((v) => [v.mpn, v.fields]));
+    expect(byMpn.get('XC5V1')?.vzNom?.si).toBe(5.1);
+    expect(byMpn.get('XC5V1')?.zzt?.si).toBe(60);
+    expect(byMpn.get('XC6V2')?.vzNom?.si).toBe(6.2);
+    expect(byMpn.get('XC6V2')?.zzt?.si).toBe(10);
+  });
 });

@@ -187,7 +187,55 @@ function findGutter(groups: Placed[][]): number | undefined {
     } else if (score === bestScore && best.length && best[best.length - 1] === x - 1) best.push(x);
     onlyRight -= rightEnds[k];
   }
-  return bestScore >= 3 ? best[Math.floor(best.length / 2)] : undefined;
+  if (bestScore >= 3) return best[Math.floor(best.length / 2)];
+  return repeatedColumnsGutter(groups, from, to);
+}
+
+/**
+ * Two columns set on one pitch from top to bottom leave no line of either standing alone, so
+ * the count above finds nothing. Two columns of the same kind (a part's table beside the next
+ * part's) repeat themselves, though: "Package: SOT-23 … Package: SMA", "Symbol Parameter … Symbol
+ * Parameter …", "UZ Working voltage … UZ Working voltage …". A table's row never starts again
+ * with its own first word after a wide gap. Four or more such lines that agree on where the
+ * second column starts, with hardly any text running across just left of it, make the gutter.
+ */
+function repeatedColumnsGutter(groups: Placed[][], from: number, to: number): number | undefined {
+  const firstWord = (str: string) => /^\s*([\p{L}][\p{L}\p{N}:.-]*)/u.exec(str)?.[1];
+  const edges: number[] = [];
+  for (const g of groups) {
+    const sorted = [...g].sort((a, b) => a.x0 - b.x0);
+    const lead = firstWord(sorted.map((i) => i.str).join(''));
+    if (!lead || lead.length < 2) continue;
+    let end = -Infinity;
+    for (let k = 0; k < sorted.length; k++) {
+      const i = sorted[k];
+      if (end > -Infinity && i.x0 - end >= SHARED_GAP && i.x0 > from && i.x0 < to + 40) {
+        const text = sorted
+          .slice(k)
+          .map((o) => o.str)
+          .join('');
+        if (firstWord(text) === lead) {
+          edges.push(i.x0);
+          break;
+        }
+      }
+      end = Math.max(end, i.x1);
+    }
+  }
+  if (edges.length < 4) return undefined;
+  edges.sort((a, b) => a - b);
+  // The edge most of them share (within a few points: a symbol sits a little in from a heading).
+  let best = edges[0];
+  let agree = 0;
+  for (const e of edges) {
+    const n = edges.filter((o) => o >= e && o <= e + 15).length;
+    if (n > agree) [best, agree] = [e, n];
+  }
+  if (agree < 4) return undefined;
+  const x = Math.floor(best) - GUTTER_CLEAR - 2;
+  if (x < from || x > to) return undefined;
+  const crossing = groups.filter((g) => g.some((i) => i.x0 < x && i.x1 > x)).length;
+  return crossing <= 3 ? x : undefined;
 }
 
 /**
