@@ -137,6 +137,12 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
   const out: string[] = [];
   for (const m of mpns) {
     const siblings = mpns.filter((o) => o !== m && series(o) === series(m));
+    // Two rows run together ("VLY-39VLY-43"): another part's number, or the series' letters again, inside it.
+    const prefix = series(m);
+    if (siblings.some((o) => o.length >= 4 && m.indexOf(o) > 0) || (prefix.length >= 2 && m.indexOf(prefix, prefix.length) > 0)) {
+      out.push(m);
+      continue;
+    }
     const shapes = new Map<string, number>();
     for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
     if (shapes.has(shapeOf(m))) continue;

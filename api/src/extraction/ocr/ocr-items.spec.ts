@@ -119,6 +119,9 @@ describe('part numbers misread by OCR', () => {
   it('leaves out a part number with a character inserted into the shape its series shares', () => {
     const read = ['QZ4VT7A', 'QZ5V1AF', 'QZ5V6A', 'QZ6V2AF', 'QZ6V8A', 'QZ10A', 'QZ12AF', 'QZ15A'];
     expect(misreadPartNumbers(read)).toEqual(['QZ4VT7A']);
+    // Two rows read as one line.
+    expect(misreadPartNumbers(['VLY-30', 'VLY-33', 'VLY-39VLY-43', 'VLY-43'])).toEqual(['VLY-39VLY-43']);
+    expect(misreadPartNumbers(['VLY-30', 'VLY-39VLY-43'])).toEqual(['VLY-39VLY-43']);
   });
 
   it('keeps series that mix plain numbers with letter-for-point codes, and series too small to judge', () => {

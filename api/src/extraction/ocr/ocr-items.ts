@@ -23,7 +23,8 @@ const NUMBER = /^[+\-−]?\d+(?:\.\d+)?$/;
  * Exported for its unit spec.
  */
 export function repairOcrWord(raw: string): string | undefined {
-  let w = raw.trim();
+  // A ruled table's vertical lines come out as '|' (alone, or stuck to a cell's text).
+  let w = raw.trim().replace(/^[|¦]+|[|¦]+$/g, '');
   if (!w) return undefined;
   // Minus signs: the model has '−' as '=', '—', '–', '~' or '-' before a number.
   w = w.replace(/^[=—–~](?=\d)/, '-');
