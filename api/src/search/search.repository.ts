@@ -10,7 +10,7 @@ import {
 } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import { DECIDED_SQL, OPEN_SQL, USABLE_SQL } from '../common/source-standing.sql';
+import { DECIDED_SQL, OPEN_SQL } from '../common/source-standing.sql';
 import type { SqlPart } from '../text-index/text-index.repository';
 import { likePrefix } from '../vendor-parts/vendor-parts.repository';
 
@@ -63,17 +63,14 @@ export interface PairRow {
 export interface TextNarrowing {
   /** Each word's leading characters, matched as a prefix of the part numbers and inside names (none: no narrowing by text). */
   tokens?: string[];
-  /** The usable parts, read once for the several narrowing steps of one search (else joined as a derived table). */
-  usableIds?: readonly number[];
   /** The n-gram index's scored matches, a derived table (id, score): the parts it names drive the query, best score first. */
   scored?: SqlPart;
 }
 
-// The state lists come from the standing rule in contracts (approved is decided and usable).
+// The state lists come from the standing rule in contracts.
 const DECIDED = DECIDED_SQL;
 /** The house parts Find parts offers to choose from (contracts: no drafts); the contracts' own literals. */
 const DESIGNER_STATUS_SQL = DESIGNER_HOUSE_PART_STATUSES.map((s) => `'${s}'`).join(', ');
-const USABLE = USABLE_SQL;
 
 /**
  * The latest decided case of each house part and vendor part (the one no later revision
@@ -87,33 +84,17 @@ const LATEST_DECIDED = `SELECT d.id, d.house_part_id, d.vendor_part_id, d.revisi
     WHERE n.house_part_id = d.house_part_id AND n.vendor_part_id = d.vendor_part_id AND n.revision > d.revision AND n.state IN ${DECIDED})`;
 
 /**
- * Pairs (vendor_part_id, house_part_id) a designer may design in: on the house part's
- * source list and approved or cleared by the latest decision (sourceStanding in contracts).
+ * Pairs (vendor_part_id, house_part_id) a designer may design in: the usable_sources table,
+ * which the case and link writes keep by the standing rule of contracts in their own
+ * transaction (source-standing/usable-sources.repository.ts).
  */
 function usablePairs(housePartId: boolean): string {
-  // The usable cases no later decided revision overrode: both sides are read from the index
-  // (vendor_part_id, house_part_id, revision, state) without touching the cases' rows.
-  const hp = housePartId ? ' AND q.house_part_id = ?' : '';
-  return `SELECT q.vendor_part_id, q.house_part_id FROM qualifications q
-    JOIN house_part_sources s ON s.house_part_id = q.house_part_id AND s.vendor_part_id = q.vendor_part_id
-    WHERE q.state IN ${USABLE}${hp} AND NOT EXISTS (
-      SELECT 1 FROM qualifications n
-      WHERE n.house_part_id = q.house_part_id AND n.vendor_part_id = q.vendor_part_id AND n.revision > q.revision AND n.state IN ${DECIDED})`;
+  return `SELECT u.vendor_part_id, u.house_part_id FROM usable_sources u${housePartId ? ' WHERE u.house_part_id = ?' : ''}`;
 }
 
-/**
- * The same rule as usablePairs, asked of one part (`vp`): whether it has a usable pair. Probed
- * per row through the index (vendor_part_id, house_part_id, revision, state); cheaper than
- * building the whole usable set (about 44 000 index reads at 100 000 parts) when text has
- * already narrowed to a few thousand parts (MariaDB may still choose to materialise it).
- */
+/** The same set asked of one part (`vp`): one probe of the (vendor_part_id, house_part_id) index. */
 function usableProbe(housePartId: boolean): string {
-  const hp = housePartId ? ' AND q.house_part_id = ?' : '';
-  return `EXISTS (SELECT 1 FROM qualifications q
-    JOIN house_part_sources s ON s.house_part_id = q.house_part_id AND s.vendor_part_id = q.vendor_part_id
-    WHERE q.vendor_part_id = vp.id AND q.state IN ${USABLE}${hp} AND NOT EXISTS (
-      SELECT 1 FROM qualifications n
-      WHERE n.vendor_part_id = q.vendor_part_id AND n.house_part_id = q.house_part_id AND n.revision > q.revision AND n.state IN ${DECIDED}))`;
+  return `EXISTS (SELECT 1 FROM usable_sources u WHERE u.vendor_part_id = vp.id${housePartId ? ' AND u.house_part_id = ?' : ''})`;
 }
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
@@ -160,14 +141,13 @@ export class SearchRepository {
     if (usableOnly && usable === 'probe') {
       where.push(usableProbe(query.housePartId !== undefined));
       if (query.housePartId !== undefined) params.push(query.housePartId);
-    } else if (usableOnly && text?.usableIds) {
-      // MariaDB turns a long IN list into a lookup table of its own (in_predicate_conversion_threshold).
-      where.push(text.usableIds.length ? `vp.id IN (${text.usableIds.map(() => '?').join(', ')})` : 'FALSE');
-      params.push(...text.usableIds);
+    } else if (usableOnly && query.housePartId !== undefined) {
+      // One house part's usable parts: an index range, one row per part.
+      joins.push('JOIN usable_sources usable ON usable.vendor_part_id = vp.id AND usable.house_part_id = ?');
+      joinParams.push(query.housePartId);
     } else if (usableOnly) {
-      // A derived table joined on id, not `vp.id IN (…)`: MariaDB then materialises the set once instead of probing it per part.
-      joins.push(`JOIN (SELECT DISTINCT u.vendor_part_id FROM (${usablePairs(query.housePartId !== undefined)}) u) usable ON usable.vendor_part_id = vp.id`);
-      if (query.housePartId !== undefined) joinParams.push(query.housePartId);
+      // Every usable part once: the (vendor_part_id, house_part_id) index read in order, a part's pairs collapsed.
+      joins.push('JOIN (SELECT DISTINCT u.vendor_part_id FROM usable_sources u) usable ON usable.vendor_part_id = vp.id');
     }
     if (text?.scored) {
       words = `(${text.scored.sql}) words`;
@@ -277,15 +257,6 @@ export class SearchRepository {
       ids.push(...rows.map((r) => r.id));
     }
     return { ids, total };
-  }
-
-  /** Ids of every usable part (of one house part when given). */
-  async usableIds(housePartId?: number): Promise<number[]> {
-    const rows = await this.select<{ id: number }>(
-      `SELECT DISTINCT u.vendor_part_id AS id FROM (${usablePairs(housePartId !== undefined)}) u`,
-      housePartId !== undefined ? [housePartId] : [],
-    );
-    return rows.map((r) => r.id);
   }
 
   /** Up to `limit` parts the filters (and the text narrowing, if any) leave, with what the text ranking reads (best index score first). */

@@ -15,6 +15,7 @@ import { demoSeedSteps } from './2026-12-04-0300-demo-seed-steps';
 import { mailClaims } from './2026-12-04-0301-mail-claims';
 import { waivers } from './2026-12-04-0900-waivers';
 import { qualificationPairState } from './2026-12-04-1000-qualification-pair-state';
+import { usableSources } from './2026-12-04-1100-usable-sources';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -37,4 +38,5 @@ export const MIGRATIONS: Migration[] = [
   mailClaims,
   waivers,
   qualificationPairState,
+  usableSources,
 ];
