@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable, Optional } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
@@ -23,6 +23,21 @@ export const COMMON_PIECE = 5000;
  */
 export const COMMON_SHARE = 0.25;
 const COMMON_FLOOR = 200;
+/**
+ * When every piece of the text a kind holds at all is common, the scored match still narrows:
+ * by the records holding all of the FALLBACK_PIECES least common ones (an intersection), each
+ * then scored by all the pieces. Their counts are read up to FALLBACK_COUNT_CAP times the
+ * threshold to tell the least common apart.
+ */
+const FALLBACK_PIECES = 2;
+const FALLBACK_COUNT_CAP = 50;
+
+/** The thresholds above, injectable so a test can make pieces common on a small catalogue. */
+export interface TextIndexLimits {
+  commonPiece: number;
+  commonFloor: number;
+}
+export const TEXT_INDEX_LIMITS = 'TEXT_INDEX_LIMITS';
 const KIND_TABLES: Record<TextKind, string> = { vendorPart: 'vendor_parts', housePart: 'house_parts', manufacturer: 'manufacturers' };
 /** How long a piece's (capped) record count is reused: it only decides which pieces narrow, never what matches. */
 const FREQUENCY_TTL_MS = 60_000;
@@ -47,7 +62,14 @@ export class TextIndexRepository {
   private readonly frequencies = new Map<string, { n: number; at: number }>();
   private readonly kindSizes = new Map<TextKind, { n: number; at: number }>();
 
-  constructor(@InjectConnection() private readonly sequelize: Sequelize) {}
+  private readonly limits: TextIndexLimits;
+
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    @Optional() @Inject(TEXT_INDEX_LIMITS) limits?: Partial<TextIndexLimits>,
+  ) {
+    this.limits = { commonPiece: COMMON_PIECE, commonFloor: COMMON_FLOOR, ...limits };
+  }
 
   /** Rewrites one record's pieces inside the caller's transaction (it must be the one that writes the record). */
   async write(kind: TextKind, id: number, texts: ReadonlyArray<string | null | undefined>, transaction: Transaction): Promise<void> {
@@ -129,7 +151,10 @@ export class TextIndexRepository {
    * `(id, score)` with score in 0..1 (the share of the usable pieces found): through their
    * own part number, a house part they are a source of (number or description), or their
    * manufacturer's name. A record needs a third of the usable pieces, so a typo or two
-   * swapped letters still match; the best few hundred go on to the fuzzy ranking. Null when the text has no usable piece (too short, or every piece too common).
+   * swapped letters still match; the best few hundred go on to the fuzzy ranking. Pieces
+   * too common to narrow by are skipped; when every piece a kind holds is that common, the
+   * records holding all of the least common ones are taken instead (never nothing for text
+   * that matches). Null when the text is too short to have pieces.
    */
   async scoredVendorParts(text: string): Promise<SqlPart | null> {
     const pieces = grams(text);
@@ -137,13 +162,27 @@ export class TextIndexRepository {
     const branches: string[] = [];
     const params: unknown[] = [];
     for (const kind of ['vendorPart', 'housePart', 'manufacturer'] as const) {
-      const [counts, common] = await Promise.all([this.pieceCounts(kind, pieces), this.commonAbove(kind)]);
+      const common = await this.commonAbove(kind);
+      const counts = await this.pieceCounts(kind, pieces, common);
+      // No record of the kind holds any piece: nothing to find there.
+      const held = pieces.filter((p) => (counts.get(p) ?? 0) > 0);
+      if (held.length === 0) continue;
       const usable = pieces.filter((p) => (counts.get(p) ?? 0) <= common);
-      if (usable.length === 0) continue;
-      // A third of the pieces: a typo costs up to three, two swapped letters four of a short part number's five.
-      const required = Math.max(1, Math.ceil(usable.length / 3));
-      const hits = `SELECT entity_id, COUNT(*) / ? AS score FROM text_grams WHERE kind = ? AND gram IN (${list(usable.length)}) GROUP BY entity_id HAVING COUNT(*) >= ?`;
-      params.push(usable.length, TEXT_KINDS[kind], ...usable, required);
+      let hits: string;
+      if (held.some((p) => (counts.get(p) ?? 0) <= common)) {
+        // A third of the pieces: a typo costs up to three, two swapped letters four of a short part number's five.
+        const required = Math.max(1, Math.ceil(usable.length / 3));
+        hits = `SELECT entity_id, COUNT(*) / ? AS score FROM text_grams WHERE kind = ? AND gram IN (${list(usable.length)}) GROUP BY entity_id HAVING COUNT(*) >= ?`;
+        params.push(usable.length, TEXT_KINDS[kind], ...usable, required);
+      } else {
+        // Every piece the kind holds is common (a short, everyday part number at a million parts):
+        // the records holding all of the least common ones, scored by every piece they hold.
+        const fuller = await this.pieceCounts(kind, held, common * FALLBACK_COUNT_CAP);
+        const least = [...held].sort((a, b) => (fuller.get(a) ?? 0) - (fuller.get(b) ?? 0)).slice(0, FALLBACK_PIECES);
+        hits = `SELECT g.entity_id, COUNT(*) / ? AS score FROM (SELECT entity_id FROM text_grams WHERE kind = ? AND gram IN (${list(least.length)}) GROUP BY entity_id HAVING COUNT(*) = ?) every
+          JOIN text_grams g ON g.kind = ? AND g.entity_id = every.entity_id AND g.gram IN (${list(held.length)}) GROUP BY g.entity_id`;
+        params.push(pieces.length, TEXT_KINDS[kind], ...least, least.length, TEXT_KINDS[kind], ...held);
+      }
       // Each branch keeps its best records only, so a word many names share (an "invented" in
       // every description) cannot pull in the whole catalogue: the closest parts of a part
       // number, the closest house parts, and only the manufacturers that match best.
@@ -159,7 +198,8 @@ export class TextIndexRepository {
         );
       }
     }
-    if (branches.length === 0) return null;
+    // Long enough to index, but no record holds a piece of it: an empty match, not the prefix fallback.
+    if (branches.length === 0) return { sql: 'SELECT 0 AS id, 0 AS score FROM DUAL WHERE FALSE', params: [] };
     return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id`, params };
   }
 
@@ -176,30 +216,29 @@ export class TextIndexRepository {
       size = { n: Number(row.n), at: now };
       this.kindSizes.set(kind, size);
     }
-    return Math.min(COMMON_PIECE, Math.max(COMMON_FLOOR, Math.floor(size.n * COMMON_SHARE)));
+    return Math.min(this.limits.commonPiece, Math.max(this.limits.commonFloor, Math.floor(size.n * COMMON_SHARE)));
   }
 
-  /** How many records of a kind hold each piece, capped just above COMMON_PIECE; reused for a minute. */
-  private async pieceCounts(kind: TextKind, pieces: string[]): Promise<Map<string, number>> {
+  /** How many records of a kind hold each piece, capped just above `cap` (more is "common"); reused for a minute. */
+  private async pieceCounts(kind: TextKind, pieces: string[], cap: number): Promise<Map<string, number>> {
     const now = Date.now();
     const out = new Map<string, number>();
     const missing: string[] = [];
     for (const p of pieces) {
-      const hit = this.frequencies.get(`${kind}:${p}`);
+      const hit = this.frequencies.get(`${kind}:${cap}:${p}`);
       if (hit && now - hit.at < FREQUENCY_TTL_MS) out.set(p, hit.n);
       else missing.push(p);
     }
     if (missing.length === 0) return out;
+    const limit = Math.floor(cap) + 1;
     const rows = await this.sequelize.query<{ gram: string; n: number | bigint }>(
-      missing
-        .map(() => `SELECT ? AS gram, COUNT(*) AS n FROM (SELECT 1 FROM text_grams WHERE kind = ? AND gram = ? LIMIT ${COMMON_PIECE + 1}) c`)
-        .join(' UNION ALL '),
+      missing.map(() => `SELECT ? AS gram, COUNT(*) AS n FROM (SELECT 1 FROM text_grams WHERE kind = ? AND gram = ? LIMIT ${limit}) c`).join(' UNION ALL '),
       { replacements: missing.flatMap((p) => [p, TEXT_KINDS[kind], p]), type: QueryTypes.SELECT },
     );
     if (this.frequencies.size > FREQUENCY_CACHE_LIMIT) this.frequencies.clear();
     for (const r of rows) {
       out.set(r.gram, Number(r.n));
-      this.frequencies.set(`${kind}:${r.gram}`, { n: Number(r.n), at: now });
+      this.frequencies.set(`${kind}:${cap}:${r.gram}`, { n: Number(r.n), at: now });
     }
     return out;
   }
