@@ -24,13 +24,13 @@ export const COMMON_PIECE = 5000;
 export const COMMON_SHARE = 0.25;
 const COMMON_FLOOR = 200;
 /**
- * When every piece of the text a kind holds at all is common, the scored match still narrows:
- * by the records holding all of the FALLBACK_PIECES least common ones (an intersection), each
- * then scored by all the pieces. Their counts are read up to FALLBACK_COUNT_CAP times the
- * threshold to tell the least common apart.
+ * When every piece of the text a kind holds is common, the scored match still narrows: by the
+ * records holding all of the FALLBACK_PIECES least common ones (an intersection), each then
+ * scored by all the pieces. Only pieces held by at most FALLBACK_COUNT_CAP times COMMON_PIECE
+ * records, and never more than COMMON_SHARE of the kind (those say nothing), take part.
  */
 const FALLBACK_PIECES = 2;
-const FALLBACK_COUNT_CAP = 50;
+const FALLBACK_COUNT_CAP = 20;
 
 /** The thresholds above, injectable so a test can make pieces common on a small catalogue. */
 export interface TextIndexLimits {
@@ -162,7 +162,7 @@ export class TextIndexRepository {
     const branches: string[] = [];
     const params: unknown[] = [];
     for (const kind of ['vendorPart', 'housePart', 'manufacturer'] as const) {
-      const common = await this.commonAbove(kind);
+      const { common, share } = await this.commonAbove(kind);
       const counts = await this.pieceCounts(kind, pieces, common);
       // No record of the kind holds any piece: nothing to find there.
       const held = pieces.filter((p) => (counts.get(p) ?? 0) > 0);
@@ -177,8 +177,12 @@ export class TextIndexRepository {
       } else {
         // Every piece the kind holds is common (a short, everyday part number at a million parts):
         // the records holding all of the least common ones, scored by every piece they hold.
-        const fuller = await this.pieceCounts(kind, held, common * FALLBACK_COUNT_CAP);
-        const least = [...held].sort((a, b) => (fuller.get(a) ?? 0) - (fuller.get(b) ?? 0)).slice(0, FALLBACK_PIECES);
+        const cap = Math.min(share, this.limits.commonPiece * FALLBACK_COUNT_CAP);
+        const fuller = await this.pieceCounts(kind, held, cap);
+        const telling = held.filter((p) => (fuller.get(p) ?? 0) <= cap);
+        // Held by a large share of the kind (the "inv" of every "Invented …" description): matching it says nothing.
+        if (telling.length === 0) continue;
+        const least = telling.sort((a, b) => (fuller.get(a) ?? 0) - (fuller.get(b) ?? 0)).slice(0, FALLBACK_PIECES);
         hits = `SELECT g.entity_id, COUNT(*) / ? AS score FROM (SELECT entity_id FROM text_grams WHERE kind = ? AND gram IN (${list(least.length)}) GROUP BY entity_id HAVING COUNT(*) = ?) every
           JOIN text_grams g ON g.kind = ? AND g.entity_id = every.entity_id AND g.gram IN (${list(held.length)}) GROUP BY g.entity_id`;
         params.push(pieces.length, TEXT_KINDS[kind], ...least, least.length, TEXT_KINDS[kind], ...held);
@@ -204,11 +208,12 @@ export class TextIndexRepository {
   }
 
   /**
-   * Above how many records a piece of this kind is too common to narrow by: COMMON_PIECE, or
-   * COMMON_SHARE of the kind's records when that is fewer (never under COMMON_FLOOR). The
-   * record count is reused for a minute, like the piece counts: it only chooses pieces.
+   * Above how many records a piece of this kind is too common to narrow by (`common`):
+   * COMMON_PIECE, or COMMON_SHARE of the kind's records (`share`, never under COMMON_FLOOR)
+   * when that is fewer. The record count is reused for a minute, like the piece counts: it
+   * only chooses pieces.
    */
-  private async commonAbove(kind: TextKind): Promise<number> {
+  private async commonAbove(kind: TextKind): Promise<{ common: number; share: number }> {
     const now = Date.now();
     let size = this.kindSizes.get(kind);
     if (!size || now - size.at >= FREQUENCY_TTL_MS) {
@@ -216,7 +221,8 @@ export class TextIndexRepository {
       size = { n: Number(row.n), at: now };
       this.kindSizes.set(kind, size);
     }
-    return Math.min(this.limits.commonPiece, Math.max(this.limits.commonFloor, Math.floor(size.n * COMMON_SHARE)));
+    const share = Math.max(this.limits.commonFloor, Math.floor(size.n * COMMON_SHARE));
+    return { common: Math.min(this.limits.commonPiece, share), share };
   }
 
   /** How many records of a kind hold each piece, capped just above `cap` (more is "common"); reused for a minute. */
