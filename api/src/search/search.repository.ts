@@ -65,6 +65,8 @@ export interface TextNarrowing {
   tokens?: string[];
   /** The n-gram index's scored matches, a derived table (id, score): the parts it names drive the query, best score first. */
   scored?: SqlPart;
+  /** The scored matches were already cut to the usable set (usableCondition inside the index's branches). */
+  usableApplied?: boolean;
 }
 
 // The state lists come from the standing rule in contracts.
@@ -94,7 +96,20 @@ function usablePairs(housePartId: boolean): string {
 
 /** The same set asked of one part (`vp`): one probe of the (vendor_part_id, house_part_id) index. */
 function usableProbe(housePartId: boolean): string {
-  return `EXISTS (SELECT 1 FROM usable_sources u WHERE u.vendor_part_id = vp.id${housePartId ? ' AND u.house_part_id = ?' : ''})`;
+  return usableCondition('vp.id', housePartId ? 0 : undefined).sql;
+}
+
+/**
+ * Whether the part in `column` is usable (for the house part, when given): a probe per row. A
+ * scalar subquery, not EXISTS: MariaDB turns an EXISTS into a semi-join and may then start
+ * from the whole usable set, reading every usable part to test the text (measured: 11 ms
+ * instead of 8 ms for a manufacturer's 2 500 parts).
+ */
+export function usableCondition(column: string, housePartId?: number): SqlPart {
+  return {
+    sql: `(SELECT 1 FROM usable_sources u WHERE u.vendor_part_id = ${column}${housePartId !== undefined ? ' AND u.house_part_id = ?' : ''} LIMIT 1) IS NOT NULL`,
+    params: housePartId !== undefined ? [housePartId] : [],
+  };
 }
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
@@ -138,7 +153,9 @@ export class SearchRepository {
     const params: unknown[] = [];
     let needsCard = false;
     const usableOnly = !query.includeNotCleared;
-    if (usableOnly && usable === 'probe') {
+    if (usableOnly && text?.usableApplied) {
+      // Nothing more: the text's matches are usable parts only.
+    } else if (usableOnly && usable === 'probe') {
       where.push(usableProbe(query.housePartId !== undefined));
       if (query.housePartId !== undefined) params.push(query.housePartId);
     } else if (usableOnly && query.housePartId !== undefined) {
@@ -147,7 +164,11 @@ export class SearchRepository {
       joinParams.push(query.housePartId);
     } else if (usableOnly) {
       // Every usable part once: the (vendor_part_id, house_part_id) index read in order, a part's pairs collapsed.
-      joins.push('JOIN (SELECT DISTINCT u.vendor_part_id FROM usable_sources u) usable ON usable.vendor_part_id = vp.id');
+      // A Zener-voltage range (a designer's window, a few % of the catalogue) is read first from the
+      // filter index, the usable set probed after: MariaDB otherwise starts from the usable set and
+      // reads each of its parts by primary key (5 014 at 100 000 parts) to test the range.
+      const vzFirst = query.vzFrom !== undefined || query.vzTo !== undefined;
+      joins.push(`${vzFirst ? 'STRAIGHT_JOIN' : 'JOIN'} (SELECT DISTINCT u.vendor_part_id FROM usable_sources u) usable ON usable.vendor_part_id = vp.id`);
     }
     if (text?.scored) {
       words = `(${text.scored.sql}) words`;
@@ -203,7 +224,8 @@ export class SearchRepository {
       where.push('vp.vz_tolerance <= ?');
       params.push(query.toleranceMax);
     }
-    if (needsCard) joins.push('JOIN rating_cards rc ON rc.vendor_part_id = vp.id');
+    // The card last: its JSON is read only for the parts every indexed condition left.
+    if (needsCard) joins.push('STRAIGHT_JOIN rating_cards rc ON rc.vendor_part_id = vp.id');
     return {
       // The parts the words name drive the join (STRAIGHT_JOIN): otherwise MariaDB may walk the Vz index of every part and probe them.
       from: words ? `FROM ${words} STRAIGHT_JOIN vendor_parts vp ON vp.id = words.id ${joins.join(' ')}` : `FROM vendor_parts vp ${joins.join(' ')}`,

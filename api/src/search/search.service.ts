@@ -19,7 +19,7 @@ import {
 } from '@shuntwise/contracts';
 import { WaiversService } from '../qualifications/waivers.service';
 import { TextIndexRepository } from '../text-index/text-index.repository';
-import { SearchRepository, type CandidateRow, type PairRow, type PartRow } from './search.repository';
+import { SearchRepository, usableCondition, type CandidateRow, type PairRow, type PartRow } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
 
 /**
@@ -83,8 +83,10 @@ export class SearchService {
    */
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
-    const scored = await this.textIndex.scoredVendorParts(text);
-    const rows = await this.repository.candidates(query, scored ? { scored } : { tokens: textTokens(text) }, limit + 1);
+    // The usable set is tested inside the index's branches, before each keeps its best matches.
+    const usable = query.includeNotCleared ? undefined : (column: string) => usableCondition(column, query.housePartId);
+    const scored = await this.textIndex.scoredVendorParts(text, usable);
+    const rows = await this.repository.candidates(query, scored ? { scored, usableApplied: usable !== undefined } : { tokens: textTokens(text) }, limit + 1);
     return { candidates: rows.slice(0, limit), mode: scored ? 'fuzzy' : 'prefix', truncated: rows.length > limit };
   }
 

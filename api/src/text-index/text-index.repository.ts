@@ -154,9 +154,11 @@ export class TextIndexRepository {
    * swapped letters still match; the best few hundred go on to the fuzzy ranking. Pieces
    * too common to narrow by are skipped; when every piece a kind holds is that common, the
    * records holding all of the least common ones are taken instead (never nothing for text
-   * that matches). Null when the text is too short to have pieces.
+   * that matches). Null when the text is too short to have pieces. `only` is a condition on
+   * a vendor part id column that every branch applies before it keeps its best records (the
+   * search's usable set), so the cut never drops the parts the caller wants.
    */
-  async scoredVendorParts(text: string): Promise<SqlPart | null> {
+  async scoredVendorParts(text: string, only?: (idColumn: string) => SqlPart): Promise<SqlPart | null> {
     const pieces = grams(text);
     if (pieces.length === 0) return null;
     const branches: string[] = [];
@@ -184,21 +186,31 @@ export class TextIndexRepository {
         if (telling.length === 0) continue;
         const least = telling.sort((a, b) => (fuller.get(a) ?? 0) - (fuller.get(b) ?? 0)).slice(0, FALLBACK_PIECES);
         hits = `SELECT g.entity_id, COUNT(*) / ? AS score FROM (SELECT entity_id FROM text_grams WHERE kind = ? AND gram IN (${list(least.length)}) GROUP BY entity_id HAVING COUNT(*) = ?) every
-          JOIN text_grams g ON g.kind = ? AND g.entity_id = every.entity_id AND g.gram IN (${list(held.length)}) GROUP BY g.entity_id`;
+          JOIN text_grams g ON g.kind = ? AND g.entity_id = every.entity_id AND g.gram IN (${list(held.length)}) GROUP BY g.entity_id HAVING COUNT(*) > 0`;
         params.push(pieces.length, TEXT_KINDS[kind], ...least, least.length, TEXT_KINDS[kind], ...held);
       }
       // Each branch keeps its best records only, so a word many names share (an "invented" in
       // every description) cannot pull in the whole catalogue: the closest parts of a part
       // number, the closest house parts, and only the manufacturers that match best.
-      if (kind === 'vendorPart') branches.push(`SELECT entity_id AS id, score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
-      if (kind === 'housePart')
+      if (kind === 'vendorPart') {
+        // Tested per matching part (after grouping), before the best are kept.
+        const own = only?.('entity_id');
+        if (own) params.push(...own.params);
+        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
+      }
+      if (kind === 'housePart') {
+        const sourced = only?.('s.vendor_part_id');
+        if (sourced) params.push(...sourced.params);
         branches.push(
-          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id`,
+          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id${sourced ? ` WHERE ${sourced.sql}` : ''}`,
         );
+      }
       if (kind === 'manufacturer') {
+        const made = only?.('mv.id');
+        if (made) params.push(...made.params);
         branches.push(
           `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
-           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id`,
+           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id${made ? ` WHERE ${made.sql}` : ''}`,
         );
       }
     }
