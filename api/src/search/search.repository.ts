@@ -285,21 +285,17 @@ export class SearchRepository {
   async candidates(query: SearchQuery, text: TextNarrowing | undefined, limit: number): Promise<CandidateRow[]> {
     // Text drives the query with a bounded set of parts (the index's best matches or prefix ranges): usability is probed per part.
     const c = this.conditions(query, text, text?.scored || text?.tokens?.length ? 'probe' : 'join');
-    const rows = await this.select<Omit<CandidateRow, 'houseParts'>>(
-      `SELECT vp.id, vp.mpn, vp.manufacturer_name AS manufacturer, vp.package, vp.vz_nom AS vzNom, vp.pd_max AS pdMax
-       ${c.from} ${c.where} ORDER BY ${text?.scored ? 'words.score DESC, ' : ''}vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?`,
+    // The house parts' names only for the parts kept (the limit is applied in the derived table first), in the same statement.
+    // The outer query keeps the inner order (the same keys: the index score, then Vz, then id).
+    return this.select<CandidateRow>(
+      `SELECT c.id, c.mpn, c.manufacturer, c.package, c.vzNom, c.pdMax,
+         (SELECT GROUP_CONCAT(h.part_number, '\t', h.description SEPARATOR '\n') FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id
+          WHERE s.vendor_part_id = c.id) AS houseParts
+       FROM (SELECT vp.id, vp.mpn, vp.manufacturer_name AS manufacturer, vp.package, vp.vz_nom AS vzNom, vp.pd_max AS pdMax, ${text?.scored ? 'words.score' : '0'} AS score
+         ${c.from} ${c.where} ORDER BY ${text?.scored ? 'words.score DESC, ' : ''}vp.vz_nom IS NULL, vp.vz_nom, vp.id LIMIT ?) c
+       ORDER BY c.score DESC, c.vzNom IS NULL, c.vzNom, c.id`,
       [...c.params, limit],
     );
-    if (rows.length === 0) return [];
-    // The house parts' names only for the parts that will be ranked (one grouped query, not one per part).
-    const texts = await this.select<{ id: number; houseParts: string }>(
-      `SELECT s.vendor_part_id AS id, GROUP_CONCAT(h.part_number, '\t', h.description SEPARATOR '\n') AS houseParts
-       FROM house_part_sources s JOIN house_parts h ON h.id = s.house_part_id
-       WHERE s.vendor_part_id IN (${rows.map(() => '?').join(', ')}) GROUP BY s.vendor_part_id`,
-      rows.map((r) => r.id),
-    );
-    const byId = new Map(texts.map((t) => [t.id, t.houseParts]));
-    return rows.map((r) => ({ ...r, houseParts: byId.get(r.id) ?? null }));
   }
 
   /** The page's parts with their current card and newest datasheet. */

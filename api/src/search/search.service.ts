@@ -39,7 +39,7 @@ export class SearchService {
 
   async search(query: SearchQuery): Promise<SearchPage> {
     // Waivers past their day end before usability is read (see WaiversService.lapseDue).
-    await this.waivers?.lapseDue();
+    await this.waivers?.lapseBeforeRead();
     if (!query.q) {
       const { ids, total } = await this.repository.page(query);
       return {

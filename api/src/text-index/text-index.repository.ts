@@ -42,7 +42,7 @@ const KIND_TABLES: Record<TextKind, string> = { vendorPart: 'vendor_parts', hous
 /** How long a piece's (capped) record count is reused: it only decides which pieces narrow, never what matches. */
 const FREQUENCY_TTL_MS = 60_000;
 const FREQUENCY_CACHE_LIMIT = 20_000;
-/** The most records one source of matches (part numbers, house parts) hands on before the filters. */
+/** The most records one source of matches (part numbers, house parts) hands on before the filters (best score first, ties by id so the cut is the same on every run). */
 const BRANCH_LIMIT = 2000;
 
 /** Escapes LIKE wildcards so a typed "%" or "_" matches itself. */
@@ -196,13 +196,13 @@ export class TextIndexRepository {
         // Tested per matching part (after grouping), before the best are kept.
         const own = only?.('entity_id');
         if (own) params.push(...own.params);
-        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) own`);
+        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${BRANCH_LIMIT}) own`);
       }
       if (kind === 'housePart') {
         const sourced = only?.('s.vendor_part_id');
         if (sourced) params.push(...sourced.params);
         branches.push(
-          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id${sourced ? ` WHERE ${sourced.sql}` : ''}`,
+          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC, entity_id LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id${sourced ? ` WHERE ${sourced.sql}` : ''}`,
         );
       }
       if (kind === 'manufacturer') {
