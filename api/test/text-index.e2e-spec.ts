@@ -7,7 +7,7 @@ import { SearchRepository } from '../src/search/search.repository';
 import { SearchService } from '../src/search/search.service';
 import { TextIndexRepository } from '../src/text-index/text-index.repository';
 import { VendorPartsRepository } from '../src/vendor-parts/vendor-parts.repository';
-import { createVendorPart } from './helpers/catalogue-fixtures';
+import { createVendorPart, demoCardFields } from './helpers/catalogue-fixtures';
 import { createTestApp, type TestApp } from './helpers/test-app';
 
 /**
@@ -146,6 +146,38 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(page.text.mode).toBe('fuzzy');
     const typo = await search.search(searchQuerySchema.parse({ q: 'CQZQ7-5V1-8', includeNotCleared: 'true' }));
     expect(typo.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']));
+  });
+
+  // A branch keeps its best matches only (2 000); the filters on a part's own columns are tested
+  // before that cut, so a Vz range finds its parts however many others hold the text.
+  it('applies the Vz range before a text branch keeps its best matches', async () => {
+    const entered = { source: 'entered' as const };
+    const ids: number[] = [];
+    for (const [mpn, vz] of [
+      ['KRZ-2V4', 2.4],
+      ['KRZ-3V3', 3.3],
+      ['KRZ-4V7', 4.7],
+      ['KRZ-6V8', 6.8],
+      ['KRZ-9V1', 9.1],
+    ] as const) {
+      const id = await createVendorPart(t.http, engineer, { manufacturer: 'Branchcut Invented Devices', mpn });
+      const fields = demoCardFields({
+        vzMin: { value: vz * 0.95, printed: null, provenance: entered },
+        vzNom: { value: vz, printed: null, provenance: entered },
+        vzMax: { value: vz * 1.05, printed: null, provenance: entered },
+      });
+      expect((await t.http.put(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer)).send({ version: 0, fields })).status).toBe(200);
+      ids.push(id);
+    }
+    // Every one holds the text outright; a branch may hand on two of them.
+    const narrow = new TextIndexRepository(t.stack.app.get(Sequelize), { branchLimit: 2 });
+    const search = new SearchService(t.stack.app.get(SearchRepository), narrow);
+    const page = await search.search(searchQuerySchema.parse({ q: 'KRZ', includeNotCleared: 'true', vzFrom: '6', vzTo: '10' }));
+    expect(page.items.map((i) => i.vendorPart.mpn).sort()).toEqual(['KRZ-6V8', 'KRZ-9V1']);
+    expect(page.text.mode).toBe('fuzzy');
+    // Without a filter the cut shows: two parts, the first by score then id.
+    const all = await search.search(searchQuerySchema.parse({ q: 'KRZ', includeNotCleared: 'true' }));
+    expect(all.items.map((i) => i.vendorPart.id).sort((a, b) => a - b)).toEqual(ids.slice(0, 2));
   });
 
   it('moves a renamed part in the index: the old number no longer finds it, the new one does', async () => {

@@ -112,6 +112,51 @@ export function usableCondition(column: string, housePartId?: number): SqlPart {
   };
 }
 
+/**
+ * What the text index's branches test of each part before they keep their best matches:
+ * usability (a designer's search) and the filters on vendor_parts' own columns (Vz range,
+ * package, maker, power, tolerance), by one primary-key read per part. Tested there, a
+ * branch's cut keeps the parts the filters want; tested only after it, "ZX07" with a Vz range
+ * ranked the range's parts among an arbitrary 2 000 of the 2 500 that hold "x07". The card's
+ * tolerance window (JSON) stays in the candidate query. Undefined when there is nothing to test.
+ */
+export function branchCondition(query: SearchQuery): ((column: string) => SqlPart) | undefined {
+  const where: string[] = [];
+  const params: unknown[] = [];
+  if (query.vzFrom !== undefined) {
+    where.push('f.vz_nom >= ?');
+    params.push(query.vzFrom);
+  }
+  if (query.vzTo !== undefined) {
+    where.push('f.vz_nom <= ?');
+    params.push(query.vzTo);
+  }
+  if (query.package?.length) {
+    where.push(`f.package IN (${query.package.map(() => '?').join(', ')})`);
+    params.push(...query.package);
+  }
+  if (query.manufacturer?.length) {
+    where.push(`f.manufacturer_name IN (${query.manufacturer.map(() => '?').join(', ')})`);
+    params.push(...query.manufacturer);
+  }
+  if (query.pdMin !== undefined) {
+    where.push('f.pd_max >= ?');
+    params.push(query.pdMin);
+  }
+  if (query.toleranceMax !== undefined) {
+    where.push('f.vz_tolerance <= ?');
+    params.push(query.toleranceMax);
+  }
+  const usableOnly = !query.includeNotCleared;
+  if (!usableOnly && where.length === 0) return undefined;
+  return (column) => {
+    const parts: SqlPart[] = [];
+    if (usableOnly) parts.push(usableCondition(column, query.housePartId));
+    if (where.length) parts.push({ sql: `(SELECT 1 FROM vendor_parts f WHERE f.id = ${column} AND ${where.join(' AND ')}) IS NOT NULL`, params });
+    return { sql: parts.map((p) => p.sql).join(' AND '), params: parts.flatMap((p) => p.params) };
+  };
+}
+
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
 const VZ_MIN = `JSON_VALUE(rc.fields, '$.vzMin.value')`;
 const VZ_MAX = `JSON_VALUE(rc.fields, '$.vzMax.value')`;

@@ -19,7 +19,7 @@ import {
 } from '@shuntwise/contracts';
 import { WaiversService } from '../qualifications/waivers.service';
 import { TextIndexRepository } from '../text-index/text-index.repository';
-import { SearchRepository, usableCondition, type CandidateRow, type PairRow, type PartRow } from './search.repository';
+import { SearchRepository, branchCondition, type CandidateRow, type PairRow, type PartRow } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
 
 /**
@@ -83,10 +83,9 @@ export class SearchService {
    */
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
-    // The usable set is tested inside the index's branches, before each keeps its best matches.
-    const usable = query.includeNotCleared ? undefined : (column: string) => usableCondition(column, query.housePartId);
-    const scored = await this.textIndex.scoredVendorParts(text, usable);
-    const rows = await this.repository.candidates(query, scored ? { scored, usableApplied: usable !== undefined } : { tokens: textTokens(text) }, limit + 1);
+    // Usability and the part's own filters are tested inside the index's branches, before each keeps its best matches.
+    const scored = await this.textIndex.scoredVendorParts(text, branchCondition(query));
+    const rows = await this.repository.candidates(query, scored ? { scored, usableApplied: !query.includeNotCleared } : { tokens: textTokens(text) }, limit + 1);
     return { candidates: rows.slice(0, limit), mode: scored ? 'fuzzy' : 'prefix', truncated: rows.length > limit };
   }
 

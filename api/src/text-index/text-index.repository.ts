@@ -36,6 +36,7 @@ const FALLBACK_COUNT_CAP = 20;
 export interface TextIndexLimits {
   commonPiece: number;
   commonFloor: number;
+  branchLimit: number;
 }
 export const TEXT_INDEX_LIMITS = 'TEXT_INDEX_LIMITS';
 const KIND_TABLES: Record<TextKind, string> = { vendorPart: 'vendor_parts', housePart: 'house_parts', manufacturer: 'manufacturers' };
@@ -68,7 +69,7 @@ export class TextIndexRepository {
     @InjectConnection() private readonly sequelize: Sequelize,
     @Optional() @Inject(TEXT_INDEX_LIMITS) limits?: Partial<TextIndexLimits>,
   ) {
-    this.limits = { commonPiece: COMMON_PIECE, commonFloor: COMMON_FLOOR, ...limits };
+    this.limits = { commonPiece: COMMON_PIECE, commonFloor: COMMON_FLOOR, branchLimit: BRANCH_LIMIT, ...limits };
   }
 
   /** Rewrites one record's pieces inside the caller's transaction (it must be the one that writes the record). */
@@ -196,13 +197,13 @@ export class TextIndexRepository {
         // Tested per matching part (after grouping), before the best are kept.
         const own = only?.('entity_id');
         if (own) params.push(...own.params);
-        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${BRANCH_LIMIT}) own`);
+        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${this.limits.branchLimit}) own`);
       }
       if (kind === 'housePart') {
         const sourced = only?.('s.vendor_part_id');
         if (sourced) params.push(...sourced.params);
         branches.push(
-          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC, entity_id LIMIT ${BRANCH_LIMIT}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id${sourced ? ` WHERE ${sourced.sql}` : ''}`,
+          `SELECT s.vendor_part_id AS id, hp.score FROM (${hits} ORDER BY score DESC, entity_id LIMIT ${this.limits.branchLimit}) hp JOIN house_part_sources s ON s.house_part_id = hp.entity_id${sourced ? ` WHERE ${sourced.sql}` : ''}`,
         );
       }
       if (kind === 'manufacturer') {
