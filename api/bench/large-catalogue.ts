@@ -6,6 +6,7 @@
  */
 import { vzTolerance } from '@shuntwise/contracts';
 import { QueryTypes, type Sequelize } from 'sequelize';
+import { rebuildUsableSources } from '../src/source-standing/usable-sources.repository';
 import { TextIndexRepository } from '../src/text-index/text-index.repository';
 import { seededRandom } from './bench-support';
 
@@ -182,5 +183,9 @@ export async function loadLargeCatalogue(sequelize: Sequelize, PARTS: number, pr
       chunk,
     );
   }
-  await sequelize.query('ANALYZE TABLE vendor_parts, rating_cards, house_parts, house_part_sources, qualifications, text_grams', { type: QueryTypes.SELECT });
+  // The cases went in as plain INSERTs: the usable sources are read from them as the repositories would.
+  await rebuildUsableSources(sequelize);
+  await sequelize.query('ANALYZE TABLE vendor_parts, rating_cards, house_parts, house_part_sources, qualifications, text_grams, usable_sources', {
+    type: QueryTypes.SELECT,
+  });
 }

@@ -1,9 +1,13 @@
 import type { HousePartPage, SearchPage, SourcesView, VendorPartPage } from '@shuntwise/contracts';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { searchQuerySchema } from '@shuntwise/contracts';
 import { HousePartsRepository } from '../src/house-parts/house-parts.repository';
+import { SearchRepository } from '../src/search/search.repository';
+import { SearchService } from '../src/search/search.service';
+import { TextIndexRepository } from '../src/text-index/text-index.repository';
 import { VendorPartsRepository } from '../src/vendor-parts/vendor-parts.repository';
-import { createVendorPart } from './helpers/catalogue-fixtures';
+import { createVendorPart, demoCardFields } from './helpers/catalogue-fixtures';
 import { createTestApp, type TestApp } from './helpers/test-app';
 
 /**
@@ -111,6 +115,69 @@ describe('text index (real MariaDB, demo seed)', () => {
     expect(byHousePart.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(usable));
     const middle = await get<SearchPage>('/api/search?q=5V1&includeNotCleared=true&pageSize=50', designer);
     expect(middle.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(['BRZ05-5V1', 'QHZ5V1AF']));
+  });
+
+  // At a million parts every piece of "ZX7-5V1" was held by more than COMMON_PIECE parts and the
+  // search found nothing. The same shape here with the threshold injected at one record.
+  it('still narrows, by the least common pieces, when every piece of the text is common', async () => {
+    const ids = [];
+    for (const mpn of ['CQZQ7-5V1-A', 'CQZQ7-5V1-B', 'CQZQ7-5V6']) ids.push(await createVendorPart(t.http, engineer, { manufacturer: 'Commonplace Fabricated Diodes', mpn }));
+    const sequelize = t.stack.app.get(Sequelize);
+    const tight = new TextIndexRepository(sequelize, { commonPiece: 1, commonFloor: 0 });
+    // Each piece of the text the part numbers hold is held by two parts or more: all common at this threshold.
+    const counts = await t.select<{ gram: string; n: number }>(
+      "SELECT gram, COUNT(*) AS n FROM text_grams WHERE kind = 1 AND gram IN ('zq7', 'q75', '75v', '5v1') GROUP BY gram",
+    );
+    expect(counts.map((c) => c.gram).sort()).toEqual(['5v1', '75v', 'q75', 'zq7']);
+    for (const c of counts) expect(Number(c.n)).toBeGreaterThan(1);
+    const scored = await tight.scoredVendorParts('ZQ7-5V1');
+    expect(scored).not.toBeNull();
+    const found = await sequelize.query<{ id: number; score: number }>(`SELECT id, score FROM (${scored!.sql}) m ORDER BY score DESC, id`, {
+      replacements: scored!.params,
+      type: QueryTypes.SELECT,
+    });
+    // The two that hold the whole text, scored 1; the 5V6 holds 'zq7', 'q75' but not '5v1'.
+    expect(found.filter((f) => Number(f.score) === 1).map((f) => f.id)).toEqual([ids[0], ids[1]]);
+    expect(found.length).toBeLessThan(10);
+    // Through the whole search, as a designer would type it, with one typo too.
+    const search = new SearchService(t.stack.app.get(SearchRepository), tight);
+    const page = await search.search(searchQuerySchema.parse({ q: 'ZQ7-5V1', includeNotCleared: 'true' }));
+    expect(page.items.slice(0, 2).map((i) => i.vendorPart.mpn).sort()).toEqual(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']);
+    expect(page.text.mode).toBe('fuzzy');
+    const typo = await search.search(searchQuerySchema.parse({ q: 'CQZQ7-5V1-8', includeNotCleared: 'true' }));
+    expect(typo.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']));
+  });
+
+  // A branch keeps its best matches only (2 000); the filters on a part's own columns are tested
+  // before that cut, so a Vz range finds its parts however many others hold the text.
+  it('applies the Vz range before a text branch keeps its best matches', async () => {
+    const entered = { source: 'entered' as const };
+    const ids: number[] = [];
+    for (const [mpn, vz] of [
+      ['KRZ-2V4', 2.4],
+      ['KRZ-3V3', 3.3],
+      ['KRZ-4V7', 4.7],
+      ['KRZ-6V8', 6.8],
+      ['KRZ-9V1', 9.1],
+    ] as const) {
+      const id = await createVendorPart(t.http, engineer, { manufacturer: 'Branchcut Invented Devices', mpn });
+      const fields = demoCardFields({
+        vzMin: { value: vz * 0.95, printed: null, provenance: entered },
+        vzNom: { value: vz, printed: null, provenance: entered },
+        vzMax: { value: vz * 1.05, printed: null, provenance: entered },
+      });
+      expect((await t.http.put(`/api/vendor-parts/${id}/rating-card`).set(auth(engineer)).send({ version: 0, fields })).status).toBe(200);
+      ids.push(id);
+    }
+    // Every one holds the text outright; a branch may hand on two of them.
+    const narrow = new TextIndexRepository(t.stack.app.get(Sequelize), { branchLimit: 2 });
+    const search = new SearchService(t.stack.app.get(SearchRepository), narrow);
+    const page = await search.search(searchQuerySchema.parse({ q: 'KRZ', includeNotCleared: 'true', vzFrom: '6', vzTo: '10' }));
+    expect(page.items.map((i) => i.vendorPart.mpn).sort()).toEqual(['KRZ-6V8', 'KRZ-9V1']);
+    expect(page.text.mode).toBe('fuzzy');
+    // Without a filter the cut shows: two parts, the first by score then id.
+    const all = await search.search(searchQuerySchema.parse({ q: 'KRZ', includeNotCleared: 'true' }));
+    expect(all.items.map((i) => i.vendorPart.id).sort((a, b) => a - b)).toEqual(ids.slice(0, 2));
   });
 
   it('moves a renamed part in the index: the old number no longer finds it, the new one does', async () => {

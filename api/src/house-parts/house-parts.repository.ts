@@ -4,6 +4,7 @@ import type { HousePartListQuery, HousePartSort, HousePartStatus, QualificationS
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { DECIDED_SQL, sourceRoleSql } from '../common/source-standing.sql';
+import { refreshUsableSource } from '../source-standing/usable-sources.repository';
 import { TextIndexRepository } from '../text-index/text-index.repository';
 import { User } from '../users/user.model';
 import { HousePartSource } from './house-part-source.model';
@@ -204,11 +205,17 @@ export class HousePartsRepository {
     return row ?? null;
   }
 
-  createSource(
+  /** A new link, and whether its cases (a link removed and added again keeps them) make it usable, in one transaction. */
+  async createSource(
     values: { housePartId: number; vendorPartId: number; note: string | null; addedById: number | null },
     transaction?: Transaction,
   ): Promise<HousePartSource> {
-    return this.sources.create(values, { transaction });
+    const write = async (t: Transaction) => {
+      const source = await this.sources.create(values, { transaction: t });
+      await refreshUsableSource(this.sequelize, values.housePartId, values.vendorPartId, t);
+      return source;
+    };
+    return transaction ? write(transaction) : this.sequelize.transaction(write);
   }
 
   async updateSource(source: HousePartSource, values: Partial<Pick<HousePartSource, 'note'>>, transaction?: Transaction): Promise<void> {

@@ -87,7 +87,7 @@ export class QualificationViewsService {
   /** Per house part, every source with where it stands, its conditions, since when and who decided. */
   async sources(query: SourcesQuery, user: AuthUser): Promise<SourcesView> {
     // Waivers past their day end before the standing is read (every replica may run it; it happens once).
-    await this.waivers.lapseDue();
+    await this.waivers.lapseBeforeRead();
     const heads = await this.cases.sourceHeads({ housePartId: query.housePartId, q: query.q, buyerId: query.mine ? user.id : undefined });
     if (query.housePartId !== undefined && heads.length === 0 && !query.mine && !query.q)
       throw new NotFoundException(`No house part with id ${query.housePartId}`);

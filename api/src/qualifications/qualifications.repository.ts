@@ -17,6 +17,7 @@ import type {
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { sourceRoleSql } from '../common/source-standing.sql';
+import { refreshUsableSource } from '../source-standing/usable-sources.repository';
 import { User } from '../users/user.model';
 import { QualificationComment } from './qualification-comment.model';
 import { QualificationEvent } from './qualification-event.model';
@@ -168,12 +169,17 @@ export class QualificationsRepository {
     return this.cases.findOne({ where: { previousId: id }, transaction });
   }
 
-  create(values: Partial<Qualification>, transaction: Transaction): Promise<Qualification> {
-    return this.cases.create(values as Record<string, unknown>, { transaction });
+  /** Every case write goes through here or `save`: the pair's usable row is rewritten in the same transaction. */
+  async create(values: Partial<Qualification>, transaction: Transaction): Promise<Qualification> {
+    const row = await this.cases.create(values as Record<string, unknown>, { transaction });
+    await refreshUsableSource(this.sequelize, row.housePartId, row.vendorPartId, transaction);
+    return row;
   }
 
   async save(row: Qualification, values: Partial<Qualification>, transaction: Transaction): Promise<void> {
+    const stateChanged = values.state !== undefined && values.state !== row.state;
     await row.update(values, { transaction });
+    if (stateChanged) await refreshUsableSource(this.sequelize, row.housePartId, row.vendorPartId, transaction);
   }
 
   async addEvent(

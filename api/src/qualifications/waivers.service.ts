@@ -70,6 +70,9 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
     private readonly unitOfWork: UnitOfWork,
   ) {}
 
+  /** The day of this process's last finished lapse pass (lapseBeforeRead). */
+  private lapsedThrough: string | null = null;
+
   onModuleInit(): void {
     this.timer = setInterval(() => void this.lapseDue().catch((error: unknown) => this.logger.warn(`lapse pass failed: ${String(error)}`)), LAPSE_EVERY_MS);
     this.timer.unref();
@@ -220,6 +223,20 @@ export class WaiversService implements OnModuleInit, OnModuleDestroy {
    * several processes at the same time and more than once: each waiver is re-read under
    * its case's row lock and only an approved, due one is changed. Answers how many lapsed.
    */
+  /**
+   * The lapse pass a read of usability runs first (search, Sources). Once a pass has finished
+   * for a day, no waiver can fall due again until the next day — a waiver is prepared and
+   * approved only with an expiry after its day (prepareWaiverBlock, decideWaiverBlock) — so
+   * the later reads of that day in this process skip the statement. Every replica keeps its own
+   * day; the interval pass still runs.
+   */
+  async lapseBeforeRead(): Promise<void> {
+    const today = this.today();
+    if (this.lapsedThrough === today) return;
+    await this.lapseDue();
+    this.lapsedThrough = today;
+  }
+
   async lapseDue(): Promise<number> {
     const today = this.today();
     const due = await this.waivers.due(today);

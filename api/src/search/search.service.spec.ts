@@ -58,7 +58,7 @@ describe('SearchService text narrowing', () => {
     const { index, asked } = fakeIndex();
     const page = await new SearchService(repository, index).search(query({ q: 'QZH5V6A' }));
     expect(asked).toEqual(['QZH5V6A']);
-    expect(calls).toEqual([{ scored: { sql: expect.any(String), params: [] } }]);
+    expect(calls).toEqual([{ scored: { sql: expect.any(String), params: [] }, usableApplied: true }]);
     expect(page.text).toEqual({ mode: 'fuzzy', candidates: 50, truncated: false, note: null });
     expect(page.items[0].vendorPart.id).toBe(8);
   });

@@ -19,7 +19,7 @@ import {
 } from '@shuntwise/contracts';
 import { WaiversService } from '../qualifications/waivers.service';
 import { TextIndexRepository } from '../text-index/text-index.repository';
-import { SearchRepository, type CandidateRow, type PairRow, type PartRow } from './search.repository';
+import { SearchRepository, branchCondition, type CandidateRow, type PairRow, type PartRow } from './search.repository';
 import { rankByText, splitHouseParts, textTokens } from './text-ranking';
 
 /**
@@ -39,7 +39,7 @@ export class SearchService {
 
   async search(query: SearchQuery): Promise<SearchPage> {
     // Waivers past their day end before usability is read (see WaiversService.lapseDue).
-    await this.waivers?.lapseDue();
+    await this.waivers?.lapseBeforeRead();
     if (!query.q) {
       const { ids, total } = await this.repository.page(query);
       return {
@@ -83,8 +83,9 @@ export class SearchService {
    */
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
-    const scored = await this.textIndex.scoredVendorParts(text);
-    const rows = await this.repository.candidates(query, scored ? { scored } : { tokens: textTokens(text) }, limit + 1);
+    // Usability and the part's own filters are tested inside the index's branches, before each keeps its best matches.
+    const scored = await this.textIndex.scoredVendorParts(text, branchCondition(query));
+    const rows = await this.repository.candidates(query, scored ? { scored, usableApplied: !query.includeNotCleared } : { tokens: textTokens(text) }, limit + 1);
     return { candidates: rows.slice(0, limit), mode: scored ? 'fuzzy' : 'prefix', truncated: rows.length > limit };
   }
 

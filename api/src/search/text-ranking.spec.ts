@@ -1,4 +1,5 @@
-import { compact, rankByText, splitHouseParts, textTokens, type TextRecord } from './text-ranking';
+import fc from 'fast-check';
+import { compact, FUZZY_RERANK, rankByText, splitHouseParts, textTokens, type TextRecord } from './text-ranking';
 
 // Invented demo names; what a designer types is checked against what a person would pick (common practice, no source).
 const records: TextRecord[] = [
@@ -55,6 +56,58 @@ describe('text ranking (fuse.js over the candidates SQL left)', () => {
     expect(ids('OHI-ZD-1056').slice(0, 2).sort()).toEqual([1, 2]);
     expect(ids('loop driver').sort()).toEqual([1, 2]);
     expect(ids('xylophone')).toEqual([]);
+  });
+
+  it('ranks parts that hold the text outright first, by the key that holds it, without fuzzy scoring', () => {
+    // 'ohi-zd-1051' is the house part of 3 and, compacted, inside no part number: the part numbers' holders first.
+    const many: TextRecord[] = [
+      ...records,
+      { id: 5, mpn: 'OHIZD1051X', manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] },
+    ];
+    const ranked = rankByText(many, 'OHI-ZD-1051');
+    expect(ranked.slice(0, 2)).toEqual([
+      { id: 5, score: 0 },
+      { id: 3, score: 0 },
+    ]);
+    // The house part one digit off (OHI-ZD-1056) follows, fuzzily scored.
+    for (const r of ranked.slice(2)) expect(r.score).toBeGreaterThan(0);
+    // Far past the fuzzy cap, an outright match is still found; with nothing fuzzy to rank, fuse is not built at all.
+    const filler = Array.from({ length: 3 * FUZZY_RERANK }, (_, i) => ({ ...records[3], id: 100 + i, mpn: `TPZ${i}`, houseParts: [], descriptions: [] }));
+    expect(rankByText([...filler, records[0]], 'QHZ5V6A')).toEqual([{ id: 1, score: 0 }]);
+  });
+
+  it('scores only the first FUZZY_RERANK of the other candidates fuzzily (the SQL gives them closest first)', () => {
+    const filler = Array.from({ length: FUZZY_RERANK }, (_, i) => ({ ...records[3], id: 100 + i, mpn: `QHX${i}`, houseParts: [], descriptions: [] }));
+    // A transposition of QHZ5V6A: found within the cap, beyond it not ranked.
+    expect(rankByText([records[0], ...filler], 'QZH5V6A').map((r) => r.id)).toContain(1);
+    expect(rankByText([...filler, records[0]], 'QZH5V6A').map((r) => r.id)).not.toContain(1);
+  });
+
+  // A part number typed with one typo (a letter or digit replaced, two neighbours swapped, or
+  // one left out) is still found among generated look-alikes, as the first or second match.
+  it('finds a generated part number through one typo (common practice, no source)', () => {
+    const seed = Number(process.env.FC_SEED ?? Date.now() % 2 ** 31);
+    console.log(`typo property seed ${seed} (replay with FC_SEED=${seed})`);
+    const chars = 'ABCDEFGHJKLMNPQRSTVWXZ0123456789'.split('');
+    const mpnArb = fc.array(fc.constantFrom(...chars), { minLength: 7, maxLength: 12 }).map((a) => a.join(''));
+    fc.assert(
+      fc.property(fc.array(mpnArb, { minLength: 5, maxLength: FUZZY_RERANK - 1 }), fc.nat(), fc.nat(), fc.constantFrom('replace', 'swap', 'drop'), fc.constantFrom(...chars), (mpns, pick, at, kind, letter) => {
+        const distinct = [...new Set(mpns)];
+        const target = distinct[pick % distinct.length];
+        const i = 1 + (at % (target.length - 2));
+        const typed =
+          kind === 'replace'
+            ? target.slice(0, i) + letter + target.slice(i + 1)
+            : kind === 'swap'
+              ? target.slice(0, i) + target[i + 1] + target[i] + target.slice(i + 2)
+              : target.slice(0, i) + target.slice(i + 1);
+        const list: TextRecord[] = distinct.map((mpn, id) => ({ id, mpn, manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] }));
+        const found = rankByText(list, typed).map((r) => list[r.id].mpn);
+        // Another generated number may hold the typed text outright or be as close: the target is among the first few.
+        expect(found.slice(0, 3)).toContain(target);
+      }),
+      { seed, numRuns: 200 },
+    );
   });
 
   it('reads typed quotes and operators as characters, not as search syntax', () => {

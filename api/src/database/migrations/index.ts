@@ -15,6 +15,8 @@ import { demoSeedSteps } from './2026-12-04-0300-demo-seed-steps';
 import { mailClaims } from './2026-12-04-0301-mail-claims';
 import { waivers } from './2026-12-04-0900-waivers';
 import { qualificationPairState } from './2026-12-04-1000-qualification-pair-state';
+import { usableSources } from './2026-12-04-1100-usable-sources';
+import { vendorPartFilterIndex } from './2026-12-04-1101-vendor-part-filter-index';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -37,4 +39,6 @@ export const MIGRATIONS: Migration[] = [
   mailClaims,
   waivers,
   qualificationPairState,
+  usableSources,
+  vendorPartFilterIndex,
 ];
