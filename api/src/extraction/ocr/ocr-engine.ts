@@ -74,6 +74,13 @@ export class OcrEngine {
     return mergeReadings(block, sparse);
   }
 
+  /** One quick reading (as a block only), to judge which way up a page reads. */
+  async probe(png: Buffer): Promise<OcrLine[]> {
+    const worker = await this.start();
+    await worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK });
+    return this.lines(worker, png);
+  }
+
   private async lines(worker: Worker, png: Buffer): Promise<OcrLine[]> {
     const { data } = await worker.recognize(png, {}, { blocks: true, text: false });
     const lines: OcrLine[] = [];
@@ -130,4 +137,9 @@ export function mergeReadings(first: OcrLine[], second: OcrLine[]): OcrLine[] {
     }
   }
   return out;
+}
+
+/** How well a page read: the words of three or more letters or digits the engine was sure of. */
+export function readingQuality(lines: OcrLine[]): number {
+  return lines.flatMap((l) => l.words).filter((w) => w.confidence >= 80 && /[\p{L}\p{N}]{3,}/u.test(w.text)).length;
 }

@@ -1,6 +1,8 @@
 import type { ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
 import { readPdf, type PdfText } from '../pdf-text';
 import { extractRatings } from '../rating-extractor';
+import { pageLines } from '../text-layout';
+import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
 import type { OcrEngine } from './ocr-engine';
 import { ocrPages } from './page-ocr';
 
@@ -54,7 +56,20 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
   for (const mpn of misread) {
     warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
   }
-  const variants = checked.filter((v) => !misread.includes(v.mpn));
+  let variants = checked.filter((v) => !misread.includes(v.mpn));
+  // A scanned page that says the tolerance is a letter after the part number, with a legend OCR
+  // could not read: the parts read are base numbers the vendor does not sell as such.
+  const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
+  const expanded = variants.some((v) => Object.values(v.fields).some((f) => f.derived === 'tolerance-suffix'));
+  if (legendPage !== undefined && !expanded) {
+    const fromOcr = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr));
+    if (fromOcr.length) {
+      warnings.push(
+        `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters; the ${fromOcr.length} part(s) read there are left out (their full part numbers are not known). Enter them by hand.`,
+      );
+      variants = variants.filter((v) => !fromOcr.includes(v));
+    }
+  }
 
   const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
   for (const page of ocrItems.keys()) {

@@ -1,6 +1,6 @@
-import { createCanvas } from '@napi-rs/canvas';
+import { type Canvas, createCanvas } from '@napi-rs/canvas';
 import { loadPdfjs, type PdfTextItem } from '../pdf-text';
-import type { OcrEngine } from './ocr-engine';
+import { type OcrEngine, readingQuality } from './ocr-engine';
 import { ocrItems } from './ocr-items';
 
 /**
@@ -61,14 +61,43 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
       // @napi-rs/canvas stands in for the DOM canvas pdfjs is typed for.
       await page.render({ canvas: canvas, canvasContext: ctx, viewport } as unknown as Parameters<typeof page.render>[0]).promise;
       page.cleanup();
-      const png = canvas.toBuffer('image/png');
-      const lines = await options.engine.read(png);
-      const [, , , y1] = page.view;
-      const pageHeight = y1 - page.view[1];
-      out.push({ page: n, hasImage: true, items: ocrItems(lines, { scale: options.dpi / 72, widthPx, heightPx, pageHeight }) });
+      const [x0, y0, x1, y1] = page.view;
+      let lines = await options.engine.read(canvas.toBuffer('image/png'));
+      let geometry = { scale: options.dpi / 72, widthPx, heightPx, pageHeight: y1 - y0 };
+      // A page scanned or drawn turned by 90° reads as noise: when few words come out sure, the
+      // page is tried turned both ways (a quick reading each) and read fully the way that reads
+      // best. Its text is then read in its own frame, as the text layer's turned tables are.
+      if (readingQuality(lines) < 15) {
+        const turns = [90, 270].map((deg) => ({ deg, image: turned(canvas, deg) }));
+        let best: { deg: number; image: Canvas; quality: number } | undefined;
+        for (const t of turns) {
+          const quality = readingQuality(await options.engine.probe(t.image.toBuffer('image/png')));
+          if (!best || quality > best.quality) best = { ...t, quality };
+        }
+        if (best && best.quality > 2 * Math.max(5, readingQuality(lines))) {
+          lines = await options.engine.read(best.image.toBuffer('image/png'));
+          geometry = { scale: options.dpi / 72, widthPx: heightPx, heightPx: widthPx, pageHeight: x1 - x0 };
+        }
+      }
+      out.push({ page: n, hasImage: true, items: ocrItems(lines, geometry) });
     }
   } finally {
     await doc.destroy();
   }
+  return out;
+}
+
+/** The image turned by 90° or 270° (clockwise), on a canvas of swapped size. */
+function turned(source: Canvas, deg: 90 | 270 | number): Canvas {
+  const out = createCanvas(source.height, source.width);
+  const ctx = out.getContext('2d');
+  if (deg === 90) {
+    ctx.translate(source.height, 0);
+    ctx.rotate(Math.PI / 2);
+  } else {
+    ctx.translate(0, source.width);
+    ctx.rotate(-Math.PI / 2);
+  }
+  ctx.drawImage(source, 0, 0);
   return out;
 }

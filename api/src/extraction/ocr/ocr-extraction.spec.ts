@@ -1,0 +1,69 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { OcrEngine, OcrLine } from './ocr-engine';
+import { extractWithOcr } from './ocr-extraction';
+
+/**
+ * The OCR path's own checks, with the engine replaced by one that "reads" given lines from the
+ * committed image-only fixture (test-fixtures/bad-uploads/scanned.pdf), so the rules are tested
+ * apart from what Tesseract makes of a page. Part numbers and values are invented.
+ */
+
+const scanned = readFileSync(join(__dirname, '../../../../test-fixtures/bad-uploads/scanned.pdf'));
+
+/** A line of words at a baseline (image pixels, 300 dpi: 4.17 px per point), each word sure. */
+function line(y: number, ...cells: Array<[number, string]>): OcrLine {
+  const words = cells.flatMap(([x, text]) => {
+    let at = x;
+    return text.split(' ').map((w) => {
+      const word = { text: w, confidence: 95, x0: at, y0: y - 30, x1: at + w.length * 17, y1: y };
+      at = word.x1 + 12;
+      return word;
+    });
+  });
+  return { words, baseline: { x0: words[0].x0, y0: y, x1: words[words.length - 1].x1, y1: y }, rowHeight: 36 };
+}
+
+function engineReading(lines: OcrLine[]): OcrEngine {
+  return { read: async () => lines, probe: async () => [], stop: async () => undefined } as unknown as OcrEngine;
+}
+
+const block = [
+  line(400, [250, 'XQ5V1A']),
+  line(450, [250, 'Zener voltage, VZ ..........'], [1400, '5.1 V']),
+  line(500, [250, 'Test current, IZT ..........'], [1400, '5 mA']),
+  line(550, [250, 'XQ6V2A']),
+  line(600, [250, 'Zener voltage, VZ ..........'], [1400, '6.2 V']),
+  line(650, [250, 'Test current, IZT ..........'], [1400, '5 mA']),
+];
+
+describe('reading a scanned page: what the OCR path leaves out', () => {
+  it('keeps parts read from a scan, flagged as OCR', async () => {
+    const result = await extractWithOcr(scanned, { engine: engineReading(block), dpi: 300, maxOcrPages: 5 });
+    expect(result.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
+    expect(result.variants[0].fields.vzNom).toMatchObject({ si: 5.1, ocr: true });
+  });
+
+  it('leaves out the parts of a page whose tolerance-letter legend OCR could not read, and says why', async () => {
+    // The legend's ± came out as "£" and "[332]": no letters can be expanded, so "XQ5V1A" may not be a whole part number.
+    const lines = [...block, line(750, [250, 'Tolerance of VZ: the letter after the type number gives it (A [332]%, B £2 %).'])];
+    const result = await extractWithOcr(scanned, { engine: engineReading(lines), dpi: 300, maxOcrPages: 5 });
+    expect(result.variants).toEqual([]);
+    expect(result.warnings.join(' ')).toMatch(/letter after the part number.*legend/);
+  });
+
+  it('turns a page that reads as noise and reads it the way it reads best (a table scanned sideways)', async () => {
+    const noise = [line(400, [250, '~ = © o'])];
+    const calls: string[] = [];
+    let reads = 0;
+    const engine = {
+      read: async () => (reads++ === 0 ? (calls.push('read upright'), noise) : (calls.push('read turned'), block)),
+      probe: async () => (calls.push('probe'), calls.filter((c) => c === 'probe').length === 1 ? block.concat(block, block) : noise),
+      stop: async () => undefined,
+    } as unknown as OcrEngine;
+    // The first page only (the fixture has two).
+    const result = await extractWithOcr(scanned, { engine, dpi: 300, maxOcrPages: 1 });
+    expect(calls).toEqual(['read upright', 'probe', 'probe', 'read turned']);
+    expect(result.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
+  });
+});
