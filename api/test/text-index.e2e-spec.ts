@@ -121,7 +121,8 @@ describe('text index (real MariaDB, demo seed)', () => {
   // search found nothing. The same shape here with the threshold injected at one record.
   it('still narrows, by the least common pieces, when every piece of the text is common', async () => {
     const ids = [];
-    for (const mpn of ['CQZQ7-5V1-A', 'CQZQ7-5V1-B', 'CQZQ7-5V6']) ids.push(await createVendorPart(t.http, engineer, { manufacturer: 'Commonplace Fabricated Diodes', mpn }));
+    for (const mpn of ['CQZQ7-5V1-A', 'CQZQ7-5V1-B', 'CQZQ7-5V6'])
+      ids.push(await createVendorPart(t.http, engineer, { manufacturer: 'Commonplace Fabricated Diodes', mpn }));
     const sequelize = t.stack.app.get(Sequelize);
     const tight = new TextIndexRepository(sequelize, { commonPiece: 1, commonFloor: 0 });
     // Each piece of the text the part numbers hold is held by two parts or more: all common at this threshold.
@@ -142,7 +143,12 @@ describe('text index (real MariaDB, demo seed)', () => {
     // Through the whole search, as a designer would type it, with one typo too.
     const search = new SearchService(t.stack.app.get(SearchRepository), tight);
     const page = await search.search(searchQuerySchema.parse({ q: 'ZQ7-5V1', includeNotCleared: 'true' }));
-    expect(page.items.slice(0, 2).map((i) => i.vendorPart.mpn).sort()).toEqual(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']);
+    expect(
+      page.items
+        .slice(0, 2)
+        .map((i) => i.vendorPart.mpn)
+        .sort(),
+    ).toEqual(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']);
     expect(page.text.mode).toBe('fuzzy');
     const typo = await search.search(searchQuerySchema.parse({ q: 'CQZQ7-5V1-8', includeNotCleared: 'true' }));
     expect(typo.items.map((i) => i.vendorPart.mpn)).toEqual(expect.arrayContaining(['CQZQ7-5V1-A', 'CQZQ7-5V1-B']));

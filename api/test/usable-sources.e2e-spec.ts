@@ -32,11 +32,13 @@ describe('usable sources (real MariaDB, demo seed)', () => {
       .sort((a, b) => a[0] - b[0] || a[1] - b[1])
       .map(([h, v]) => `${h}:${v}`);
   };
-  const found = async (query: string) =>
-    ((await t.http.get(`/api/search?${query}`).set(auth(designer))).body as SearchPage).items.map((i) => i.vendorPart.mpn);
+  const found = async (query: string) => ((await t.http.get(`/api/search?${query}`).set(auth(designer))).body as SearchPage).items.map((i) => i.vendorPart.mpn);
   const act = async (id: number, action: string, body: object, token: string) => {
     const version = (await t.http.get(`/api/qualifications/${id}`).set(auth(engineer))).body.version;
-    const res = await t.http.post(`/api/qualifications/${id}/${action}`).set(auth(token)).send(action === 'recheck' ? body : { version, ...body });
+    const res = await t.http
+      .post(`/api/qualifications/${id}/${action}`)
+      .set(auth(token))
+      .send(action === 'recheck' ? body : { version, ...body });
     expect(res.status).toBe(action === 'recheck' ? 201 : 200);
     return res.body as { id: number };
   };
@@ -65,7 +67,10 @@ describe('usable sources (real MariaDB, demo seed)', () => {
     expect((await t.http.put(`/api/house-parts/${housePartId}/spec`).set(auth(engineer)).send({ baseVersion: 0, spec })).status).toBe(200);
     const vendorPartId = await createVendorPart(t.http, engineer, { manufacturer: 'Fennick Semiconductor', mpn: 'FZU-5V1', package: 'SOD-123' });
     const entered = { source: 'entered' as const };
-    const fields = demoCardFields({ vzMin: { value: 4.9, printed: '4.9 V', provenance: entered }, vzMax: { value: 5.3, printed: '5.3 V', provenance: entered } });
+    const fields = demoCardFields({
+      vzMin: { value: 4.9, printed: '4.9 V', provenance: entered },
+      vzMax: { value: 5.3, printed: '5.3 V', provenance: entered },
+    });
     expect((await t.http.put(`/api/vendor-parts/${vendorPartId}/rating-card`).set(auth(engineer)).send({ version: 0, fields })).status).toBe(200);
     const opened = await t.http.post('/api/qualifications').set(auth(engineer)).send({ housePartId, vendorPartId });
     expect(opened.status).toBe(201);

@@ -85,7 +85,11 @@ export class SearchService {
     const limit = SEARCH_TEXT_CANDIDATES;
     // Usability and the part's own filters are tested inside the index's branches, before each keeps its best matches.
     const scored = await this.textIndex.scoredVendorParts(text, branchCondition(query));
-    const rows = await this.repository.candidates(query, scored ? { scored, usableApplied: !query.includeNotCleared } : { tokens: textTokens(text) }, limit + 1);
+    const rows = await this.repository.candidates(
+      query,
+      scored ? { scored, usableApplied: !query.includeNotCleared } : { tokens: textTokens(text) },
+      limit + 1,
+    );
     return { candidates: rows.slice(0, limit), mode: scored ? 'fuzzy' : 'prefix', truncated: rows.length > limit };
   }
 

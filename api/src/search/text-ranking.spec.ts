@@ -60,10 +60,7 @@ describe('text ranking (fuse.js over the candidates SQL left)', () => {
 
   it('ranks parts that hold the text outright first, by the key that holds it, without fuzzy scoring', () => {
     // 'ohi-zd-1051' is the house part of 3 and, compacted, inside no part number: the part numbers' holders first.
-    const many: TextRecord[] = [
-      ...records,
-      { id: 5, mpn: 'OHIZD1051X', manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] },
-    ];
+    const many: TextRecord[] = [...records, { id: 5, mpn: 'OHIZD1051X', manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] }];
     const ranked = rankByText(many, 'OHI-ZD-1051');
     expect(ranked.slice(0, 2)).toEqual([
       { id: 5, score: 0 },
@@ -91,21 +88,28 @@ describe('text ranking (fuse.js over the candidates SQL left)', () => {
     const chars = 'ABCDEFGHJKLMNPQRSTVWXZ0123456789'.split('');
     const mpnArb = fc.array(fc.constantFrom(...chars), { minLength: 7, maxLength: 12 }).map((a) => a.join(''));
     fc.assert(
-      fc.property(fc.array(mpnArb, { minLength: 5, maxLength: FUZZY_RERANK - 1 }), fc.nat(), fc.nat(), fc.constantFrom('replace', 'swap', 'drop'), fc.constantFrom(...chars), (mpns, pick, at, kind, letter) => {
-        const distinct = [...new Set(mpns)];
-        const target = distinct[pick % distinct.length];
-        const i = 1 + (at % (target.length - 2));
-        const typed =
-          kind === 'replace'
-            ? target.slice(0, i) + letter + target.slice(i + 1)
-            : kind === 'swap'
-              ? target.slice(0, i) + target[i + 1] + target[i] + target.slice(i + 2)
-              : target.slice(0, i) + target.slice(i + 1);
-        const list: TextRecord[] = distinct.map((mpn, id) => ({ id, mpn, manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] }));
-        const found = rankByText(list, typed).map((r) => list[r.id].mpn);
-        // Another generated number may hold the typed text outright or be as close: the target is among the first few.
-        expect(found.slice(0, 3)).toContain(target);
-      }),
+      fc.property(
+        fc.array(mpnArb, { minLength: 5, maxLength: FUZZY_RERANK - 1 }),
+        fc.nat(),
+        fc.nat(),
+        fc.constantFrom('replace', 'swap', 'drop'),
+        fc.constantFrom(...chars),
+        (mpns, pick, at, kind, letter) => {
+          const distinct = [...new Set(mpns)];
+          const target = distinct[pick % distinct.length];
+          const i = 1 + (at % (target.length - 2));
+          const typed =
+            kind === 'replace'
+              ? target.slice(0, i) + letter + target.slice(i + 1)
+              : kind === 'swap'
+                ? target.slice(0, i) + target[i + 1] + target[i] + target.slice(i + 2)
+                : target.slice(0, i) + target.slice(i + 1);
+          const list: TextRecord[] = distinct.map((mpn, id) => ({ id, mpn, manufacturer: 'Invented Maker', package: null, houseParts: [], descriptions: [] }));
+          const found = rankByText(list, typed).map((r) => list[r.id].mpn);
+          // Another generated number may hold the typed text outright or be as close: the target is among the first few.
+          expect(found.slice(0, 3)).toContain(target);
+        },
+      ),
       { seed, numRuns: 200 },
     );
   });

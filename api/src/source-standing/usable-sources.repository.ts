@@ -70,10 +70,10 @@ export async function rebuildUsableSources(sequelize: Sequelize, transaction?: T
     type: QueryTypes.SELECT,
     transaction,
   });
-  const cases = await sequelize.query<CaseRow>(
-    'SELECT id, house_part_id AS housePartId, vendor_part_id AS vendorPartId, revision, state FROM qualifications',
-    { type: QueryTypes.SELECT, transaction },
-  );
+  const cases = await sequelize.query<CaseRow>('SELECT id, house_part_id AS housePartId, vendor_part_id AS vendorPartId, revision, state FROM qualifications', {
+    type: QueryTypes.SELECT,
+    transaction,
+  });
   const byPair = new Map<string, CaseRow[]>();
   for (const c of cases) {
     const key = `${c.housePartId}:${c.vendorPartId}`;

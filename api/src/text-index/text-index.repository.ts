@@ -197,7 +197,9 @@ export class TextIndexRepository {
         // Tested per matching part (after grouping), before the best are kept.
         const own = only?.('entity_id');
         if (own) params.push(...own.params);
-        branches.push(`SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${this.limits.branchLimit}) own`);
+        branches.push(
+          `SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${this.limits.branchLimit}) own`,
+        );
       }
       if (kind === 'housePart') {
         const sourced = only?.('s.vendor_part_id');
