@@ -4,7 +4,7 @@ import type { LoggerService, LogLevel } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
@@ -52,12 +52,18 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
   return app;
 }
 
-/** Static files, then index.html for every other non-API GET so client-side routes load. */
+/**
+ * Static files, then index.html for every other non-API GET so client-side routes load. API
+ * paths never reach the static files: serve-static looked each one up on disk first (a stat that
+ * failed), about a tenth of the CPU of an API read in the profile.
+ */
 function serveWeb(app: NestExpressApplication, webDist: string): void {
-  app.useStaticAssets(webDist, { index: false, maxAge: '1h', immutable: false });
+  const isApi = (req: Request) => req.path === '/api' || req.path.startsWith('/api/');
+  const files = express.static(webDist, { index: false, maxAge: '1h', immutable: false });
+  app.use((req: Request, res: Response, next: NextFunction) => (isApi(req) ? next() : files(req, res, next)));
   const index = join(webDist, 'index.html');
   app.use((req: Request, res: Response, next: NextFunction) => {
-    if (req.method !== 'GET' || req.path.startsWith('/api/') || req.path === '/api') return next();
+    if (req.method !== 'GET' || isApi(req)) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
   });
