@@ -61,3 +61,8 @@ export function headingPartNumber(text: string): string | undefined {
   const m = /^(?:(?:type|part(?:\s+number)?|device|ordering\s+code)\s*:?\s*)?(\S+)$/i.exec(text.trim());
   return m && isPartNumber(m[1]) ? m[1] : undefined;
 }
+
+/** The letters a part number starts with ("GPWN" of "GPWN-22", "QHZ" of "QHZ5V1A"): parts of one series share them. */
+export function seriesLetters(mpn: string): string {
+  return /^\p{L}+/u.exec(mpn)?.[0].toUpperCase() ?? '';
+}

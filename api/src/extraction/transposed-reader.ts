@@ -1,6 +1,6 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, isPackageHeader, TitleCondition, titleConditions } from './field-patterns';
-import { findPackage, isPartNumber } from './part-numbers';
+import { findPackage, isPartNumber, seriesLetters } from './part-numbers';
 import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
@@ -70,9 +70,6 @@ function columnOf(cols: PartColumn[], cell: Cell): PartColumn | undefined {
   return distance < 0.45 * pitch ? best : undefined;
 }
 
-/** The letters a part number starts with ("GPWN" of "GPWN-22"): parts of one series share them. */
-const seriesKey = (mpn: string) => /^[A-Za-z]+/.exec(mpn)?.[0].toUpperCase() ?? '';
-
 export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, used: Set<Line>, warnings: string[]): void {
   // The last table's title conditions: a block of the same series on the next page, under no
   // title of its own, continues that table.
@@ -85,7 +82,7 @@ export function readTransposedTables(pages: Line[][], drafts: VariantDrafts, use
       const top = partColumns(line);
       if (top) {
         let title = titleConditions(lines, line.index);
-        const series = seriesKey(top[0].mpn);
+        const series = seriesLetters(top[0].mpn);
         const continues = last && last.series === series && line.page - last.page <= 1 && !hasTitle(lines, line.index);
         if (!title.length && continues) title = last!.title;
         if (title.length || !continues) last = { page: line.page, series, title };

@@ -121,32 +121,7 @@ export function usableCondition(column: string, housePartId?: number): SqlPart {
  * tolerance window (JSON) stays in the candidate query. Undefined when there is nothing to test.
  */
 export function branchCondition(query: SearchQuery): ((column: string) => SqlPart) | undefined {
-  const where: string[] = [];
-  const params: unknown[] = [];
-  if (query.vzFrom !== undefined) {
-    where.push('f.vz_nom >= ?');
-    params.push(query.vzFrom);
-  }
-  if (query.vzTo !== undefined) {
-    where.push('f.vz_nom <= ?');
-    params.push(query.vzTo);
-  }
-  if (query.package?.length) {
-    where.push(`f.package IN (${query.package.map(() => '?').join(', ')})`);
-    params.push(...query.package);
-  }
-  if (query.manufacturer?.length) {
-    where.push(`f.manufacturer_name IN (${query.manufacturer.map(() => '?').join(', ')})`);
-    params.push(...query.manufacturer);
-  }
-  if (query.pdMin !== undefined) {
-    where.push('f.pd_max >= ?');
-    params.push(query.pdMin);
-  }
-  if (query.toleranceMax !== undefined) {
-    where.push('f.vz_tolerance <= ?');
-    params.push(query.toleranceMax);
-  }
+  const { where, params } = indexedConditions(query, 'f');
   const usableOnly = !query.includeNotCleared;
   if (!usableOnly && where.length === 0) return undefined;
   return (column) => {
@@ -155,6 +130,43 @@ export function branchCondition(query: SearchQuery): ((column: string) => SqlPar
     if (where.length) parts.push({ sql: `(SELECT 1 FROM vendor_parts f WHERE f.id = ${column} AND ${where.join(' AND ')}) IS NOT NULL`, params });
     return { sql: parts.map((p) => p.sql).join(' AND '), params: parts.flatMap((p) => p.params) };
   };
+}
+
+/**
+ * The part's own filters on indexed columns of vendor_parts (as `alias`), written once for the
+ * text branches and the candidate query: nominal Zener voltage, package, manufacturer, power,
+ * and the card's tolerance as vzTolerance (contracts) wrote it (printed, or the ends less their
+ * rounding; unknown drops out).
+ */
+function indexedConditions(query: SearchQuery, alias: string): { where: string[]; params: unknown[] } {
+  const where: string[] = [];
+  const params: unknown[] = [];
+  const list = (n: number) => Array.from({ length: n }, () => '?').join(', ');
+  if (query.vzFrom !== undefined) {
+    where.push(`${alias}.vz_nom >= ?`);
+    params.push(query.vzFrom);
+  }
+  if (query.vzTo !== undefined) {
+    where.push(`${alias}.vz_nom <= ?`);
+    params.push(query.vzTo);
+  }
+  if (query.package?.length) {
+    where.push(`${alias}.package IN (${list(query.package.length)})`);
+    params.push(...query.package);
+  }
+  if (query.manufacturer?.length) {
+    where.push(`${alias}.manufacturer_name IN (${list(query.manufacturer.length)})`);
+    params.push(...query.manufacturer);
+  }
+  if (query.pdMin !== undefined) {
+    where.push(`${alias}.pd_max >= ?`);
+    params.push(query.pdMin);
+  }
+  if (query.toleranceMax !== undefined) {
+    where.push(`${alias}.vz_tolerance <= ?`);
+    params.push(query.toleranceMax);
+  }
+  return { where, params };
 }
 
 // The Zener-voltage tolerance ends live in the card's JSON; they are read only on rows the indexed conditions leave.
@@ -233,14 +245,9 @@ export class SearchRepository {
       }
       words = `(${branches.join(' UNION ')}) words`;
     }
-    if (query.vzFrom !== undefined) {
-      where.push('vp.vz_nom >= ?');
-      params.push(query.vzFrom);
-    }
-    if (query.vzTo !== undefined) {
-      where.push('vp.vz_nom <= ?');
-      params.push(query.vzTo);
-    }
+    const indexed = indexedConditions(query, 'vp');
+    where.push(...indexed.where);
+    params.push(...indexed.params);
     if (query.vzWindow) {
       needsCard = true;
       if (query.vzFrom !== undefined) {
@@ -251,23 +258,6 @@ export class SearchRepository {
         where.push(`${VZ_MAX} <= ?`);
         params.push(query.vzTo);
       }
-    }
-    if (query.package?.length) {
-      where.push(`vp.package IN (${query.package.map(() => '?').join(', ')})`);
-      params.push(...query.package);
-    }
-    if (query.manufacturer?.length) {
-      where.push(`vp.manufacturer_name IN (${query.manufacturer.map(() => '?').join(', ')})`);
-      params.push(...query.manufacturer);
-    }
-    if (query.pdMin !== undefined) {
-      where.push('vp.pd_max >= ?');
-      params.push(query.pdMin);
-    }
-    if (query.toleranceMax !== undefined) {
-      // The card's tolerance as vzTolerance (contracts) wrote it: printed, or the ends less their rounding; unknown drops out.
-      where.push('vp.vz_tolerance <= ?');
-      params.push(query.toleranceMax);
     }
     // The card last: its JSON is read only for the parts every indexed condition left.
     if (needsCard) joins.push('STRAIGHT_JOIN rating_cards rc ON rc.vendor_part_id = vp.id');

@@ -1,5 +1,6 @@
 import type { ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
 import { readPdf, type PdfText } from '../pdf-text';
+import { seriesLetters } from '../part-numbers';
 import { extractRatings } from '../rating-extractor';
 import { pageLines } from '../text-layout';
 import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
@@ -148,13 +149,12 @@ const shapeOf = (mpn: string) =>
  * would be a new, wrong one. Precision before recall: its values are left out.
  */
 export function misreadPartNumbers(mpns: readonly string[]): string[] {
-  const series = (m: string) => /^\p{L}+/u.exec(m)?.[0] ?? '';
   const out: string[] = [];
   for (const m of mpns) {
-    const siblings = mpns.filter((o) => o !== m && series(o) === series(m));
+    const siblings = mpns.filter((o) => o !== m && seriesLetters(o) === seriesLetters(m));
     // Two rows run together ("VLY-39VLY-43"): another part's number, or the series' letters again, inside it.
-    const prefix = series(m);
-    if (siblings.some((o) => o.length >= 4 && m.indexOf(o) > 0) || (prefix.length >= 2 && m.indexOf(prefix, prefix.length) > 0)) {
+    const prefix = seriesLetters(m);
+    if (siblings.some((o) => o.length >= 4 && m.indexOf(o) > 0) || (prefix.length >= 2 && m.toUpperCase().indexOf(prefix, prefix.length) > 0)) {
       out.push(m);
       continue;
     }
