@@ -1,6 +1,9 @@
 import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
+import type { Canvas } from '@napi-rs/canvas';
 import { createWorker, OEM, PSM, type Worker } from 'tesseract.js';
+import { cleanScan } from './scan-cleanup';
+import { readByLines } from './segmented-reading';
 
 /**
  * Tesseract (tesseract.js 7, WebAssembly) with the English LSTM model shipped as an npm
@@ -57,6 +60,27 @@ export class OcrEngine {
       throw err;
     });
     return this.worker;
+  }
+
+  /**
+   * A second, independent reading of the page: cleaned (deskewed, rules erased, black on
+   * white), cut into lines and cells from its ink, and each cell read alone as one line of
+   * text. The engine's own layout analysis drops lone figures of sparse tables (a parameter
+   * table's min/typ/max column came out empty); handed one cell, it reads it. Its words are in
+   * the deskewed page's pixels.
+   */
+  async readCells(page: Canvas): Promise<OcrLine[]> {
+    const worker = await this.start();
+    const { canvas } = cleanScan(page, this.dpi);
+    const rgba = canvas.getContext('2d').getImageData(0, 0, canvas.width, canvas.height).data;
+    const grey = new Uint8Array(canvas.width * canvas.height);
+    for (let i = 0; i < grey.length; i++) grey[i] = rgba[i * 4];
+    let current: PSM | undefined;
+    return readByLines(grey, canvas.width, canvas.height, this.dpi, async (png, mode) => {
+      const psm = mode === 'line' ? PSM.SINGLE_LINE : PSM.SINGLE_BLOCK;
+      if (psm !== current) await worker.setParameters({ tessedit_pageseg_mode: (current = psm) });
+      return this.lines(worker, png);
+    });
   }
 
   /**

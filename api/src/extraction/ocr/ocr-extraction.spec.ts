@@ -24,8 +24,9 @@ function line(y: number, ...cells: Array<[number, string]>): OcrLine {
   return { words, baseline: { x0: words[0].x0, y0: y, x1: words[words.length - 1].x1, y1: y }, rowHeight: 36 };
 }
 
-function engineReading(lines: OcrLine[]): OcrEngine {
-  return { read: async () => lines, probe: async () => [], stop: async () => undefined } as unknown as OcrEngine;
+/** An engine whose whole-page reading gives `lines` and whose cell-by-cell reading gives `cells`. */
+function engineReading(lines: OcrLine[], cells: OcrLine[] = []): OcrEngine {
+  return { read: async () => lines, readCells: async () => cells, probe: async () => [], stop: async () => undefined } as unknown as OcrEngine;
 }
 
 const block = [
@@ -44,6 +45,14 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     expect(result.variants[0].fields.vzNom).toMatchObject({ si: 5.1, ocr: true });
   });
 
+  it('keeps the reading of the two (whole page, cell by cell) that yields more values that pass the checks', async () => {
+    const half = block.slice(0, 3);
+    const fromCells = await extractWithOcr(scanned, { engine: engineReading(half, block), dpi: 300, maxOcrPages: 1 });
+    expect(fromCells.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
+    const fromWhole = await extractWithOcr(scanned, { engine: engineReading(block, half), dpi: 300, maxOcrPages: 1 });
+    expect(fromWhole.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
+  });
+
   it('leaves out the parts of a page whose tolerance-letter legend OCR could not read, and says why', async () => {
     // The legend's ± came out as "£" and "[332]": no letters can be expanded, so "XQ5V1A" may not be a whole part number.
     const lines = [...block, line(750, [250, 'Tolerance of VZ: the letter after the type number gives it (A [332]%, B £2 %).'])];
@@ -59,11 +68,12 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     const engine = {
       read: async () => (reads++ === 0 ? (calls.push('read upright'), noise) : (calls.push('read turned'), block)),
       probe: async () => (calls.push('probe'), calls.filter((c) => c === 'probe').length === 1 ? block.concat(block, block) : noise),
+      readCells: async () => (calls.push('cells'), []),
       stop: async () => undefined,
     } as unknown as OcrEngine;
     // The first page only (the fixture has two).
     const result = await extractWithOcr(scanned, { engine, dpi: 300, maxOcrPages: 1 });
-    expect(calls).toEqual(['read upright', 'probe', 'probe', 'read turned']);
+    expect(calls).toEqual(['read upright', 'probe', 'probe', 'read turned', 'cells']);
     expect(result.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
   });
 });

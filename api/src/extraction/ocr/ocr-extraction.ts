@@ -1,5 +1,5 @@
 import type { ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
-import { readPdf, type PdfText } from '../pdf-text';
+import { readPdf, type PdfText, type PdfTextItem } from '../pdf-text';
 import { seriesLetters } from '../part-numbers';
 import { extractRatings } from '../rating-extractor';
 import { pageLines } from '../text-layout';
@@ -45,32 +45,15 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
     );
   }
   const read = options.engine && toRead.length ? await ocrPages(buffer, toRead, { engine: options.engine, dpi: options.dpi, onPage: options.onOcrPage }) : [];
-  const ocrItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items]));
-  const merged: PdfText = {
-    pageCount: text.pageCount,
-    hasText: text.hasText || [...ocrItems.values()].some((items) => items.length > 0),
-    pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
-  };
-  const result = extractRatings(merged);
-  const checked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
-  const misread = misreadPartNumbers(checked.filter((v) => Object.values(v.fields).some((f) => f.ocr)).map((v) => v.mpn));
-  for (const mpn of misread) {
-    warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
-  }
-  let variants = checked.filter((v) => !misread.includes(v.mpn));
-  // A scanned page that says the tolerance is a letter after the part number, with a legend OCR
-  // could not read: the parts read are base numbers the vendor does not sell as such.
-  const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
-  const expanded = variants.some((v) => Object.values(v.fields).some((f) => f.derived === 'tolerance-suffix'));
-  if (legendPage !== undefined && !expanded) {
-    const fromOcr = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr));
-    if (fromOcr.length) {
-      warnings.push(
-        `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters; the ${fromOcr.length} part(s) read there are left out (their full part numbers are not known). Enter them by hand.`,
-      );
-      variants = variants.filter((v) => !fromOcr.includes(v));
-    }
-  }
+  // Two readings of each scanned page (the engine's own, and cell by cell on the cleaned page)
+  // go through the same extractor and the same checks; the one that yields more values stands.
+  // Neither is trusted more: each value of either passed every check.
+  const whole = readingOf(text, new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items])));
+  const cells = readingOf(text, new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.cellItems])));
+  const best = valueCount(cells.variants) > valueCount(whole.variants) ? cells : whole;
+  const { variants, ocrItems } = best;
+  warnings.push(...best.warnings);
+  const result = best.result;
 
   const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
   for (const page of ocrItems.keys()) {
@@ -104,7 +87,7 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
 }
 
 /**
- * OCR voltages that cannot all be right: VZ min ≤ nom ≤ max must hold, VR must be below VZ, the coefficient within ±0.15 %/K, and the nominal
+ * OCR values that cannot be right: a negative value of any field but the coefficient; VZ min ≤ nom ≤ max must hold, VR must be below VZ, the coefficient within ±0.15 %/K, and the nominal
  * voltage coded in a regulator part number (…5V1 = 5.1 V) must be within 10 %
  * of the VZ read (common practice for regulator-diode part numbering, no source).
  */
@@ -112,6 +95,11 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
   const vzRead = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f]?.ocr);
   const coded = codedVoltage(mpn);
   const bad = new Set<ExtractionField>();
+  // Only the temperature coefficient has a sign: a negative current, voltage, impedance or
+  // rating is an equals sign the scan turned into a minus ("UR = 5.3 V" read as "UR -5.3V").
+  for (const [f, v] of Object.entries(fields) as [ExtractionField, ExtractedVariant['fields'][ExtractionField]][]) {
+    if (f !== 'tc' && v?.ocr && v.si < 0) bad.add(f);
+  }
   if (coded !== undefined) {
     for (const f of vzRead) {
       const si = fields[f]!.si;
@@ -186,4 +174,45 @@ function pageList(pages: number[]): string {
   if (pages.length === 1) return `page ${pages[0]}`;
   const contiguous = pages.every((p, i) => i === 0 || p === pages[i - 1] + 1);
   return contiguous ? `pages ${pages[0]}–${pages[pages.length - 1]}` : `pages ${pages.join(', ')}`;
+}
+
+interface Reading {
+  variants: ExtractedVariant[];
+  warnings: string[];
+  merged: PdfText;
+  ocrItems: Map<number, PdfTextItem[]>;
+  result: ExtractionResult;
+}
+
+const valueCount = (variants: ExtractedVariant[]) => variants.reduce((n, v) => n + Object.keys(v.fields).length, 0);
+
+/** One reading of the scanned pages through the extractor and the OCR checks. */
+function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading {
+  const warnings: string[] = [];
+  const merged: PdfText = {
+    pageCount: text.pageCount,
+    hasText: text.hasText || [...ocrItems.values()].some((items) => items.length > 0),
+    pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
+  };
+  const result = extractRatings(merged);
+  const checked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
+  const misread = misreadPartNumbers(checked.filter((v) => Object.values(v.fields).some((f) => f.ocr)).map((v) => v.mpn));
+  for (const mpn of misread) {
+    warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
+  }
+  let variants = checked.filter((v) => !misread.includes(v.mpn));
+  // A scanned page that says the tolerance is a letter after the part number, with a legend OCR
+  // could not read: the parts read are base numbers the vendor does not sell as such.
+  const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
+  const expanded = variants.some((v) => Object.values(v.fields).some((f) => f.derived === 'tolerance-suffix'));
+  if (legendPage !== undefined && !expanded) {
+    const fromOcr = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr));
+    if (fromOcr.length) {
+      warnings.push(
+        `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters; the ${fromOcr.length} part(s) read there are left out (their full part numbers are not known). Enter them by hand.`,
+      );
+      variants = variants.filter((v) => !fromOcr.includes(v));
+    }
+  }
+  return { variants, warnings, merged, ocrItems, result };
 }

@@ -91,6 +91,13 @@ describe('plausibility of OCR voltages', () => {
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
   });
+
+  it('drops a negative value of any field but the coefficient (an equals sign read as a minus; only the coefficient has a sign, common practice, no source)', () => {
+    const a = (si: number) => ({ value: '', unit: 'A', si, page: 1, text: '', ocr: true });
+    const tc = (si: number) => ({ value: '', unit: 'mV/K', si, page: 1, text: '', ocr: true });
+    expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(-5.3), izt: a(-0.005), tc: tc(-0.002) }).sort()).toEqual(['izt', 'vr']);
+    expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(5.3), izt: a(0.005) })).toEqual([]);
+  });
 });
 
 describe('merging the block and sparse readings of a page', () => {

@@ -26,6 +26,8 @@ export function repairOcrWord(raw: string): string | undefined {
   // A ruled table's vertical lines come out as '|' (alone, or stuck to a cell's text).
   let w = raw.trim().replace(/^[|¦]+|[|¦]+$/g, '');
   if (!w) return undefined;
+  // A plus-minus sign read as a pound sign ("£5 %").
+  w = w.replace(/^£(?=\d)/, '±');
   // Minus signs: the model has '−' as '=', '—', '–', '~' or '-' before a number.
   w = w.replace(/^[=—–~](?=\d)/, '-');
   // A decimal point read as ':' ';' or ',' between digits (datasheets print points, not commas).

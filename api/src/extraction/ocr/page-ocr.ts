@@ -19,7 +19,10 @@ export interface PageOcrResult {
   page: number;
   /** False when the page holds no image (nothing to read). */
   hasImage: boolean;
+  /** The engine's reading of the whole page. */
   items: PdfTextItem[];
+  /** The cell-by-cell reading of the cleaned page (see OcrEngine.readCells). */
+  cellItems: PdfTextItem[];
 }
 
 export async function ocrPages(buffer: Uint8Array, pages: number[], options: PageOcrOptions): Promise<PageOcrResult[]> {
@@ -46,7 +49,7 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
       const page = await doc.getPage(n);
       const ops = await page.getOperatorList();
       if (!ops.fnArray.some((fn) => imageOps.has(fn))) {
-        out.push({ page: n, hasImage: false, items: [] });
+        out.push({ page: n, hasImage: false, items: [], cellItems: [] });
         page.cleanup();
         continue;
       }
@@ -63,6 +66,7 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
       page.cleanup();
       const [x0, y0, x1, y1] = page.view;
       let lines = await options.engine.read(canvas.toBuffer('image/png'));
+      let image: Canvas = canvas;
       let geometry = { scale: options.dpi / 72, widthPx, heightPx, pageHeight: y1 - y0 };
       // A page scanned or drawn turned by 90° reads as noise: when few words come out sure, the
       // page is tried turned both ways (a quick reading each) and read fully the way that reads
@@ -76,10 +80,12 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
         }
         if (best && best.quality > 2 * Math.max(5, readingQuality(lines))) {
           lines = await options.engine.read(best.image.toBuffer('image/png'));
+          image = best.image;
           geometry = { scale: options.dpi / 72, widthPx: heightPx, heightPx: widthPx, pageHeight: x1 - x0 };
         }
       }
-      out.push({ page: n, hasImage: true, items: ocrItems(lines, geometry) });
+      const cells = await options.engine.readCells(image);
+      out.push({ page: n, hasImage: true, items: ocrItems(lines, geometry), cellItems: ocrItems(cells, geometry) });
     }
   } finally {
     await doc.destroy();

@@ -1,0 +1,141 @@
+/**
+ * Text lines of a cleaned (deskewed, rule-free) page image, found from the ink itself: the
+ * engine's own page layout analysis drops whole columns of lone figures in a sparse table (a
+ * parameter table's min/typ/max column came out empty while its labels read perfectly), but
+ * reads a single line it is handed very well. So the page is cut into lines here and each is
+ * read alone.
+ *
+ * The method is the usual one of document-image work (common practice, no source): ink is
+ * smeared along each row over gaps narrower than a word space, the smeared runs are joined
+ * into connected blobs (words and phrases), and blobs that share a row band become a line.
+ */
+
+export interface Box {
+  x0: number;
+  y0: number;
+  x1: number;
+  y1: number;
+}
+
+export interface SegmentedLine extends Box {
+  /** The blobs of the line, left to right. */
+  blobs: Box[];
+}
+
+/** Darker than this (0–255) counts as ink. */
+const INK = 160;
+
+interface Run {
+  y: number;
+  x0: number;
+  x1: number;
+  label: number;
+}
+
+/**
+ * The lines of a greyscale image (one byte per pixel). `dpi` sets the scale: blobs are joined
+ * over gaps of up to 1/25 inch (a word space of small print, not a table's column gap), a blob
+ * taller than half an inch is a drawing, not text.
+ */
+export function segmentLines(grey: Uint8Array, width: number, height: number, dpi: number): SegmentedLine[] {
+  const smear = Math.max(4, Math.round(dpi / 25));
+  // Runs of smeared ink per row, joined with the overlapping runs of the row above (union-find).
+  const parent: number[] = [];
+  const find = (a: number): number => {
+    while (parent[a] !== a) {
+      parent[a] = parent[parent[a]];
+      a = parent[a];
+    }
+    return a;
+  };
+  const runs: Run[] = [];
+  let previous: Run[] = [];
+  for (let y = 0; y < height; y++) {
+    const row = y * width;
+    const current: Run[] = [];
+    let start = -1;
+    let lastInk = -1;
+    for (let x = 0; x < width; x++) {
+      if (grey[row + x] < INK) {
+        if (start < 0) start = x;
+        else if (x - lastInk > smear) {
+          current.push({ y, x0: start, x1: lastInk, label: -1 });
+          start = x;
+        }
+        lastInk = x;
+      }
+    }
+    if (start >= 0) current.push({ y, x0: start, x1: lastInk, label: -1 });
+    let p = 0;
+    for (const r of current) {
+      r.label = parent.length;
+      parent.push(r.label);
+      while (p < previous.length && previous[p].x1 < r.x0) p++;
+      for (let q = p; q < previous.length && previous[q].x0 <= r.x1; q++) {
+        const a = find(r.label);
+        const b = find(previous[q].label);
+        if (a !== b) parent[a] = b;
+      }
+      runs.push(r);
+    }
+    previous = current;
+  }
+  const boxes = new Map<number, Box & { ink: number }>();
+  for (const r of runs) {
+    const l = find(r.label);
+    const b = boxes.get(l);
+    if (!b) boxes.set(l, { x0: r.x0, y0: r.y, x1: r.x1, y1: r.y, ink: r.x1 - r.x0 + 1 });
+    else {
+      b.x0 = Math.min(b.x0, r.x0);
+      b.x1 = Math.max(b.x1, r.x1);
+      b.y0 = Math.min(b.y0, r.y);
+      b.y1 = Math.max(b.y1, r.y);
+      b.ink += r.x1 - r.x0 + 1;
+    }
+  }
+  const tallest = dpi / 2;
+  const speck = Math.max(2, Math.round(dpi / 100));
+  const blobs = [...boxes.values()].filter((b) => b.y1 - b.y0 < tallest && !(b.x1 - b.x0 <= speck && b.y1 - b.y0 <= speck));
+  return groupIntoLines(blobs, dpi);
+}
+
+const heightOf = (b: Box) => b.y1 - b.y0 + 1;
+
+/**
+ * Blobs → lines: a blob joins the line whose band it shares (vertical overlap of at least half
+ * the smaller of the two heights, the line's middle inside the blob's band or the reverse) and
+ * whose right end is near; otherwise it starts a line. Small marks (points, commas, minus
+ * signs) join the line they touch.
+ */
+export function groupIntoLines(blobs: Box[], dpi: number): SegmentedLine[] {
+  const sorted = [...blobs].sort((a, b) => a.x0 - b.x0 || a.y0 - b.y0);
+  const lines: (SegmentedLine & { core: number })[] = [];
+  const maxGap = dpi * 1.2;
+  for (const b of sorted) {
+    const h = heightOf(b);
+    let best: (typeof lines)[number] | undefined;
+    let bestOverlap = 0;
+    for (const l of lines) {
+      if (b.x0 - l.x1 > maxGap) continue;
+      const overlap = Math.min(b.y1, l.y1) - Math.max(b.y0, l.y0) + 1;
+      const need = 0.5 * Math.min(h, l.core);
+      if (overlap < need) continue;
+      // A blob much taller than the line (two lines run together) does not join it.
+      if (h > 1.8 * l.core && l.core > 0) continue;
+      if (overlap > bestOverlap) [best, bestOverlap] = [l, overlap];
+    }
+    if (best) {
+      best.blobs.push(b);
+      best.x1 = Math.max(best.x1, b.x1);
+      // The band is the line's main text: small marks do not stretch it.
+      if (h >= 0.6 * best.core) {
+        best.y0 = Math.min(best.y0, b.y0);
+        best.y1 = Math.max(best.y1, b.y1);
+        best.core = Math.max(best.core, h);
+      }
+    } else lines.push({ x0: b.x0, y0: b.y0, x1: b.x1, y1: b.y1, blobs: [b], core: h });
+  }
+  return lines
+    .map(({ core: _core, ...l }) => ({ ...l, y0: Math.min(...l.blobs.map((b) => b.y0)), y1: Math.max(...l.blobs.map((b) => b.y1)) }))
+    .sort((a, b) => a.y0 - b.y0 || a.x0 - b.x0);
+}
