@@ -2,7 +2,8 @@
  * Prints one random-layout document as the extractor sees it (lines per page), its answer key
  * and what was extracted, for working on the extractor:
  *   npx tsx api/scripts/debug-random-layout.ts --seed 4252 [--lines] [--scanned] [--set k=v]
- * --scanned reads the document's rasterised copy by OCR (as the scored --scanned run does).
+ * --scanned reads the document's rasterised copy by OCR (as the scored --scanned run does); its lines
+ * are the engine's whole-page reading, or with --cells the cell-by-cell one.
  */
 import { parseArgs } from 'node:util';
 import { generateRandomDatasheet } from '@shuntwise/test-fixtures';
@@ -20,6 +21,7 @@ async function main(): Promise<void> {
       seed: { type: 'string' },
       lines: { type: 'boolean', default: false },
       scanned: { type: 'boolean', default: false },
+      cells: { type: 'boolean', default: false },
       set: { type: 'string', multiple: true, default: [] },
     },
   });
@@ -40,7 +42,7 @@ async function main(): Promise<void> {
       pdf.pages.map((p) => p.page),
       { engine, dpi: 300 },
     );
-    for (const r of read) pdf.pages[r.page - 1] = { ...pdf.pages[r.page - 1], items: r.items };
+    for (const r of read) pdf.pages[r.page - 1] = { ...pdf.pages[r.page - 1], items: values.cells ? r.cellItems : r.items };
     (pdf as { hasText: boolean }).hasText = true;
   }
   if (values.lines) {

@@ -38,7 +38,14 @@ interface Run {
  * taller than half an inch is a drawing, not text.
  */
 export function segmentLines(grey: Uint8Array, width: number, height: number, dpi: number): SegmentedLine[] {
-  const smear = Math.max(4, Math.round(dpi / 25));
+  const blobs = inkBlobs(grey, width, height, Math.max(4, Math.round(dpi / 25)));
+  const tallest = dpi / 2;
+  const speck = Math.max(2, Math.round(dpi / 100));
+  return groupIntoLines(blobs.filter((b) => b.y1 - b.y0 < tallest && !(b.x1 - b.x0 <= speck && b.y1 - b.y0 <= speck)));
+}
+
+/** Connected blobs of ink, with ink joined along each row over gaps of up to `smear` pixels (1: touching ink only). */
+export function inkBlobs(grey: Uint8Array, width: number, height: number, smear: number): Box[] {
   // Runs of smeared ink per row, joined with the overlapping runs of the row above (union-find).
   const parent: number[] = [];
   const find = (a: number): number => {
@@ -80,43 +87,37 @@ export function segmentLines(grey: Uint8Array, width: number, height: number, dp
     }
     previous = current;
   }
-  const boxes = new Map<number, Box & { ink: number }>();
+  const boxes = new Map<number, Box>();
   for (const r of runs) {
     const l = find(r.label);
     const b = boxes.get(l);
-    if (!b) boxes.set(l, { x0: r.x0, y0: r.y, x1: r.x1, y1: r.y, ink: r.x1 - r.x0 + 1 });
+    if (!b) boxes.set(l, { x0: r.x0, y0: r.y, x1: r.x1, y1: r.y });
     else {
       b.x0 = Math.min(b.x0, r.x0);
       b.x1 = Math.max(b.x1, r.x1);
       b.y0 = Math.min(b.y0, r.y);
       b.y1 = Math.max(b.y1, r.y);
-      b.ink += r.x1 - r.x0 + 1;
     }
   }
-  const tallest = dpi / 2;
-  const speck = Math.max(2, Math.round(dpi / 100));
-  const blobs = [...boxes.values()].filter((b) => b.y1 - b.y0 < tallest && !(b.x1 - b.x0 <= speck && b.y1 - b.y0 <= speck));
-  return groupIntoLines(blobs, dpi);
+  return [...boxes.values()];
 }
 
 const heightOf = (b: Box) => b.y1 - b.y0 + 1;
 
 /**
  * Blobs → lines: a blob joins the line whose band it shares (vertical overlap of at least half
- * the smaller of the two heights, the line's middle inside the blob's band or the reverse) and
- * whose right end is near; otherwise it starts a line. Small marks (points, commas, minus
+ * the smaller of the two heights), however far to its right (a value across a leader, a
+ * column of a two-column page: each cell is read alone anyway); otherwise it starts a line. Small marks (points, commas, minus
  * signs) join the line they touch.
  */
-export function groupIntoLines(blobs: Box[], dpi: number): SegmentedLine[] {
+export function groupIntoLines(blobs: Box[]): SegmentedLine[] {
   const sorted = [...blobs].sort((a, b) => a.x0 - b.x0 || a.y0 - b.y0);
   const lines: (SegmentedLine & { core: number })[] = [];
-  const maxGap = dpi * 1.2;
   for (const b of sorted) {
     const h = heightOf(b);
     let best: (typeof lines)[number] | undefined;
     let bestOverlap = 0;
     for (const l of lines) {
-      if (b.x0 - l.x1 > maxGap) continue;
       const overlap = Math.min(b.y1, l.y1) - Math.max(b.y0, l.y0) + 1;
       const need = 0.5 * Math.min(h, l.core);
       if (overlap < need) continue;

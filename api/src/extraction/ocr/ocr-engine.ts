@@ -167,3 +167,10 @@ export function mergeReadings(first: OcrLine[], second: OcrLine[]): OcrLine[] {
 export function readingQuality(lines: OcrLine[]): number {
   return lines.flatMap((l) => l.words).filter((w) => w.confidence >= 80 && /[\p{L}\p{N}]{3,}/u.test(w.text)).length;
 }
+
+/** The share of a reading's words (of 20 or more) the engine was unsure of (below 60). */
+export function unsureShare(lines: OcrLine[]): number {
+  const words = lines.flatMap((l) => l.words).filter((w) => w.text.trim());
+  if (words.length < 20) return 0;
+  return words.filter((w) => w.confidence < 60).length / words.length;
+}

@@ -1,6 +1,6 @@
 import { type Canvas, createCanvas } from '@napi-rs/canvas';
 import { loadPdfjs, type PdfTextItem } from '../pdf-text';
-import { type OcrEngine, readingQuality } from './ocr-engine';
+import { type OcrEngine, readingQuality, unsureShare } from './ocr-engine';
 import { ocrItems } from './ocr-items';
 
 /**
@@ -68,10 +68,11 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
       let lines = await options.engine.read(canvas.toBuffer('image/png'));
       let image: Canvas = canvas;
       let geometry = { scale: options.dpi / 72, widthPx, heightPx, pageHeight: y1 - y0 };
-      // A page scanned or drawn turned by 90° reads as noise: when few words come out sure, the
-      // page is tried turned both ways (a quick reading each) and read fully the way that reads
-      // best. Its text is then read in its own frame, as the text layer's turned tables are.
-      if (readingQuality(lines) < 15) {
+      // A page scanned or drawn turned by 90° reads as noise: when few words come out sure, or
+      // most words are unsure (a sideways table under an upright page header), the page is tried
+      // turned both ways (a quick reading each) and read fully the way that reads best. Its text
+      // is then read in its own frame, as the text layer's turned tables are.
+      if (readingQuality(lines) < 15 || unsureShare(lines) > 0.5) {
         const turns = [90, 270].map((deg) => ({ deg, image: turned(canvas, deg) }));
         let best: { deg: number; image: Canvas; quality: number } | undefined;
         for (const t of turns) {

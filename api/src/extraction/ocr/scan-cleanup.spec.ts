@@ -1,4 +1,4 @@
-import { createCanvas } from '@napi-rs/canvas';
+import { type Canvas, createCanvas } from '@napi-rs/canvas';
 import { segmentLines } from './line-segmentation';
 import { cleanScan, eraseRules, skewOfImage } from './scan-cleanup';
 import { cellsOf } from './segmented-reading';
@@ -9,7 +9,7 @@ import { cellsOf } from './segmented-reading';
  */
 
 /** A page of "text": rows of word-sized bars, turned by `deg` about its centre, on white. */
-function page(deg: number, rows = 12): { canvas: ReturnType<typeof createCanvas>; grey: Uint8Array } {
+function page(deg: number, rows = 12): { canvas: Canvas; grey: Uint8Array } {
   const canvas = createCanvas(1200, 900);
   const ctx = canvas.getContext('2d');
   ctx.fillStyle = '#ffffff';

@@ -1,4 +1,5 @@
 import { type Canvas, createCanvas } from '@napi-rs/canvas';
+import { inkBlobs } from './line-segmentation';
 
 /**
  * What a page image needs before the OCR engine sees it: the scanner's skew taken out, and the
@@ -221,6 +222,44 @@ export function binarise(grey: Uint8Array, width: number, height: number): void 
 }
 
 /**
+ * Erases leader dots ("Zener voltage ........ 5.1 V"), in place: a row of six or more small dots
+ * at an even pitch on one baseline. The engine reads a leader as noise and loses the figure
+ * after it; a decimal point never comes six in a row. Returns the dots erased.
+ */
+export function eraseLeaders(grey: Uint8Array, width: number, height: number, dpi: number): number {
+  const size = Math.max(3, Math.round(dpi / 40));
+  const pitch = Math.round(dpi / 12);
+  const dots = inkBlobs(grey, width, height, 1)
+    .filter((b) => b.x1 - b.x0 < size && b.y1 - b.y0 < size)
+    .sort((a, b) => a.y1 - b.y1 || a.x0 - b.x0);
+  const used = new Set<number>();
+  let erased = 0;
+  for (let i = 0; i < dots.length; i++) {
+    if (used.has(i)) continue;
+    const chain = [i];
+    let last = dots[i];
+    // The next dot to the right on (nearly) the same baseline, within a pitch.
+    for (let j = i + 1; j < dots.length && dots[j].y1 - last.y1 <= 2; j++) {
+      const d = dots[j];
+      if (used.has(j) || Math.abs(d.y1 - last.y1) > 2) continue;
+      const gap = d.x0 - last.x1;
+      if (gap > 0 && gap <= pitch) {
+        chain.push(j);
+        last = d;
+      }
+    }
+    if (chain.length < 6) continue;
+    for (const k of chain) {
+      used.add(k);
+      const d = dots[k];
+      for (let y = d.y0; y <= d.y1; y++) for (let x = d.x0; x <= d.x1; x++) grey[y * width + x] = 255;
+      erased++;
+    }
+  }
+  return erased;
+}
+
+/**
  * The page image made ready for OCR: deskewed, without table rules, in black and white.
  * `dpi` sets the rule lengths: a third of an inch across, a quarter down (a table of a header and
  * one row is about that tall; no glyph of text size is).
@@ -233,6 +272,7 @@ export function cleanScan(source: Canvas, dpi: number): CleanedScan {
   const { width, height } = straight;
   const rulePixels = eraseRules(grey, width, height, { across: Math.round(dpi / 3), down: Math.round(dpi / 4) }, Math.max(2, Math.round(dpi / 50)));
   binarise(grey, width, height);
+  eraseLeaders(grey, width, height, dpi);
   const out = createCanvas(width, height);
   const ctx = out.getContext('2d');
   const image = ctx.createImageData(width, height);

@@ -29,18 +29,21 @@ export async function readByLines(grey: Uint8Array, width: number, height: numbe
     // whole row's reading it was often lost or run into its neighbour.
     const words: OcrWord[] = [];
     const rowHeights: number[] = [];
+    const baselines: number[] = [];
     for (const cell of cellsOf(line)) {
       for (const l of await readCutOut(grey, width, height, cell, others, readLine, 'line')) {
         words.push(...l.words);
-        if (l.words.length) rowHeights.push(l.rowHeight);
+        if (!l.words.length) continue;
+        rowHeights.push(l.rowHeight);
+        baselines.push((l.baseline.y0 + l.baseline.y1) / 2);
       }
     }
     if (!words.length) continue;
     words.sort((a, b) => a.x0 - b.x0);
-    // The page is deskewed, so a row's baseline is level: at the foot of its letters.
-    const y = Math.max(...words.map((w) => w.y1));
+    // The page is deskewed, so a row's baseline is level: the middle of its cells' baselines.
+    const y = median(baselines);
     // The row's height as the engine measures a line (ascender to descender: about the font size).
-    const rowHeight = rowHeights.sort((a, b) => a - b)[Math.floor(rowHeights.length / 2)];
+    const rowHeight = median(rowHeights);
     out.push({ words, rowHeight, baseline: { x0: line.x0, y0: y, x1: line.x1, y1: y } });
   }
   return out;
@@ -119,3 +122,5 @@ export function cellsOf(line: SegmentedLine): SegmentedLine[] {
 }
 
 const inside = (b: Box, x: number, y: number) => x >= b.x0 && x <= b.x1 && y >= b.y0 && y <= b.y1;
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
