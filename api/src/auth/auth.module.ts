@@ -1,16 +1,14 @@
 import { Module } from '@nestjs/common';
 import { JwtModule } from '@nestjs/jwt';
-import { PassportModule } from '@nestjs/passport';
 import { ENV, type Env } from '../config/env';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
-import { JWT_ALGORITHM, JwtStrategy } from './jwt.strategy';
+import { AccessTokens, JWT_ALGORITHM } from './access-tokens';
 
 @Module({
   imports: [
     UsersModule,
-    PassportModule,
     JwtModule.registerAsync({
       inject: [ENV],
       useFactory: (env: Env) => ({
@@ -21,6 +19,8 @@ import { JWT_ALGORITHM, JwtStrategy } from './jwt.strategy';
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, JwtStrategy],
+  providers: [AuthService, AccessTokens],
+  // For the global JwtAuthGuard (AppModule).
+  exports: [AccessTokens],
 })
 export class AuthModule {}
