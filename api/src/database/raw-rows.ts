@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize-typescript';
 
 /** The slice of the mariadb driver's connection a raw read uses. */
 interface DriverConnection {
-  query(sql: string, values?: unknown[]): Promise<unknown>;
+  execute(sql: { sql: string; typeCast?: undefined; dateStrings?: boolean }, values?: unknown[]): Promise<unknown>;
 }
 
 interface PooledConnections {
@@ -27,7 +27,7 @@ export class RawRows {
     const pool = this.sequelize.connectionManager as unknown as PooledConnections;
     const connection = await pool.getConnection({ type: 'read' });
     try {
-      return (await connection.query(sql, values)) as T[];
+      return (await connection.execute({ sql, typeCast: undefined, dateStrings: true }, values)) as T[];
     } finally {
       pool.releaseConnection(connection);
     }

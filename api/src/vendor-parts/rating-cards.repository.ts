@@ -36,7 +36,7 @@ export class RatingCardsRepository {
       version: number | null;
       fields: string | RatingCardFields | null;
       note: string | null;
-      updatedAt: Date | null;
+      updatedAt: string | null;
       userId: number | null;
       userName: string | null;
     }>(
@@ -52,7 +52,7 @@ export class RatingCardsRepository {
         version: row.version,
         fields: typeof row.fields === 'string' ? (JSON.parse(row.fields) as RatingCardFields) : row.fields,
         note: row.note,
-        updatedAt: row.updatedAt!,
+        updatedAt: new Date(`${row.updatedAt!.replace(' ', 'T')}Z`),
         updatedBy: row.userId !== null ? { id: row.userId, name: row.userName ?? '' } : null,
       },
     };
