@@ -8,6 +8,7 @@ import express, { type NextFunction, type Request, type Response } from 'express
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
+import { JsonReplyAdapter } from './common/json-reply.adapter';
 import { securityHeaders } from './common/security/security-headers';
 import type { Env } from './config/env';
 import { answerLivenessFirst } from './health/liveness';
@@ -20,9 +21,11 @@ export interface CreateAppOptions {
 
 /** Builds the API (and, when WEB_DIST holds a build, the web app on the same origin); does not listen. */
 export async function createApp(env: Env, options: CreateAppOptions = {}): Promise<NestExpressApplication> {
-  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), new JsonReplyAdapter(), {
     logger: options.logger ?? ['error', 'warn', 'log'],
-    bodyParser: true,
+    // JSON bodies only (below, with our limit): no route takes form-encoded bodies, and Nest's
+    // default added a urlencoded parser to every request's middleware chain.
+    bodyParser: false,
   });
   answerLivenessFirst(app.getHttpServer());
   // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (none by default),
