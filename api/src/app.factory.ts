@@ -8,6 +8,7 @@ import express, { type NextFunction, type Request, type Response } from 'express
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
+import { jsonBodies } from './common/json-bodies';
 import { JsonReplyAdapter } from './common/json-reply.adapter';
 import { securityHeaders } from './common/security/security-headers';
 import type { Env } from './config/env';
@@ -36,8 +37,9 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
   // API sends If-None-Match. The web app's static files keep theirs (serve-static's own).
   app.set('etag', false);
   app.use(securityHeaders(env));
-  app.useBodyParser('json', { limit: '2mb' });
+  // The id first, so that a body refused by the parser gets one in its error answer too.
   app.use(correlationIdMiddleware);
+  app.use(jsonBodies('2mb'));
   app.setGlobalPrefix('api');
   if (options.shutdownHooks) app.enableShutdownHooks();
 
