@@ -1,14 +1,16 @@
 import { Module } from '@nestjs/common';
 import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
 import { ENV, type Env } from '../config/env';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
-import { AccessTokens, JWT_ALGORITHM } from './access-tokens';
+import { JWT_ALGORITHM, JwtStrategy } from './jwt.strategy';
 
 @Module({
   imports: [
     UsersModule,
+    PassportModule,
     JwtModule.registerAsync({
       inject: [ENV],
       useFactory: (env: Env) => ({
@@ -19,8 +21,7 @@ import { AccessTokens, JWT_ALGORITHM } from './access-tokens';
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, AccessTokens],
-  // For the global JwtAuthGuard (AppModule).
-  exports: [AccessTokens],
+  // JwtStrategy registers itself with passport as 'jwt' for the global JwtAuthGuard (AppModule).
+  providers: [AuthService, JwtStrategy],
 })
 export class AuthModule {}

@@ -7,7 +7,7 @@ import { ENV, type Env } from '../config/env';
 import { UnitOfWork } from '../database/unit-of-work';
 import type { User } from '../users/user.model';
 import { UsersRepository } from '../users/users.repository';
-import type { JwtPayload } from './access-tokens';
+import type { JwtPayload } from './jwt.strategy';
 import { hashPassword, verifyPassword } from './passwords';
 
 export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
