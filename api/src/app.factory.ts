@@ -8,6 +8,8 @@ import express, { type NextFunction, type Request, type Response } from 'express
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
 import { correlationIdMiddleware } from './common/correlation-id.middleware';
+import { jsonBodies } from './common/json-bodies';
+import { JsonReplyAdapter } from './common/json-reply.adapter';
 import { securityHeaders } from './common/security/security-headers';
 import type { Env } from './config/env';
 import { answerLivenessFirst } from './health/liveness';
@@ -20,9 +22,11 @@ export interface CreateAppOptions {
 
 /** Builds the API (and, when WEB_DIST holds a build, the web app on the same origin); does not listen. */
 export async function createApp(env: Env, options: CreateAppOptions = {}): Promise<NestExpressApplication> {
-  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), new JsonReplyAdapter(), {
     logger: options.logger ?? ['error', 'warn', 'log'],
-    bodyParser: true,
+    // JSON bodies only (below, with our limit): no route takes form-encoded bodies, and Nest's
+    // default added a urlencoded parser to every request's middleware chain.
+    bodyParser: false,
   });
   answerLivenessFirst(app.getHttpServer());
   // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (none by default),
@@ -33,8 +37,9 @@ export async function createApp(env: Env, options: CreateAppOptions = {}): Promi
   // API sends If-None-Match. The web app's static files keep theirs (serve-static's own).
   app.set('etag', false);
   app.use(securityHeaders(env));
-  app.useBodyParser('json', { limit: '2mb' });
+  // The id first, so that a body refused by the parser gets one in its error answer too.
   app.use(correlationIdMiddleware);
+  app.use(jsonBodies('2mb'));
   app.setGlobalPrefix('api');
   if (options.shutdownHooks) app.enableShutdownHooks();
 

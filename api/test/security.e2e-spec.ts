@@ -85,6 +85,21 @@ describe('security headers, tokens and bad text (real MariaDB)', () => {
     const stored = (await t.select<{ file_name: string }>('SELECT file_name FROM datasheets WHERE id = ?', [bidi.body.id]))[0];
     expect(stored.file_name).toBe('invoicefdp.exe.pdf');
   });
+
+  it('refuses a form-encoded body with a 415 that asks for JSON and names the request, storing nothing', async () => {
+    const engineer = await t.tokenFor('engineer');
+    const count = async () => Number((await t.select<{ n: number }>('SELECT COUNT(*) AS n FROM vendor_parts'))[0].n);
+    const before = await count();
+    const res = await t.http
+      .post('/api/vendor-parts')
+      .set(auth(engineer))
+      .set('Content-Type', 'application/x-www-form-urlencoded')
+      .send('manufacturer=Form%20Invented%20Devices&mpn=FRM-1&package=SOD-123');
+    expect(res.status).toBe(415);
+    expect(res.body.message).toMatch(/JSON/);
+    expect(res.body.correlationId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(await count()).toBe(before);
+  });
 });
 
 describe('API description in production', () => {

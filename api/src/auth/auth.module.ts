@@ -21,6 +21,7 @@ import { JWT_ALGORITHM, JwtStrategy } from './jwt.strategy';
     }),
   ],
   controllers: [AuthController],
+  // JwtStrategy registers itself with passport as 'jwt' for the global JwtAuthGuard (AppModule).
   providers: [AuthService, JwtStrategy],
 })
 export class AuthModule {}

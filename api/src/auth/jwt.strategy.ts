@@ -13,13 +13,26 @@ export interface JwtPayload {
   tv: number;
   /** Expiry (seconds since the epoch); jsonwebtoken checks it only when present, so validate() requires it. */
   exp?: number;
+  /** Not before (seconds since the epoch); our tokens carry none, a hand-made one may. */
+  nbf?: number;
 }
 
 export const JWT_ALGORITHM = 'HS256' as const;
 
-/** Checks signature (HS256 only), expiry (which must be present), issuer and audience, then that the user is still active and the token not ended. */
+/** The refusal when the users row no longer matches the token (logout, deactivation, role change, user gone). */
+export const SESSION_ENDED = 'Your session has ended; sign in again';
+
+/**
+ * The token check behind the global JwtAuthGuard (AuthGuard('jwt')): passport-jwt takes the
+ * bearer token and has jsonwebtoken check its signature (HS256 only), expiry, nbf, issuer and
+ * audience on every request; validate() then requires an expiry and reads the users row — one
+ * raw primary-key read (`UsersRepository.tokenHolder`), never cached: the user must still be
+ * active, hold the role the token names and the token version it was issued with. Logout (a
+ * version bump), deactivation and a role change therefore end a token on the next request on
+ * every replica.
+ */
 @Injectable()
-export class JwtStrategy extends PassportStrategy(Strategy) {
+export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   constructor(
     @Inject(ENV) env: Env,
     private readonly users: UsersRepository,
@@ -42,7 +55,7 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     if (typeof payload.exp !== 'number' || !Number.isFinite(payload.exp)) throw new UnauthorizedException('The token has no expiry; sign in again');
     const user = typeof payload.sub === 'number' ? await this.users.tokenHolder(payload.sub) : null;
     if (!user || !user.active || user.tokenVersion !== payload.tv || user.role !== payload.role) {
-      throw new UnauthorizedException('Your session has ended; sign in again');
+      throw new UnauthorizedException(SESSION_ENDED);
     }
     return { id: user.id, email: user.email, name: user.name, role: user.role };
   }

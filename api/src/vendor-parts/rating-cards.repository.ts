@@ -3,7 +3,7 @@ import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { vzTolerance, type RatingCardFields, type Spec } from '@shuntwise/contracts';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import { RawRows } from '../database/raw-rows';
+import { RawRows, utcDate } from '../database/raw-rows';
 import { User } from '../users/user.model';
 import { RatingCardVersion } from './rating-card-version.model';
 import { RatingCard } from './rating-card.model';
@@ -36,7 +36,7 @@ export class RatingCardsRepository {
       version: number | null;
       fields: string | RatingCardFields | null;
       note: string | null;
-      updatedAt: Date | null;
+      updatedAt: string | null;
       userId: number | null;
       userName: string | null;
     }>(
@@ -52,7 +52,7 @@ export class RatingCardsRepository {
         version: row.version,
         fields: typeof row.fields === 'string' ? (JSON.parse(row.fields) as RatingCardFields) : row.fields,
         note: row.note,
-        updatedAt: row.updatedAt!,
+        updatedAt: utcDate(row.updatedAt!),
         updatedBy: row.userId !== null ? { id: row.userId, name: row.userName ?? '' } : null,
       },
     };
