@@ -123,7 +123,10 @@ describe('JwtAuthGuard over passport-jwt (JwtStrategy)', () => {
       [bearer(claims, { expiresIn: 600, secret: 'another-secret-another-secret-0123' }), /not valid/],
       [`Bearer ${new JwtService({ secret: env.JWT_SECRET }).sign(claims, { issuer: 'elsewhere', audience: env.JWT_AUDIENCE, expiresIn: 600 })}`, /not valid/],
       [`Bearer ${new JwtService({ secret: env.JWT_SECRET }).sign(claims, { issuer: env.JWT_ISSUER, audience: 'elsewhere', expiresIn: 600 })}`, /not valid/],
-      [`Bearer ${new JwtService({ secret: env.JWT_SECRET }).sign(claims, { algorithm: 'HS512', issuer: env.JWT_ISSUER, audience: env.JWT_AUDIENCE, expiresIn: 600 })}`, /not valid/],
+      [
+        `Bearer ${new JwtService({ secret: env.JWT_SECRET }).sign(claims, { algorithm: 'HS512', issuer: env.JWT_ISSUER, audience: env.JWT_AUDIENCE, expiresIn: 600 })}`,
+        /not valid/,
+      ],
       [`Bearer ${none}`, /not valid/],
       [bearer(claims, {}), /no expiry/],
     ];
