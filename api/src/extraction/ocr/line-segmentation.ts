@@ -25,13 +25,6 @@ export interface SegmentedLine extends Box {
 /** Darker than this (0–255) counts as ink. */
 const INK = 160;
 
-interface Run {
-  y: number;
-  x0: number;
-  x1: number;
-  label: number;
-}
-
 /**
  * The lines of a greyscale image (one byte per pixel). `dpi` sets the scale: blobs are joined
  * over gaps of up to 1/25 inch (a word space of small print, not a table's column gap), a blob
@@ -46,8 +39,14 @@ export function segmentLines(grey: Uint8Array, width: number, height: number, dp
 
 /** Connected blobs of ink, with ink joined along each row over gaps of up to `smear` pixels (1: touching ink only). */
 export function inkBlobs(grey: Uint8Array, width: number, height: number, smear: number): Box[] {
-  // Runs of smeared ink per row, joined with the overlapping runs of the row above (union-find).
-  const parent: number[] = [];
+  // Runs of smeared ink per row (in typed arrays: a page holds millions), joined with the
+  // overlapping runs of the row above (union-find).
+  let cap = 1 << 16;
+  let x0s = new Int32Array(cap);
+  let x1s = new Int32Array(cap);
+  let ys = new Int32Array(cap);
+  let parent = new Int32Array(cap);
+  let n = 0;
   const find = (a: number): number => {
     while (parent[a] !== a) {
       parent[a] = parent[parent[a]];
@@ -55,48 +54,62 @@ export function inkBlobs(grey: Uint8Array, width: number, height: number, smear:
     }
     return a;
   };
-  const runs: Run[] = [];
-  let previous: Run[] = [];
+  const push = (y: number, x0: number, x1: number) => {
+    if (n === cap) {
+      cap *= 2;
+      const grow = (a: Int32Array) => {
+        const b = new Int32Array(cap);
+        b.set(a);
+        return b;
+      };
+      [x0s, x1s, ys, parent] = [grow(x0s), grow(x1s), grow(ys), grow(parent)];
+    }
+    x0s[n] = x0;
+    x1s[n] = x1;
+    ys[n] = y;
+    parent[n] = n;
+    return n++;
+  };
+  let prevStart = 0;
+  let prevEnd = 0;
   for (let y = 0; y < height; y++) {
     const row = y * width;
-    const current: Run[] = [];
+    const rowStart = n;
     let start = -1;
     let lastInk = -1;
     for (let x = 0; x < width; x++) {
       if (grey[row + x] < INK) {
         if (start < 0) start = x;
         else if (x - lastInk > smear) {
-          current.push({ y, x0: start, x1: lastInk, label: -1 });
+          push(y, start, lastInk);
           start = x;
         }
         lastInk = x;
       }
     }
-    if (start >= 0) current.push({ y, x0: start, x1: lastInk, label: -1 });
-    let p = 0;
-    for (const r of current) {
-      r.label = parent.length;
-      parent.push(r.label);
-      while (p < previous.length && previous[p].x1 < r.x0) p++;
-      for (let q = p; q < previous.length && previous[q].x0 <= r.x1; q++) {
-        const a = find(r.label);
-        const b = find(previous[q].label);
+    if (start >= 0) push(y, start, lastInk);
+    let p = prevStart;
+    for (let r = rowStart; r < n; r++) {
+      while (p < prevEnd && x1s[p] < x0s[r]) p++;
+      for (let q = p; q < prevEnd && x0s[q] <= x1s[r]; q++) {
+        const a = find(r);
+        const b = find(q);
         if (a !== b) parent[a] = b;
       }
-      runs.push(r);
     }
-    previous = current;
+    prevStart = rowStart;
+    prevEnd = n;
   }
   const boxes = new Map<number, Box>();
-  for (const r of runs) {
-    const l = find(r.label);
+  for (let r = 0; r < n; r++) {
+    const l = find(r);
     const b = boxes.get(l);
-    if (!b) boxes.set(l, { x0: r.x0, y0: r.y, x1: r.x1, y1: r.y });
+    if (!b) boxes.set(l, { x0: x0s[r], y0: ys[r], x1: x1s[r], y1: ys[r] });
     else {
-      b.x0 = Math.min(b.x0, r.x0);
-      b.x1 = Math.max(b.x1, r.x1);
-      b.y0 = Math.min(b.y0, r.y);
-      b.y1 = Math.max(b.y1, r.y);
+      b.x0 = Math.min(b.x0, x0s[r]);
+      b.x1 = Math.max(b.x1, x1s[r]);
+      b.y0 = Math.min(b.y0, ys[r]);
+      b.y1 = Math.max(b.y1, ys[r]);
     }
   }
   return [...boxes.values()];

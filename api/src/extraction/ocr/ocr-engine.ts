@@ -71,12 +71,9 @@ export class OcrEngine {
    */
   async readCells(page: Canvas): Promise<OcrLine[]> {
     const worker = await this.start();
-    const { canvas } = cleanScan(page, this.dpi);
-    const rgba = canvas.getContext('2d').getImageData(0, 0, canvas.width, canvas.height).data;
-    const grey = new Uint8Array(canvas.width * canvas.height);
-    for (let i = 0; i < grey.length; i++) grey[i] = rgba[i * 4];
+    const { grey, width, height } = cleanScan(page, this.dpi);
     let current: PSM | undefined;
-    return readByLines(grey, canvas.width, canvas.height, this.dpi, async (png, mode) => {
+    return readByLines(grey, width, height, this.dpi, async (png, mode) => {
       const psm = mode === 'line' ? PSM.SINGLE_LINE : PSM.SINGLE_BLOCK;
       if (psm !== current) await worker.setParameters({ tessedit_pageseg_mode: (current = psm) });
       return this.lines(worker, png);

@@ -112,8 +112,10 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
   if (fields.vr?.ocr && vzLow && fields.vr.si >= vzLow.si) bad.add('vr');
   // A regulator diode's coefficient stays within about ±0.15 %/K of VZ (common practice, no source): a
   // larger one is a decimal point the scan lost.
-  const vz = fields.vzNom ?? fields.vzMax;
-  if (fields.tc?.ocr && vz && Math.abs(fields.tc.si) > 0.0015 * vz.si) bad.add('tc');
+  // Without a VZ (read, or coded in the part number) nothing bounds it, and a decimal comma the
+  // scan lost makes it ten times too large ("+8,7 mV/°C" read as "+87"): it is left out.
+  const vz = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
+  if (fields.tc?.ocr && (vz === undefined || Math.abs(fields.tc.si) > 0.0015 * vz)) bad.add('tc');
   const ordered = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
   for (let i = 1; i < ordered.length; i++) {
     if (fields[ordered[i - 1]]!.si > fields[ordered[i]]!.si) {
@@ -146,6 +148,17 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
       out.push(m);
       continue;
     }
+    // A part alone in its series whose letters are those of a series of two or more with one
+    // letter lost or changed ("KM36" beside KJM39, KJM43): a misreading, not a new series.
+    if (siblings.length === 0 && prefix.length >= 2) {
+      const near = new Set(
+        mpns.map(seriesLetters).filter((p) => p !== prefix && mpns.filter((o) => seriesLetters(o) === p).length >= 2 && oneEditApart(p, prefix)),
+      );
+      if (near.size) {
+        out.push(m);
+        continue;
+      }
+    }
     const shapes = new Map<string, number>();
     for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
     if (shapes.has(shapeOf(m))) continue;
@@ -155,6 +168,15 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     if (dominant && isOneInsertion(shapeOf(m), dominant[0])) out.push(m);
   }
   return out;
+}
+
+/** Whether two series' letters differ by one letter dropped or changed (KJM / KM, KJM / KIM). */
+function oneEditApart(a: string, b: string): boolean {
+  if (a.length === b.length) return [...a].filter((c, i) => c !== b[i]).length === 1;
+  const [long, short] = a.length > b.length ? [a, b] : [b, a];
+  if (long.length !== short.length + 1) return false;
+  for (let i = 0; i < long.length; i++) if (long.slice(0, i) + long.slice(i + 1) === short) return true;
+  return false;
 }
 
 /** Whether removing one letter of `longer` (not its first or last character) gives `shorter`: 100 among 10, 12, 15 is a real part, 4VT7 among 5V1, 5V6 is not. */

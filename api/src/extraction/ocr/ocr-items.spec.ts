@@ -90,6 +90,9 @@ describe('plausibility of OCR voltages', () => {
     const tc = (si: number) => ({ value: '', unit: 'mV/°C', si, page: 1, text: '', ocr: true });
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
     expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
+    // No VZ read: the part number's code bounds it; with neither, it is left out (a lost decimal comma makes it 10× too large).
+    expect(implausibleVoltages('BRZ05-3V6', { tc: tc(-0.0014) })).toEqual([]);
+    expect(implausibleVoltages('KPB12', { tc: tc(0.087) })).toEqual(['tc']);
   });
 
   it('drops a negative value of any field but the coefficient (an equals sign read as a minus; only the coefficient has a sign, common practice, no source)', () => {
@@ -129,6 +132,10 @@ describe('part numbers misread by OCR', () => {
     // Two rows read as one line.
     expect(misreadPartNumbers(['VLY-30', 'VLY-33', 'VLY-39VLY-43', 'VLY-43'])).toEqual(['VLY-39VLY-43']);
     expect(misreadPartNumbers(['VLY-30', 'VLY-39VLY-43'])).toEqual(['VLY-39VLY-43']);
+    // A series' letter lost: a lone part whose letters are one edit from a series of two or more.
+    expect(misreadPartNumbers(['KJM33', 'KJM36', 'KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
+    expect(misreadPartNumbers(['KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
+    expect(misreadPartNumbers(['KPB12', 'KPB13', 'KPB15', 'KJM39', 'KJM43', 'KJM47'])).toEqual([]);
   });
 
   it('keeps series that mix plain numbers with letter-for-point codes, and series too small to judge', () => {

@@ -10,7 +10,10 @@ import { inkBlobs } from './line-segmentation';
  */
 
 export interface CleanedScan {
-  canvas: Canvas;
+  /** Grey levels (here only 0 and 255), one byte per pixel, row by row. */
+  grey: Uint8Array;
+  width: number;
+  height: number;
   /** The skew found and removed, degrees (positive: the text ran down to the right). */
   skewDeg: number;
   /** Pixels of rules erased. */
@@ -260,26 +263,18 @@ export function eraseLeaders(grey: Uint8Array, width: number, height: number, dp
 }
 
 /**
- * The page image made ready for OCR: deskewed, without table rules, in black and white.
+ * The page image made ready for OCR: deskewed, without table rules and leader dots, in black
+ * and white (as grey levels, so nothing page-sized is held twice).
  * `dpi` sets the rule lengths: a third of an inch across, a quarter down (a table of a header and
  * one row is about that tall; no glyph of text size is).
  */
 export function cleanScan(source: Canvas, dpi: number): CleanedScan {
   const first = greyOf(source);
   const skewDeg = skewOfImage(first, source.width, source.height);
-  const straight = Math.abs(skewDeg) >= 0.05 ? unskewed(source, skewDeg) : source;
-  const grey = straight === source ? first : greyOf(straight);
-  const { width, height } = straight;
+  const grey = Math.abs(skewDeg) >= 0.05 ? greyOf(unskewed(source, skewDeg)) : first;
+  const { width, height } = source;
   const rulePixels = eraseRules(grey, width, height, { across: Math.round(dpi / 3), down: Math.round(dpi / 4) }, Math.max(2, Math.round(dpi / 50)));
   binarise(grey, width, height);
   eraseLeaders(grey, width, height, dpi);
-  const out = createCanvas(width, height);
-  const ctx = out.getContext('2d');
-  const image = ctx.createImageData(width, height);
-  for (let i = 0, j = 0; j < grey.length; i += 4, j++) {
-    image.data[i] = image.data[i + 1] = image.data[i + 2] = grey[j];
-    image.data[i + 3] = 255;
-  }
-  ctx.putImageData(image, 0, 0);
-  return { canvas: out, skewDeg, rulePixels };
+  return { grey, width, height, skewDeg, rulePixels };
 }
