@@ -25,6 +25,15 @@ function page(deg: number, rows = 12): { canvas: Canvas; grey: Uint8Array } {
   return { canvas, grey };
 }
 
+/** A white image, one byte per pixel, and a pen that paints black rectangles [x0, x1) × [y0, y1) on it. */
+function blank(w: number, h: number) {
+  const grey = new Uint8Array(w * h).fill(255);
+  const paint = (x0: number, y0: number, x1: number, y1: number) => {
+    for (let y = y0; y < y1; y++) for (let x = x0; x < x1; x++) grey[y * w + x] = 0;
+  };
+  return { grey, paint };
+}
+
 describe('cleaning a scanned page for OCR', () => {
   it.each([-1.3, -0.4, 0, 0.7, 1.9])('finds a skew of %s° (the angle the drawn page was turned by) within 0.1°', (deg) => {
     // Canvas y runs down, so a clockwise turn makes rows run down to the right: a positive skew.
@@ -40,10 +49,7 @@ describe('cleaning a scanned page for OCR', () => {
   it('erases a table rule but keeps short strokes and thick bars (a glyph, a bold block)', () => {
     const w = 400;
     const h = 200;
-    const grey = new Uint8Array(w * h).fill(255);
-    const paint = (x0: number, y0: number, x1: number, y1: number) => {
-      for (let y = y0; y < y1; y++) for (let x = x0; x < x1; x++) grey[y * w + x] = 0;
-    };
+    const { grey, paint } = blank(w, h);
     paint(10, 50, 390, 52); // a rule across the table, 2 px
     paint(200, 60, 202, 190); // a column rule, 2 px
     paint(20, 100, 60, 102); // a short stroke (a minus sign)
@@ -60,10 +66,7 @@ describe('cutting a page into lines and cells', () => {
   it('finds each drawn row as one line, and cuts a row at its wide gaps only', () => {
     const w = 1000;
     const h = 300;
-    const grey = new Uint8Array(w * h).fill(255);
-    const paint = (x0: number, y0: number, x1: number, y1: number) => {
-      for (let y = y0; y < y1; y++) for (let x = x0; x < x1; x++) grey[y * w + x] = 0;
-    };
+    const { grey, paint } = blank(w, h);
     // Row 1: two "words" 8 px apart (one cell), then a figure far to the right (another cell).
     paint(50, 50, 120, 75);
     paint(128, 50, 200, 75);
