@@ -3,7 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { searchQuerySchema } from '@shuntwise/contracts';
 import { HousePartsRepository } from '../src/house-parts/house-parts.repository';
-import { SearchRepository } from '../src/search/search.repository';
+import { SearchRepository, branchCondition } from '../src/search/search.repository';
 import { SearchService } from '../src/search/search.service';
 import { TextIndexRepository } from '../src/text-index/text-index.repository';
 import { VendorPartsRepository } from '../src/vendor-parts/vendor-parts.repository';
@@ -184,6 +184,47 @@ describe('text index (real MariaDB, demo seed)', () => {
     // Without a filter the cut shows: two parts, the first by score then id.
     const all = await search.search(searchQuerySchema.parse({ q: 'KRZ', includeNotCleared: 'true' }));
     expect(all.items.map((i) => i.vendorPart.id).sort((a, b) => a - b)).toEqual(ids.slice(0, 2));
+  });
+
+  // The search reads only the best SEARCH_TEXT_CANDIDATES + 1 parts when nothing is filtered after
+  // the index (scoredVendorParts' `keep`): they must be the very parts the whole match, cut by
+  // (score, id), gives. Texts drawn afresh from the seeded names each run (seed printed).
+  it("keeping the best k matches gives the whole match's best k by score then id, with and without filters", async () => {
+    const seed = Number(process.env.TEXT_SEED ?? Math.floor(Math.random() * 2 ** 31));
+    console.log(`keep-cut texts: TEXT_SEED=${seed}`);
+    let state = seed;
+    const rand = () => (state = (state * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const names = (
+      await t.select<{ name: string }>(
+        'SELECT mpn AS name FROM vendor_parts UNION ALL SELECT name FROM manufacturers UNION ALL SELECT part_number FROM house_parts UNION ALL SELECT description FROM house_parts',
+      )
+    ).map((r) => r.name);
+    const index = t.stack.app.get(TextIndexRepository);
+    const sequelize = t.stack.app.get(Sequelize);
+    const run = (sql: string, params: unknown[]) =>
+      sequelize.query<{ id: number; score: string | number }>(sql, { replacements: params, type: QueryTypes.SELECT });
+    const key = (rows: Array<{ id: number; score: string | number }>) => rows.map((r) => `${r.id}:${Number(r.score).toFixed(4)}`);
+    let compared = 0;
+    for (let i = 0; i < 16; i++) {
+      const name = names[Math.floor(rand() * names.length)];
+      const from = Math.floor(rand() * Math.max(1, name.length - 3));
+      let text = name.slice(from, from + 3 + Math.floor(rand() * 6));
+      // Every third text with one character changed, as a typo.
+      if (i % 3 === 2 && text.length > 3) text = `${text.slice(0, 1)}x${text.slice(2)}`;
+      for (const raw of [{ q: text, includeNotCleared: 'true' }, { q: text }, { q: text, includeNotCleared: 'true', vzFrom: '3', vzTo: '8' }]) {
+        const condition = branchCondition(searchQuerySchema.parse(raw));
+        const whole = await index.scoredVendorParts(text, condition);
+        if (!whole) continue;
+        const all = (await run(whole.sql, whole.params)).sort((a, b) => Number(b.score) - Number(a.score) || a.id - b.id);
+        for (const k of [1, 3, 10]) {
+          const cut = (await index.scoredVendorParts(text, condition, k))!;
+          const kept = await run(cut.sql, cut.params);
+          expect({ text, raw, k, ids: key(kept) }).toEqual({ text, raw, k, ids: key(all.slice(0, k)) });
+          compared++;
+        }
+      }
+    }
+    expect(compared).toBeGreaterThan(30);
   });
 
   it('moves a renamed part in the index: the old number no longer finds it, the new one does', async () => {

@@ -84,7 +84,9 @@ export class SearchService {
   private async textCandidates(query: SearchQuery, text: string): Promise<{ candidates: CandidateRow[]; mode: 'fuzzy' | 'prefix'; truncated: boolean }> {
     const limit = SEARCH_TEXT_CANDIDATES;
     // Usability and the part's own filters are tested inside the index's branches, before each keeps its best matches.
-    const scored = await this.textIndex.scoredVendorParts(text, branchCondition(query));
+    // Every filter but the card's tolerance window is tested inside the index's branches: without
+    // a window nothing is filtered after them, so only the best limit + 1 parts are read at all.
+    const scored = await this.textIndex.scoredVendorParts(text, branchCondition(query), query.vzWindow ? undefined : limit + 1);
     const rows = await this.repository.candidates(
       query,
       scored ? { scored, usableApplied: !query.includeNotCleared } : { tokens: textTokens(text) },

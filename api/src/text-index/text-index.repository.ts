@@ -157,9 +157,12 @@ export class TextIndexRepository {
    * records holding all of the least common ones are taken instead (never nothing for text
    * that matches). Null when the text is too short to have pieces. `only` is a condition on
    * a vendor part id column that every branch applies before it keeps its best records (the
-   * search's usable set), so the cut never drops the parts the caller wants.
+   * search's usable set), so the cut never drops the parts the caller wants. `keep`: the caller
+   * filters nothing more and needs only the best `keep` parts by (score, id); the part-number and
+   * maker branches and the union are cut there, in that order, so the parts beyond the cut are
+   * never read (a part in the best `keep` overall is among the best `keep` of its own branch).
    */
-  async scoredVendorParts(text: string, only?: (idColumn: string) => SqlPart): Promise<SqlPart | null> {
+  async scoredVendorParts(text: string, only?: (idColumn: string) => SqlPart, keep?: number): Promise<SqlPart | null> {
     const pieces = grams(text);
     if (pieces.length === 0) return null;
     const branches: string[] = [];
@@ -198,9 +201,10 @@ export class TextIndexRepository {
         const own = only?.('entity_id');
         if (own) params.push(...own.params);
         branches.push(
-          `SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${this.limits.branchLimit}) own`,
+          `SELECT entity_id AS id, score FROM (${hits}${own ? ` AND ${own.sql}` : ''} ORDER BY score DESC, entity_id LIMIT ${Math.min(this.limits.branchLimit, keep ?? Infinity)}) own`,
         );
       }
+      // House parts are cut before their sources are filtered: that branch keeps its own limit.
       if (kind === 'housePart') {
         const sourced = only?.('s.vendor_part_id');
         if (sourced) params.push(...sourced.params);
@@ -211,15 +215,16 @@ export class TextIndexRepository {
       if (kind === 'manufacturer') {
         const made = only?.('mv.id');
         if (made) params.push(...made.params);
-        branches.push(
-          `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
-           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id${made ? ` WHERE ${made.sql}` : ''}`,
-        );
+        const makers = `SELECT mv.id, mk.score FROM (SELECT entity_id, score FROM (SELECT entity_id, score, RANK() OVER (ORDER BY score DESC) AS place FROM (${hits}) ranked) r WHERE place = 1) mk
+           JOIN vendor_parts mv ON mv.manufacturer_id = mk.entity_id${made ? ` WHERE ${made.sql}` : ''}`;
+        // Cut inside its own derived table: an ORDER BY … LIMIT on a union's last branch would apply to the whole union.
+        branches.push(keep !== undefined ? `SELECT id, score FROM (${makers} ORDER BY mk.score DESC, mv.id LIMIT ${keep}) made` : makers);
       }
     }
     // Long enough to index, but no record holds a piece of it: an empty match, not the prefix fallback.
     if (branches.length === 0) return { sql: 'SELECT 0 AS id, 0 AS score FROM DUAL WHERE FALSE', params: [] };
-    return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id`, params };
+    const cut = keep !== undefined ? ` ORDER BY score DESC, id LIMIT ${keep}` : '';
+    return { sql: `SELECT id, MAX(score) AS score FROM (${branches.join(' UNION ALL ')}) m GROUP BY id${cut}`, params };
   }
 
   /**
