@@ -75,6 +75,27 @@ describe('reading series tables from positioned text', () => {
     expect(v.fields.irMax).toMatchObject({ unit: 'µA', si: 3e-6 });
   });
 
+  it("does not give a table's header to rows of another series below it whose own header was not read", () => {
+    // The second table's header is garbled (a scan): its rows must not take the first table's test current.
+    const page1 = [
+      ...row(700, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)', 'IR (µA)', 'VR (V)']),
+      ...row(685, XS, ['KLM-3V3', '3.3', '5', '95', '5', '1']),
+      ...row(673, XS, ['KLM-3V6', '3.6', '5', '90', '5', '1']),
+    ];
+    const page2 = [
+      item('Electrical characteristics, PRQ series (IZT = 2.5 mA)', 50, 810, 10, 260),
+      item('~ ;; ee', 50, 795),
+      ...row(780, XS, ['PRQ-39', '39', '2.5', '130', '0.5', '27']),
+      ...row(768, XS, ['PRQ-43', '43', '2.5', '130', '0.5', '30']),
+      item('Ordering information', 50, 700),
+      // The same series further on continues the same table.
+      ...row(600, XS, ['KLM-3V9', '3.9', '5', '90', '3', '1']),
+    ];
+    const result = extractRatings(pdf(page1, page2));
+    expect(result.variants.map((v) => v.mpn)).toEqual(['KLM-3V3', 'KLM-3V6', 'KLM-3V9']);
+    expect(result.variants[2].fields.izt).toMatchObject({ si: 0.005, page: 2 });
+  });
+
   it('leaves a %/K coefficient empty with a warning when the variant has no nominal voltage', () => {
     const items = [...row(700, XS, ['Type', 'VZ min (V)', 'VZ max (V)', 'IZT (mA)', 'TC (%/K)']), ...row(685, XS, ['PQR-12', '11.4', '12.6', '5', '+0.075'])];
     const result = extractRatings(pdf(items));

@@ -1,6 +1,6 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
 import { fieldFor, FieldMatch, findConditions, isPackageHeader, qualifierOf, titleConditions } from './field-patterns';
-import { findPackage, isPartNumber } from './part-numbers';
+import { findPackage, isPartNumber, seriesLetters } from './part-numbers';
 import { blankFootnotes, findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
@@ -258,6 +258,8 @@ function sameColumns(a: Span[], b: ColumnPlan[]): boolean {
 export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: string[]): Set<Line> {
   const used = new Set<Line>();
   let previous: TablePlan | undefined;
+  /** The series letters of the rows read under `previous` (a continuation carries on the same series). */
+  let previousSeries = new Set<string>();
   for (const lines of pages) {
     let i = 0;
     while (i < lines.length) {
@@ -275,10 +277,15 @@ export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: str
       if (!plan || mappedCount(plan) < 2) {
         const ownHeader = header.some((l) => /^(type|part|device|order)/i.test(l.cells[0]?.text ?? ''));
         if (ownHeader) continue; // a table of its own that holds no ratings (ordering data and the like)
-        if (previous && sameColumns(cols, previous.columns)) {
+        // Rows without a header of their own continue the table above only with its series: rows of
+        // another series are another table whose header was not read (a scan), and the conditions
+        // of the first (IZT = 2 mA) would be given to the second's parts (tested at 2.5 mA).
+        const series = rows.map((r) => seriesLetters(r.cells[0].text));
+        if (previous && sameColumns(cols, previous.columns) && series.every((l) => previousSeries.has(l))) {
           plan = { columns: previous.columns.map((c, k) => ({ ...c, span: cols[k] })), conditions: previous.conditions };
         } else continue;
-      }
+      } else previousSeries = new Set();
+      for (const r of rows) previousSeries.add(seriesLetters(r.cells[0].text));
       const title = titleConditions(lines, header.length ? header[0].index : rows[0].index);
       if (title.length) {
         const fromTitle = title.map((c) => ({ ...c, page: c.line.page, text: c.line.printed, cell: c.line.cells[0] }));

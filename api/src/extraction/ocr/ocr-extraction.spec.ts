@@ -61,6 +61,23 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     expect(result.warnings.join(' ')).toMatch(/letter after the part number.*legend/);
   });
 
+  it('leaves out the parts a legend read for another series did not expand (a base number is not a part), and keeps the expanded ones', async () => {
+    // The XQ legend reads whole; the KRV series' own legend lost its figures ("C %"), so KRV20 stays a bare base number.
+    const lines = [
+      ...block.map((l, i) => (i % 3 === 0 ? line(l.baseline.y0, [250, l.words[0].text.replace(/A$/, '')]) : l)),
+      line(700, [250, 'KRV20']),
+      line(750, [250, 'Zener voltage, VZ ..........'], [1400, '20 V']),
+      line(800, [250, 'Test current, IZT ..........'], [1400, '10 mA']),
+      line(900, [250, 'Tolerance of VZ: the letter after the type number gives it (A ±1 %, B ±2 %). Example: XQ5V1A']),
+      line(950, [250, 'Tolerance of VZ: the letter after the type number gives it (B %, C %). Example: KRV20B']),
+    ];
+    const result = await extractWithOcr(scanned, { engine: engineReading(lines), dpi: 300, maxOcrPages: 5 });
+    expect(result.variants.map((v) => v.mpn).sort()).toEqual(['XQ5V1A', 'XQ5V1B', 'XQ6V2A', 'XQ6V2B']);
+    // ±1 % of 5.1 V, derived from the letter (common practice, no source).
+    expect(result.variants.find((v) => v.mpn === 'XQ5V1A')!.fields.vzMin).toMatchObject({ si: 5.049, derived: 'tolerance-suffix', ocr: true });
+    expect(result.warnings.join(' ')).toMatch(/legend of the letters for KRV20/);
+  });
+
   it('turns a page that reads as noise and reads it the way it reads best (a table scanned sideways)', async () => {
     const noise = [line(400, [250, '~ = © o'])];
     const calls: string[] = [];

@@ -223,17 +223,18 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading
     warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
   }
   let variants = checked.filter((v) => !misread.includes(v.mpn));
-  // A scanned page that says the tolerance is a letter after the part number, with a legend OCR
-  // could not read: the parts read are base numbers the vendor does not sell as such.
+  // A scanned page that says the tolerance is a letter after the part number: an OCR'd part with
+  // no VZ limits, printed or derived from a letter, is one the legend did not expand (a legend OCR
+  // could not read, or read only for another series: "C %" with its figure lost), a base number
+  // the vendor does not sell as such. (A part expanded while its VZnom was unreadable goes too.)
   const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
-  const expanded = variants.some((v) => Object.values(v.fields).some((f) => f.derived === 'tolerance-suffix'));
-  if (legendPage !== undefined && !expanded) {
-    const fromOcr = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr));
-    if (fromOcr.length) {
+  if (legendPage !== undefined) {
+    const bases = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr) && !v.fields.vzMin && !v.fields.vzMax);
+    if (bases.length) {
       warnings.push(
-        `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters; the ${fromOcr.length} part(s) read there are left out (their full part numbers are not known). Enter them by hand.`,
+        `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters for ${bases.map((v) => v.mpn).join(', ')}; they are left out (their full part numbers are not known). Enter them by hand.`,
       );
-      variants = variants.filter((v) => !fromOcr.includes(v));
+      variants = variants.filter((v) => !bases.includes(v));
     }
   }
   return { variants, warnings, merged, ocrItems, result };
