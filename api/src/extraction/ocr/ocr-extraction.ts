@@ -87,7 +87,10 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
 }
 
 /**
- * OCR values that cannot be right: a negative value of any field but the coefficient; VZ min ≤ nom ≤ max must hold, VR must be below VZ, the coefficient within ±0.15 %/K, and the nominal
+ * OCR values that cannot be right: a negative value of any field but the coefficient; a figure
+ * with a leading zero and no separator; VZ min ≤ nom ≤ max must hold, VR must be below VZ, the
+ * coefficient within ±0.15 %/K, the power rating near (Tj max − TA) / RthJA, the currents in
+ * order (IZK < IZT ≤ IZM, IZT × VZ within the power rating), and the nominal
  * voltage coded in a regulator part number (…5V1 = 5.1 V) must be within 10 %
  * of the VZ read (common practice for regulator-diode part numbering, no source).
  */
@@ -116,6 +119,34 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
   // scan lost makes it ten times too large ("+8,7 mV/°C" read as "+87"): it is left out.
   const vz = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
   if (fields.tc?.ocr && (vz === undefined || Math.abs(fields.tc.si) > 0.0015 * vz)) bad.add('tc');
+  // A figure printed with a leading zero and no separator ("05" for 0,5 µA) is a decimal comma or
+  // point the scan lost: ten times too large, or more.
+  for (const [f, v] of Object.entries(fields) as [ExtractionField, ExtractedVariant['fields'][ExtractionField]][]) {
+    if (v?.ocr && /^[+\-−]?0\d/.test(v.value)) bad.add(f);
+  }
+  // The power rating at an ambient temperature is the junction's headroom over the thermal
+  // resistance, Pd = (Tj max − TA) / RthJA (common practice for regulator-diode ratings, no
+  // source): OCR'd figures far from it (2 W read as 1 W, "63" as "6.3") cannot all be right, and
+  // which one is wrong is not known; the power and the resistance are left out, Tj max kept.
+  const { pdMax, rthJA, tjMax } = fields;
+  if (pdMax && rthJA && tjMax && (pdMax.ocr || rthJA.ocr) && !/\bT\s*(?:L|C|S|SP|lead|case|sold)/i.test(pdMax.text)) {
+    const ambient = Number(/\bT\s*(?:A|amb)\w*\s*[=≤]\s*(\d+)/i.exec(pdMax.text)?.[1] ?? 25);
+    const expected = (tjMax.si - ambient) / rthJA.si;
+    const ratio = pdMax.si / expected;
+    if (!(expected > 0) || ratio < 0.6 || ratio > 1 / 0.6) {
+      if (pdMax.ocr) bad.add('pdMax');
+      if (rthJA.ocr) bad.add('rthJA');
+    }
+  }
+  // Currents in order: knee < test ≤ maximum, and the test current's power IZT × VZ within the
+  // rating (common practice for regulator diodes, no source). "3,5 mA" read as "35" breaks them.
+  const { izk, izt, izm } = fields;
+  const outOfOrder = (low: typeof izt, high: typeof izt, strict: boolean) =>
+    low && high && (low.ocr || high.ocr) && (strict ? low.si >= high.si : low.si > high.si);
+  if (outOfOrder(izk, izt, true)) for (const f of ['izk', 'izt'] as const) if (fields[f]!.ocr) bad.add(f);
+  if (outOfOrder(izt, izm, false)) for (const f of ['izt', 'izm'] as const) if (fields[f]!.ocr) bad.add(f);
+  const vzAt = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
+  if (izt?.ocr && vzAt !== undefined && pdMax && !bad.has('pdMax') && izt.si * vzAt > pdMax.si) bad.add('izt');
   const ordered = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
   for (let i = 1; i < ordered.length; i++) {
     if (fields[ordered[i - 1]]!.si > fields[ordered[i]]!.si) {
@@ -161,7 +192,17 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     }
     const shapes = new Map<string, number>();
     for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
-    if (shapes.has(shapeOf(m))) continue;
+    // A separator lost or gained ("VPK270" beside VPK-180, VPK-200, VPK-220, …): the series' usual
+    // shape but for a hyphen, held by fewer parts than that shape. Several parts may share the
+    // misreading, so this is asked before "another part has my shape".
+    const own = shapeOf(m);
+    const bare = (shape: string) => shape.replace(/[-\s./]/g, '');
+    const mine = (shapes.get(own) ?? 0) + 1;
+    if ([...shapes.entries()].some(([shape, n]) => shape !== own && n >= 3 && n > mine && bare(shape) === bare(own))) {
+      out.push(m);
+      continue;
+    }
+    if (shapes.has(own)) continue;
     // Plain numbers and letter-for-point codes live side by side in a series (10 / 5V1): only a shape that
     // differs from a common one by one character inserted inside it is a misreading.
     const dominant = [...shapes.entries()].find(([shape, n]) => n >= 3 && shape.length === shapeOf(m).length - 1);

@@ -101,6 +101,40 @@ describe('plausibility of OCR voltages', () => {
     expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(-5.3), izt: a(-0.005), tc: tc(-0.002) }).sort()).toEqual(['izt', 'vr']);
     expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(5.3), izt: a(0.005) })).toEqual([]);
   });
+
+  it('drops a figure printed with a leading zero and no separator (a decimal comma the scan lost: "05" for 0,5 µA)', () => {
+    const ua = (value: string, si: number) => ({ value, unit: 'uA', si, page: 1, text: '', ocr: true });
+    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('05', 5e-6) })).toEqual(['irMax']);
+    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('0,5', 5e-7) })).toEqual([]);
+    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('0', 0) })).toEqual([]);
+  });
+
+  it('drops the power rating and thermal resistance when they disagree with Tj max: Pd = (Tj max − TA) / RthJA (common practice, no source)', () => {
+    const q = (si: number, unit: string, text = '') => ({ value: String(si), unit, si, page: 1, text, ocr: true });
+    // (150 − 25) °C / 63 K/W = 1.98 W: 2 W fits, 1 W (a "2" misread) does not.
+    const fields = (pd: number, text = 'Total power dissipation, Ptot (TA = 25 °C)') => ({
+      pdMax: q(pd, 'W', text),
+      rthJA: q(63, '°C/W'),
+      tjMax: q(150, '°C'),
+    });
+    expect(implausibleVoltages('TM-082', fields(2))).toEqual([]);
+    expect(implausibleVoltages('TM-082', fields(1)).sort()).toEqual(['pdMax', 'rthJA']);
+    expect(implausibleVoltages('TM-082', fields(20)).sort()).toEqual(['pdMax', 'rthJA']);
+    // At TA = 50 °C: (150 − 50) / 63 = 1.59 W.
+    expect(implausibleVoltages('TM-082', fields(1.6, 'Ptot at TA = 50 °C'))).toEqual([]);
+    // Rated at the lead or case temperature: RthJA does not bound it; nor is it bounded without Tj max.
+    expect(implausibleVoltages('TM-082', fields(5, 'Ptot (TL = 75 °C)'))).toEqual([]);
+  });
+
+  it('drops currents out of order (IZK < IZT ≤ IZM) and a test current whose power IZT × VZ exceeds the rating (common practice, no source)', () => {
+    const q = (si: number, unit: string) => ({ value: String(si), unit, si, page: 1, text: '', ocr: true });
+    const ma = (x: number) => q(x / 1000, 'mA');
+    // 36 V at 3.5 mA is 126 mW of a 500 mW part; "35" mA would be 1.26 W.
+    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(1), izm: ma(13), pdMax: q(0.5, 'W') })).toEqual([]);
+    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(35), pdMax: q(0.5, 'W') })).toEqual(['izt']);
+    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(35), izm: ma(13) }).sort()).toEqual(['izm', 'izt']);
+    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(5) }).sort()).toEqual(['izk', 'izt']);
+  });
 });
 
 describe('merging the block and sparse readings of a page', () => {
@@ -136,6 +170,13 @@ describe('part numbers misread by OCR', () => {
     expect(misreadPartNumbers(['KJM33', 'KJM36', 'KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
     expect(misreadPartNumbers(['KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
     expect(misreadPartNumbers(['KPB12', 'KPB13', 'KPB15', 'KJM39', 'KJM43', 'KJM47'])).toEqual([]);
+  });
+
+  it("leaves out part numbers that lost their series' hyphen, even when several lost it alike", () => {
+    const read = ['VPK-180', 'VPK-200', 'VPK-220', 'VPK-240', 'VPK270', 'VPK-300', 'VPK330', 'VPK360', 'VPK-390', 'VPK-430'];
+    expect(misreadPartNumbers(read)).toEqual(['VPK270', 'VPK330', 'VPK360']);
+    // Half and half: which is the series' own shape is not known, nothing is left out.
+    expect(misreadPartNumbers(['VPK-180', 'VPK-200', 'VPK-220', 'VPK240', 'VPK270', 'VPK300'])).toEqual([]);
   });
 
   it('keeps series that mix plain numbers with letter-for-point codes, and series too small to judge', () => {
