@@ -78,6 +78,18 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     expect(result.warnings.join(' ')).toMatch(/legend of the letters for KRV20/);
   });
 
+  it('mends a part number read with a small letter shaped like its capital, and leaves out one misread otherwise', async () => {
+    const more = [
+      line(700, [250, 'XQ6v8A']),
+      line(750, [250, 'Zener voltage, VZ ..........'], [1400, '6.8 V']),
+      line(800, [250, 'XQ7l5A']),
+      line(850, [250, 'Zener voltage, VZ ..........'], [1400, '7.5 V']),
+    ];
+    const result = await extractWithOcr(scanned, { engine: engineReading([...block, ...more]), dpi: 300, maxOcrPages: 5 });
+    expect(result.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A', 'XQ6V8A']);
+    expect(result.warnings.join(' ')).toMatch(/XQ7l5A: .*small letters among capitals/);
+  });
+
   it('turns a page that reads as noise and reads it the way it reads best (a table scanned sideways)', async () => {
     const noise = [line(400, [250, '~ = © o'])];
     const calls: string[] = [];

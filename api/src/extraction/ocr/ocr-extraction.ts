@@ -6,6 +6,7 @@ import { pageLines } from '../text-layout';
 import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
 import type { OcrEngine } from './ocr-engine';
 import { ocrPages } from './page-ocr';
+import { capitalised, detachedPoint, seriesOutliers } from './series-checks';
 
 /**
  * The whole reading of one file: the text layer where there is one, OCR for the pages that
@@ -120,9 +121,9 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
   const vz = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
   if (fields.tc?.ocr && (vz === undefined || Math.abs(fields.tc.si) > 0.0015 * vz)) bad.add('tc');
   // A figure printed with a leading zero and no separator ("05" for 0,5 µA) is a decimal comma or
-  // point the scan lost: ten times too large, or more.
+  // point the scan lost: ten times too large, or more. So may be one with a lone point before it.
   for (const [f, v] of Object.entries(fields) as [ExtractionField, ExtractedVariant['fields'][ExtractionField]][]) {
-    if (v?.ocr && /^[+\-−]?0\d/.test(v.value)) bad.add(f);
+    if (v?.ocr && (/^[+\-−]?0\d/.test(v.value) || detachedPoint(v))) bad.add(f);
   }
   // The power rating at an ambient temperature is the junction's headroom over the thermal
   // resistance, Pd = (Tj max − TA) / RthJA (common practice for regulator-diode ratings, no
@@ -258,12 +259,34 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading
     pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
   };
   const result = extractRatings(merged);
-  const checked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
-  const misread = misreadPartNumbers(checked.filter((v) => Object.values(v.fields).some((f) => f.ocr)).map((v) => v.mpn));
+  const marked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
+  const isOcr = (v: ExtractedVariant) => Object.values(v.fields).some((f) => f.ocr);
+  // Small letters among capitals: mended where the letter has the capital's shape, else a misreading.
+  const names = marked.map((v) => v.mpn);
+  const checked: ExtractedVariant[] = [];
+  for (const v of marked) {
+    const mended = isOcr(v) && /\p{Ll}/u.test(v.mpn) ? capitalised(v.mpn, names) : undefined;
+    if (mended === undefined) checked.push(v);
+    else if (mended === null)
+      warnings.push(`${v.mpn}: this part number read by OCR has small letters among capitals (a misread character?); its values are left out, check the page.`);
+    else if (names.includes(mended)) warnings.push(`${v.mpn}: read by OCR as well as ${mended}; left out, check the page.`);
+    else checked.push({ ...v, mpn: mended });
+  }
+  const misread = misreadPartNumbers(checked.filter(isOcr).map((v) => v.mpn));
   for (const mpn of misread) {
     warnings.push(`${mpn}: this part number read by OCR is unlike the others of its series (a misread character?); its values are left out, check the page.`);
   }
   let variants = checked.filter((v) => !misread.includes(v.mpn));
+  // Figures no neighbour in the series comes near (a separator lost on one row).
+  const outliers = seriesOutliers(variants);
+  variants = variants.flatMap((v) => {
+    const off = outliers.get(v.mpn);
+    if (!off) return [v];
+    warnings.push(`${v.mpn}: ${off.join(', ')} read by OCR far from the other parts of the series; left empty, check the page.`);
+    const fields = { ...v.fields };
+    for (const f of off) delete fields[f];
+    return Object.keys(fields).length ? [{ ...v, fields }] : [];
+  });
   // A scanned page that says the tolerance is a letter after the part number: an OCR'd part with
   // no VZ limits, printed or derived from a letter, is one the legend did not expand (a legend OCR
   // could not read, or read only for another series: "C %" with its figure lost), a base number

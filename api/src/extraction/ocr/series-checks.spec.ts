@@ -1,0 +1,63 @@
+import type { ExtractedVariant } from '@shuntwise/contracts';
+import { capitalised, detachedPoint, seriesOutliers } from './series-checks';
+
+/**
+ * The OCR checks that read a value against the other parts of its series. Part numbers and
+ * values are invented; how such series run is common practice for regulator diodes (no source):
+ * test current, leakage and impedances change by a few times at most from one part to the next,
+ * and plain-number series print VZ as the part number's digits.
+ */
+
+type Fields = ExtractedVariant['fields'];
+const q = (si: number, ocr = true) => ({ value: String(si), unit: '', si, page: 1, text: '', ocr });
+const part = (mpn: string, vz: number, extra: Partial<Record<keyof Fields, number>> = {}): ExtractedVariant =>
+  ({ mpn, fields: { vzNom: q(vz), ...Object.fromEntries(Object.entries(extra).map(([k, v]) => [k, q(v!)])) } }) as ExtractedVariant;
+
+describe('OCR figures against their series', () => {
+  it('leaves out a figure ten times off both neighbours by VZ ("3,5 mA" read as 35)', () => {
+    const series = [
+      part('RXNX-300', 30, { izt: 0.0035, irMax: 1e-7 }),
+      part('RXNX-330', 33, { izt: 0.0035, irMax: 1e-7 }),
+      part('RXNX-360', 36, { izt: 0.035, irMax: 1e-7 }),
+      part('RXNX-390', 39, { izt: 0.0035, irMax: 1e-7 }),
+    ];
+    expect(Object.fromEntries(seriesOutliers(series))).toEqual({ 'RXNX-360': ['izt'] });
+  });
+
+  it('judges a part at the end of a series by its two nearest, and keeps a series whose figure steps gradually', () => {
+    const end = [part('QD-10', 10, { irMax: 5e-6 }), part('QD-12', 12, { irMax: 5e-7 }), part('QD-15', 15, { irMax: 5e-7 })];
+    expect(Object.fromEntries(seriesOutliers(end))).toEqual({ 'QD-10': ['irMax'] });
+    // Leakage falling 100, 50, 10, 3, 1 µA over the series (steps of up to 5×) is no outlier.
+    const falling = [2.4, 3.3, 4.7, 5.6, 6.8].map((vz, i) => part(`QE${vz}`, vz, { irMax: [1e-4, 5e-5, 1e-5, 3e-6, 1e-6][i] }));
+    expect(seriesOutliers(falling).size).toBe(0);
+    // Values of a text layer (not OCR'd) are never judged here.
+    const printed = [part('QF-10', 10), part('QF-12', 12), part('QF-15', 15)].map((v, i) => ({
+      ...v,
+      fields: { ...v.fields, izt: q([0.02, 0.2, 0.02][i], false) },
+    }));
+    expect(seriesOutliers(printed).size).toBe(0);
+  });
+
+  it('leaves out a nominal VZ that is not the digits of its part number where the series prints VZ so', () => {
+    const series = [part('TM-082', 7.79), part('TM-091', 9.1), part('TM-100', 10)];
+    expect(Object.fromEntries(seriesOutliers(series))).toEqual({ 'TM-082': ['vzNom'] });
+    // A series that does not code VZ in its numbers is not judged by them.
+    expect(seriesOutliers([part('KX-101', 7.5), part('KX-102', 8.2), part('KX-103', 9.1)]).size).toBe(0);
+  });
+});
+
+describe('OCR text around a figure', () => {
+  it('doubts a figure with a lone point before it (". 15W" for 1.5 W), not one after a leader or inside a number', () => {
+    expect(detachedPoint({ value: '15', text: 'Power dissipation, PD (TA = 25 °C) . 15W' })).toBe(true);
+    expect(detachedPoint({ value: '1.5', text: 'Power dissipation, PD (TA = 25 °C) ........ 1.5 W' })).toBe(false);
+    expect(detachedPoint({ value: '5', text: 'IR at VR = 3.5 V' })).toBe(false);
+  });
+
+  it('mends small letters shaped like their capitals in a part number among capitals, and gives up on others', () => {
+    expect(capitalised('FjJF300', ['FJJF330', 'FSDT330', 'FSDT360'])).toBe('FJJF300');
+    expect(capitalised('FlJF300', ['FJJF330', 'FSDT330', 'FSDT360'])).toBeNull();
+    expect(capitalised('FJJF300', ['FJJF330', 'FSDT330'])).toBeUndefined();
+    // Too few capital part numbers beside it to judge.
+    expect(capitalised('Zq-5v1', ['Zq-5v6', 'ZQ-6V2'])).toBeUndefined();
+  });
+});

@@ -1,0 +1,102 @@
+import type { ExtractedValue, ExtractedVariant, ExtractionField } from '@shuntwise/contracts';
+import { seriesLetters } from '../part-numbers';
+
+/**
+ * Checks of OCR'd values against the other parts of their series: a scan that loses a decimal
+ * separator ("3,5 mA" read as 35, "0,5 µA" as 5) or misreads a digit of one row leaves a figure
+ * that no neighbour in the series comes near, though the figure alone is plausible. Pure: the
+ * variants in, the fields to leave out per part number back.
+ */
+
+/**
+ * Fields that change smoothly from one part of a series to the next by VZ (common practice for
+ * regulator-diode series, no source): test and knee currents, leakage and its test voltage,
+ * impedances, and the ratings shared by the series. Between adjacent parts they change by a few
+ * times at most; a lost separator changes a figure ten times. Left out: the coefficient (it
+ * changes sign near 5 V) and the maximum current (it falls as 1/VZ over the series).
+ */
+const SMOOTH: readonly ExtractionField[] = ['izt', 'izk', 'irMax', 'vr', 'zzt', 'zzk', 'pdMax', 'tjMax', 'rthJA'];
+/** A figure this many times above or below both of its neighbours (or the two nearest on its only side) is not believed. */
+const JUMP = 7;
+
+/** The significant digits of a number: 8.2 → "82", 10 → "1", 0.33 → "33". */
+function digitsOf(n: number): string {
+  return String(n)
+    .replace(/[.\-+]/g, '')
+    .replace(/^0+/, '')
+    .replace(/0+$/, '');
+}
+
+/** The number a part number ends with ("TM-082" → "082"), when it ends with one of two to four digits. */
+function trailingNumber(mpn: string): string | undefined {
+  return /(?:^|[^\d])(\d{2,4})$/.exec(mpn)?.[1];
+}
+
+/**
+ * Per part number, the OCR'd fields its series says cannot be right:
+ * - a smooth field (SMOOTH) JUMP times off both neighbours by VZ;
+ * - a nominal VZ whose digits are not those the part number ends with, in a series whose other
+ *   parts (two or more) print VZ as their number's digits ("TM-082" is 8.2 V beside TM-091 at
+ *   9.1 V and TM-100 at 10 V; common practice for plain-number series, no source).
+ */
+export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<string, ExtractionField[]> {
+  const out = new Map<string, ExtractionField[]>();
+  const flag = (mpn: string, field: ExtractionField) => out.set(mpn, [...(out.get(mpn) ?? []).filter((f) => f !== field), field]);
+  const bySeries = new Map<string, ExtractedVariant[]>();
+  for (const v of variants) bySeries.set(seriesLetters(v.mpn), [...(bySeries.get(seriesLetters(v.mpn)) ?? []), v]);
+  for (const series of bySeries.values()) {
+    if (series.length < 3) continue;
+    // In VZ order where VZ is known, else in the order read.
+    const ordered = series.map((v, i) => ({ v, key: v.fields.vzNom?.si ?? v.fields.vzMax?.si ?? v.fields.vzMin?.si, i }));
+    const known = ordered.filter((o) => o.key !== undefined);
+    const sorted = known.length === ordered.length ? [...ordered].sort((a, b) => a.key! - b.key! || a.i - b.i) : ordered;
+    for (const field of SMOOTH) {
+      const holding = sorted.filter((o) => o.v.fields[field] !== undefined && o.v.fields[field]!.si > 0);
+      if (holding.length < 3) continue;
+      holding.forEach((o, k) => {
+        const value = o.v.fields[field]!;
+        if (!value.ocr) return;
+        const before = holding.slice(0, k).reverse();
+        const after = holding.slice(k + 1);
+        const near = before.length && after.length ? [before[0], after[0]] : (before.length ? before : after).slice(0, 2);
+        if (near.length < 2) return;
+        const ratios = near.map((n) => value.si / n.v.fields[field]!.si);
+        if (ratios.every((r) => r >= JUMP) || ratios.every((r) => r <= 1 / JUMP)) flag(o.v.mpn, field);
+      });
+    }
+    // VZ as the part number's digits.
+    const coded = series.map((v) => ({ v, code: trailingNumber(v.mpn), nom: v.fields.vzNom }));
+    const agrees = (c: (typeof coded)[number]) => c.code !== undefined && c.nom !== undefined && digitsOf(Number(c.code)) === digitsOf(c.nom.si);
+    for (const c of coded) {
+      if (!c.nom?.ocr || c.code === undefined || agrees(c)) continue;
+      const others = coded.filter((o) => o !== c && o.nom !== undefined && o.code !== undefined);
+      if (others.length >= 2 && others.every(agrees)) flag(c.v.mpn, 'vzNom');
+    }
+  }
+  return out;
+}
+
+/**
+ * A value with a lone point just before it on its OCR'd line (". 15W" for 1.5 W): the decimal
+ * point of the figure, read apart from it, or a leader's last dot; which one is not known.
+ */
+export function detachedPoint(value: Pick<ExtractedValue, 'value' | 'text'>): boolean {
+  const escaped = value.value.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  return new RegExp(`(?:^|[^.])\\.\\s+${escaped}(?![\\d.,])`).test(value.text);
+}
+
+/** Letters whose small and capital forms differ only in size, which OCR confuses on a scan. */
+const SAME_SHAPE = /[cjkopsuvwxz]/g;
+
+/**
+ * An OCR'd part number with small letters among parts printed in capitals ("FjJF300" beside
+ * FJJF330, FSDT330): capitals where the small letter has the capital's shape; null when a small
+ * letter of another shape is left (a misreading of some other kind); undefined when the part
+ * number has no small letter or too few other parts are printed in capitals to judge.
+ */
+export function capitalised(mpn: string, others: readonly string[]): string | null | undefined {
+  if (!/\p{Ll}/u.test(mpn)) return undefined;
+  if (others.filter((o) => o !== mpn && /\p{Lu}/u.test(o) && !/\p{Ll}/u.test(o)).length < 2) return undefined;
+  const mended = mpn.replace(SAME_SHAPE, (c) => c.toUpperCase());
+  return /\p{Ll}/u.test(mended) ? null : mended;
+}
