@@ -41,6 +41,11 @@ describe('OCR figures against their series', () => {
   it('leaves out a nominal VZ that is not the digits of its part number where the series prints VZ so', () => {
     const series = [part('TM-082', 7.79), part('TM-091', 9.1), part('TM-100', 10)];
     expect(Object.fromEntries(seriesOutliers(series))).toEqual({ 'TM-082': ['vzNom'] });
+    // Limits and the leakage test voltage that lost their decimal comma ("20,9" read as 209, "15,4" as 154).
+    const limits = (mpn: string, min: number, max: number, vr?: number): ExtractedVariant =>
+      ({ mpn, fields: { vzMin: q(min), vzMax: q(max), ...(vr !== undefined ? { vr: q(vr) } : {}) } }) as ExtractedVariant;
+    const tkv = [limits('TKV22', 209, 23.1, 154), limits('TKV27', 25.7, 28.4, 18.9), limits('TKV30', 28.5, 31.5, 21), part('TKV33', 33)];
+    expect(Object.fromEntries(seriesOutliers(tkv))).toEqual({ TKV22: ['vzMin', 'vr'] });
     // A series that does not code VZ in its numbers is not judged by them.
     expect(seriesOutliers([part('KX-101', 7.5), part('KX-102', 8.2), part('KX-103', 9.1)]).size).toBe(0);
   });

@@ -27,6 +27,25 @@ function digitsOf(n: number): string {
     .replace(/0+$/, '');
 }
 
+/**
+ * The factor that turns a series' trailing numbers into its nominal VZ (1 for "TKV27" = 27 V, 0.1
+ * for "TM-082" = 8.2 V), when two parts or more, and two thirds of those with a VZ, agree on one.
+ */
+function codeScale(coded: ReadonlyArray<{ v: ExtractedVariant; code: string }>): number | undefined {
+  const withVz = coded.filter(({ v }) => v.fields.vzNom ?? v.fields.vzMin ?? v.fields.vzMax);
+  let best: { scale: number; n: number } | undefined;
+  for (const scale of [0.01, 0.1, 1, 10]) {
+    const n = withVz.filter(({ v, code }) => {
+      const expected = Number(code) * scale;
+      const { vzNom, vzMin, vzMax } = v.fields;
+      if (vzNom) return digitsOf(vzNom.si) === digitsOf(Number(code)) && Math.abs(vzNom.si - expected) < 1e-9 * expected + 1e-12;
+      return [vzMin, vzMax].every((f) => !f || Math.abs(f.si - expected) <= 0.1 * expected);
+    }).length;
+    if (!best || n > best.n) best = { scale, n };
+  }
+  return best && best.n >= 2 && best.n >= (2 / 3) * withVz.length ? best.scale : undefined;
+}
+
 /** The number a part number ends with ("TM-082" → "082"), when it ends with one of two to four digits. */
 function trailingNumber(mpn: string): string | undefined {
   return /(?:^|[^\d])(\d{2,4})$/.exec(mpn)?.[1];
@@ -35,9 +54,10 @@ function trailingNumber(mpn: string): string | undefined {
 /**
  * Per part number, the OCR'd fields its series says cannot be right:
  * - a smooth field (SMOOTH) JUMP times off both neighbours by VZ;
- * - a nominal VZ whose digits are not those the part number ends with, in a series whose other
- *   parts (two or more) print VZ as their number's digits ("TM-082" is 8.2 V beside TM-091 at
- *   9.1 V and TM-100 at 10 V; common practice for plain-number series, no source).
+ * - in a series that prints VZ as its part numbers' digits ("TM-082" is 8.2 V beside TM-091 at
+ *   9.1 V and TM-100 at 10 V; common practice for plain-number series, no source): a nominal VZ
+ *   that is not the part's digits, limits more than 25 % from them, a leakage test voltage at or
+ *   above them ("20,9 V" read as 209 V, "15,4" as 154).
  */
 export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<string, ExtractionField[]> {
   const out = new Map<string, ExtractionField[]>();
@@ -64,13 +84,25 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
         if (ratios.every((r) => r >= JUMP) || ratios.every((r) => r <= 1 / JUMP)) flag(o.v.mpn, field);
       });
     }
-    // VZ as the part number's digits.
-    const coded = series.map((v) => ({ v, code: trailingNumber(v.mpn), nom: v.fields.vzNom }));
-    const agrees = (c: (typeof coded)[number]) => c.code !== undefined && c.nom !== undefined && digitsOf(Number(c.code)) === digitsOf(c.nom.si);
-    for (const c of coded) {
-      if (!c.nom?.ocr || c.code === undefined || agrees(c)) continue;
-      const others = coded.filter((o) => o !== c && o.nom !== undefined && o.code !== undefined);
-      if (others.length >= 2 && others.every(agrees)) flag(c.v.mpn, 'vzNom');
+    // VZ as the part number's digits, at the scale the series' own parts show ("TKV27" at 27 V,
+    // "TM-082" at 8.2 V): learnt from the parts whose nominal VZ is exactly their digits, or whose
+    // VZ limits sit within 10 % around them, when two thirds of the series (two parts or more)
+    // agree on one scale.
+    const coded = series.map((v) => ({ v, code: trailingNumber(v.mpn) })).filter((c): c is { v: ExtractedVariant; code: string } => c.code !== undefined);
+    const scale = codeScale(coded);
+    if (scale === undefined) continue;
+    for (const { v, code } of coded) {
+      const expected = Number(code) * scale;
+      const off = (field: ExtractionField, share: number) => {
+        const value = v.fields[field];
+        if (value?.ocr && Math.abs(value.si - expected) > share * expected) flag(v.mpn, field);
+      };
+      const nom = v.fields.vzNom;
+      if (nom?.ocr && digitsOf(nom.si) !== digitsOf(Number(code))) flag(v.mpn, 'vzNom');
+      off('vzMin', 0.25);
+      off('vzMax', 0.25);
+      // The leakage test voltage lies below the breakdown voltage (common practice, no source).
+      if (v.fields.vr?.ocr && v.fields.vr.si >= expected) flag(v.mpn, 'vr');
     }
   }
   return out;
