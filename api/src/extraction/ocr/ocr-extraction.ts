@@ -112,8 +112,9 @@ export function implausibleVoltages(mpn: string, fields: ExtractedVariant['field
     }
   }
   // The reverse (stand-off) voltage of a leakage test lies below the breakdown voltage (common practice, no source).
-  const vzLow = fields.vzMin ?? fields.vzNom;
-  if (fields.vr?.ocr && vzLow && fields.vr.si >= vzLow.si) bad.add('vr');
+  // Without a VZ read, the one coded in the part number bounds it ("UR = 5.7 V" read as 57 V for an 8V2 part).
+  const vzLow = fields.vzMin?.si ?? fields.vzNom?.si ?? coded;
+  if (fields.vr?.ocr && vzLow !== undefined && fields.vr.si >= vzLow) bad.add('vr');
   // A regulator diode's coefficient stays within about ±0.15 %/K of VZ (common practice, no source): a
   // larger one is a decimal point the scan lost.
   // Without a VZ (read, or coded in the part number) nothing bounds it, and a decimal comma the

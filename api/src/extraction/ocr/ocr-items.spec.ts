@@ -84,6 +84,9 @@ describe('plausibility of OCR voltages', () => {
     expect(implausibleVoltages('BRZ05-7V5', { vzNom: v(7.5), vr: v(53) })).toEqual(['vr']);
     expect(implausibleVoltages('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
     expect(implausibleVoltages('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), vr: v(2) })).toEqual([]);
+    // No VZ read: the voltage coded in the part number bounds VR.
+    expect(implausibleVoltages('SCA-8V2', { vr: v(57) })).toEqual(['vr']);
+    expect(implausibleVoltages('SCA-8V2', { vr: v(5.7) })).toEqual([]);
   });
 
   it('drops a temperature coefficient beyond ±0.15 %/K of VZ', () => {

@@ -46,6 +46,14 @@ describe('OCR figures against their series', () => {
       ({ mpn, fields: { vzMin: q(min), vzMax: q(max), ...(vr !== undefined ? { vr: q(vr) } : {}) } }) as ExtractedVariant;
     const tkv = [limits('TKV22', 209, 23.1, 154), limits('TKV27', 25.7, 28.4, 18.9), limits('TKV30', 28.5, 31.5, 21), part('TKV33', 33)];
     expect(Object.fromEntries(seriesOutliers(tkv))).toEqual({ TKV22: ['vzMin', 'vr'] });
+    // No part read well enough to show the scale: E24 numbers still code VZ in volts or tenths (IEC 60063 E24, from memory).
+    const lost = [limits('TKV22', 209, 231), limits('TKV27', 257, 28.4, 189), limits('TKV30', 28.5, 315), limits('TKV33', 313, 347)];
+    expect(Object.fromEntries(seriesOutliers(lost))).toEqual({
+      TKV22: ['vzMin', 'vzMax'],
+      TKV27: ['vzMin', 'vr'],
+      TKV30: ['vzMax'],
+      TKV33: ['vzMin', 'vzMax'],
+    });
     // A series that does not code VZ in its numbers is not judged by them.
     expect(seriesOutliers([part('KX-101', 7.5), part('KX-102', 8.2), part('KX-103', 9.1)]).size).toBe(0);
   });

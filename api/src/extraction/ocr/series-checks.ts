@@ -1,4 +1,5 @@
 import type { ExtractedValue, ExtractedVariant, ExtractionField } from '@shuntwise/contracts';
+import { E24 } from '../../engineering/e-series';
 import { seriesLetters } from '../part-numbers';
 
 /**
@@ -46,6 +47,13 @@ function codeScale(coded: ReadonlyArray<{ v: ExtractedVariant; code: string }>):
   return best && best.n >= 2 && best.n >= (2 / 3) * withVz.length ? best.scale : undefined;
 }
 
+/** Whether a part number's trailing number is an E24 value at some decade ("22", "082", "100", "560"). */
+function isE24(code: string): boolean {
+  const digits = digitsOf(Number(code));
+  const mantissa = Number(`${digits[0]}.${digits.slice(1) || '0'}`);
+  return digits.length <= 2 && E24.some((e) => Math.abs(e - mantissa) < 1e-9);
+}
+
 /** The number a part number ends with ("TM-082" → "082"), when it ends with one of two to four digits. */
 function trailingNumber(mpn: string): string | undefined {
   return /(?:^|[^\d])(\d{2,4})$/.exec(mpn)?.[1];
@@ -90,7 +98,22 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
     // agree on one scale.
     const coded = series.map((v) => ({ v, code: trailingNumber(v.mpn) })).filter((c): c is { v: ExtractedVariant; code: string } => c.code !== undefined);
     const scale = codeScale(coded);
-    if (scale === undefined) continue;
+    if (scale === undefined) {
+      // No part read well enough to show the scale, but every number of the series (three or
+      // more) is an E24 value, the voltages regulator diodes are made in (IEC 60063, from memory):
+      // the numbers code VZ in volts or tenths of a volt ("22" 22 V, "082" 8.2 V, "100" 10 V),
+      // and an OCR'd VZ near neither, or a test voltage above both, lost a separator.
+      if (coded.length < 3 || !coded.every(({ code }) => isE24(code))) continue;
+      for (const { v, code } of coded) {
+        const ends = [Number(code), Number(code) / 10];
+        for (const field of ['vzMin', 'vzNom', 'vzMax'] as const) {
+          const value = v.fields[field];
+          if (value?.ocr && !ends.some((e) => Math.abs(value.si - e) <= 0.25 * e)) flag(v.mpn, field);
+        }
+        if (v.fields.vr?.ocr && v.fields.vr.si >= Number(code)) flag(v.mpn, 'vr');
+      }
+      continue;
+    }
     for (const { v, code } of coded) {
       const expected = Number(code) * scale;
       const off = (field: ExtractionField, share: number) => {
