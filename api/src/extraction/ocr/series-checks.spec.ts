@@ -54,6 +54,9 @@ describe('OCR figures against their series', () => {
       TKV30: ['vzMax'],
       TKV33: ['vzMin', 'vzMax'],
     });
+    // Two parts whose figures all lost the comma alike agree on "ten volts a unit": no such scale.
+    const alike = [limits('TKV22', 209, 231), limits('TKV24', 228, 252), { mpn: 'TKV27', fields: { tjMax: q(423) } } as ExtractedVariant];
+    expect(Object.fromEntries(seriesOutliers(alike))).toEqual({ TKV22: ['vzMin', 'vzMax'], TKV24: ['vzMin', 'vzMax'] });
     // A series that does not code VZ in its numbers is not judged by them.
     expect(seriesOutliers([part('KX-101', 7.5), part('KX-102', 8.2), part('KX-103', 9.1)]).size).toBe(0);
   });

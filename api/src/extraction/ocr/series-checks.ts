@@ -35,8 +35,11 @@ function digitsOf(n: number): string {
 function codeScale(coded: ReadonlyArray<{ v: ExtractedVariant; code: string }>): number | undefined {
   const withVz = coded.filter(({ v }) => v.fields.vzNom ?? v.fields.vzMin ?? v.fields.vzMax);
   let best: { scale: number; n: number } | undefined;
-  for (const scale of [0.01, 0.1, 1, 10]) {
+  // Never ten volts a unit: figures that all lost their decimal comma alike ("20,9" as 209 beside
+  // "31,5" as 315) would otherwise agree on it. A number with a leading zero is never whole volts.
+  for (const scale of [0.01, 0.1, 1]) {
     const n = withVz.filter(({ v, code }) => {
+      if (scale === 1 && code.startsWith('0')) return false;
       const expected = Number(code) * scale;
       const { vzNom, vzMin, vzMax } = v.fields;
       if (vzNom) return digitsOf(vzNom.si) === digitsOf(Number(code)) && Math.abs(vzNom.si - expected) < 1e-9 * expected + 1e-12;
@@ -105,7 +108,7 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
       // and an OCR'd VZ near neither, or a test voltage above both, lost a separator.
       if (coded.length < 3 || !coded.every(({ code }) => isE24(code))) continue;
       for (const { v, code } of coded) {
-        const ends = [Number(code), Number(code) / 10];
+        const ends = code.startsWith('0') ? [Number(code) / 10] : [Number(code), Number(code) / 10];
         for (const field of ['vzMin', 'vzNom', 'vzMax'] as const) {
           const value = v.fields[field];
           if (value?.ocr && !ends.some((e) => Math.abs(value.si - e) <= 0.25 * e)) flag(v.mpn, field);
