@@ -78,7 +78,7 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
     }
   }
   if (!fromOcr) return variant;
-  const dropped = implausibleVoltages(variant.mpn, fields);
+  const dropped = implausibleValues(variant.mpn, fields);
   for (const f of dropped) delete fields[f];
   if (dropped.length) {
     warnings.push(`${variant.mpn}: ${dropped.join(', ')} read by OCR did not agree with the other voltages or the part number; left empty, check the page.`);
@@ -95,7 +95,7 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
  * voltage coded in a regulator part number (…5V1 = 5.1 V) must be within 10 %
  * of the VZ read (common practice for regulator-diode part numbering, no source).
  */
-export function implausibleVoltages(mpn: string, fields: ExtractedVariant['fields']): ExtractionField[] {
+export function implausibleValues(mpn: string, fields: ExtractedVariant['fields']): ExtractionField[] {
   const vzRead = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f]?.ocr);
   const coded = codedVoltage(mpn);
   const bad = new Set<ExtractionField>();
@@ -294,7 +294,7 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading
   // the vendor does not sell as such. (A part expanded while its VZnom was unreadable goes too.)
   const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
   if (legendPage !== undefined) {
-    const bases = variants.filter((v) => Object.values(v.fields).some((f) => f.ocr) && !v.fields.vzMin && !v.fields.vzMax);
+    const bases = variants.filter((v) => isOcr(v) && !v.fields.vzMin && !v.fields.vzMax);
     if (bases.length) {
       warnings.push(
         `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters for ${bases.map((v) => v.mpn).join(', ')}; they are left out (their full part numbers are not known). Enter them by hand.`,

@@ -1,5 +1,5 @@
 import { mergeReadings, type OcrLine, type OcrWord } from './ocr-engine';
-import { codedVoltage, implausibleVoltages, misreadPartNumbers } from './ocr-extraction';
+import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
 import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
 
 /**
@@ -80,36 +80,36 @@ describe('plausibility of OCR voltages', () => {
   });
 
   it('drops a VZ that lost its decimal point, a VR above VZ and an out-of-order VZ set', () => {
-    expect(implausibleVoltages('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(51), vzMax: v(5.36) })).toEqual(['vzNom']);
-    expect(implausibleVoltages('BRZ05-7V5', { vzNom: v(7.5), vr: v(53) })).toEqual(['vr']);
-    expect(implausibleVoltages('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
-    expect(implausibleVoltages('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), vr: v(2) })).toEqual([]);
+    expect(implausibleValues('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(51), vzMax: v(5.36) })).toEqual(['vzNom']);
+    expect(implausibleValues('BRZ05-7V5', { vzNom: v(7.5), vr: v(53) })).toEqual(['vr']);
+    expect(implausibleValues('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
+    expect(implausibleValues('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), vr: v(2) })).toEqual([]);
     // No VZ read: the voltage coded in the part number bounds VR.
-    expect(implausibleVoltages('SCA-8V2', { vr: v(57) })).toEqual(['vr']);
-    expect(implausibleVoltages('SCA-8V2', { vr: v(5.7) })).toEqual([]);
+    expect(implausibleValues('SCA-8V2', { vr: v(57) })).toEqual(['vr']);
+    expect(implausibleValues('SCA-8V2', { vr: v(5.7) })).toEqual([]);
   });
 
   it('drops a temperature coefficient beyond ±0.15 %/K of VZ', () => {
     const tc = (si: number) => ({ value: '', unit: 'mV/°C', si, page: 1, text: '', ocr: true });
-    expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
-    expect(implausibleVoltages('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
+    expect(implausibleValues('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.014) })).toEqual(['tc']);
+    expect(implausibleValues('BRZ05-3V6', { vzNom: v(3.6), tc: tc(-0.0014) })).toEqual([]);
     // No VZ read: the part number's code bounds it; with neither, it is left out (a lost decimal comma makes it 10× too large).
-    expect(implausibleVoltages('BRZ05-3V6', { tc: tc(-0.0014) })).toEqual([]);
-    expect(implausibleVoltages('KPB12', { tc: tc(0.087) })).toEqual(['tc']);
+    expect(implausibleValues('BRZ05-3V6', { tc: tc(-0.0014) })).toEqual([]);
+    expect(implausibleValues('KPB12', { tc: tc(0.087) })).toEqual(['tc']);
   });
 
   it('drops a negative value of any field but the coefficient (an equals sign read as a minus; only the coefficient has a sign, common practice, no source)', () => {
     const a = (si: number) => ({ value: '', unit: 'A', si, page: 1, text: '', ocr: true });
     const tc = (si: number) => ({ value: '', unit: 'mV/K', si, page: 1, text: '', ocr: true });
-    expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(-5.3), izt: a(-0.005), tc: tc(-0.002) }).sort()).toEqual(['izt', 'vr']);
-    expect(implausibleVoltages('TH-8V2', { vzNom: v(8.2), vr: v(5.3), izt: a(0.005) })).toEqual([]);
+    expect(implausibleValues('TH-8V2', { vzNom: v(8.2), vr: v(-5.3), izt: a(-0.005), tc: tc(-0.002) }).sort()).toEqual(['izt', 'vr']);
+    expect(implausibleValues('TH-8V2', { vzNom: v(8.2), vr: v(5.3), izt: a(0.005) })).toEqual([]);
   });
 
   it('drops a figure printed with a leading zero and no separator (a decimal comma the scan lost: "05" for 0,5 µA)', () => {
     const ua = (value: string, si: number) => ({ value, unit: 'uA', si, page: 1, text: '', ocr: true });
-    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('05', 5e-6) })).toEqual(['irMax']);
-    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('0,5', 5e-7) })).toEqual([]);
-    expect(implausibleVoltages('VPK-240', { vzNom: v(24), irMax: ua('0', 0) })).toEqual([]);
+    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('05', 5e-6) })).toEqual(['irMax']);
+    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('0,5', 5e-7) })).toEqual([]);
+    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('0', 0) })).toEqual([]);
   });
 
   it('drops the power rating and thermal resistance when they disagree with Tj max: Pd = (Tj max − TA) / RthJA (common practice, no source)', () => {
@@ -120,23 +120,23 @@ describe('plausibility of OCR voltages', () => {
       rthJA: q(63, '°C/W'),
       tjMax: q(150, '°C'),
     });
-    expect(implausibleVoltages('TM-082', fields(2))).toEqual([]);
-    expect(implausibleVoltages('TM-082', fields(1)).sort()).toEqual(['pdMax', 'rthJA']);
-    expect(implausibleVoltages('TM-082', fields(20)).sort()).toEqual(['pdMax', 'rthJA']);
+    expect(implausibleValues('TM-082', fields(2))).toEqual([]);
+    expect(implausibleValues('TM-082', fields(1)).sort()).toEqual(['pdMax', 'rthJA']);
+    expect(implausibleValues('TM-082', fields(20)).sort()).toEqual(['pdMax', 'rthJA']);
     // At TA = 50 °C: (150 − 50) / 63 = 1.59 W.
-    expect(implausibleVoltages('TM-082', fields(1.6, 'Ptot at TA = 50 °C'))).toEqual([]);
+    expect(implausibleValues('TM-082', fields(1.6, 'Ptot at TA = 50 °C'))).toEqual([]);
     // Rated at the lead or case temperature: RthJA does not bound it; nor is it bounded without Tj max.
-    expect(implausibleVoltages('TM-082', fields(5, 'Ptot (TL = 75 °C)'))).toEqual([]);
+    expect(implausibleValues('TM-082', fields(5, 'Ptot (TL = 75 °C)'))).toEqual([]);
   });
 
   it('drops currents out of order (IZK < IZT ≤ IZM) and a test current whose power IZT × VZ exceeds the rating (common practice, no source)', () => {
     const q = (si: number, unit: string) => ({ value: String(si), unit, si, page: 1, text: '', ocr: true });
     const ma = (x: number) => q(x / 1000, 'mA');
     // 36 V at 3.5 mA is 126 mW of a 500 mW part; "35" mA would be 1.26 W.
-    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(1), izm: ma(13), pdMax: q(0.5, 'W') })).toEqual([]);
-    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(35), pdMax: q(0.5, 'W') })).toEqual(['izt']);
-    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(35), izm: ma(13) }).sort()).toEqual(['izm', 'izt']);
-    expect(implausibleVoltages('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(5) }).sort()).toEqual(['izk', 'izt']);
+    expect(implausibleValues('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(1), izm: ma(13), pdMax: q(0.5, 'W') })).toEqual([]);
+    expect(implausibleValues('RXNX-360', { vzNom: v(36), izt: ma(35), pdMax: q(0.5, 'W') })).toEqual(['izt']);
+    expect(implausibleValues('RXNX-360', { vzNom: v(36), izt: ma(35), izm: ma(13) }).sort()).toEqual(['izm', 'izt']);
+    expect(implausibleValues('RXNX-360', { vzNom: v(36), izt: ma(3.5), izk: ma(5) }).sort()).toEqual(['izk', 'izt']);
   });
 });
 
