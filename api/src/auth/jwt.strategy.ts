@@ -5,6 +5,7 @@ import { ExtractJwt, Strategy } from 'passport-jwt';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { ENV, type Env } from '../config/env';
 import { UsersRepository } from '../users/users.repository';
+import { rememberingVerifier, type TokenVerifier } from './verified-tokens';
 
 export interface JwtPayload {
   sub: number;
@@ -19,13 +20,20 @@ export interface JwtPayload {
 
 export const JWT_ALGORITHM = 'HS256' as const;
 
+// passport-jwt verifies through `Strategy.JwtVerifier` (jsonwebtoken.verify), its injection point
+// for another verifier; ours remembers tokens it has already accepted (verified-tokens.ts).
+const strategyClass = Strategy as unknown as { JwtVerifier: TokenVerifier & { remembers?: true } };
+if (!strategyClass.JwtVerifier.remembers)
+  strategyClass.JwtVerifier = Object.assign(rememberingVerifier(strategyClass.JwtVerifier), { remembers: true as const });
+
 /** The refusal when the users row no longer matches the token (logout, deactivation, role change, user gone). */
 export const SESSION_ENDED = 'Your session has ended; sign in again';
 
 /**
  * The token check behind the global JwtAuthGuard (AuthGuard('jwt')): passport-jwt takes the
  * bearer token and has jsonwebtoken check its signature (HS256 only), expiry, nbf, issuer and
- * audience on every request; validate() then requires an expiry and reads the users row — one
+ * audience (a token already accepted is remembered for a minute, its expiry checked again on
+ * each request: verified-tokens.ts); validate() then requires an expiry and reads the users row — one
  * raw primary-key read (`UsersRepository.tokenHolder`), never cached: the user must still be
  * active, hold the role the token names and the token version it was issued with. Logout (a
  * version bump), deactivation and a role change therefore end a token on the next request on
