@@ -64,7 +64,7 @@ async function main(): Promise<void> {
     const g = got.get(v.mpn);
     const row = Object.entries(v.fields).map(([f, a]) => {
       const e = g?.fields[f as keyof typeof g.fields];
-      return `${f}=${a.value}${a.unit}${e ? (Math.abs(e.si - a.si) <= 1e-6 * Math.abs(a.si) + 1e-12 ? '✓' : `✗(${e.text})`) : '·'}`;
+      return `${f}=${a.value}${a.unit}${e ? (Math.abs(e.si - a.si) <= 1e-6 * Math.abs(a.si) + 1e-12 ? '✓' : `✗(${e.si} ← ${e.text})`) : '·'}`;
     });
     console.log(`${v.mpn}${g ? '' : ' (NOT FOUND)'}: ${row.join(' ')}`);
   }

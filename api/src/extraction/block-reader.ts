@@ -1,9 +1,11 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, Qualifier } from './field-patterns';
+import { flat } from './device-values';
 import { findPackage, headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
+import { TOLERANCE_LEGEND_CONTEXT } from './vocabulary';
 
 /**
  * Per-part blocks: a heading with the part number, then one line per characteristic —
@@ -135,10 +137,24 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       // A line of prose (a legend, a note, an example) is not a key–value line: "the 4.3 V type" is no rating of this part.
       // A dot leader ("Knee impedance, rzk (Ω) ....... 73 @ 1 mA") makes it a key–value line however long.
       if (line.cells.length === 1 && line.text.split(/\s+/).length >= 9 && !LEADER.test(line.text)) continue;
+      // The same when a lost word split such a line into cells: a tolerance legend (read by
+      // tolerance-suffix.ts) or a line naming another part ("Example: NS220A is the 22 V type").
+      if (TOLERANCE_LEGEND_CONTEXT.test(line.text) || namesAnotherPart(line.text, mpn)) continue;
       const current = mpn;
       readLine(line, qualifiers, () => drafts.get(current, order));
     }
   }
+}
+
+/** Whether the text names a part number that is neither this part nor one of its ordering codes or suffixed types. */
+export function namesAnotherPart(text: string, mpn: string): boolean {
+  const own = flat(mpn);
+  return text.split(/\s+/).some((word) => {
+    const w = word.replace(/^[("“]+|[),:;.”"]+$/g, '');
+    if (!isPartNumber(w)) return false;
+    const other = flat(w);
+    return !other.startsWith(own) && !own.startsWith(other);
+  });
 }
 
 function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft): void {

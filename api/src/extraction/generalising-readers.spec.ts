@@ -6,6 +6,7 @@ import { generateRandomDatasheet } from '@shuntwise/test-fixtures';
 import { readPdf } from './pdf-text';
 import { extractRatings } from './rating-extractor';
 import { fieldFor } from './field-patterns';
+import { namesAnotherPart } from './block-reader';
 
 /**
  * The pieces that make extraction generalise over layouts, each with small inputs built
@@ -174,6 +175,33 @@ describe('tolerance given by a part-number letter with a legend', () => {
     expect(c.fields.vzMax).toMatchObject({ si: 10.5, derived: 'tolerance-suffix' });
     expect(c.fields.vzNom).toMatchObject({ si: 10 });
     expect(c.fields.vzNom!.derived).toBeUndefined();
+  });
+
+  it("never reads the legend's example as a rating of the part whose block it sits in, even when a lost word splits the line", () => {
+    // One part per block; the VZ row's figure is missing (as an OCR reading can lose it), and the
+    // legend line is cut in two where its first percentage was lost: "… (A | %, B ±2 % …) Example: QRN220A is the 22 V".
+    const result = extractRatings(
+      pdf([
+        item('QRN240', 50, 760, 10, 40),
+        ...row(740, [50, 130, 230], ['Zener current at test', 'IZT', '5 mA']),
+        ...row(728, [50, 130], ['Zener voltage', 'VZ']),
+        item('Tolerance of VZ: the letter after the type number gives it (A', 50, 700, 9, 260),
+        item('%, B ±2 %, C ±5 %). Example: QRN220A is the 22 V', 330, 700, 9, 220),
+      ]),
+    );
+    const values = result.variants.flatMap((v) => Object.values(v.fields).map((f) => f.si));
+    expect(values).not.toContain(22);
+    expect(result.variants.every((v) => v.fields.vzNom === undefined)).toBe(true);
+  });
+});
+
+describe('a line inside a part’s block that names another part', () => {
+  it('is not read for this part; the part itself, a suffixed type or an ordering code of it still is', () => {
+    expect(namesAnotherPart('Example: QRN220A is the 22 V', 'QRN240')).toBe(true);
+    expect(namesAnotherPart('Zener voltage QRN240B 24 V', 'QRN240')).toBe(false);
+    expect(namesAnotherPart('Ordering code QRN240-TR', 'QRN240')).toBe(false);
+    expect(namesAnotherPart('Package SOD-123, VZ 24 V at IZT = 5 mA', 'QRN240')).toBe(false);
+    expect(namesAnotherPart('Rth(j-a) 625 K/W, IZ(K) 0.25 mA', 'QRN240')).toBe(false);
   });
 });
 
