@@ -346,11 +346,15 @@ export class SearchRepository {
     );
   }
 
-  /** Every house part the page's parts are sources of, with where each pair stands. */
-  pairs(ids: number[]): Promise<PairRow[]> {
-    if (ids.length === 0) return Promise.resolve([]);
+  /**
+   * Every house part the page's parts are sources of, with where each pair stands, by house part
+   * number. Sorted here, not by the statement: sorting the joined rows (with their TEXT columns)
+   * made MariaDB build an on-disk temporary table, about half the statement's time.
+   */
+  async pairs(ids: number[]): Promise<PairRow[]> {
+    if (ids.length === 0) return [];
     const list = ids.map(() => '?').join(', ');
-    return this.select<PairRow>(
+    const rows = await this.select<PairRow>(
       `SELECT s.vendor_part_id AS vendorPartId, s.house_part_id AS housePartId, h.part_number AS partNumber, h.description, h.status,
          d.id AS caseId, d.revision, d.state, d.decision_text AS decisionText, d.decided_at AS decidedAt,
          d.decided_by_id AS decidedById, du.name AS decidedByName, d.needs_recheck AS needsRecheck,
@@ -361,10 +365,11 @@ export class SearchRepository {
        LEFT JOIN (${LATEST_DECIDED} AND d.vendor_part_id IN (${list})) d ON d.house_part_id = s.house_part_id AND d.vendor_part_id = s.vendor_part_id
        LEFT JOIN users du ON du.id = d.decided_by_id
        LEFT JOIN users rvu ON rvu.id = d.revoked_by_id
-       WHERE s.vendor_part_id IN (${list})
-       ORDER BY h.part_number`,
+       WHERE s.vendor_part_id IN (${list})`,
       [...ids, ...ids],
     );
+    const key = (row: PairRow) => row.partNumber.toUpperCase();
+    return rows.sort((a, b) => (key(a) < key(b) ? -1 : key(a) > key(b) ? 1 : a.housePartId - b.housePartId || a.vendorPartId - b.vendorPartId));
   }
 
   /** What the facets count: the usable pairs once (with each part's package and maker), and the catalogue's totals. */
