@@ -149,6 +149,19 @@ export function implausibleValues(mpn: string, fields: ExtractedVariant['fields'
   if (outOfOrder(izt, izm, false)) for (const f of ['izt', 'izm'] as const) if (fields[f]!.ocr) bad.add(f);
   const vzAt = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
   if (izt?.ocr && vzAt !== undefined && pdMax && !bad.has('pdMax') && izt.si * vzAt > pdMax.si) bad.add('izt');
+  // A part's VZ limits lie within its tolerance, at most about ±20 % of VZ (common practice for
+  // regulator diodes, no source): a figure more than 1.25× from another is a separator the scan
+  // lost ("15,3 V" read as 153). The one far from both others goes; two that disagree both go.
+  const vzSeen = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
+  const far = (a: ExtractionField, b: ExtractionField) => {
+    const [x, y] = [fields[a]!.si, fields[b]!.si];
+    return Math.max(x, y) > 1.25 * Math.min(x, y);
+  };
+  if (vzSeen.length >= 2) {
+    const outliers = vzSeen.filter((f) => vzSeen.every((g) => g === f || far(f, g)));
+    const drop = outliers.length === 1 && vzSeen.length === 3 ? outliers : outliers.length ? vzSeen : [];
+    for (const f of drop) if (fields[f]!.ocr) bad.add(f);
+  }
   const ordered = (['vzMin', 'vzNom', 'vzMax'] as const).filter((f) => fields[f] && !bad.has(f));
   for (let i = 1; i < ordered.length; i++) {
     if (fields[ordered[i - 1]]!.si > fields[ordered[i]]!.si) {

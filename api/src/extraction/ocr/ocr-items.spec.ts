@@ -82,11 +82,26 @@ describe('plausibility of OCR voltages', () => {
   it('drops a VZ that lost its decimal point, a VR above VZ and an out-of-order VZ set', () => {
     expect(implausibleValues('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(51), vzMax: v(5.36) })).toEqual(['vzNom']);
     expect(implausibleValues('BRZ05-7V5', { vzNom: v(7.5), vr: v(53) })).toEqual(['vr']);
-    expect(implausibleValues('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
+    // The limits agree with each other; the nominal ten times off them goes alone.
+    expect(implausibleValues('CBX3-4.3', { vzMin: v(4.09), vzNom: v(43), vzMax: v(4.52) })).toEqual(['vzNom']);
+    // Out of order within the tolerance band: which one is wrong is not known, all go.
+    expect(implausibleValues('CBX3-4.3', { vzMin: v(4.52), vzNom: v(4.3), vzMax: v(4.09) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
     expect(implausibleValues('BRZ05-5V1', { vzMin: v(4.85), vzNom: v(5.1), vzMax: v(5.36), vr: v(2) })).toEqual([]);
     // No VZ read: the voltage coded in the part number bounds VR.
     expect(implausibleValues('SCA-8V2', { vr: v(57) })).toEqual(['vr']);
     expect(implausibleValues('SCA-8V2', { vr: v(5.7) })).toEqual([]);
+  });
+
+  it('drops a VZ limit more than 1.25× from the others: a tolerance beyond about ±20 % is a lost separator (common practice for regulator diodes, no source)', () => {
+    // No voltage code in these part numbers, so only the limits bound each other.
+    expect(implausibleValues('WP15W', { vzMin: v(14.7), vzNom: v(15), vzMax: v(153) })).toEqual(['vzMax']);
+    expect(implausibleValues('WP15W', { vzMin: v(1.47), vzNom: v(15), vzMax: v(15.3) })).toEqual(['vzMin']);
+    expect(implausibleValues('WP15W', { vzNom: v(15), vzMax: v(153) }).sort()).toEqual(['vzMax', 'vzNom']);
+    expect(implausibleValues('WP15W', { vzMin: v(1.47), vzNom: v(15), vzMax: v(153) }).sort()).toEqual(['vzMax', 'vzMin', 'vzNom']);
+    // ±20 %, the widest tolerance in use, stays.
+    expect(implausibleValues('WP15W', { vzMin: v(12), vzNom: v(15), vzMax: v(18) })).toEqual([]);
+    // A value typed from a text layer is not OCR's to drop.
+    expect(implausibleValues('WP15W', { vzMin: v(14.7), vzNom: v(15), vzMax: { ...v(153), ocr: false } })).toEqual([]);
   });
 
   it('drops a temperature coefficient beyond ±0.15 %/K of VZ', () => {
