@@ -6,7 +6,7 @@ import { pageLines } from '../text-layout';
 import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
 import type { OcrEngine } from './ocr-engine';
 import { ocrPages } from './page-ocr';
-import { capitalised, detachedPoint, seriesOutliers } from './series-checks';
+import { capitalised, detachedPoint, seriesOutliers, unnamedSeries } from './series-checks';
 
 /**
  * The whole reading of one file: the text layer where there is one, OCR for the pages that
@@ -301,6 +301,17 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading
     for (const f of off) delete fields[f];
     return Object.keys(fields).length ? [{ ...v, fields }] : [];
   });
+  // A part of a series no other part and no other line names (a letter lost from its number).
+  const lone = unnamedSeries(
+    variants.map((v) => ({ mpn: v.mpn, ocr: isOcr(v) })),
+    merged.pages.flatMap((p) => pageLines(p).map((l) => l.text)),
+  );
+  for (const mpn of lone) {
+    warnings.push(
+      `${mpn}: read by OCR, but no other part and no other line of the document names its series (a misread character?); its values are left out, check the page.`,
+    );
+  }
+  variants = variants.filter((v) => !lone.includes(v.mpn));
   // A scanned page that says the tolerance is a letter after the part number: an OCR'd part with
   // no VZ limits, printed or derived from a letter, is one the legend did not expand (a legend OCR
   // could not read, or read only for another series: "C %" with its figure lost), a base number

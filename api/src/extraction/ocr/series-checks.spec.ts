@@ -1,5 +1,5 @@
 import type { ExtractedVariant } from '@shuntwise/contracts';
-import { capitalised, detachedPoint, seriesOutliers } from './series-checks';
+import { capitalised, detachedPoint, seriesOutliers, unnamedSeries } from './series-checks';
 
 /**
  * The OCR checks that read a value against the other parts of its series. Part numbers and
@@ -75,5 +75,31 @@ describe('OCR text around a figure', () => {
     expect(capitalised('FJJF300', ['FJJF330', 'FSDT330'])).toBeUndefined();
     // Too few capital part numbers beside it to judge.
     expect(capitalised('Zq-5v1', ['Zq-5v6', 'ZQ-6V2'])).toBeUndefined();
+  });
+});
+
+describe('an OCR part of a series the document names nowhere else', () => {
+  const lines = ['Invented Devices   TJK and TNLS series   DS-1234', 'Type  VZ  IZT', 'TK-16  16  5', 'TNLS-30  30  10', 'TNLS-33  33  10'];
+  const parts = (...mpns: string[]) => mpns.map((mpn) => ({ mpn, ocr: true }));
+
+  it('is left out when no other part shares its letters and no other line mentions them (a lost letter: TJK-16 read as TK-16)', () => {
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), lines)).toEqual(['TK-16']);
+  });
+
+  it('stays when the title, a heading or an ordering code names its series again, or another part shares it', () => {
+    expect(
+      unnamedSeries(
+        parts('TJK-16', 'TNLS-30', 'TNLS-33'),
+        lines.map((l) => l.replace('TK-16', 'TJK-16')),
+      ),
+    ).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [...lines, 'Ordering code TK-16-TR'])).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TK-18'), [...lines, 'TK-18  18  5'])).toEqual([]);
+    // A symbol that starts with the same letters (TKVZ, a coefficient) is no mention of the series.
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [...lines, 'TKVZ  Temperature coefficient'])).toEqual(['TK-16']);
+  });
+
+  it('is never applied to a part read from a text layer', () => {
+    expect(unnamedSeries([{ mpn: 'TK-16', ocr: false }], lines)).toEqual([]);
   });
 });

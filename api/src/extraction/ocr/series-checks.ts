@@ -158,3 +158,25 @@ export function capitalised(mpn: string, others: readonly string[]): string | nu
   const mended = mpn.replace(SAME_SHAPE, (c) => c.toUpperCase());
   return /\p{Ll}/u.test(mended) ? null : mended;
 }
+
+/**
+ * OCR'd parts of a series the document names nowhere else: no other part shares the letters its
+ * number starts with, and no line but its own mentions them ("TK-16" alone, where the page's
+ * title and every other row say TJK: a letter lost). A datasheet names its series in its title,
+ * headings or ordering table, so a real lone part is mentioned again. Precision before recall:
+ * such a part is left out.
+ */
+export function unnamedSeries(variants: ReadonlyArray<{ mpn: string; ocr: boolean }>, lines: readonly string[]): string[] {
+  const members = new Map<string, number>();
+  for (const v of variants) members.set(seriesLetters(v.mpn), (members.get(seriesLetters(v.mpn)) ?? 0) + 1);
+  const mentions = (letters: string) => {
+    const word = new RegExp(`(?<![\\p{L}\\d])${letters}(?!\\p{L})`, 'giu');
+    return lines.reduce((n, line) => n + (line.match(word)?.length ?? 0), 0);
+  };
+  return variants
+    .filter((v) => {
+      const letters = seriesLetters(v.mpn);
+      return v.ocr && letters.length >= 2 && members.get(letters) === 1 && mentions(letters) <= 1;
+    })
+    .map((v) => v.mpn);
+}
