@@ -130,6 +130,20 @@ describe('transposed tables: part numbers as columns', () => {
     expect(result.variants[0].fields.irMax).toMatchObject({ si: 2e-7 });
     expect(result.variants[2].package).toMatchObject({ value: 'SOD-323' });
   });
+
+  it('reads a value whose footnote mark stands before its unit, and a row whose first figure was lost (its cell holds the unit alone)', () => {
+    // As an OCR reading gives them: "15.00 (Note 2)V", and "mA" where "32 mA" was printed.
+    const WIDE = [50, 210, 260, 340, 420];
+    const result = extractRatings(
+      pdf([
+        ...row(700, WIDE, ['Parameter', 'Symbol', 'TV-150', 'TV-160', 'TV-180']),
+        ...row(688, WIDE, ['Breakdown voltage, nom at Itest = 5 mA', 'VBR', '15.00 (Note 2)V', '16.00 V', 'V']),
+        ...row(676, WIDE, ['Maximum regulator current, max', 'IZM', 'mA', '30 mA', '27 mA']),
+      ]),
+    );
+    const fields = Object.fromEntries(result.variants.map((v) => [v.mpn, { vz: v.fields.vzNom?.si, izm: v.fields.izm?.si }]));
+    expect(fields).toEqual({ 'TV-150': { vz: 15, izm: undefined }, 'TV-160': { vz: 16, izm: 0.03 }, 'TV-180': { vz: undefined, izm: 0.027 } });
+  });
 });
 
 describe('maximum ratings scoped to the series or package they name', () => {

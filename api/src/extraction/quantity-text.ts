@@ -26,7 +26,11 @@ export function closeGaps(text: string): string {
 }
 const UNIT_ONLY = new RegExp(String.raw`^\s*(${UNIT})\s*$`, 'u');
 const FOOTNOTE = String.raw`(?:\(\d\)|\[\d\]|\([Nn]ote\s?\d\)|\d\)|⁽?[⁰¹²³⁴⁵⁶⁷⁸⁹]+⁾?|[*†‡])`;
-const NUMERIC_CELL = new RegExp(String.raw`^\s*[<≤>≥]?\s*${NUM}\s?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`, 'u');
+// A footnote mark may stand after the figure or after its unit ("15,00 (Note 2) V", "15,00 V (2)").
+const NUMERIC_CELL = new RegExp(
+  String.raw`^\s*[<≤>≥]?\s*${NUM}\s*(?:${FOOTNOTE}\s*)?(?:${UNIT})?\s*${FOOTNOTE}?\s*(?:(?:@|at)\s*${NUM}\s?(?:${UNIT}))?\s*$`,
+  'u',
+);
 
 /**
  * The shared parser knows the ohm as U+03A9 only; datasheets also print the ohm sign

@@ -131,7 +131,8 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
     return true;
   }
   const { rest } = findConditions(labelText);
-  const unit = unitCell ?? headerUnit(rest) ?? findQuantities([...values.values()][0]?.text ?? '')[0]?.unit;
+  // The unit of the first value that prints one (a cell whose figure OCR lost can hold the unit alone).
+  const unit = unitCell ?? headerUnit(rest) ?? [...values.values()].map((c) => findQuantities(c.text).find((q) => q.unit)?.unit).find((u) => u !== undefined);
   const kind = unit ? unitKind(unit) : undefined;
   const match = fieldFor(rest, kind);
   if (!match || (match.field === 'tc' && match.rank === 0) || (match.qualifier === 'typ' && match.field !== 'tc' && match.field !== 'vzNom')) return true;
