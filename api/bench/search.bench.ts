@@ -14,6 +14,7 @@ import { QueryTypes, Sequelize } from 'sequelize';
 import { migrateUp } from '../src/database/migrator';
 import { freePort } from '../src/dev/free-port';
 import { ensureDatabase, startMariaDb } from '../src/dev/mariadb-server';
+import { RawRows } from '../src/database/raw-rows';
 import { SearchRepository } from '../src/search/search.repository';
 import { SearchService } from '../src/search/search.service';
 import { rankByText, type TextRecord } from '../src/search/text-ranking';
@@ -48,7 +49,7 @@ async function main() {
       `loaded ${PARTS} vendor parts (90 % with cards), ${HOUSE_PARTS} house parts, ${HOUSE_PARTS * (1 + ALTERNATES)} sources, ${caseCount} cases in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
     );
 
-    const service = new SearchService(new SearchRepository(sequelize as never), new TextIndexRepository(sequelize as never));
+    const service = new SearchService(new SearchRepository(sequelize as never, new RawRows(sequelize as never)), new TextIndexRepository(sequelize as never));
     const floor: number[] = [];
     for (let r = 0; r < ROUNDS; r++) {
       const s = performance.now();

@@ -5,6 +5,7 @@ import type { Sequelize } from 'sequelize-typescript';
 /** The slice of the mariadb driver's connection a raw read uses. */
 interface DriverConnection {
   execute(sql: { sql: string; typeCast?: undefined; dateStrings?: boolean }, values?: unknown[]): Promise<unknown>;
+  query(sql: { sql: string; typeCast?: undefined; dateStrings?: boolean }, values?: unknown[]): Promise<unknown>;
   isValid(): boolean;
 }
 
@@ -55,6 +56,22 @@ export class RawRows implements OnModuleDestroy {
     } catch (error) {
       if (!connection.isValid()) this.giveBack(slot, connection);
       throw error;
+    }
+  }
+
+  /**
+   * A longer read whose text varies with its input (lists of ids, optional filters), such as the
+   * designers' search: through the driver's text protocol (no prepared statement kept per text)
+   * on a connection borrowed from the pool for this statement alone, so it never holds up the
+   * primary-key reads pipelined on the held connections. Same decoding as `select`.
+   */
+  async query<T>(sql: string, values: unknown[]): Promise<T[]> {
+    if (this.closed) throw new Error('The database connections are closed');
+    const connection = await this.pool.getConnection({ type: 'read' });
+    try {
+      return (await connection.query({ sql, typeCast: undefined, dateStrings: true }, values)) as T[];
+    } finally {
+      this.pool.releaseConnection(connection);
     }
   }
 
