@@ -20,6 +20,9 @@ function fakePool() {
       }
       return Promise.resolve([{ connection: this.id, sql: sql.sql, values }]);
     }
+    query(sql: { sql: string }, values?: unknown[]): Promise<unknown> {
+      return this.execute(sql, values);
+    }
     isValid() {
       return this.valid;
     }
@@ -97,6 +100,27 @@ describe('RawRows', () => {
     await rows.onModuleDestroy();
     expect(out.size).toBe(0);
     await expect(connectionOf(rows)).rejects.toThrow(/closed/);
+  });
+
+  it('runs a longer read on a connection borrowed for it alone and gives it back, answered or failed', async () => {
+    const { rows, out, returned, made } = fakePool();
+    const read = await rows.query<{ connection: number; sql: string; values: unknown[] }>('SELECT ? AS a', [1]);
+    expect(read).toEqual([{ connection: 1, sql: 'SELECT ? AS a', values: [1] }]);
+    expect(out.size).toBe(0);
+    expect(returned.map((c) => c.id)).toEqual([1]);
+    // The held connections of the primary-key reads are not the ones it uses.
+    await connectionOf(rows);
+    await rows.query('SELECT 2', []);
+    expect(made()).toBe(3);
+    expect(out.size).toBe(1);
+    const failing = fakePool();
+    const original = failing.rows as unknown as { pool: { getConnection: () => Promise<{ query: () => Promise<never> }> } };
+    const borrow = original.pool.getConnection.bind(original.pool);
+    original.pool.getConnection = async () => Object.assign(await borrow(), { query: () => Promise.reject(new Error('Unknown column')) });
+    await expect(failing.rows.query('SELECT nope', [])).rejects.toThrow('Unknown column');
+    expect(failing.out.size).toBe(0);
+    await rows.onModuleDestroy();
+    await expect(rows.query('SELECT 1', [])).rejects.toThrow(/closed/);
   });
 
   it('reads a stored DATETIME as UTC whatever the process time zone', () => {
