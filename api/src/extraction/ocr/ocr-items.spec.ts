@@ -1,6 +1,7 @@
-import { mergeReadings, type OcrLine, type OcrWord } from './ocr-engine';
+import { mergeReadings, readingQuality, type OcrLine, type OcrWord } from './ocr-engine';
 import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
 import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
+import { pageBody } from './page-ocr';
 
 /**
  * The repairs and checks applied to OCR output. The misreadings are the ones the English
@@ -201,5 +202,27 @@ describe('part numbers misread by OCR', () => {
     expect(misreadPartNumbers(['QZ4V7A', 'QZ5V1A', 'QZ10A', 'QZ12A', 'QZ100A'])).toEqual([]);
     expect(misreadPartNumbers(['QZ10A', 'QZ12A', 'QZ15A', 'QZ18A', 'QZ100A'])).toEqual([]);
     expect(misreadPartNumbers(['QZ4VT7A', 'QZ5V1A'])).toEqual([]);
+  });
+});
+
+describe('whether a page reads as turned', () => {
+  const word = (text: string, y: number, confidence = 95) => ({ text, confidence, x0: 100, y0: y - 10, x1: 200, y1: y + 10 });
+  const line = (...words: ReturnType<typeof word>[]) => ({ words, baseline: { x0: 0, y0: words[0].y1, x1: 1000, y1: words[0].y1 }, rowHeight: 20 });
+  // A 3 508-pixel-high page (A4 at 300 dpi): an upright running header and footer, and a sideways table in between read as noise.
+  const header = line(...['Invented', 'Diode', 'Company', 'series', 'DS-6877', 'Rev.'].map((t) => word(t, 150)));
+  const footer = line(...['Invented', 'Diode', 'Company', 'Specifications', 'subject', 'change', 'without', 'notice', 'Page'].map((t) => word(t, 3400)));
+  const noise = Array.from({ length: 30 }, (_, i) => line(word(['£', '©', 'oO', 'NNN'][i % 4], 400 + i * 90, 70)));
+
+  it('is judged on the page body alone: a well-read header and footer do not make a sideways table look upright', () => {
+    const reading = [header, ...noise, footer];
+    expect(readingQuality(reading)).toBeGreaterThanOrEqual(15);
+    const body = pageBody(reading, 3508);
+    expect(body.flatMap((l) => l.words.map((w) => w.text))).not.toContain('Company');
+    expect(readingQuality(body)).toBeLessThan(15);
+  });
+
+  it('keeps every line of the body', () => {
+    const text = line(...['Zener', 'voltage', 'nominal'].map((t) => word(t, 1500)));
+    expect(pageBody([header, text, footer], 3508)).toEqual([text]);
   });
 });

@@ -1,6 +1,6 @@
 import { type Canvas, createCanvas } from '@napi-rs/canvas';
 import { loadPdfjs, type PdfTextItem } from '../pdf-text';
-import { type OcrEngine, readingQuality, unsureShare } from './ocr-engine';
+import { type OcrEngine, type OcrLine, type OcrWord, readingQuality, unsureShare } from './ocr-engine';
 import { ocrItems } from './ocr-items';
 
 /**
@@ -72,14 +72,17 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
       // most words are unsure (a sideways table under an upright page header), the page is tried
       // turned both ways (a quick reading each) and read fully the way that reads best. Its text
       // is then read in its own frame, as the text layer's turned tables are.
-      if (readingQuality(lines) < 15 || unsureShare(lines) > 0.5) {
+      // The running header and footer (upright above and below a turned table) are left out of
+      // that judgement: read well, they made a sideways page look upright.
+      const body = pageBody(lines, heightPx);
+      if (readingQuality(body) < 15 || unsureShare(body) > 0.5) {
         const turns = [90, 270].map((deg) => ({ deg, image: turned(canvas, deg) }));
         let best: { deg: number; image: Canvas; quality: number } | undefined;
         for (const t of turns) {
           const quality = readingQuality(await options.engine.probe(t.image.toBuffer('image/png')));
           if (!best || quality > best.quality) best = { ...t, quality };
         }
-        if (best && best.quality > 2 * Math.max(5, readingQuality(lines))) {
+        if (best && best.quality > 2 * Math.max(5, readingQuality(body))) {
           lines = await options.engine.read(best.image.toBuffer('image/png'));
           image = best.image;
           geometry = { scale: options.dpi / 72, widthPx: heightPx, heightPx: widthPx, pageHeight: x1 - x0 };
@@ -92,6 +95,18 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
     await doc.destroy();
   }
   return out;
+}
+
+/** The band a page's running header and footer leave (the top and bottom 8 % of its height). */
+export const BODY_MARGIN = 0.08;
+
+/** A reading without the words of the page's top and bottom bands (its running header and footer). */
+export function pageBody(lines: OcrLine[], heightPx: number): OcrLine[] {
+  const inside = (w: OcrWord) => {
+    const y = (w.y0 + w.y1) / 2;
+    return y > BODY_MARGIN * heightPx && y < (1 - BODY_MARGIN) * heightPx;
+  };
+  return lines.map((l) => ({ ...l, words: l.words.filter(inside) })).filter((l) => l.words.length > 0);
 }
 
 /** The image turned by 90° or 270° (clockwise), on a canvas of swapped size. */
