@@ -110,6 +110,21 @@ describe('conditions bound to the value they qualify', () => {
   });
 });
 
+describe('a series table whose rows lost most of their cells (as a scan can)', () => {
+  it('reads a row with two figures left, each under its own header', () => {
+    const XS = [53, 96, 134, 169, 210, 256, 300, 355, 414, 462, 510];
+    const result = extractRatings(
+      pdf([
+        ...row(752, XS, ['Type', 'Package', 'Marking', 'VBR Min.', 'VBR Typ.', 'VBR Max.', 'ZZT Max.', 'rzk Max.', 'IR Max.', 'SZ Typ.', 'IZ(max) Max.']),
+        ...row(740, [53, 96, 134, 256, 510], ['BH-240', 'MiniMELF', 'N1', '25.2V', '7 mA']),
+        ...row(729, [53, 96, 134, 256, 462, 510], ['BH-270', 'MiniMELF', 'N2', '28.4V', '24.3 mV/K', '7 mA']),
+      ]),
+    );
+    const read = Object.fromEntries(result.variants.map((v) => [v.mpn, { vzMax: v.fields.vzMax?.si, izm: v.fields.izm?.si, tc: v.fields.tc?.si }]));
+    expect(read).toEqual({ 'BH-240': { vzMax: 25.2, izm: 0.007, tc: undefined }, 'BH-270': { vzMax: 28.4, izm: 0.007, tc: 0.0243 } });
+  });
+});
+
 describe('transposed tables: part numbers as columns', () => {
   const XS = [50, 180, 230, 280, 330];
   it('reads each row by its label and unit, and its condition for every part', () => {

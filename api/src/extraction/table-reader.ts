@@ -43,13 +43,9 @@ interface TablePlan {
 export function isDataRow(line: Line): boolean {
   if (line.cells.length < 4 || !isPartNumber(line.cells[0].text)) return false;
   let numeric = 0;
-  let dashes = 0;
-  for (let i = 1; i < line.cells.length; i++) {
-    const t = line.cells[i].text;
-    if (isNumericCell(t)) numeric++;
-    else if (/^[–—-]$/.test(t.trim())) dashes++; // "not specified"
-  }
-  return numeric >= 2 && numeric + dashes >= 3;
+  for (let i = 1; i < line.cells.length; i++) if (isNumericCell(line.cells[i].text)) numeric++;
+  // Two figures are enough: a scanned row can lose most of its cells (a blank beats a doubtful figure).
+  return numeric >= 2;
 }
 
 const centre = (s: Span) => (s.x0 + s.x1) / 2;
