@@ -211,7 +211,9 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     // shape but for a hyphen, held by fewer parts than that shape. Several parts may share the
     // misreading, so this is asked before "another part has my shape".
     const own = shapeOf(m);
-    const bare = (shape: string) => shape.replace(/[-\s./]/g, '');
+    // Only the separator between the series' letters and its digits: a point or hyphen between
+    // digits is the voltage code's own ("CBX3-10" beside CBX3-9.1 lost nothing).
+    const bare = (shape: string) => shape.replace(/(?<=A)[-\s./]+|[-\s./]+(?=A)/g, '');
     const mine = (shapes.get(own) ?? 0) + 1;
     if ([...shapes.entries()].some(([shape, n]) => shape !== own && n >= 3 && n > mine && bare(shape) === bare(own))) {
       out.push(m);

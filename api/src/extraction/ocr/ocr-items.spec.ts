@@ -41,6 +41,14 @@ describe('repairOcrWord', () => {
   });
 });
 
+describe('repairOcrWord: power, thermal and temperature units', () => {
+  it('reads "mw" as mW, "K/wW" as K/W and a copyright sign as °C, alone or glued to the figure', () => {
+    expect(['mw', '300mw', 'K/wW', 'K/w', '(©', '©', '°c'].map(repairOcrWord)).toEqual(['mW', '300mW', 'K/W', 'K/W', '°C', '°C', '°C']);
+    // Nothing else changes: a lone W, mA and ordinary words stay as read.
+    expect(['W', 'mA', 'Cc', 'wW'].map(repairOcrWord)).toEqual(['W', 'mA', 'Cc', 'wW']);
+  });
+});
+
 describe('ocrItems', () => {
   const word = (text: string, x0: number, confidence = 95) => ({ text, confidence, x0, y0: 0, x1: x0 + 60, y1: 30 });
   // A line tilted by 1°: its baseline climbs 35 px over 2000 px (tan 1° ≈ 0.01746).
@@ -196,6 +204,9 @@ describe('part numbers misread by OCR', () => {
     expect(misreadPartNumbers(read)).toEqual(['VPK270', 'VPK330', 'VPK360']);
     // Half and half: which is the series' own shape is not known, nothing is left out.
     expect(misreadPartNumbers(['VPK-180', 'VPK-200', 'VPK-220', 'VPK240', 'VPK270', 'VPK300'])).toEqual([]);
+    // A point between digits is the voltage code's own: whole volts beside tenths lost nothing.
+    const codes = ['CBX3-2.4', 'CBX3-2.7', 'CBX3-3.0', 'CBX3-3.3', 'CBX3-8.2', 'CBX3-9.1', 'CBX3-10', 'CBX3-11'];
+    expect(misreadPartNumbers(codes)).toEqual([]);
   });
 
   it('keeps series that mix plain numbers with letter-for-point codes, and series too small to judge', () => {

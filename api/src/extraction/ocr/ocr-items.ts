@@ -43,6 +43,10 @@ export function repairOcrWord(raw: string): string | undefined {
   if (/^[HypW]A$/.test(w)) w = 'µA';
   if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
   w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)').replace(/^\[Vv\]$|^\[v\]$/, '[V]');
+  // Power and thermal units in a unit cell or glued to a figure: "mw" can only be mW, "K/wW" only
+  // K/W, and the degree sign with its C reads as a copyright sign ("150 (©" for 150 °C).
+  w = w.replace(/^(\d+(?:\.\d+)?)?mw$/, '$1mW').replace(/^K\/[wW]{1,2}$/, 'K/W');
+  if (/^\(?©\)?$|^°c$/.test(w)) w = '°C';
   // Symbols: I read as 1 or l before Z; α before VZ read as a.
   w = w.replace(/^[1lI|]{1,2}Z([TKM])/, 'IZ$1').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
