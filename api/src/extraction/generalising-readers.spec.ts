@@ -159,6 +159,21 @@ describe('transposed tables: part numbers as columns', () => {
     const fields = Object.fromEntries(result.variants.map((v) => [v.mpn, { vz: v.fields.vzNom?.si, izm: v.fields.izm?.si }]));
     expect(fields).toEqual({ 'TV-150': { vz: 15, izm: undefined }, 'TV-160': { vz: 16, izm: 0.03 }, 'TV-180': { vz: undefined, izm: 0.027 } });
   });
+
+  it('leaves out a bare figure ending in 0 or 2 in a row whose other figures print Ω (a scan read "310 Ω" as 3100)', () => {
+    const WIDE = [50, 210, 260, 340, 420, 500];
+    const result = extractRatings(
+      pdf([
+        ...row(700, WIDE, ['Parameter', 'Symbol', 'TV-300', 'TV-330', 'TV-360', 'TV-390']),
+        ...row(688, WIDE, ['Dynamic impedance, maximum at IZ = 0.5 mA', 'ZZT', '290 Ω', '3100', '3700', '360 Ω']),
+        ...row(676, WIDE, ['Knee impedance, maximum at IZ = 0.25 mA', 'ZZK', '600 Ω', '650 Ω', '700 Ω', '715']),
+      ]),
+    );
+    const read = Object.fromEntries(result.variants.map((v) => [v.mpn, [v.fields.zzt?.si, v.fields.zzk?.si]]));
+    // A bare figure ending in another digit stays: nothing says its unit was lost.
+    expect(read).toEqual({ 'TV-300': [290, 600], 'TV-330': [undefined, 650], 'TV-360': [undefined, 700], 'TV-390': [360, 715] });
+    expect(result.warnings.filter((w) => /lacks the Ω/.test(w))).toHaveLength(2);
+  });
 });
 
 describe('maximum ratings scoped to the series or package they name', () => {

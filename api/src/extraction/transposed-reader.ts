@@ -147,12 +147,21 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
         .offer(cond.field, { ...cond, si, page: cond.line.page, text: cond.line.printed, box: cellBox(cond.line.cells[0]), rank: 1, method: 'table' });
     }
   }
+  // How many of the row's figures print their own unit: when the others do, a bare figure ending
+  // in 0 or 2 is one whose Ω a scan read as a digit ("310 Ω" as 3100), ten times too large.
+  const printedUnits = [...values.values()].filter((c) => findQuantities(findConditions(c.text, field).rest)[0]?.unit).length;
   for (const col of cols) {
     const cell = values.get(col);
     if (!cell || isEmptyCell(cell.text)) continue;
     const own = findConditions(cell.text, field);
     const q = findQuantities(own.rest)[0];
     if (!q) continue;
+    if (!q.unit && printedUnits >= 2 && unit !== undefined && unitKind(unit) === 'resistance' && /[02]$/.test(q.value)) {
+      warnings.push(
+        `${col.mpn}: "${cell.text}" in the row "${labelText}" on page ${line.page} lacks the Ω the row's other figures print (a unit read as a digit?); left empty.`,
+      );
+      continue;
+    }
     const u = q.unit || unit || '';
     const k = u ? unitKind(u) : undefined;
     if (!k || !FIELD_KINDS[field].includes(k)) {
