@@ -49,8 +49,12 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
   // Two readings of each scanned page (the engine's own, and cell by cell on the cleaned page)
   // go through the same extractor and the same checks; the one that yields more values stands.
   // Neither is trusted more: each value of either passed every check.
-  const whole = readingOf(text, new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items])));
-  const cells = readingOf(text, new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.cellItems])));
+  const wholeItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items]));
+  const cellItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.cellItems]));
+  // A tolerance-letter legend either reading found holds for both: the other may have cut it up.
+  const legendPage = toleranceLegendPage(text, wholeItems) ?? toleranceLegendPage(text, cellItems);
+  const whole = readingOf(text, wholeItems, legendPage);
+  const cells = readingOf(text, cellItems, legendPage);
   const best = valueCount(cells.variants) > valueCount(whole.variants) ? cells : whole;
   const { variants, ocrItems } = best;
   warnings.push(...best.warnings);
@@ -267,13 +271,24 @@ interface Reading {
 const valueCount = (variants: ExtractedVariant[]) => variants.reduce((n, v) => n + Object.keys(v.fields).length, 0);
 
 /** One reading of the scanned pages through the extractor and the OCR checks. */
-function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading {
-  const warnings: string[] = [];
-  const merged: PdfText = {
+/** The text layer with one reading's OCR'd words on its scanned pages. */
+function mergedText(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): PdfText {
+  return {
     pageCount: text.pageCount,
     hasText: text.hasText || [...ocrItems.values()].some((items) => items.length > 0),
     pages: text.pages.map((p) => (ocrItems.has(p.page) ? { ...p, items: ocrItems.get(p.page)! } : p)),
   };
+}
+
+/** The first scanned page that says the tolerance is a letter after the part number, in this reading. */
+function toleranceLegendPage(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): number | undefined {
+  const merged = mergedText(text, ocrItems);
+  return [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
+}
+
+function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>, legendPage: number | undefined): Reading {
+  const warnings: string[] = [];
+  const merged = mergedText(text, ocrItems);
   const result = extractRatings(merged);
   const marked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
   const isOcr = (v: ExtractedVariant) => Object.values(v.fields).some((f) => f.ocr);
@@ -318,7 +333,6 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>): Reading
   // no VZ limits, printed or derived from a letter, is one the legend did not expand (a legend OCR
   // could not read, or read only for another series: "C %" with its figure lost), a base number
   // the vendor does not sell as such. (A part expanded while its VZnom was unreadable goes too.)
-  const legendPage = [...ocrItems.keys()].find((page) => pageLines(merged.pages[page - 1]).some((l) => TOLERANCE_LEGEND_CONTEXT.test(l.text)));
   if (legendPage !== undefined) {
     const bases = variants.filter((v) => isOcr(v) && !v.fields.vzMin && !v.fields.vzMax);
     if (bases.length) {
