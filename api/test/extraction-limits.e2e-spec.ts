@@ -17,9 +17,10 @@ describe('datasheets: bounded reading, and OCR of scans (real MariaDB, S3 fake)'
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
   beforeAll(async () => {
-    // The default memory limit (OCR of a page needs 0.5–0.7 GB); generous time, as OCR on a
-    // loaded test machine is slow and the memory limit is the one under test.
-    t = await createTestApp({ env: { EXTRACTION_MEMORY_LIMIT_MB: '1024', EXTRACTION_TIME_LIMIT_SECONDS: '60', EXTRACTION_OCR_SECONDS_PER_PAGE: '120' } });
+    // The default memory limit (reading the two-page Corriebank scan peaked at 0.98–1.01 GB on
+    // 2026-12-05, three readings a page); generous time, as OCR on a loaded test machine is slow
+    // and the memory limit is the one under test.
+    t = await createTestApp({ env: { EXTRACTION_MEMORY_LIMIT_MB: '1536', EXTRACTION_TIME_LIMIT_SECONDS: '60', EXTRACTION_OCR_SECONDS_PER_PAGE: '120' } });
     engineer = await t.tokenFor('engineer');
   });
   afterAll(() => t.close());

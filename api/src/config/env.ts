@@ -107,7 +107,7 @@ export const envSchema = z.object({
     .default(20 * 1024 * 1024),
   // Datasheet reading runs in a child process, killed past these limits per file (api/src/extraction-worker).
   EXTRACTION_TIME_LIMIT_SECONDS: z.coerce.number().min(1).max(3600).default(20),
-  EXTRACTION_MEMORY_LIMIT_MB: z.coerce.number().int().min(128).max(65536).default(1024),
+  EXTRACTION_MEMORY_LIMIT_MB: z.coerce.number().int().min(128).max(65536).default(1536),
   EXTRACTION_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
   EXTRACTION_OCR: bool.default(true),
   EXTRACTION_OCR_MAX_PAGES: z.coerce.number().int().min(0).max(500).default(10),
