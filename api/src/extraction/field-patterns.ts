@@ -33,7 +33,9 @@ export function fieldFor(text: string, kind: QuantityKind | undefined): FieldMat
       if (P.vr.test(text)) return { field: 'vr', rank: 1 };
       if (P.vz.test(text)) {
         const field = q === 'min' ? 'vzMin' : q === 'max' ? 'vzMax' : 'vzNom';
-        return { field, qualifier: q, rank: 1 };
+        // A column that says "nom" or "typ" outranks one that names no qualifier (a scan that
+        // lost the "min" over the first of three VZ columns must not make it the nominal one).
+        return { field, qualifier: q, rank: q === 'nom' || q === 'typ' ? 2 : 1 };
       }
       return undefined;
     case 'current':

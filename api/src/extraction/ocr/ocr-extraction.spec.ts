@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { OcrEngine, OcrLine } from './ocr-engine';
-import { extractWithOcr } from './ocr-extraction';
+import { extractWithOcr, leaveOut } from './ocr-extraction';
 
 /**
  * The OCR path's own checks, with the engine replaced by one that "reads" given lines from the
@@ -45,12 +45,37 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     expect(result.variants[0].fields.vzNom).toMatchObject({ si: 5.1, ocr: true });
   });
 
-  it('keeps the reading of the two (whole page, cell by cell) that yields more values that pass the checks', async () => {
+  it('combines the two readings (whole page, cell by cell): a part or value only one read stands, two different figures for a field are both left out', async () => {
     const half = block.slice(0, 3);
-    const fromCells = await extractWithOcr(scanned, { engine: engineReading(half, block), dpi: 300, maxOcrPages: 1 });
-    expect(fromCells.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
-    const fromWhole = await extractWithOcr(scanned, { engine: engineReading(block, half), dpi: 300, maxOcrPages: 1 });
-    expect(fromWhole.variants.map((v) => v.mpn)).toEqual(['XQ5V1A', 'XQ6V2A']);
+    // Each reading alone holds only one of the parts: together they hold both.
+    const parts = await extractWithOcr(scanned, { engine: engineReading(half, block.slice(3)), dpi: 300, maxOcrPages: 1 });
+    expect(parts.variants.map((v) => v.mpn).sort()).toEqual(['XQ5V1A', 'XQ6V2A']);
+    // XQ5V1A: the cell reading adds its leakage; XQ6V2A: the readings disagree on IZT (5 mA against 3 mA).
+    const cells = [
+      ...half,
+      line(520, [250, 'Leakage current, IR ..........'], [1400, '2 µA']),
+      ...block.slice(3, 5),
+      line(650, [250, 'Test current, IZT ..........'], [1400, '3 mA']),
+    ];
+    const both = await extractWithOcr(scanned, { engine: engineReading(block, cells), dpi: 300, maxOcrPages: 1 });
+    const [a, b] = ['XQ5V1A', 'XQ6V2A'].map((m) => both.variants.find((v) => v.mpn === m)!);
+    expect(Object.keys(a.fields).sort()).toEqual(['irMax', 'izt', 'vzNom']);
+    expect(a.fields.irMax).toMatchObject({ si: 2e-6, ocr: true });
+    expect(b.fields.izt).toBeUndefined();
+    expect(b.fields.vzNom).toMatchObject({ si: 6.2 });
+    expect(both.warnings.join(' ')).toMatch(/XQ6V2A: two OCR readings of the page gave different figures for izt/);
+  });
+
+  it('leaves out a coefficient converted from %/K with a nominal VZ that is itself left out', () => {
+    const fields = {
+      vzNom: { value: '5.1', unit: 'V', si: 5.1, page: 1, text: 'VZ 5.1 V', ocr: true },
+      tc: { value: '0.05', unit: '%/K', si: 0.00255, page: 1, text: 'TC 0.05 %/K', ocr: true, derived: 'converted' as const },
+      izt: { value: '5', unit: 'mA', si: 0.005, page: 1, text: 'IZT 5 mA', ocr: true },
+    };
+    expect(leaveOut({ ...fields }, ['vzNom'])).toEqual(['vzNom', 'tc']);
+    expect(leaveOut({ ...fields }, ['izt'])).toEqual(['izt']);
+    // A coefficient printed in V/K does not rest on VZ.
+    expect(leaveOut({ ...fields, tc: { ...fields.tc, derived: undefined } }, ['vzNom'])).toEqual(['vzNom']);
   });
 
   it('leaves out the parts of a page whose tolerance-letter legend OCR could not read, and says why', async () => {

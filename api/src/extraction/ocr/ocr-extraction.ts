@@ -1,4 +1,4 @@
-import type { ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
+import type { ExtractedValue, ExtractedVariant, ExtractionField, ExtractionResult } from '@shuntwise/contracts';
 import { readPdf, type PdfText, type PdfTextItem } from '../pdf-text';
 import { seriesLetters } from '../part-numbers';
 import { extractRatings } from '../rating-extractor';
@@ -47,8 +47,9 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
   }
   const read = options.engine && toRead.length ? await ocrPages(buffer, toRead, { engine: options.engine, dpi: options.dpi, onPage: options.onOcrPage }) : [];
   // Two readings of each scanned page (the engine's own, and cell by cell on the cleaned page)
-  // go through the same extractor and the same checks; the one that yields more values stands.
-  // Neither is trusted more: each value of either passed every check.
+  // go through the same extractor and the same checks, then are combined: a value both read
+  // alike stands, a value only one read stands (it passed every check), two that differ are
+  // both left out. Neither reading is trusted more.
   const wholeItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.items]));
   const cellItems = new Map(read.filter((r) => r.hasImage).map((r) => [r.page, r.cellItems]));
   // A tolerance-letter legend either reading found holds for both: the other may have cut it up.
@@ -56,8 +57,16 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
   const whole = readingOf(text, wholeItems, legendPage);
   const cells = readingOf(text, cellItems, legendPage);
   const best = valueCount(cells.variants) > valueCount(whole.variants) ? cells : whole;
-  const { variants, ocrItems } = best;
-  warnings.push(...best.warnings);
+  const other = best === whole ? cells : whole;
+  const { ocrItems } = best;
+  const variants = combineReadings(best.variants, other.variants, [best.lines, other.lines], legendPage, warnings);
+  const named = new Set(variants.map((v) => v.mpn));
+  // The other reading's remarks only where they concern a part it alone found, or none.
+  const own = (w: string) => named.has(w.slice(0, Math.max(0, w.indexOf(':'))));
+  warnings.push(
+    ...best.warnings,
+    ...other.warnings.filter((w) => !best.warnings.includes(w) && !(own(w) && best.variants.some((v) => w.startsWith(`${v.mpn}:`)))),
+  );
   const result = best.result;
 
   const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
@@ -67,7 +76,7 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
   // The extractor's own "no text found" remark is replaced by the per-page ones above.
   const rest = result.warnings.filter((w) => !/^No text found/.test(w) && !(variants.length === 0 && /^No part numbers/.test(w)));
   if (variants.length === 0 && text.hasText) warnings.push('No part numbers with ratings were recognised in this PDF. Enter the ratings by hand.');
-  return { variants, warnings: [...warnings, ...rest], pages: text.pageCount, hasText: text.hasText };
+  return { variants, warnings: [...new Set([...warnings, ...rest])], pages: text.pageCount, hasText: text.hasText };
 }
 
 /** Flags what came from OCR and drops OCR'd voltages that contradict each other or the part number. */
@@ -82,8 +91,7 @@ function markAndCheck(variant: ExtractedVariant, ocrPages: Map<number, unknown>,
     }
   }
   if (!fromOcr) return variant;
-  const dropped = implausibleValues(variant.mpn, fields);
-  for (const f of dropped) delete fields[f];
+  const dropped = leaveOut(fields, implausibleValues(variant.mpn, fields));
   if (dropped.length) {
     warnings.push(`${variant.mpn}: ${dropped.join(', ')} read by OCR did not agree with the other voltages or the part number; left empty, check the page.`);
   }
@@ -125,6 +133,10 @@ export function implausibleValues(mpn: string, fields: ExtractedVariant['fields'
   // scan lost makes it ten times too large ("+8,7 mV/°C" read as "+87"): it is left out.
   const vz = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
   if (fields.tc?.ocr && (vz === undefined || Math.abs(fields.tc.si) > 0.0015 * vz)) bad.add('tc');
+  // Reverse leakage at the test voltage is specified in nA or µA, a few hundred µA at most for
+  // low-voltage power parts (common practice, from memory, no source): a milliampere or more is a
+  // lost µ ("0,5 µA" under a units row read as "A").
+  if (fields.irMax?.ocr && fields.irMax.si >= 1e-3) bad.add('irMax');
   // A figure printed with a leading zero and no separator ("05" for 0,5 µA) is a decimal comma or
   // point the scan lost: ten times too large, or more. So may be one with a lone point before it.
   for (const [f, v] of Object.entries(fields) as [ExtractionField, ExtractedVariant['fields'][ExtractionField]][]) {
@@ -211,6 +223,14 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     }
     const shapes = new Map<string, number>();
     for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
+    // A digit read as the letter it looks like, after the first digit ("SC1S" beside SC13, SC15,
+    // SC16): with the letters read as digits it is another part of the list, or has the shape
+    // of two or more of the series while its own shape is held by none.
+    const digits = asDigits(m);
+    if (digits !== m && (mpns.includes(digits) || (!shapes.has(shapeOf(m)) && (shapes.get(shapeOf(digits)) ?? 0) >= 2))) {
+      out.push(m);
+      continue;
+    }
     // A separator lost or gained ("VPK270" beside VPK-180, VPK-200, VPK-220, …): the series' usual
     // shape but for a hyphen, held by fewer parts than that shape. Several parts may share the
     // misreading, so this is asked before "another part has my shape".
@@ -230,6 +250,14 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     if (dominant && isOneInsertion(shapeOf(m), dominant[0])) out.push(m);
   }
   return out;
+}
+
+/** Letters the engine reads for digits (S for 5, O for 0, B for 8 …), read back as digits after a part number's first digit. */
+const DIGIT_LOOKALIKES: Record<string, string> = { S: '5', O: '0', o: '0', I: '1', l: '1', B: '8', Z: '2', G: '6' };
+function asDigits(mpn: string): string {
+  const first = mpn.search(/\d/);
+  if (first < 0) return mpn;
+  return mpn.slice(0, first) + mpn.slice(first).replace(/(?<=\d)[SOoIlBZG](?=\d|$)/g, (c) => DIGIT_LOOKALIKES[c]);
 }
 
 /** Whether two series' letters differ by one letter dropped or changed (KJM / KM, KJM / KIM). */
@@ -263,9 +291,64 @@ function pageList(pages: number[]): string {
 interface Reading {
   variants: ExtractedVariant[];
   warnings: string[];
-  merged: PdfText;
+  /** The document's lines as this reading has them. */
+  lines: string[];
   ocrItems: Map<number, PdfTextItem[]>;
   result: ExtractionResult;
+}
+
+/**
+ * Removes the fields from a part, and with a nominal VZ the coefficient converted from %/K with
+ * it (its figure rests on that VZ). Returns what was removed.
+ */
+export function leaveOut(fields: ExtractedVariant['fields'], drop: readonly ExtractionField[]): ExtractionField[] {
+  const out = [...drop];
+  if (drop.includes('vzNom') && !drop.includes('tc') && fields.tc?.derived === 'converted') out.push('tc');
+  for (const f of out) delete fields[f];
+  return out;
+}
+
+/** Two figures read for one field agree when their SI values are equal (to rounding). */
+const sameFigure = (a: ExtractedValue, b: ExtractedValue) => Math.abs(a.si - b.si) <= 1e-9 * Math.max(Math.abs(a.si), Math.abs(b.si));
+
+/**
+ * The two readings' parts as one list: per part and field, a value both read alike (the first
+ * reading's text and box), or read by one only; two different figures for a field are both
+ * left out with a warning (which is right is not known). The combined parts go through the
+ * value and document checks again: fields from two readings must still hang together, and a
+ * part number one reading misread may now sit beside the other reading's right one.
+ */
+export function combineReadings(
+  first: ExtractedVariant[],
+  second: ExtractedVariant[],
+  readings: string[][],
+  legendPage: number | undefined,
+  warnings: string[],
+): ExtractedVariant[] {
+  const others = new Map(second.map((v) => [v.mpn, v]));
+  const combined: ExtractedVariant[] = [];
+  for (const v of first) {
+    const o = others.get(v.mpn);
+    others.delete(v.mpn);
+    if (!o) {
+      combined.push(v);
+      continue;
+    }
+    const fields: ExtractedVariant['fields'] = { ...o.fields, ...v.fields };
+    const differ = (Object.keys(fields) as ExtractionField[]).filter((key) => {
+      const [a, b] = [v.fields[key], o.fields[key]];
+      return a && b && !sameFigure(a, b);
+    });
+    leaveOut(fields, differ);
+    if (differ.length) warnings.push(`${v.mpn}: two OCR readings of the page gave different figures for ${differ.join(', ')}; left empty, check the page.`);
+    const dropped = leaveOut(fields, implausibleValues(v.mpn, fields));
+    if (dropped.length) {
+      warnings.push(`${v.mpn}: ${dropped.join(', ')} read by OCR did not agree with the other voltages or the part number; left empty, check the page.`);
+    }
+    if (Object.keys(fields).length) combined.push({ ...v, package: v.package ?? o.package, fields });
+  }
+  combined.push(...others.values());
+  return documentChecks(combined, readings, legendPage, warnings);
 }
 
 const valueCount = (variants: ExtractedVariant[]) => variants.reduce((n, v) => n + Object.keys(v.fields).length, 0);
@@ -291,7 +374,21 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>, legendPa
   const merged = mergedText(text, ocrItems);
   const result = extractRatings(merged);
   const marked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
-  const isOcr = (v: ExtractedVariant) => Object.values(v.fields).some((f) => f.ocr);
+  const lines = merged.pages.flatMap((p) => pageLines(p).map((l) => l.text));
+  // Parts of a series no other line names are judged once the readings are combined (the other may name it).
+  const variants = documentChecks(marked, null, legendPage, warnings);
+  return { variants, warnings, lines, ocrItems, result };
+}
+
+const isOcr = (v: ExtractedVariant) => Object.values(v.fields).some((f) => f.ocr);
+
+/**
+ * The checks that judge OCR'd parts against the rest of the document (part-number shapes,
+ * series neighbours, names no other line carries, the tolerance legend): run on each reading,
+ * and again on the two readings combined, since a part one reading misread may sit beside the
+ * other reading's right one.
+ */
+function documentChecks(marked: ExtractedVariant[], readings: string[][] | null, legendPage: number | undefined, warnings: string[]): ExtractedVariant[] {
   // Small letters among capitals: mended where the letter has the capital's shape, else a misreading.
   const names = marked.map((v) => v.mpn);
   const checked: ExtractedVariant[] = [];
@@ -313,16 +410,19 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>, legendPa
   variants = variants.flatMap((v) => {
     const off = outliers.get(v.mpn);
     if (!off) return [v];
-    warnings.push(`${v.mpn}: ${off.join(', ')} read by OCR far from the other parts of the series; left empty, check the page.`);
     const fields = { ...v.fields };
-    for (const f of off) delete fields[f];
+    warnings.push(`${v.mpn}: ${leaveOut(fields, off).join(', ')} read by OCR far from the other parts of the series; left empty, check the page.`);
     return Object.keys(fields).length ? [{ ...v, fields }] : [];
   });
   // A part of a series no other part and no other line names (a letter lost from its number).
-  const lone = unnamedSeries(
-    variants.map((v) => ({ mpn: v.mpn, ocr: isOcr(v) })),
-    merged.pages.flatMap((p) => pageLines(p).map((l) => l.text)),
-  );
+  // Only on the combined readings (`readings`, the lines of each): a part one reading found alone may be named by the other.
+  const lone =
+    readings === null
+      ? []
+      : unnamedSeries(
+          variants.map((v) => ({ mpn: v.mpn, ocr: isOcr(v) })),
+          readings,
+        );
   for (const mpn of lone) {
     warnings.push(
       `${mpn}: read by OCR, but no other part and no other line of the document names its series (a misread character?); its values are left out, check the page.`,
@@ -342,5 +442,5 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>, legendPa
       variants = variants.filter((v) => !bases.includes(v));
     }
   }
-  return { variants, warnings, merged, ocrItems, result };
+  return variants;
 }

@@ -1,6 +1,6 @@
 import { mergeReadings, readingQuality, type OcrLine, type OcrWord } from './ocr-engine';
 import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
-import { ocrItems, repairOcrWord, skewOf } from './ocr-items';
+import { ocrItems, repairOcrWord, skewOf, unitsRow } from './ocr-items';
 import { pageBody } from './page-ocr';
 
 /**
@@ -86,6 +86,11 @@ describe('plausibility of OCR voltages', () => {
     expect(codedVoltage('NMZ-03V6')).toBe(3.6);
     expect(codedVoltage('QHZ4V7A')).toBe(4.7);
     expect(codedVoltage('LVD1-033')).toBeUndefined();
+  });
+
+  it('drops a leakage of a milliampere or more (a lost µ; regulator leakage is nA to a few hundred µA, common practice, from memory)', () => {
+    expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(0.5) })).toEqual(['irMax']);
+    expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(2e-6) })).toEqual([]);
   });
 
   it('drops a VZ that lost its decimal point, a VR above VZ and an out-of-order VZ set', () => {
@@ -185,6 +190,17 @@ describe('merging the block and sparse readings of a page', () => {
   });
 });
 
+describe('a units row read by OCR', () => {
+  const row = (text: string) => unitsRow(text.split(' ').map(repairOcrWord));
+  it('reads the lone letters the engine makes of a unit as that unit, in a row of units only', () => {
+    expect(row('Vv Y Vv 0 µA Vv %/°C mA')).toEqual(['V', 'V', 'V', 'Ω', 'µA', 'V', '%/°C', 'mA']);
+    expect(row('v Vv kQ (pA)')).toEqual(['V', 'V', 'kΩ', '(µA)']);
+    // Not a units row: a lone Y or 0 elsewhere stays as read.
+    expect(row('Type Y 0 12')).toEqual(['Type', 'Y', '0', '12']);
+    expect(row('Y 0 V')).toEqual(['Y', '0', 'V']);
+  });
+});
+
 describe('part numbers misread by OCR', () => {
   // Invented part numbers; regulator series code VZ as 5V1 or as a plain number (common practice, no source).
   it('leaves out a part number with a character inserted into the shape its series shares', () => {
@@ -197,6 +213,16 @@ describe('part numbers misread by OCR', () => {
     expect(misreadPartNumbers(['KJM33', 'KJM36', 'KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
     expect(misreadPartNumbers(['KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
     expect(misreadPartNumbers(['KPB12', 'KPB13', 'KPB15', 'KJM39', 'KJM43', 'KJM47'])).toEqual([]);
+  });
+
+  it('leaves out a part number with a digit read as the letter it looks like (SC1S for SC15)', () => {
+    // Read back as digits, it is another part of the list, or the shape two or more of the series share.
+    expect(misreadPartNumbers(['SC13', 'SC15', 'SC1S', 'SC16'])).toEqual(['SC1S']);
+    expect(misreadPartNumbers(['SC12', 'SC13', 'SC1S', 'SC16'])).toEqual(['SC1S']);
+    expect(misreadPartNumbers(['TX1O', 'TX11', 'TX12'])).toEqual(['TX1O']);
+    // A suffix letter the series carries (B tolerance, G packing) is no misreading.
+    expect(misreadPartNumbers(['QZ5V1B', 'QZ5V6B', 'QZ6V2B', 'QZ6V8B'])).toEqual([]);
+    expect(misreadPartNumbers(['KDZ10G', 'KDZ12G', 'KDZ15G'])).toEqual([]);
   });
 
   it("leaves out part numbers that lost their series' hyphen, even when several lost it alike", () => {

@@ -43,6 +43,8 @@ export function repairOcrWord(raw: string): string | undefined {
   if (/^[HypW]A$/.test(w)) w = 'µA';
   if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
   w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)').replace(/^\[Vv\]$|^\[v\]$/, '[V]');
+  // A lone V (a unit cell) comes out as 'Vv' or 'v': no word of a datasheet is either.
+  if (/^(?:Vv|v)$/.test(w)) w = 'V';
   // Power and thermal units in a unit cell or glued to a figure: "mw" can only be mW, "K/wW" only
   // K/W, and the degree sign with its C reads as a copyright sign ("150 (©" for 150 °C).
   w = w.replace(/^(\d+(?:\.\d+)?)?mw$/, '$1mW').replace(/^K\/[wW]{1,2}$/, 'K/W');
@@ -93,8 +95,9 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     const b = line.baseline;
     const start = unskew(b.x0, b.y0);
     const size = Math.max(1, line.rowHeight / g.scale);
-    for (const word of line.words) {
-      const text = repairOcrWord(word.text);
+    const texts = unitsRow(line.words.map((w) => repairOcrWord(w.text)));
+    for (const [w, word] of line.words.entries()) {
+      const text = texts[w];
       if (!text) continue;
       // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
       const unit = /^[([]([^()[\]]+)[)\]]$/.exec(text);
@@ -120,6 +123,26 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     }
   }
   return items;
+}
+
+/** A unit as a units row prints it, bare or in brackets. */
+const isUnit = (w: string | undefined) => w !== undefined && unitKind(w.replace(/^[([](.+)[)\]]$/, '$1')) !== undefined;
+/** What the engine makes of a lone unit letter, in a units row only: V as Y, Ω as 0, O or Q. */
+const ROW_UNIT_MISREADINGS: Array<[RegExp, string]> = [
+  [/^[Yy]$/, 'V'],
+  [/^([kKmM]?)[0OQ]$/, '$1Ω'],
+];
+
+/**
+ * The words of a units row (three or more words, at least two thirds of them units, the others
+ * of one or two characters: "V Y V Ω µA"), with the lone letters the engine makes of a unit read
+ * as that unit. Elsewhere a lone "Y" or "0" is left as read. Exported for its unit spec.
+ */
+export function unitsRow(words: ReadonlyArray<string | undefined>): Array<string | undefined> {
+  const present = words.filter((w): w is string => w !== undefined);
+  const units = present.filter(isUnit).length;
+  if (present.length < 3 || units < (2 / 3) * present.length || present.some((w) => !isUnit(w) && w.length > 2)) return [...words];
+  return words.map((w) => (w === undefined || isUnit(w) ? w : ROW_UNIT_MISREADINGS.reduce((t, [re, to]) => t.replace(re, to), w)));
 }
 
 function round(x: number): number {

@@ -38,6 +38,14 @@ describe('OCR figures against their series', () => {
     expect(seriesOutliers(printed).size).toBe(0);
   });
 
+  it('leaves out a leakage test voltage whose share of VZ is far from both neighbours\' ("7,7 V" read as 1.7)', () => {
+    const series = [part('FQ10', 10, { vr: 7 }), part('FQ11', 11, { vr: 1.7 }), part('FQ12', 12, { vr: 8.4 }), part('FQ13', 13, { vr: 9.1 })];
+    expect(Object.fromEntries(seriesOutliers(series))).toEqual({ FQ11: ['vr'] });
+    // Low-voltage parts test leakage at a smaller share of VZ (1 V at 3.3 V, 2 V at 5.1 V): a gradual change stays.
+    const low = [part('FQ3V3', 3.3, { vr: 1 }), part('FQ3V9', 3.9, { vr: 1 }), part('FQ4V7', 4.7, { vr: 2 }), part('FQ5V6', 5.6, { vr: 2 })];
+    expect(seriesOutliers(low).size).toBe(0);
+  });
+
   it('leaves out a nominal VZ that is not the digits of its part number where the series prints VZ so', () => {
     const series = [part('TM-082', 7.79), part('TM-091', 9.1), part('TM-100', 10)];
     expect(Object.fromEntries(seriesOutliers(series))).toEqual({ 'TM-082': ['vzNom'] });
@@ -83,23 +91,23 @@ describe('an OCR part of a series the document names nowhere else', () => {
   const parts = (...mpns: string[]) => mpns.map((mpn) => ({ mpn, ocr: true }));
 
   it('is left out when no other part shares its letters and no other line mentions them (a lost letter: TJK-16 read as TK-16)', () => {
-    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), lines)).toEqual(['TK-16']);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines])).toEqual(['TK-16']);
   });
 
   it('stays when the title, a heading or an ordering code names its series again, or another part shares it', () => {
-    expect(
-      unnamedSeries(
-        parts('TJK-16', 'TNLS-30', 'TNLS-33'),
-        lines.map((l) => l.replace('TK-16', 'TJK-16')),
-      ),
-    ).toEqual([]);
-    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [...lines, 'Ordering code TK-16-TR'])).toEqual([]);
-    expect(unnamedSeries(parts('TK-16', 'TK-18'), [...lines, 'TK-18  18  5'])).toEqual([]);
+    expect(unnamedSeries(parts('TJK-16', 'TNLS-30', 'TNLS-33'), [lines.map((l) => l.replace('TK-16', 'TJK-16'))])).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [[...lines, 'Ordering code TK-16-TR']])).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TK-18'), [[...lines, 'TK-18  18  5']])).toEqual([]);
     // A symbol that starts with the same letters (TKVZ, a coefficient) is no mention of the series.
-    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [...lines, 'TKVZ  Temperature coefficient'])).toEqual(['TK-16']);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [[...lines, 'TKVZ  Temperature coefficient']])).toEqual(['TK-16']);
+  });
+
+  it('counts mentions per reading: the same row read by both OCR readings is still its only mention', () => {
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines, lines])).toEqual(['TK-16']);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines, [...lines, 'Ordering code TK-16-TR']])).toEqual([]);
   });
 
   it('is never applied to a part read from a text layer', () => {
-    expect(unnamedSeries([{ mpn: 'TK-16', ocr: false }], lines)).toEqual([]);
+    expect(unnamedSeries([{ mpn: 'TK-16', ocr: false }], [lines])).toEqual([]);
   });
 });

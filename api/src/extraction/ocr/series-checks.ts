@@ -19,6 +19,8 @@ import { seriesLetters } from '../part-numbers';
 const SMOOTH: readonly ExtractionField[] = ['izt', 'izk', 'irMax', 'vr', 'zzt', 'zzk', 'pdMax', 'tjMax', 'rthJA'];
 /** A figure this many times above or below both of its neighbours (or the two nearest on its only side) is not believed. */
 const JUMP = 7;
+/** A leakage test voltage whose share of VZ is this many times above or below both neighbours' is not believed. */
+const SHARE_JUMP = 2.5;
 
 /** The significant digits of a number: 8.2 → "82", 10 → "1", 0.33 → "33". */
 function digitsOf(n: number): string {
@@ -81,20 +83,26 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
     const ordered = series.map((v, i) => ({ v, key: v.fields.vzNom?.si ?? v.fields.vzMax?.si ?? v.fields.vzMin?.si, i }));
     const known = ordered.filter((o) => o.key !== undefined);
     const sorted = known.length === ordered.length ? [...ordered].sort((a, b) => a.key! - b.key! || a.i - b.i) : ordered;
-    for (const field of SMOOTH) {
-      const holding = sorted.filter((o) => o.v.fields[field] !== undefined && o.v.fields[field]!.si > 0);
-      if (holding.length < 3) continue;
+    /** Flags a part whose figure (by `figure`) is `jump` times above or below both of its neighbours holding one. */
+    const unlikeNeighbours = (field: ExtractionField, figure: (v: ExtractedVariant) => number | undefined, jump: number) => {
+      const holding = sorted.filter((o) => (figure(o.v) ?? 0) > 0);
+      if (holding.length < 3) return;
       holding.forEach((o, k) => {
-        const value = o.v.fields[field]!;
-        if (!value.ocr) return;
+        if (!o.v.fields[field]?.ocr) return;
         const before = holding.slice(0, k).reverse();
         const after = holding.slice(k + 1);
         const near = before.length && after.length ? [before[0], after[0]] : (before.length ? before : after).slice(0, 2);
         if (near.length < 2) return;
-        const ratios = near.map((n) => value.si / n.v.fields[field]!.si);
-        if (ratios.every((r) => r >= JUMP) || ratios.every((r) => r <= 1 / JUMP)) flag(o.v.mpn, field);
+        const ratios = near.map((n) => figure(o.v)! / figure(n.v)!);
+        if (ratios.every((r) => r >= jump) || ratios.every((r) => r <= 1 / jump)) flag(o.v.mpn, field);
       });
-    }
+    };
+    for (const field of SMOOTH) unlikeNeighbours(field, (v) => v.fields[field]?.si, JUMP);
+    // The leakage test voltage as a share of VZ changes slowly along a series (about 0.3 at 3 V to
+    // 0.7–0.8 above 10 V; common practice, no source), so a digit misread in VR ("7,7" as 1.7
+    // beside 7 and 8.4 V) shows as a share far from both neighbours' even where the figure alone does not.
+    const vzOf = (v: ExtractedVariant) => v.fields.vzNom?.si ?? v.fields.vzMax?.si ?? v.fields.vzMin?.si;
+    unlikeNeighbours('vr', (v) => (v.fields.vr && vzOf(v) ? v.fields.vr.si / vzOf(v)! : undefined), SHARE_JUMP);
     // VZ as the part number's digits, at the scale the series' own parts show ("TKV27" at 27 V,
     // "TM-082" at 8.2 V): learnt from the parts whose nominal VZ is exactly their digits, or whose
     // VZ limits sit within 10 % around them, when two thirds of the series (two parts or more)
@@ -164,14 +172,15 @@ export function capitalised(mpn: string, others: readonly string[]): string | nu
  * number starts with, and no line but its own mentions them ("TK-16" alone, where the page's
  * title and every other row say TJK: a letter lost). A datasheet names its series in its title,
  * headings or ordering table, so a real lone part is mentioned again. Precision before recall:
- * such a part is left out.
+ * such a part is left out. `readings`: the document's lines as each OCR reading has them.
  */
-export function unnamedSeries(variants: ReadonlyArray<{ mpn: string; ocr: boolean }>, lines: readonly string[]): string[] {
+export function unnamedSeries(variants: ReadonlyArray<{ mpn: string; ocr: boolean }>, readings: ReadonlyArray<readonly string[]>): string[] {
   const members = new Map<string, number>();
   for (const v of variants) members.set(seriesLetters(v.mpn), (members.get(seriesLetters(v.mpn)) ?? 0) + 1);
+  // Per reading of the document (its lines): a part's own row, read twice, is still one mention.
   const mentions = (letters: string) => {
     const word = new RegExp(`(?<![\\p{L}\\d])${letters}(?!\\p{L})`, 'giu');
-    return lines.reduce((n, line) => n + (line.match(word)?.length ?? 0), 0);
+    return Math.max(0, ...readings.map((lines) => lines.reduce((n, line) => n + (line.match(word)?.length ?? 0), 0)));
   };
   return variants
     .filter((v) => {
