@@ -66,6 +66,9 @@ async function main(): Promise<void> {
       const e = g?.fields[f as keyof typeof g.fields];
       return `${f}=${a.value}${a.unit}${e ? (Math.abs(e.si - a.si) <= 1e-6 * Math.abs(a.si) + 1e-12 ? '✓' : `✗(${e.si} ← ${e.text})`) : '·'}`;
     });
+    // Values for a field the document does not print count as wrong too.
+    const extra = Object.entries(g?.fields ?? {}).filter(([f]) => !(f in v.fields));
+    row.push(...extra.map(([f, e]) => `${f}: not printed ✗(${e!.si} ← ${e!.text})`));
     console.log(`${v.mpn}${g ? '' : ' (NOT FOUND)'}: ${row.join(' ')}`);
   }
   for (const v of r.variants) if (!doc.answers.variants.some((a) => a.mpn === v.mpn)) console.log(`invented: ${v.mpn}`);

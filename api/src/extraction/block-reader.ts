@@ -26,10 +26,12 @@ interface QualifierColumn {
 }
 
 function headingOf(line: Line): string | undefined {
-  if (line.cells.length > 3) return undefined;
-  // "XY5V1 (IT = 5 mA, IZ(K) = 0.5 mA)": a heading with the part's test conditions in brackets.
-  const withConditions = /^(\S+)\s*\(([^()]*(?:\([^()]*\)[^()]*)*)\)$/.exec(line.cells[0].text);
+  // "XY5V1 (IT = 5 mA, IZ(K) = 0.5 mA)": a heading with the part's test conditions in brackets,
+  // in one cell or several (a scan reads wider gaps between its words).
+  const bracketed = /^(\S+)\s*\(([^()]*(?:\([^()]*\)[^()]*)*)\)$/;
+  const withConditions = bracketed.exec(line.cells[0].text) ?? bracketed.exec(line.text);
   if (withConditions && isPartNumber(withConditions[1]) && findConditions(withConditions[2]).conditions.length > 0) return withConditions[1];
+  if (line.cells.length > 3) return undefined;
   const mpn = headingPartNumber(line.cells[0].text);
   if (!mpn) return undefined;
   return line.cells.slice(1).some((c) => isNumericCell(c.text)) ? undefined : mpn;

@@ -249,6 +249,21 @@ describe('a line inside a part’s block that names another part', () => {
   });
 });
 
+describe('a part heading with its test conditions in brackets', () => {
+  it('starts the part\'s block when a scan read its words as four cells or more ("QRN6V8 | (IZT = | 1 | mA)")', () => {
+    const block = (mpn: string, y: number, vz: string, zz: string) => [
+      ...row(y, [50, 95, 130, 142], [mpn, '(IZT =', '1', 'mA)']),
+      ...row(y - 12, [50, 200, 215], ['Breakdown voltage Typ., VBR', vz, 'V']),
+      ...row(y - 24, [50, 200, 215], ['Differential resistance Max., rzj', zz, 'ohm']),
+    ];
+    const result = extractRatings(pdf([...block('QRN6V8', 700, '6.8', '76'), ...block('QRN7V5', 640, '7.5', '73')]));
+    const [a, b] = ['QRN6V8', 'QRN7V5'].map((m) => result.variants.find((v) => v.mpn === m));
+    // Each part keeps its own figures and the condition of its heading (the 76 Ω and 73 Ω no longer meet in one block).
+    expect(a?.fields).toMatchObject({ vzNom: { si: 6.8 }, zzt: { si: 76 }, izt: { si: 0.001 } });
+    expect(b?.fields).toMatchObject({ vzNom: { si: 7.5 }, zzt: { si: 73 }, izt: { si: 0.001 } });
+  });
+});
+
 describe('ratings in prose', () => {
   it('reads a part paragraph clause by clause, conditions included', () => {
     const result = extractRatings(

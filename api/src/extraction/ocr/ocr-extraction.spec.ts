@@ -29,7 +29,9 @@ function engineReading(lines: OcrLine[], cells: OcrLine[] = []): OcrEngine {
   return { read: async () => lines, readCells: async () => cells, probe: async () => [], stop: async () => undefined } as unknown as OcrEngine;
 }
 
+// A datasheet names its series beside its part rows (the title here).
 const block = [
+  line(350, [250, 'Invented Devices XQ series']),
   line(400, [250, 'XQ5V1A']),
   line(450, [250, 'Zener voltage, VZ ..........'], [1400, '5.1 V']),
   line(500, [250, 'Test current, IZT ..........'], [1400, '5 mA']),
@@ -46,15 +48,15 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
   });
 
   it('combines the two readings (whole page, cell by cell): a part or value only one read stands, two different figures for a field are both left out', async () => {
-    const half = block.slice(0, 3);
+    const half = block.slice(0, 4);
     // Each reading alone holds only one of the parts: together they hold both.
-    const parts = await extractWithOcr(scanned, { engine: engineReading(half, block.slice(3)), dpi: 300, maxOcrPages: 1 });
+    const parts = await extractWithOcr(scanned, { engine: engineReading(half, [block[0], ...block.slice(4)]), dpi: 300, maxOcrPages: 1 });
     expect(parts.variants.map((v) => v.mpn).sort()).toEqual(['XQ5V1A', 'XQ6V2A']);
     // XQ5V1A: the cell reading adds its leakage; XQ6V2A: the readings disagree on IZT (5 mA against 3 mA).
     const cells = [
       ...half,
       line(520, [250, 'Leakage current, IR ..........'], [1400, '2 µA']),
-      ...block.slice(3, 5),
+      ...block.slice(4, 6),
       line(650, [250, 'Test current, IZT ..........'], [1400, '3 mA']),
     ];
     const both = await extractWithOcr(scanned, { engine: engineReading(block, cells), dpi: 300, maxOcrPages: 1 });
@@ -89,7 +91,8 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
   it('leaves out the parts a legend read for another series did not expand (a base number is not a part), and keeps the expanded ones', async () => {
     // The XQ legend reads whole; the KRV series' own legend lost its figures ("C %"), so KRV20 stays a bare base number.
     const lines = [
-      ...block.map((l, i) => (i % 3 === 0 ? line(l.baseline.y0, [250, l.words[0].text.replace(/A$/, '')]) : l)),
+      block[0],
+      ...block.slice(1).map((l, i) => (i % 3 === 0 ? line(l.baseline.y0, [250, l.words[0].text.replace(/A$/, '')]) : l)),
       line(700, [250, 'KRV20']),
       line(750, [250, 'Zener voltage, VZ ..........'], [1400, '20 V']),
       line(800, [250, 'Test current, IZT ..........'], [1400, '10 mA']),

@@ -6,7 +6,7 @@ import { pageLines } from '../text-layout';
 import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
 import type { OcrEngine } from './ocr-engine';
 import { ocrPages } from './page-ocr';
-import { capitalised, detachedPoint, seriesOutliers, unnamedSeries } from './series-checks';
+import { capitalised, detachedPoint, oneEditApart, seriesOutliers, unnamedSeries } from './series-checks';
 
 /**
  * The whole reading of one file: the text layer where there is one, OCR for the pages that
@@ -223,6 +223,12 @@ export function misreadPartNumbers(mpns: readonly string[]): string[] {
     }
     const shapes = new Map<string, number>();
     for (const o of siblings) shapes.set(shapeOf(o), (shapes.get(shapeOf(o)) ?? 0) + 1);
+    // An O or I between two digits ("GJ0O91J"): a digit misread or read twice; part numbers keep
+    // these letters away from digits (common practice, no source).
+    if (/\d[OI]\d/.test(m)) {
+      out.push(m);
+      continue;
+    }
     // A digit read as the letter it looks like, after the first digit ("SC1S" beside SC13, SC15,
     // SC16): with the letters read as digits it is another part of the list, or has the shape
     // of two or more of the series while its own shape is held by none.
@@ -258,15 +264,6 @@ function asDigits(mpn: string): string {
   const first = mpn.search(/\d/);
   if (first < 0) return mpn;
   return mpn.slice(0, first) + mpn.slice(first).replace(/(?<=\d)[SOoIlBZG](?=\d|$)/g, (c) => DIGIT_LOOKALIKES[c]);
-}
-
-/** Whether two series' letters differ by one letter dropped or changed (KJM / KM, KJM / KIM). */
-function oneEditApart(a: string, b: string): boolean {
-  if (a.length === b.length) return [...a].filter((c, i) => c !== b[i]).length === 1;
-  const [long, short] = a.length > b.length ? [a, b] : [b, a];
-  if (long.length !== short.length + 1) return false;
-  for (let i = 0; i < long.length; i++) if (long.slice(0, i) + long.slice(i + 1) === short) return true;
-  return false;
 }
 
 /** Whether removing one letter of `longer` (not its first or last character) gives `shorter`: 100 among 10, 12, 15 is a real part, 4VT7 among 5V1, 5V6 is not. */
@@ -414,7 +411,7 @@ function documentChecks(marked: ExtractedVariant[], readings: string[][] | null,
     warnings.push(`${v.mpn}: ${leaveOut(fields, off).join(', ')} read by OCR far from the other parts of the series; left empty, check the page.`);
     return Object.keys(fields).length ? [{ ...v, fields }] : [];
   });
-  // A part of a series no other part and no other line names (a letter lost from its number).
+  // Parts of a series no line but their own rows names (a letter lost or misread alike on every row).
   // Only on the combined readings (`readings`, the lines of each): a part one reading found alone may be named by the other.
   const lone =
     readings === null
@@ -425,7 +422,7 @@ function documentChecks(marked: ExtractedVariant[], readings: string[][] | null,
         );
   for (const mpn of lone) {
     warnings.push(
-      `${mpn}: read by OCR, but no other part and no other line of the document names its series (a misread character?); its values are left out, check the page.`,
+      `${mpn}: read by OCR, but no line of the document besides its series' own rows names the series (a misread character?); its values are left out, check the page.`,
     );
   }
   variants = variants.filter((v) => !lone.includes(v.mpn));

@@ -1,6 +1,6 @@
 import { mergeReadings, readingQuality, type OcrLine, type OcrWord } from './ocr-engine';
 import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
-import { ocrItems, repairOcrWord, skewOf, unitsRow } from './ocr-items';
+import { legendSigns, ocrItems, repairOcrWord, skewOf, unitsRow } from './ocr-items';
 import { pageBody } from './page-ocr';
 
 /**
@@ -27,6 +27,14 @@ describe('repairOcrWord', () => {
     ['1ZT', 'IZT'],
     ['1IZT', 'IZT'],
     ['lZK', 'IZK'],
+    ['(1ZT', '(IZT'],
+    ['(I1ZT', '(IZT'],
+    ['1Z(K)', 'IZ(K)'],
+    ['1Z', 'IZ'],
+    ['mv/°C', 'mV/°C'],
+    ['+2.4mv/K', '+2.4mV/K'],
+    ['Vv', 'V'],
+    ['v', 'V'],
     ['aVvVZ', 'αVZ'],
     ['BRZ05-2Vv7', 'BRZ05-2V7'],
     ['BRZ05-2v4', 'BRZ05-2V4'],
@@ -190,6 +198,15 @@ describe('merging the block and sparse readings of a page', () => {
   });
 });
 
+describe('a tolerance legend read by OCR', () => {
+  it("reads a plus before a tolerance letter's percentage as ±, and nowhere else", () => {
+    const read = (text: string) => legendSigns(text.split(' ')).join(' ');
+    expect(read('gives it (A ±1 %, B +2 %, C ±5 %).')).toBe('gives it (A ±1 %, B ±2 %, C ±5 %).');
+    expect(read('B +2%')).toBe('B ±2%');
+    expect(read('Vcc +5 % and A +2 V')).toBe('Vcc +5 % and A +2 V');
+  });
+});
+
 describe('a units row read by OCR', () => {
   const row = (text: string) => unitsRow(text.split(' ').map(repairOcrWord));
   it('reads the lone letters the engine makes of a unit as that unit, in a row of units only', () => {
@@ -223,6 +240,8 @@ describe('part numbers misread by OCR', () => {
     // A suffix letter the series carries (B tolerance, G packing) is no misreading.
     expect(misreadPartNumbers(['QZ5V1B', 'QZ5V6B', 'QZ6V2B', 'QZ6V8B'])).toEqual([]);
     expect(misreadPartNumbers(['KDZ10G', 'KDZ12G', 'KDZ15G'])).toEqual([]);
+    // An O or I between digits: a digit misread or read twice (GJ091J read as GJ0O91J).
+    expect(misreadPartNumbers(['GJ082J', 'GJ082K', 'GJ0O91J', 'GJ0O91K'])).toEqual(['GJ0O91J', 'GJ0O91K']);
   });
 
   it("leaves out part numbers that lost their series' hyphen, even when several lost it alike", () => {

@@ -50,7 +50,10 @@ export function repairOcrWord(raw: string): string | undefined {
   w = w.replace(/^(\d+(?:\.\d+)?)?mw$/, '$1mW').replace(/^K\/[wW]{1,2}$/, 'K/W');
   if (/^\(?©\)?$|^°c$/.test(w)) w = '°C';
   // Symbols: I read as 1 or l before Z; α before VZ read as a.
-  w = w.replace(/^[1lI|]{1,2}Z([TKM])/, 'IZ$1').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
+  // Also inside a condition's bracket, and before a bracketed index: "(1ZT", "I1ZT", "1Z(K)", "1Z = 5 mA".
+  w = w.replace(/^(\(?)[1lI|]{1,2}Z(?=[TKM(]|$)/, '$1IZ').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
+  // Millivolts in a small v ("mv/°C", "+2.4mv/K"): no other unit is spelt so.
+  w = w.replace(/^([+\-−]?\d+(?:\.\d+)?)?mv(?=\/|$)/, '$1mV');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
   w = w.replace(/(\d)[Vv]{1,2}(?=\d)/g, '$1V');
   // A token that starts like a number but carries other marks (234], 1:, 5:7.) is not trusted.
@@ -95,7 +98,7 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     const b = line.baseline;
     const start = unskew(b.x0, b.y0);
     const size = Math.max(1, line.rowHeight / g.scale);
-    const texts = unitsRow(line.words.map((w) => repairOcrWord(w.text)));
+    const texts = legendSigns(unitsRow(line.words.map((w) => repairOcrWord(w.text))));
     for (const [w, word] of line.words.entries()) {
       const text = texts[w];
       if (!text) continue;
@@ -143,6 +146,20 @@ export function unitsRow(words: ReadonlyArray<string | undefined>): Array<string
   const units = present.filter(isUnit).length;
   if (present.length < 3 || units < (2 / 3) * present.length || present.some((w) => !isUnit(w) && w.length > 2)) return [...words];
   return words.map((w) => (w === undefined || isUnit(w) ? w : ROW_UNIT_MISREADINGS.reduce((t, [re, to]) => t.replace(re, to), w)));
+}
+
+/**
+ * A tolerance letter's percentage read with a plus for its ± ("B +2 %" in "A ±1 %, B +2 %, C ±5
+ * %"): a lone capital, then a plus and a figure, then %. Suffix tolerances are symmetrical (common
+ * practice, no source); the legend reader still asks for a legend's wording around it. Exported for its unit spec.
+ */
+export function legendSigns(words: ReadonlyArray<string | undefined>): Array<string | undefined> {
+  return words.map((w, i) => {
+    if (w === undefined || !/^\+\d+(?:\.\d+)?%?$/.test(w)) return w;
+    const before = words[i - 1];
+    const pct = w.endsWith('%') || /^%/.test(words[i + 1] ?? '');
+    return pct && before !== undefined && /^[(,]?[A-Z][:=]?$/.test(before) ? `±${w.slice(1)}` : w;
+  });
 }
 
 function round(x: number): number {

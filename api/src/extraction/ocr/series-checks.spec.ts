@@ -83,6 +83,8 @@ describe('OCR text around a figure', () => {
     expect(capitalised('FJJF300', ['FJJF330', 'FSDT330'])).toBeUndefined();
     // Too few capital part numbers beside it to judge.
     expect(capitalised('Zq-5v1', ['Zq-5v6', 'ZQ-6V2'])).toBeUndefined();
+    // A small o touching a digit is a zero misread (or read twice), not an O.
+    expect(capitalised('GJ0o91', ['GJ082', 'GJ100', 'GJ110'])).toBeNull();
   });
 });
 
@@ -94,17 +96,35 @@ describe('an OCR part of a series the document names nowhere else', () => {
     expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines])).toEqual(['TK-16']);
   });
 
-  it('stays when the title, a heading or an ordering code names its series again, or another part shares it', () => {
+  it('stays when the title, a heading or an ordering code names its series again', () => {
     expect(unnamedSeries(parts('TJK-16', 'TNLS-30', 'TNLS-33'), [lines.map((l) => l.replace('TK-16', 'TJK-16'))])).toEqual([]);
-    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [[...lines, 'Ordering code TK-16-TR']])).toEqual([]);
-    expect(unnamedSeries(parts('TK-16', 'TK-18'), [[...lines, 'TK-18  18  5']])).toEqual([]);
+    // Where no series one letter off is named, an ordering code naming it again is enough.
+    const untitled = lines.slice(1);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [[...untitled, 'Ordering code TK-16-TR']])).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [untitled])).toEqual(['TK-16']);
+    // Letters one off the title's series (TJK) stay doubtful however often the rows repeat them.
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30'), [[...lines, 'Ordering code TK-16-TR']])).toEqual(['TK-16']);
+    // Two parts of a series are not enough: with no other line naming TK, both are misreadings alike.
+    expect(unnamedSeries(parts('TK-16', 'TK-18'), [[...lines, 'TK-18  18  5']])).toEqual(['TK-16', 'TK-18']);
     // A symbol that starts with the same letters (TKVZ, a coefficient) is no mention of the series.
     expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [[...lines, 'TKVZ  Temperature coefficient']])).toEqual(['TK-16']);
   });
 
+  it('leaves out a whole series whose letters no line but its own rows mentions (NKVO0xx where the title says NKV)', () => {
+    const doc = ['Invented Devices   NJS and NKV series', 'NJS039  3.9  5', 'NJS043  4.3  5', 'NKVO043  4.3  20', 'NKVO047  4.7  20', 'NKVO051  5.1  20'];
+    expect(unnamedSeries(parts('NJS039', 'NJS043', 'NKVO043', 'NKVO047', 'NKVO051'), [doc])).toEqual(['NKVO043', 'NKVO047', 'NKVO051']);
+    const read = doc.map((l) => l.replace(/NKVO/g, 'NKV'));
+    expect(unnamedSeries(parts('NJS039', 'NJS043', 'NKV043', 'NKV047', 'NKV051'), [read])).toEqual([]);
+    // A scan of the table page alone may name its series only in its rows: kept, unless a series one letter off is named.
+    expect(unnamedSeries(parts('NKV043', 'NKV047', 'NKV051'), [read.slice(3)])).toEqual([]);
+  });
+
   it('counts mentions per reading: the same row read by both OCR readings is still its only mention', () => {
     expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines, lines])).toEqual(['TK-16']);
-    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines, [...lines, 'Ordering code TK-16-TR']])).toEqual([]);
+    expect(unnamedSeries(parts('TK-16', 'TNLS-30', 'TNLS-33'), [lines.slice(1), [...lines.slice(1), 'Ordering code TK-16-TR']])).toEqual([]);
+    // A row of another misread part (KIM36, in the other reading) is no naming of KIM30's series: the title says KJM.
+    const kjm = ['KPB and KJM series', 'KIM30  B2  29.4  30.00'];
+    expect(unnamedSeries(parts('KIM30', 'KPB10', 'KPB11'), [kjm, ['KPB and KJM series', 'KJM30  B2  29.4', 'KIM36  B4  36.7']])).toEqual(['KIM30']);
   });
 
   it('is never applied to a part read from a text layer', () => {

@@ -162,30 +162,59 @@ const SAME_SHAPE = /[cjkopsuvwxz]/g;
  */
 export function capitalised(mpn: string, others: readonly string[]): string | null | undefined {
   if (!/\p{Ll}/u.test(mpn)) return undefined;
+  // A small o or l touching a digit is a digit misread ("GJ0o91" for GJ091), never a capital's shape.
+  if (/\d[ol]|[ol]\d/.test(mpn)) return null;
   if (others.filter((o) => o !== mpn && /\p{Lu}/u.test(o) && !/\p{Ll}/u.test(o)).length < 2) return undefined;
   const mended = mpn.replace(SAME_SHAPE, (c) => c.toUpperCase());
   return /\p{Ll}/u.test(mended) ? null : mended;
 }
 
 /**
- * OCR'd parts of a series the document names nowhere else: no other part shares the letters its
- * number starts with, and no line but its own mentions them ("TK-16" alone, where the page's
- * title and every other row say TJK: a letter lost). A datasheet names its series in its title,
- * headings or ordering table, so a real lone part is mentioned again. Precision before recall:
- * such a part is left out. `readings`: the document's lines as each OCR reading has them.
+ * OCR'd parts of a series the document names nowhere else: no line but the parts' own mentions
+ * the letters their numbers start with ("TK-16" alone, where the page's title and every other
+ * row say TJK: a letter lost; "NKVO043, NKVO047, NKVO051" where the title says "NKV series": a
+ * zero read as an O, alike on every row). A datasheet names its series in its title, headings
+ * or ordering table, so the letters of a real series are mentioned more often than it has
+ * parts. Precision before recall: such parts are left out. `readings`: the document's lines as
+ * each OCR reading has them (mentions are counted per reading).
  */
 export function unnamedSeries(variants: ReadonlyArray<{ mpn: string; ocr: boolean }>, readings: ReadonlyArray<readonly string[]>): string[] {
   const members = new Map<string, number>();
   for (const v of variants) members.set(seriesLetters(v.mpn), (members.get(seriesLetters(v.mpn)) ?? 0) + 1);
-  // Per reading of the document (its lines): a part's own row, read twice, is still one mention.
-  const mentions = (letters: string) => {
+  // Per reading of the document (its lines): the mentions of the letters beyond one for each of
+  // the series' parts whose number that reading holds (its own row). A reading may hold only some.
+  const namedElsewhere = (letters: string) => {
     const word = new RegExp(`(?<![\\p{L}\\d])${letters}(?!\\p{L})`, 'giu');
-    return Math.max(0, ...readings.map((lines) => lines.reduce((n, line) => n + (line.match(word)?.length ?? 0), 0)));
+    const series = variants.filter((v) => seriesLetters(v.mpn) === letters).map((v) => v.mpn.toUpperCase());
+    return readings.some((lines) => {
+      const mentions = lines.reduce((n, line) => n + (line.match(word)?.length ?? 0), 0);
+      const rows = series.filter((mpn) => lines.some((line) => line.toUpperCase().includes(mpn))).length;
+      return mentions > rows;
+    });
   };
+  // Series named as a word (capitals not followed by a number: "KPB and KJM series"), per reading.
+  const namedWords = new Set(readings.flatMap((lines) => lines.flatMap((line) => line.match(/(?<![\p{L}\d\-/])\p{Lu}{2,}(?![\p{L}\d]|[-\s.]?\d)/gu) ?? [])));
+  // Letters one off a series the document names ("KIM30" or "NKVO043" where the title says KJM or
+  // NKV): a misreading, however many rows share it.
+  const misreadOfNamed = (letters: string) => [...namedWords].some((w) => w !== letters && oneEditApart(w, letters));
+  // A series of two or more parts named nowhere else is kept otherwise: a scan of the table page
+  // alone may name its series only in its rows.
+  const doubtful = new Map(
+    [...members.entries()].map(([letters, n]) => [letters, !namedWords.has(letters) && (misreadOfNamed(letters) || (n === 1 && !namedElsewhere(letters)))]),
+  );
   return variants
     .filter((v) => {
       const letters = seriesLetters(v.mpn);
-      return v.ocr && letters.length >= 2 && members.get(letters) === 1 && mentions(letters) <= 1;
+      return v.ocr && letters.length >= 2 && doubtful.get(letters);
     })
     .map((v) => v.mpn);
+}
+
+/** Whether two series' letters differ by one letter dropped or changed (KJM / KM, KJM / KIM). */
+export function oneEditApart(a: string, b: string): boolean {
+  if (a.length === b.length) return [...a].filter((c, i) => c !== b[i]).length === 1;
+  const [long, short] = a.length > b.length ? [a, b] : [b, a];
+  if (long.length !== short.length + 1) return false;
+  for (let i = 0; i < long.length; i++) if (long.slice(0, i) + long.slice(i + 1) === short) return true;
+  return false;
 }
