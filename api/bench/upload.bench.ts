@@ -10,26 +10,16 @@
  */
 import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { listDatasheetFixtures } from '@shuntwise/test-fixtures';
 import { extractDatasheet } from '../src/extraction';
 import { median, p90 } from './bench-support';
+import { freePort } from '../src/dev/free-port';
 
 const RUNS = 15;
 const root = join(__dirname, '..', '..');
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const a = s.address();
-      s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
-    });
-  });
 
 async function main(): Promise<void> {
   const start = join(root, 'api', 'dist', 'dev', 'start.js');
