@@ -117,6 +117,10 @@ describe('an OCR part of a series the document names nowhere else', () => {
     expect(unnamedSeries(parts('NJS039', 'NJS043', 'NKV043', 'NKV047', 'NKV051'), [read])).toEqual([]);
     // A scan of the table page alone may name its series only in its rows: kept, unless a series one letter off is named.
     expect(unnamedSeries(parts('NKV043', 'NKV047', 'NKV051'), [read.slice(3)])).toEqual([]);
+    // Two capitals are as often a unit, a symbol or an abbreviation as a series: "CB" on the page
+    // says nothing about the CBX3 series (the whole series had been left out of a fixture scan).
+    const cbx = ['CB  Invented Devices  CBX3 series', 'CBX3-2.4  2.4  5', 'CBX3-2.7  2.7  5', 'CBX3-3.0  3.0  5'];
+    expect(unnamedSeries(parts('CBX3-2.4', 'CBX3-2.7', 'CBX3-3.0'), [cbx])).toEqual([]);
   });
 
   it('counts mentions per reading: the same row read by both OCR readings is still its only mention', () => {

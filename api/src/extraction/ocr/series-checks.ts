@@ -195,8 +195,9 @@ export function unnamedSeries(variants: ReadonlyArray<{ mpn: string; ocr: boolea
   // Series named as a word (capitals not followed by a number: "KPB and KJM series"), per reading.
   const namedWords = new Set(readings.flatMap((lines) => lines.flatMap((line) => line.match(/(?<![\p{L}\d\-/])\p{Lu}{2,}(?![\p{L}\d]|[-\s.]?\d)/gu) ?? [])));
   // Letters one off a series the document names ("KIM30" or "NKVO043" where the title says KJM or
-  // NKV): a misreading, however many rows share it.
-  const misreadOfNamed = (letters: string) => [...namedWords].some((w) => w !== letters && oneEditApart(w, letters));
+  // NKV): a misreading, however many rows share it. The named word has three letters or more: two
+  // capitals are as often a unit, a symbol or an abbreviation ("CB" on a page of the CBX3 series).
+  const misreadOfNamed = (letters: string) => [...namedWords].some((w) => w !== letters && w.length >= 3 && oneEditApart(w, letters));
   // A series of two or more parts named nowhere else is kept otherwise: a scan of the table page
   // alone may name its series only in its rows.
   const doubtful = new Map(
