@@ -68,6 +68,7 @@ interface ValueToken {
 }
 
 export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDrafts): void {
+  const vz = new VzLines();
   for (const lines of pages) {
     let mpn: string | undefined;
     let order = 0;
@@ -96,6 +97,7 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       }
       const heading = headingOf(line);
       if (heading) {
+        vz.endBlock();
         mpn = heading;
         order = orderOf(line.page, line.index);
         qualifiers = undefined;
@@ -119,6 +121,7 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       }
       // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.
       if (SECTION_TITLE.test(line.text) && line.cells.length <= 2 && !findQuantities(line.text).some((t) => t.unit)) {
+        vz.endBlock();
         mpn = undefined;
         continue;
       }
@@ -143,7 +146,51 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       // tolerance-suffix.ts) or a line naming another part ("Example: NS220A is the 22 V type").
       if (TOLERANCE_LEGEND_CONTEXT.test(line.text) || namesAnotherPart(line.text, mpn)) continue;
       const current = mpn;
-      readLine(line, qualifiers, () => drafts.get(current, order));
+      readLine(line, qualifiers, () => drafts.get(current, order), vz);
+    }
+    vz.endBlock();
+  }
+  vz.settle();
+}
+
+type Offer = Parameters<VariantDraft['offer']>[1];
+
+/**
+ * The Zener-voltage lines of the document's part blocks. A line that names no qualifier
+ * ("Zener voltage, UZ ..... 46.1 V") is the nominal where the document's blocks print VZ that
+ * way. Where other VZ lines of the document carry "min", "typ" or "max", the layout qualifies
+ * its VZ lines, and an unqualified one is most likely a line whose qualifier was lost (a scan
+ * dropped "min."): it stands as the nominal only where its own block also has a qualified
+ * minimum and maximum and it lies between them. Otherwise it is left out rather than returned
+ * as a wrong nominal.
+ */
+class VzLines {
+  private block = new Map<'vzMin' | 'vzNom' | 'vzMax', number>();
+  private qualifiedAnywhere = false;
+  private readonly held: Array<{ draft: () => VariantDraft; offer: Offer; between: () => boolean }> = [];
+
+  qualifiedLine(field: 'vzMin' | 'vzNom' | 'vzMax', si: number): void {
+    this.qualifiedAnywhere = true;
+    if (!this.block.has(field)) this.block.set(field, si);
+  }
+
+  unqualifiedLine(draft: () => VariantDraft, offer: Offer): void {
+    const block = this.block;
+    const between = () => {
+      const [min, max] = [block.get('vzMin'), block.get('vzMax')];
+      return min !== undefined && max !== undefined && offer.si > min && offer.si < max;
+    };
+    this.held.push({ draft, offer, between });
+  }
+
+  endBlock(): void {
+    this.block = new Map();
+  }
+
+  /** Offers the unqualified lines that stand, once every block of the document has been read. */
+  settle(): void {
+    for (const { draft, offer, between } of this.held.splice(0)) {
+      if (!this.qualifiedAnywhere || between()) draft().offer('vzNom', offer);
     }
   }
 }
@@ -159,7 +206,7 @@ export function namesAnotherPart(text: string, mpn: string): boolean {
   });
 }
 
-function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft): void {
+function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft, vz: VzLines): void {
   const cleaned = line.cells.map((cell) => ({ cell, rest: findConditions(cell.text).rest }));
   const labelParts: string[] = [];
   const values: ValueToken[] = [];
@@ -192,6 +239,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   const method = qualifiers ? 'table' : 'list';
 
   const chosen: Array<[ExtractionField, ValueToken]> = [];
+  let unqualifiedVz = false;
   const byQualifier = (wanted: Qualifier[]) => {
     if (!qualifiers) return undefined;
     for (const w of wanted) {
@@ -211,7 +259,10 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
       }
     } else if (match.qualifier) chosen.push([f, values[0]]);
     else if (values.length === 3) chosen.push(['vzMin', values[0]], ['vzNom', values[1]], ['vzMax', values[2]]);
-    else chosen.push(['vzNom', values[0]]);
+    else {
+      chosen.push(['vzNom', values[0]]);
+      unqualifiedVz = true;
+    }
   } else if (f === 'tc') {
     const v = qualifiers ? byQualifier(['typ', 'nom']) : match.rank > 0 ? values[0] : undefined;
     if (v) chosen.push([f, v]);
@@ -226,7 +277,12 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
     if (!k || !FIELD_KINDS[field].includes(k)) continue;
     const si = toSi(v.token.value, unit, k);
     if (si === undefined) continue;
-    draft().offer(field, { value: v.token.value, unit, kind: k, si, page: line.page, text: line.printed, box: cellBox(v.cell), rank: 2, method });
+    const offer: Offer = { value: v.token.value, unit, kind: k, si, page: line.page, text: line.printed, box: cellBox(v.cell), rank: 2, method };
+    if (unqualifiedVz) vz.unqualifiedLine(draft, offer);
+    else {
+      if (field === 'vzMin' || field === 'vzNom' || field === 'vzMax') vz.qualifiedLine(field, si);
+      draft().offer(field, offer);
+    }
   }
   // Test conditions on the line: "IZ = 5 mA" on a VZ line is IZT, on a ZZK line IZK; "VR = 2 V" on an IR line.
   for (const cell of line.cells) {

@@ -264,6 +264,70 @@ describe('a part heading with its test conditions in brackets', () => {
   });
 });
 
+describe('a Zener-voltage line without its qualifier where the document qualifies its VZ lines', () => {
+  // Each part's block prints VZ as min., nom. and max. lines (common practice, no source). A scan
+  // can lose the "min." of one line; the figure left over is the minimum, not the nominal.
+  const block = (mpn: string, y: number, lines: Array<[string, string]>) => [
+    item(mpn, 50, y, 10, 40),
+    ...lines.flatMap(([label, value], i) => row(y - 12 * (i + 1), [50, 220], [label, value])),
+  ];
+  const qualified = (mpn: string, y: number, [min, nom, max]: string[]) =>
+    block(mpn, y, [
+      ['Zener voltage min., UZ', min],
+      ['Zener voltage nom., UZ', nom],
+      ['Zener voltage max., UZ', max],
+    ]);
+
+  it('is not returned as the nominal unless its own block brackets it with a qualified minimum and maximum', () => {
+    const result = extractRatings(
+      pdf([
+        ...qualified('QRN43', 760, ['40.9 V', '43 V', '45.2 V']),
+        // "min." lost; the block's nominal line was not read at all (as on a fresh scan).
+        ...block('QRN47', 680, [
+          ['Zener voltage, UZ', '44.7 V'],
+          ['Leakage current max., IR', '0.05 µA'],
+        ]),
+        // "min." lost beside a qualified maximum.
+        ...block('QRN51', 620, [
+          ['Zener voltage, UZ', '48.5 V'],
+          ['Zener voltage max., UZ', '53.6 V'],
+        ]),
+      ]),
+    );
+    const fields = (mpn: string) => result.variants.find((v) => v.mpn === mpn)?.fields;
+    expect(fields('QRN43')).toMatchObject({ vzMin: { si: 40.9 }, vzNom: { si: 43 }, vzMax: { si: 45.2 } });
+    expect(fields('QRN47')?.vzNom).toBeUndefined();
+    expect(fields('QRN51')?.vzNom).toBeUndefined();
+    expect(fields('QRN51')?.vzMax?.si).toBe(53.6);
+  });
+
+  it("stands as the nominal where the document prints VZ unqualified, or between its block's qualified minimum and maximum", () => {
+    const plain = extractRatings(
+      pdf([
+        ...block('QRN51', 700, [
+          ['Zener voltage, UZ', '5.1 V'],
+          ['Leakage current max., IR', '2 µA'],
+        ]),
+        ...block('QRN56', 640, [
+          ['Zener voltage, UZ', '5.6 V'],
+          ['Leakage current max., IR', '1 µA'],
+        ]),
+      ]),
+    );
+    expect(plain.variants.map((v) => v.fields.vzNom?.si)).toEqual([5.1, 5.6]);
+    const bracketed = extractRatings(
+      pdf(
+        block('QRN56', 600, [
+          ['Zener voltage min., UZ', '5.32 V'],
+          ['Zener voltage, UZ', '5.6 V'],
+          ['Zener voltage max., UZ', '5.88 V'],
+        ]),
+      ),
+    );
+    expect(bracketed.variants[0].fields).toMatchObject({ vzMin: { si: 5.32 }, vzNom: { si: 5.6 }, vzMax: { si: 5.88 } });
+  });
+});
+
 describe('ratings in prose', () => {
   it('reads a part paragraph clause by clause, conditions included', () => {
     const result = extractRatings(
