@@ -74,6 +74,16 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
     let order = 0;
     let qualifiers: QualifierColumn[] | undefined;
     let skip: Line | undefined;
+    // What the current block has printed once: a part's block names its package and each of its
+    // Zener-voltage lines once, so a second one means the block has run into the next part's,
+    // whose heading was lost (as a scan can lose it): the block ends there rather than give this
+    // part the next one's figures.
+    const seen = new Set<string>();
+    const endBlock = () => {
+      vz.endBlock();
+      seen.clear();
+      mpn = undefined;
+    };
     for (const [k, original] of lines.entries()) {
       if (used.has(original) || original === skip) continue;
       let line = original;
@@ -97,7 +107,7 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       }
       const heading = headingOf(line);
       if (heading) {
-        vz.endBlock();
+        endBlock();
         mpn = heading;
         order = orderOf(line.page, line.index);
         qualifiers = undefined;
@@ -121,13 +131,17 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       }
       // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.
       if (SECTION_TITLE.test(line.text) && line.cells.length <= 2 && !findQuantities(line.text).some((t) => t.unit)) {
-        vz.endBlock();
-        mpn = undefined;
+        endBlock();
         continue;
       }
       if (!mpn) continue;
       // "Package: SOD-523" (or a leader line to it) inside a part's block is that part's package.
       const pkg = /^(?:package|case)\b/i.test(line.text) ? findPackage(line.text) : undefined;
+      if (pkg && seen.has('package')) {
+        endBlock();
+        continue;
+      }
+      if (pkg) seen.add('package');
       if (pkg && line.cells.length <= 2) {
         drafts
           .get(mpn, order)
@@ -146,9 +160,9 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
       // tolerance-suffix.ts) or a line naming another part ("Example: NS220A is the 22 V type").
       if (TOLERANCE_LEGEND_CONTEXT.test(line.text) || namesAnotherPart(line.text, mpn)) continue;
       const current = mpn;
-      readLine(line, qualifiers, () => drafts.get(current, order), vz);
+      if (readLine(line, qualifiers, () => drafts.get(current, order), vz, seen) === 'repeated') endBlock();
     }
-    vz.endBlock();
+    endBlock();
   }
   vz.settle();
 }
@@ -206,7 +220,8 @@ export function namesAnotherPart(text: string, mpn: string): boolean {
   });
 }
 
-function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft, vz: VzLines): void {
+/** Reads one key–value line into the part's draft; 'repeated' (and nothing read) when it is a second line of the block for a Zener voltage already read. */
+function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft, vz: VzLines, seen: Set<string>): 'repeated' | void {
   const cleaned = line.cells.map((cell) => ({ cell, rest: findConditions(cell.text).rest }));
   const labelParts: string[] = [];
   const values: ValueToken[] = [];
@@ -236,6 +251,11 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
   })();
   const match = fieldFor(label, kind);
   if (!match) return;
+  if (!qualifiers && (match.field === 'vzMin' || match.field === 'vzNom' || match.field === 'vzMax')) {
+    const key = `${match.field} ${match.qualifier ?? ''}`;
+    if (seen.has(key)) return 'repeated';
+    seen.add(key);
+  }
   const method = qualifiers ? 'table' : 'list';
 
   const chosen: Array<[ExtractionField, ValueToken]> = [];

@@ -166,14 +166,18 @@ function readRule(ctx: ReadContext, line: Line, field: DeviceField, rule: Device
   };
   const unitCell = line.cells.find((c) => isUnitOnly(c.text) && unitKind(c.text.trim()) === rule.kind);
   const headerUnit = /[([]\s*([^()[\]]+?)\s*[)\]]/.exec(text.slice(start));
-  const lineUnit = unitCell?.text.trim() ?? (headerUnit && unitKind(headerUnit[1]) === rule.kind ? headerUnit[1] : undefined);
+  const labelUnit = headerUnit && unitKind(headerUnit[1]) === rule.kind ? headerUnit[1] : undefined;
+  // A unit cell is the unit of the figures before it ("200 | mW"); figures after it stand in
+  // another column or table beside this one (a package outline's "A 0.95 1.35" on a
+  // two-column page) and take no unit from it.
+  const lineUnit = (cell: Cell) => (unitCell ? (cell.x0 < unitCell.x0 ? unitCell.text.trim() : undefined) : labelUnit);
   const tokens = findQuantities(rest).filter((t) => t.index > start);
   let values: Value[] = [];
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
     const cell = cellAt(t.index);
     // A bare number takes the line's unit only from a cell of its own ("1.3" beside "W"), never from a label ("lead length 10 mm", "note 1)").
-    const unit = t.unit || (isNumericCell(cell.text) ? lineUnit : undefined) || '';
+    const unit = t.unit || (isNumericCell(cell.text) ? lineUnit(cell) : undefined) || '';
     if (!unit || unitKind(unit) !== rule.kind) continue;
     values.push({ token: t, unit, cell });
   }

@@ -200,6 +200,27 @@ describe('maximum ratings scoped to the series or package they name', () => {
     expect(byMpn.get('ABQ5V1')!.fields.rthJA).toBeUndefined();
     expect(result.warnings.some((w) => /rthJA left empty/.test(w))).toBe(true);
   });
+
+  it("takes no figure from a table beside the ratings on a two-column page (a package outline's Min and Max)", () => {
+    // The ratings table in the left column, the outline dimensions in the right: one text line each.
+    const cell = (str: string, x: number, y: number) => item(str, x, y, 7, str.length * 3);
+    const line = (y: number, xs: number[], cells: string[]) => cells.map((c, i) => cell(c, xs[i], y));
+    const XS = [52, 137, 154, 218, 270, 310, 365, 415];
+    const result = extractRatings(
+      pdf([
+        ...line(800, [50, 110, 160, 210], ['Type', 'Package', 'VZ nom (V)', 'IZT (mA)']),
+        ...line(788, [50, 110, 160, 210], ['QRT12', 'DO-35', '12', '2']),
+        ...line(776, [50, 110, 160, 210], ['QRT13', 'DO-35', '13', '2']),
+        item('Maximum ratings, DO-35 package', 50, 761, 9, 120),
+        item('Package outline DO-35 (mm)', 308, 761, 9, 100),
+        ...line(747, XS, ['Parameter', 'Symbol', 'Conditions', 'Value', 'Unit', 'Dim.', 'Min', 'Max']),
+        ...line(735, XS, ['Continuous power dissipation', 'Pd', 'TA = 25 °C', '200 (Note 1)', 'mW', 'A', '0.95', '1.35']),
+        ...line(723, XS, ['Maximum junction temperature', 'TJ', '', '175', '°C', 'b', '0.45', '0.65']),
+      ]),
+    );
+    // Before: 1.35 "mW", the outline's maximum of dimension A under the ratings' unit.
+    expect(result.variants.find((v) => v.mpn === 'QRT12')?.fields).toMatchObject({ pdMax: { si: 0.2 }, tjMax: { si: 175 } });
+  });
 });
 
 describe('tolerance given by a part-number letter with a legend', () => {
@@ -325,6 +346,26 @@ describe('a Zener-voltage line without its qualifier where the document qualifie
       ),
     );
     expect(bracketed.variants[0].fields).toMatchObject({ vzMin: { si: 5.32 }, vzNom: { si: 5.6 }, vzMax: { si: 5.88 } });
+  });
+});
+
+describe("a part block that runs into the next part's (its heading lost, as a scan can lose it)", () => {
+  const block = (mpn: string | null, y: number, vz: string, zz: string) => [
+    ...(mpn ? [item(mpn, 50, y, 10, 40)] : []),
+    ...row(y - 12, [50, 220], ['Package', 'DO-35']),
+    ...row(y - 24, [50, 220], ['Zener voltage nominal, VZ', vz]),
+    ...row(y - 36, [50, 220], ['Dynamic impedance maximum, ZZT', zz]),
+  ];
+  it('ends at a second package line or a second Zener-voltage line of the same kind, so the part keeps only its own figures', () => {
+    // QRN082's own VZ figure was lost; QRN091's heading was lost, so its lines follow QRN082's.
+    const lostVz = extractRatings(pdf([...block('QRN082', 700, '', '16 Ω'), ...block(null, 640, '9.1 V', '17 Ω')]));
+    const a = lostVz.variants.find((v) => v.mpn === 'QRN082');
+    expect(a?.fields.vzNom).toBeUndefined();
+    expect(a?.fields.zzt?.si).toBe(16);
+    // Without package lines, the second nominal Zener voltage ends the block.
+    const noPackage = (mpn: string | null, y: number, vz: string, zz: string) => block(mpn, y, vz, zz).filter((i) => i.str !== 'Package' && i.str !== 'DO-35');
+    const both = extractRatings(pdf([...noPackage('QRN082', 700, '8.2 V', '16 Ω'), ...noPackage(null, 640, '9.1 V', '17 Ω')]));
+    expect(both.variants.find((v) => v.mpn === 'QRN082')?.fields).toMatchObject({ vzNom: { si: 8.2 }, zzt: { si: 16 } });
   });
 });
 
