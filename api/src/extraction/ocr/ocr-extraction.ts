@@ -6,7 +6,7 @@ import { pageLines } from '../text-layout';
 import { TOLERANCE_LEGEND_CONTEXT } from '../vocabulary';
 import type { OcrEngine } from './ocr-engine';
 import { ocrPages } from './page-ocr';
-import { capitalised, detachedPoint, oneEditApart, seriesOutliers, unnamedSeries } from './series-checks';
+import { capitalised, corroboratedSpelling, detachedPoint, oneEditApart, seriesOutliers, unnamedSeries } from './series-checks';
 
 /**
  * The whole reading of one file: the text layer where there is one, OCR for the pages that
@@ -345,7 +345,7 @@ export function combineReadings(
     if (Object.keys(fields).length) combined.push({ ...v, package: v.package ?? o.package, fields });
   }
   combined.push(...others.values());
-  return documentChecks(combined, readings, legendPage, warnings);
+  return documentChecks(combined, readings, readings.flat(), legendPage, warnings);
 }
 
 const valueCount = (variants: ExtractedVariant[]) => variants.reduce((n, v) => n + Object.keys(v.fields).length, 0);
@@ -373,7 +373,7 @@ function readingOf(text: PdfText, ocrItems: Map<number, PdfTextItem[]>, legendPa
   const marked = result.variants.map((v) => markAndCheck(v, ocrItems, warnings)).filter((v): v is ExtractedVariant => v !== undefined);
   const lines = merged.pages.flatMap((p) => pageLines(p).map((l) => l.text));
   // Parts of a series no other line names are judged once the readings are combined (the other may name it).
-  const variants = documentChecks(marked, null, legendPage, warnings);
+  const variants = documentChecks(marked, null, lines, legendPage, warnings);
   return { variants, warnings, lines, ocrItems, result };
 }
 
@@ -385,7 +385,24 @@ const isOcr = (v: ExtractedVariant) => Object.values(v.fields).some((f) => f.ocr
  * and again on the two readings combined, since a part one reading misread may sit beside the
  * other reading's right one.
  */
-function documentChecks(marked: ExtractedVariant[], readings: string[][] | null, legendPage: number | undefined, warnings: string[]): ExtractedVariant[] {
+function documentChecks(
+  read: ExtractedVariant[],
+  readings: string[][] | null,
+  lines: readonly string[],
+  legendPage: number | undefined,
+  warnings: string[],
+): ExtractedVariant[] {
+  // A 0 or 1 read as a letter beside a digit ("GCAO033", "GJ0o91J"): spelled as another line of
+  // the document names the part, where exactly one line's spelling fits.
+  // A part the same reading also found under that spelling is left to that one.
+  const asRead = new Set(read.map((v) => v.mpn));
+  const marked = read.flatMap((v) => {
+    const spelled = isOcr(v) ? corroboratedSpelling(v.mpn, lines) : undefined;
+    if (!spelled) return [v];
+    if (!asRead.has(spelled)) return [{ ...v, mpn: spelled }];
+    warnings.push(`${v.mpn}: read by OCR as well as ${spelled}; left out, check the page.`);
+    return [];
+  });
   // Small letters among capitals: mended where the letter has the capital's shape, else a misreading.
   const names = marked.map((v) => v.mpn);
   const checked: ExtractedVariant[] = [];

@@ -1,7 +1,7 @@
 import { mergeReadings, readingQuality, type OcrLine, type OcrWord } from './ocr-engine';
 import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
 import { legendSigns, ocrItems, repairOcrWord, skewOf, unitsRow } from './ocr-items';
-import { pageBody } from './page-ocr';
+import { pageBody, withoutSidewaysMargins } from './page-ocr';
 
 /**
  * The repairs and checks applied to OCR output. The misreadings are the ones the English
@@ -280,5 +280,25 @@ describe('whether a page reads as turned', () => {
   it('keeps every line of the body', () => {
     const text = line(...['Zener', 'voltage', 'nominal'].map((t) => word(t, 1500)));
     expect(pageBody([header, text, footer], 3508)).toEqual([text]);
+  });
+});
+
+describe('a turned page read in the frame of its sideways table', () => {
+  // An A4 page turned to landscape at 300 dpi: 3 508 pixels wide. Its upright header and footer
+  // now stand on end in the left and right bands and come out as scraps at the ends of rows.
+  const word = (text: string, x: number) => ({ text, confidence: 80, x0: x, y0: 990, x1: x + 12 * text.length, y1: 1010 });
+  const line = (...words: ReturnType<typeof word>[]) => ({ words, baseline: { x0: words[0].x0, y0: 1010, x1: 3400, y1: 1010 }, rowHeight: 20 });
+  const texts = (lines: ReturnType<typeof line>[]) => lines.map((l) => l.words.map((w) => w.text).join(' '));
+
+  it('drops the scraps of the sideways header and footer at the start and end of a row', () => {
+    const row = line(word('g', 115), word('SNF082', 262), word('SOD-323', 445), word('8.20V', 875), word('230Ω', 1540), word('=)', 3355));
+    expect(texts(withoutSidewaysMargins([row], 3508))).toEqual(['SNF082 SOD-323 8.20V 230Ω']);
+    // A line of scraps alone goes altogether.
+    expect(withoutSidewaysMargins([line(word('[Ω]', 120))], 3508)).toEqual([]);
+  });
+
+  it("keeps the table's own words that reach into a band, and short words inside it", () => {
+    const row = line(word('continued', 200), word('on', 330), word('N1', 640), word('Ω', 1700));
+    expect(texts(withoutSidewaysMargins([row], 3508))).toEqual(['continued on N1 Ω']);
   });
 });

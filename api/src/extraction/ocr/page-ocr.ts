@@ -88,7 +88,11 @@ export async function ocrPages(buffer: Uint8Array, pages: number[], options: Pag
           geometry = { scale: options.dpi / 72, widthPx: heightPx, heightPx: widthPx, pageHeight: x1 - x0 };
         }
       }
-      const cells = await options.engine.readCells(image);
+      let cells = await options.engine.readCells(image);
+      if (image !== canvas) {
+        lines = withoutSidewaysMargins(lines, image.width);
+        cells = withoutSidewaysMargins(cells, image.width);
+      }
       out.push({ page: n, hasImage: true, items: ocrItems(lines, geometry), cellItems: ocrItems(cells, geometry) });
     }
   } finally {
@@ -107,6 +111,21 @@ export function pageBody(lines: OcrLine[], heightPx: number): OcrLine[] {
     return y > BODY_MARGIN * heightPx && y < (1 - BODY_MARGIN) * heightPx;
   };
   return lines.map((l) => ({ ...l, words: l.words.filter(inside) })).filter((l) => l.words.length > 0);
+}
+
+/**
+ * A turned page's reading without the bits of its upright running header and footer. Turned to
+ * read a sideways table, the page's header and footer stand on end in the left and right bands,
+ * and the engine makes a column of one-to-three-character scraps of them ("g", "=)", "[Ω]") that
+ * sit at the start or end of the table's rows and keep a row from being read as one. Longer
+ * words there (the table's own first column may reach into the band) are kept.
+ */
+export function withoutSidewaysMargins(lines: OcrLine[], widthPx: number): OcrLine[] {
+  const scrap = (w: OcrWord) => {
+    const x = (w.x0 + w.x1) / 2;
+    return (x < BODY_MARGIN * widthPx || x > (1 - BODY_MARGIN) * widthPx) && w.text.trim().length <= 3;
+  };
+  return lines.map((l) => ({ ...l, words: l.words.filter((w) => !scrap(w)) })).filter((l) => l.words.length > 0);
 }
 
 /** The image turned by 90° or 270° (clockwise), on a canvas of swapped size. */

@@ -1,5 +1,5 @@
 import type { ExtractedVariant } from '@shuntwise/contracts';
-import { capitalised, detachedPoint, seriesOutliers, unnamedSeries } from './series-checks';
+import { capitalised, corroboratedSpelling, detachedPoint, seriesOutliers, unnamedSeries } from './series-checks';
 
 /**
  * The OCR checks that read a value against the other parts of its series. Part numbers and
@@ -133,5 +133,34 @@ describe('an OCR part of a series the document names nowhere else', () => {
 
   it('is never applied to a part read from a text layer', () => {
     expect(unnamedSeries([{ mpn: 'TK-16', ocr: false }], [lines])).toEqual([]);
+  });
+});
+
+describe('the spelling another line gives an OCR part number with a letter beside a digit', () => {
+  // The engine reads a printed 0 as "O0", "0o" or "O" and a 1 as "l" or "I" on glyph-set text
+  // (seen on rasterised random-layout pages).
+  const doc = [
+    'GJ and GCA series',
+    'GJ082',
+    'Ordering code Package Quantity',
+    'GJ091)-T7 DO-35 3.000',
+    'GJ091K-T7 DO-35 3.000',
+    'Example: GCA033] is the 3.3 V type',
+  ];
+  it('takes the spelling a line of the document names, the tolerance letter kept', () => {
+    expect(corroboratedSpelling('GCAO033', doc)).toBe('GCA033');
+    expect(corroboratedSpelling('GJ0o91J', doc)).toBe('GJ091J');
+    expect(corroboratedSpelling('GJ0o91K', doc)).toBe('GJ091K');
+    expect(corroboratedSpelling('GJO82', doc)).toBe('GJ082');
+  });
+  it('leaves the part as read where no line names a spelling, or where two would fit', () => {
+    expect(corroboratedSpelling('GJ0o62J', doc)).toBeUndefined();
+    // "GJO91" names GJ091 (O as 0) and GJ91 (O dropped) where both are printed: no choice is made.
+    expect(corroboratedSpelling('GJO91', [...doc, 'GJ91 DO-35'])).toBeUndefined();
+    // A letter away from any digit is not touched; nor is a part number read cleanly.
+    expect(corroboratedSpelling('GOJ082', doc)).toBeUndefined();
+    expect(corroboratedSpelling('GJ082', doc)).toBeUndefined();
+    // The misread spelling itself is no naming of the other ("GCAO033" names no GCA033).
+    expect(corroboratedSpelling('GCAO033', ['GCAO033 SMB', 'GCAO033K-T7'])).toBeUndefined();
   });
 });

@@ -1,6 +1,6 @@
 import type { ExtractedValue, ExtractedVariant, ExtractionField } from '@shuntwise/contracts';
 import { E24 } from '../../engineering/e-series';
-import { seriesLetters } from '../part-numbers';
+import { isPartNumber, seriesLetters } from '../part-numbers';
 
 /**
  * Checks of OCR'd values against the other parts of their series: a scan that loses a decimal
@@ -149,6 +149,32 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
 export function detachedPoint(value: Pick<ExtractedValue, 'value' | 'text'>): boolean {
   const escaped = value.value.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
   return new RegExp(`(?:^|[^.])\\.\\s+${escaped}(?![\\d.,])`).test(value.text);
+}
+
+/**
+ * The spelling another line of the document gives an OCR'd part number that holds a letter
+ * touching a digit where the engine often sees a 0 or a 1 ("GCAO033", "GJ0o91J"): each such
+ * letter is either dropped (a digit read twice, "0" as "O0") or read as the digit, and a spelling
+ * stands only when some line of the document names it (its ordering code "GCA033-T7", the
+ * legend's example "GJ091J", another heading) and no other spelling is also named. Undefined
+ * otherwise: the part is then judged as read. The tolerance or suffix letters after the last
+ * digit may differ from the line that names it.
+ */
+export function corroboratedSpelling(mpn: string, lines: readonly string[]): string | undefined {
+  const found = new Set<string>();
+  for (let i = 0; i < mpn.length; i++) {
+    const digit = /[Oo]/.test(mpn[i]) ? '0' : /[Il|]/.test(mpn[i]) ? '1' : undefined;
+    if (!digit || !(/\d/.test(mpn[i - 1] ?? '') || /\d/.test(mpn[i + 1] ?? ''))) continue;
+    for (const edit of ['', digit]) {
+      const spelled = mpn.slice(0, i) + edit + mpn.slice(i + 1);
+      if (/\p{Ll}/u.test(spelled) || !isPartNumber(spelled)) continue;
+      const stem = spelled.replace(/(?<=\d)\p{Lu}+$/u, '');
+      if (stem.length <= i) continue;
+      const named = new RegExp(`(?<![\\p{L}\\d])${stem.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?!\\d)`, 'u');
+      if (lines.some((line) => named.test(line))) found.add(spelled);
+    }
+  }
+  return found.size === 1 ? [...found][0] : undefined;
 }
 
 /** Letters whose small and capital forms differ only in size, which OCR confuses on a scan. */
