@@ -106,6 +106,25 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     expect(result.warnings.join(' ')).toMatch(/legend of the letters for KRV20/);
   });
 
+  it('keeps the parts a legend expanded whose VZnom was unreadable: their numbers are known, their limits are not', async () => {
+    // XQ6V2's VZ figure came out as "mys": XQ6V2A and XQ6V2B stand with their test current and no VZ limits.
+    const lines = [
+      block[0],
+      line(400, [250, 'XQ5V1']),
+      line(450, [250, 'Zener voltage, VZ ..........'], [1400, '5.1 V']),
+      line(500, [250, 'Test current, IZT ..........'], [1400, '5 mA']),
+      line(550, [250, 'XQ6V2']),
+      line(600, [250, 'Zener voltage, VZ ..........'], [1400, 'mys']),
+      line(650, [250, 'Test current, IZT ..........'], [1400, '5 mA']),
+      line(900, [250, 'Tolerance of VZ: the letter after the type number gives it (A ±1 %, B ±2 %). Example: XQ5V1A']),
+    ];
+    const result = await extractWithOcr(scanned, { engine: engineReading(lines), dpi: 300, maxOcrPages: 5 });
+    expect(result.variants.map((v) => v.mpn).sort()).toEqual(['XQ5V1A', 'XQ5V1B', 'XQ6V2A', 'XQ6V2B']);
+    const b = result.variants.find((v) => v.mpn === 'XQ6V2B')!;
+    expect(b.fields.izt).toMatchObject({ si: 0.005, ocr: true });
+    expect(b.fields.vzNom ?? b.fields.vzMin ?? b.fields.vzMax).toBeUndefined();
+  });
+
   it('mends a part number read with a small letter shaped like its capital, and leaves out one misread otherwise', async () => {
     const more = [
       line(700, [250, 'XQ6v8A']),

@@ -446,9 +446,18 @@ function documentChecks(
   // A scanned page that says the tolerance is a letter after the part number: an OCR'd part with
   // no VZ limits, printed or derived from a letter, is one the legend did not expand (a legend OCR
   // could not read, or read only for another series: "C %" with its figure lost), a base number
-  // the vendor does not sell as such. (A part expanded while its VZnom was unreadable goes too.)
+  // the vendor does not sell as such.
   if (legendPage !== undefined) {
-    const bases = variants.filter((v) => isOcr(v) && !v.fields.vzMin && !v.fields.vzMax);
+    // Parts the legend did expand stay when their VZnom was unreadable: their full numbers are
+    // known (the same type under two or more of the legend's letters), only their limits are not.
+    const typeOf = (mpn: string) => (/\d\p{Lu}$/u.test(mpn) ? mpn.slice(0, -1) : undefined);
+    const letters = new Map<string, number>();
+    for (const v of variants) {
+      const type = typeOf(v.mpn);
+      if (type) letters.set(type, (letters.get(type) ?? 0) + 1);
+    }
+    const expanded = (v: ExtractedVariant) => (letters.get(typeOf(v.mpn) ?? '') ?? 0) >= 2;
+    const bases = variants.filter((v) => isOcr(v) && !v.fields.vzMin && !v.fields.vzMax && !expanded(v));
     if (bases.length) {
       warnings.push(
         `page ${legendPage}: the tolerance is given by a letter after the part number, but OCR could not read the legend of the letters for ${bases.map((v) => v.mpn).join(', ')}; they are left out (their full part numbers are not known). Enter them by hand.`,
