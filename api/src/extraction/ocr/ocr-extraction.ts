@@ -136,7 +136,9 @@ export function implausibleValues(mpn: string, fields: ExtractedVariant['fields'
   // Reverse leakage at the test voltage is specified in nA or µA, a few hundred µA at most for
   // low-voltage power parts (common practice, from memory, no source): a milliampere or more is a
   // lost µ ("0,5 µA" under a units row read as "A").
-  if (fields.irMax?.ocr && fields.irMax.si >= 1e-3) bad.add('irMax');
+  // Nor is it below a nanoampere: datasheets specify it in nA or µA (common practice, from memory,
+  // no source), so picoamperes are a µ read as p ("1 µA" read as "1pA").
+  if (fields.irMax?.ocr && (fields.irMax.si >= 1e-3 || fields.irMax.si < 1e-9)) bad.add('irMax');
   // A figure printed with a leading zero and no separator ("05" for 0,5 µA) is a decimal comma or
   // point the scan lost: ten times too large, or more. So may be one with a lone point before it.
   for (const [f, v] of Object.entries(fields) as [ExtractionField, ExtractedVariant['fields'][ExtractionField]][]) {
@@ -164,6 +166,11 @@ export function implausibleValues(mpn: string, fields: ExtractedVariant['fields'
   if (outOfOrder(izk, izt, true)) for (const f of ['izk', 'izt'] as const) if (fields[f]!.ocr) bad.add(f);
   if (outOfOrder(izt, izm, false)) for (const f of ['izt', 'izm'] as const) if (fields[f]!.ocr) bad.add(f);
   const vzAt = fields.vzNom?.si ?? fields.vzMax?.si ?? coded;
+  // The dynamic impedance at the test current is a small part of the diode's resistance there:
+  // ZZT × IZT stays well under VZ (a few tenths of a volt on a 5 V part; common practice, no
+  // source). A product above VZ itself is a decimal point the scan lost ("3.5 Ω" read as 35).
+  const { zzt } = fields;
+  if (zzt?.ocr && izt && vzAt !== undefined && zzt.si * izt.si > vzAt) bad.add('zzt');
   if (izt?.ocr && vzAt !== undefined && pdMax && !bad.has('pdMax') && izt.si * vzAt > pdMax.si) bad.add('izt');
   // A part's VZ limits lie within its tolerance, at most about ±20 % of VZ (common practice for
   // regulator diodes, no source): a figure more than 1.25× from another is a separator the scan

@@ -96,9 +96,11 @@ describe('plausibility of OCR voltages', () => {
     expect(codedVoltage('LVD1-033')).toBeUndefined();
   });
 
-  it('drops a leakage of a milliampere or more (a lost µ; regulator leakage is nA to a few hundred µA, common practice, from memory)', () => {
+  it('drops a leakage of a milliampere or more, or under a nanoampere (a lost µ, or µ read as p; regulator leakage is nA to a few hundred µA, common practice, from memory)', () => {
     expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(0.5) })).toEqual(['irMax']);
+    expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(1e-12) })).toEqual(['irMax']);
     expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(2e-6) })).toEqual([]);
+    expect(implausibleValues('BRZ05-5V1', { vzNom: v(5.1), irMax: v(5e-9) })).toEqual([]);
   });
 
   it('drops a VZ that lost its decimal point, a VR above VZ and an out-of-order VZ set', () => {
@@ -142,11 +144,21 @@ describe('plausibility of OCR voltages', () => {
     expect(implausibleValues('TH-8V2', { vzNom: v(8.2), vr: v(5.3), izt: a(0.005) })).toEqual([]);
   });
 
+  it('drops a dynamic impedance whose product with the test current exceeds VZ (a lost point: "3.5 Ω" read as 35; ZZT × IZT is a few tenths of a volt, common practice, no source)', () => {
+    const f = (si: number, unit: string) => ({ value: String(si), unit, si, page: 1, text: '', ocr: true });
+    expect(implausibleValues('MCC3V9', { vzNom: v(3.9), izt: f(0.13, 'A'), zzt: f(35, 'Ω') })).toEqual(['zzt']);
+    expect(implausibleValues('MCC3V9', { vzNom: v(3.9), izt: f(0.13, 'A'), zzt: f(3.5, 'Ω') })).toEqual([]);
+    // A high-voltage part at a low test current: 350 Ω × 2.5 mA = 0.875 V, well under 100 V.
+    expect(implausibleValues('MCC100', { vzNom: v(100), izt: f(0.0025, 'A'), zzt: f(350, 'Ω') })).toEqual([]);
+  });
+
   it('drops a figure printed with a leading zero and no separator (a decimal comma the scan lost: "05" for 0,5 µA)', () => {
     const ua = (value: string, si: number) => ({ value, unit: 'uA', si, page: 1, text: '', ocr: true });
     expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('05', 5e-6) })).toEqual(['irMax']);
     expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('0,5', 5e-7) })).toEqual([]);
-    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('0', 0) })).toEqual([]);
+    // "0" alone is no lost separator, though a leakage of nothing is no rating either (under a nanoampere).
+    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('0', 0) })).toEqual(['irMax']);
+    expect(implausibleValues('VPK-240', { vzNom: v(24), irMax: ua('10', 1e-5) })).toEqual([]);
   });
 
   it('drops the power rating and thermal resistance when they disagree with Tj max: Pd = (Tj max − TA) / RthJA (common practice, no source)', () => {

@@ -67,6 +67,9 @@ describe('OCR figures against their series', () => {
     expect(Object.fromEntries(seriesOutliers(alike))).toEqual({ TKV22: ['vzMin', 'vzMax'], TKV24: ['vzMin', 'vzMax'] });
     // A series that does not code VZ in its numbers is not judged by them.
     expect(seriesOutliers([part('KX-101', 7.5), part('KX-102', 8.2), part('KX-103', 9.1)]).size).toBe(0);
+    // A package or tolerance letter after the number keeps it the code: "12,6 V" read as 126 V for LCK12W.
+    const lck = [part('LCK10W', 10), part('LCK11W', 11), limits('LCK12W', 11.4, 126), part('LCK13W', 13)];
+    expect(Object.fromEntries(seriesOutliers(lck))).toEqual({ LCK12W: ['vzMax'] });
   });
 });
 

@@ -61,7 +61,8 @@ function isE24(code: string): boolean {
 
 /** The number a part number ends with ("TM-082" → "082"), when it ends with one of two to four digits. */
 function trailingNumber(mpn: string): string | undefined {
-  return /(?:^|[^\d])(\d{2,4})$/.exec(mpn)?.[1];
+  // A letter or two after the number (a tolerance or package letter: "LCK12W", "GJ082J") keep it the part's code.
+  return /(?:^|[^\d])(\d{2,4})\p{Lu}{0,2}$/u.exec(mpn)?.[1];
 }
 
 /**
