@@ -125,6 +125,34 @@ describe('a series table whose rows lost most of their cells (as a scan can)', (
   });
 });
 
+describe('a units row whose middle cell a scan could not read', () => {
+  // Min / nom / max of one parameter share its unit (common practice for datasheet tables, no source).
+  const XS = [52, 142, 178, 210, 249, 285];
+  const table = (nomUnit: string, maxUnit: string) =>
+    pdf([
+      item('Vz @ Izt', 168, 268),
+      ...row(268, [52, 249, 285], ['Device', 'Izt', 'Zzt']),
+      ...row(258, [142, 178, 210, 285], ['min', 'nom', 'max', 'max']),
+      ...row(247, XS.slice(1), ['(V)', nomUnit, maxUnit, '(mA)', '(ohm)']),
+      ...row(236, XS, ['QTV3-2.4', '2.28', '2.4', '2.52', '5', '88']),
+      ...row(223, XS, ['QTV3-3.3', '3.14', '3.3', '3.47', '5', '59']),
+    ]);
+  const vz = (r: ReturnType<typeof extractRatings>) =>
+    r.variants.map((v) => [v.mpn, v.fields.vzMin?.si, v.fields.vzNom?.si, v.fields.vzMax?.si, v.fields.zzt?.si]);
+
+  it('reads the column in the unit its min and max siblings print ("(VM" between two "(V)")', () => {
+    expect(vz(extractRatings(table('(VM', '(V)')))).toEqual([
+      ['QTV3-2.4', 2.28, 2.4, 2.52, 88],
+      ['QTV3-3.3', 3.14, 3.3, 3.47, 59],
+    ]);
+  });
+
+  it('borrows no unit when the siblings print different ones', () => {
+    const read = vz(extractRatings(table('(VM', '(mV)')));
+    expect(read.map((r) => r[2])).toEqual([undefined, undefined]);
+  });
+});
+
 describe('transposed tables: part numbers as columns', () => {
   const XS = [50, 180, 230, 280, 330];
   it('reads each row by its label and unit, and its condition for every part', () => {

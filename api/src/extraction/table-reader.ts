@@ -152,15 +152,15 @@ function headerTexts(header: Line[], cols: Span[]): { texts: string[]; owners: C
 
 function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
   const { texts, owners } = headerTexts(header, cols);
+  // Footnote markers in a header ("IZ (Note 3)") are no part of its words or unit.
+  const rests = texts.map((text) => blankFootnotes(findConditions(text).rest));
+  const units = rests.map((rest) => headerUnit(rest));
+  const kinds = units.map((unit, i) => (unit ? unitKind(unit) : undefined) ?? cellKind(rows, cols, i));
+  sharedGroupUnits(rests, units, kinds);
   const columns: ColumnPlan[] = cols.map((span, i) => {
     const text = texts[i];
-    // Footnote markers in a header ("IZ (Note 3)") are no part of its words or unit.
-    const rest = blankFootnotes(findConditions(text).rest);
-    const unit = headerUnit(rest);
-    let kind = unit ? unitKind(unit) : undefined;
-    if (!kind) kind = cellKind(rows, cols, i);
-    const match = i === 0 ? undefined : fieldFor(rest, kind);
-    return { span, header: text, unit, match, isPackage: i > 0 && !match && isPackageHeader(text) };
+    const match = i === 0 ? undefined : fieldFor(rests[i], kinds[i]);
+    return { span, header: text, unit: units[i], match, isPackage: i > 0 && !match && isPackageHeader(text) };
   });
   borrowGroupHeadings(columns, rows, cols);
   // Several columns may name one field (min/typ/max of tc): keep the best ranked, first on ties.
@@ -185,6 +185,21 @@ function planColumns(header: Line[], rows: Line[], cols: Span[]): TablePlan {
     }
   });
   return { columns, conditions };
+}
+
+/**
+ * The min / nom / max columns of one parameter share its unit (common practice for datasheet
+ * tables, no source). A column between two such siblings whose unit cannot be read (a scan's
+ * "(VM" for "(V)") takes theirs when both print the same unit and the three qualifiers differ.
+ */
+function sharedGroupUnits(rests: string[], units: (string | undefined)[], kinds: (QuantityKind | undefined)[]): void {
+  for (let i = 2; i < rests.length - 1; i++) {
+    if (kinds[i] || !units[i - 1] || units[i - 1] !== units[i + 1]) continue;
+    const qualifiers = [i - 1, i, i + 1].map((k) => qualifierOf(rests[k]));
+    if (qualifiers.some((q) => !q) || new Set(qualifiers).size !== 3) continue;
+    units[i] = units[i - 1];
+    kinds[i] = kinds[i - 1];
+  }
 }
 
 const QUALIFIER_WORD = /\b(?:min|nom|typ|max)(?:imum|inal|ical)?\.?(?![a-z])/gi;
