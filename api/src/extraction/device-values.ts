@@ -73,6 +73,16 @@ export function seriesNamed(text: string, mpns: readonly string[]): string[] {
   return found;
 }
 
+/**
+ * The part an ordering code starts with ("KB-068-T7" → KB068): the longest part number the
+ * code begins with as printed, followed by a separator. An ordering row names its part's
+ * package; the part-number column of the table may have been lost or never printed.
+ */
+function orderedPart(code: string, mpns: readonly string[]): string | undefined {
+  const base = mpns.filter((m) => code.length > m.length + 1 && code.startsWith(m) && /[-_/.\s]/.test(code[m.length])).sort((a, b) => b.length - a.length)[0];
+  return base ? flat(base) : undefined;
+}
+
 interface ReadContext {
   mpns: readonly string[];
   lines: Line[];
@@ -308,7 +318,7 @@ export function readDeviceValues(pages: Line[][], used: Set<Line>, mpns: readonl
       const second = /^\s*(?:\/|,|\band\b|\bor\b)\s*/.test(after) ? findPackage(after) : undefined;
       if (p && (!second || second.value === p.value)) {
         const score = /^(?:case|package)\b/i.test(line.text) ? 2 : /\b(?:package|case|outline)\b/i.test(line.text) ? 1 : 0;
-        const series = seriesIn(line.text, mpns);
+        const series = seriesIn(line.text, mpns) ?? orderedPart(line.cells[0]?.text ?? '', mpns);
         const scope = series ? { series } : headingScope(ctx, line);
         delete scope.package;
         packages.push({ candidate: { value: p.value, page: line.page, text: line.printed, box: lineBox(line), rank: 0 }, score, scope });

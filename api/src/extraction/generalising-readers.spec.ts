@@ -251,6 +251,49 @@ describe('maximum ratings scoped to the series or package they name', () => {
   });
 });
 
+describe('the package of a part whose table gives none', () => {
+  // Ratings per package, a package outline for one of them and ordering codes for some parts
+  // (a layout seen in a fresh random batch, where every part took the outline's package and its ratings).
+  const XS = [50, 130, 180, 230];
+  const doc = (withOrdering: boolean) =>
+    pdf([
+      ...row(760, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+      ...row(745, XS, ['KQB-068', '6.8', '1', '91']),
+      ...row(733, XS, ['KQB-075W', '7.5', '1', '77']),
+      ...row(721, XS, ['KQB-082', '8.2', '1', '82']),
+      item('Maximum ratings, SOD-523 package', 50, 690, 10, 170),
+      item('Continuous power dissipation, PD ........ 500 mW', 50, 675, 9, 300),
+      item('Maximum ratings, SOD-323 package', 50, 650, 10, 170),
+      item('Continuous power dissipation, PD ........ 400 mW', 50, 635, 9, 300),
+      ...(withOrdering
+        ? [
+            ...row(610, [50, 150, 250], ['Ordering code', 'Package', 'Packing']),
+            ...row(598, [50, 150, 250], ['KQB-068-T7', 'SOD-523', '7 in reel']),
+            ...row(586, [50, 150, 250], ['KQB-075W-T7', 'SOD-323', '7 in reel']),
+          ]
+        : []),
+      item('Package outline SOD-323 (mm)', 50, 560, 10, 150),
+    ]);
+  const read = (r: ReturnType<typeof extractRatings>) =>
+    Object.fromEntries(r.variants.map((v) => [v.mpn, [v.package?.value, v.fields.pdMax?.si]]));
+
+  it('is not the one a package outline names while the ratings name two packages', () => {
+    expect(read(extractRatings(doc(false)))).toEqual({
+      'KQB-068': [undefined, undefined],
+      'KQB-075W': [undefined, undefined],
+      'KQB-082': [undefined, undefined],
+    });
+  });
+
+  it('is the one its ordering code names, and brings that package\'s ratings', () => {
+    expect(read(extractRatings(doc(true)))).toEqual({
+      'KQB-068': ['SOD-523', 0.5],
+      'KQB-075W': ['SOD-323', 0.4],
+      'KQB-082': [undefined, undefined],
+    });
+  });
+});
+
 describe('tolerance given by a part-number letter with a legend', () => {
   it('makes one variant per letter with VZ limits derived from VZnom, marked as derived', () => {
     const XS = [50, 130, 180, 230];

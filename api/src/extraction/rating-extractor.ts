@@ -63,17 +63,17 @@ export function extractRatings(pdf: PdfText): ExtractionResult {
 function applyDevice(draft: VariantDraft, device: DeviceValues, warnings: string[]): void {
   if (!draft.package) {
     let best: DeviceValues['packages'][number] | undefined;
-    let tie = false;
-    for (const p of device.packages) {
-      if (!covers(p.scope, draft.mpn, undefined)) continue;
-      const better = !best || specificity(p.scope) > specificity(best.scope) || (specificity(p.scope) === specificity(best.scope) && p.score > best.score);
-      if (better) {
-        best = p;
-        tie = false;
-      } else if (best && specificity(p.scope) === specificity(best.scope) && p.score === best.score && p.candidate.value !== best.candidate.value) tie = true;
+    const covering = device.packages.filter((p) => covers(p.scope, draft.mpn, undefined));
+    for (const p of covering) {
+      if (!best || specificity(p.scope) > specificity(best.scope) || (specificity(p.scope) === specificity(best.scope) && p.score > best.score)) best = p;
     }
-    // Two packages named alike for this part: which one it comes in is not known.
-    if (best && !tie) draft.offerPackage(best.candidate);
+    // Two packages named as closely for this part (by scope; a heading's wording does not tell
+    // them apart: "Package outline SOD-323" beside "Maximum ratings, SOD-523 package"): which
+    // one it comes in is not known.
+    const tie = covering.some((p) => specificity(p.scope) === specificity(best!.scope) && p.candidate.value !== best!.candidate.value);
+    // The value shown where it is printed most plainly ("Package: SMB" rather than an ordering row).
+    const shown = best && covering.filter((p) => p.candidate.value === best!.candidate.value).sort((a, b) => b.score - a.score)[0];
+    if (shown && !tie) draft.offerPackage(shown.candidate);
   }
   for (const f of DEVICE_FIELDS) {
     if (draft.fields.has(f)) continue;
