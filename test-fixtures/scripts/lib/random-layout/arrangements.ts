@@ -127,6 +127,14 @@ export function rowsTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
       const own = header.flatMap((line) => line.filter((h) => h.from === n0 + i && h.to === n0 + i).map((h) => h.text));
       columns[n0 + i].width = Math.max(fit(own, true), fit(s.rows.map((r, k) => cell(ctx, s, sp, r, k === 0, unitInCell, 0))), 26);
     });
+    // A heading over several columns ("Zener voltage at IZT = 5 mA" over min/nom/max) widens
+    // them to hold it: a printed table never runs one heading into the next.
+    for (const h of header.flat()) {
+      if (h.to === h.from) continue;
+      const have = columns.slice(h.from, h.to + 1).reduce((a, b) => a + b.width, 0);
+      const need = fit([h.text], true);
+      if (need > have) for (let k = h.from; k <= h.to; k++) columns[k].width += (need - have) / (h.to - h.from + 1);
+    }
     const total = columns.reduce((a, b) => a + b.width, 0);
     const avail = pen.frame.right - pen.frame.left;
     const scale = Math.min(1, avail / total);
