@@ -147,6 +147,30 @@ describe('a units row whose middle cell a scan could not read', () => {
     ]);
   });
 
+  it('reads a column labelled only as a Zener or reverse voltage in volts when the scan lost its lone "V" (common practice, no source)', () => {
+    const XS2 = [52, 142, 190, 238, 286, 330, 440, 480];
+    const doc = (leakUnit: string) =>
+      pdf([
+        ...row(268, XS2, ['Type', 'V(BR) min', 'V(BR) nom', 'V(BR) max', 'rzj max', 'Leakage current at VR', 'VRM', 'TC typ']),
+        // The units row as a scan left it: "V" lost under the four voltages (and perhaps the leakage's "µA").
+        ...row(258, [286, 330, 480], ['ohm', leakUnit, 'mV/K']),
+        ...row(247, XS2, ['QTW36', '34.2', '36.0', '37.8', '130', '0.2', '25.2', '36.6']),
+        ...row(236, XS2, ['QTW39', '37.1', '39.0', '41.0', '160', '0.2', '27.3', '35.2']),
+      ]);
+    const read = (r: ReturnType<typeof extractRatings>) =>
+      r.variants.map((v) => [v.mpn, v.fields.vzMin?.si, v.fields.vzNom?.si, v.fields.vzMax?.si, v.fields.vr?.si, v.fields.irMax?.si]);
+    expect(read(extractRatings(doc('µA')))).toEqual([
+      ['QTW36', 34.2, 36, 37.8, 25.2, 2e-7],
+      ['QTW39', 37.1, 39, 41, 27.3, 2e-7],
+    ]);
+    // "Leakage current at VR" names a voltage too, but also a current: with its unit lost it is
+    // left unread, never taken for a voltage.
+    expect(read(extractRatings(doc('')))).toEqual([
+      ['QTW36', 34.2, 36, 37.8, 25.2, undefined],
+      ['QTW39', 37.1, 39, 41, 27.3, undefined],
+    ]);
+  });
+
   it('borrows no unit when the siblings print different ones', () => {
     const read = vz(extractRatings(table('(VM', '(mV)')));
     expect(read.map((r) => r[2])).toEqual([undefined, undefined]);

@@ -1,5 +1,5 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
-import { fieldFor, FieldMatch, findConditions, isPackageHeader, qualifierOf, titleConditions } from './field-patterns';
+import { fieldFor, FieldMatch, findConditions, isPackageHeader, LABELS, qualifierOf, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber, seriesLetters } from './part-numbers';
 import { blankFootnotes, findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
@@ -200,7 +200,25 @@ function sharedGroupUnits(rests: string[], units: (string | undefined)[], kinds:
     units[i] = units[i - 1];
     kinds[i] = kinds[i - 1];
   }
+  // A Zener or reverse voltage is printed in volts (common practice for regulator-diode tables,
+  // no source); a scan loses the lone "V" of a units row more often than any other unit. Where
+  // the table states units for at least two other columns, a column labelled only as such a
+  // voltage, with no unit of its own, is read in volts. A label that could also name another
+  // quantity ("Leakage current at VR", "Temperature coefficient of VZ") or a change or share of
+  // it ("ΔVZ", "VZ tolerance %") is not.
+  const stated = units.filter((u, k) => u && kinds[k]).length;
+  rests.forEach((rest, i) => {
+    if (i === 0 || kinds[i] || stated < 2 || /%|Δ|\bdelta\b|\btol|\bchange|\bdrift/i.test(rest)) return;
+    const field = fieldFor(rest, 'voltage')?.field;
+    if (!field || !['vzMin', 'vzNom', 'vzMax', 'vr'].includes(field)) return;
+    // (A coefficient column is matched by its own words here: any VZ label would match it.)
+    if (OTHER_KINDS.some((k) => fieldFor(rest, k)) || LABELS.tc.test(rest)) return;
+    units[i] = 'V';
+    kinds[i] = 'voltage';
+  });
 }
+
+const OTHER_KINDS: QuantityKind[] = ['current', 'resistance', 'power', 'temperature', 'thermalResistance'];
 
 const QUALIFIER_WORD = /\b(?:min|nom|typ|max)(?:imum|inal|ical)?\.?(?![a-z])/gi;
 
