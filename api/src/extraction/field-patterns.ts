@@ -14,7 +14,8 @@ const P = LABELS;
 export type Qualifier = 'min' | 'nom' | 'typ' | 'max';
 
 export function qualifierOf(text: string): Qualifier | undefined {
-  const m = /(min|nom|typ|max)(?:imum|inal|ical)?\.?(?![a-z])/i.exec(text);
+  // Not the letters of a part number ("The MAX3V6 regulates at 3.60 V" gives no maximum).
+  const m = /(min|nom|typ|max)(?:imum|inal|ical)?\.?(?![a-z\d])/i.exec(text);
   return m ? (m[1].toLowerCase() as Qualifier) : undefined;
 }
 

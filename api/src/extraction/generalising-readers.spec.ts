@@ -485,6 +485,20 @@ describe('ratings in prose', () => {
     expect(v.package).toMatchObject({ value: 'SOD-123' });
   });
 
+  it('never takes the letters of a part number for a qualifier ("The MAX3V6 regulates at 3.60 V" is the nominal)', () => {
+    const result = extractRatings(
+      pdf([
+        item('The MAX3V6 (DO-35) regulates at 3.60 V when driven at 5 mA; its differential resistance there is at most 42 Ω.', 50, 700, 9, 420),
+        item('The MINA4V7 (DO-35) regulates at 4.70 V when driven at 5 mA; its differential resistance there is at most 30 Ω.', 50, 680, 9, 420),
+      ]),
+    );
+    const read = result.variants.map((v) => [v.mpn, v.fields.vzMin?.si, v.fields.vzNom?.si, v.fields.vzMax?.si, v.fields.izt?.si]);
+    expect(read).toEqual([
+      ['MAX3V6', undefined, 3.6, undefined, 0.005],
+      ['MINA4V7', undefined, 4.7, undefined, 0.005],
+    ]);
+  });
+
   it('leaves a worked example full of numbers alone', () => {
     const result = extractRatings(
       pdf([item('Design example: supply 24 V, load 5 mA, R = (24 V − 12 V) / 15 mA ≈ 800 Ω; the diode dissipates 180 mW.', 50, 700, 9, 420)]),
