@@ -177,6 +177,54 @@ describe('a units row whose middle cell a scan could not read', () => {
   });
 });
 
+describe('series-table cells a scan garbled', () => {
+  const XS = [52, 111, 155, 199, 244, 300];
+  const table = (...rows: string[][]) =>
+    pdf([
+      ...row(744, XS, ['Type', 'VZ min', 'VZ nom', 'VZ max', 'ZZT max', 'VR']),
+      ...rows.flatMap((cells, i) => row(722 - 10 * i, XS, cells)),
+    ]);
+
+  it('leaves out a cell holding several figures of one kind (min, nom and max run together)', () => {
+    const result = extractRatings(
+      table(
+        ['GQN24', '22.8V 24.00 V 25.2V', '', '', '53 Ω', '16.8 V'],
+        ['GQN27', '25.7 V', '27.00 V', '28.4 V', '60 Ω', '18.9 V'],
+      ),
+    );
+    const v = Object.fromEntries(result.variants.map((x) => [x.mpn, [x.fields.vzMin?.si, x.fields.vzNom?.si, x.fields.vzMax?.si, x.fields.vr?.si]]));
+    // The wide cell also merges the three columns for the other rows: what they return must be right.
+    expect(v.GQN24).toEqual([undefined, undefined, undefined, 16.8]);
+    v.GQN27.forEach((got, i) => expect([undefined, [25.7, 27, 28.4, 18.9][i]]).toContain(got));
+    expect(result.warnings.some((w) => /GQN24: "22\.8V 24\.00 V 25\.2V" .* holds several figures/.test(w))).toBe(true);
+  });
+
+  it('leaves out a bare figure ending in 0 in a column whose other figures print Ω (a scan read "150 Ω" as 1500)', () => {
+    const result = extractRatings(
+      pdf([
+        ...row(744, XS, ['Type', 'VZ min', 'VZ nom', 'VZ max', 'ZZT (Ω)', 'VR']),
+        ...row(722, XS, ['GQE8V2', '7.8 V', '8.20 V', '8.6 V', '150 Ω', '5.7 V']),
+        ...row(712, XS, ['GQE9V1', '8.6 V', '9.10 V', '9.6 V', '1500', '6.4 V']),
+        ...row(702, XS, ['GQE10', '9.5 V', '10.00 V', '10.5 V', '160Ω', '7 V']),
+      ]),
+    );
+    const zzt = Object.fromEntries(result.variants.map((x) => [x.mpn, x.fields.zzt?.si]));
+    expect(zzt).toEqual({ GQE8V2: 150, GQE9V1: undefined, GQE10: 160 });
+  });
+
+  it('never takes a row whose part number was lost for the header (its "150 Ω" would give the column its unit)', () => {
+    const result = extractRatings(
+      table(
+        ['', '7.8 V', '8.20 V', '8.6 V', '150 Ω', '5.7 V'],
+        ['GQE9V1', '8.6 V', '9.10 V', '9.6 V', '1500', '6.4 V'],
+        ['GQE10', '9.5 V', '10.00 V', '10.5 V', '160Ω', '7 V'],
+      ),
+    );
+    const read = Object.fromEntries(result.variants.map((x) => [x.mpn, [x.fields.vzNom?.si, x.fields.zzt?.si]]));
+    expect(read).toEqual({ GQE9V1: [9.1, undefined], GQE10: [10, 160] });
+  });
+});
+
 describe('transposed tables: part numbers as columns', () => {
   const XS = [50, 180, 230, 280, 330];
   it('reads each row by its label and unit, and its condition for every part', () => {

@@ -68,6 +68,15 @@ export function findQuantities(text: string): QuantityToken[] {
   return out;
 }
 
+/**
+ * A bare figure ending in 0 or 2 among figures that print their Ω: a scan read the Ω as a digit
+ * ("310 Ω" as 3100, ten times too large). `printedUnits` counts the figures of the same row or
+ * column that print their own unit; two or more make the missing one suspect.
+ */
+export function ohmReadAsDigit(q: QuantityToken, printedUnits: number, unit: string | undefined): boolean {
+  return !q.unit && printedUnits >= 2 && unit !== undefined && unitKind(unit) === 'resistance' && /[02]$/.test(q.value);
+}
+
 export function isUnitOnly(text: string): boolean {
   const m = UNIT_ONLY.exec(text);
   return m !== null && unitKind(m[1]) !== undefined;

@@ -1,7 +1,7 @@
 import type { ExtractionField, QuantityKind } from '@shuntwise/contracts';
 import { fieldFor, FieldMatch, findConditions, isPackageHeader, LABELS, qualifierOf, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber, seriesLetters } from './part-numbers';
-import { blankFootnotes, findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
+import { blankFootnotes, findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, ohmReadAsDigit, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 
@@ -112,6 +112,13 @@ function headerLines(lines: Line[], rows: Line[], cols: Span[]): Line[] {
     if (line.y - prevY > 2.2 * pitch + 2) break;
     // A row of the table itself (or one it could not read) is never header.
     if (isDataRow(line) || isPartNumber(line.cells[0]?.text ?? '')) break;
+    // Nor is a row whose part number a scan lost ("8.0V | 8.20 V | 150 Ω | … | 41 mA"): its units
+    // would stand as the columns' own. The header lies above it.
+    const figures = line.cells.filter((c) => isNumericCell(c.text)).length;
+    if (figures >= 3 && 2 * figures >= line.cells.length) {
+      prevY = line.y;
+      continue;
+    }
     if (line.size > 1.3 * rowSize) break;
     if (line.cells.some((c) => c.text.length > 48)) break;
     // A caption starts in the part-number column and runs on over the next columns.
@@ -321,26 +328,40 @@ export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: str
         plan = { ...plan, conditions: [...plan.conditions, ...fromTitle] };
       }
       previous = plan;
+      // The units the column's cells print themselves, and how many print one (see ohmReadAsDigit).
+      const printedUnits = cols.map((_, k) => {
+        const units = rows.flatMap((r) => r.cells.filter((c) => columnIndex(cols, c) === k).map((c) => findQuantities(findConditions(c.text).rest)[0]?.unit ?? ''));
+        return { count: units.filter(Boolean).length, unit: units.find(Boolean) };
+      });
       for (const row of rows) {
         used.add(row);
-        readRow(row, cols, plan, drafts, warnings);
+        readRow(row, cols, plan, printedUnits, drafts, warnings);
       }
     }
   }
   return used;
 }
 
-function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts, warnings: string[]): void {
+function readRow(row: Line, cols: Span[], plan: TablePlan, printedUnits: { count: number; unit?: string }[], drafts: VariantDrafts, warnings: string[]): void {
   const mpn = row.cells[0].text;
   const draft = drafts.get(mpn, orderOf(row.page, row.index));
   const byColumn = new Map<number, Cell>();
+  // Two figures of one row under one column (columns a wide cell merged, "25.7 V | 27.00 V"
+  // under "VZ min VZ nom VZ max"): which is the column's is not known.
+  const crowded = new Set<number>();
   for (const cell of row.cells.slice(1)) {
     const k = columnIndex(cols, cell);
-    if (k > 0 && !byColumn.has(k)) byColumn.set(k, cell);
+    if (k <= 0) continue;
+    if (!byColumn.has(k)) byColumn.set(k, cell);
+    else if (/\d/.test(cell.text) && /\d/.test(byColumn.get(k)!.text)) crowded.add(k);
   }
   plan.columns.forEach((col, k) => {
     const cell = byColumn.get(k);
     if (!cell || isEmptyCell(cell.text)) return;
+    if (crowded.has(k) && col.match) {
+      warnings.push(`${mpn}: several figures stand under "${col.header}" on page ${row.page}; ${col.match.field} left empty.`);
+      return;
+    }
     if (col.isPackage) {
       const found = findPackage(cell.text);
       draft.offerPackage({ value: found?.value ?? cell.text, page: row.page, text: row.printed, box: cellBox(cell), rank: 3 });
@@ -349,9 +370,21 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, drafts: VariantDrafts
     if (!col.match) return;
     const field = col.match.field;
     const { conditions, rest } = findConditions(cell.text, field);
-    const q = findQuantities(rest)[0];
+    const found = findQuantities(rest);
+    const q = found[0];
     if (!q) {
       warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} is not a number; ${field} left empty.`);
+      return;
+    }
+    // Several figures with a unit of one kind in one cell ("22.8V 24.00 V 25.2V", a scan that ran
+    // the min, nom and max cells together): which is this column's is not known.
+    const sameKind = found.filter((t) => t.unit && q.unit && unitKind(t.unit) === unitKind(q.unit));
+    if (sameKind.length > 1) {
+      warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} holds several figures; ${field} left empty.`);
+      return;
+    }
+    if (ohmReadAsDigit(q, printedUnits[k].count, col.unit ?? printedUnits[k].unit)) {
+      warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} lacks the Ω its column's other figures print (a unit read as a digit?); left empty.`);
       return;
     }
     const unit = q.unit || col.unit || '';

@@ -1,7 +1,7 @@
 import type { ExtractionField } from '@shuntwise/contracts';
 import { fieldFor, findConditions, isPackageHeader, TitleCondition, titleConditions } from './field-patterns';
 import { findPackage, isPartNumber, seriesLetters } from './part-numbers';
-import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, toSi, unitKind } from './quantity-text';
+import { findQuantities, headerUnit, isEmptyCell, isNumericCell, isUnitOnly, ohmReadAsDigit, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDrafts } from './variant-drafts';
 
@@ -147,8 +147,7 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
         .offer(cond.field, { ...cond, si, page: cond.line.page, text: cond.line.printed, box: cellBox(cond.line.cells[0]), rank: 1, method: 'table' });
     }
   }
-  // How many of the row's figures print their own unit: when the others do, a bare figure ending
-  // in 0 or 2 is one whose Ω a scan read as a digit ("310 Ω" as 3100), ten times too large.
+  // How many of the row's figures print their own unit (see ohmReadAsDigit).
   const printedUnits = [...values.values()].filter((c) => findQuantities(findConditions(c.text, field).rest)[0]?.unit).length;
   for (const col of cols) {
     const cell = values.get(col);
@@ -156,7 +155,7 @@ function readRow(line: Line, cols: PartColumn[], drafts: VariantDrafts, warnings
     const own = findConditions(cell.text, field);
     const q = findQuantities(own.rest)[0];
     if (!q) continue;
-    if (!q.unit && printedUnits >= 2 && unit !== undefined && unitKind(unit) === 'resistance' && /[02]$/.test(q.value)) {
+    if (ohmReadAsDigit(q, printedUnits, unit)) {
       warnings.push(
         `${col.mpn}: "${cell.text}" in the row "${labelText}" on page ${line.page} lacks the Ω the row's other figures print (a unit read as a digit?); left empty.`,
       );
