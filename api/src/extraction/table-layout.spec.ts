@@ -233,4 +233,32 @@ describe('two-column pages', () => {
     expect(byMpn.get('XC6V2')?.vzNom?.si).toBe(6.2);
     expect(byMpn.get('XC6V2')?.zzt?.si).toBe(10);
   });
+
+  it('puts the gutter left of a part heading that starts a little before the symbols of its table', () => {
+    // Two parts' parameter tables side by side on a landscape page, then one on its own: the
+    // right column's headings start at 431, its symbols (centred) at 443.6–447.6.
+    const items: PdfTextItem[] = [];
+    const cell = (str: string, x: number, y: number) => items.push(item(str, x, y, 7, str.length * 3.5));
+    const part = (x: number, y: number, mpn: string, vz: string[], zz: string) => {
+      cell(mpn, x, y);
+      cell('Package: SOD-523', x, y - 11);
+      [['Symbol', 5], ['Parameter', 63], ['Conditions', 135], ['minimum', 185], ['typical', 240], ['maximum', 287], ['Unit', 332]].forEach(([t, dx]) =>
+        cell(t as string, x + (dx as number), y - 23),
+      );
+      [['VZ', 15.6], ['Working voltage', 40], ['Itest = 5 mA', 131], [vz[0], 195], [vz[1], 233], [vz[2], 298], ['V', 337]].forEach(([t, dx]) =>
+        cell(t as string, x + (dx as number), y - 35),
+      );
+      [['rzj', 15.6], ['Differential resistance', 40], ['Itest = 5 mA', 131], [zz, 301], ['Ω', 337]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 47));
+      [['IR', 16.6], ['Reverse leakage current', 40], ['UR = 4.8 V', 131], ['5', 303], ['uA', 335]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 59));
+      [['αVZ', 12.6], ['Temperature coefficient', 40], ['Itest = 5 mA', 131], ['0.021', 229], ['%/K', 333]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 71));
+    };
+    part(60, 546, 'QNC-6V8', ['6.46', '6.8', '7.14'], '16');
+    part(431, 546, 'QNC-10', ['9.5', '10.0', '10.5'], '17');
+    part(60, 449, 'QNC-7V5', ['7.13', '7.5', '7.88'], '17');
+    part(431, 449, 'QNC-11', ['10.5', '11.0', '11.6'], '19');
+    part(60, 351, 'QNC-8V2', ['7.79', '8.2', '8.61'], '16');
+    const result = extractRatings({ pageCount: 1, hasText: true, pages: [{ page: 1, width: 842, height: 595, items }] });
+    const read = Object.fromEntries(result.variants.map((v) => [v.mpn, [v.fields.vzNom?.si, v.fields.zzt?.si]]));
+    expect(read).toEqual({ 'QNC-6V8': [6.8, 16], 'QNC-10': [10, 17], 'QNC-7V5': [7.5, 17], 'QNC-11': [11, 19], 'QNC-8V2': [8.2, 16] });
+  });
 });

@@ -232,7 +232,10 @@ function repeatedColumnsGutter(groups: Placed[][], from: number, to: number): nu
     if (n > agree) [best, agree] = [e, n];
   }
   if (agree < 4) return undefined;
-  const x = Math.floor(best) - GUTTER_CLEAR - 2;
+  // The gutter lies left of the column's leftmost start near that edge (a heading that starts a
+  // little left of the symbols under it: "FNC-10" at 431 over "VZ" at 446).
+  const leftmost = Math.min(...edges.filter((e) => e >= best - 15 && e <= best));
+  const x = Math.floor(leftmost) - GUTTER_CLEAR - 2;
   if (x < from || x > to) return undefined;
   const crossing = groups.filter((g) => g.some((i) => i.x0 < x && i.x1 > x)).length;
   return crossing <= 3 ? x : undefined;
