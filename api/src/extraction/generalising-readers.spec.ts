@@ -564,4 +564,15 @@ describe('a page turned by 90°', () => {
     const found = new Set(result.variants.map((v) => v.mpn));
     for (const v of answers.variants) expect(found.has(v.mpn)).toBe(true);
   });
+
+  it('keeps the few turned rows of a continuation page under an upright running header and footer', async () => {
+    // Generated datasheet 1608789731: the TMC table continues on page 3 with three turned rows,
+    // fewer characters than the page's upright header and footer.
+    const { pdf: bytes, answers } = await generateRandomDatasheet(1608789731);
+    const text = await readPdf(new Uint8Array(bytes));
+    const onPage3 = answers.variants.filter((v) => Object.values(v.fields).some((f) => f?.page === 3)).map((v) => v.mpn);
+    expect(onPage3.length).toBeGreaterThanOrEqual(3);
+    const found = new Set(extractRatings(text).variants.map((v) => v.mpn));
+    for (const mpn of onPage3) expect(found.has(mpn)).toBe(true);
+  });
 });

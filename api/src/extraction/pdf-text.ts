@@ -47,10 +47,17 @@ function turnOf(a: number, b: number): 0 | 90 | 180 | 270 {
   return b > 0 ? 90 : 270;
 }
 
-/** The direction most of a page's text runs in (by characters), so that a page turned by 90° is read upright. */
-function dominantTurn(items: Array<{ str: string; a: number; b: number }>): 0 | 90 | 180 | 270 {
+/**
+ * The direction most of a page's text runs in (by characters), so that a page turned by 90° is
+ * read upright. The running header and footer (the top and bottom 8 % of the page) are left out
+ * of the count: upright, they outweighed the three turned rows of a table's continuation page,
+ * and those rows were dropped.
+ */
+function dominantTurn(items: Array<{ str: string; a: number; b: number; f: number }>, bottom: number, height: number): 0 | 90 | 180 | 270 {
+  const inBody = (i: { f: number }) => i.f - bottom > 0.08 * height && i.f - bottom < 0.92 * height;
+  const body = items.some(inBody) ? items.filter(inBody) : items;
   const count = new Map<number, number>();
-  for (const i of items) count.set(turnOf(i.a, i.b), (count.get(turnOf(i.a, i.b)) ?? 0) + i.str.length);
+  for (const i of body) count.set(turnOf(i.a, i.b), (count.get(turnOf(i.a, i.b)) ?? 0) + i.str.length);
   let best: 0 | 90 | 180 | 270 = 0;
   for (const [t, n] of count) if (n > (count.get(best) ?? 0)) best = t as 0 | 90 | 180 | 270;
   return best;
@@ -137,7 +144,7 @@ export async function readPdf(buffer: Uint8Array): Promise<PdfText> {
         const [a, b, , , e, f] = item.transform as number[];
         raw.push({ str: item.str, a, b, e, f, width: item.width, height: item.height });
       }
-      const turn = dominantTurn(raw);
+      const turn = dominantTurn(raw, y0, y1 - y0);
       const w = x1 - x0;
       const h = y1 - y0;
       const items: PdfTextItem[] = [];
