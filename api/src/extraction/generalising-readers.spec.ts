@@ -385,6 +385,24 @@ describe('tolerance given by a part-number letter with a legend', () => {
     expect(c.fields.vzNom!.derived).toBeUndefined();
   });
 
+  it('reads a legend wrapped in the right-hand column beside other text, its last percentage on the next line', () => {
+    const XS = [50, 130, 180, 230];
+    const result = extractRatings(
+      pdf([
+        ...row(760, XS, ['Type', 'VZ nom (V)', 'IZT (mA)', 'ZZT (Ω)']),
+        ...row(745, XS, ['LGW56', '56', '20', '130']),
+        ...row(733, XS, ['LGW62', '62', '20', '140']),
+        // Left column: a part's heading; right column, on the same baselines, the legend wrapped after "C ±5".
+        item('Package: SOD-123F (TA = 25 °C)', 50, 700, 9, 150),
+        item('Tolerance of VZ: the letter after the type number gives it (A ±1 %, B ±2 %, C ±5', 300, 700, 9, 280),
+        item('Marking on the body', 50, 689, 9, 100),
+        item('%). Example: LGW56A is the 56 V type with ±1 %.', 300, 689, 9, 200),
+      ]),
+    );
+    expect(result.variants.map((v) => v.mpn)).toEqual(['LGW56A', 'LGW56B', 'LGW56C', 'LGW62A', 'LGW62B', 'LGW62C']);
+    expect(result.variants[2].fields.vzMin).toMatchObject({ si: 53.2, derived: 'tolerance-suffix' });
+  });
+
   it("never reads the legend's example as a rating of the part whose block it sits in, even when a lost word splits the line", () => {
     // One part per block; the VZ row's figure is missing (as an OCR reading can lose it), and the
     // legend line is cut in two where its first percentage was lost: "… (A | %, B ±2 % …) Example: QRN220A is the 22 V".

@@ -23,14 +23,28 @@ export function findToleranceLegends(pages: Line[][]): ToleranceLegend[] {
   const out: ToleranceLegend[] = [];
   for (const lines of pages) {
     for (let i = 0; i < lines.length; i++) {
-      // A legend may wrap: read each line together with the next.
-      const text = lines[i].text + (lines[i + 1] ? ' ' + lines[i + 1].text : '');
-      const context = (lines[i - 1]?.text ?? '') + ' ' + text;
-      if (!TOLERANCE_LEGEND_CONTEXT.test(context)) continue;
-      const letters: ToleranceLegend['letters'] = [];
-      // Letters that start on this line, their percentage possibly wrapped to the next ("… B ±2 %, C / ±5 %).").
-      for (const m of text.matchAll(TOLERANCE_LEGEND)) if (m.index < lines[i].text.length) letters.push({ letter: m[1], pct: Number(m[2]) });
-      if (letters.length < 2 || new Set(letters.map((l) => l.letter)).size !== letters.length) continue;
+      // A legend may wrap: read each line together with the next. Beside another column (a
+      // two-column page read as one), a cell is read with the cells at its own left edge above
+      // and below it.
+      const aligned = (line: Line | undefined, x0: number) => line?.cells.find((c) => Math.abs(c.x0 - x0) < 4)?.text ?? '';
+      const readings = [
+        { own: lines[i].text, next: lines[i + 1]?.text ?? '', previous: lines[i - 1]?.text ?? '' },
+        ...lines[i].cells.slice(1).map((c) => ({ own: c.text, next: aligned(lines[i + 1], c.x0), previous: aligned(lines[i - 1], c.x0) })),
+      ];
+      const found = readings
+        .map((r) => {
+          const text = r.next ? `${r.own} ${r.next}` : r.own;
+          if (!TOLERANCE_LEGEND_CONTEXT.test(`${r.previous} ${text}`)) return undefined;
+          // Letters that start on this line, their percentage possibly wrapped to the next ("… B ±2 %, C / ±5 %).").
+          const letters: ToleranceLegend['letters'] = [];
+          for (const m of text.matchAll(TOLERANCE_LEGEND)) if (m.index < r.own.length) letters.push({ letter: m[1], pct: Number(m[2]) });
+          return letters.length >= 2 && new Set(letters.map((l) => l.letter)).size === letters.length ? { text, letters } : undefined;
+        })
+        .filter((r) => r !== undefined)
+        // The reading that holds the most letters: a whole line cut a wrapped "C ±5 / %)" short.
+        .sort((a, b) => b.letters.length - a.letters.length)[0];
+      if (!found) continue;
+      const { text, letters } = found;
       const example = /\b(?:example|e\.g\.)[:,]?\s+([A-Z][A-Z0-9-]{2,})/i.exec(text);
       out.push({
         letters,
