@@ -219,8 +219,11 @@ export function ratingsBlock(ctx: Ctx, flow: Flow, heading: string, pkg: Package
 /** "Label ........ value": a leader line across the width. */
 export function leader(ctx: Ctx, x: number, y: number, w: number, label: string, value: string, unit = ''): void {
   const { pen } = ctx;
-  const size = w < 300 ? 7.5 : 8.5;
   const unitW = unit ? 34 : 0;
+  // A label too long for the line is set smaller, as a printed list would: the value never
+  // runs over the label, nor the line past its column.
+  let size = w < 300 ? 7.5 : 8.5;
+  while (size > 5 && pen.width(label, { size }) + pen.width(value, { size }) + unitW + 12 > w) size -= 0.25;
   pen.put(label, x, y, { size });
   const lw = pen.width(label, { size });
   const vw = pen.width(value, { size });
