@@ -222,7 +222,11 @@ export function transposedTable(ctx: Ctx, flow: Flow, s: SeriesModel): void {
   const unitW = unitCol ? 34 : 0;
   // As many parts side by side as their widest cell ("290 ohm @ 0.25 mA") leaves room for: a
   // printed table never lets one cell run into the next.
-  const widest = Math.max(...s.rows.flatMap((row) => specs.map((sp) => pen.width(cell(ctx, s, sp, row, false, unitInCell, 0), { size: 7, condensed: true }))));
+  // The part number over each column counts too ("VNAN-220W" ran into its neighbours).
+  const widest = Math.max(
+    ...s.rows.flatMap((row) => specs.map((sp) => pen.width(cell(ctx, s, sp, row, false, unitInCell, 0), { size: 7, condensed: true }))),
+    ...s.rows.map((row) => pen.width(row[0].printedMpn, { size: 7, condensed: true, bold: true })),
+  );
   const fits = Math.max(2, Math.min(6, Math.floor((avail - labelW - symW - condW - unitW) / (widest + 12))));
   // Blocks of even size: a last block of one part would be a table of one column.
   const perBlock = Math.ceil(s.rows.length / Math.ceil(s.rows.length / fits));
