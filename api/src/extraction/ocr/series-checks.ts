@@ -114,11 +114,15 @@ export function seriesOutliers(variants: readonly ExtractedVariant[]): Map<strin
       // No part read well enough to show the scale, but every number of the series (three or
       // more) is an E24 value, the voltages regulator diodes are made in (IEC 60063, from memory):
       // the numbers code VZ in volts or tenths of a volt ("22" 22 V, "082" 8.2 V, "100" 10 V),
-      // and an OCR'd VZ near neither, or a test voltage above both, lost a separator.
+      // and an OCR'd VZ near neither, or a test voltage above both, lost a separator. The nominal
+      // is the coded value itself, at either scale ("GCNP56": 56 V, never 53.2 V, a minimum read
+      // into the nominal's column).
       if (coded.length < 3 || !coded.every(({ code }) => isE24(code))) continue;
       for (const { v, code } of coded) {
         const ends = code.startsWith('0') ? [Number(code) / 10] : [Number(code), Number(code) / 10];
-        for (const field of ['vzMin', 'vzNom', 'vzMax'] as const) {
+        const nom = v.fields.vzNom;
+        if (nom?.ocr && digitsOf(nom.si) !== digitsOf(Number(code))) flag(v.mpn, 'vzNom');
+        for (const field of ['vzMin', 'vzMax'] as const) {
           const value = v.fields[field];
           if (value?.ocr && !ends.some((e) => Math.abs(value.si - e) <= 0.25 * e)) flag(v.mpn, field);
         }
