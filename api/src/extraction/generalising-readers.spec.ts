@@ -180,17 +180,11 @@ describe('a units row whose middle cell a scan could not read', () => {
 describe('series-table cells a scan garbled', () => {
   const XS = [52, 111, 155, 199, 244, 300];
   const table = (...rows: string[][]) =>
-    pdf([
-      ...row(744, XS, ['Type', 'VZ min', 'VZ nom', 'VZ max', 'ZZT max', 'VR']),
-      ...rows.flatMap((cells, i) => row(722 - 10 * i, XS, cells)),
-    ]);
+    pdf([...row(744, XS, ['Type', 'VZ min', 'VZ nom', 'VZ max', 'ZZT max', 'VR']), ...rows.flatMap((cells, i) => row(722 - 10 * i, XS, cells))]);
 
   it('leaves out a cell holding several figures of one kind (min, nom and max run together)', () => {
     const result = extractRatings(
-      table(
-        ['GQN24', '22.8V 24.00 V 25.2V', '', '', '53 Ω', '16.8 V'],
-        ['GQN27', '25.7 V', '27.00 V', '28.4 V', '60 Ω', '18.9 V'],
-      ),
+      table(['GQN24', '22.8V 24.00 V 25.2V', '', '', '53 Ω', '16.8 V'], ['GQN27', '25.7 V', '27.00 V', '28.4 V', '60 Ω', '18.9 V']),
     );
     const v = Object.fromEntries(result.variants.map((x) => [x.mpn, [x.fields.vzMin?.si, x.fields.vzNom?.si, x.fields.vzMax?.si, x.fields.vr?.si]]));
     // The wide cell also merges the three columns for the other rows: what they return must be right.
@@ -346,8 +340,7 @@ describe('the package of a part whose table gives none', () => {
         : []),
       item('Package outline SOD-323 (mm)', 50, 560, 10, 150),
     ]);
-  const read = (r: ReturnType<typeof extractRatings>) =>
-    Object.fromEntries(r.variants.map((v) => [v.mpn, [v.package?.value, v.fields.pdMax?.si]]));
+  const read = (r: ReturnType<typeof extractRatings>) => Object.fromEntries(r.variants.map((v) => [v.mpn, [v.package?.value, v.fields.pdMax?.si]]));
 
   it('is not the one a package outline names while the ratings name two packages', () => {
     expect(read(extractRatings(doc(false)))).toEqual({
@@ -357,7 +350,7 @@ describe('the package of a part whose table gives none', () => {
     });
   });
 
-  it('is the one its ordering code names, and brings that package\'s ratings', () => {
+  it("is the one its ordering code names, and brings that package's ratings", () => {
     expect(read(extractRatings(doc(true)))).toEqual({
       'KQB-068': ['SOD-523', 0.5],
       'KQB-075W': ['SOD-323', 0.4],

@@ -242,15 +242,45 @@ describe('two-column pages', () => {
     const part = (x: number, y: number, mpn: string, vz: string[], zz: string) => {
       cell(mpn, x, y);
       cell('Package: SOD-523', x, y - 11);
-      [['Symbol', 5], ['Parameter', 63], ['Conditions', 135], ['minimum', 185], ['typical', 240], ['maximum', 287], ['Unit', 332]].forEach(([t, dx]) =>
-        cell(t as string, x + (dx as number), y - 23),
-      );
-      [['VZ', 15.6], ['Working voltage', 40], ['Itest = 5 mA', 131], [vz[0], 195], [vz[1], 233], [vz[2], 298], ['V', 337]].forEach(([t, dx]) =>
-        cell(t as string, x + (dx as number), y - 35),
-      );
-      [['rzj', 15.6], ['Differential resistance', 40], ['Itest = 5 mA', 131], [zz, 301], ['Ω', 337]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 47));
-      [['IR', 16.6], ['Reverse leakage current', 40], ['UR = 4.8 V', 131], ['5', 303], ['uA', 335]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 59));
-      [['αVZ', 12.6], ['Temperature coefficient', 40], ['Itest = 5 mA', 131], ['0.021', 229], ['%/K', 333]].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 71));
+      [
+        ['Symbol', 5],
+        ['Parameter', 63],
+        ['Conditions', 135],
+        ['minimum', 185],
+        ['typical', 240],
+        ['maximum', 287],
+        ['Unit', 332],
+      ].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 23));
+      [
+        ['VZ', 15.6],
+        ['Working voltage', 40],
+        ['Itest = 5 mA', 131],
+        [vz[0], 195],
+        [vz[1], 233],
+        [vz[2], 298],
+        ['V', 337],
+      ].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 35));
+      [
+        ['rzj', 15.6],
+        ['Differential resistance', 40],
+        ['Itest = 5 mA', 131],
+        [zz, 301],
+        ['Ω', 337],
+      ].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 47));
+      [
+        ['IR', 16.6],
+        ['Reverse leakage current', 40],
+        ['UR = 4.8 V', 131],
+        ['5', 303],
+        ['uA', 335],
+      ].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 59));
+      [
+        ['αVZ', 12.6],
+        ['Temperature coefficient', 40],
+        ['Itest = 5 mA', 131],
+        ['0.021', 229],
+        ['%/K', 333],
+      ].forEach(([t, dx]) => cell(t as string, x + (dx as number), y - 71));
     };
     part(60, 546, 'QNC-6V8', ['6.46', '6.8', '7.14'], '16');
     part(431, 546, 'QNC-10', ['9.5', '10.0', '10.5'], '17');

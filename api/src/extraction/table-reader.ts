@@ -330,7 +330,9 @@ export function readTables(pages: Line[][], drafts: VariantDrafts, warnings: str
       previous = plan;
       // The units the column's cells print themselves, and how many print one (see ohmReadAsDigit).
       const printedUnits = cols.map((_, k) => {
-        const units = rows.flatMap((r) => r.cells.filter((c) => columnIndex(cols, c) === k).map((c) => findQuantities(findConditions(c.text).rest)[0]?.unit ?? ''));
+        const units = rows.flatMap((r) =>
+          r.cells.filter((c) => columnIndex(cols, c) === k).map((c) => findQuantities(findConditions(c.text).rest)[0]?.unit ?? ''),
+        );
         return { count: units.filter(Boolean).length, unit: units.find(Boolean) };
       });
       for (const row of rows) {
@@ -384,7 +386,9 @@ function readRow(row: Line, cols: Span[], plan: TablePlan, printedUnits: { count
       return;
     }
     if (ohmReadAsDigit(q, printedUnits[k].count, col.unit ?? printedUnits[k].unit)) {
-      warnings.push(`${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} lacks the Ω its column's other figures print (a unit read as a digit?); left empty.`);
+      warnings.push(
+        `${mpn}: "${cell.text}" under "${col.header}" on page ${row.page} lacks the Ω its column's other figures print (a unit read as a digit?); left empty.`,
+      );
       return;
     }
     const unit = q.unit || col.unit || '';

@@ -63,7 +63,12 @@ describe('OCR figures against their series', () => {
       TKV33: ['vzMin', 'vzMax'],
     });
     // No scale learnt either, and a minimum read into the nominal's column (53.2 V for GQNP56).
-    const shifted = [limits('GQNP24', 22.8, 252), limits('GQNP27', 25.7, 284), limits('GQNP33', 31.4, 347), { ...limits('GQNP56', 51, 58.8), fields: { vzNom: q(53.2), vzMax: q(58.8) } } as ExtractedVariant];
+    const shifted = [
+      limits('GQNP24', 22.8, 252),
+      limits('GQNP27', 25.7, 284),
+      limits('GQNP33', 31.4, 347),
+      { ...limits('GQNP56', 51, 58.8), fields: { vzNom: q(53.2), vzMax: q(58.8) } } as ExtractedVariant,
+    ];
     expect(seriesOutliers(shifted).get('GQNP56')).toEqual(['vzNom']);
     // Two parts whose figures all lost the comma alike agree on "ten volts a unit": no such scale.
     const alike = [limits('TKV22', 209, 231), limits('TKV24', 228, 252), { mpn: 'TKV27', fields: { tjMax: q(423) } } as ExtractedVariant];
