@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { Transaction } from 'sequelize';
 import { CatalogueEvents, type CatalogueChange } from '../src/catalogue-events/catalogue-events.service';
+import { EXTRACTOR_VERSION } from '../src/extraction';
 import { StorageService } from '../src/storage/storage.service';
 import { cardDraftFromExtraction, staleConflictBodySchema, type ExtractionResult } from '@shuntwise/contracts';
 import { createVendorPart, demoCardFields } from './helpers/catalogue-fixtures';
@@ -78,6 +79,42 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     expect(extraction.status).toBe(200);
     expect(extraction.body).toMatchObject({ pages: fixture.answers.pages, hasText: true, variants: expect.any(Array), warnings: expect.any(Array) });
     expect((await t.http.get(`/api/datasheets/${res.body.id}/extraction`).set(auth(buyer))).status).toBe(403);
+  });
+
+  it('reads a file uploaded again afresh when its stored reading was made by another extractor version, and keeps the reading otherwise', async () => {
+    // A copy of a fixture with a comment after its end: a file of its own for this test alone.
+    const fixture = sheet('aldmoor');
+    const bytes = Buffer.concat([readFileSync(fixture.pdfPath), Buffer.from('\n% read again\n')]);
+    const first = await upload(bytes, 'am.pdf');
+    expect(first.status).toBe(201);
+    const id = first.body.id as number;
+    const stored = async () =>
+      (
+        await t.select<{ reader_version: string | null; variant_count: number }>(
+          'SELECT reader_version, variant_count FROM datasheet_extractions WHERE datasheet_id = ?',
+          [id],
+        )
+      )[0];
+    const fresh = await stored();
+    expect(fresh).toEqual({ reader_version: EXTRACTOR_VERSION, variant_count: fixture.answers.variants.length });
+    // An older reader's result: one part with a wrong VZ (as an older version could return).
+    const old = { ...(await t.http.get(`/api/datasheets/${id}/extraction`).set(auth(engineer))).body };
+    old.variants = [{ ...old.variants[0], fields: { ...old.variants[0].fields, vzNom: { ...old.variants[0].fields.vzNom, value: '99', si: 99 } } }];
+    await t.exec('UPDATE datasheet_extractions SET result = ?, variant_count = 1, reader_version = ? WHERE datasheet_id = ?', [
+      JSON.stringify(old),
+      '2026-01-01.1',
+      id,
+    ]);
+    const same = await upload(bytes, 'am again.pdf');
+    expect(same.body).toMatchObject({ id, existing: true });
+    expect(await stored()).toEqual(fresh);
+    const reading = (await t.http.get(`/api/datasheets/${id}/extraction`).set(auth(engineer))).body as ExtractionResult;
+    expect(reading.variants.length).toBe(fixture.answers.variants.length);
+    expect(reading.variants.some((v) => v.fields.vzNom?.si === 99)).toBe(false);
+    // The current version's reading is kept as it is (not read a third time).
+    await t.exec('UPDATE datasheet_extractions SET variant_count = 0 WHERE datasheet_id = ?', [id]);
+    await upload(bytes, 'am third.pdf');
+    expect((await stored()).variant_count).toBe(0);
   });
 
   it('returns the stored datasheet for the same file again, adding nothing', async () => {

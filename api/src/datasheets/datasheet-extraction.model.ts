@@ -18,5 +18,9 @@ export class DatasheetExtraction extends Model {
   @Column({ type: DataType.INTEGER, allowNull: false })
   declare warningCount: number;
 
+  /** The EXTRACTOR_VERSION that made this reading; null for readings stored before versions were kept. */
+  @Column({ type: DataType.STRING(32), allowNull: true })
+  declare readerVersion: string | null;
+
   declare createdAt: Date;
 }

@@ -33,7 +33,11 @@ export class DatasheetsController {
       properties: { file: { type: 'string', format: 'binary' }, vendorPartId: { type: 'integer' }, revision: { type: 'string', maxLength: 40 } },
     },
   })
-  @ApiCreatedResponse({ type: UploadDatasheetResponseDto, description: 'stored; 200 with existing: true when the same file was already stored' })
+  @ApiCreatedResponse({
+    type: UploadDatasheetResponseDto,
+    description:
+      'stored; 200 with existing: true when the same file was already stored (read again when its stored reading came from another extractor version)',
+  })
   async upload(
     @UploadedFile() file: Express.Multer.File | undefined,
     @Body() fields: UploadDatasheetFieldsDto,

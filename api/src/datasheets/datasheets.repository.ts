@@ -33,10 +33,22 @@ export class DatasheetsRepository {
   }
 
   async createExtraction(
-    values: { datasheetId: number; result: unknown; variantCount: number; warningCount: number },
+    values: { datasheetId: number; result: unknown; variantCount: number; warningCount: number; readerVersion: string },
     transaction: Transaction,
   ): Promise<void> {
     await this.extractions.create(values, { transaction });
+  }
+
+  /** A new reading of a stored file in place of the old one. */
+  async replaceExtraction(values: { datasheetId: number; result: unknown; variantCount: number; warningCount: number; readerVersion: string }): Promise<void> {
+    const { datasheetId, ...rest } = values;
+    await this.extractions.update(rest, { where: { datasheetId } });
+  }
+
+  /** The extractor version of a datasheet's stored reading (null: none kept, undefined: no reading). */
+  async readerVersion(datasheetId: number): Promise<string | null | undefined> {
+    const row = await this.extractions.findByPk(datasheetId, { attributes: ['datasheetId', 'readerVersion'] });
+    return row ? row.readerVersion : undefined;
   }
 
   findExtraction(datasheetId: number): Promise<DatasheetExtraction | null> {

@@ -26,7 +26,7 @@ import { UnitOfWork } from '../database/unit-of-work';
 import { CatalogueEvents } from '../catalogue-events/catalogue-events.service';
 import type { AuthUser } from '../common/decorators/current-user.decorator';
 import { StaleConflictException } from '../common/errors/stale-conflict.exception';
-import { PdfReadError } from '../extraction';
+import { EXTRACTOR_VERSION, PdfReadError } from '../extraction';
 import { ExtractionLimitError } from '../extraction-worker/extraction-pool';
 import { StorageService } from '../storage/storage.service';
 import { RatingCardsService, StaleCardError } from '../vendor-parts/rating-cards.service';
@@ -83,7 +83,7 @@ export class DatasheetsService {
     }
     const sha256 = createHash('sha256').update(file.buffer).digest('hex');
     const known = await this.datasheets.findBySha256(sha256);
-    if (known) return this.existing(known, fields, user);
+    if (known) return this.existing(known, fields, user, file.buffer);
 
     const extraction = await this.read(file.buffer);
     const key = `datasheets/${randomUUID()}.pdf`;
@@ -103,7 +103,13 @@ export class DatasheetsService {
         transaction,
       );
       await this.datasheets.createExtraction(
-        { datasheetId: row.id, result: extraction, variantCount: extraction.variants.length, warningCount: extraction.warnings.length },
+        {
+          datasheetId: row.id,
+          result: extraction,
+          variantCount: extraction.variants.length,
+          warningCount: extraction.warnings.length,
+          readerVersion: EXTRACTOR_VERSION,
+        },
         transaction,
       );
       if (fields.vendorPartId !== undefined) await this.linkVendorPart(fields.vendorPartId, row.id, user, transaction);
@@ -231,11 +237,38 @@ export class DatasheetsService {
     });
   }
 
-  private async existing(row: Datasheet, fields: UploadDatasheetFields, user: AuthUser): Promise<UploadDatasheetResponse> {
+  private async existing(row: Datasheet, fields: UploadDatasheetFields, user: AuthUser, buffer?: Buffer): Promise<UploadDatasheetResponse> {
     if (fields.vendorPartId !== undefined) {
       await this.unitOfWork.run((transaction) => this.linkVendorPart(fields.vendorPartId!, row.id, user, transaction));
     }
+    if (buffer) await this.readAgainIfOlder(row.id, buffer);
     return { ...summary(row), existing: true };
+  }
+
+  /**
+   * A stored reading made by another version of the extractor is replaced by a fresh one of
+   * the same bytes (the upload's own: the file is the same by its sha256). A fresh reading
+   * that fails keeps the old one, which is what the engineer saw before.
+   */
+  private async readAgainIfOlder(datasheetId: number, buffer: Buffer): Promise<void> {
+    const version = await this.datasheets.readerVersion(datasheetId);
+    if (version === EXTRACTOR_VERSION) return;
+    let extraction: ExtractionResult;
+    try {
+      extraction = await this.read(buffer);
+    } catch (error) {
+      this.logger.warn(`datasheet ${datasheetId}: reading it again failed, the stored reading stays: ${(error as Error).message}`);
+      return;
+    }
+    const values = {
+      datasheetId,
+      result: extraction,
+      variantCount: extraction.variants.length,
+      warningCount: extraction.warnings.length,
+      readerVersion: EXTRACTOR_VERSION,
+    };
+    if (version === undefined) await this.unitOfWork.run((transaction) => this.datasheets.createExtraction(values, transaction));
+    else await this.datasheets.replaceExtraction(values);
   }
 
   private async read(buffer: Buffer): Promise<ExtractionResult> {

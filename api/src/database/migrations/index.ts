@@ -17,6 +17,7 @@ import { waivers } from './2026-12-04-0900-waivers';
 import { qualificationPairState } from './2026-12-04-1000-qualification-pair-state';
 import { usableSources } from './2026-12-04-1100-usable-sources';
 import { vendorPartFilterIndex } from './2026-12-04-1101-vendor-part-filter-index';
+import { extractionReaderVersion } from './2026-12-05-2030-extraction-reader-version';
 
 /**
  * Every migration, oldest first. Append new ones at the end (file name
@@ -41,4 +42,5 @@ export const MIGRATIONS: Migration[] = [
   qualificationPairState,
   usableSources,
   vendorPartFilterIndex,
+  extractionReaderVersion,
 ];
