@@ -102,16 +102,7 @@ export class DatasheetsService {
         },
         transaction,
       );
-      await this.datasheets.createExtraction(
-        {
-          datasheetId: row.id,
-          result: extraction,
-          variantCount: extraction.variants.length,
-          warningCount: extraction.warnings.length,
-          readerVersion: EXTRACTOR_VERSION,
-        },
-        transaction,
-      );
+      await this.datasheets.createExtraction(extractionRow(row.id, extraction), transaction);
       if (fields.vendorPartId !== undefined) await this.linkVendorPart(fields.vendorPartId, row.id, user, transaction);
       try {
         await this.storage.put(key, file.buffer, 'application/pdf', sha256);
@@ -260,13 +251,7 @@ export class DatasheetsService {
       this.logger.warn(`datasheet ${datasheetId}: reading it again failed, the stored reading stays: ${(error as Error).message}`);
       return;
     }
-    const values = {
-      datasheetId,
-      result: extraction,
-      variantCount: extraction.variants.length,
-      warningCount: extraction.warnings.length,
-      readerVersion: EXTRACTOR_VERSION,
-    };
+    const values = extractionRow(datasheetId, extraction);
     if (version === undefined) await this.unitOfWork.run((transaction) => this.datasheets.createExtraction(values, transaction));
     else await this.datasheets.replaceExtraction(values);
   }
@@ -317,4 +302,15 @@ export function safeFileName(name: string): string {
     .trim()
     .slice(0, 255);
   return clean || 'datasheet.pdf';
+}
+
+/** The stored form of a reading: the result, its counts, and the extractor version that made it. */
+function extractionRow(datasheetId: number, extraction: ExtractionResult) {
+  return {
+    datasheetId,
+    result: extraction,
+    variantCount: extraction.variants.length,
+    warningCount: extraction.warnings.length,
+    readerVersion: EXTRACTOR_VERSION,
+  };
 }
