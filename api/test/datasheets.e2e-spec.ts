@@ -117,6 +117,68 @@ describe('datasheets: uploads to the object store (real MariaDB, S3 fake)', () =
     expect((await stored()).variant_count).toBe(0);
   });
 
+  it('says when a stored reading is outdated, and an engineer has the stored file read again (others may not)', async () => {
+    const fixture = sheet('aldmoor');
+    const bytes = Buffer.concat([readFileSync(fixture.pdfPath), Buffer.from('\n% outdated reading\n')]);
+    const id = (await upload(bytes, 'am outdated.pdf')).body.id as number;
+    const current = (await t.http.get(`/api/datasheets/${id}/extraction`).set(auth(engineer))).body as ExtractionResult;
+    expect(current.outdated).toBe(false);
+    // An older reader's result with a wrong VZ, under an earlier version (and under none: rows from before versions were kept).
+    for (const version of ['2026-01-01.1', null]) {
+      const old = {
+        ...current,
+        variants: [{ ...current.variants[0], fields: { ...current.variants[0].fields, vzNom: { ...current.variants[0].fields.vzNom!, si: 99 } } }],
+      };
+      await t.exec('UPDATE datasheet_extractions SET result = ?, variant_count = 1, reader_version = ? WHERE datasheet_id = ?', [
+        JSON.stringify(old),
+        version,
+        id,
+      ]);
+      const seen = (await t.http.get(`/api/datasheets/${id}/extraction`).set(auth(designer))).body as ExtractionResult;
+      expect(seen).toMatchObject({ outdated: true, variants: [{ fields: { vzNom: { si: 99 } } }] });
+      // Only an engineer reads a file again; the stored reading is untouched by the refusal.
+      expect((await t.http.post(`/api/datasheets/${id}/extraction`).set(auth(designer))).status).toBe(403);
+      expect((await t.http.post(`/api/datasheets/${id}/extraction`).set(auth(buyer))).status).toBe(403);
+      const again = await t.http.post(`/api/datasheets/${id}/extraction`).set(auth(engineer));
+      expect(again.status).toBe(200);
+      const reading = again.body as ExtractionResult;
+      expect(reading.outdated).toBe(false);
+      expect(reading.variants.map((v) => v.mpn).sort()).toEqual(fixture.answers.variants.map((v) => v.mpn).sort());
+      expect(reading.variants.some((v) => v.fields.vzNom?.si === 99)).toBe(false);
+      expect(
+        (
+          await t.select<{ reader_version: string; variant_count: number }>(
+            'SELECT reader_version, variant_count FROM datasheet_extractions WHERE datasheet_id = ?',
+            [id],
+          )
+        )[0],
+      ).toEqual({
+        reader_version: EXTRACTOR_VERSION,
+        variant_count: fixture.answers.variants.length,
+      });
+    }
+    // A current reading is answered as stored (not read again).
+    await t.exec('UPDATE datasheet_extractions SET warning_count = 77 WHERE datasheet_id = ?', [id]);
+    expect((await t.http.post(`/api/datasheets/${id}/extraction`).set(auth(engineer))).status).toBe(200);
+    expect((await t.select<{ n: number }>('SELECT warning_count AS n FROM datasheet_extractions WHERE datasheet_id = ?', [id]))[0].n).toBe(77);
+    const missing = await t.http.post('/api/datasheets/999999/extraction').set(auth(engineer));
+    expect(missing.status).toBe(404);
+    expect(missing.body.message).toMatch(/No datasheet with id 999999/);
+  });
+
+  it('keeps an outdated reading when the stored object cannot be read, and says so', async () => {
+    const fixture = sheet('aldmoor');
+    const bytes = Buffer.concat([readFileSync(fixture.pdfPath), Buffer.from('\n% object gone\n')]);
+    const id = (await upload(bytes, 'am gone.pdf')).body.id as number;
+    await t.exec("UPDATE datasheet_extractions SET reader_version = '2026-01-01.1' WHERE datasheet_id = ?", [id]);
+    const [{ storage_key: key }] = await t.select<{ storage_key: string }>('SELECT storage_key FROM datasheets WHERE id = ?', [id]);
+    await t.stack.app.get(StorageService).delete(key);
+    const again = await t.http.post(`/api/datasheets/${id}/extraction`).set(auth(engineer));
+    expect(again.status).toBe(503);
+    expect(again.body.message).toMatch(/object store did not return the file; the stored reading stays/);
+    expect((await t.http.get(`/api/datasheets/${id}/extraction`).set(auth(engineer))).body).toMatchObject({ outdated: true });
+  });
+
   it('returns the stored datasheet for the same file again, adding nothing', async () => {
     const fixture = sheet('lumenvale');
     const first = await upload(fixture.pdfPath, 'lvd1.pdf');

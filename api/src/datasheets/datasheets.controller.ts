@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator';
@@ -72,6 +72,16 @@ export class DatasheetsController {
   @ApiOkResponse({ type: ExtractionResultDto })
   extraction(@Param('id', ParseIntPipe) id: number) {
     return this.datasheets.extraction(id);
+  }
+
+  /** The stored file read again by the current reader, when its stored reading came from an earlier version. */
+  @Post(':id/extraction')
+  @Roles('engineer')
+  @RateLimit('upload')
+  @HttpCode(200)
+  @ApiOkResponse({ type: ExtractionResultDto, description: 'the current reading (made now when the stored one was outdated)' })
+  readAgain(@Param('id', ParseIntPipe) id: number) {
+    return this.datasheets.readAgain(id);
   }
 
   @Post(':id/variants')

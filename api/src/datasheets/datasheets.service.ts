@@ -161,7 +161,32 @@ export class DatasheetsService {
       if (!(await this.exists(id))) throw new NotFoundException(`No datasheet with id ${id}`);
       throw new NotFoundException(`Datasheet ${id} has no extraction result`);
     }
-    return extractionResultSchema.parse(typeof row.result === 'string' ? JSON.parse(row.result) : row.result);
+    const result = extractionResultSchema.parse(typeof row.result === 'string' ? JSON.parse(row.result) : row.result);
+    return { ...result, outdated: row.readerVersion !== EXTRACTOR_VERSION };
+  }
+
+  /**
+   * Reads a stored datasheet again with the current reader, when its stored reading came from
+   * an earlier version (else the stored reading is answered as it is). The file comes from the
+   * object store; a file the reader now refuses keeps the old reading and answers the reader's
+   * own error.
+   */
+  async readAgain(id: number): Promise<ExtractionResult> {
+    const row = await this.datasheets.findById(id);
+    if (!row) throw new NotFoundException(`No datasheet with id ${id}`);
+    const version = await this.datasheets.readerVersion(id);
+    if (version !== EXTRACTOR_VERSION) {
+      let bytes: Uint8Array;
+      try {
+        bytes = await this.storage.getBytes(row.storageKey);
+      } catch (error) {
+        this.logger.error(`datasheet ${id}: object ${row.storageKey} not readable: ${(error as Error).message}`);
+        throw new ServiceUnavailableException('The object store did not return the file; the stored reading stays. Try again in a moment.');
+      }
+      const extraction = await this.read(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      await this.storeReading(id, version, extraction);
+    }
+    return this.extraction(id);
   }
 
   /**
@@ -251,8 +276,13 @@ export class DatasheetsService {
       this.logger.warn(`datasheet ${datasheetId}: reading it again failed, the stored reading stays: ${(error as Error).message}`);
       return;
     }
+    await this.storeReading(datasheetId, version, extraction);
+  }
+
+  /** A fresh reading stored in place of the old one (or as the first, when none was kept). */
+  private async storeReading(datasheetId: number, oldVersion: string | null | undefined, extraction: ExtractionResult): Promise<void> {
     const values = extractionRow(datasheetId, extraction);
-    if (version === undefined) await this.unitOfWork.run((transaction) => this.datasheets.createExtraction(values, transaction));
+    if (oldVersion === undefined) await this.unitOfWork.run((transaction) => this.datasheets.createExtraction(values, transaction));
     else await this.datasheets.replaceExtraction(values);
   }
 

@@ -87,5 +87,11 @@ export const extractionResultSchema = z.object({
   pages: z.number().int().nonnegative(),
   /** False for a scan: pages with images only. */
   hasText: z.boolean(),
+  /**
+   * True when the stored reading was made by an earlier version of the datasheet reader
+   * (set by `GET …/extraction`): reading the file again may find more, and leaves out figures
+   * the earlier version got wrong. `POST …/extraction` reads it again.
+   */
+  outdated: z.boolean().optional(),
 });
 export type ExtractionResult = z.infer<typeof extractionResultSchema>;

@@ -10,6 +10,7 @@ import { useDatasheet } from '@/features/datasheets/api/get-datasheet';
 import { useExtraction } from '@/features/datasheets/api/get-extraction';
 import { MeasurementsPanel } from '@/features/measurements/components/measurements-panel';
 import { DatasheetUpload } from '@/features/datasheets/components/datasheet-upload';
+import { OutdatedReading } from '@/features/datasheets/components/outdated-reading';
 import { DatasheetViewer, type ViewerTarget } from '@/features/datasheets/components/datasheet-viewer';
 import { useRatingCard } from '@/features/vendor-parts/api/get-rating-card';
 import { useVendorPart } from '@/features/vendor-parts/api/get-vendor-part';
@@ -211,6 +212,9 @@ export function VendorPartRoute() {
               <Alert color="red" p="xs" mb="xs" role="alert">
                 The datasheet&apos;s suggestions could not be loaded: {describeError(extraction.error)}
               </Alert>
+            )}
+            {datasheetId !== null && extraction.data?.outdated && (
+              <OutdatedReading key={datasheetId} datasheetId={datasheetId} canReadAgain={session?.user.role === 'engineer'} />
             )}
             <RatingCardEditor vendorPart={p} card={card.data} extraction={cardExtraction} onShowSource={showSource} />
           </Box>
