@@ -5,7 +5,7 @@ import { findPackage, headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
 import { Cell, cellBox, Line } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
-import { TOLERANCE_LEGEND_CONTEXT } from './vocabulary';
+import { CONDITION_SYMBOL, TOLERANCE_LEGEND_CONTEXT } from './vocabulary';
 
 /**
  * Per-part blocks: a heading with the part number, then one line per characteristic —
@@ -220,6 +220,21 @@ export function namesAnotherPart(text: string, mpn: string): boolean {
   });
 }
 
+/**
+ * The label without the test conditions that lost their figure ("IZ = mA", "VRM = V": a scan
+ * dropped the number). Complete conditions were cut before; what is left of one would name the
+ * row's field by its symbol (IZ → a test current) and lend the row its unit (mA), and a Zener
+ * voltage or coefficient row became a test current of the row's figures.
+ */
+export function withoutLostConditions(label: string): string {
+  // The symbol with its sign, and the word after it when that is the lost figure's unit.
+  const lost = new RegExp(`${CONDITION_SYMBOL.source}(\\S+)?`, CONDITION_SYMBOL.flags);
+  return label
+    .replace(lost, (_m, _symbol: string, next?: string) => (next && !isUnitOnly(next) ? ` ${next}` : ' '))
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
 /** Reads one key–value line into the part's draft; 'repeated' (and nothing read) when it is a second line of the block for a Zener voltage already read. */
 function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: () => VariantDraft, vz: VzLines, seen: Set<string>): 'repeated' | void {
   const cleaned = line.cells.map((cell) => ({ cell, rest: findConditions(cell.text).rest }));
@@ -237,7 +252,7 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
     for (const t of tokens) values.push({ token: t, cell });
   }
   if (values.length === 0) return;
-  const label = labelParts.join(' ');
+  const label = withoutLostConditions(labelParts.join(' '));
   // "Regulation voltage, UZ (V) ...... 7.50": the unit stands in the key, in brackets.
   unitCell ??= headerUnit(label);
   const unitFor = (v: ValueToken) => v.token.unit || unitCell || '';

@@ -439,6 +439,47 @@ describe('a part heading with its test conditions in brackets', () => {
   });
 });
 
+describe('a parameter-table row whose test condition lost its figure (as a scan can lose it)', () => {
+  // Seen on a fresh scan: "IZ = 2,6 mA" read as "IZ = | mA" gave a Zener voltage row's figures, and
+  // a coefficient's, as the test current; "VRM = 16,8 V" read as "VRM = | V" gave a leakage of
+  // 0.5 µA as a test voltage of 0.5 V.
+  it("keeps the lost condition out of the row: its symbol names no field and its unit is not the row's", () => {
+    const xs = [50, 80, 200, 270, 310, 350, 390];
+    const result = extractRatings(
+      pdf([
+        ...row(760, [50], ['XQ24']),
+        ...row(748, xs, ['Symbol', 'Parameter', 'Conditions', 'Min.', 'Typ.', 'Max.', 'Unit']),
+        ...row(736, [50, 80, 200, 226, 270, 310, 350, 390], ['UZ', 'Zener voltage', 'IZ =', 'mA', '22.8', '24.0', '25.2', 'V']),
+        ...row(724, [50, 80, 200, 226, 310, 390], ['SZ', 'Temperature coefficient', 'IZ =', 'mA', '+0.089', '%/K']),
+        ...row(712, [50, 80, 200, 230, 350, 390], ['IR', 'Reverse leakage current', 'VRM =', 'V', '0.5', 'µA']),
+        ...row(700, [50, 80, 200, 226, 350], ['UZ', 'Zener voltage', 'IZ =', 'mA', '25.2']),
+      ]),
+    );
+    const part = result.variants.find((v) => v.mpn === 'XQ24');
+    expect(part?.fields.izt).toBeUndefined();
+    expect(part?.fields.vr).toBeUndefined();
+    expect(part?.fields).toMatchObject({ vzMin: { si: 22.8 }, vzNom: { si: 24 }, vzMax: { si: 25.2 }, irMax: { si: 0.5e-6 } });
+  });
+
+  it('still reads a whole condition beside the row', () => {
+    const xs = [50, 80, 200, 270, 310, 350, 390];
+    const result = extractRatings(
+      pdf([
+        ...row(760, [50], ['XQ24']),
+        ...row(748, xs, ['Symbol', 'Parameter', 'Conditions', 'Min.', 'Typ.', 'Max.', 'Unit']),
+        ...row(736, xs, ['UZ', 'Zener voltage', 'IZ = 2.6 mA', '22.8', '24.0', '25.2', 'V']),
+        ...row(724, [50, 80, 200, 350, 390], ['IR', 'Reverse leakage current', 'VRM = 16.8 V', '0.5', 'µA']),
+      ]),
+    );
+    expect(result.variants.find((v) => v.mpn === 'XQ24')?.fields).toMatchObject({
+      izt: { si: 0.0026 },
+      vr: { si: 16.8 },
+      vzNom: { si: 24 },
+      irMax: { si: 0.5e-6 },
+    });
+  });
+});
+
 describe('a Zener-voltage line without its qualifier where the document qualifies its VZ lines', () => {
   // Each part's block prints VZ as min., nom. and max. lines (common practice, no source). A scan
   // can lose the "min." of one line; the figure left over is the minimum, not the nominal.
@@ -542,6 +583,19 @@ describe('ratings in prose', () => {
     expect(v.fields.vr).toMatchObject({ si: 8.4 });
     expect(v.fields.tc).toMatchObject({ si: 0.0092 });
     expect(v.package).toMatchObject({ value: 'SOD-123' });
+  });
+
+  it('reads a bracketed range as the limits, never as the nominal, when the nominal before it was not read', () => {
+    // Seen on a scan: "UZ is 2.70 (2) V nominal (2.57 V to 2.84 V)" lost its garbled nominal, and 2.57 V became VZnom.
+    const result = extractRatings(
+      pdf([
+        item('NWR2V7, SOT-23: UZ is V nominal (2.57 V to 2.84 V) measured at IT = 1 mA.', 50, 700, 9, 360),
+        item('ZZ does not exceed 330 ohm. ID is 200 µA maximum at VRM = 1 V.', 50, 688, 9, 360),
+      ]),
+    );
+    const v = result.variants[0];
+    expect(v.fields.vzNom).toBeUndefined();
+    expect(v.fields).toMatchObject({ vzMin: { si: 2.57 }, vzMax: { si: 2.84 }, zzt: { si: 330 } });
   });
 
   it('never takes the letters of a part number for a qualifier ("The MAX3V6 regulates at 3.60 V" is the nominal)', () => {

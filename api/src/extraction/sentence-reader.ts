@@ -143,6 +143,20 @@ function readClause(printed: string, offset: number, whole: string, offer: (f: E
         continue;
       }
     }
+    // "UZ is 2.70 V nominal (2.57 V to 2.84 V)" with the nominal unread (a scan lost it): the
+    // bracketed range is the Zener voltage's limits, never the nominal itself.
+    const next = tokens[i + 1];
+    if (t.kind === 'voltage' && /\(\s*$/.test(before) && next?.kind === 'voltage' && /^\s*(?:to|…|–|-)\s*$/.test(clause.slice(t.end, next.index))) {
+      const named = fieldFor(clause.slice(labelStart, t.index), 'voltage')?.field;
+      if (named === 'vzNom' || named === 'vzMin' || named === 'vzMax') {
+        offer('vzMin', at, 2);
+        offer('vzMax', { ...next, index: next.index + offset, end: next.end + offset }, 2);
+      }
+      primary = undefined;
+      labelStart = next.end;
+      i++;
+      continue;
+    }
     if (primary && CONDITION_BEFORE.test(before)) {
       const symbol = [...before.matchAll(CONDITION_SYMBOL)].pop();
       const field = symbol ? conditionField(symbol[1], t.kind, primary.field) : bareConditionField(t.kind, primary.field);

@@ -270,7 +270,8 @@ const DIGIT_LOOKALIKES: Record<string, string> = { S: '5', O: '0', o: '0', I: '1
 function asDigits(mpn: string): string {
   const first = mpn.search(/\d/);
   if (first < 0) return mpn;
-  return mpn.slice(0, first) + mpn.slice(first).replace(/(?<=\d)[SOoIlBZG](?=\d|$)/g, (c) => DIGIT_LOOKALIKES[c]);
+  // Also the digit after a voltage code's V ("NA7VS" for NA7V5).
+  return mpn.slice(0, first) + mpn.slice(first).replace(/(?<=\d|\dV)[SOoIlBZG](?=\d|$)/g, (c) => DIGIT_LOOKALIKES[c]);
 }
 
 /** Whether removing one letter of `longer` (not its first or last character) gives `shorter`: 100 among 10, 12, 15 is a real part, 4VT7 among 5V1, 5V6 is not. */

@@ -2,6 +2,7 @@ import { mergeReadings, readingQuality, type OcrLine, type OcrWord } from './ocr
 import { codedVoltage, implausibleValues, misreadPartNumbers } from './ocr-extraction';
 import { legendSigns, ocrItems, repairOcrWord, skewOf, unitsRow } from './ocr-items';
 import { pageBody, withoutSidewaysMargins } from './page-ocr';
+import { withSecondRead } from './segmented-reading';
 
 /**
  * The repairs and checks applied to OCR output. The misreadings are the ones the English
@@ -24,6 +25,18 @@ describe('repairOcrWord', () => {
     ['10HA', '10µA'],
     ['25Q', '25Ω'],
     ['(Vv)', '(V)'],
+    ['UA', 'µA'],
+    ['0.5UA', '0.5µA'],
+    ['[UA]', '[µA]'],
+    ['7.502)', undefined],
+    ['+14.52)', undefined],
+    ['2.70%)', undefined],
+    ['2.84V)', '2.84V)'],
+    ['MA', 'mA'],
+    ['2MA', '2mA'],
+    ['[MA]', '[mA]'],
+    ['(MA)', '(mA)'],
+    ['MAX', 'MAX'],
     ['1ZT', 'IZT'],
     ['1IZT', 'IZT'],
     ['lZK', 'IZK'],
@@ -83,6 +96,20 @@ describe('ocrItems', () => {
   it('leaves out unsure numbers but keeps unsure header units and symbols, repaired', () => {
     const items = ocrItems([tilted(500, [word('(Q)', 200, 30), word('1ZT', 400, 20), word('5.1', 600, 60), word('Type', 800, 30)])], geometry);
     expect(items.map((i) => i.str)).toEqual(['(Ω)', 'IZT']);
+  });
+
+  it('reads a figure run together with its condition\'s "@" as the figure, the sign and the condition, each in its share of the box', () => {
+    // Seen on a scanned leader list: "8,2 @ 2 mA" came out as "8,2@" and "2", "32 @ 2 mA" as one word.
+    const items = ocrItems(
+      [tilted(500, [word('8,2@', 1000), word('2', 1100), word('mA', 1200)]), tilted(600, [{ ...word('32@2mA', 1000), x1: 1120 }])],
+      geometry,
+    );
+    expect(items.map((i) => i.str)).toEqual(['8.2', '@', '2', 'mA', '32', '@', '2mA']);
+    const px = (i: number) => items[i].x * (300 / 72);
+    expect(px(5) - px(4)).toBeCloseTo(40, 0);
+    expect(px(6) - px(5)).toBeCloseTo(20, 0);
+    // An unsure glued figure is still left out; its condition alone carries no value.
+    expect(ocrItems([tilted(500, [word('8,2@', 1000, 60)])], geometry).map((i) => i.str)).toEqual(['@']);
   });
 });
 
@@ -240,6 +267,8 @@ describe('part numbers misread by OCR', () => {
     expect(misreadPartNumbers(['VLY-30', 'VLY-39VLY-43'])).toEqual(['VLY-39VLY-43']);
     // A series' letter lost: a lone part whose letters are one edit from a series of two or more.
     expect(misreadPartNumbers(['KJM33', 'KJM36', 'KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
+    // A 5 read as S after the voltage code's V: the part read right is in the list too.
+    expect(misreadPartNumbers(['NA6V8', 'NA7V5', 'NA7VS', 'NA8V2'])).toEqual(['NA7VS']);
     expect(misreadPartNumbers(['KM36', 'KJM39', 'KJM43'])).toEqual(['KM36']);
     expect(misreadPartNumbers(['KPB12', 'KPB13', 'KPB15', 'KJM39', 'KJM43', 'KJM47'])).toEqual([]);
   });
@@ -312,5 +341,41 @@ describe('a turned page read in the frame of its sideways table', () => {
   it("keeps the table's own words that reach into a band, and short words inside it", () => {
     const row = line(word('continued', 200), word('on', 330), word('N1', 640), word('Ω', 1700));
     expect(texts(withoutSidewaysMargins([row], 3508))).toEqual(['continued on N1 Ω']);
+  });
+});
+
+describe('a small-print figure read without its decimal point', () => {
+  const read = (confidence: number, ...texts: string[]): OcrLine[] => [
+    {
+      baseline: { x0: 0, y0: 20, x1: 100, y1: 20 },
+      rowHeight: 20,
+      words: texts.map((text, i) => ({ text, confidence, x0: i * 50, y0: 0, x1: i * 50 + 40, y1: 20 })),
+    },
+  ];
+  const reading = (...texts: string[]) => read(90, ...texts);
+  const text = (ls: OcrLine[]) => ls.flatMap((l) => l.words.map((w) => w.text)).join(' ');
+  it('takes the enlarged reading when it is the same figure with a separator between its digits', async () => {
+    expect(text(await withSecondRead(reading('680V'), async () => reading('6.80V')))).toBe('6.80V');
+    expect(text(await withSecondRead(reading('71v'), async () => reading('7.1V')))).toBe('7.1V');
+    expect(text(await withSecondRead(reading('48', 'V'), async () => reading('4,8', 'V')))).toBe('4,8 V');
+  });
+
+  it('keeps the first reading when the enlarged one differs in anything else, or has no separator either', async () => {
+    expect(text(await withSecondRead(reading('99', 'Ω'), async () => reading('8.9', 'Q')))).toBe('99 Ω');
+    expect(text(await withSecondRead(reading('59V'), async () => reading('59V')))).toBe('59V');
+    expect(text(await withSecondRead(reading('680V'), async () => reading('6.81V')))).toBe('680V');
+  });
+
+  it('takes the surer of two alike readings of an unsure figure, and never an unlike one', async () => {
+    const confidence = (ls: OcrLine[]) => ls[0].words[0].confidence;
+    expect(confidence(await withSecondRead(read(57, '6.80V'), async () => read(87, '6.80V')))).toBe(87);
+    expect(confidence(await withSecondRead(read(57, '6.80V'), async () => read(40, '6.80V')))).toBe(57);
+    expect(text(await withSecondRead(read(57, '6.80V'), async () => read(95, '6.30V')))).toBe('6.80V');
+  });
+
+  it('does not read again a sure figure that has its separator, a label, or a row of several words', async () => {
+    const again = jest.fn(async () => reading('1.0'));
+    for (const first of [reading('6.2V'), reading('Zener'), reading('10', 'to', '20'), reading('5')]) await withSecondRead(first, again);
+    expect(again).not.toHaveBeenCalled();
   });
 });

@@ -1,6 +1,6 @@
 import type { PdfTextItem } from '../pdf-text';
 import { unitKind } from '../quantity-text';
-import type { OcrLine } from './ocr-engine';
+import type { OcrLine, OcrWord } from './ocr-engine';
 
 /**
  * OCR words → the text items the text extractor reads (PDF points, baseline, origin
@@ -34,13 +34,14 @@ export function repairOcrWord(raw: string): string | undefined {
   w = w.replace(/(\d)[:;,](?=\d)/g, '$1.');
   // A full stop or colon left hanging after a number at the end of a cell.
   if (/^[+\-−]?\d+(?:\.\d+)?[.:;,]$/.test(w)) w = w.slice(0, -1);
-  // Units the model cannot spell: µ comes out as H, p, u, y or W before A; Ω as Q (or 0, 2
+  // Units the model cannot spell: µ comes out as H, p, u, U, y or W before A; Ω as Q (or 0, 2
   // inside brackets). Only where the shape leaves no doubt: a bracketed header unit or a
   // unit glued to a number.
-  w = w.replace(/^([([])([HpuyW]|µ|μ)A([)\]])$/, '$1µA$3').replace(/^([([])([kKmM]?)[QO02]([)\]])$/, '$1$2Ω$3');
-  w = w.replace(/^(\d+(?:\.\d+)?)([HyW])A$/, '$1µA').replace(/^(\d+(?:\.\d+)?)([kK]?)Q$/, '$1$2Ω');
+  w = w.replace(/^([([])([HpuyWU]|µ|μ)A([)\]])$/, '$1µA$3').replace(/^([([])([kKmM]?)[QO02]([)\]])$/, '$1$2Ω$3');
+  w = w.replace(/^(\d+(?:\.\d+)?)([HyWU])A$/, '$1µA').replace(/^(\d+(?:\.\d+)?)([kK]?)Q$/, '$1$2Ω');
   // A lone pA is µA too: regulator-diode leakage is specified in µA or nA, never pA (common practice, no source).
-  if (/^[HypW]A$/.test(w)) w = 'µA';
+  // A lone "UA" is the u of a "uA" written large.
+  if (/^[HypWU]A$/.test(w)) w = 'µA';
   if (/^[kK]?Q$/.test(w)) w = w.replace('Q', 'Ω');
   w = w.replace(/^\(Vv\)$|^\(v\)$/, '(V)').replace(/^\[Vv\]$|^\[v\]$/, '[V]');
   // A lone V (a unit cell) comes out as 'Vv' or 'v': no word of a datasheet is either.
@@ -49,6 +50,9 @@ export function repairOcrWord(raw: string): string | undefined {
   // K/W, and the degree sign with its C reads as a copyright sign ("150 (©" for 150 °C).
   w = w.replace(/^(\d+(?:\.\d+)?)?mw$/, '$1mW').replace(/^K\/[wW]{1,2}$/, 'K/W');
   if (/^\(?©\)?$|^°c$/.test(w)) w = '°C';
+  // Mega-amperes are no rating or condition of a regulator diode: "MA" alone, bracketed or glued
+  // to a figure is mA with its m read large ("@ 2 MA", "[MA]"; common practice, no source).
+  w = w.replace(/^(\d+(?:\.\d+)?)?MA$/, '$1mA').replace(/^([([])MA([)\]])$/, '$1mA$2');
   // Symbols: I read as 1 or l before Z; α before VZ read as a.
   // Also inside a condition's bracket, and before a bracketed index: "(1ZT", "I1ZT", "1Z(K)", "1Z = 5 mA".
   w = w.replace(/^(\(?)[1lI|]{1,2}Z(?=[TKM(]|$)/, '$1IZ').replace(/^a[Vv]*(VZ|Vz|vz)$/, 'αVZ');
@@ -56,6 +60,9 @@ export function repairOcrWord(raw: string): string | undefined {
   w = w.replace(/^([+\-−]?\d+(?:\.\d+)?)?mv(?=\/|$)/, '$1mV');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
   w = w.replace(/(\d)[Vv]{1,2}(?=\d)/g, '$1V');
+  // A figure with a closing bracket and no opening one ("7.502)", "+14.52)", "2.70%)"): a footnote
+  // mark "(2)" whose opening bracket ran into the figure, so its digit may have too.
+  if (/^[+\-−]?\d[\d.,]*%?\)$/.test(w)) return undefined;
   // A token that starts like a number but carries other marks (234], 1:, 5:7.) is not trusted.
   if (/^[+\-−]?\d/.test(w) && !NUMBER.test(w) && /[^\w.%/°µΩ()\-−+]/.test(w)) return undefined;
   return w;
@@ -98,8 +105,9 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     const b = line.baseline;
     const start = unskew(b.x0, b.y0);
     const size = Math.max(1, line.rowHeight / g.scale);
-    const texts = legendSigns(unitsRow(line.words.map((w) => repairOcrWord(w.text))));
-    for (const [w, word] of line.words.entries()) {
+    const words = line.words.flatMap(apartAtSigns);
+    const texts = legendSigns(unitsRow(words.map((w) => repairOcrWord(w.text))));
+    for (const [w, word] of words.entries()) {
       const text = texts[w];
       if (!text) continue;
       // A bracketed unit or a column symbol the repair made sense of is kept however unsure the engine was.
@@ -126,6 +134,25 @@ export function ocrItems(lines: OcrLine[], g: PageGeometry): PdfTextItem[] {
     }
   }
   return items;
+}
+
+/**
+ * A word the engine ran together with a condition's "@" ("8,2@", "32@2mA": the space before a
+ * narrow "@" is often lost) as its pieces, each with its share of the word's box (by
+ * characters) and the word's confidence. Glued, the figure was refused as a number with stray
+ * marks in it, and the value with its condition was lost.
+ */
+export function apartAtSigns(word: OcrWord): OcrWord[] {
+  const text = word.text.trim();
+  if (!text.includes('@') || text === '@') return [word];
+  const pieces = text.split(/(@)/).filter((p) => p.length > 0);
+  const perChar = (word.x1 - word.x0) / text.length;
+  let at = 0;
+  return pieces.map((piece) => {
+    const x0 = word.x0 + at * perChar;
+    at += piece.length;
+    return { ...word, text: piece, x0, x1: word.x0 + at * perChar };
+  });
 }
 
 /** A unit as a units row prints it, bare or in brackets. */
