@@ -3,7 +3,7 @@ import { fieldFor, findConditions, Qualifier } from './field-patterns';
 import { flat } from './device-values';
 import { findPackage, headingPartNumber, isPartNumber } from './part-numbers';
 import { findQuantities, headerUnit, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
-import { Cell, cellBox, Line } from './text-layout';
+import { Cell, cellBox, Line, wordSpaced } from './text-layout';
 import { FIELD_KINDS, orderOf, VariantDraft, VariantDrafts } from './variant-drafts';
 import { CONDITION_SYMBOL, TOLERANCE_LEGEND_CONTEXT } from './vocabulary';
 
@@ -130,7 +130,7 @@ export function readBlocks(pages: Line[][], used: Set<Line>, drafts: VariantDraf
         continue;
       }
       // A section title ("Maximum ratings, DS series", "Ordering information") ends the part's block.
-      if (SECTION_TITLE.test(line.text) && line.cells.length <= 2 && !findQuantities(line.text).some((t) => t.unit)) {
+      if (SECTION_TITLE.test(line.text) && (line.cells.length <= 2 || wordSpaced(line)) && !findQuantities(line.text).some((t) => t.unit)) {
         endBlock();
         continue;
       }
@@ -249,7 +249,9 @@ function readLine(line: Line, qualifiers: QualifierColumn[] | undefined, draft: 
     }
     if (values.length === 0 && tokens.length && tokens[0].index > 0) labelParts.push(rest.slice(0, tokens[0].index));
     if (tokens.length === 0 && isUnitOnly(rest)) unitCell = rest.trim();
-    for (const t of tokens) values.push({ token: t, cell });
+    // A figure with a closing bracket after it and no opening one before ("+14.52) mV/°C"): a
+    // footnote mark "(2)" whose opening bracket a scan lost, its digit run into the figure.
+    for (const t of tokens) if (!(/^\)/.test(rest.slice(t.end)) && !rest.slice(0, t.index).includes('('))) values.push({ token: t, cell });
   }
   if (values.length === 0) return;
   const label = withoutLostConditions(labelParts.join(' '));

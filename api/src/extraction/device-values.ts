@@ -2,7 +2,7 @@ import type { ExtractionBox } from '@shuntwise/contracts';
 import { findConditions, qualifierOf } from './field-patterns';
 import { findPackage } from './part-numbers';
 import { findQuantities, isNumericCell, isUnitOnly, QuantityToken, toSi, unitKind } from './quantity-text';
-import { Cell, cellBox, Line, lineBox } from './text-layout';
+import { Cell, cellBox, Line, lineBox, wordSpaced } from './text-layout';
 import { Candidate, PackageCandidate } from './variant-drafts';
 import { DEVICE_RULES, DeviceRule } from './vocabulary';
 
@@ -93,7 +93,9 @@ interface ReadContext {
 function headingScope(ctx: ReadContext, line: Line): Scope {
   for (let k = line.index - 1; k >= 0; k--) {
     const l = ctx.lines[k];
-    if (l.cells.length > 2 || l.text.length > 80) continue;
+    // A table row is no heading; a heading a scan cut into words is ("Maximum | ratings, | SH |
+    // series | (SOT-23)": its cells sit a word space apart, never a column's gutter).
+    if ((l.cells.length > 2 && !wordSpaced(l)) || l.text.length > 80) continue;
     if (findQuantities(l.text).some((t) => t.unit)) continue;
     // A features bullet is no heading.
     if (/^[•·]/.test(l.text)) continue;

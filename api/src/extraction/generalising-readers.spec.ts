@@ -295,6 +295,38 @@ describe('maximum ratings scoped to the series or package they name', () => {
     expect(result.warnings.some((w) => /rthJA left empty/.test(w))).toBe(true);
   });
 
+  it('reads a series heading that a scan cut into words as the heading: it scopes the ratings under it and ends the part block above', () => {
+    // Seen on a fresh scan: "Maximum | ratings, | SKFE | series | (SMB)" was passed over as a table
+    // row, so SH-10's block ran on into the SKFE ratings, and each series took the other's.
+    const words = (y: number, ...ws: string[]) => {
+      let x = 50;
+      return ws.map((w) => {
+        const it = item(w, x, y);
+        x += it.width + 6;
+        return it;
+      });
+    };
+    const result = extractRatings(
+      pdf([
+        ...words(780, 'Maximum', 'ratings,', 'SH', 'series', '(SOT-23)'),
+        ...row(768, [50, 300], ['Continuous power dissipation, PZ .......', '250 mW']),
+        ...row(756, [50, 300], ['Thermal resistance, RthJA .......', '500 K/W']),
+        ...row(730, [50], ['SH-10']),
+        ...row(718, [50, 300], ['Working voltage nom., VZ [V] .......', '10']),
+        ...row(706, [50, 300], ['Dynamic impedance max., ZZT [Ω] .......', '20']),
+        ...words(680, 'Maximum', 'ratings,', 'SKFE', 'series', '(SMB)'),
+        ...row(668, [50, 300], ['Continuous power dissipation, PZ .......', '1 W']),
+        ...row(656, [50, 300], ['Thermal resistance, RthJA .......', '150 K/W']),
+        ...row(630, [50], ['SKFE-43']),
+        ...row(618, [50, 300], ['Working voltage nom., VZ [V] .......', '43']),
+        ...row(606, [50, 300], ['Dynamic impedance max., ZZT [Ω] .......', '90']),
+      ]),
+    );
+    const byMpn = new Map(result.variants.map((v) => [v.mpn, v]));
+    expect(byMpn.get('SH-10')?.fields).toMatchObject({ vzNom: { si: 10 }, pdMax: { si: 0.25 }, rthJA: { si: 500 } });
+    expect(byMpn.get('SKFE-43')?.fields).toMatchObject({ vzNom: { si: 43 }, pdMax: { si: 1 }, rthJA: { si: 150 } });
+  });
+
   it("takes no figure from a table beside the ratings on a two-column page (a package outline's Min and Max)", () => {
     // The ratings table in the left column, the outline dimensions in the right: one text line each.
     const cell = (str: string, x: number, y: number) => item(str, x, y, 7, str.length * 3);
@@ -477,6 +509,22 @@ describe('a parameter-table row whose test condition lost its figure (as a scan 
       vzNom: { si: 24 },
       irMax: { si: 0.5e-6 },
     });
+  });
+});
+
+describe('a list value with a footnote mark run into it (as a scan can read "+14.5 (2)")', () => {
+  it('leaves out a figure with a closing bracket after it and no opening one, and reads the others', () => {
+    const result = extractRatings(
+      pdf([
+        ...row(760, [50], ['KF-160']),
+        ...row(748, [50, 260], ['Zener voltage nom., VZ [V] ........', '16']),
+        ...row(736, [50, 260], ['Voltage temperature coefficient typ., αVZ [mV/°C] ....', '+14.52)']),
+        ...row(724, [50, 260], ['Dynamic resistance max., rzj [ohm] ........', '85 (2)']),
+      ]),
+    );
+    const part = result.variants.find((v) => v.mpn === 'KF-160');
+    expect(part?.fields.tc).toBeUndefined();
+    expect(part?.fields).toMatchObject({ vzNom: { si: 16 }, zzt: { si: 85 } });
   });
 });
 

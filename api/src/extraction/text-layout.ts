@@ -26,6 +26,15 @@ export interface Line {
   printed: string;
 }
 
+/**
+ * Whether a line's cells follow each other at word spaces (under one font size apart): one run
+ * of words that OCR cut at every space ("Maximum | ratings, | SH | series"), not a table's
+ * columns, whose gutters are wider.
+ */
+export function wordSpaced(line: Line): boolean {
+  return line.cells.every((c, i) => i === 0 || c.x0 - line.cells[i - 1].x1 < line.size);
+}
+
 /** A gap wider than this many font sizes starts a new cell (a word space is about 0.3). */
 const CELL_GAP = 0.55;
 

@@ -60,9 +60,6 @@ export function repairOcrWord(raw: string): string | undefined {
   w = w.replace(/^([+\-−]?\d+(?:\.\d+)?)?mv(?=\/|$)/, '$1mV');
   // Regulator part numbers code the voltage as 5V1: a doubled or lower-case V between digits.
   w = w.replace(/(\d)[Vv]{1,2}(?=\d)/g, '$1V');
-  // A figure with a closing bracket and no opening one ("7.502)", "+14.52)", "2.70%)"): a footnote
-  // mark "(2)" whose opening bracket ran into the figure, so its digit may have too.
-  if (/^[+\-−]?\d[\d.,]*%?\)$/.test(w)) return undefined;
   // A token that starts like a number but carries other marks (234], 1:, 5:7.) is not trusted.
   if (/^[+\-−]?\d/.test(w) && !NUMBER.test(w) && /[^\w.%/°µΩ()\-−+]/.test(w)) return undefined;
   return w;
