@@ -86,6 +86,8 @@ describe('reading a scanned page: what the OCR path leaves out', () => {
     const result = await extractWithOcr(scanned, { engine: engineReading(lines), dpi: 300, maxOcrPages: 5 });
     expect(result.variants).toEqual([]);
     expect(result.warnings.join(' ')).toMatch(/letter after the part number.*legend/);
+    // The page's parts were read and left out: it is not called a page where OCR found nothing.
+    expect(result.warnings.join(' ')).not.toMatch(/page 1: no text layer and OCR found no ratings/);
   });
 
   it('leaves out the parts a legend read for another series did not expand (a base number is not a part), and keeps the expanded ones', async () => {

@@ -71,7 +71,9 @@ export async function extractWithOcr(buffer: Uint8Array, options: OcrExtractionO
 
   const pagesWithValues = new Set(variants.flatMap((v) => Object.values(v.fields).map((f) => f.page)));
   for (const page of ocrItems.keys()) {
-    if (!pagesWithValues.has(page)) warnings.push(noOcrRatingsWarning(page));
+    // A page whose parts were read and then left out (a tolerance legend OCR could not read) has its own remark.
+    const leftOut = warnings.some((w) => w.startsWith(`page ${page}: `) && /\bleft out\b/.test(w));
+    if (!pagesWithValues.has(page) && !leftOut) warnings.push(noOcrRatingsWarning(page));
   }
   // The extractor's own "no text found" remark is replaced by the per-page ones above.
   const rest = result.warnings.filter((w) => !/^No text found/.test(w) && !(variants.length === 0 && /^No part numbers/.test(w)));

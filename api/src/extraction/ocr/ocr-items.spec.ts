@@ -104,6 +104,8 @@ describe('ocrItems', () => {
     const px = (i: number) => items[i].x * (300 / 72);
     expect(px(5) - px(4)).toBeCloseTo(40, 0);
     expect(px(6) - px(5)).toBeCloseTo(20, 0);
+    // A glued word that lost its points ("02@105V" for "0.2 @ 10.5 V") stays whole and is refused.
+    expect(ocrItems([tilted(500, [word('02@105V', 1000)])], geometry).map((i) => i.str)).toEqual([]);
     // An unsure glued figure is still left out; its condition alone carries no value.
     expect(ocrItems([tilted(500, [word('8,2@', 1000, 60)])], geometry).map((i) => i.str)).toEqual(['@']);
   });

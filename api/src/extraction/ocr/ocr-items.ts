@@ -143,6 +143,9 @@ export function apartAtSigns(word: OcrWord): OcrWord[] {
   const text = word.text.trim();
   if (!text.includes('@') || text === '@') return [word];
   const pieces = text.split(/(@)/).filter((p) => p.length > 0);
+  // A figure with a leading zero and no separator ("02@105V" for "0.2 @ 10.5 V"): the word lost
+  // its points, its condition's too; left whole, it is refused as before.
+  if (pieces.some((p) => /^[+\-−]?0\d/.test(p))) return [word];
   const perChar = (word.x1 - word.x0) / text.length;
   let at = 0;
   return pieces.map((piece) => {
