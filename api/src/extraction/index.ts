@@ -6,7 +6,7 @@
  * shown what an older reader returned, wrong values it has since learnt to leave out
  * included). Change it whenever a change to the extractor changes what it returns.
  */
-export const EXTRACTOR_VERSION = '2026-12-05.4';
+export const EXTRACTOR_VERSION = '2026-12-05.5';
 export { extractDatasheet, extractRatings, NO_TEXT_WARNING } from './rating-extractor';
 export { checkPdfBytes, loadPdfjs, readPdf } from './pdf-text';
 export type { PdfPageText, PdfText, PdfTextItem } from './pdf-text';

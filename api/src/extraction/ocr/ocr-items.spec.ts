@@ -369,6 +369,8 @@ describe('a small-print figure read without its decimal point', () => {
     expect(confidence(await withSecondRead(read(57, '6.80V'), async () => read(87, '6.80V')))).toBe(87);
     expect(confidence(await withSecondRead(read(57, '6.80V'), async () => read(40, '6.80V')))).toBe(57);
     expect(text(await withSecondRead(read(57, '6.80V'), async () => read(95, '6.30V')))).toBe('6.80V');
+    // Without a separator a surer reading is no better: "105V" may be 10.5 V either way (seen on a scan).
+    expect(confidence(await withSecondRead(read(60, '105V'), async () => read(90, '105V')))).toBe(60);
   });
 
   it('does not read again a sure figure that has its separator, a label, or a row of several words', async () => {

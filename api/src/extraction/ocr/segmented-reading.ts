@@ -15,8 +15,9 @@ const MAX_ZOOM = 3;
  * A figure of small print read unsure, or without a decimal separator ("680V" for "6.80 V": the
  * point is a pixel or two), is read again enlarged as far as it goes. Where both readings give
  * the same digits, the second stands when it shows a separator the first lacked, or when it is
- * the surer of two alike. Seen on scans: "6.80V" and "4.8V" read at 57 and 51 % confidence
- * (left out as unsure) came out at 87 and 89 % enlarged; "680V", "48V" came out "6.80V", "4.8V".
+ * the surer of two alike that both show one. Seen on scans: "6.80V" and "4.8V" read at 57 and
+ * 51 % confidence (left out as unsure) came out at 87 and 89 % enlarged; "680V", "48V" came out
+ * "6.80V", "4.8V".
  * Otherwise the first reading stands, and the value checks catch a point still lost ("59V" for
  * 5.9 V, read so at every size).
  */
@@ -36,7 +37,9 @@ export async function withSecondRead(first: OcrLine[], again: () => Promise<OcrL
   if (!secondWords.length || digits(second) !== digits(first)) return first;
   const separator = (ls: OcrLine[]) => /\d[.,]\d/.test(text(ls));
   if (separator(second) && !separator(first)) return second;
-  return text(second) === text(first) && secondWords[0].confidence > words[0].confidence ? second : first;
+  // Alike and surer: only a figure with its separator. An unsure "105V" read surer enlarged is
+  // still a figure that may have lost its point (10.5 V); it stays unsure and is left out.
+  return separator(first) && text(second) === text(first) && secondWords[0].confidence > words[0].confidence ? second : first;
 }
 
 /**
