@@ -69,6 +69,7 @@ export const ROUTE_ROLES: Readonly<Record<string, Access>> = {
   'GET /api/datasheets/:id': ALL,
   'GET /api/datasheets/:id/file': ALL,
   'GET /api/datasheets/:id/extraction': READERS,
+  'POST /api/datasheets/:id/extraction': ENGINEER,
   'POST /api/datasheets/:id/variants': ENGINEER,
   'POST /api/imports/vendor-series/preview': ENGINEER,
   'POST /api/imports/vendor-series': ENGINEER,
